@@ -1,0 +1,57 @@
+import { defineConfig } from 'vitest/config';
+import { playwright } from '@vitest/browser-playwright';
+
+// Chromium flags for a closed network: no background fetches, no sandbox (CI runs as root).
+export const chromiumArgs = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+
+export default defineConfig({
+  test: {
+    projects: [
+      // Pure science: spectra/ in Node.
+      { test: { name: 'unit', include: ['test/spectra/**/*.test.ts'], environment: 'node' } },
+      // The API on the real Workers runtime (workerd via wrangler) with real local KV.
+      {
+        test: {
+          name: 'api',
+          include: ['test/worker/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+          fileParallelism: false,
+        },
+      },
+      // Lit elements rendered in real headless Chromium.
+      {
+        test: {
+          name: 'web',
+          include: ['test/web/**/*.test.ts'],
+          browser: {
+            enabled: true,
+            headless: true,
+            provider: playwright({ launchOptions: { executablePath: '/usr/bin/chromium', args: chromiumArgs } }),
+            instances: [{ browser: 'chromium' }],
+          },
+        },
+      },
+      // End to end: the app as `npm start` serves it, driven in headless Chromium.
+      {
+        test: {
+          name: 'e2e',
+          include: ['test/e2e/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+          fileParallelism: false,
+        },
+      },
+    ],
+  },
+});

@@ -1,0 +1,1 @@
+// Front-end entry (placeholder until the page is built).
