@@ -1,0 +1,88 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import '../../web/spectrum-chart';
+import type { SpectrumChart } from '../../web/spectrum-chart';
+import type { ChartCurve, ChartPassband, EdgeDragDetail } from '../../web/chart-types';
+import { wavelengthToCss } from '../../web/color';
+
+/** A Gaussian on a 1 nm grid from 300 nm (test data only). */
+function gaussian(peakNm: number, fwhmNm: number): ChartCurve['spectrum'] {
+  const s = fwhmNm / 2.3548;
+  return { startNm: 300, stepNm: 1, values: Float64Array.from({ length: 701 }, (_, i) => Math.exp(-0.5 * ((300 + i - peakNm) / s) ** 2)) };
+}
+
+function box(loNm: number, hiNm: number): ChartPassband['transmission'] {
+  return { startNm: 300, stepNm: 1, values: Float64Array.from({ length: 701 }, (_, i) => (300 + i >= loNm && 300 + i <= hiNm ? 0.9 : 0)) };
+}
+
+async function mount(): Promise<SpectrumChart> {
+  const el = document.createElement('qdp-spectrum-chart');
+  el.style.width = '800px';
+  el.curves = [
+    { id: 'p1', label: 'Green', peakNm: 525, spectrum: gaussian(525, 30) },
+    { id: 'p2', label: 'Deep red', peakNm: 760, spectrum: gaussian(760, 40) },
+  ];
+  el.passbands = [{ id: 'c1', label: 'Orange', transmission: box(595, 615), handles: [
+    { channelIndex: 0, filterIndex: 0, edge: 'low', wavelengthNm: 595 },
+    { channelIndex: 0, filterIndex: 0, edge: 'high', wavelengthNm: 615 },
+  ] }];
+  el.excitationNm = [405];
+  document.body.append(el);
+  await el.updateComplete;
+  return el;
+}
+
+afterEach(() => document.body.replaceChildren());
+
+describe('<qdp-spectrum-chart>', () => {
+  it('renders one coloured path per curve, a dashed grey one for the near-infrared dot, and an NIR legend note', async () => {
+    const el = await mount();
+    const paths = el.shadowRoot!.querySelectorAll<SVGPathElement>('path.curve');
+    expect(paths.length).toBe(2);
+    expect(paths[0].getAttribute('stroke')).toBe(wavelengthToCss(525));
+    expect(paths[0].getAttribute('d')!.length).toBeGreaterThan(50);
+    expect(paths[1].getAttribute('stroke-dasharray')).toBe('6 3');
+    expect(el.shadowRoot!.textContent).toContain('NIR');
+  });
+
+  it('draws the x axis in nm with d3-axis tick labels and marks the excitation line', async () => {
+    const el = await mount();
+    const ticks = [...el.shadowRoot!.querySelectorAll('g.x-axis .tick text')].map((t) => t.textContent);
+    expect(ticks).toContain('500');
+    expect(el.shadowRoot!.querySelectorAll('line.excitation').length).toBe(1);
+    expect(el.shadowRoot!.textContent).toContain('ex 405');
+  });
+
+  it('redraws a curve when the curves property changes', async () => {
+    const el = await mount();
+    const before = el.shadowRoot!.querySelector('path.curve')!.getAttribute('d');
+    el.curves = [{ id: 'p1', label: 'Green', peakNm: 545, spectrum: gaussian(545, 30) }];
+    await el.updateComplete;
+    const after = el.shadowRoot!.querySelector('path.curve')!;
+    expect(after.getAttribute('d')).not.toBe(before);
+    expect(after.getAttribute('stroke')).toBe(wavelengthToCss(545));
+  });
+
+  it('fires edge-drag with the new wavelength when a focused edge handle gets ArrowRight', async () => {
+    const el = await mount();
+    const seen: EdgeDragDetail[] = [];
+    document.body.addEventListener('edge-drag', (e) => seen.push((e as CustomEvent<EdgeDragDetail>).detail));
+    const handle = el.shadowRoot!.querySelector<SVGGElement>('g.handle[data-edge="high"]')!;
+    handle.focus();
+    handle.dispatchEvent(new KeyboardEvent('keydown', { key: 'ArrowRight', bubbles: true, composed: true }));
+    expect(seen).toEqual([{ channelIndex: 0, filterIndex: 0, edge: 'high', wavelengthNm: 616, done: true }]);
+  });
+
+  it('shows each curve value and passband transmission in the readout when the pointer moves over 605 nm', async () => {
+    const el = await mount();
+    const svgEl = el.shadowRoot!.querySelector('svg')!;
+    const rect = svgEl.getBoundingClientRect();
+    // The x scale maps [380, 800] nm onto [52, 800 - 46] px (the chart's margins).
+    const px = 52 + ((605 - 380) / 420) * (800 - 46 - 52);
+    svgEl.dispatchEvent(new PointerEvent('pointermove', { clientX: rect.left + px, clientY: rect.top + 100, bubbles: true }));
+    await el.updateComplete;
+    const text = el.shadowRoot!.querySelector('.readout')!.textContent!;
+    expect(text).toMatch(/60[45] nm/);
+    expect(text).toContain('Orange T = 90.0 %');
+    expect(text).toContain('Green:');
+  });
+});

@@ -1,0 +1,46 @@
+/**
+ * The bundled demo: an invented six-target panel for a fixed tissue section under one violet 405 nm line. The targets
+ * are generic; the counterstain spectra are smooth made-up curves (no real product), entered as measured data.
+ */
+import type { PanelSpec, SpectrumPoints } from '../spectra/index';
+
+/** A smooth, skewed invented curve (log-normal in wavelength) sampled every 5 nm: stands in for a measured spectrum. */
+function inventedCurve(peakNm: number, widthNm: number, skew: number, fromNm: number, toNm: number, peakValue: number): SpectrumPoints {
+  const out: SpectrumPoints = [];
+  for (let nm = fromNm; nm <= toNm; nm += 5) {
+    const x = Math.log((nm - fromNm + skew) / (peakNm - fromNm + skew));
+    const v = peakValue * Math.exp(-0.5 * (x / (widthNm / (peakNm - fromNm + skew))) ** 2);
+    out.push([nm, Number(v.toPrecision(4))]);
+  }
+  return out;
+}
+
+/** The demo panel: five dots and one counterstain, six bandpass channels, sample background on. */
+export function demoPanel(): PanelSpec {
+  return {
+    version: 1,
+    title: 'Demo: six targets on a tissue section, one 405 nm line',
+    excitation: [{ wavelengthNm: 405, powerRel: 1 }],
+    probes: [
+      {
+        id: 'p1', label: 'Counterstain', material: 'custom', target: 'nuclear DNA counterstain', abundance: 1, quantumYield: 0.4,
+        measuredEmission: { points: inventedCurve(462, 38, 60, 400, 650, 1) },
+        extinction: { points: inventedCurve(355, 40, 80, 300, 440, 30000) },
+      },
+      { id: 'p2', label: 'Green dot', material: 'cdse', emissionPeakNm: 525, sizeDispersionPct: 5, quantumYield: 0.5, target: 'nuclear envelope marker', abundance: 1 },
+      { id: 'p3', label: 'Yellow dot', material: 'inp', emissionPeakNm: 570, quantumYield: 0.5, target: 'mitochondrial marker', abundance: 1 },
+      { id: 'p4', label: 'Orange dot', material: 'cdse', emissionPeakNm: 605, sizeDispersionPct: 5, quantumYield: 0.5, target: 'cytoskeleton marker', abundance: 1 },
+      { id: 'p5', label: 'Red dot', material: 'cdse', emissionPeakNm: 645, sizeDispersionPct: 6, quantumYield: 0.5, target: 'vessel wall marker (sparse)', abundance: 0.2 },
+      { id: 'p6', label: 'Far-red dot', material: 'cdte', emissionPeakNm: 705, quantumYield: 0.4, target: 'membrane marker', abundance: 1 },
+    ],
+    channels: [
+      { id: 'c1', label: 'Blue', filters: [{ type: 'bandpass', centerNm: 460, widthNm: 40 }], excitationNm: 405 },
+      { id: 'c2', label: 'Green', filters: [{ type: 'bandpass', centerNm: 525, widthNm: 20 }], excitationNm: 405 },
+      { id: 'c3', label: 'Yellow', filters: [{ type: 'bandpass', centerNm: 570, widthNm: 20 }], excitationNm: 405 },
+      { id: 'c4', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }], excitationNm: 405 },
+      { id: 'c5', label: 'Red', filters: [{ type: 'bandpass', centerNm: 645, widthNm: 20 }], excitationNm: 405 },
+      { id: 'c6', label: 'Far red', filters: [{ type: 'longpass', edgeNm: 690 }], excitationNm: 405 },
+    ],
+    background: { level: 0.1 },
+  };
+}
