@@ -1,0 +1,70 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import '../../web/crosstalk-table';
+import type { CrosstalkTable } from '../../web/crosstalk-table';
+import { cellLightness, formatFraction, type CrosstalkView } from '../../web/crosstalk-view';
+
+const view: CrosstalkView = {
+  probes: [{ id: 'p1', label: 'Green dot' }, { id: 'p2', label: 'Orange dot' }],
+  channels: [{ id: 'c1', label: 'Green' }, { id: 'c2', label: 'Orange' }],
+  interference: [[1, 0.031], [0.00002, 1]],
+  spillover: [[1, 0.00002], [0.031, 1]],
+  belowResolution: [[false, true], [false, false]],
+  primaryChannel: [0, 1],
+  noiseAmplification: [1.04, 2.31],
+  conditionNumber: 1.07,
+  signalToBackground: [41.2, null],
+  lotShiftWorst: { minusNm: 0.02, plusNm: 0.05 },
+  worst: { from: 'p1', into: 'p2', interference: 0.031 },
+  warnings: ['Orange channel collects no background-free signal'],
+};
+
+afterEach(() => document.body.replaceChildren());
+
+async function mount(v: CrosstalkView): Promise<CrosstalkTable> {
+  const el = document.createElement('qdp-crosstalk-table');
+  el.view = v;
+  document.body.append(el);
+  await el.updateComplete;
+  return el;
+}
+
+describe('<qdp-crosstalk-table>', () => {
+  it('formatFraction prints two significant digits and "< 0.1 %" below the model resolution', () => {
+    expect(formatFraction(0.031)).toBe('3.1 %');
+    expect(formatFraction(0.4567)).toBe('46 %');
+    expect(formatFraction(0.00002)).toBe('< 0.1 %');
+    expect(formatFraction(null)).toBe('—');
+  });
+
+  it('cellLightness darkens monotonically with crosstalk, so the ramp reads in greyscale', () => {
+    const ls = [0.0005, 0.002, 0.01, 0.1, 1].map(cellLightness);
+    for (let i = 1; i < ls.length; i++) expect(ls[i]).toBeLessThan(ls[i - 1]);
+  });
+
+  it('renders the worst pair in words and every value as text', async () => {
+    const el = await mount(view);
+    const text = el.shadowRoot!.textContent!;
+    expect(text).toContain("Worst pair: Green dot adds 3.1 % of Orange dot's own signal");
+    expect(text).toContain('below model resolution');
+    expect(text).toContain("this target's noise grows about 2.3× after unmixing");
+    expect(text).toContain('Condition number 1.1');
+    expect(text).toContain('5 nm redder, 5 %');
+    expect(el.shadowRoot!.querySelector('ul.warnings')!.textContent).toContain('no background-free signal');
+  });
+
+  it('updates the tables when the view property changes', async () => {
+    const el = await mount(view);
+    el.view = { ...view, worst: { from: 'p2', into: 'p1', interference: 0.12 } };
+    await el.updateComplete;
+    expect(el.shadowRoot!.textContent).toContain('Worst pair: Orange dot adds 12 % of Green dot');
+  });
+
+  it('shows a spectral run of 16 channels as 16 rows with compact cells', async () => {
+    const channels = Array.from({ length: 16 }, (_, i) => ({ id: `c${i + 1}`, label: `bin ${500 + 10 * i}` }));
+    const spill = channels.map((_, i) => [i === 2 ? 1 : 0.01, i === 9 ? 1 : 0.0001]);
+    const el = await mount({ ...view, channels, spillover: spill, belowResolution: spill.map((r) => r.map((v) => v < 0.001)), primaryChannel: [2, 9], signalToBackground: undefined });
+    const table = el.shadowRoot!.querySelector('table[aria-label="Spillover by channel"]')!;
+    expect(table.classList.contains('many')).toBe(true);
+    expect(table.querySelectorAll('tbody tr').length).toBe(16);
+  });
+});

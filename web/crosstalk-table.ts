@@ -1,0 +1,85 @@
+/**
+ * <qdp-crosstalk-table>: probe-to-probe crosstalk and channel spillover as tables with their values written out
+ * and a one-hue lightness ramp (readable in greyscale and by colour-blind users), the worst pair in words, each
+ * target's unmixing noise gain, the condition number, the ±5 nm lot-shift sensitivity and the warnings.
+ */
+import { LitElement, css, html } from 'lit';
+import { customElement, property } from 'lit/decorators.js';
+import { cellLightness, formatFraction, type CrosstalkView } from './crosstalk-view';
+
+const cellStyle = (v: number | null, below = false) => {
+  const l = below ? 98 : cellLightness(v);
+  return `background:hsl(212 55% ${l}%);color:${l < 55 ? '#fff' : '#111'}`;
+};
+
+const times = (v: number | null) => (v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`);
+
+@customElement('qdp-crosstalk-table')
+export class CrosstalkTable extends LitElement {
+  /** The numbers to show; nothing is drawn until the first evaluation. */
+  @property({ attribute: false }) view?: CrosstalkView;
+  /** True while the shown numbers belong to an earlier, valid version of the panel (the current one has an error). */
+  @property({ type: Boolean }) stale = false;
+
+  static override styles = css`
+    :host { display: block; font-size: 0.9rem; }
+    .scroll { overflow: auto; max-width: 100%; max-height: 28rem; border: 1px solid #ccd; }
+    table { border-collapse: collapse; }
+    th, td { padding: 0.25rem 0.45rem; border: 1px solid #dde; text-align: right; white-space: nowrap; }
+    th { background: #f3f4f8; font-weight: 600; position: sticky; top: 0; }
+    th[scope='row'] { text-align: left; position: sticky; left: 0; }
+    td.self { color: #666; background: #fff; }
+    .many td, .many th { padding: 0.1rem 0.3rem; font-size: 0.8rem; }
+    .worst { font-weight: 600; }
+    .stale { color: #8a4b00; }
+    ul { padding-left: 1.2rem; }
+    h3 { font-size: 1rem; margin: 1rem 0 0.4rem; }
+  `;
+
+  override render() {
+    const v = this.view;
+    if (!v) return html`<p>Add probes and channels to see crosstalk.</p>`;
+    const label = (id: string) => v.probes.find((p) => p.id === id)?.label ?? id;
+    const many = v.channels.length > 12;
+    return html`
+      ${this.stale ? html`<p class="stale" role="status">These numbers are from the last valid panel; fix the marked field to update them.</p>` : ''}
+      <p class="worst">${v.worst
+        ? html`Worst pair: ${label(v.worst.from)} adds ${formatFraction(v.worst.interference)} of ${label(v.worst.into)}'s own signal in ${label(v.worst.into)}'s channel.`
+        : 'No pair of probes could be compared yet.'}</p>
+      <h3>Crosstalk between probes</h3>
+      <p>Row: whose light; column: the probe whose primary channel it lands in, relative to that probe's own signal there.</p>
+      <div class="scroll"><table aria-label="Crosstalk between probes">
+        <thead><tr><th scope="col">light from ↓ / into →</th>${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}</tr></thead>
+        <tbody>${v.probes.map((from, t) => html`<tr><th scope="row">${from.label}</th>
+          ${v.probes.map((_, u) => (t === u ? html`<td class="self">own</td>` : html`<td style=${cellStyle(v.interference[t]?.[u] ?? null)}>${formatFraction(v.interference[t]?.[u])}</td>`))}</tr>`)}
+        </tbody></table></div>
+      <h3>Unmixing noise</h3>
+      <ul>${v.probes.map((p, j) => html`<li>${p.label}: ${v.noiseAmplification[j] === null
+        ? 'cannot be unmixed from the others with these channels (see warnings).'
+        : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`}</li>`)}</ul>
+      <p>Condition number ${v.conditionNumber === null ? '— (the channels cannot separate every probe)' : times(v.conditionNumber).replace('×', '')}: the worst case,
+        any relative error in the measurements can grow by up to this factor after unmixing.</p>
+      ${v.lotShiftWorst ? html`<p>Lot-to-lot shift: if every dot's emission moves 5 nm bluer, the worst crosstalk becomes ${formatFraction(v.lotShiftWorst.minusNm)};
+        5 nm redder, ${formatFraction(v.lotShiftWorst.plusNm)}.</p>` : ''}
+      <h3>Spillover into each channel</h3>
+      <p>Each probe's light in a channel relative to its primary channel (marked ●).${many ? ' "< res.": below the model\'s resolution.' : ''}</p>
+      <div class="scroll"><table class=${many ? 'many' : ''} aria-label="Spillover by channel">
+        <thead><tr><th scope="col">channel</th>${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}${v.signalToBackground ? html`<th scope="col">signal / background</th>` : ''}</tr></thead>
+        <tbody>${v.channels.map((c, ci) => html`<tr><th scope="row">${c.label}</th>
+          ${v.probes.map((_, p) => {
+            const primary = v.primaryChannel[p] === ci;
+            const below = v.belowResolution[ci]?.[p] ?? false;
+            return html`<td style=${cellStyle(v.spillover[ci]?.[p] ?? null, below)}>${primary ? '● ' : ''}${below ? (many ? '< res.' : 'below model resolution') : formatFraction(v.spillover[ci]?.[p])}</td>`;
+          })}
+          ${v.signalToBackground ? html`<td>${times(v.signalToBackground[ci] ?? null).replace('×', '')}</td>` : ''}</tr>`)}
+        </tbody></table></div>
+      ${v.warnings.length ? html`<h3>Warnings</h3><ul class="warnings">${v.warnings.map((w) => html`<li>${w}</li>`)}</ul>` : ''}
+    `;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'qdp-crosstalk-table': CrosstalkTable;
+  }
+}
