@@ -2,3 +2,9 @@
 export * from './errors';
 export * from './grid';
 export * from './panel';
+// Filters, light path, detectors (spectral core II).
+export { FILTER_DEFAULTS, MAX_BLOCKING_OD, type FilterDefaults } from './filters/defaults';
+export { filterTransmission } from './filters/factory';
+export { channelTransmission, MAX_FILTERS_PER_CHANNEL } from './filters/channel';
+export { MAX_TABLE_POINTS } from './filters/table';
+export { listDetectors, detectorQe, DETECTOR_CLASSES, type DetectorClass } from './detectors';

@@ -1,0 +1,69 @@
+/**
+ * Bandpass filter in the trade's centre/width notation: 605/20 passes 595–615 nm, widthNm being the FWHM of the
+ * passband (common practice). The passband is the product of a rising and a falling logistic edge (see edge.ts),
+ * scaled so the top is exactly peakTransmission and the half-maximum points lie exactly at centerNm ± widthNm / 2.
+ */
+import type { WavelengthGrid } from '../grid';
+import { SpectraError, requireFinite } from '../errors';
+import { FILTER_DEFAULTS, applyPeakAndFloor, logisticScaleNm, multiplyLogisticEdge, resolveEdgeOptions } from './edge';
+
+/** A bandpass filter as the panel carries it (see spectra/panel.ts FilterSpec). */
+export interface BandpassSpec {
+  type: 'bandpass';
+  centerNm: number;
+  widthNm: number;
+  peakTransmission?: number;
+  edgeWidthNm?: number;
+  blockingOD?: number;
+}
+
+const logLogistic = (z: number) => (z >= 0 ? -Math.log1p(Math.exp(-z)) : z - Math.log1p(Math.exp(z)));
+const logistic = (z: number) => 1 / (1 + Math.exp(-z));
+
+/**
+ * Half distance h (nm) between the two logistic edges that puts half the peak exactly at ±widthNm/2. Newton's method
+ * on g(h) = ln shape(w/2) − ln shape(0) + ln 2, kept inside the bracket [0, w/2] where g changes sign (w ≥ edge width).
+ */
+function edgeHalfDistanceNm(widthNm: number, scaleNm: number): number {
+  const half = widthNm / 2;
+  if (scaleNm === 0) return half;
+  const g = (h: number) => logLogistic((half + h) / scaleNm) + logLogistic((h - half) / scaleNm) - 2 * logLogistic(h / scaleNm) + Math.LN2;
+  let lo = 0;
+  let hi = half;
+  let h = half;
+  for (let k = 0; k < 60; k++) {
+    const value = g(h);
+    if (value > 0) hi = h;
+    else lo = h;
+    const slope = (1 - logistic((half + h) / scaleNm) + 1 - logistic((h - half) / scaleNm) - 2 * (1 - logistic(h / scaleNm))) / scaleNm;
+    let next = h - value / slope;
+    if (!(next > lo && next < hi)) next = (lo + hi) / 2;
+    if (Math.abs(next - h) <= 1e-13 * widthNm) return next;
+    h = next;
+  }
+  return h;
+}
+
+/** Transmission (0–1) of a bandpass filter on a grid. Errors name the field under `path`. */
+export function bandpassTransmission(filter: BandpassSpec, grid: WavelengthGrid, path: (string | number)[] = []): Float64Array {
+  const centerNm = requireFinite(filter.centerNm, 'centerNm', [...path, 'centerNm']);
+  const widthNm = requireFinite(filter.widthNm, 'widthNm', [...path, 'widthNm']);
+  if (centerNm <= 0) throw new SpectraError('invalid_input', `centerNm must be above 0 nm, got ${centerNm}`, [...path, 'centerNm']);
+  if (widthNm <= 0) throw new SpectraError('invalid_input', `widthNm must be above 0 nm, got ${widthNm}`, [...path, 'widthNm']);
+  const options = resolveEdgeOptions(filter, FILTER_DEFAULTS.bandpass, path);
+  if (options.edgeWidthNm > widthNm) {
+    throw new SpectraError(
+      'invalid_input',
+      `a bandpass must be at least as wide as its edges: widthNm ${widthNm} < edgeWidthNm ${options.edgeWidthNm}`,
+      [...path, 'edgeWidthNm'],
+    );
+  }
+  const scaleNm = logisticScaleNm(options.edgeWidthNm);
+  const h = edgeHalfDistanceNm(widthNm, scaleNm);
+  const shape = new Float64Array(grid.count).fill(1);
+  multiplyLogisticEdge(shape, grid, centerNm - h, scaleNm, true);
+  multiplyLogisticEdge(shape, grid, centerNm + h, scaleNm, false);
+  // The two edges overlap a little at the centre: divide by the shape's own top so the peak is exactly peakTransmission.
+  const top = scaleNm === 0 ? 1 : logistic(h / scaleNm) ** 2;
+  return applyPeakAndFloor(shape, options, 1 / top);
+}

@@ -1,0 +1,41 @@
+/**
+ * Longpass and shortpass filters: one logistic edge (see edge.ts) at edgeNm, where the transmission is halfway
+ * between the blocking floor and the peak. A longpass passes wavelengths above its edge, a shortpass those below.
+ */
+import type { WavelengthGrid } from '../grid';
+import { SpectraError, requireFinite } from '../errors';
+import { FILTER_DEFAULTS, applyPeakAndFloor, logisticScaleNm, multiplyLogisticEdge, resolveEdgeOptions } from './edge';
+import type { FilterDefaults } from './defaults';
+
+/** A longpass or shortpass filter as the panel carries it. */
+export interface EdgePassSpec {
+  type: 'longpass' | 'shortpass';
+  edgeNm: number;
+  peakTransmission?: number;
+  edgeWidthNm?: number;
+  blockingOD?: number;
+}
+
+/**
+ * Transmission (0–1) of a single-edge filter passing wavelengths above (`passesAbove`) or below its edge; shared by
+ * longpass, shortpass and dichroic, which differ only in their defaults. Errors name the field under `path`.
+ */
+export function singleEdgeTransmission(
+  filter: { edgeNm: number; peakTransmission?: number; edgeWidthNm?: number; blockingOD?: number },
+  passesAbove: boolean,
+  defaults: Readonly<FilterDefaults>,
+  grid: WavelengthGrid,
+  path: (string | number)[],
+): Float64Array {
+  const edgeNm = requireFinite(filter.edgeNm, 'edgeNm', [...path, 'edgeNm']);
+  if (edgeNm <= 0) throw new SpectraError('invalid_input', `edgeNm must be above 0 nm, got ${edgeNm}`, [...path, 'edgeNm']);
+  const options = resolveEdgeOptions(filter, defaults, path);
+  const shape = new Float64Array(grid.count).fill(1);
+  multiplyLogisticEdge(shape, grid, edgeNm, logisticScaleNm(options.edgeWidthNm), passesAbove);
+  return applyPeakAndFloor(shape, options);
+}
+
+/** Transmission (0–1) of a longpass or shortpass filter on a grid. */
+export function edgePassTransmission(filter: EdgePassSpec, grid: WavelengthGrid, path: (string | number)[] = []): Float64Array {
+  return singleEdgeTransmission(filter, filter.type === 'longpass', FILTER_DEFAULTS.edgepass, grid, path);
+}
