@@ -8,3 +8,4 @@ export { filterTransmission } from './filters/factory';
 export { channelTransmission, MAX_FILTERS_PER_CHANNEL } from './filters/channel';
 export { MAX_TABLE_POINTS } from './filters/table';
 export { listDetectors, detectorQe, DETECTOR_CLASSES, type DetectorClass } from './detectors';
+export { parseSpectrumCsv, CSV_LIMITS, type SpectrumCsvKind } from './csv';
