@@ -1,0 +1,33 @@
+/**
+ * The qdpanel worker: API v1 (shared/api-v1.md) and the share-link page route on the Workers runtime. Everything
+ * else (the built front end in dist/) is served by the asset layer; wrangler.toml sends /api/* and /p/* here first.
+ */
+import { Hono } from 'hono';
+import { cors } from 'hono/cors';
+import type { AppEnv } from './env';
+import { errorResponse, onApiError } from './errors';
+import { securityHeaders } from './middleware/security-headers';
+import { health } from './routes/health';
+import { openapi } from './routes/openapi';
+import { notFoundPage, pages } from './routes/pages';
+import { panels } from './routes/panels';
+
+const app = new Hono<AppEnv>();
+
+app.use('*', securityHeaders());
+// Any origin may call the API (scripts, notebooks, other pages) with plain GET/POST and no credentials: nothing in
+// it depends on cookies or identity, and stored panels are public by their link anyway.
+app.use('/api/*', cors({ origin: '*', allowMethods: ['GET', 'POST'], allowHeaders: ['Content-Type'], maxAge: 86400 }));
+
+// routes (one small app per resource; mount new resources here)
+app.route('/api/v1/health', health);
+app.route('/api/v1/openapi.json', openapi);
+app.route('/api/v1/panels', panels);
+app.route('/p', pages);
+
+app.notFound((c) =>
+  c.req.path.startsWith('/api/') ? errorResponse(404, 'not_found', `no route ${c.req.method} ${c.req.path}`) : notFoundPage(),
+);
+app.onError(onApiError);
+
+export default app;

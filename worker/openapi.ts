@@ -1,0 +1,82 @@
+import { z } from 'zod';
+import packageJson from '../package.json';
+import * as schemas from './schemas';
+
+type Json = Record<string, unknown>;
+
+// Named component schemas: requests (as clients write them) and responses.
+const COMPONENTS: [string, z.ZodType][] = [
+  ['Panel', schemas.Panel],
+  ['Filter', schemas.Filter],
+  ['Probe', schemas.Probe],
+  ['Channel', schemas.Channel],
+  ['DotRequest', schemas.DotRequest],
+  ['Error', schemas.ErrorBody],
+  ['Health', schemas.Health],
+  ['ShareCreated', schemas.ShareCreated],
+  ['Material', schemas.Material],
+  ['Detector', schemas.Detector],
+  ['ResolvedDot', schemas.ResolvedDotJson],
+  ['Evaluation', schemas.Evaluation],
+];
+
+const ref = (name: string): Json => ({ $ref: `#/components/schemas/${name}` });
+const json = (schema: Json, description: string): Json => ({ description, content: { 'application/json': { schema } } });
+const errors: Json = {
+  '400': json(ref('Error'), 'bad input: the error names the field in `path`'),
+  '404': json(ref('Error'), 'unknown route or id'),
+  '405': json(ref('Error'), 'wrong method (see the Allow header)'),
+  '413': json(ref('Error'), 'body over 256 KiB'),
+  '415': json(ref('Error'), 'body not sent as application/json'),
+};
+const get = (summary: string, ok: Json): Json => ({ get: { summary, responses: { '200': ok, ...errors } } });
+const post = (summary: string, body: string, responses: Json): Json => ({
+  post: { summary, requestBody: { required: true, ...json(ref(body), body) }, responses: { ...responses, ...errors } },
+});
+const list = (key: string, item: string): Json => ({ type: 'object', properties: { [key]: { type: 'array', items: ref(item) } } });
+
+function componentSchemas(): Json {
+  const registry = z.registry<{ id: string }>();
+  for (const [id, schema] of COMPONENTS) registry.add(schema, { id });
+  const out = z.toJSONSchema(registry, { uri: (id) => `#/components/schemas/${id}`, io: 'input', unrepresentable: 'any' });
+  // The document's own openapi/jsonSchemaDialect fields say which dialect applies; drop the per-schema headers.
+  for (const schema of Object.values(out.schemas)) {
+    delete (schema as Json).$schema;
+    delete (schema as Json).$id;
+  }
+  return out.schemas as Json;
+}
+
+let cached: Json | undefined;
+
+/** The OpenAPI 3.1 document of API v1, generated once per isolate from the zod schemas in worker/schemas.ts. */
+export function openApiDocument(): Json {
+  cached ??= {
+    openapi: '3.1.0',
+    jsonSchemaDialect: 'https://json-schema.org/draft/2020-12/schema',
+    info: { title: 'qdpanel API', version: packageJson.version, description: 'See shared/api-v1.md for the contract.' },
+    paths: {
+      '/api/v1/health': get('liveness and version', json(ref('Health'), 'ok')),
+      '/api/v1/openapi.json': get('this document', json({ type: 'object' }, 'OpenAPI 3.1')),
+      '/api/v1/materials': get('materials with sizing ranges and cautions', json(list('materials', 'Material'), 'ok')),
+      '/api/v1/detectors': get('generic detector classes', json(list('detectors', 'Detector'), 'ok')),
+      '/api/v1/dots/resolve': post('one dot: size, peak, spectrum', 'DotRequest', { '200': json(ref('ResolvedDot'), 'ok') }),
+      '/api/v1/panels/evaluate': post('collected light, spillover, unmixing noise', 'Panel', {
+        '200': json(ref('Evaluation'), 'ok'),
+      }),
+      '/api/v1/panels': post('store a panel behind a share link', 'Panel', {
+        '201': json(ref('ShareCreated'), 'stored'),
+        '200': json(ref('ShareCreated'), 'already stored'),
+      }),
+      '/api/v1/panels/{id}': {
+        get: {
+          summary: 'a stored panel, exactly as it was sent',
+          parameters: [{ name: 'id', in: 'path', required: true, schema: { type: 'string', pattern: '^[A-Za-z0-9_-]{24}$' } }],
+          responses: { '200': json(ref('Panel'), 'ok'), ...errors },
+        },
+      },
+    },
+    components: { schemas: componentSchemas() },
+  };
+  return cached;
+}

@@ -1,0 +1,27 @@
+import { Hono } from 'hono';
+import { SHARE_ID_PATTERN } from '../canonical';
+import type { AppEnv } from '../env';
+import { ApiError } from '../errors';
+import { jsonBody } from '../middleware/json-body';
+import { methodNotAllowed } from '../middleware/method-not-allowed';
+import { Panel } from '../schemas';
+import { loadPanelText, savePanel } from '../store';
+import { validJson } from '../validation';
+
+// Only well-formed share ids reach the id route, so a malformed id is a plain 404 that never reads KV, and fixed
+// sub-paths such as /panels/evaluate or /panels/design are never taken for an id.
+const ID_PATH = `/:id{${SHARE_ID_PATTERN.source.slice(1, -1)}}`;
+
+/** Share links: POST /api/v1/panels stores a panel, GET /api/v1/panels/:id returns it as it was sent. */
+export const panels = new Hono<AppEnv>()
+  .post('/', jsonBody(), validJson(Panel), async (c) => {
+    const { id, created } = await savePanel(c.env.PANELS, c.req.valid('json'));
+    return c.json({ id, url: `/p/${id}` }, created ? 201 : 200);
+  })
+  .get(ID_PATH, async (c) => {
+    const text = await loadPanelText(c.env.PANELS, c.req.param('id') ?? '');
+    if (text === null) throw new ApiError(404, 'not_found', 'no panel is stored under this id', ['id']);
+    return c.body(text, 200, { 'content-type': 'application/json; charset=utf-8' });
+  })
+  .all('/', methodNotAllowed('POST'))
+  .all(ID_PATH, methodNotAllowed('GET'));

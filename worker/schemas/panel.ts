@@ -1,0 +1,94 @@
+import { z } from 'zod';
+import { listDetectors } from '../../spectra/index';
+import { identifier, LIMITS, ranged, text, wavelengthNm } from './fields';
+import { Filter } from './filter';
+import { Probe } from './probe';
+import { pointsTable } from './spectrum';
+
+/** One excitation line (laser or LED), relative power default 1. */
+export const ExcitationLine = z.strictObject({
+  wavelengthNm: wavelengthNm(),
+  powerRel: ranged(LIMITS.powerRel[0], LIMITS.powerRel[1]).optional(),
+});
+
+/** Ids of the detector classes a channel may name (GET /api/v1/detectors). */
+const DETECTOR_IDS = listDetectors().map((d) => d.id) as [string, ...string[]];
+
+/** One detection channel: its filters, the lines on while it is read, its detector class. */
+export const Channel = z.strictObject({
+  id: identifier(),
+  label: text().optional(),
+  filters: z
+    .array(Filter, { error: 'must be an array of filters' })
+    .max(LIMITS.maxFiltersPerChannel, { error: `has more than ${LIMITS.maxFiltersPerChannel} filters` }),
+  excitationNm: z
+    .union([
+      wavelengthNm(),
+      z.array(wavelengthNm()).min(1, { error: 'must not be empty' }).max(LIMITS.maxExcitationLines),
+    ])
+    .optional(),
+  detector: z.enum(DETECTOR_IDS, { error: `must be one of ${DETECTOR_IDS.join(', ')}` }).optional(),
+});
+
+/** Sample autofluorescence: the default model scaled by `level`, or a measured spectrum times `level`. */
+export const Background = z.strictObject({
+  level: ranged(LIMITS.backgroundLevel[0], LIMITS.backgroundLevel[1]),
+  points: pointsTable(LIMITS.maxSpectralValue, 'background').shape.points.optional(),
+});
+
+/** A panel as the API takes it (shared/api-v1.md, "Panels"): the single source of truth for its shape. */
+export const Panel = z
+  .strictObject({
+    version: z.literal(1, { error: 'must be 1' }),
+    title: text().optional(),
+    excitation: z
+      .array(ExcitationLine, { error: 'must be an array of excitation lines' })
+      .min(1, { error: 'needs at least one excitation line' })
+      .max(LIMITS.maxExcitationLines, { error: `has more than ${LIMITS.maxExcitationLines} lines` }),
+    probes: z
+      .array(Probe, { error: 'must be an array of probes' })
+      .min(1, { error: 'needs at least one probe' })
+      .max(LIMITS.maxProbes, { error: `has more than ${LIMITS.maxProbes} probes` }),
+    channels: z
+      .array(Channel, { error: 'must be an array of channels' })
+      .min(1, { error: 'needs at least one channel' })
+      .max(LIMITS.maxChannels, { error: `has more than ${LIMITS.maxChannels} channels` }),
+    background: Background.optional(),
+  })
+  .superRefine(checkReferences);
+
+type PanelShape = {
+  excitation: { wavelengthNm: number }[];
+  probes: { id: string; channel?: string }[];
+  channels: { id: string; excitationNm?: number | number[] }[];
+};
+
+/** Ids unique; a probe's `channel` names a channel; a channel's `excitationNm` names lines of the panel. */
+function checkReferences(panel: PanelShape, ctx: z.RefinementCtx): void {
+  const issue = (apiCode: string, message: string, path: (string | number)[]) =>
+    ctx.addIssue({ code: 'custom', message, path, params: { apiCode } });
+  for (const list of ['probes', 'channels'] as const) {
+    const seen = new Set<string>();
+    panel[list].forEach((item, i) => {
+      if (seen.has(item.id)) issue('duplicate_id', `id '${item.id}' is used twice in ${list}`, [list, i, 'id']);
+      seen.add(item.id);
+    });
+  }
+  const channelIds = new Set(panel.channels.map((ch) => ch.id));
+  panel.probes.forEach((probe, i) => {
+    if (probe.channel !== undefined && !channelIds.has(probe.channel)) {
+      issue('unknown_channel', `names channel '${probe.channel}', which is not in channels`, ['probes', i, 'channel']);
+    }
+  });
+  const lines = new Set(panel.excitation.map((line) => line.wavelengthNm));
+  panel.channels.forEach((channel, c) => {
+    const wanted = channel.excitationNm;
+    const list = wanted === undefined ? [] : Array.isArray(wanted) ? wanted : [wanted];
+    list.forEach((nm, k) => {
+      if (!lines.has(nm)) {
+        const path = Array.isArray(wanted) ? ['channels', c, 'excitationNm', k] : ['channels', c, 'excitationNm'];
+        issue('invalid_input', `${nm} nm is not one of the panel's excitation lines`, path);
+      }
+    });
+  });
+}

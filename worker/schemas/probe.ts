@@ -1,0 +1,58 @@
+import { z } from 'zod';
+import { MATERIAL_IDS } from '../../spectra/index';
+import { fraction, identifier, LIMITS, ranged, text, wavelengthNm } from './fields';
+import { pointsTable } from './spectrum';
+
+/** A material id of the contract (`custom` = any other probe, described by measured data only). */
+export const MaterialIdSchema = z.enum(MATERIAL_IDS, {
+  error: `must be one of ${MATERIAL_IDS.join(', ')}`,
+});
+
+/** The fields that describe one dot, shared by a panel's probes and POST /dots/resolve. */
+export const dotFields = {
+  material: MaterialIdSchema,
+  emissionPeakNm: wavelengthNm().optional(),
+  diameterNm: ranged(LIMITS.diameterNm[0], LIMITS.diameterNm[1], 'nm').optional(),
+  sizeDispersionPct: ranged(LIMITS.sizeDispersionPct[0], LIMITS.sizeDispersionPct[1], '%').optional(),
+  fwhmNm: ranged(LIMITS.fwhmNm[0], LIMITS.fwhmNm[1], 'nm').optional(),
+  quantumYield: fraction().optional(),
+  measuredEmission: pointsTable(LIMITS.maxSpectralValue, 'emission').optional(),
+  extinction: pointsTable(LIMITS.maxExtinction, 'extinction (M-1 cm-1)').optional(),
+};
+
+interface DotLike {
+  material: string;
+  emissionPeakNm?: number;
+  diameterNm?: number;
+  measuredEmission?: unknown;
+}
+
+/**
+ * How a dot's size is given: a `custom` probe needs `measuredEmission`; every other material needs exactly one of
+ * diameterNm / emissionPeakNm, and carbon dots (no sizing curve) take emissionPeakNm.
+ */
+export function checkDotSize(dot: DotLike, ctx: z.RefinementCtx): void {
+  const add = (message: string, field: string) =>
+    ctx.addIssue({ code: 'custom', message, path: [field], params: { apiCode: 'invalid_input' } });
+  if (dot.material === 'custom') {
+    if (dot.measuredEmission === undefined) add("is required for material 'custom'", 'measuredEmission');
+    return;
+  }
+  const hasPeak = dot.emissionPeakNm !== undefined;
+  const hasDiameter = dot.diameterNm !== undefined;
+  if (dot.material === 'carbon' && hasDiameter) add('carbon dots take emissionPeakNm, not diameterNm', 'diameterNm');
+  else if (hasPeak && hasDiameter) add('give exactly one of diameterNm and emissionPeakNm, not both', 'diameterNm');
+  else if (!hasPeak && !hasDiameter) add('is required (or diameterNm instead)', 'emissionPeakNm');
+}
+
+/** One probe of a panel. */
+export const Probe = z
+  .strictObject({
+    id: identifier(),
+    label: text().optional(),
+    ...dotFields,
+    abundance: ranged(LIMITS.abundance[0], LIMITS.abundance[1], '', true).optional(),
+    target: text().optional(),
+    channel: identifier().optional(),
+  })
+  .superRefine(checkDotSize);

@@ -1,0 +1,28 @@
+import { canonicalJson, isShareId, shareIdOf } from './canonical';
+
+const KEY_PREFIX = 'panel:';
+
+/** What storing a panel did: `created` is false when the same panel was already stored (nothing was written). */
+export interface StoredPanel {
+  id: string;
+  created: boolean;
+}
+
+/**
+ * Stores a validated panel under the id of its canonical text. Stored panels are immutable: the key is read first
+ * and an existing value is never overwritten (the same text always maps to the same key anyway).
+ */
+export async function savePanel(kv: KVNamespace, panel: unknown): Promise<StoredPanel> {
+  const canonical = canonicalJson(panel);
+  const id = await shareIdOf(canonical);
+  const existing = await kv.get(KEY_PREFIX + id);
+  if (existing !== null) return { id, created: false };
+  await kv.put(KEY_PREFIX + id, canonical);
+  return { id, created: true };
+}
+
+/** The stored canonical JSON text of a panel, or null when the id is malformed (KV is then not read) or unknown. */
+export async function loadPanelText(kv: KVNamespace, id: string): Promise<string | null> {
+  if (!isShareId(id)) return null;
+  return kv.get(KEY_PREFIX + id);
+}
