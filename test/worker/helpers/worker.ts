@@ -1,0 +1,76 @@
+/**
+ * Starts the worker on the real local Workers runtime (workerd via wrangler's unstable_startWorker) with real local
+ * KV persisted to a directory, and serves the built front end from dist/ exactly as `npm start` does.
+ */
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { unstable_startWorker } from 'wrangler';
+
+/** The repository root. */
+export const ROOT = resolve(import.meta.dirname, '../../..');
+
+// Offline: no request-metadata fetch from the internet, no telemetry.
+process.env.CLOUDFLARE_CF_FETCH_ENABLED = 'false';
+process.env.WRANGLER_SEND_METRICS = 'false';
+
+/** Builds the front end into dist/ if it is missing (the asset layer needs the directory before start-up). */
+export function ensureFrontEndBuilt(): void {
+  if (existsSync(join(ROOT, 'dist', 'index.html'))) return;
+  execFileSync('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: ROOT, stdio: 'inherit' });
+}
+
+/** A fresh temporary directory for local KV state. */
+export function freshPersistDir(): string {
+  return mkdtempSync(join(tmpdir(), 'qdpanel-kv-'));
+}
+
+/** A running worker: `call` fetches a path on it. */
+export interface RunningWorker {
+  url: URL;
+  call(path: string, init?: RequestInit): Promise<Response>;
+  dispose(): Promise<void>;
+}
+
+/** Starts the worker from wrangler.toml on 127.0.0.1 (free port), local KV persisted under `persistDir`. */
+export async function startWorker(persistDir: string): Promise<RunningWorker> {
+  ensureFrontEndBuilt();
+  const worker = await unstable_startWorker({
+    config: join(ROOT, 'wrangler.toml'),
+    dev: {
+      server: { hostname: '127.0.0.1', port: 0 },
+      inspector: false,
+      persist: persistDir,
+      logLevel: 'warn',
+      watch: false,
+    },
+  });
+  await worker.ready;
+  const url = await worker.url;
+  return {
+    url,
+    call: (path, init) => fetch(new URL(path, url), init),
+    dispose: () => worker.dispose(),
+  };
+}
+
+/** POST a JSON value (or raw text) to a path. */
+export function postJson(w: RunningWorker, path: string, body: unknown, raw = false): Promise<Response> {
+  return w.call(path, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: raw ? (body as string) : JSON.stringify(body),
+  });
+}
+
+/** Asserts-free helper: the contract's error body, or null when the body is not one. */
+export async function errorOf(res: Response): Promise<{ code: string; message: string; path: (string | number)[] } | null> {
+  const text = await res.text();
+  try {
+    const body = JSON.parse(text) as { error?: { code: string; message: string; path: (string | number)[] } };
+    return body.error ?? null;
+  } catch {
+    return null;
+  }
+}

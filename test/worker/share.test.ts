@@ -1,0 +1,118 @@
+// Share links on the real local runtime and KV: POST /api/v1/panels, GET /api/v1/panels/:id, /p/:id.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { examplePanel, reverseKeys } from './helpers/panels';
+import { errorOf, freshPersistDir, postJson, startWorker, type RunningWorker } from './helpers/worker';
+
+const persistDir = freshPersistDir();
+let worker: RunningWorker;
+
+beforeAll(async () => {
+  worker = await startWorker(persistDir);
+});
+afterAll(async () => {
+  await worker?.dispose();
+});
+
+describe('POST /api/v1/panels', () => {
+  it('POST /api/v1/panels stores a new panel with 201 and a URL-safe id of at least 128 bits', async () => {
+    const res = await postJson(worker, '/api/v1/panels', { ...examplePanel(), title: 'first store' });
+    expect(res.status).toBe(201);
+    const body = (await res.json()) as { id: string; url: string };
+    expect(body.id).toMatch(/^[A-Za-z0-9_-]+$/);
+    expect(body.id.length * 6).toBeGreaterThanOrEqual(128); // base64url: 6 bits a character
+    expect(body.url).toBe(`/p/${body.id}`);
+  });
+
+  it('POST /api/v1/panels of the same panel again answers 200 with the same id', async () => {
+    const first = await postJson(worker, '/api/v1/panels', examplePanel());
+    const again = await postJson(worker, '/api/v1/panels', examplePanel());
+    expect(again.status).toBe(200);
+    expect(await again.json()).toEqual(await first.json());
+  });
+
+  it('POST /api/v1/panels gives the same id whatever the key order and white space', async () => {
+    const a = (await (await postJson(worker, '/api/v1/panels', examplePanel())).json()) as { id: string };
+    const spaced = JSON.stringify(reverseKeys(examplePanel()), null, 3);
+    const b = (await (await postJson(worker, '/api/v1/panels', spaced, true)).json()) as { id: string };
+    expect(b.id).toBe(a.id);
+  });
+
+  it('POST /api/v1/panels gives different panels different ids', async () => {
+    const a = (await (await postJson(worker, '/api/v1/panels', examplePanel())).json()) as { id: string };
+    const other = { ...examplePanel(), title: 'another title' };
+    const b = (await (await postJson(worker, '/api/v1/panels', other)).json()) as { id: string };
+    expect(b.id).not.toBe(a.id);
+  });
+});
+
+describe('GET /api/v1/panels/:id', () => {
+  it('GET /api/v1/panels/:id returns the panel exactly as it was sent', async () => {
+    const sent = reverseKeys(examplePanel());
+    const { id } = (await (await postJson(worker, '/api/v1/panels', sent)).json()) as { id: string };
+    const res = await worker.call(`/api/v1/panels/${id}`);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toMatch(/^application\/json/);
+    expect(await res.json()).toStrictEqual(examplePanel());
+  });
+
+  it('GET /api/v1/panels/:id of a well-formed unknown id is a 404 in the contract shape', async () => {
+    const res = await worker.call('/api/v1/panels/AAAAAAAAAAAAAAAAAAAAAAAA');
+    expect(res.status).toBe(404);
+    expect((await errorOf(res))?.code).toBe('not_found');
+  });
+
+  it('GET /api/v1/panels/:id of malformed ids is a 404 in the contract shape', async () => {
+    for (const id of ['short', 'A'.repeat(25), 'AAAAAAAAAAAAAAAAAAAAAA+/', '%00AAAAAAAAAAAAAAAAAAAAAAA']) {
+      const res = await worker.call(`/api/v1/panels/${id}`);
+      expect(res.status, id).toBe(404);
+      expect((await errorOf(res))?.code, id).toBe('not_found');
+    }
+  });
+
+  it('DELETE /api/v1/panels/:id is a 405 that allows only GET', async () => {
+    const { id } = (await (await postJson(worker, '/api/v1/panels', examplePanel())).json()) as { id: string };
+    const res = await worker.call(`/api/v1/panels/${id}`, { method: 'DELETE' });
+    expect(res.status).toBe(405);
+    expect(res.headers.get('allow')).toContain('GET');
+    expect((await errorOf(res))?.code).toBe('method_not_allowed');
+  });
+
+  it('POST /api/v1/panels/design is never taken for a share id', async () => {
+    const res = await postJson(worker, '/api/v1/panels/design', { targets: [] });
+    expect(res.status).not.toBe(405);
+    expect(await res.text()).not.toContain('"url"');
+  });
+});
+
+describe('/p/:id page route', () => {
+  it('GET /p/:id of a stored panel returns the front end with 200', async () => {
+    const { url } = (await (await postJson(worker, '/api/v1/panels', examplePanel())).json()) as { url: string };
+    const res = await worker.call(url);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-type')).toMatch(/^text\/html/);
+    const index = await (await worker.call('/')).text();
+    expect(await res.text()).toBe(index);
+  });
+
+  it('GET /p/:id of an unknown or malformed id shows a 404 not-found page', async () => {
+    for (const path of ['/p/AAAAAAAAAAAAAAAAAAAAAAAA', '/p/nope', '/p/']) {
+      const res = await worker.call(path);
+      expect(res.status, path).toBe(404);
+      expect(res.headers.get('content-type'), path).toMatch(/^text\/html/);
+      expect(await res.text(), path).toContain('not found');
+    }
+  });
+});
+
+describe('persistence', () => {
+  it('GET /api/v1/panels/:id still finds a panel after the server restarts on the same state directory', async () => {
+    const panel = { ...examplePanel(), title: 'kept across a restart' };
+    const { id } = (await (await postJson(worker, '/api/v1/panels', panel)).json()) as { id: string };
+    await worker.dispose();
+    worker = await startWorker(persistDir);
+    const res = await worker.call(`/api/v1/panels/${id}`);
+    expect(res.status).toBe(200);
+    expect(await res.json()).toStrictEqual(panel);
+    expect((await postJson(worker, '/api/v1/panels', panel)).status).toBe(200);
+  });
+});
