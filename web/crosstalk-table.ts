@@ -5,11 +5,13 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
+import { styleMap } from 'lit/directives/style-map.js';
 import { cellLightness, formatFraction, type CrosstalkView } from './crosstalk-view';
 
+// styleMap sets properties through CSSOM, which the page's CSP (style-src 'self') allows; a style attribute it would not.
 const cellStyle = (v: number | null, below = false) => {
   const l = below ? 98 : cellLightness(v);
-  return `background:hsl(212 55% ${l}%);color:${l < 55 ? '#fff' : '#111'}`;
+  return styleMap({ background: `hsl(212 55% ${l}%)`, color: l < 55 ? '#fff' : '#111' });
 };
 
 const times = (v: number | null) => (v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`);

@@ -1,0 +1,59 @@
+/**
+ * <qdp-channel-list>: the panel's detection channels as editable cards, "Add channel", and "Add a spectral detector
+ * run" (N contiguous narrow bins). Fires `channel-add` and `spectral-run` {startNm, bins, binWidthNm}.
+ */
+import { LitElement, css, html } from 'lit';
+import { customElement, property, state } from 'lit/decorators.js';
+import type { PanelSpec } from '../spectra/index';
+import './channel-card';
+import './number-field';
+
+@customElement('qdp-channel-list')
+export class ChannelList extends LitElement {
+  @property({ attribute: false }) panel?: PanelSpec;
+  @property({ attribute: false }) detectors: { id: string; name: string }[] = [];
+  /** Errors keyed by channel index, then by field path inside the channel. */
+  @property({ attribute: false }) errors: Record<number, Record<string, string>> = {};
+  /** Most channels a panel may hold (api-v1: 64). */
+  @property({ type: Number }) maxChannels = 64;
+
+  @state() private run = { startNm: 480, bins: 16, binWidthNm: 10 };
+
+  static override styles = css`
+    :host { display: block; }
+    .cards { display: grid; gap: 0.6rem; }
+    fieldset { border: 1px solid #ccd; border-radius: 6px; margin-top: 0.6rem; display: flex; flex-wrap: wrap; gap: 0.5rem; align-items: flex-end; }
+    :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
+    .note { font-size: 0.85rem; }
+  `;
+
+  private fire(name: string, detail?: unknown): void {
+    this.dispatchEvent(new CustomEvent(name, { detail, bubbles: true, composed: true }));
+  }
+
+  override render() {
+    const panel = this.panel;
+    if (!panel) return html``;
+    const lines = panel.excitation.map((e) => e.wavelengthNm);
+    const room = this.maxChannels - panel.channels.length;
+    const set = (k: keyof typeof this.run) => (e: CustomEvent<{ value?: number }>) => {
+      if (e.detail.value !== undefined) this.run = { ...this.run, [k]: e.detail.value };
+    };
+    return html`<div class="cards">${panel.channels.map((c, i) => html`<qdp-channel-card .channel=${c} .index=${i} .lines=${lines} .detectors=${this.detectors} .errors=${this.errors[i] ?? {}}></qdp-channel-card>`)}</div>
+      <button type="button" ?disabled=${room < 1} @click=${() => this.fire('channel-add')}>Add channel</button>
+      <fieldset><legend>Add a spectral detector run</legend>
+        <qdp-number-field label="From" unit="nm" .value=${this.run.startNm} @value-change=${set('startNm')}></qdp-number-field>
+        <qdp-number-field label="Bins" .value=${this.run.bins} @value-change=${set('bins')}></qdp-number-field>
+        <qdp-number-field label="Bin width" unit="nm" .value=${this.run.binWidthNm} @value-change=${set('binWidthNm')}></qdp-number-field>
+        <button type="button" ?disabled=${this.run.bins < 1 || this.run.bins > room || !Number.isInteger(this.run.bins) || this.run.binWidthNm <= 0}
+          @click=${() => this.fire('spectral-run', { ...this.run })}>Add ${this.run.bins} × ${this.run.binWidthNm} nm bins</button>
+        <span class="note">${room} more channel${room === 1 ? '' : 's'} allowed (at most ${this.maxChannels}).</span>
+      </fieldset>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'qdp-channel-list': ChannelList;
+  }
+}

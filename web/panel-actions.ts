@@ -1,0 +1,97 @@
+/**
+ * <qdp-panel-actions>: share the panel (stores it through the API and copies the link, with a visible link field as
+ * the fallback) and export it: ordering sheet CSV, panel JSON, chart SVG and PNG.
+ */
+import { LitElement, css, html } from 'lit';
+import { customElement, property, state } from 'lit/decorators.js';
+import type { PanelSpec } from '../spectra/index';
+import { ApiError, evaluateOnServer, sharePanel } from './api';
+import { orderingSheetCsv, type ResolvedForSheet } from './csv-export';
+import { downloadBlob, downloadText, svgDocument, svgToPng } from './download';
+
+/** A file name from the panel title: letters, digits and dashes only. */
+export function fileStem(panel: PanelSpec): string {
+  return (panel.title ?? 'panel').toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'panel';
+}
+
+@customElement('qdp-panel-actions')
+export class PanelActions extends LitElement {
+  @property({ attribute: false }) panel?: PanelSpec;
+  /** Why share and export are off (an excluded material, an input error), or '' when they are on. */
+  @property() blocked = '';
+  /** The page's own resolved dots, used for the sheet only if the server cannot be reached. */
+  @property({ attribute: false }) localResolved: ResolvedForSheet[] = [];
+  /** Returns the chart's <svg> for image export. */
+  @property({ attribute: false }) chartSvg: () => SVGSVGElement | null = () => null;
+
+  @state() private link = '';
+  @state() private message = '';
+  @state() private busy = false;
+
+  static override styles = css`
+    :host { display: block; }
+    .row { display: flex; flex-wrap: wrap; gap: 0.4rem; align-items: center; }
+    input { font: inherit; width: min(32rem, 100%); padding: 0.25rem; }
+    :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
+    .msg { font-size: 0.9rem; }
+  `;
+
+  private async share(): Promise<void> {
+    if (!this.panel) return;
+    this.busy = true;
+    try {
+      const { url } = await sharePanel(this.panel);
+      this.link = new URL(url, location.origin).href;
+      try {
+        await navigator.clipboard.writeText(this.link);
+        this.message = 'Link copied. Anyone with it sees this panel as a shared copy.';
+      } catch {
+        this.message = 'The link could not be copied automatically: copy it from the field.';
+      }
+    } catch (e) {
+      this.message = `Sharing failed: ${e instanceof ApiError ? e.message : String(e)}`;
+    } finally {
+      this.busy = false;
+    }
+  }
+
+  private async exportCsv(): Promise<void> {
+    if (!this.panel) return;
+    let resolved: ResolvedForSheet[] = this.localResolved;
+    try {
+      resolved = (await evaluateOnServer(this.panel)).probes;
+      this.message = 'Ordering sheet saved (values from the server).';
+    } catch (e) {
+      this.message = `Ordering sheet saved with values computed in this page (server: ${e instanceof Error ? e.message : String(e)}).`;
+    }
+    downloadText(orderingSheetCsv(this.panel, resolved), `${fileStem(this.panel)}-order.csv`, 'text/csv;charset=utf-8');
+  }
+
+  private async exportImage(kind: 'svg' | 'png'): Promise<void> {
+    const svg = this.chartSvg();
+    if (!svg || !this.panel) return;
+    const text = svgDocument(svg);
+    if (kind === 'svg') downloadText(text, `${fileStem(this.panel)}-spectra.svg`, 'image/svg+xml');
+    else downloadBlob(await svgToPng(text, svg.width.baseVal.value, svg.height.baseVal.value), `${fileStem(this.panel)}-spectra.png`);
+  }
+
+  override render() {
+    const off = !!this.blocked || this.busy;
+    return html`<div class="row">
+        <button type="button" ?disabled=${off} @click=${this.share}>Share: store and copy link</button>
+        <button type="button" ?disabled=${off} @click=${this.exportCsv}>Ordering sheet (CSV)</button>
+        <button type="button" ?disabled=${off} @click=${() => this.panel && downloadText(JSON.stringify(this.panel, null, 2), `${fileStem(this.panel)}.json`, 'application/json')}>Panel (JSON)</button>
+        <button type="button" @click=${() => this.exportImage('svg')}>Chart (SVG)</button>
+        <button type="button" @click=${() => this.exportImage('png')}>Chart (PNG)</button>
+      </div>
+      ${this.blocked ? html`<p class="msg" role="status">Share and export are off: ${this.blocked}</p>` : ''}
+      ${this.link ? html`<label class="row">Share link <input type="text" readonly .value=${this.link} @focus=${(e: Event) => (e.target as HTMLInputElement).select()} /></label>` : ''}
+      <p class="msg" role="status" aria-live="polite">${this.message}</p>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'qdp-panel-actions': PanelActions;
+  }
+}

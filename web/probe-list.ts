@@ -1,0 +1,45 @@
+/**
+ * <qdp-probe-list>: the panel's probes as editable cards, with "Add probe". Card events bubble up unchanged;
+ * this element adds `probe-add`.
+ */
+import { LitElement, css, html } from 'lit';
+import { customElement, property } from 'lit/decorators.js';
+import type { PanelSpec } from '../spectra/index';
+import './probe-card';
+import type { ProbeCardMaterial, ProbePrediction } from './probe-types';
+
+@customElement('qdp-probe-list')
+export class ProbeList extends LitElement {
+  @property({ attribute: false }) panel?: PanelSpec;
+  @property({ attribute: false }) materials: ProbeCardMaterial[] = [];
+  @property({ attribute: false }) predictions: (ProbePrediction | undefined)[] = [];
+  /** Errors keyed by probe index, then by field name. */
+  @property({ attribute: false }) errors: Record<number, Record<string, string>> = {};
+  /** Exclusion reasons keyed by probe id. */
+  @property({ attribute: false }) blocked: Map<string, string> = new Map();
+  /** Most probes a panel may hold (api-v1: 16). */
+  @property({ type: Number }) maxProbes = 16;
+
+  static override styles = css`
+    :host { display: block; }
+    .cards { display: grid; gap: 0.6rem; }
+    button { margin-top: 0.5rem; }
+    :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
+  `;
+
+  override render() {
+    const panel = this.panel;
+    if (!panel) return html``;
+    const full = panel.probes.length >= this.maxProbes;
+    return html`<div class="cards">${panel.probes.map((p, i) => html`<qdp-probe-card .probe=${p} .index=${i} .materials=${this.materials} .channels=${panel.channels}
+        .prediction=${this.predictions[i]} .errors=${this.errors[i] ?? {}} .blocked=${this.blocked.get(p.id) ?? ''} ?blocked=${this.blocked.has(p.id)}></qdp-probe-card>`)}</div>
+      <button type="button" ?disabled=${full} @click=${() => this.dispatchEvent(new CustomEvent('probe-add', { bubbles: true, composed: true }))}>Add probe</button>
+      ${full ? html`<span>A panel holds at most ${this.maxProbes} probes.</span>` : ''}`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'qdp-probe-list': ProbeList;
+  }
+}
