@@ -1,0 +1,75 @@
+import { SpectraError } from '../errors';
+import type { SampledSpectrum, WavelengthGrid } from '../grid';
+import { sampleTable } from '../grid';
+
+/** Most points a measured table may carry (more than any spectrometer export needs; bounds the work per probe). */
+export const MAX_MEASURED_POINTS = 10000;
+
+/**
+ * Checks a measured table [[nm, value], ...]: at least 2 points, finite numbers, wavelengths above 0 nm and strictly
+ * ascending. Throws `invalid_table` with the path of the first bad entry.
+ */
+export function requireTable(points: unknown, path: (string | number)[]): [number, number][] {
+  if (!Array.isArray(points) || points.length < 2) {
+    throw new SpectraError('invalid_table', 'a measured table needs at least 2 [nm, value] points', path);
+  }
+  if (points.length > MAX_MEASURED_POINTS) {
+    throw new SpectraError('invalid_table', `a measured table has at most ${MAX_MEASURED_POINTS} points, got ${points.length}`, path);
+  }
+  points.forEach((p, i) => {
+    if (!Array.isArray(p) || p.length !== 2 || !p.every((v) => typeof v === 'number' && Number.isFinite(v))) {
+      throw new SpectraError('invalid_table', `point ${i} must be [wavelength nm, value] with two finite numbers`, [...path, i]);
+    }
+    if (p[0] <= 0) throw new SpectraError('invalid_table', `point ${i}: wavelength must be above 0 nm`, [...path, i, 0]);
+    if (i > 0 && p[0] <= points[i - 1][0]) {
+      throw new SpectraError('invalid_table', `point ${i}: wavelengths must be strictly ascending (${p[0]} nm after ${points[i - 1][0]} nm)`, [...path, i, 0]);
+    }
+  });
+  return points as [number, number][];
+}
+
+/** Peak wavelength (parabolic refinement around the largest sample) and FWHM (linear half-maximum crossings), nm. */
+export function peakAndFwhmNm(s: SampledSpectrum): { peakNm: number; fwhmNm: number; truncated: boolean } {
+  const v = s.values;
+  let k = 0;
+  for (let i = 1; i < v.length; i++) if (v[i] > v[k]) k = i;
+  let offset = 0;
+  if (k > 0 && k < v.length - 1) {
+    const denom = v[k - 1] - 2 * v[k] + v[k + 1];
+    if (denom < 0) offset = (0.5 * (v[k - 1] - v[k + 1])) / denom;
+  }
+  const half = v[k] / 2;
+  let left = k;
+  while (left > 0 && v[left] > half) left--;
+  let right = k;
+  while (right < v.length - 1 && v[right] > half) right++;
+  const truncated = v[left] > half || v[right] > half;
+  const cross = (a: number, b: number) => (v[a] === v[b] ? a : a + (half - v[a]) / (v[b] - v[a]) * (b - a));
+  const leftIdx = v[left] > half ? left : cross(left, left + 1);
+  const rightIdx = v[right] > half ? right : cross(right - 1, right);
+  return { peakNm: s.startNm + (k + offset) * s.stepNm, fwhmNm: (rightIdx - leftIdx) * s.stepNm, truncated };
+}
+
+/**
+ * A measured emission resampled onto the grid (linear, zero outside the table), negative values clipped to zero,
+ * renormalised to unit area (sum × step = 1). Values are read as photon counts per nm; spectra recorded per unit
+ * energy or as power must be converted first.
+ */
+export function resampleMeasuredEmission(points: unknown, grid: WavelengthGrid, path: (string | number)[]) {
+  const table = requireTable(points, path);
+  const warnings: string[] = [];
+  const values = sampleTable(table, grid, 0);
+  let sum = 0;
+  let clipped = false;
+  for (let i = 0; i < values.length; i++) {
+    if (values[i] < 0) { values[i] = 0; clipped = true; }
+    sum += values[i];
+  }
+  if (clipped) warnings.push('Measured emission had negative values; they were set to zero.');
+  if (!(sum > 0)) throw new SpectraError('invalid_table', 'measured emission has no positive value on the wavelength grid', path);
+  for (let i = 0; i < values.length; i++) values[i] /= sum * grid.stepNm;
+  const spectrum: SampledSpectrum = { startNm: grid.startNm, stepNm: grid.stepNm, values };
+  const { peakNm, fwhmNm, truncated } = peakAndFwhmNm(spectrum);
+  if (truncated) warnings.push('Measured emission does not fall to half maximum on both sides within the grid: its FWHM is a lower bound.');
+  return { spectrum, peakNm, fwhmNm, warnings };
+}
