@@ -1,0 +1,77 @@
+/**
+ * Drivers for the catalog branch and bound: a synchronous one under a node budget (the API route: the Workers
+ * runtime's clock does not advance during synchronous work, so only a node count can bound it) and an
+ * asynchronous one that yields to the event loop between chunks (a browser Web Worker: progress and cancel).
+ */
+import { CatalogSearch, type CatalogResult } from './catalog';
+import type { CatalogProblem } from './problem';
+import type { DesignAssignment } from './objective';
+
+/** What a running search reports between chunks. */
+export interface SearchProgress {
+  stage: 'candidates' | 'search' | 'refine' | 'done';
+  nodesVisited: number;
+  /** Worst interference of the best design so far (null: none yet). */
+  incumbent: number | null;
+  /** Proven lower bound on the optimum so far (null: none yet). */
+  bound: number | null;
+}
+
+/** Budget, progress and stop hooks shared by the drivers. */
+export interface SearchOptions {
+  /** Most nodes to visit before returning the best found (exact: false). Default DEFAULT_NODE_BUDGET. */
+  nodeBudget?: number;
+  /** Nodes per chunk between progress reports and stop checks (default 2,000). */
+  chunkNodes?: number;
+  onProgress?: (progress: SearchProgress) => void;
+  /** Checked between chunks; true stops the search with the best found so far. */
+  shouldStop?: () => boolean;
+  /** A complete design to start from (the search then only looks for better ones). */
+  initial?: DesignAssignment;
+}
+
+/**
+ * Default node budget of one search. Chosen so that a catalog request of 8 targets from 16 × 16 candidates stays
+ * within the CPU limit assumed for the route (see DEVELOPERS.md, "Design engine and noise prediction").
+ */
+export const DEFAULT_NODE_BUDGET = 200_000;
+
+function progressOf(search: CatalogSearch, stage: SearchProgress['stage']): SearchProgress {
+  const bound = search.lowerBound();
+  return {
+    stage,
+    nodesVisited: search.nodesVisited,
+    incumbent: Number.isFinite(search.incumbentWorst) ? search.incumbentWorst : null,
+    bound: Number.isFinite(bound) ? bound : null,
+  };
+}
+
+/**
+ * Exact catalog design (branch and bound) within a node budget; `exact` is true when the search space was exhausted.
+ * @example searchCatalog({ collected, abundance: [1, 0.1, 0.3] }).objective?.worstInterference
+ */
+export function searchCatalog(problem: CatalogProblem, options: SearchOptions = {}): CatalogResult {
+  const search = new CatalogSearch(problem, options.initial);
+  const budget = options.nodeBudget ?? DEFAULT_NODE_BUDGET;
+  const chunk = options.chunkNodes ?? 2000;
+  while (!search.done && search.nodesVisited < budget) {
+    search.advance(Math.min(chunk, budget - search.nodesVisited));
+    options.onProgress?.(progressOf(search, search.done ? 'done' : 'search'));
+    if (options.shouldStop?.()) break;
+  }
+  return search.result();
+}
+
+/** As searchCatalog, but yields to the event loop between chunks so a stop request can arrive. */
+export async function searchCatalogAsync(problem: CatalogProblem, options: SearchOptions = {}): Promise<CatalogResult> {
+  const search = new CatalogSearch(problem, options.initial);
+  const budget = options.nodeBudget ?? Number.POSITIVE_INFINITY;
+  const chunk = options.chunkNodes ?? 2000;
+  while (!search.done && search.nodesVisited < budget) {
+    search.advance(Math.min(chunk, budget - search.nodesVisited));
+    options.onProgress?.(progressOf(search, search.done ? 'done' : 'search'));
+    await new Promise((resolve) => setTimeout(resolve, 0));
+    if (options.shouldStop?.()) break;
+  }
+  return search.result();
+}
