@@ -7,6 +7,7 @@ import { cors } from 'hono/cors';
 import type { AppEnv } from './env';
 import { errorResponse, onApiError } from './errors';
 import { securityHeaders } from './middleware/security-headers';
+import { detectors } from './routes/detectors';
 import { health } from './routes/health';
 import { openapi } from './routes/openapi';
 import { notFoundPage, pages } from './routes/pages';
@@ -22,6 +23,7 @@ app.use('/api/*', cors({ origin: '*', allowMethods: ['GET', 'POST'], allowHeader
 // routes (one small app per resource; mount new resources here)
 app.route('/api/v1/health', health);
 app.route('/api/v1/openapi.json', openapi);
+app.route('/api/v1/detectors', detectors);
 app.route('/api/v1/panels', panels);
 app.route('/p', pages);
 

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { MAX_BLOCKING_OD, MAX_FILTERS_PER_CHANNEL, MAX_TABLE_POINTS } from '../../spectra/index';
+import { MAX_BLOCKING_OD, MAX_FILTERS_PER_CHANNEL, MAX_GRID_POINTS, MAX_TABLE_POINTS } from '../../spectra/index';
 
 /**
  * Limits of the API's input, in one place. Ranges are physical plausibility bounds (common practice for
@@ -25,7 +25,7 @@ export const LIMITS = {
   // The spectral library's own guards, taken from it so the two never disagree.
   maxFiltersPerChannel: MAX_FILTERS_PER_CHANNEL,
   maxTablePoints: MAX_TABLE_POINTS,
-  maxGridPoints: 4001,
+  maxGridPoints: MAX_GRID_POINTS,
   maxIdLength: 64,
   maxTextLength: 200,
 } as const;
