@@ -1,1 +1,2 @@
-// Front-end entry (placeholder until the page is built).
+// Front-end entry: defines the page element; index.html places it. No inline script (the CSP forbids it).
+import './panel-app';

@@ -1,0 +1,89 @@
+import { afterEach, describe, expect, it } from 'vitest';
+import { listMaterials, type ChannelSpec, type ProbeSpec } from '../../spectra/index';
+import '../../web/number-field';
+import '../../web/probe-card';
+import '../../web/channel-card';
+import { moveEdge } from '../../web/edge-drag';
+import { demoPanel } from '../../web/demo-panel';
+
+afterEach(() => document.body.replaceChildren());
+
+function typeInto(input: HTMLInputElement, text: string): void {
+  input.value = text;
+  input.dispatchEvent(new Event('input', { bubbles: true, composed: true }));
+}
+
+describe('editors', () => {
+  it('<qdp-number-field> fires value-change for a number and keeps non-numeric text, marked invalid, without firing', async () => {
+    const el = document.createElement('qdp-number-field');
+    el.label = 'Emission peak';
+    el.value = 605;
+    document.body.append(el);
+    await el.updateComplete;
+    const seen: (number | undefined)[] = [];
+    el.addEventListener('value-change', (e) => seen.push((e as CustomEvent<{ value?: number }>).detail.value));
+    const input = el.shadowRoot!.querySelector('input')!;
+    typeInto(input, '612');
+    typeInto(input, '61x');
+    await el.updateComplete;
+    expect(seen).toEqual([612]);
+    expect(input.value).toBe('61x');
+    expect(input.getAttribute('aria-invalid')).toBe('true');
+    expect(el.shadowRoot!.textContent).toContain('enter a number');
+  });
+
+  it('<qdp-number-field> shows an error from the computation and keeps the typed text', async () => {
+    const el = document.createElement('qdp-number-field');
+    el.label = 'Emission peak';
+    el.value = 605;
+    document.body.append(el);
+    await el.updateComplete;
+    typeInto(el.shadowRoot!.querySelector('input')!, '900');
+    el.value = 900;
+    el.error = 'emissionPeakNm 900 nm is outside the reachable range 480–650 nm';
+    await el.updateComplete;
+    expect(el.shadowRoot!.querySelector('input')!.value).toBe('900');
+    expect(el.shadowRoot!.querySelector('[role="alert"]')!.textContent).toContain('480–650');
+  });
+
+  it('<qdp-probe-card> fires probe-change with the new emission peak and lists every material', async () => {
+    const el = document.createElement('qdp-probe-card');
+    const probe: ProbeSpec = { id: 'p1', label: 'Orange', material: 'cdse', emissionPeakNm: 605 };
+    el.probe = probe;
+    el.materials = listMaterials();
+    el.prediction = { diameterNm: 4.9, firstExcitonNm: 590, emissionPeakNm: 605, fwhmNm: 29, relativeBrightness: 0.5, measured: false, warnings: [] };
+    document.body.append(el);
+    await el.updateComplete;
+    const changes: ProbeSpec[] = [];
+    el.addEventListener('probe-change', (e) => changes.push((e as CustomEvent<{ probe: ProbeSpec }>).detail.probe));
+    const field = el.shadowRoot!.querySelector('qdp-number-field[data-field="emissionPeakNm"]') as HTMLElement & { updateComplete: Promise<unknown> };
+    await field.updateComplete;
+    typeInto(field.shadowRoot!.querySelector('input')!, '615');
+    expect(changes).toEqual([{ ...probe, emissionPeakNm: 615 }]);
+    expect(el.shadowRoot!.querySelectorAll('select')[0].options.length).toBe(listMaterials().length);
+    expect(el.shadowRoot!.textContent).toContain('emission peak 605 nm · FWHM 29 nm');
+  });
+
+  it('<qdp-channel-card> fires channel-change with the new bandpass width', async () => {
+    const el = document.createElement('qdp-channel-card');
+    const channel: ChannelSpec = { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] };
+    el.channel = channel;
+    el.lines = [405];
+    document.body.append(el);
+    await el.updateComplete;
+    const changes: ChannelSpec[] = [];
+    el.addEventListener('channel-change', (e) => changes.push((e as CustomEvent<{ channel: ChannelSpec }>).detail.channel));
+    const field = el.shadowRoot!.querySelector('qdp-number-field[data-field="filters.0.widthNm"]') as HTMLElement & { updateComplete: Promise<unknown> };
+    await field.updateComplete;
+    typeInto(field.shadowRoot!.querySelector('input')!, '30');
+    expect(changes[0].filters[0]).toEqual({ type: 'bandpass', centerNm: 605, widthNm: 30 });
+  });
+
+  it('moveEdge(panel, low edge at 590) keeps the upper edge of a 605/20 bandpass and widens it to 25 nm', () => {
+    const panel = demoPanel();
+    const i = panel.channels.findIndex((c) => c.filters[0].type === 'bandpass' && c.filters[0].centerNm === 605);
+    const moved = moveEdge(panel, { channelIndex: i, filterIndex: 0, edge: 'low', wavelengthNm: 590 });
+    expect(moved.channels[i].filters[0]).toMatchObject({ centerNm: 602.5, widthNm: 25 });
+    expect(panel.channels[i].filters[0]).toMatchObject({ centerNm: 605, widthNm: 20 });
+  });
+});
