@@ -23,7 +23,7 @@ afterEach(() => document.body.replaceChildren());
 async function mount(v: CrosstalkView): Promise<CrosstalkTable> {
   const el = document.createElement('qdp-crosstalk-table');
   el.view = v;
-  document.body.append(el);
+  document.body.appendChild(el);
   await el.updateComplete;
   return el;
 }

@@ -18,7 +18,7 @@ describe('editors', () => {
     const el = document.createElement('qdp-number-field');
     el.label = 'Emission peak';
     el.value = 605;
-    document.body.append(el);
+    document.body.appendChild(el);
     await el.updateComplete;
     const seen: (number | undefined)[] = [];
     el.addEventListener('value-change', (e) => seen.push((e as CustomEvent<{ value?: number }>).detail.value));
@@ -36,7 +36,7 @@ describe('editors', () => {
     const el = document.createElement('qdp-number-field');
     el.label = 'Emission peak';
     el.value = 605;
-    document.body.append(el);
+    document.body.appendChild(el);
     await el.updateComplete;
     typeInto(el.shadowRoot!.querySelector('input')!, '900');
     el.value = 900;
@@ -52,7 +52,7 @@ describe('editors', () => {
     el.probe = probe;
     el.materials = listMaterials();
     el.prediction = { diameterNm: 4.9, firstExcitonNm: 590, emissionPeakNm: 605, fwhmNm: 29, relativeBrightness: 0.5, measured: false, warnings: [] };
-    document.body.append(el);
+    document.body.appendChild(el);
     await el.updateComplete;
     const changes: ProbeSpec[] = [];
     el.addEventListener('probe-change', (e) => changes.push((e as CustomEvent<{ probe: ProbeSpec }>).detail.probe));
@@ -69,7 +69,7 @@ describe('editors', () => {
     const channel: ChannelSpec = { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] };
     el.channel = channel;
     el.lines = [405];
-    document.body.append(el);
+    document.body.appendChild(el);
     await el.updateComplete;
     const changes: ChannelSpec[] = [];
     el.addEventListener('channel-change', (e) => changes.push((e as CustomEvent<{ channel: ChannelSpec }>).detail.channel));

@@ -10,7 +10,7 @@ async function mount(exclude: ('cadmium' | 'lead')[] = []) {
   el.panel = demoPanel();
   el.materials = listMaterials();
   el.exclude = exclude;
-  document.body.append(el);
+  document.body.appendChild(el);
   await el.updateComplete;
   return el;
 }

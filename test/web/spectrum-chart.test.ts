@@ -26,7 +26,7 @@ async function mount(): Promise<SpectrumChart> {
     { channelIndex: 0, filterIndex: 0, edge: 'high', wavelengthNm: 615 },
   ] }];
   el.excitationNm = [405];
-  document.body.append(el);
+  document.body.appendChild(el);
   await el.updateComplete;
   return el;
 }

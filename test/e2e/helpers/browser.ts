@@ -1,0 +1,39 @@
+/**
+ * Headless Debian chromium through playwright-core, with a fresh profile per run, and a screenshot helper that
+ * writes under test-output/e2e/ (git-ignored).
+ */
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+/** Flags for a closed network and a root user (no sandbox). */
+export const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+
+/** Where the flows save their screenshots. */
+export const SHOT_DIR = join(process.cwd(), 'test-output', 'e2e');
+
+/** A browser context on a new temporary profile; close() also deletes the profile. */
+export async function openBrowser(): Promise<{ context: BrowserContext; close(): Promise<void> }> {
+  const profile = mkdtempSync(join(tmpdir(), 'qdp-e2e-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: CHROMIUM_ARGS,
+    viewport: { width: 1280, height: 900 },
+    acceptDownloads: true,
+  });
+  return {
+    context,
+    close: async () => {
+      await context.close();
+      rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Saves a full-page screenshot as test-output/e2e/<name>.png. */
+export async function shot(page: Page, name: string): Promise<void> {
+  mkdirSync(SHOT_DIR, { recursive: true });
+  await page.screenshot({ path: join(SHOT_DIR, `${name}.png`), fullPage: true });
+}
