@@ -1,0 +1,154 @@
+import { readFileSync } from 'node:fs';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { openBrowser, shot } from './helpers/browser';
+import { startApp, type RunningApp } from './helpers/server';
+
+let app: RunningApp;
+let browser: { context: BrowserContext; close(): Promise<void> };
+let shareUrl = '';
+
+beforeAll(async () => {
+  app = await startApp();
+  browser = await openBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await app?.stop();
+});
+
+/** Opens a page, failing the test on any script error or dialog. */
+async function open(url: string): Promise<{ page: Page; problems: string[] }> {
+  const page = await browser.context.newPage();
+  const problems: string[] = [];
+  page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
+  page.on('dialog', async (d) => { problems.push(`dialog: ${d.message()}`); await d.dismiss(); });
+  page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
+  await page.goto(url);
+  await page.locator('qdp-crosstalk-table p.worst').waitFor();
+  return { page, problems };
+}
+
+const orangeWidth = (page: Page) => page.locator('qdp-channel-card').nth(3).locator('qdp-number-field[data-field="filters.0.widthNm"] input');
+const spillover = (page: Page) => page.locator('qdp-crosstalk-table table[aria-label="Spillover by channel"]').innerText();
+
+describe('the panel page', () => {
+  it('opening / shows the demo panel with spectra, crosstalk and material cautions, at 1280 px and 390 px', async () => {
+    const { page, problems } = await open(app.baseUrl + '/');
+    expect(await page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toContain('Demo: six targets');
+    expect(await page.locator('qdp-spectrum-chart path.curve').count()).toBe(6);
+    expect(await page.locator('qdp-material-notes').innerText()).toContain('This panel contains cadmium');
+    await shot(page, '01-demo-1280');
+    await page.setViewportSize({ width: 390, height: 844 });
+    await page.waitForTimeout(200);
+    await shot(page, '01-demo-390');
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth);
+    expect(overflow).toBeLessThanOrEqual(400);
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+
+  it('typing a band width and dragging a band edge both change the crosstalk numbers and stay in step', async () => {
+    const { page, problems } = await open(app.baseUrl + '/');
+    const before = await spillover(page);
+    await orangeWidth(page).fill('60');
+    await expect.poll(() => spillover(page)).not.toBe(before);
+    await shot(page, '02-typed-width-1280');
+    const typed = await spillover(page);
+    // The chart's upper edge of the 605/60 band sits at 635 nm; drag it 40 px to the right.
+    const handle = page.locator('qdp-spectrum-chart g.handle[data-channel="c4"][data-edge="high"] line');
+    const box = (await handle.boundingBox())!;
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width / 2 + 20, box.y + box.height / 2, { steps: 4 });
+    await page.mouse.move(box.x + box.width / 2 + 40, box.y + box.height / 2, { steps: 4 });
+    await page.mouse.up();
+    await expect.poll(() => spillover(page)).not.toBe(typed);
+    const width = Number(await orangeWidth(page).inputValue());
+    expect(width).toBeGreaterThan(60);
+    await shot(page, '03-dragged-edge-1280');
+    expect(problems).toEqual([]);
+    // The URL fragment carries the edit: a reload keeps it.
+    await page.reload();
+    await page.locator('qdp-crosstalk-table p.worst').waitFor();
+    expect(Number(await orangeWidth(page).inputValue())).toBe(width);
+    await page.close();
+  });
+
+  it('an out-of-range emission peak is kept as typed, marked invalid with the reachable range, and the last numbers stay', async () => {
+    const { page } = await open(app.baseUrl + '/');
+    const before = await spillover(page);
+    const peak = page.locator('qdp-probe-card').nth(1).locator('qdp-number-field[data-field="emissionPeakNm"]');
+    await peak.locator('input').fill('990');
+    await expect.poll(() => peak.locator('[role="alert"]').count()).toBe(1);
+    expect(await peak.locator('input').inputValue()).toBe('990');
+    expect(await peak.locator('[role="alert"]').innerText()).toMatch(/\d{3}.*\d{3}/);
+    expect(await spillover(page)).toBe(before);
+    await shot(page, '04-invalid-peak-1280');
+    await page.close();
+  });
+
+  it('share stores the panel and the link opens the same panel as a shared copy that can be duplicated', async () => {
+    const { page, problems } = await open(app.baseUrl + '/');
+    await orangeWidth(page).fill('30');
+    await expect.poll(() => orangeWidth(page).inputValue()).toBe('30');
+    const worst = await page.locator('qdp-crosstalk-table p.worst').innerText();
+    await page.getByRole('button', { name: /Share: store/ }).click();
+    const link = page.getByLabel('Share link');
+    await link.waitFor();
+    shareUrl = await link.inputValue();
+    expect(shareUrl).toMatch(/\/p\/[A-Za-z0-9_-]{22,}$/);
+    await shot(page, '05-shared-1280');
+    const other = await open(shareUrl);
+    await other.page.getByText('Shared copy (read only)').waitFor();
+    expect(await orangeWidth(other.page).inputValue()).toBe('30');
+    expect(await other.page.locator('qdp-crosstalk-table p.worst').innerText()).toBe(worst);
+    await shot(other.page, '06-opened-link-1280');
+    await other.page.getByRole('button', { name: 'Duplicate and edit' }).click();
+    await expect.poll(() => other.page.url()).toMatch(/\/#v1\./);
+    expect(await other.page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toContain('(copy)');
+    expect([...problems, ...other.problems]).toEqual([]);
+    await other.page.close();
+    await page.close();
+  });
+
+  it('exporting the ordering sheet downloads a CSV with every probe and each channel written as "bandpass 605/20"', async () => {
+    const { page } = await open(app.baseUrl + '/');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Ordering sheet (CSV)' }).click()]);
+    const csv = readFileSync((await download.path())!, 'utf8');
+    expect(download.suggestedFilename()).toMatch(/\.csv$/);
+    expect(csv).toContain('bandpass 605/20');
+    expect(csv).toContain('longpass 690');
+    for (const target of ['nuclear envelope marker', 'mitochondrial marker', 'membrane marker']) expect(csv).toContain(target);
+    const cdseRow = csv.split('\r\n').find((r) => r.startsWith('p4,'))!;
+    // material, core diameter (a number), emission peak 605.
+    expect(cdseRow).toMatch(/^p4,Orange dot,cytoskeleton marker,cdse,\d+(\.\d+)?,605,/);
+    await page.close();
+  });
+
+  it('a title, label and target of <img src=x onerror=alert(1)> are shown as text after a share round trip, with no dialog', async () => {
+    const evil = '<img src=x onerror=alert(1)>';
+    const { page, problems } = await open(app.baseUrl + '/');
+    await page.locator('qdp-panel-app header input[type="text"]').first().fill(evil);
+    await page.locator('qdp-panel-app header input[type="text"]').first().press('Tab');
+    const card = page.locator('qdp-probe-card').first();
+    await card.getByLabel('Label').fill(evil);
+    await card.getByLabel('Label').press('Tab');
+    await card.getByLabel('Target').fill(evil);
+    await card.getByLabel('Target').press('Tab');
+    await page.getByRole('button', { name: /Share: store/ }).click();
+    const url = await page.getByLabel('Share link').inputValue();
+    const other = await open(url);
+    await other.page.getByText('Shared copy (read only)').waitFor();
+    expect(await other.page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toBe(evil);
+    expect(await other.page.locator('qdp-probe-card').first().locator('header strong').innerText()).toBe(evil);
+    expect(await other.page.locator('qdp-crosstalk-table').innerText()).toContain(evil);
+    expect(await other.page.locator('img').count()).toBe(0);
+    await other.page.waitForTimeout(300);
+    await shot(other.page, '07-xss-as-text-1280');
+    expect([...problems, ...other.problems]).toEqual([]);
+    await other.page.close();
+    await page.close();
+  });
+});
