@@ -8,7 +8,9 @@ import type { AppEnv } from './env';
 import { errorResponse, onApiError } from './errors';
 import { securityHeaders } from './middleware/security-headers';
 import { detectors } from './routes/detectors';
+import { dots } from './routes/dots';
 import { health } from './routes/health';
+import { materials } from './routes/materials';
 import { openapi } from './routes/openapi';
 import { notFoundPage, pages } from './routes/pages';
 import { panels } from './routes/panels';
@@ -23,7 +25,9 @@ app.use('/api/*', cors({ origin: '*', allowMethods: ['GET', 'POST'], allowHeader
 // routes (one small app per resource; mount new resources here)
 app.route('/api/v1/health', health);
 app.route('/api/v1/openapi.json', openapi);
+app.route('/api/v1/materials', materials);
 app.route('/api/v1/detectors', detectors);
+app.route('/api/v1/dots', dots);
 app.route('/api/v1/panels', panels);
 app.route('/p', pages);
 
