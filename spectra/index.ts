@@ -28,3 +28,15 @@ export { INP_ALMEIDA_2023 } from './materials/almeida2023';
 export { stokesShiftEv, STOKES_MODEL } from './materials/stokes';
 export { smoothSizeFit, emissionFwhmEv } from './materials/width';
 export { CARBON_EXCITATION_MODEL, carbonEmissionPeakNm } from './materials/carbon';
+// Design engine, unmixing noise prediction, seeded random numbers.
+export { ABUNDANCE_WORDS, DEFAULT_MIN_SIGNAL_FRACTION, abundanceValue, interference, worstInterference, targetSignals, type AbundanceInput, type CollectedMatrix, type DesignAssignment, type WorstInterference } from './design/objective';
+export { CatalogSearch, type CatalogResult, type CatalogSearchStats } from './design/catalog';
+export type { CatalogProblem } from './design/problem';
+export { searchCatalog, searchCatalogAsync, DEFAULT_NODE_BUDGET, type SearchOptions, type SearchProgress } from './design/search';
+export { predictUnmixingNoise, photonMixing, type NoiseInput, type NoisePrediction } from './noise';
+export { simulateUnmixing, type MonteCarloOptions, type MonteCarloResult } from './design/monte-carlo';
+export { createRandom, logFactorial, type RandomSource } from './random';
+export { defaultAutofluorescence, backgroundEmission, AUTOFLUORESCENCE_BANDS, BACKGROUND_REFERENCE_BRIGHTNESS } from './background';
+export { collectedMatrix, collectedColumn, crosstalkFigures, linesOn, overlap, RESOLUTION_THRESHOLD, type EmissionComponent, type CrosstalkFigures, type WorstInterference } from './crosstalk';
+export { lotShiftSensitivity, shiftEmission, LOT_SHIFT_NM, type LotShiftSensitivity } from './sensitivity';
+export { evaluatePanel, panelSpectra, buildPanelModel, type PanelEvaluation, type ProbeEvaluation, type PanelSpectra, type PanelModel } from './evaluate';
