@@ -29,7 +29,7 @@ export { stokesShiftEv, STOKES_MODEL } from './materials/stokes';
 export { smoothSizeFit, emissionFwhmEv } from './materials/width';
 export { CARBON_EXCITATION_MODEL, carbonEmissionPeakNm } from './materials/carbon';
 // Design engine, unmixing noise prediction, seeded random numbers.
-export { ABUNDANCE_WORDS, DEFAULT_MIN_SIGNAL_FRACTION, abundanceValue, interference, worstInterference, targetSignals, type AbundanceInput, type CollectedMatrix, type DesignAssignment, type WorstInterference } from './design/objective';
+export { ABUNDANCE_WORDS, DEFAULT_MIN_SIGNAL_FRACTION, abundanceValue, interference, worstInterference, targetSignals, type AbundanceInput, type CollectedMatrix, type DesignAssignment, type DesignObjective } from './design/objective';
 export { CatalogSearch, type CatalogResult, type CatalogSearchStats } from './design/catalog';
 export type { CatalogProblem } from './design/problem';
 export { searchCatalog, searchCatalogAsync, DEFAULT_NODE_BUDGET, type SearchOptions, type SearchProgress } from './design/search';
