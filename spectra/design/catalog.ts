@@ -12,7 +12,7 @@
 import { flattenProblem, fullEnumerationSize, type CatalogProblem, type FlatProblem } from './problem';
 import { flatObjective, greedyDesign } from './greedy';
 import { bottleneckAssignment, constrainedAssignment, type ChannelChoice } from './channels';
-import { worstInterference, type DesignAssignment, type WorstInterference } from './objective';
+import { worstInterference, type DesignAssignment, type DesignObjective } from './objective';
 import { childKey, extendFrame, type Frame } from './frame';
 
 /** Figures of one search. `bound` is a proven lower bound on the optimum (equal to it when exact). */
@@ -26,7 +26,7 @@ export interface CatalogSearchStats {
 /** Outcome: the best design found (null when none meets the constraints), and whether it is proven optimal. */
 export interface CatalogResult {
   design: DesignAssignment | null;
-  objective: WorstInterference | null;
+  objective: DesignObjective | null;
   exact: boolean;
   stats: CatalogSearchStats;
 }

@@ -18,7 +18,7 @@ export interface DesignAssignment {
 }
 
 /** The worst interference of a design and the target pair (indices) that sets it; -1 when there is no pair. */
-export interface WorstInterference {
+export interface DesignObjective {
   worstInterference: number;
   from: number;
   into: number;
@@ -73,8 +73,8 @@ export function worstInterference(
   collected: CollectedMatrix,
   abundance: readonly number[],
   design: DesignAssignment,
-): WorstInterference {
-  let worst: WorstInterference = { worstInterference: 0, from: -1, into: -1 };
+): DesignObjective {
+  let worst: DesignObjective = { worstInterference: 0, from: -1, into: -1 };
   for (let u = 0; u < abundance.length; u++) {
     for (let t = 0; t < abundance.length; t++) {
       if (t === u) continue;
