@@ -51,7 +51,7 @@ describe('resolveDot: model spectra', () => {
     expect(w[0]).toBeCloseTo(20.4, 0);
   });
 
-  it.each([['cdse', 30], ['cdte', 42], ['inp', 45], ['cspbbr3', 20]] as const)('resolveDot(%s) mid-range at typical dispersion has a FWHM within 35 %% of the typical %s nm (science notes, mostly from memory)', (m, typical) => {
+  it.each([['cdse', 30], ['cdte', 42], ['inp', 45], ['cspbbr3', 20]] as const)('resolveDot(%s) mid-range at typical dispersion has a FWHM within 35 percent of the typical %s nm (science notes, mostly from memory)', (m, typical) => {
     const mat = listMaterials().find((x) => x.id === m)!;
     const [lo, hi] = mat.emissionRangeNm!;
     const dot = resolveDot({ material: m, emissionPeakNm: (lo + hi) / 2 });

@@ -89,7 +89,7 @@ describe('toxicity notes (IARC Monographs; always defer to local rules)', () => 
   });
 
   it.each([['cdse', 'Cd', W.Cd / (W.Cd + W.Se)], ['cdte', 'Cd', W.Cd / (W.Cd + W.Te)], ['cds', 'Cd', W.Cd / (W.Cd + W.S)], ['cspbbr3', 'Pb', W.Pb / (W.Cs + W.Pb + 3 * W.Br)]] as const)(
-    'getMaterial(%s) states the %s mass fraction computed from IUPAC atomic weights to 0.1 %%',
+    'getMaterial(%s) states the %s mass fraction computed from IUPAC atomic weights to 0.1 percent',
     (id, _el, fraction) => {
       expect(text(getMaterial(id))).toContain(`${(100 * fraction).toFixed(1)} %`);
     },
