@@ -1,7 +1,9 @@
 import { Hono } from 'hono';
+import { DEFAULT_GRID, evaluatePanel } from '../../spectra/index';
 import { SHARE_ID_PATTERN } from '../canonical';
 import type { AppEnv } from '../env';
 import { ApiError } from '../errors';
+import { finiteJsonResponse } from '../json';
 import { jsonBody } from '../middleware/json-body';
 import { methodNotAllowed } from '../middleware/method-not-allowed';
 import { Panel } from '../schemas';
@@ -12,8 +14,14 @@ import { validJson } from '../validation';
 // sub-paths such as /panels/evaluate or /panels/design are never taken for an id.
 const ID_PATH = `/:id{${SHARE_ID_PATTERN.source.slice(1, -1)}}`;
 
-/** Share links: POST /api/v1/panels stores a panel, GET /api/v1/panels/:id returns it as it was sent. */
+/**
+ * Panels: POST /api/v1/panels/evaluate computes a panel's figures; POST /api/v1/panels stores a panel behind a share
+ * link and GET /api/v1/panels/:id returns it as it was sent.
+ */
 export const panels = new Hono<AppEnv>()
+  .post('/evaluate', jsonBody(), validJson(Panel), (c) =>
+    finiteJsonResponse(evaluatePanel(c.req.valid('json'), { grid: DEFAULT_GRID })),
+  )
   .post('/', jsonBody(), validJson(Panel), async (c) => {
     const { id, created } = await savePanel(c.env.PANELS, c.req.valid('json'));
     return c.json({ id, url: `/p/${id}` }, created ? 201 : 200);
@@ -24,4 +32,5 @@ export const panels = new Hono<AppEnv>()
     return c.body(text, 200, { 'content-type': 'application/json; charset=utf-8' });
   })
   .all('/', methodNotAllowed('POST'))
+  .all('/evaluate', methodNotAllowed('POST'))
   .all(ID_PATH, methodNotAllowed('GET'));
