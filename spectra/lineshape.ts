@@ -40,7 +40,7 @@ function halfCrossingNm(centerEv: number, fwhmEv: number, peakNm: number, toward
   const half = 0.5 * gaussianDensityPerNm(peakNm, centerEv, fwhmEv);
   let inside = peakNm;
   let outside = towardNm;
-  for (let i = 0; i < 80; i++) {
+  for (let i = 0; i < 56; i++) {
     const mid = 0.5 * (inside + outside);
     if (gaussianDensityPerNm(mid, centerEv, fwhmEv) > half) inside = mid;
     else outside = mid;
@@ -59,15 +59,35 @@ export function fwhmNmOfLine(centerEv: number, fwhmEv: number): number {
 
 /**
  * Energy FWHM (eV) of the Gaussian whose per-nm spectrum, peaked at `peakNm`, is `fwhmNm` wide. The per-nm width grows
- * monotonically with the energy width, so bisection on [0, hc/peak] is safe.
+ * monotonically with the energy width, so a bracketed root search is safe: Illinois false position on
+ * [0, hc/peak], starting from the small-width estimate hc·Δλ/λ², converges in a handful of steps.
  */
 export function fwhmEvForFwhmNm(peakNm: number, fwhmNm: number): number {
+  const f = (w: number) => fwhmNmOfLine(centerEvForPeakNm(peakNm, w), w) - fwhmNm;
   let lo = 0;
-  let hi = HC_EV_NM / peakNm;
-  for (let i = 0; i < 70; i++) {
-    const mid = 0.5 * (lo + hi);
-    if (fwhmNmOfLine(centerEvForPeakNm(peakNm, mid), mid) < fwhmNm) lo = mid;
-    else hi = mid;
+  let flo = -fwhmNm;
+  let hi = Math.min((HC_EV_NM * fwhmNm) / (peakNm * peakNm), HC_EV_NM / peakNm);
+  let fhi = f(hi);
+  // Grow the bracket if the small-width estimate falls short (it does: 1/E is convex).
+  while (fhi < 0 && hi < HC_EV_NM / peakNm) {
+    lo = hi; flo = fhi;
+    hi = Math.min(hi * 1.5, HC_EV_NM / peakNm);
+    fhi = f(hi);
+  }
+  let side = 0;
+  for (let i = 0; i < 100 && hi - lo > 1e-13; i++) {
+    const w = (lo * fhi - hi * flo) / (fhi - flo);
+    const fw = f(w);
+    if (Math.abs(fw) < 1e-10) return w;
+    if (fw < 0) {
+      lo = w; flo = fw;
+      if (side === -1) fhi /= 2;
+      side = -1;
+    } else {
+      hi = w; fhi = fw;
+      if (side === 1) flo /= 2;
+      side = 1;
+    }
   }
   return 0.5 * (lo + hi);
 }
