@@ -3,16 +3,16 @@
  * and a one-hue lightness ramp (readable in greyscale and by colour-blind users), the worst pair in words, each
  * target's unmixing noise gain, the condition number, the ±5 nm lot-shift sensitivity and the warnings.
  */
-import { LitElement, css, html } from 'lit';
+import { LitElement, css, html, unsafeCSS } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import { styleMap } from 'lit/directives/style-map.js';
-import { cellLightness, formatFraction, type CrosstalkView } from './crosstalk-view';
+import { formatFraction, shadeLightness, shadeOf, SHADES, type CrosstalkView } from './crosstalk-view';
 
-// styleMap sets properties through CSSOM, which the page's CSP (style-src 'self') allows; a style attribute it would not.
-const cellStyle = (v: number | null, below = false) => {
-  const l = below ? 98 : cellLightness(v);
-  return styleMap({ background: `hsl(212 55% ${l}%)`, color: l < 55 ? '#fff' : '#111' });
-};
+// Cells get a class per ramp step: the page's CSP (style-src 'self') blocks style attributes.
+const shadeRules = Array.from({ length: SHADES }, (_, k) => {
+  const l = shadeLightness(k);
+  return `td.s${k} { background: hsl(212 55% ${l.toFixed(1)}%); color: ${l < 55 ? '#fff' : '#111'}; }`;
+}).join('\n');
+const cellClass = (v: number | null, below = false) => `s${below ? 0 : shadeOf(v)}`;
 
 const times = (v: number | null) => (v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`);
 
@@ -23,7 +23,7 @@ export class CrosstalkTable extends LitElement {
   /** True while the shown numbers belong to an earlier, valid version of the panel (the current one has an error). */
   @property({ type: Boolean }) stale = false;
 
-  static override styles = css`
+  static override styles = [unsafeCSS(shadeRules), css`
     :host { display: block; font-size: 0.9rem; }
     .scroll { overflow: auto; max-width: 100%; max-height: 28rem; border: 1px solid #ccd; }
     table { border-collapse: collapse; }
@@ -36,7 +36,7 @@ export class CrosstalkTable extends LitElement {
     .stale { color: #8a4b00; }
     ul { padding-left: 1.2rem; }
     h3 { font-size: 1rem; margin: 1rem 0 0.4rem; }
-  `;
+  `];
 
   override render() {
     const v = this.view;
@@ -45,7 +45,7 @@ export class CrosstalkTable extends LitElement {
     const many = v.channels.length > 12;
     return html`
       ${this.stale ? html`<p class="stale" role="status">These numbers are from the last valid panel; fix the marked field to update them.</p>` : ''}
-      <p class="worst">${v.worst
+      <p class="worst">${v.worst?.from && v.worst.into && v.worst.interference !== null
         ? html`Worst pair: ${label(v.worst.from)} adds ${formatFraction(v.worst.interference)} of ${label(v.worst.into)}'s own signal in ${label(v.worst.into)}'s channel.`
         : 'No pair of probes could be compared yet.'}</p>
       <h3>Crosstalk between probes</h3>
@@ -53,16 +53,17 @@ export class CrosstalkTable extends LitElement {
       <div class="scroll"><table aria-label="Crosstalk between probes">
         <thead><tr><th scope="col">light from ↓ / into →</th>${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}</tr></thead>
         <tbody>${v.probes.map((from, t) => html`<tr><th scope="row">${from.label}</th>
-          ${v.probes.map((_, u) => (t === u ? html`<td class="self">own</td>` : html`<td style=${cellStyle(v.interference[t]?.[u] ?? null)}>${formatFraction(v.interference[t]?.[u])}</td>`))}</tr>`)}
+          ${v.probes.map((_, u) => (t === u ? html`<td class="self">own</td>` : html`<td class=${cellClass(v.interference[t]?.[u] ?? null)}>${formatFraction(v.interference[t]?.[u])}</td>`))}</tr>`)}
         </tbody></table></div>
       <h3>Unmixing noise</h3>
       <ul>${v.probes.map((p, j) => html`<li>${p.label}: ${v.noiseAmplification[j] === null
         ? 'cannot be unmixed from the others with these channels (see warnings).'
         : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`}</li>`)}</ul>
-      <p>Condition number ${v.conditionNumber === null ? '— (the channels cannot separate every probe)' : times(v.conditionNumber).replace('×', '')}: the worst case,
-        any relative error in the measurements can grow by up to this factor after unmixing.</p>
-      ${v.lotShiftWorst ? html`<p>Lot-to-lot shift: if every dot's emission moves 5 nm bluer, the worst crosstalk becomes ${formatFraction(v.lotShiftWorst.minusNm)};
-        5 nm redder, ${formatFraction(v.lotShiftWorst.plusNm)}.</p>` : ''}
+      <p>Condition number ${v.conditionNumber === null ? '— (the channels cannot separate every probe)' : times(v.conditionNumber).replace('×', '')}: the worst-case bound;
+        a relative error in the measurements can grow by up to this factor in the unmixed amounts.</p>
+      ${v.lotShift ? html`<p class="lot">Lot-to-lot shift (±${v.lotShift.shiftNm} nm): the worst crosstalk is ${formatFraction(v.lotShift.baseline)} now and can reach
+        ${formatFraction(v.lotShift.worst)} if ${label(v.lotShift.shiftedProbe)} comes ${Math.abs(v.lotShift.signedShiftNm)} nm ${v.lotShift.signedShiftNm > 0 ? 'redder' : 'bluer'}
+        (${label(v.lotShift.from)} into ${label(v.lotShift.into)}).</p>` : ''}
       <h3>Spillover into each channel</h3>
       <p>Each probe's light in a channel relative to its primary channel (marked ●).${many ? ' "< res.": below the model\'s resolution.' : ''}</p>
       <div class="scroll"><table class=${many ? 'many' : ''} aria-label="Spillover by channel">
@@ -71,7 +72,7 @@ export class CrosstalkTable extends LitElement {
           ${v.probes.map((_, p) => {
             const primary = v.primaryChannel[p] === ci;
             const below = v.belowResolution[ci]?.[p] ?? false;
-            return html`<td style=${cellStyle(v.spillover[ci]?.[p] ?? null, below)}>${primary ? '● ' : ''}${below ? (many ? '< res.' : 'below model resolution') : formatFraction(v.spillover[ci]?.[p])}</td>`;
+            return html`<td class=${cellClass(v.spillover[ci]?.[p] ?? null, below)}>${primary ? '● ' : ''}${below ? (many ? '< res.' : 'below model resolution') : formatFraction(v.spillover[ci]?.[p])}</td>`;
           })}
           ${v.signalToBackground ? html`<td>${times(v.signalToBackground[ci] ?? null).replace('×', '')}</td>` : ''}</tr>`)}
         </tbody></table></div>

@@ -11,14 +11,14 @@ export interface CrosstalkView {
   spillover: (number | null)[][];
   /** belowResolution[c][p]: spillover too small for the model to tell from zero. */
   belowResolution: boolean[][];
-  primaryChannel: number[];
+  primaryChannel: (number | null)[];
   noiseAmplification: (number | null)[];
   conditionNumber: number | null;
   /** Per channel, signal over sample background; absent when the background is off. */
   signalToBackground?: (number | null)[];
-  /** Worst interference after every probe's emission moves by ±5 nm (a batch-to-batch shift), or null. */
-  lotShiftWorst: { minusNm: number | null; plusNm: number | null } | null;
-  worst: { from: string; into: string; interference: number } | null;
+  /** Worst interference now and after the most harmful ±shiftNm move of one probe's emission (lot to lot), or null. */
+  lotShift: { shiftNm: number; baseline: number | null; worst: number | null; shiftedProbe: string; signedShiftNm: number; from: string; into: string } | null;
+  worst: { from: string | null; into: string | null; interference: number | null } | null;
   warnings: string[];
 }
 
@@ -38,4 +38,17 @@ export function cellLightness(value: number | null | undefined): number {
   if (value === null || value === undefined || !Number.isFinite(value) || value <= SMALLEST_SHOWN) return 98;
   const t = Math.min(1, (Math.log10(value) + 3) / 3);
   return 98 - t * 72;
+}
+
+/** Number of shades in the cell ramp: enough to rank values, few enough to tell apart in greyscale. */
+export const SHADES = 10;
+
+/** Ramp step 0 (palest) … SHADES − 1 (darkest) for a cell; cells carry it as class "s<k>" (no style attribute: CSP). */
+export function shadeOf(value: number | null | undefined): number {
+  return Math.round(((98 - cellLightness(value)) / 72) * (SHADES - 1));
+}
+
+/** Lightness (CSS %) of ramp step k. */
+export function shadeLightness(k: number): number {
+  return 98 - (72 * k) / (SHADES - 1);
 }

@@ -8,7 +8,7 @@ export function downloadBlob(blob: Blob, filename: string): void {
   const a = document.createElement('a');
   a.href = url;
   a.download = filename;
-  document.body.append(a);
+  document.body.appendChild(a);
   a.click();
   a.remove();
   // Revoke after the click has been handled, or some browsers cancel the download.

@@ -1,7 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import '../../web/crosstalk-table';
 import type { CrosstalkTable } from '../../web/crosstalk-table';
-import { cellLightness, formatFraction, type CrosstalkView } from '../../web/crosstalk-view';
+import { cellLightness, formatFraction, shadeOf, type CrosstalkView } from '../../web/crosstalk-view';
 
 const view: CrosstalkView = {
   probes: [{ id: 'p1', label: 'Green dot' }, { id: 'p2', label: 'Orange dot' }],
@@ -13,7 +13,7 @@ const view: CrosstalkView = {
   noiseAmplification: [1.04, 2.31],
   conditionNumber: 1.07,
   signalToBackground: [41.2, null],
-  lotShiftWorst: { minusNm: 0.02, plusNm: 0.05 },
+  lotShift: { shiftNm: 5, baseline: 0.031, worst: 0.05, shiftedProbe: 'p1', signedShiftNm: 5, from: 'p1', into: 'p2' },
   worst: { from: 'p1', into: 'p2', interference: 0.031 },
   warnings: ['Orange channel collects no background-free signal'],
 };
@@ -39,16 +39,26 @@ describe('<qdp-crosstalk-table>', () => {
   it('cellLightness darkens monotonically with crosstalk, so the ramp reads in greyscale', () => {
     const ls = [0.0005, 0.002, 0.01, 0.1, 1].map(cellLightness);
     for (let i = 1; i < ls.length; i++) expect(ls[i]).toBeLessThan(ls[i - 1]);
+    expect(shadeOf(1)).toBeGreaterThan(shadeOf(0.01));
+    expect(shadeOf(0.01)).toBeGreaterThan(shadeOf(0.0001));
+  });
+
+  it('colours cells by class, never by a style attribute (the page CSP blocks those), darker for more crosstalk', async () => {
+    const el = await mount(view);
+    const cells = [...el.shadowRoot!.querySelectorAll('td')];
+    expect(cells.every((c) => !c.hasAttribute('style'))).toBe(true);
+    const big = cells.find((c) => c.textContent === '3.1 %')!;
+    expect(getComputedStyle(big).backgroundColor).not.toBe(getComputedStyle(cells.find((c) => c.textContent === '< 0.1 %')!).backgroundColor);
   });
 
   it('renders the worst pair in words and every value as text', async () => {
     const el = await mount(view);
-    const text = el.shadowRoot!.textContent!;
+    const text = el.shadowRoot!.textContent!.replace(/\s+/g, ' ');
     expect(text).toContain("Worst pair: Green dot adds 3.1 % of Orange dot's own signal");
     expect(text).toContain('below model resolution');
     expect(text).toContain("this target's noise grows about 2.3× after unmixing");
     expect(text).toContain('Condition number 1.1');
-    expect(text).toContain('5 nm redder, 5 %');
+    expect(text).toContain('can reach 5 % if Green dot comes 5 nm redder (Green dot into Orange dot)');
     expect(el.shadowRoot!.querySelector('ul.warnings')!.textContent).toContain('no background-free signal');
   });
 

@@ -1,0 +1,112 @@
+/**
+ * The page's local computation: evaluatePanel from the spectral library, turned into what the chart, the crosstalk
+ * tables and the probe read-outs show. Runs on every edit; a bad input gives the library's error with its field path.
+ */
+import { buildPanelModel, DEFAULT_GRID, evaluatePanel, listDetectors, listMaterials, SpectraError, type PanelEvaluation, type PanelSpec } from '../spectra/index';
+import type { ChartCurve, ChartHandle, ChartPassband, GridCurve } from './chart-types';
+import type { CrosstalkView } from './crosstalk-view';
+import type { ResolvedForSheet } from './csv-export';
+import type { FieldError } from './error-map';
+import type { ProbePrediction } from './probe-types';
+
+/** Every material the library knows, loaded once. */
+export const MATERIALS = listMaterials();
+/** Every detector class the library knows. */
+export const DETECTORS = listDetectors();
+
+/** What one evaluation gives the page. */
+export interface Computed {
+  evaluation: PanelEvaluation;
+  chart: { curves: ChartCurve[]; passbands: ChartPassband[]; background?: GridCurve };
+  crosstalk: CrosstalkView;
+  predictions: ProbePrediction[];
+  resolved: ResolvedForSheet[];
+}
+
+const grid = DEFAULT_GRID;
+
+/** Handles of a channel's editable filters (bandpass edges at centre ∓ width/2, edge filters at their edge). */
+function handlesOf(panel: PanelSpec, c: number): ChartHandle[] {
+  return panel.channels[c].filters.flatMap((f, j): ChartHandle[] => {
+    if (f.type === 'bandpass') return [
+      { channelIndex: c, filterIndex: j, edge: 'low', wavelengthNm: f.centerNm - f.widthNm / 2 },
+      { channelIndex: c, filterIndex: j, edge: 'high', wavelengthNm: f.centerNm + f.widthNm / 2 },
+    ];
+    if (f.type === 'longpass' || f.type === 'shortpass' || f.type === 'dichroic') return [{ channelIndex: c, filterIndex: j, edge: 'edge', wavelengthNm: f.edgeNm }];
+    return [];
+  });
+}
+
+/** Interference t→u = collected[primary(u)][t] / collected[primary(u)][u] (api-v1, "worst"). */
+function interferenceOf(ev: PanelEvaluation): (number | null)[][] {
+  const n = ev.probes.length;
+  return Array.from({ length: n }, (_, t) => Array.from({ length: n }, (_, u) => {
+    const c = ev.primaryChannel[u];
+    if (c === null) return null;
+    const own = ev.collected[c][u];
+    const v = ev.collected[c][t] / own;
+    return own > 0 && Number.isFinite(v) ? v : null;
+  }));
+}
+
+const maxOf = (values: ArrayLike<number>) => {
+  let m = 0;
+  for (let i = 0; i < values.length; i++) if (values[i] > m) m = values[i];
+  return m;
+};
+
+/**
+ * Evaluates the panel and shapes the result for display, or returns the first input error. With `byBrightness`, each
+ * curve is its unit-area emission × brightness × abundance (the photons it sends, as in the signal model) and the
+ * background is in the same units; otherwise each curve peaks at 1 and the background keeps its ratio to the brightest.
+ */
+export function computePanel(panel: PanelSpec, options: { byBrightness: boolean }): { ok: true; value: Computed } | { ok: false; error: FieldError } {
+  let ev: PanelEvaluation;
+  let model: ReturnType<typeof buildPanelModel>;
+  try {
+    ev = evaluatePanel(panel, { grid });
+    model = buildPanelModel(panel, grid);
+  } catch (e) {
+    if (e instanceof SpectraError) return { ok: false, error: { message: e.message, path: e.path } };
+    return { ok: false, error: { message: `The panel could not be computed: ${e instanceof Error ? e.message : String(e)}`, path: [] } };
+  }
+  const photons = ev.probes.map((d, j) => d.brightness * (panel.probes[j].abundance ?? 1));
+  const signalCurves = model.dots.map((d, j) => d.emission.values.map((v) => v * photons[j]));
+  const tallest = Math.max(1e-300, ...signalCurves.map(maxOf));
+  const curves: ChartCurve[] = model.dots.map((d, j) => {
+    const values = options.byBrightness ? signalCurves[j].map((v) => v / tallest) : d.emission.values.map((v) => v / Math.max(1e-300, maxOf(d.emission.values)));
+    return { id: panel.probes[j].id, label: panel.probes[j].label || panel.probes[j].id, peakNm: d.emissionPeakNm, spectrum: { startNm: grid.startNm, stepNm: grid.stepNm, values } };
+  });
+  const passbands: ChartPassband[] = panel.channels.map((c, i) => ({
+    id: c.id, label: c.label || c.id, handles: handlesOf(panel, i), transmission: { startNm: grid.startNm, stepNm: grid.stepNm, values: model.transmissions[i] },
+  }));
+  let background: GridCurve | undefined;
+  if (model.background) {
+    const sum = new Float64Array(grid.count);
+    model.background.forEach((b, l) => b.forEach((v, i) => (sum[i] += (panel.excitation[l].powerRel ?? 1) * v)));
+    background = { startNm: grid.startNm, stepNm: grid.stepNm, values: sum.map((v) => v / tallest) };
+  }
+  const lot = ev.lotShiftSensitivity;
+  const wi = lot?.worstInterference;
+  const crosstalk: CrosstalkView = {
+    probes: panel.probes.map((p) => ({ id: p.id, label: p.label || p.id })),
+    channels: panel.channels.map((c) => ({ id: c.id, label: c.label || c.id })),
+    interference: interferenceOf(ev),
+    spillover: ev.spillover,
+    belowResolution: ev.belowResolution,
+    primaryChannel: ev.primaryChannel,
+    noiseAmplification: ev.noiseAmplification,
+    conditionNumber: ev.conditionNumber,
+    signalToBackground: ev.signalToBackground,
+    lotShift: lot && wi ? { shiftNm: lot.shiftNm, baseline: lot.baseline.worstInterference, worst: wi.interference, shiftedProbe: wi.shiftedProbe, signedShiftNm: wi.shiftNm, from: wi.from, into: wi.into } : null,
+    worst: ev.worst,
+    warnings: ev.warnings,
+  };
+  const maxBright = Math.max(0, ...ev.probes.map((d) => d.brightness));
+  const predictions: ProbePrediction[] = ev.probes.map((d) => ({
+    diameterNm: d.diameterNm, firstExcitonNm: d.firstExcitonNm, emissionPeakNm: d.emissionPeakNm, fwhmNm: d.fwhmNm,
+    relativeBrightness: maxBright > 0 ? d.brightness / maxBright : 0, measured: d.measured.emission, warnings: d.warnings,
+  }));
+  const resolved = ev.probes.map((d) => ({ diameterNm: d.diameterNm, emissionPeakNm: d.emissionPeakNm, fwhmNm: d.fwhmNm, firstExcitonNm: d.firstExcitonNm }));
+  return { ok: true, value: { evaluation: ev, chart: { curves, passbands, background }, crosstalk, predictions, resolved } };
+}

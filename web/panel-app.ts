@@ -1,0 +1,205 @@
+/**
+ * <qdp-panel-app>: the whole page. Holds the panel, recomputes it locally on every edit (keeping the last good result
+ * when an edit is invalid), keeps the state in the URL fragment, and opens shared panels from /p/<id>.
+ */
+import { LitElement, html } from 'lit';
+import { customElement, query, state } from 'lit/decorators.js';
+import type { ChannelSpec, PanelSpec, ProbeSpec } from '../spectra/index';
+import { loadSharedPanel } from './api';
+import { appStyles } from './app-styles';
+import type { EdgeDragDetail } from './chart-types';
+import { computePanel, DETECTORS, MATERIALS, type Computed } from './compute';
+import { demoPanel } from './demo-panel';
+import { placeError, type FieldError } from './error-map';
+import { offendingProbes, type ExcludableClass } from './exclusions';
+import { decodeFragment, encodeFragment } from './fragment';
+import { addChannel, addProbe, addSpectralRun, newPanel, removeChannel, removeProbe, setChannel, setProbe } from './panel-edit';
+import { moveEdge } from './edge-drag';
+import './channel-list';
+import './crosstalk-table';
+import './light-editor';
+import './material-notes';
+import './panel-actions';
+import './probe-list';
+import './spectrum-chart';
+import type { SpectrumChart } from './spectrum-chart';
+
+/** Edits closer together than this share one back-button step (ms): typing a number is one step, not five. */
+const HISTORY_STEP_MS = 1000;
+
+@customElement('qdp-panel-app')
+export class PanelApp extends LitElement {
+  @state() private panel: PanelSpec = newPanel();
+  @state() private exclude: ExcludableClass[] = [];
+  @state() private computed?: Computed;
+  @state() private error?: FieldError;
+  @state() private sharedId = '';
+  @state() private notice = '';
+  @state() private byBrightness = true;
+  @query('qdp-spectrum-chart') private chart?: SpectrumChart;
+  private lastPushMs = 0;
+
+  static override styles = appStyles;
+
+  override connectedCallback(): void {
+    super.connectedCallback();
+    window.addEventListener('popstate', this.onPopState);
+    const shared = /^\/p\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
+    if (shared) void this.openShared(shared[1]);
+    else void this.restoreFromFragment();
+  }
+
+  override disconnectedCallback(): void {
+    window.removeEventListener('popstate', this.onPopState);
+    super.disconnectedCallback();
+  }
+
+  private onPopState = () => {
+    if (!this.sharedId && location.hash) void this.restoreFromFragment();
+  };
+
+  /**
+   * Loads the state in the fragment, if any (the schema check loads on demand: zod stays out of the first bundle).
+   * Without a fragment, or with one that cannot be read (a notice says why), the demo panel is shown.
+   */
+  private async restoreFromFragment(): Promise<void> {
+    try {
+      const raw = decodeFragment(location.hash);
+      if (raw === null) return this.load(demoPanel(), []);
+      const { readPageState } = await import('./page-state');
+      const r = readPageState(raw);
+      if (!r.ok) throw new Error(`The link's panel is not valid (${r.message}).`);
+      this.load(r.state.panel, r.state.view.exclude, false);
+    } catch (e) {
+      this.notice = `${e instanceof Error ? e.message : String(e)} The demo panel is shown instead.`;
+      this.load(demoPanel(), []);
+    }
+  }
+
+  private async openShared(id: string): Promise<void> {
+    this.sharedId = id;
+    this.notice = 'Loading the shared panel…';
+    try {
+      const [{ readPanel }, raw] = await Promise.all([import('./page-state'), loadSharedPanel(id)]);
+      const r = readPanel(raw);
+      if (!r.ok) throw new Error(r.message);
+      this.notice = '';
+      this.load(r.panel, [], false);
+    } catch (e) {
+      this.notice = `This shared panel could not be opened: ${e instanceof Error ? e.message : String(e)}`;
+    }
+  }
+
+  /** Replaces the whole panel (new, demo, import, shared) and recomputes. */
+  private load(panel: PanelSpec, exclude: ExcludableClass[], writeUrl = true): void {
+    this.computed = undefined;
+    this.exclude = exclude;
+    this.apply(panel, writeUrl ? 'push' : 'none');
+  }
+
+  /** Sets the panel, recomputes it, and records it in the fragment. */
+  private apply(panel: PanelSpec, history: 'push' | 'replace' | 'none' = 'push'): void {
+    this.panel = panel;
+    const r = computePanel(panel, { byBrightness: this.byBrightness });
+    if (r.ok) {
+      this.computed = r.value;
+      this.error = undefined;
+    } else {
+      this.error = r.error;
+    }
+    if (history !== 'none' && !this.sharedId) this.writeFragment(history);
+  }
+
+  private writeFragment(mode: 'push' | 'replace'): void {
+    const url = `${location.pathname}#${encodeFragment({ panel: this.panel, view: { exclude: this.exclude } })}`;
+    const now = Date.now();
+    if (mode === 'push' && now - this.lastPushMs > HISTORY_STEP_MS) history.pushState(null, '', url);
+    else history.replaceState(null, '', url);
+    this.lastPushMs = now;
+  }
+
+  private duplicate(): void {
+    this.sharedId = '';
+    this.panel = { ...this.panel, title: `${this.panel.title ?? 'Panel'} (copy)` };
+    history.pushState(null, '', `/#${encodeFragment({ panel: this.panel, view: { exclude: this.exclude } })}`);
+    this.apply(this.panel, 'replace');
+  }
+
+  private async importJson(file: File | undefined): Promise<void> {
+    if (!file) return;
+    try {
+      const { readPanel } = await import('./page-state');
+      const r = readPanel(JSON.parse(await file.text()));
+      if (!r.ok) throw new Error(r.message);
+      this.notice = `Opened ${file.name}.`;
+      this.load(r.panel, this.exclude);
+    } catch (e) {
+      this.notice = `${file.name} is not a panel: ${e instanceof Error ? e.message : String(e)}`;
+    }
+  }
+
+  override render() {
+    const p = this.panel;
+    const c = this.computed;
+    const errors = placeError(this.error);
+    const blockedProbes = offendingProbes(p, MATERIALS, this.exclude);
+    const blocked = blockedProbes.size ? 'a probe is made of an excluded material.' : this.error ? 'fix the marked input first.' : '';
+    return html`
+      <header>
+        <h1>qdpanel <span>plan a quantum-dot panel</span></h1>
+        <div class="row">
+          <label>Panel title <input type="text" .value=${p.title ?? ''} @change=${(e: Event) => this.apply({ ...p, title: (e.target as HTMLInputElement).value })} /></label>
+          <button type="button" @click=${() => this.load(newPanel(), [])}>New panel</button>
+          <button type="button" @click=${() => this.load(demoPanel(), [])}>Open the demo panel</button>
+          <label class="file">Open panel JSON <input type="file" accept=".json,application/json" @change=${(e: Event) => this.importJson((e.target as HTMLInputElement).files?.[0])} /></label>
+        </div>
+        ${this.notice ? html`<p class="notice" role="status">${this.notice}</p>` : ''}
+        ${this.sharedId ? html`<p class="shared" role="note">Shared copy (read only). <button type="button" @click=${this.duplicate}>Duplicate and edit</button></p>` : ''}
+        ${this.error ? html`<p class="error" role="alert">Not updated: ${this.error.message}</p>` : ''}
+      </header>
+      <main @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => { this.sharedId = ''; this.load(e.detail.panel, this.exclude); }}>
+        <div class="edit" ?inert=${!!this.sharedId}
+          @probe-change=${(e: CustomEvent<{ index: number; probe: ProbeSpec }>) => this.apply(setProbe(p, e.detail.index, e.detail.probe))}
+          @probe-remove=${(e: CustomEvent<{ index: number }>) => this.apply(removeProbe(p, e.detail.index))}
+          @probe-add=${() => this.apply(addProbe(p))}
+          @channel-change=${(e: CustomEvent<{ index: number; channel: ChannelSpec }>) => this.apply(setChannel(p, e.detail.index, e.detail.channel))}
+          @channel-remove=${(e: CustomEvent<{ index: number }>) => this.apply(removeChannel(p, e.detail.index))}
+          @channel-add=${() => this.apply(addChannel(p))}
+          @spectral-run=${(e: CustomEvent<{ startNm: number; bins: number; binWidthNm: number }>) => this.apply(addSpectralRun(p, e.detail.startNm, e.detail.bins, e.detail.binWidthNm))}
+          @panel-edit=${(e: CustomEvent<{ panel: PanelSpec }>) => this.apply(e.detail.panel)}>
+          <section aria-labelledby="h-light"><h2 id="h-light">Excitation and sample background</h2>
+            <qdp-light-editor .panel=${p} .errors=${errors.other}></qdp-light-editor></section>
+          <section aria-labelledby="h-probes"><h2 id="h-probes">Probes</h2>
+            <qdp-probe-list .panel=${p} .materials=${MATERIALS} .predictions=${c?.predictions ?? []} .errors=${errors.probes} .blocked=${blockedProbes}></qdp-probe-list></section>
+          <section aria-labelledby="h-channels"><h2 id="h-channels">Detection channels</h2>
+            <qdp-channel-list .panel=${p} .detectors=${DETECTORS} .errors=${errors.channels}></qdp-channel-list></section>
+          <section aria-labelledby="h-propose"><h2 id="h-propose">Propose a panel</h2>
+            <!-- TODO(lead): once web/design-form.ts lands, import './design-form' above and place <qdp-design-form> here; the
+                 panel-proposed listener on <main> already loads its proposal. -->
+            <p>Automatic proposals will appear here once the design engine is available.</p></section>
+        </div>
+        <div class="results">
+          <section aria-labelledby="h-spectra"><h2 id="h-spectra">Spectra</h2>
+            <label><input type="checkbox" .checked=${this.byBrightness} @change=${(e: Event) => { this.byBrightness = (e.target as HTMLInputElement).checked; this.apply(p, 'none'); }} />
+              Scale curves by expected brightness (otherwise each peaks at 1)</label>
+            <qdp-spectrum-chart .curves=${c?.chart.curves ?? []} .passbands=${c?.chart.passbands ?? []} .background=${c?.chart.background}
+              .excitationNm=${p.excitation.map((l) => l.wavelengthNm)} .yLabel=${this.byBrightness ? 'relative emission × brightness' : 'emission (peak = 1)'}
+              @edge-drag=${(e: CustomEvent<EdgeDragDetail>) => !this.sharedId && this.apply(moveEdge(p, e.detail), e.detail.done ? 'push' : 'replace')}></qdp-spectrum-chart></section>
+          <section aria-labelledby="h-crosstalk"><h2 id="h-crosstalk">Crosstalk and unmixing</h2>
+            <qdp-crosstalk-table .view=${c?.crosstalk} ?stale=${!!this.error}></qdp-crosstalk-table></section>
+          <section aria-labelledby="h-materials"><h2 id="h-materials">Material cautions</h2>
+            <qdp-material-notes .panel=${p} .materials=${MATERIALS} .exclude=${this.exclude}
+              @exclude-change=${(e: CustomEvent<{ exclude: ExcludableClass[] }>) => { this.exclude = e.detail.exclude; this.apply(p, 'replace'); }}></qdp-material-notes></section>
+          <section aria-labelledby="h-share"><h2 id="h-share">Share and export</h2>
+            <qdp-panel-actions .panel=${p} .blocked=${blocked} .localResolved=${c?.resolved ?? []}
+              .chartSvg=${() => this.chart?.shadowRoot?.querySelector('svg') ?? null}></qdp-panel-actions></section>
+        </div>
+      </main>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'qdp-panel-app': PanelApp;
+  }
+}
