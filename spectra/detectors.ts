@@ -77,14 +77,23 @@ export function listDetectors(): { id: string; name: string; notes: string }[] {
   return DETECTOR_CLASSES.map(({ id, name, notes }) => ({ id, name, notes }));
 }
 
+// The curves are constants: keep each one sampled on the grids in use (a handful), returning copies.
+const sampledQe = new Map<string, Float64Array>();
+
 /**
  * Quantum efficiency (0–1) of a detector class on a grid, linear between the class's points and 0 beyond them.
  * An unknown id throws SpectraError `unknown_detector` naming `path`.
  */
 export function detectorQe(id: string, grid: WavelengthGrid, path: (string | number)[] = ['detector']): Float64Array {
+  const key = `${id} ${grid.startNm} ${grid.stepNm} ${grid.count}`;
+  const cached = sampledQe.get(key);
+  if (cached) return cached.slice();
   const detector = DETECTOR_CLASSES.find((d) => d.id === id);
   if (!detector) {
     throw new SpectraError('unknown_detector', `unknown detector ${JSON.stringify(id)}; known: ${DETECTOR_CLASSES.map((d) => d.id).join(', ')}`, path);
   }
-  return sampleTable(detector.qePoints, grid);
+  const qe = sampleTable(detector.qePoints, grid);
+  if (sampledQe.size >= 64) sampledQe.clear();
+  sampledQe.set(key, qe);
+  return qe.slice();
 }

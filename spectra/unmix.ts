@@ -17,11 +17,11 @@ export interface UnmixingDiagnostics {
 }
 
 /** Why M cannot be unmixed (a sentence), or null when it can: too few rows, a zero column, or rank deficiency. */
-function rankProblem(m: number[][], s: number[] | null): string | null {
+function rankProblem(m: number[][], s: number[] | null, ids?: string[]): string | null {
   const rows = m.length;
   const cols = m[0].length;
   if (cols > rows) return `${cols} probes but only ${rows} channels: the probes cannot be unmixed`;
-  for (let j = 0; j < cols; j++) if (m.every((row) => row[j] === 0)) return `probe ${j + 1} gives no signal in any channel`;
+  for (let j = 0; j < cols; j++) if (m.every((row) => row[j] === 0)) return `probe ${ids?.[j] ?? j + 1} gives no signal in any channel: the probes cannot be unmixed`;
   if (s && !(s[cols - 1] > Math.max(rows, cols) * EPSILON * s[0])) {
     return 'the probes\' channel signatures are linearly dependent (rank-deficient): they cannot be unmixed';
   }
@@ -36,11 +36,12 @@ function normaliseColumns(m: number[][]): { n: number[][]; norms: number[] } {
 
 /**
  * Both figures from one SVD of the column-normalised M: κ = σmax/σmin, and noise gain_j = √[(MᵀM)⁻¹]jj · ‖mj‖
- * = √Σk V²jk/σk² of the normalised matrix (unit-norm columns make the two forms equal).
+ * = √Σk V²jk/σk² of the normalised matrix (unit-norm columns make the two forms equal). `probeIds` name the
+ * columns in warnings.
  */
-export function unmixingDiagnostics(m: number[][]): UnmixingDiagnostics {
+export function unmixingDiagnostics(m: number[][], probeIds?: string[]): UnmixingDiagnostics {
   const { cols } = checkMatrix(m, 'matrix');
-  const early = rankProblem(m, null);
+  const early = rankProblem(m, null, probeIds);
   const nulls = () => ({ conditionNumber: null, noiseAmplification: new Array<null>(cols).fill(null) });
   if (early) return { ...nulls(), warnings: [early] };
   const { s, v } = svd(normaliseColumns(m).n);

@@ -4,8 +4,8 @@
  * scaled so the top is exactly peakTransmission and the half-maximum points lie exactly at centerNm ± widthNm / 2.
  */
 import type { WavelengthGrid } from '../grid';
-import { SpectraError, requireFinite } from '../errors';
-import { FILTER_DEFAULTS, applyPeakAndFloor, logisticScaleNm, multiplyLogisticEdge, resolveEdgeOptions } from './edge';
+import { SpectraError } from '../errors';
+import { FILTER_DEFAULTS, fillPassband, logisticScaleNm, requireWavelengthNm, resolveEdgeOptions } from './edge';
 
 /** A bandpass filter as the panel carries it (see spectra/panel.ts FilterSpec). */
 export interface BandpassSpec {
@@ -46,10 +46,11 @@ function edgeHalfDistanceNm(widthNm: number, scaleNm: number): number {
 
 /** Transmission (0–1) of a bandpass filter on a grid. Errors name the field under `path`. */
 export function bandpassTransmission(filter: BandpassSpec, grid: WavelengthGrid, path: (string | number)[] = []): Float64Array {
-  const centerNm = requireFinite(filter.centerNm, 'centerNm', [...path, 'centerNm']);
-  const widthNm = requireFinite(filter.widthNm, 'widthNm', [...path, 'widthNm']);
-  if (centerNm <= 0) throw new SpectraError('invalid_input', `centerNm must be above 0 nm, got ${centerNm}`, [...path, 'centerNm']);
-  if (widthNm <= 0) throw new SpectraError('invalid_input', `widthNm must be above 0 nm, got ${widthNm}`, [...path, 'widthNm']);
+  const centerNm = requireWavelengthNm(filter.centerNm, 'centerNm', path);
+  const widthNm = filter.widthNm;
+  if (typeof widthNm !== 'number' || !Number.isFinite(widthNm) || widthNm <= 0) {
+    throw new SpectraError('invalid_input', `widthNm must be above 0 nm, got ${String(widthNm)}`, [...path, 'widthNm']);
+  }
   const options = resolveEdgeOptions(filter, FILTER_DEFAULTS.bandpass, path);
   if (options.edgeWidthNm > widthNm) {
     throw new SpectraError(
@@ -60,10 +61,7 @@ export function bandpassTransmission(filter: BandpassSpec, grid: WavelengthGrid,
   }
   const scaleNm = logisticScaleNm(options.edgeWidthNm);
   const h = edgeHalfDistanceNm(widthNm, scaleNm);
-  const shape = new Float64Array(grid.count).fill(1);
-  multiplyLogisticEdge(shape, grid, centerNm - h, scaleNm, true);
-  multiplyLogisticEdge(shape, grid, centerNm + h, scaleNm, false);
   // The two edges overlap a little at the centre: divide by the shape's own top so the peak is exactly peakTransmission.
   const top = scaleNm === 0 ? 1 : logistic(h / scaleNm) ** 2;
-  return applyPeakAndFloor(shape, options, 1 / top);
+  return fillPassband(grid, centerNm - h, centerNm + h, scaleNm, options.floor, (options.peakTransmission - options.floor) / top);
 }

@@ -22,11 +22,16 @@ export function channelTransmission(channel: ChannelSpec, grid: WavelengthGrid, 
   if (channel.filters.length > MAX_FILTERS_PER_CHANNEL) {
     throw new SpectraError('invalid_input', `a channel may stack at most ${MAX_FILTERS_PER_CHANNEL} filters`, [...path, 'filters']);
   }
-  const out =
-    channel.detector === undefined ? new Float64Array(grid.count).fill(1) : detectorQe(channel.detector, grid, [...path, 'detector']);
-  channel.filters.forEach((filter, f) => {
-    const t = filterTransmission(filter, grid, [...path, 'filters', f]);
+  const { filters } = channel;
+  // The first filter's fresh array becomes the product, multiplied in place by the others and the QE.
+  const out = filters.length === 0 ? new Float64Array(grid.count).fill(1) : filterTransmission(filters[0], grid, [...path, 'filters', 0]);
+  for (let f = 1; f < filters.length; f++) {
+    const t = filterTransmission(filters[f], grid, [...path, 'filters', f]);
     for (let i = 0; i < out.length; i++) out[i] *= t[i];
-  });
+  }
+  if (channel.detector !== undefined) {
+    const qe = detectorQe(channel.detector, grid, [...path, 'detector']);
+    for (let i = 0; i < out.length; i++) out[i] *= qe[i];
+  }
   return out;
 }

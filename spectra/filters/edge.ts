@@ -13,42 +13,61 @@ export function logisticScaleNm(edgeWidthNm: number): number {
   return edgeWidthNm / (2 * Math.log(9));
 }
 
-// Beyond 70 scale lengths from the edge exp(-70) ≈ 4e-31: below a 10^-12 floor by 18 decades, so treating the
+// Beyond 70 scale lengths from an edge exp(-70) ≈ 4e-31: below a 10^-12 floor by 18 decades, so treating the
 // edge as fully closed or open there changes no transmission by more than 1e-18 relative.
 const TAIL_SCALES = 70;
 
+/** Index range [first, last] of grid points within ±70 s of an edge (empty or infinite for a missing edge). */
+function window(grid: WavelengthGrid, edgeNm: number, scaleNm: number): [number, number] {
+  return [Math.ceil((edgeNm - TAIL_SCALES * scaleNm - grid.startNm) / grid.stepNm), Math.floor((edgeNm + TAIL_SCALES * scaleNm - grid.startNm) / grid.stepNm)];
+}
+
 /**
- * Multiplies `shape` in place by a rising (or falling) logistic edge sampled on `grid`. Inside ±70 s of the edge the
- * exponential is stepped by a constant ratio per grid point instead of one exp() per point (the edge is evaluated
- * for every channel of every evaluation); the ratio walk adds at most a few hundred ulps of relative error.
+ * Writes floor + span × L(λ − riseNm) × L(fallNm − λ) on the grid into a new array: a passband between a rising edge
+ * at riseNm (−Infinity: none) and a falling edge at fallNm (+Infinity: none), both of logistic scale s. Inside ±70 s
+ * of an edge the exponential is stepped by a constant ratio per grid point rather than one exp() per point (this
+ * runs for every channel of every evaluation); the ratio walk adds at most a few hundred ulps of relative error.
  */
-export function multiplyLogisticEdge(shape: Float64Array, grid: WavelengthGrid, edgeNm: number, scaleNm: number, rising: boolean): void {
+export function fillPassband(grid: WavelengthGrid, riseNm: number, fallNm: number, scaleNm: number, floor: number, span: number): Float64Array {
   const { startNm, stepNm, count } = grid;
+  const out = new Float64Array(count);
   if (scaleNm === 0) {
     for (let i = 0; i < count; i++) {
-      const d = startNm + i * stepNm - edgeNm;
-      const v = d === 0 ? 0.5 : (d > 0) === rising ? 1 : 0;
-      if (v !== 1) shape[i] *= v;
+      const nm = startNm + i * stepNm;
+      const rise = nm > riseNm ? 1 : nm === riseNm ? 0.5 : 0;
+      const fall = nm < fallNm ? 1 : nm === fallNm ? 0.5 : 0;
+      out[i] = floor + span * rise * fall;
     }
-    return;
+    return out;
   }
-  const loNm = edgeNm - TAIL_SCALES * scaleNm;
-  const hiNm = edgeNm + TAIL_SCALES * scaleNm;
-  const first = Math.max(0, Math.ceil((loNm - startNm) / stepNm));
-  const last = Math.min(count - 1, Math.floor((hiNm - startNm) / stepNm));
-  // The closed side: zero below a rising edge's window, zero above a falling one's.
-  const closedFrom = rising ? 0 : Math.max(last + 1, 0);
-  const closedTo = rising ? Math.min(first, count) : count;
-  for (let i = closedFrom; i < closedTo; i++) shape[i] = 0;
-  if (first > last) return;
-  // e = exp(∓(λ - edge)/s): the term in 1/(1 + e); it shrinks by q per step on a rising edge, grows on a falling one.
-  const sign = rising ? -1 : 1;
-  let e = Math.exp((sign * (startNm + first * stepNm - edgeNm)) / scaleNm);
-  const q = Math.exp((sign * stepNm) / scaleNm);
-  for (let i = first; i <= last; i++) {
-    shape[i] /= 1 + e;
-    e *= q;
+  const [riseFirst, riseLast] = window(grid, riseNm, scaleNm);
+  const [fallFirst, fallLast] = window(grid, fallNm, scaleNm);
+  const from = Math.max(0, riseFirst);
+  const to = Math.min(count - 1, fallLast);
+  if (floor !== 0) {
+    for (let i = 0; i < Math.min(from, count); i++) out[i] = floor;
+    for (let i = Math.max(to + 1, 0); i < count; i++) out[i] = floor;
   }
+  if (from > to) return out;
+  // e1 = exp(−(λ − rise)/s) shrinks by q per step; e2 = exp((λ − fall)/s) grows by 1/q. Each is walked only inside
+  // its own window, so neither can overflow, nor crawl through subnormal numbers.
+  const q = Math.exp(-stepNm / scaleNm);
+  let e1 = from <= riseLast ? Math.exp(-(startNm + from * stepNm - riseNm) / scaleNm) : 0;
+  const e2Start = Math.max(from, fallFirst);
+  let e2 = e2Start <= to ? Math.exp((startNm + e2Start * stepNm - fallNm) / scaleNm) : 0;
+  for (let i = from; i <= to; i++) {
+    let v = 1;
+    if (i <= riseLast) {
+      v /= 1 + e1;
+      e1 *= q;
+    }
+    if (i >= fallFirst) {
+      v /= 1 + e2;
+      e2 /= q;
+    }
+    out[i] = floor + span * v;
+  }
+  return out;
 }
 
 /** Resolved edge options of one analytic filter, defaults filled in and checked. */
@@ -58,7 +77,7 @@ export interface EdgeOptions {
   floor: number;
 }
 
-/** Fills in and checks peakTransmission (0–1], edgeWidthNm ≥ 0 and blockingOD in [0, 12]; errors name the field. */
+/** Fills in and checks peakTransmission (0–1], edgeWidthNm in [0, 200] and blockingOD in [0, 12]; errors name the field. */
 export function resolveEdgeOptions(
   filter: { peakTransmission?: unknown; edgeWidthNm?: unknown; blockingOD?: unknown },
   defaults: Readonly<FilterDefaults>,
@@ -70,7 +89,7 @@ export function resolveEdgeOptions(
   if (typeof peak !== 'number' || !(peak > 0 && peak <= 1)) {
     throw new SpectraError('invalid_input', `peakTransmission must be a number in (0, 1], got ${String(peak)}`, [...path, 'peakTransmission']);
   }
-  if (typeof edge !== 'number' || !Number.isFinite(edge) || edge < 0 || edge > 200) {
+  if (typeof edge !== 'number' || !(edge >= 0 && edge <= 200)) {
     throw new SpectraError('invalid_input', `edgeWidthNm must be a number from 0 to 200 nm, got ${String(edge)}`, [...path, 'edgeWidthNm']);
   }
   if (typeof od !== 'number' || !(od >= 0 && od <= MAX_BLOCKING_OD)) {
@@ -79,12 +98,12 @@ export function resolveEdgeOptions(
   return { peakTransmission: peak, edgeWidthNm: edge, floor: Math.min(10 ** -od, peak) };
 }
 
-/** Turns a 0–1 passband shape into transmission in place: floor out of band, peakTransmission at the top. */
-export function applyPeakAndFloor(shape: Float64Array, options: EdgeOptions, scale = 1): Float64Array {
-  const span = (options.peakTransmission - options.floor) * scale;
-  const floor = options.floor;
-  for (let i = 0; i < shape.length; i++) shape[i] = floor + span * shape[i];
-  return shape;
+/** Checks a wavelength field (finite, above 0 nm) without allocating its path unless it is wrong. */
+export function requireWavelengthNm(value: unknown, field: string, path: (string | number)[]): number {
+  if (typeof value !== 'number' || !Number.isFinite(value) || value <= 0) {
+    throw new SpectraError('invalid_input', `${field} must be a number above 0 nm, got ${String(value)}`, [...path, field]);
+  }
+  return value;
 }
 
 export { FILTER_DEFAULTS };

@@ -3,8 +3,7 @@
  * between the blocking floor and the peak. A longpass passes wavelengths above its edge, a shortpass those below.
  */
 import type { WavelengthGrid } from '../grid';
-import { SpectraError, requireFinite } from '../errors';
-import { FILTER_DEFAULTS, applyPeakAndFloor, logisticScaleNm, multiplyLogisticEdge, resolveEdgeOptions } from './edge';
+import { FILTER_DEFAULTS, fillPassband, logisticScaleNm, requireWavelengthNm, resolveEdgeOptions } from './edge';
 import type { FilterDefaults } from './defaults';
 
 /** A longpass or shortpass filter as the panel carries it. */
@@ -27,12 +26,11 @@ export function singleEdgeTransmission(
   grid: WavelengthGrid,
   path: (string | number)[],
 ): Float64Array {
-  const edgeNm = requireFinite(filter.edgeNm, 'edgeNm', [...path, 'edgeNm']);
-  if (edgeNm <= 0) throw new SpectraError('invalid_input', `edgeNm must be above 0 nm, got ${edgeNm}`, [...path, 'edgeNm']);
+  const edgeNm = requireWavelengthNm(filter.edgeNm, 'edgeNm', path);
   const options = resolveEdgeOptions(filter, defaults, path);
-  const shape = new Float64Array(grid.count).fill(1);
-  multiplyLogisticEdge(shape, grid, edgeNm, logisticScaleNm(options.edgeWidthNm), passesAbove);
-  return applyPeakAndFloor(shape, options);
+  const span = options.peakTransmission - options.floor;
+  const scaleNm = logisticScaleNm(options.edgeWidthNm);
+  return passesAbove ? fillPassband(grid, edgeNm, Infinity, scaleNm, options.floor, span) : fillPassband(grid, -Infinity, edgeNm, scaleNm, options.floor, span);
 }
 
 /** Transmission (0–1) of a longpass or shortpass filter on a grid. */

@@ -1,0 +1,85 @@
+/**
+ * Panel evaluation speed against the numpy script a scientist would otherwise write (/work/shared/bench/
+ * numpy_evaluate.py, or QDPANEL_NUMPY_SCRIPT): the same 8 × 8 work, peaks 490–715 nm, 24 nm bandpasses centred on
+ * them, 1 nm grid 300–1000 nm, collected + spillover + condition number. Target: at most half numpy's time.
+ * Rows: warm (resolved dots cached, everything else recomputed: the usual case when a panel is edited or a design
+ * search re-evaluates the same probes), cold (dot cache emptied before every run, so 8 resolveDot calls are included),
+ * with the lot-shift check, 16 × 16, a 32-bin spectral detector, and one resolveDot.
+ */
+import { execFileSync } from 'node:child_process';
+import { existsSync } from 'node:fs';
+import { Bench } from 'tinybench';
+import type { BenchRow } from '../run';
+import { clearResolvedDotCache, evaluatePanel, resolveDot, type PanelSpec, type ProbeSpec } from '../../spectra/index';
+
+const NUMPY_SCRIPT = process.env.QDPANEL_NUMPY_SCRIPT ?? '/work/shared/bench/numpy_evaluate.py';
+
+const materialFor = (peakNm: number): ProbeSpec['material'] => (peakNm <= 650 ? 'cdse' : peakNm <= 730 ? 'cdte' : 'gaas');
+
+/** A panel with one probe per peak and one bandpass (centre = peak) per probe, excited at 405 nm. */
+function panelFor(peaksNm: number[], widthNm: number): PanelSpec {
+  return {
+    version: 1,
+    excitation: [{ wavelengthNm: 405 }],
+    probes: peaksNm.map((nm, i) => ({ id: `p${i}`, material: materialFor(nm), emissionPeakNm: nm, quantumYield: 0.5 })),
+    channels: peaksNm.map((nm, i) => ({ id: `c${i}`, filters: [{ type: 'bandpass', centerNm: nm, widthNm }] })),
+  };
+}
+
+/** Median microseconds per evaluation printed by the numpy script, or the reason it could not run. */
+function runNumpy(): { medianUs: number | null; note: string } {
+  if (!existsSync(NUMPY_SCRIPT)) return { medianUs: null, note: `skipped: ${NUMPY_SCRIPT} not found` };
+  try {
+    const out = execFileSync('python3', [NUMPY_SCRIPT], { encoding: 'utf8', timeout: 300_000 });
+    const match = /median ([\d.]+) us/.exec(out);
+    return match ? { medianUs: Number(match[1]), note: out.trim() } : { medianUs: null, note: `unexpected output: ${out.trim()}` };
+  } catch (err) {
+    return { medianUs: null, note: `skipped: python3/numpy failed (${String((err as Error).message).split('\n')[0]})` };
+  }
+}
+
+export default async function spectraSuite(): Promise<BenchRow[]> {
+  const panel8 = panelFor([490, 525, 565, 605, 640, 680, 715, 665], 24);
+  const panel16 = panelFor(Array.from({ length: 16 }, (_, i) => 470 + 20 * i), 16);
+  const spectral: PanelSpec = {
+    ...panel8,
+    channels: Array.from({ length: 32 }, (_, i) => ({ id: `bin${i}`, filters: [{ type: 'bandpass' as const, centerNm: 455 + 10 * i, widthNm: 10, edgeWidthNm: 1 }] })),
+  };
+  const numpyBefore = runNumpy();
+  const bench = new Bench({ time: 2000, warmupTime: 300 });
+  bench
+    .add('evaluatePanel 8x8 warm (dots cached, no lot shift)', () => void evaluatePanel(panel8, { sensitivity: false }))
+    .add('evaluatePanel 8x8 cold (8 resolveDot, no lot shift)', () => {
+      clearResolvedDotCache();
+      evaluatePanel(panel8, { sensitivity: false });
+    })
+    .add('evaluatePanel 8x8 warm with lot-shift sensitivity', () => void evaluatePanel(panel8))
+    .add('evaluatePanel 16x16 warm (no lot shift)', () => void evaluatePanel(panel16, { sensitivity: false }))
+    .add('evaluatePanel 8 probes x 32-bin spectral detector warm', () => void evaluatePanel(spectral, { sensitivity: false }))
+    .add('resolveDot cdse 605 nm', () => void resolveDot({ material: 'cdse', emissionPeakNm: 605, quantumYield: 0.5 }));
+  await bench.run();
+  const numpyAfter = runNumpy();
+  const numpyUs = numpyBefore.medianUs !== null && numpyAfter.medianUs !== null ? (numpyBefore.medianUs + numpyAfter.medianUs) / 2 : null;
+  const rows: BenchRow[] = bench.tasks.map((task) => {
+    const r = task.result as unknown as { latency: { p50: number; min: number; max: number; samplesCount?: number }; samples?: number[] } | undefined;
+    const medianMs = r?.latency?.p50 ?? null;
+    const ratio = numpyUs !== null && medianMs !== null && task.name.includes('8x8') && !task.name.includes('lot-shift') ? (medianMs * 1000) / numpyUs : null;
+    return {
+      suite: 'spectra',
+      name: task.name,
+      medianMs,
+      minMs: r?.latency?.min ?? null,
+      maxMs: r?.latency?.max ?? null,
+      samples: r?.latency?.samplesCount,
+      extra: ratio === null ? undefined : { ratioToNumpy: Number(ratio.toFixed(3)), target: '<= 0.5' },
+    };
+  });
+  rows.push({
+    suite: 'spectra',
+    name: 'numpy evaluate 8x8 (same run, before and after)',
+    medianMs: numpyUs === null ? null : numpyUs / 1000,
+    extra: { beforeUs: numpyBefore.medianUs, afterUs: numpyAfter.medianUs },
+    note: numpyUs === null ? numpyBefore.note : 'python3 numpy_evaluate.py',
+  });
+  return rows;
+}

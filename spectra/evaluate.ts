@@ -1,0 +1,287 @@
+/**
+ * Evaluates a whole panel under the signal model of api-v1: resolves each probe (spectra/dot.ts), builds each
+ * channel's light path, and derives collected, spillover, purity, interference, unmixing diagnostics, background and
+ * lot-to-lot sensitivity. The big arrays (spectra on the grid) come from panelSpectra, so the API can leave them out.
+ */
+import type { PanelSpec, ProbeSpec } from './panel';
+import { DEFAULT_GRID, type WavelengthGrid } from './grid';
+import { SpectraError } from './errors';
+import { resolveDot, extinctionAtNm, type DotInput, type ResolvedDot } from './dot';
+import { channelTransmission } from './filters/channel';
+import { backgroundEmission } from './background';
+import { collectedMatrix, crosstalkFigures, linesOn, overlap, type EmissionComponent, type WorstInterference } from './crosstalk';
+import { unmixingDiagnostics } from './unmix';
+import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
+
+/** One probe of an evaluated panel: the resolved dot's fields (no arrays) plus its brightness. */
+export interface ProbeEvaluation extends Omit<ResolvedDot, 'emission' | 'absorption' | 'extinctionAtExcitation'> {
+  id: string;
+  label?: string;
+  /** ε (M⁻¹ cm⁻¹) at each of the panel's lines, in the order of panel.excitation. */
+  extinctionAtExcitation: number[];
+  /** Σ over the panel's lines of powerRel × ε(λline) × quantumYield, M⁻¹ cm⁻¹ (all lines on, abundance excluded). */
+  brightness: number;
+  /** Carbon dots only: the modelled emission peak under each line (their emission moves with the excitation). */
+  emissionPeakNmByLine?: number[];
+}
+
+/** Everything evaluatePanel returns; JSON-safe (no NaN or Infinity: undefined figures are null with a warning). */
+export interface PanelEvaluation {
+  grid: WavelengthGrid;
+  probes: ProbeEvaluation[];
+  /** collected[c][p] in relative detected photons (api-v1 "The signal model"). */
+  collected: number[][];
+  spillover: (number | null)[][];
+  primaryChannel: (number | null)[];
+  purity: (number | null)[];
+  /** spillover[c][p] below RESOLUTION_THRESHOLD (1e-3): smaller than the Gaussian line model can vouch for. */
+  belowResolution: boolean[][];
+  conditionNumber: number | null;
+  noiseAmplification: (number | null)[];
+  /** Present when the panel has a background: autofluorescence collected per channel, same units as collected. */
+  backgroundCollected?: number[];
+  signalToBackground?: (number | null)[];
+  worst: WorstInterference;
+  /** Null when options.sensitivity is false. */
+  lotShiftSensitivity: LotShiftSensitivity | null;
+  warnings: string[];
+}
+
+/** The panel reduced to what the figures need (shared by evaluatePanel and panelSpectra). */
+export interface PanelModel {
+  grid: WavelengthGrid;
+  dots: ResolvedDot[];
+  components: EmissionComponent[][];
+  transmissions: Float64Array[];
+  linesOnByChannel: number[][];
+  /** Background emission per line (per unit powerRel), or null without a background. */
+  background: Float64Array[] | null;
+  probeEvaluations: ProbeEvaluation[];
+  assigned: (number | undefined)[];
+}
+
+const LIMITS = { probes: 16, channels: 64, lines: 16, scale: 1e6 };
+
+const bad = (message: string, path: (string | number)[]) => new SpectraError('invalid_input', message, path);
+
+/** Checks what the spectral modules below do not: the panel's arrays, ids, references and scale factors. */
+function checkPanelShape(panel: PanelSpec): void {
+  if (panel === null || typeof panel !== 'object') throw bad('a panel must be an object', []);
+  if (panel.version !== undefined && panel.version !== 1) throw bad('version must be 1', ['version']);
+  const list = (key: 'excitation' | 'probes' | 'channels', max: number) => {
+    const value = panel[key] as unknown;
+    if (!Array.isArray(value) || value.length === 0) throw bad(`${key} must be a non-empty array`, [key]);
+    if (value.length > max) throw bad(`at most ${max} ${key} are allowed, got ${value.length}`, [key]);
+    value.forEach((item, i) => {
+      if (item === null || typeof item !== 'object') throw bad(`${key}[${i}] must be an object`, [key, i]);
+    });
+  };
+  list('excitation', LIMITS.lines);
+  list('probes', LIMITS.probes);
+  list('channels', LIMITS.channels);
+  const scale = (value: unknown, name: string, path: (string | number)[]) => {
+    if (value !== undefined && (typeof value !== 'number' || !(value >= 0 && value <= LIMITS.scale))) {
+      throw bad(`${name} must be a number from 0 to ${LIMITS.scale}, got ${String(value)}`, path);
+    }
+  };
+  panel.excitation.forEach((line, l) => {
+    const nm = line.wavelengthNm;
+    if (typeof nm !== 'number' || !(nm > 0 && nm < 10000)) throw bad(`wavelengthNm must be a number above 0 nm, got ${String(nm)}`, ['excitation', l, 'wavelengthNm']);
+    scale(line.powerRel, 'powerRel', ['excitation', l, 'powerRel']);
+  });
+  const unique = (key: 'probes' | 'channels') => {
+    const seen = new Set<string>();
+    panel[key].forEach((item, i) => {
+      if (typeof item.id !== 'string' || item.id === '') throw bad('id must be a non-empty string', [key, i, 'id']);
+      if (seen.has(item.id)) throw bad(`duplicate id ${JSON.stringify(item.id)}`, [key, i, 'id']);
+      seen.add(item.id);
+    });
+    return seen;
+  };
+  unique('probes');
+  const channelIds = unique('channels');
+  panel.probes.forEach((probe, p) => {
+    scale(probe.abundance, 'abundance', ['probes', p, 'abundance']);
+    if (probe.channel !== undefined && !channelIds.has(probe.channel)) {
+      throw new SpectraError('unknown_channel', `channel ${JSON.stringify(probe.channel)} names no channel of the panel`, ['probes', p, 'channel']);
+    }
+  });
+}
+
+const DOT_FIELDS = ['material', 'emissionPeakNm', 'diameterNm', 'sizeDispersionPct', 'fwhmNm', 'quantumYield', 'measuredEmission', 'extinction'] as const;
+
+// Resolving a dot (sizing law inversion, line shape, absorption on the grid) costs far more than the rest of an
+// evaluation, and the same probes come back again and again (editing one probe of a panel, the design search):
+// keep the last resolutions, keyed by the exact input and grid. Resolved dots are never mutated after this point.
+const RESOLVED_CACHE_SIZE = 256;
+const resolvedCache = new Map<string, ResolvedDot>();
+
+/** Empties the cache of resolved dots (for benchmarks that time a cold evaluation). */
+export function clearResolvedDotCache(): void {
+  resolvedCache.clear();
+}
+
+/** resolveDot (cached) with the error path moved under ['probes', p]. */
+function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, excitationNm?: number): ResolvedDot {
+  const input: Record<string, unknown> = {};
+  for (const key of DOT_FIELDS) if (probe[key] !== undefined) input[key] = probe[key];
+  if (excitationNm !== undefined) input.excitationNm = excitationNm;
+  const key = JSON.stringify([grid.startNm, grid.stepNm, grid.count, input]);
+  const hit = resolvedCache.get(key);
+  if (hit) {
+    resolvedCache.delete(key);
+    resolvedCache.set(key, hit);
+    return hit;
+  }
+  try {
+    const dot = resolveDot(input as unknown as DotInput, { grid });
+    resolvedCache.set(key, dot);
+    if (resolvedCache.size > RESOLVED_CACHE_SIZE) resolvedCache.delete(resolvedCache.keys().next().value!);
+    return dot;
+  } catch (err) {
+    if (err instanceof SpectraError) throw new SpectraError(err.code, err.message, ['probes', p, ...err.path]);
+    throw err;
+  }
+}
+
+/** Validates the panel and resolves probes, channels and background on the grid. */
+export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT_GRID): PanelModel {
+  checkPanelShape(panel);
+  const lines = panel.excitation.map((l) => ({ wavelengthNm: l.wavelengthNm, powerRel: l.powerRel ?? 1 }));
+  const channelIndex = new Map(panel.channels.map((c, i) => [c.id, i]));
+  const linesOnByChannel = panel.channels.map((c, i) => linesOn(c, lines, ['channels', i]));
+  const transmissions = panel.channels.map((c, i) => channelTransmission(c, grid, ['channels', i]));
+  const dots: ResolvedDot[] = [];
+  const probeEvaluations: ProbeEvaluation[] = [];
+  const components = panel.probes.map((probe, p) => {
+    const dot = resolveProbe(probe, p, grid);
+    dots.push(dot);
+    const eps = lines.map((l) => extinctionAtNm(dot, l.wavelengthNm));
+    const abundance = probe.abundance ?? 1;
+    const lineWeight = (l: number) => lines[l].powerRel * eps[l] * dot.quantumYield * abundance;
+    const { emission: _e, absorption: _a, ...fields } = dot;
+    const evaluation: ProbeEvaluation = {
+      ...fields,
+      warnings: [...dot.warnings],
+      id: probe.id,
+      ...(probe.label !== undefined ? { label: probe.label } : {}),
+      extinctionAtExcitation: eps,
+      brightness: lines.reduce((s, l, k) => s + l.powerRel * eps[k] * dot.quantumYield, 0),
+    };
+    probeEvaluations.push(evaluation);
+    // Carbon dots without a measured emission change colour with the line: one emission per line.
+    if (dot.material === 'carbon' && !dot.measured.emission) {
+      const perLine = lines.map((l) => resolveProbe(probe, p, grid, l.wavelengthNm));
+      evaluation.emissionPeakNmByLine = perLine.map((d) => d.emissionPeakNm);
+      return perLine.map((d, l) => ({
+        emission: d.emission.values,
+        weightByChannel: Float64Array.from(linesOnByChannel, (on) => (on.includes(l) ? lineWeight(l) : 0)),
+      }));
+    }
+    const weightByChannel = Float64Array.from(linesOnByChannel, (on) => on.reduce((s, l) => s + lineWeight(l), 0));
+    return [{ emission: dot.emission.values, weightByChannel }];
+  });
+  const assigned = panel.probes.map((probe) => (probe.channel === undefined ? undefined : channelIndex.get(probe.channel)));
+  const spec = panel.background;
+  // A measured background does not depend on the line: one spectrum serves every line.
+  const measured = spec?.points !== undefined ? backgroundEmission(spec, lines[0].wavelengthNm, grid) : null;
+  const background = spec === undefined ? null : lines.map((l) => measured ?? backgroundEmission(spec, l.wavelengthNm, grid));
+  return { grid, dots, components, transmissions, linesOnByChannel, background, probeEvaluations, assigned };
+}
+
+/** Replaces any non-finite number in place by null, with a warning naming where (a guard; none is expected). */
+function makeJsonSafe(value: unknown, path: (string | number)[], warnings: string[]): unknown {
+  if (typeof value === 'number') {
+    if (value - value === 0) return value; // false for NaN and ±Infinity
+    warnings.push(`${path.join('.')} has no finite value and is reported as null`);
+    return null;
+  }
+  if (value === null || typeof value !== 'object' || ArrayBuffer.isView(value)) return value;
+  const record = value as Record<string | number, unknown>;
+  for (const key of Array.isArray(value) ? value.keys() : Object.keys(value)) {
+    const item = record[key];
+    if (typeof item === 'number' && item - item === 0) continue;
+    path.push(key);
+    record[key] = makeJsonSafe(item, path, warnings);
+    path.pop();
+  }
+  return value;
+}
+
+/**
+ * Evaluates a panel on `options.grid` (default 300–1000 nm, 1 nm). `options.sensitivity` (default true) adds the
+ * lot-to-lot check (each peak moved ±5 nm), which costs about twice the rest. Bad input throws SpectraError naming
+ * the field, e.g. ['channels', 2, 'filters', 0, 'widthNm'] or ['probes', 1, 'channel'].
+ */
+export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid; sensitivity?: boolean } = {}): PanelEvaluation {
+  const model = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
+  const { grid, components, transmissions, assigned } = model;
+  const probeIds = panel.probes.map((p) => p.id);
+  const channelIds = panel.channels.map((c) => c.id);
+  const collected = collectedMatrix(components, transmissions, grid.stepNm);
+  const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
+  const diagnostics = unmixingDiagnostics(collected, probeIds);
+  const warnings = [...figures.warnings, ...diagnostics.warnings];
+  const evaluation: PanelEvaluation = {
+    grid: { ...grid },
+    probes: model.probeEvaluations,
+    collected,
+    spillover: figures.spillover,
+    primaryChannel: figures.primaryChannel,
+    purity: figures.purity,
+    belowResolution: figures.belowResolution,
+    conditionNumber: diagnostics.conditionNumber,
+    noiseAmplification: diagnostics.noiseAmplification,
+    worst: figures.worst,
+    lotShiftSensitivity: options.sensitivity === false ? null
+      : lotShiftSensitivity(components, transmissions, grid.stepNm, collected, assigned, probeIds, channelIds),
+    warnings,
+  };
+  if (model.background) {
+    const lines = panel.excitation;
+    const bg = transmissions.map((t, c) =>
+      model.linesOnByChannel[c].reduce((s, l) => s + (lines[l].powerRel ?? 1) * overlap(model.background![l], t, grid.stepNm), 0));
+    evaluation.backgroundCollected = bg;
+    evaluation.signalToBackground = bg.map((b, c) => {
+      if (b > 0) return collected[c].reduce((a, v) => a + v, 0) / b;
+      warnings.push(`channel ${channelIds[c]} collects no background: its signal-to-background is undefined`);
+      return null;
+    });
+  }
+  return makeJsonSafe(evaluation, [], warnings) as PanelEvaluation;
+}
+
+/** Spectra for charting, as plain arrays on the grid (index i ↔ startNm + i × stepNm). */
+export interface PanelSpectra {
+  startNm: number;
+  stepNm: number;
+  count: number;
+  /** Unit-area photon density per nm (carbon dots: their nominal emission, before the line-dependent shift). */
+  emission: { id: string; values: number[] }[];
+  /** Π filters × detector QE, 0–1. */
+  channels: { id: string; values: number[] }[];
+  /** Background emission with every line on (collected units per nm), or null without a background. */
+  background: number[] | null;
+}
+
+/** The resolved emission spectra, channel transmissions and background of a panel, for charts. */
+export function panelSpectra(panel: PanelSpec, options: { grid?: WavelengthGrid } = {}): PanelSpectra {
+  const model = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
+  const { grid } = model;
+  let background: number[] | null = null;
+  if (model.background) {
+    const sum = new Float64Array(grid.count);
+    model.background.forEach((b, l) => {
+      for (let i = 0; i < sum.length; i++) sum[i] += (panel.excitation[l].powerRel ?? 1) * b[i];
+    });
+    background = Array.from(sum);
+  }
+  return {
+    startNm: grid.startNm,
+    stepNm: grid.stepNm,
+    count: grid.count,
+    emission: model.dots.map((d, p) => ({ id: panel.probes[p].id, values: Array.from(d.emission.values) })),
+    channels: model.transmissions.map((t, c) => ({ id: panel.channels[c].id, values: Array.from(t) })),
+    background,
+  };
+}
