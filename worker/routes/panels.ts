@@ -29,7 +29,8 @@ export const panels = new Hono<AppEnv>()
   .get(ID_PATH, async (c) => {
     const text = await loadPanelText(c.env.PANELS, c.req.param('id') ?? '');
     if (text === null) throw new ApiError(404, 'not_found', 'no panel is stored under this id', ['id']);
-    return c.body(text, 200, { 'content-type': 'application/json; charset=utf-8' });
+    // A stored panel never changes, so any cache may keep it.
+    return c.body(text, 200, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'public, max-age=31536000, immutable' });
   })
   .all('/', methodNotAllowed('POST'))
   .all('/evaluate', methodNotAllowed('POST'))
