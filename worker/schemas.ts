@@ -21,4 +21,5 @@ export type DotRequest = z.infer<typeof DotRequest>;
 // spectra/ cannot import zod, so its PanelSpec is the one allowed hand-written mirror of this schema. This line
 // stops compiling if the two drift apart in either direction.
 type Assert<T extends true> = T;
+/** `true` while the zod Panel and spectra's PanelSpec describe the same shape (a compile error otherwise). */
 export type PanelMatchesSpec = Assert<Panel extends PanelSpec ? (PanelSpec extends Panel ? true : false) : false>;

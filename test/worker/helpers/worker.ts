@@ -64,7 +64,7 @@ export function postJson(w: RunningWorker, path: string, body: unknown, raw = fa
   });
 }
 
-/** Asserts-free helper: the contract's error body, or null when the body is not one. */
+/** The `error` object of a response in the contract's error shape, or null when the body is not one. */
 export async function errorOf(res: Response): Promise<{ code: string; message: string; path: (string | number)[] } | null> {
   const text = await res.text();
   try {
