@@ -35,7 +35,8 @@ export class ChannelCard extends LitElement {
     :host { display: block; border: 1px solid #ccd; border-radius: 6px; padding: 0.5rem 0.7rem; background: #fff; }
     .row { display: flex; flex-wrap: wrap; gap: 0.5rem 0.8rem; align-items: flex-end; margin: 0.3rem 0; }
     label.text { display: flex; flex-direction: column; font-size: 0.85rem; }
-    input[type='text'], select { font: inherit; padding: 0.2rem 0.3rem; border: 1px solid #889; border-radius: 3px; }
+    input[type='text'], select { font: inherit; padding: 0.2rem 0.3rem; border: 1px solid #889; border-radius: 3px; max-width: 100%; }
+    label.text { min-width: 0; max-width: 100%; }
     :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
     header { display: flex; justify-content: space-between; align-items: center; gap: 0.5rem; }
     .filter { border-left: 3px solid #8a94a6; padding-left: 0.5rem; margin: 0.3rem 0; }

@@ -21,7 +21,7 @@ export class ChannelList extends LitElement {
 
   static override styles = css`
     :host { display: block; }
-    .cards { display: grid; gap: 0.6rem; }
+    .cards { display: grid; grid-template-columns: minmax(0, 1fr); gap: 0.6rem; }
     fieldset { border: 1px solid #ccd; border-radius: 6px; margin-top: 0.6rem; display: flex; flex-wrap: wrap; gap: 0.5rem; align-items: flex-end; }
     :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
     .note { font-size: 0.85rem; }

@@ -65,14 +65,14 @@ export class CrosstalkTable extends LitElement {
         ${formatFraction(v.lotShift.worst)} if ${label(v.lotShift.shiftedProbe)} comes ${Math.abs(v.lotShift.signedShiftNm)} nm ${v.lotShift.signedShiftNm > 0 ? 'redder' : 'bluer'}
         (${label(v.lotShift.from)} into ${label(v.lotShift.into)}).</p>` : ''}
       <h3>Spillover into each channel</h3>
-      <p>Each probe's light in a channel relative to its primary channel (marked ●).${many ? ' "< res.": below the model\'s resolution.' : ''}</p>
+      <p>Each probe's light in a channel relative to its primary channel (marked ●). "&lt; 0.1 %": below the model's resolution, not a measured zero.</p>
       <div class="scroll"><table class=${many ? 'many' : ''} aria-label="Spillover by channel">
         <thead><tr><th scope="col">channel</th>${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}${v.signalToBackground ? html`<th scope="col">signal / background</th>` : ''}</tr></thead>
         <tbody>${v.channels.map((c, ci) => html`<tr><th scope="row">${c.label}</th>
           ${v.probes.map((_, p) => {
             const primary = v.primaryChannel[p] === ci;
             const below = v.belowResolution[ci]?.[p] ?? false;
-            return html`<td class=${cellClass(v.spillover[ci]?.[p] ?? null, below)}>${primary ? '● ' : ''}${below ? (many ? '< res.' : 'below model resolution') : formatFraction(v.spillover[ci]?.[p])}</td>`;
+            return html`<td class=${cellClass(v.spillover[ci]?.[p] ?? null, below)}>${primary ? '● ' : ''}${below ? '< 0.1 %' : formatFraction(v.spillover[ci]?.[p])}</td>`;
           })}
           ${v.signalToBackground ? html`<td>${times(v.signalToBackground[ci] ?? null).replace('×', '')}</td>` : ''}</tr>`)}
         </tbody></table></div>

@@ -27,7 +27,8 @@ export class ProbeCard extends LitElement {
     :host([blocked]) { border: 2px solid #8b1a1a; }
     .row { display: flex; flex-wrap: wrap; gap: 0.5rem 0.8rem; align-items: flex-end; margin: 0.3rem 0; }
     label.text { display: flex; flex-direction: column; font-size: 0.85rem; }
-    input[type='text'], select { font: inherit; padding: 0.2rem 0.3rem; border: 1px solid #889; border-radius: 3px; }
+    input[type='text'], select { font: inherit; padding: 0.2rem 0.3rem; border: 1px solid #889; border-radius: 3px; max-width: 100%; }
+    label.text { min-width: 0; max-width: 100%; }
     :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
     .pred { font-size: 0.85rem; color: #222; background: #f3f4f8; padding: 0.3rem 0.5rem; border-radius: 4px; }
     .hazard { font-size: 0.8rem; } .high { color: #8b1a1a; } .moderate { color: #7a4a00; } .low { color: #2f4f2f; }

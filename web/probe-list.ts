@@ -22,7 +22,7 @@ export class ProbeList extends LitElement {
 
   static override styles = css`
     :host { display: block; }
-    .cards { display: grid; gap: 0.6rem; }
+    .cards { display: grid; grid-template-columns: minmax(0, 1fr); gap: 0.6rem; }
     button { margin-top: 0.5rem; }
     :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
   `;

@@ -58,6 +58,7 @@ describe('the panel page', () => {
     const typed = await spillover(page);
     // The chart's upper edge of the 605/40 band sits at 625 nm (the red band's lower edge is at 635): drag it 40 px right.
     const handle = page.locator('qdp-spectrum-chart g.handle[data-channel="c4"][data-edge="high"] line');
+    await handle.scrollIntoViewIfNeeded();
     const box = (await handle.boundingBox())!;
     await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
     await page.mouse.down();

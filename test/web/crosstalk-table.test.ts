@@ -55,7 +55,10 @@ describe('<qdp-crosstalk-table>', () => {
     const el = await mount(view);
     const text = el.shadowRoot!.textContent!.replace(/\s+/g, ' ');
     expect(text).toContain("Worst pair: Green dot adds 3.1 % of Orange dot's own signal");
-    expect(text).toContain('below model resolution');
+    expect(text).toContain("below the model's resolution");
+    const spill = el.shadowRoot!.querySelector('table[aria-label="Spillover by channel"]')!;
+    // spillover[0][1] = 2e-5 is flagged below resolution: shown as "< 0.1 %", not to three digits.
+    expect(spill.querySelectorAll('tbody tr')[0].querySelectorAll('td')[1].textContent).toBe('< 0.1 %');
     expect(text).toContain("this target's noise grows about 2.3× after unmixing");
     expect(text).toContain('Condition number 1.1');
     expect(text).toContain('can reach 5 % if Green dot comes 5 nm redder (Green dot into Orange dot)');
