@@ -25,7 +25,7 @@ export function demoPanel(): PanelSpec {
       {
         id: 'p1', label: 'Counterstain', material: 'custom', target: 'nuclear DNA counterstain', abundance: 1, quantumYield: 0.4,
         measuredEmission: { points: inventedCurve(462, 38, 60, 400, 650, 1) },
-        extinction: { points: inventedCurve(375, 45, 80, 300, 460, 40000) },
+        extinction: { points: inventedCurve(395, 45, 80, 300, 480, 60000) },
       },
       { id: 'p2', label: 'Green dot', material: 'cdse', emissionPeakNm: 525, sizeDispersionPct: 5, quantumYield: 0.5, target: 'nuclear envelope marker', abundance: 1 },
       { id: 'p3', label: 'Yellow dot', material: 'inp', emissionPeakNm: 570, quantumYield: 0.5, target: 'mitochondrial marker', abundance: 1 },

@@ -148,7 +148,7 @@ export class PanelApp extends LitElement {
       <header>
         <h1>qdpanel <span>plan a quantum-dot panel</span></h1>
         <div class="row">
-          <label>Panel title <input type="text" .value=${p.title ?? ''} @change=${(e: Event) => this.apply({ ...p, title: (e.target as HTMLInputElement).value })} /></label>
+          <label>Panel title <input type="text" .value=${p.title ?? ''} ?disabled=${!!this.sharedId} @change=${(e: Event) => this.apply({ ...p, title: (e.target as HTMLInputElement).value })} /></label>
           <button type="button" @click=${() => this.load(newPanel(), [])}>New panel</button>
           <button type="button" @click=${() => this.load(demoPanel(), [])}>Open the demo panel</button>
           <label class="file">Open panel JSON <input type="file" accept=".json,application/json" @change=${(e: Event) => this.importJson((e.target as HTMLInputElement).files?.[0])} /></label>

@@ -110,7 +110,8 @@ export class SpectrumChart extends LitElement {
     const g = this.geometry!;
     const w = this.width.widthPx;
     const [top, bottom] = [MARGIN.top, HEIGHT_PX - MARGIN.bottom];
-    const labelBands = this.passbands.length <= 8;
+    // Band names only where they fit: up to 8 bands on a chart at least 600 px wide.
+    const labelBands = this.passbands.length <= 8 && w >= 600;
     return html`
       <svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${w} ${HEIGHT_PX}" width=${w} height=${HEIGHT_PX} role="group" aria-label="Emission spectra, passbands and excitation lines"
         @pointermove=${this.onMove} @pointerup=${this.onUp} @pointercancel=${this.onUp} @pointerleave=${() => !this.drag && (this.hoverNm = null)}>

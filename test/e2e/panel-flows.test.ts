@@ -40,9 +40,12 @@ describe('the panel page', () => {
     expect(await page.locator('qdp-spectrum-chart path.curve').count()).toBe(6);
     expect(await page.locator('qdp-material-notes p.summary').innerText()).toContain('This panel contains cadmium');
     await shot(page, '01-demo-1280');
+    await shot(page, '01b-crosstalk-1280', page.locator('qdp-crosstalk-table table'));
     await page.setViewportSize({ width: 390, height: 844 });
     await page.waitForTimeout(200);
     await shot(page, '01-demo-390');
+    await shot(page, '01b-chart-390', page.locator('qdp-spectrum-chart svg'));
+    await shot(page, '01c-crosstalk-390', page.locator('qdp-crosstalk-table table'));
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth);
     expect(overflow).toBeLessThanOrEqual(400);
     expect(problems).toEqual([]);
@@ -54,7 +57,7 @@ describe('the panel page', () => {
     const before = await spillover(page);
     await orangeWidth(page).fill('40');
     await expect.poll(() => spillover(page)).not.toBe(before);
-    await shot(page, '02-typed-width-1280');
+    await shot(page, '02-typed-width-1280', page.locator('qdp-spectrum-chart svg'));
     const typed = await spillover(page);
     // The chart's upper edge of the 605/40 band sits at 625 nm (the red band's lower edge is at 635): drag it 40 px right.
     const handle = page.locator('qdp-spectrum-chart g.handle[data-channel="c4"][data-edge="high"] line');
@@ -68,7 +71,7 @@ describe('the panel page', () => {
     await expect.poll(() => spillover(page)).not.toBe(typed);
     const width = Number(await orangeWidth(page).inputValue());
     expect(width).toBeGreaterThan(40);
-    await shot(page, '03-dragged-edge-1280');
+    await shot(page, '03-dragged-edge-1280', page.locator('qdp-spectrum-chart svg'));
     expect(problems).toEqual([]);
     // The URL fragment carries the edit: a reload keeps it.
     await page.reload();
@@ -86,7 +89,7 @@ describe('the panel page', () => {
     expect(await peak.locator('input').inputValue()).toBe('990');
     expect(await peak.locator('[role="alert"]').innerText()).toMatch(/\d{3}.*\d{3}/);
     expect(await spillover(page)).toBe(before);
-    await shot(page, '04-invalid-peak-1280');
+    await shot(page, '04-invalid-peak-1280', peak);
     await page.close();
   });
 
@@ -100,7 +103,7 @@ describe('the panel page', () => {
     await link.waitFor();
     shareUrl = await link.inputValue();
     expect(shareUrl).toMatch(/\/p\/[A-Za-z0-9_-]{22,}$/);
-    await shot(page, '05-shared-1280');
+    await shot(page, '05-shared-1280', link);
     const other = await open(shareUrl);
     await other.page.getByText('Shared copy (read only)').waitFor();
     expect(await orangeWidth(other.page).inputValue()).toBe('30');
@@ -147,7 +150,7 @@ describe('the panel page', () => {
     expect(await other.page.locator('qdp-crosstalk-table table').first().innerText()).toContain(evil);
     expect(await other.page.locator('img').count()).toBe(0);
     await other.page.waitForTimeout(300);
-    await shot(other.page, '07-xss-as-text-1280');
+    await shot(other.page, '07-xss-as-text-1280', other.page.locator('qdp-probe-card').first());
     expect([...problems, ...other.problems]).toEqual([]);
     await other.page.close();
     await page.close();

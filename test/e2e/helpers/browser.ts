@@ -5,7 +5,7 @@
 import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
 
 /** Flags for a closed network and a root user (no sandbox). */
 export const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
@@ -32,8 +32,9 @@ export async function openBrowser(): Promise<{ context: BrowserContext; close():
   };
 }
 
-/** Saves a full-page screenshot as test-output/e2e/<name>.png. */
-export async function shot(page: Page, name: string): Promise<void> {
+/** Saves a screenshot of the viewport as test-output/e2e/<name>.png, first scrolling `focus` (what the step is about) into view. */
+export async function shot(page: Page, name: string, focus?: Locator): Promise<void> {
   mkdirSync(SHOT_DIR, { recursive: true });
-  await page.screenshot({ path: join(SHOT_DIR, `${name}.png`), fullPage: true });
+  if (focus) await focus.first().scrollIntoViewIfNeeded();
+  await page.screenshot({ path: join(SHOT_DIR, `${name}.png`) });
 }
