@@ -81,27 +81,67 @@ export function channelSupport(t: Float64Array): ChannelSupport {
   return { t, first, end, left: t[0], right: t[n - 1] };
 }
 
-/** Partial sums of an emission: prefix[i] = Σ_{k<i}, suffix[i] = Σ_{k≥i} (each accumulated from its own end). */
-function partialSums(em: Float64Array): { prefix: Float64Array; suffix: Float64Array } {
-  const n = em.length;
-  const prefix = new Float64Array(n + 1);
-  const suffix = new Float64Array(n + 1);
-  for (let i = 0; i < n; i++) prefix[i + 1] = prefix[i] + em[i];
-  for (let i = n - 1; i >= 0; i--) suffix[i] = suffix[i + 1] + em[i];
-  return { prefix, suffix };
+function windowSum(a: Float64Array, from: number, to: number): number {
+  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+  let i = from;
+  for (; i + 3 < to; i += 4) {
+    s0 += a[i];
+    s1 += a[i + 1];
+    s2 += a[i + 2];
+    s3 += a[i + 3];
+  }
+  for (; i < to; i++) s0 += a[i];
+  return s0 + s1 + s2 + s3;
 }
 
-/** One probe's column of collected (one value per channel), the integral Σλ em T Δλ taken over the channel's runs. */
-export function collectedColumn(components: EmissionComponent[], supports: ChannelSupport[], stepNm: number): number[] {
+/** Channel supports plus the order in which their left runs end (ascending) and right runs start (descending). */
+export interface OverlapPlan {
+  supports: ChannelSupport[];
+  byFirst: number[];
+  byEnd: number[];
+}
+
+/** Prepares the channels of a panel for collectedColumn. */
+export function overlapPlan(transmissions: Float64Array[]): OverlapPlan {
+  const supports = transmissions.map(channelSupport);
+  const order = supports.map((_, c) => c);
+  return {
+    supports,
+    byFirst: order.slice().sort((a, b) => supports[a].first - supports[b].first),
+    byEnd: order.slice().sort((a, b) => supports[b].end - supports[a].end),
+  };
+}
+
+/**
+ * One probe's column of collected (one value per channel), Σλ em T Δλ taken over each channel's runs and window.
+ * The emission's sums over the left runs are accumulated from the blue end, those over the right runs from the red
+ * end, so a tiny tail is never the difference of two large sums (it matters against a 10^-12 blocking floor).
+ */
+export function collectedColumn(components: EmissionComponent[], plan: OverlapPlan, stepNm: number): number[] {
+  const { supports, byFirst, byEnd } = plan;
   const column = new Array<number>(supports.length).fill(0);
+  const leftSum = new Float64Array(supports.length);
+  const rightSum = new Float64Array(supports.length);
   for (const { emission, weightByChannel } of components) {
-    const { prefix, suffix } = partialSums(emission);
+    let acc = 0;
+    let at = 0;
+    for (const c of byFirst) {
+      acc += windowSum(emission, at, supports[c].first);
+      at = supports[c].first;
+      leftSum[c] = acc;
+    }
+    acc = 0;
+    at = emission.length;
+    for (const c of byEnd) {
+      acc += windowSum(emission, supports[c].end, at);
+      at = supports[c].end;
+      rightSum[c] = acc;
+    }
     for (let c = 0; c < supports.length; c++) {
       const w = weightByChannel[c];
       if (w === 0) continue;
       const { t, first, end, left, right } = supports[c];
-      const integral = left * prefix[first] + windowDot(emission, t, first, end) + right * suffix[end];
-      column[c] += w * integral * stepNm;
+      column[c] += w * (left * leftSum[c] + windowDot(emission, t, first, end) + right * rightSum[c]) * stepNm;
     }
   }
   return column;
@@ -109,8 +149,8 @@ export function collectedColumn(components: EmissionComponent[], supports: Chann
 
 /** collected[c][p] for every channel and probe. */
 export function collectedMatrix(probes: EmissionComponent[][], transmissions: Float64Array[], stepNm: number): number[][] {
-  const supports = transmissions.map(channelSupport);
-  const columns = probes.map((components) => collectedColumn(components, supports, stepNm));
+  const plan = overlapPlan(transmissions);
+  const columns = probes.map((components) => collectedColumn(components, plan, stepNm));
   return transmissions.map((_, c) => columns.map((col) => col[c]));
 }
 

@@ -153,34 +153,56 @@ export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT
   const transmissions = panel.channels.map((c, i) => channelTransmission(c, grid, ['channels', i]));
   const dots: ResolvedDot[] = [];
   const probeEvaluations: ProbeEvaluation[] = [];
-  const components = panel.probes.map((probe, p) => {
+  const components: EmissionComponent[][] = [];
+  for (let p = 0; p < panel.probes.length; p++) {
+    const probe = panel.probes[p];
     const dot = resolveProbe(probe, p, grid);
     dots.push(dot);
-    const eps = lines.map((l) => extinctionAtNm(dot, l.wavelengthNm));
+    const qy = dot.quantumYield;
     const abundance = probe.abundance ?? 1;
-    const lineWeight = (l: number) => lines[l].powerRel * eps[l] * dot.quantumYield * abundance;
-    const { emission: _e, absorption: _a, ...fields } = dot;
+    // lineWeight[l] = powerRel × ε(λl) × QY × abundance: the line's factor in the signal model.
+    const eps: number[] = [];
+    const lineWeight: number[] = [];
+    let brightness = 0;
+    for (const line of lines) {
+      const e = extinctionAtNm(dot, line.wavelengthNm);
+      eps.push(e);
+      lineWeight.push(line.powerRel * e * qy * abundance);
+      brightness += line.powerRel * e * qy;
+    }
     const evaluation: ProbeEvaluation = {
-      ...fields,
-      warnings: [...dot.warnings],
       id: probe.id,
       ...(probe.label !== undefined ? { label: probe.label } : {}),
+      material: dot.material,
+      diameterNm: dot.diameterNm,
+      firstExcitonNm: dot.firstExcitonNm,
+      emissionPeakNm: dot.emissionPeakNm,
+      fwhmNm: dot.fwhmNm,
+      quantumYield: qy,
+      extinctionFirstExciton: dot.extinctionFirstExciton,
       extinctionAtExcitation: eps,
-      brightness: lines.reduce((s, l, k) => s + l.powerRel * eps[k] * dot.quantumYield, 0),
+      model: dot.model,
+      measured: { ...dot.measured },
+      brightness,
+      warnings: dot.warnings.slice(),
     };
     probeEvaluations.push(evaluation);
+    const weightsFor = (l: number | null) => {
+      const w = new Float64Array(linesOnByChannel.length);
+      linesOnByChannel.forEach((on, c) => {
+        for (const k of on) if (l === null || k === l) w[c] += lineWeight[k];
+      });
+      return w;
+    };
     // Carbon dots without a measured emission change colour with the line: one emission per line.
     if (dot.material === 'carbon' && !dot.measured.emission) {
-      const perLine = lines.map((l) => resolveProbe(probe, p, grid, l.wavelengthNm));
+      const perLine = lines.map((line) => resolveProbe(probe, p, grid, line.wavelengthNm));
       evaluation.emissionPeakNmByLine = perLine.map((d) => d.emissionPeakNm);
-      return perLine.map((d, l) => ({
-        emission: d.emission.values,
-        weightByChannel: Float64Array.from(linesOnByChannel, (on) => (on.includes(l) ? lineWeight(l) : 0)),
-      }));
+      components.push(perLine.map((d, l) => ({ emission: d.emission.values, weightByChannel: weightsFor(l) })));
+    } else {
+      components.push([{ emission: dot.emission.values, weightByChannel: weightsFor(null) }]);
     }
-    const weightByChannel = Float64Array.from(linesOnByChannel, (on) => on.reduce((s, l) => s + lineWeight(l), 0));
-    return [{ emission: dot.emission.values, weightByChannel }];
-  });
+  }
   const assigned = panel.probes.map((probe) => (probe.channel === undefined ? undefined : channelIndex.get(probe.channel)));
   const spec = panel.background;
   // A measured background does not depend on the line: one spectrum serves every line.

@@ -37,6 +37,6 @@ export { predictUnmixingNoise, photonMixing, type NoiseInput, type NoisePredicti
 export { simulateUnmixing, type MonteCarloOptions, type MonteCarloResult } from './design/monte-carlo';
 export { createRandom, logFactorial, type RandomSource } from './random';
 export { defaultAutofluorescence, backgroundEmission, AUTOFLUORESCENCE_BANDS, BACKGROUND_REFERENCE_BRIGHTNESS } from './background';
-export { collectedMatrix, collectedColumn, channelSupport, crosstalkFigures, linesOn, overlap, type ChannelSupport, RESOLUTION_THRESHOLD, type EmissionComponent, type CrosstalkFigures, type WorstInterference } from './crosstalk';
+export { collectedMatrix, collectedColumn, channelSupport, overlapPlan, crosstalkFigures, linesOn, overlap, type ChannelSupport, type OverlapPlan, RESOLUTION_THRESHOLD, type EmissionComponent, type CrosstalkFigures, type WorstInterference } from './crosstalk';
 export { lotShiftSensitivity, shiftEmission, LOT_SHIFT_NM, type LotShiftSensitivity } from './sensitivity';
 export { evaluatePanel, panelSpectra, buildPanelModel, clearResolvedDotCache, type PanelEvaluation, type ProbeEvaluation, type PanelSpectra, type PanelModel } from './evaluate';

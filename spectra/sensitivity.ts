@@ -4,7 +4,7 @@
  * The probe's emission is translated along the wavelength axis with its shape and its extinction at the lines
  * unchanged: a first-order model of a lot shift (a real shift also changes the width and the absorption a little).
  */
-import { channelSupport, collectedColumn, crosstalkFigures, type EmissionComponent } from './crosstalk';
+import { overlapPlan, collectedColumn, crosstalkFigures, type EmissionComponent } from './crosstalk';
 
 /** Default peak shift for the lot-to-lot check, nm (common practice). */
 export const LOT_SHIFT_NM = 5;
@@ -62,11 +62,11 @@ export function lotShiftSensitivity(
     worstInterference: null,
     worstSpillover: null,
   };
-  const supports = transmissions.map(channelSupport);
+  const plan = overlapPlan(transmissions);
   probes.forEach((components, p) => {
     for (const signed of [shiftNm, -shiftNm]) {
       const moved = components.map((c) => ({ ...c, emission: shiftEmission(c.emission, signed, stepNm) }));
-      const column = collectedColumn(moved, supports, stepNm);
+      const column = collectedColumn(moved, plan, stepNm);
       const shifted = collected.map((row, c) => row.map((v, q) => (q === p ? column[c] : v)));
       const figures = crosstalkFigures(shifted, assigned, probeIds, channelIds);
       const w = figures.worst;

@@ -15,34 +15,37 @@ export interface Svd {
 
 const MAX_SWEEPS = 80;
 
-/** One-sided Jacobi on the columns of a (rows ≥ cols); returns rotated columns and the accumulated V columns. */
-function orthogonaliseColumns(a: Float64Array[]): { a: Float64Array[]; v: Float64Array[] } {
+/**
+ * One-sided Jacobi on the columns of a (rows ≥ cols); rotates them and the columns of V (identity at the start) in
+ * place. Column norms are carried through each rotation (‖ap‖² − tγ, ‖aq‖² + tγ; exact for the Jacobi angle) and
+ * recomputed at every sweep so rounding cannot build up; only the cross product γ is summed per pair.
+ */
+function orthogonaliseColumns(a: Float64Array[], v: Float64Array[], tolerance: number): void {
   const n = a.length;
   const m = a[0].length;
-  const v = Array.from({ length: n }, (_, j) => {
-    const e = new Float64Array(n);
-    e[j] = 1;
-    return e;
-  });
+  const norms = new Float64Array(n);
   for (let sweep = 0; sweep < MAX_SWEEPS; sweep++) {
+    for (let j = 0; j < n; j++) {
+      let s = 0;
+      const col = a[j];
+      for (let i = 0; i < m; i++) s += col[i] * col[i];
+      norms[j] = s;
+    }
     let rotated = false;
     for (let p = 0; p < n - 1; p++) {
+      const ap = a[p];
+      const vp = v[p];
       for (let q = p + 1; q < n; q++) {
-        const ap = a[p];
         const aq = a[q];
-        let alpha = 0;
-        let beta = 0;
         let gamma = 0;
-        for (let i = 0; i < m; i++) {
-          alpha += ap[i] * ap[i];
-          beta += aq[i] * aq[i];
-          gamma += ap[i] * aq[i];
-        }
-        if (gamma === 0 || Math.abs(gamma) <= EPSILON * Math.sqrt(alpha * beta)) continue;
+        for (let i = 0; i < m; i++) gamma += ap[i] * aq[i];
+        const alpha = norms[p];
+        const beta = norms[q];
+        if (gamma === 0 || Math.abs(gamma) <= tolerance * Math.sqrt(alpha * beta)) continue;
         rotated = true;
         // Rotation that zeroes the (p, q) entry of AᵀA (Golub & Van Loan, Matrix Computations, Jacobi methods; from memory).
         const zeta = (beta - alpha) / (2 * gamma);
-        const t = Math.sign(zeta || 1) / (Math.abs(zeta) + Math.sqrt(1 + zeta * zeta));
+        const t = (zeta >= 0 ? 1 : -1) / (Math.abs(zeta) + Math.sqrt(1 + zeta * zeta));
         const c = 1 / Math.sqrt(1 + t * t);
         const s = c * t;
         for (let i = 0; i < m; i++) {
@@ -51,7 +54,6 @@ function orthogonaliseColumns(a: Float64Array[]): { a: Float64Array[]; v: Float6
           ap[i] = c * x - s * y;
           aq[i] = s * x + c * y;
         }
-        const vp = v[p];
         const vq = v[q];
         for (let i = 0; i < n; i++) {
           const x = vp[i];
@@ -59,19 +61,30 @@ function orthogonaliseColumns(a: Float64Array[]): { a: Float64Array[]; v: Float6
           vp[i] = c * x - s * y;
           vq[i] = s * x + c * y;
         }
+        norms[p] = alpha - t * gamma;
+        norms[q] = beta + t * gamma;
       }
     }
     if (!rotated) break;
   }
-  return { a, v };
 }
 
-/** Thin SVD of a non-empty finite matrix. Zero singular values get a zero U column. */
-export function svd(matrix: readonly (readonly number[])[]): Svd {
+/**
+ * Thin SVD of a non-empty finite matrix. Zero singular values get a zero U column. Rotation stops once every pair of
+ * columns has |cos angle| ≤ `tolerance` (default ε); the singular values are then accurate to about
+ * (cols − 1) × tolerance relative (Demmel & Veselić 1992, from memory), so a diagnostic may pass e.g. 1e-12 to save sweeps.
+ */
+export function svd(matrix: readonly (readonly number[])[], tolerance = EPSILON): Svd {
   const { rows, cols } = checkMatrix(matrix);
   const transposed = rows < cols;
   const source = transposed ? matrix[0].map((_, j) => matrix.map((row) => row[j])) : matrix;
-  const { a, v } = orthogonaliseColumns(columnsOf(source));
+  const a = columnsOf(source);
+  const v = a.map((_, j) => {
+    const e = new Float64Array(a.length);
+    e[j] = 1;
+    return e;
+  });
+  orthogonaliseColumns(a, v, tolerance);
   const sigma = a.map((col) => Math.sqrt(col.reduce((sum, x) => sum + x * x, 0)));
   const order = sigma.map((_, j) => j).sort((x, y) => sigma[y] - sigma[x]);
   const m = a[0].length;
