@@ -4,6 +4,8 @@ export interface Bindings {
   PANELS: KVNamespace;
   /** The static front end built by Vite into dist/. */
   ASSETS: Fetcher;
+  /** Budget of new share links per client (wrangler.toml [[ratelimits]]); absent means unlimited. */
+  SHARE_WRITES?: RateLimit;
 }
 
 /** The Hono environment every route app of the worker is typed with. */

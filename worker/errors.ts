@@ -12,6 +12,7 @@ export type ApiErrorCode =
   | 'duplicate_id'
   | 'not_found'
   | 'method_not_allowed'
+  | 'rate_limited'
   | 'internal_error';
 
 /** The contract's error body: `{"error": {"code", "message", "path"}}` (shared/api-v1.md, "Errors"). */
@@ -21,7 +22,7 @@ export interface ApiErrorBody {
 
 /** An error the HTTP layer throws on purpose; `onApiError` turns it into the contract's shape. */
 export class ApiError extends Error {
-  readonly status: 400 | 404 | 405 | 413 | 415;
+  readonly status: 400 | 404 | 405 | 413 | 415 | 429;
   readonly code: ApiErrorCode;
   readonly path: (string | number)[];
   readonly headers: Record<string, string>;

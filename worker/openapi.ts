@@ -67,6 +67,7 @@ export function openApiDocument(): Json {
       '/api/v1/panels': post('store a panel behind a share link', 'Panel', {
         '201': json(ref('ShareCreated'), 'stored'),
         '200': json(ref('ShareCreated'), 'already stored'),
+        '429': json(ref('Error'), 'too many new links from this client (see Retry-After)'),
       }),
       '/api/v1/panels/{id}': {
         get: {

@@ -10,13 +10,15 @@ export interface StoredPanel {
 
 /**
  * Stores a validated panel under the id of its canonical text. Stored panels are immutable: the key is read first
- * and an existing value is never overwritten (the same text always maps to the same key anyway).
+ * and an existing value is never overwritten (the same text always maps to the same key anyway). `beforeWrite` runs
+ * only when a new value is about to be written (the per-client budget of new links); it may throw to refuse.
  */
-export async function savePanel(kv: KVNamespace, panel: unknown): Promise<StoredPanel> {
+export async function savePanel(kv: KVNamespace, panel: unknown, beforeWrite?: () => Promise<void>): Promise<StoredPanel> {
   const canonical = canonicalJson(panel);
   const id = await shareIdOf(canonical);
   const existing = await kv.get(KEY_PREFIX + id);
   if (existing !== null) return { id, created: false };
+  await beforeWrite?.();
   await kv.put(KEY_PREFIX + id, canonical);
   return { id, created: true };
 }

@@ -7,6 +7,7 @@ import { finiteJsonResponse } from '../json';
 import { jsonBody } from '../middleware/json-body';
 import { methodNotAllowed } from '../middleware/method-not-allowed';
 import { Panel } from '../schemas';
+import { spendShareBudget } from '../share-budget';
 import { loadPanelText, savePanel } from '../store';
 import { validJson } from '../validation';
 
@@ -23,7 +24,7 @@ export const panels = new Hono<AppEnv>()
     finiteJsonResponse(evaluatePanel(c.req.valid('json'), { grid: DEFAULT_GRID })),
   )
   .post('/', jsonBody(), validJson(Panel), async (c) => {
-    const { id, created } = await savePanel(c.env.PANELS, c.req.valid('json'));
+    const { id, created } = await savePanel(c.env.PANELS, c.req.valid('json'), () => spendShareBudget(c));
     return c.json({ id, url: `/p/${id}` }, created ? 201 : 200);
   })
   .get(ID_PATH, async (c) => {
