@@ -182,3 +182,64 @@ describe('evaluatePanel: crosstalk figures', () => {
     expectJsonSafe(ev);
   });
 });
+
+describe('evaluatePanel: bad input', () => {
+  it('evaluatePanel names the offending field for a bad filter, detector, channel reference or line', () => {
+    const cases: [(p: PanelSpec) => void, string, (string | number)[]][] = [
+      [(p) => (p.channels[2].filters[0] = { type: 'bandpass', centerNm: 605, widthNm: 0 }), 'invalid_input', ['channels', 2, 'filters', 0, 'widthNm']],
+      [(p) => (p.channels[0].detector = 'film'), 'unknown_detector', ['channels', 0, 'detector']],
+      [(p) => (p.probes[1].channel = 'nowhere'), 'unknown_channel', ['probes', 1, 'channel']],
+      [(p) => (p.channels[1].excitationNm = 561), 'invalid_input', ['channels', 1, 'excitationNm']],
+      [(p) => (p.channels[3].id = 'c525'), 'invalid_input', ['channels', 3, 'id']],
+      [(p) => (p.probes[2].abundance = -1), 'invalid_input', ['probes', 2, 'abundance']],
+      [(p) => (p.excitation[1].wavelengthNm = Number.NaN), 'invalid_input', ['excitation', 1, 'wavelengthNm']],
+      [(p) => (p.probes = []), 'invalid_input', ['probes']],
+      [(p) => (p.probes = Array.from({ length: 17 }, (_, i) => ({ ...p.probes[0], id: `x${i}` }))), 'invalid_input', ['probes']],
+      [(p) => (p.channels[0].filters = [{ type: 'table', points: [[500, 0.2], [500, 0.3]] }]), 'invalid_table', ['channels', 0, 'filters', 0, 'points', 1, 0]],
+    ];
+    for (const [breakIt, code, path] of cases) {
+      const panel = fourProbePanel();
+      breakIt(panel);
+      const err = errorOf(() => evaluatePanel(panel));
+      expect(err.code).toBe(code);
+      expect(err.path).toEqual(path);
+    }
+  });
+
+  it('evaluatePanel moves a probe\'s resolve error under its index: ["probes", 3, "emissionPeakNm"]', () => {
+    const panel = fourProbePanel();
+    panel.probes[3] = { ...panel.probes[3], emissionPeakNm: 900 };
+    const err = errorOf(() => evaluatePanel(panel));
+    expect(err.path).toEqual(['probes', 3, 'emissionPeakNm']);
+  });
+});
+
+describe('evaluatePanel: carbon dots and charts', () => {
+  it('evaluatePanel resolves a carbon dot once per line and adds the lines\' contributions', () => {
+    const panel: PanelSpec = {
+      version: 1,
+      excitation: [{ wavelengthNm: 405 }, { wavelengthNm: 488 }],
+      probes: [{ id: 'cd', material: 'carbon', emissionPeakNm: 470, fwhmNm: 90, quantumYield: 0.1 }],
+      channels: [bandpass('blue', 470, 40), bandpass('green', 540, 40)],
+    };
+    const ev = evaluatePanel(panel, { sensitivity: false });
+    const [a, b] = ev.probes[0].emissionPeakNmByLine!;
+    expect(b).toBeGreaterThan(a); // the modelled peak follows the line to the red
+    const single = (l: number) => evaluatePanel({ ...panel, excitation: [panel.excitation[l]] }, { sensitivity: false }).collected;
+    const [s405, s488] = [single(0), single(1)];
+    for (let c = 0; c < 2; c++) expect(ev.collected[c][0]).toBeCloseTo(s405[c][0] + s488[c][0], 6);
+    expectJsonSafe(ev);
+  });
+
+  it('panelSpectra returns unit-area emissions and the channel transmissions on the grid as plain arrays', () => {
+    const panel = fourProbePanel();
+    const spectra = panelSpectra(panel);
+    expect(spectra.count).toBe(DEFAULT_GRID.count);
+    for (const { values } of spectra.emission) {
+      expect(Array.isArray(values)).toBe(true);
+      expect(values.reduce((a, b) => a + b, 0) * spectra.stepNm).toBeCloseTo(1, 6);
+    }
+    spectra.channels.forEach(({ values }, c) => expect(values).toEqual(Array.from(channelTransmission(panel.channels[c], DEFAULT_GRID))));
+    expect(spectra.background).toBeNull();
+  });
+});
