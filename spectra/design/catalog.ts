@@ -46,7 +46,12 @@ export class CatalogSearch {
   private readonly childCount: Int32Array;
   private readonly childIdx: Int32Array;
   private readonly sideConditions: boolean;
+  /** Each probe's largest collected light over the channels (for ordering ties). */
+  private readonly brightness: Float64Array;
   private depth = 0;
+  /** True once a leaf's channel search hit its cap: the search can then no longer prove optimality. */
+  private truncated = false;
+  private truncatedBound = Infinity;
 
   constructor(problem: CatalogProblem, initial?: DesignAssignment) {
     this.problem = problem;
@@ -70,6 +75,8 @@ export class CatalogSearch {
     this.childCount = new Int32Array(n + 1);
     this.childIdx = new Int32Array(n + 1);
     this.sideConditions = f.minSignalFraction > 0 || f.conflict !== null;
+    this.brightness = new Float64Array(f.probes);
+    for (let c = 0; c < f.channels; c++) for (let q = 0; q < f.probes; q++) this.brightness[q] = Math.max(this.brightness[q], f.light[c * f.probes + q]);
     const greedy = greedyDesign(f);
     this.greedyWorst = greedy ? greedy.worst : null;
     if (greedy) this.offer(this.toDesign(greedy.values));
@@ -123,7 +130,7 @@ export class CatalogSearch {
 
   /** A proven lower bound on the optimum: the incumbent once done, else the least bound left unexplored. */
   lowerBound(): number {
-    let bound = this.incumbentWorst;
+    let bound = Math.min(this.incumbentWorst, this.truncatedBound);
     if (this.done) return bound;
     for (let d = 0; d <= this.depth; d++) {
       if (this.childIdx[d] < this.childCount[d]) bound = Math.min(bound, this.childBound[d][this.childIdx[d]]);
@@ -138,7 +145,7 @@ export class CatalogSearch {
     return {
       design,
       objective: design ? worstInterference(this.problem.collected, this.problem.abundance, design) : null,
-      exact: this.done,
+      exact: this.done && !this.truncated,
       stats: {
         nodesVisited: this.nodesVisited,
         fullEnumeration: fullEnumerationSize(this.flat.targets, this.flat.probes, this.flat.channels),
@@ -162,7 +169,15 @@ export class CatalogSearch {
         for (let c = 0; c < f.channels; c++) signal[u * f.channels + c] = f.abundance[u] * f.light[c * f.probes + frame.probeOf[u]];
       }
       const table = { cost: frame.rows, rows: f.targets, cols: f.channels };
-      choice = constrainedAssignment(table, { signal, minSignalFraction: f.minSignalFraction, conflict: f.conflict }, this.incumbentWorst, choice.value);
+      const side = { signal, minSignalFraction: f.minSignalFraction, conflict: f.conflict };
+      const settled = constrainedAssignment(table, side, this.incumbentWorst, choice.value);
+      // The channel search's own steps count against the node budget; a capped one leaves the answer unproven.
+      this.nodesVisited += settled.visits;
+      if (!settled.complete) {
+        this.truncated = true;
+        this.truncatedBound = Math.min(this.truncatedBound, choice.value); // the matching value still bounds that leaf
+      }
+      choice = settled.choice;
     }
     if (!choice || !(choice.value < this.incumbentWorst)) return;
     this.incumbentWorst = choice.value;
@@ -181,7 +196,9 @@ export class CatalogSearch {
       const key = Math.max(frame.bound, childKey(f, frame, d, q));
       if (key < this.incumbentWorst) keys.push([key, q]);
     }
-    keys.sort((a, b) => a[0] - b[0]);
+    // Ties (common near the root, where every bound is 0) go to the probe with the most light in its best channel:
+    // rare targets, branched first, then try bright probes first, as the objective favours.
+    keys.sort((a, b) => a[0] - b[0] || this.brightness[b[1]] - this.brightness[a[1]]);
     keys.forEach(([key, q], i) => {
       this.childBound[d][i] = key;
       this.childProbe[d][i] = q;

@@ -82,11 +82,20 @@ export interface ChannelSideConditions {
   conflict: Uint8Array | null;
 }
 
+/** A constrained assignment and whether its search finished (false: it hit `maxVisits`, best found only). */
+export interface ConstrainedChoice {
+  choice: ChannelChoice | null;
+  complete: boolean;
+  visits: number;
+}
+
 /**
  * Exact channel assignment under passband conflicts and the signal floor, by depth-first search (rows with the
- * fewest usable columns first, columns cheapest first). `floorValue` is a known lower bound (the matching value).
+ * fewest usable columns first, columns cheapest first) with forward checking: after each choice every row still to
+ * place must keep a usable column. `floorValue` is a known lower bound (the matching value); the search stops when
+ * it reaches it, or after `maxVisits` choices.
  */
-export function constrainedAssignment(t: CostTable, side: ChannelSideConditions, limit: number, floorValue: number): ChannelChoice | null {
+export function constrainedAssignment(t: CostTable, side: ChannelSideConditions, limit: number, floorValue: number, maxVisits = 100_000): ConstrainedChoice {
   const rows = Array.from({ length: t.rows }, (_, r) => r);
   const lists = rows.map((r) =>
     Array.from({ length: t.cols }, (_, c) => c)
@@ -96,8 +105,15 @@ export function constrainedAssignment(t: CostTable, side: ChannelSideConditions,
   rows.sort((a, b) => lists[a].length - lists[b].length);
   let best: ChannelChoice | null = null;
   let bound = limit;
+  let visits = 0;
   const columns = new Int32Array(t.rows).fill(-1);
   const used = new Uint8Array(t.cols);
+  const usable = (r: number, c: number, worstSoFar: number, minS: number, maxS: number): boolean => {
+    if (used[c] || Math.max(worstSoFar, t.cost[r * t.cols + c]) >= bound) return false;
+    for (let k = 0; k < t.rows; k++) if (columns[k] >= 0 && side.conflict && side.conflict[columns[k] * t.cols + c] === 1) return false;
+    const s = side.signal[r * t.cols + c];
+    return Math.min(minS, s) >= side.minSignalFraction * Math.max(maxS, s);
+  };
   const visit = (k: number, worst: number, minS: number, maxS: number): boolean => {
     if (k === rows.length) {
       best = { value: worst, columns: Int32Array.from(columns) };
@@ -106,17 +122,20 @@ export function constrainedAssignment(t: CostTable, side: ChannelSideConditions,
     }
     const r = rows[k];
     for (const c of lists[r]) {
-      const cost = Math.max(worst, t.cost[r * t.cols + c]);
-      if (cost >= bound) break;
-      if (used[c]) continue;
-      if (side.conflict && columns.some((other) => other >= 0 && side.conflict![other * t.cols + c] === 1)) continue;
+      if (visits >= maxVisits) return true;
+      if (Math.max(worst, t.cost[r * t.cols + c]) >= bound) break;
+      if (!usable(r, c, worst, minS, maxS)) continue;
+      visits++;
       const s = side.signal[r * t.cols + c];
       const lo = Math.min(minS, s);
       const hi = Math.max(maxS, s);
-      if (lo < side.minSignalFraction * hi) continue;
+      const cost = Math.max(worst, t.cost[r * t.cols + c]);
       used[c] = 1;
       columns[r] = c;
-      const stop = visit(k + 1, cost, lo, hi);
+      // Forward check: every later row keeps at least one usable column.
+      let alive = true;
+      for (let j = k + 1; j < rows.length && alive; j++) alive = lists[rows[j]].some((d) => usable(rows[j], d, cost, lo, hi));
+      const stop = alive && visit(k + 1, cost, lo, hi);
       used[c] = 0;
       columns[r] = -1;
       if (stop) return true;
@@ -124,5 +143,5 @@ export function constrainedAssignment(t: CostTable, side: ChannelSideConditions,
     return false;
   };
   visit(0, 0, Infinity, 0);
-  return best;
+  return { choice: best, complete: visits < maxVisits, visits };
 }

@@ -34,11 +34,14 @@ export function greedyDesign(f: FlatProblem): FlatDesign | null {
   const order = Array.from({ length: f.targets }, (_, t) => t).sort((x, y) => f.abundance[x] - f.abundance[y] || x - y);
   const values = new Int32Array(f.targets).fill(-1);
   const placed: number[] = [];
+  let minSignal = Infinity;
+  let maxSignal = 0;
   for (const t of order) {
     let best = -1;
     let bestCost = Infinity;
     for (let v = 0; v < f.values; v++) {
-      if (!(f.own[t * f.values + v] > 0)) continue;
+      const s = f.own[t * f.values + v];
+      if (!(s > 0) || Math.min(minSignal, s) < f.minSignalFraction * Math.max(maxSignal, s)) continue;
       let cost = 0;
       for (const u of placed) cost = Math.max(cost, pairCost(f, t, v, u, values[u]));
       if (cost < bestCost || (cost === bestCost && best >= 0 && f.own[t * f.values + v] > f.own[t * f.values + best])) {
@@ -49,10 +52,14 @@ export function greedyDesign(f: FlatProblem): FlatDesign | null {
     if (best < 0 || bestCost === Infinity) return null;
     values[t] = best;
     placed.push(t);
+    minSignal = Math.min(minSignal, f.own[t * f.values + best]);
+    maxSignal = Math.max(maxSignal, f.own[t * f.values + best]);
   }
   let worst = flatObjective(f, values);
   // Single-target moves: try every other candidate for each target; keep a move when it lowers the objective.
-  for (let improved = true, sweeps = 0; improved && sweeps < 20; sweeps++) {
+  // Each sweep costs targets × values objective evaluations: cap the total near 200,000.
+  const maxSweeps = Math.max(1, Math.min(20, Math.floor(200_000 / (f.targets * f.values))));
+  for (let improved = true, sweeps = 0; improved && sweeps < maxSweeps; sweeps++) {
     improved = false;
     for (let t = 0; t < f.targets; t++) {
       for (let v = 0; v < f.values; v++) {

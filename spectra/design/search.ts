@@ -47,31 +47,55 @@ function progressOf(search: CatalogSearch, stage: SearchProgress['stage']): Sear
 }
 
 /**
+ * The search loop as a generator: runs `search` in chunks, yielding progress after each, until it is exhausted,
+ * the node budget is spent or `shouldStop` says so; returns the outcome. Callers decide how to wait between chunks.
+ */
+export function* searchSteps(
+  search: CatalogSearch,
+  budget: number,
+  chunk: number,
+  shouldStop?: () => boolean,
+): Generator<SearchProgress, CatalogResult> {
+  while (!search.done && search.nodesVisited < budget) {
+    search.advance(Math.min(chunk, budget - search.nodesVisited));
+    yield progressOf(search, search.done ? 'done' : 'search');
+    if (shouldStop?.()) break;
+  }
+  return search.result();
+}
+
+/** Runs a step generator to its end, passing each progress report on. */
+export function runSteps<T>(steps: Generator<SearchProgress, T>, onProgress?: (p: SearchProgress) => void): T {
+  for (;;) {
+    const next = steps.next();
+    if (next.done) return next.value;
+    onProgress?.(next.value);
+  }
+}
+
+/** As runSteps, but yields to the event loop after each report so that messages (e.g. a stop request) can arrive. */
+export async function runStepsAsync<T>(steps: Generator<SearchProgress, T>, onProgress?: (p: SearchProgress) => void): Promise<T> {
+  for (;;) {
+    const next = steps.next();
+    if (next.done) return next.value;
+    onProgress?.(next.value);
+    await new Promise((resolve) => setTimeout(resolve, 0));
+  }
+}
+
+/**
  * Exact catalog design (branch and bound) within a node budget; `exact` is true when the search space was exhausted.
  * @example searchCatalog({ collected, abundance: [1, 0.1, 0.3] }).objective?.worstInterference
  */
 export function searchCatalog(problem: CatalogProblem, options: SearchOptions = {}): CatalogResult {
   const search = new CatalogSearch(problem, options.initial);
-  const budget = options.nodeBudget ?? DEFAULT_NODE_BUDGET;
-  const chunk = options.chunkNodes ?? 2000;
-  while (!search.done && search.nodesVisited < budget) {
-    search.advance(Math.min(chunk, budget - search.nodesVisited));
-    options.onProgress?.(progressOf(search, search.done ? 'done' : 'search'));
-    if (options.shouldStop?.()) break;
-  }
-  return search.result();
+  const steps = searchSteps(search, options.nodeBudget ?? DEFAULT_NODE_BUDGET, options.chunkNodes ?? 2000, options.shouldStop);
+  return runSteps(steps, options.onProgress);
 }
 
-/** As searchCatalog, but yields to the event loop between chunks so a stop request can arrive. */
-export async function searchCatalogAsync(problem: CatalogProblem, options: SearchOptions = {}): Promise<CatalogResult> {
+/** As searchCatalog (no default budget), yielding to the event loop between chunks so a stop request can arrive. */
+export function searchCatalogAsync(problem: CatalogProblem, options: SearchOptions = {}): Promise<CatalogResult> {
   const search = new CatalogSearch(problem, options.initial);
-  const budget = options.nodeBudget ?? Number.POSITIVE_INFINITY;
-  const chunk = options.chunkNodes ?? 2000;
-  while (!search.done && search.nodesVisited < budget) {
-    search.advance(Math.min(chunk, budget - search.nodesVisited));
-    options.onProgress?.(progressOf(search, search.done ? 'done' : 'search'));
-    await new Promise((resolve) => setTimeout(resolve, 0));
-    if (options.shouldStop?.()) break;
-  }
-  return search.result();
+  const steps = searchSteps(search, options.nodeBudget ?? Number.POSITIVE_INFINITY, options.chunkNodes ?? 2000, options.shouldStop);
+  return runStepsAsync(steps, options.onProgress);
 }

@@ -1,0 +1,31 @@
+/**
+ * The noise figures reported with a design: the proposed panel's collected matrix at abundance 1, scaled to photons
+ * (options.photons detected in each target's own channel at abundance 1), through predictUnmixingNoise.
+ */
+import { SpectraError } from '../errors';
+import type { PanelEvaluation } from '../evaluate';
+import { photonMixing, predictUnmixingNoise, type NoisePrediction } from '../noise';
+import type { ResolvedDesignOptions } from './options';
+
+function perItem(value: number | number[], count: number, field: string): number[] {
+  const list = typeof value === 'number' ? new Array<number>(count).fill(value) : value;
+  if (list.length !== count) throw new SpectraError('invalid_input', `options.${field} must be a number or ${count} numbers`, ['options', field]);
+  return list;
+}
+
+/** Noise of a proposed panel whose channel t is target t's own channel. */
+export function designNoise(evaluation: PanelEvaluation, abundance: number[], o: ResolvedDesignOptions): NoisePrediction & { photons: number[] } {
+  const n = abundance.length;
+  const photons = perItem(o.photons, n, 'photons');
+  const atUnitAbundance = evaluation.collected.map((row) => row.map((x, p) => x / abundance[p]));
+  const primary = abundance.map((_, t) => t);
+  const prediction = predictUnmixingNoise({
+    mixingPhotons: photonMixing(atUnitAbundance, primary, photons),
+    abundance,
+    backgroundPhotons: perItem(o.backgroundPhotons, n, 'backgroundPhotons'),
+    readNoiseElectrons: o.readNoiseElectrons,
+    excessNoiseFactor: o.excessNoiseFactor,
+    primaryChannel: primary,
+  });
+  return { ...prediction, photons };
+}

@@ -1,0 +1,108 @@
+/**
+ * The whole design pipeline behind POST /api/v1/panels/design and the page's search worker: check the request, run
+ * catalog mode (candidates given) or free mode, turn the answer into a panel whose probes carry their `channel` and
+ * `abundance` (so evaluatePanel reproduces the objective), evaluate it, and predict its unmixing noise.
+ */
+import { SpectraError } from '../errors';
+import type { ChannelSpec, PanelSpec, ProbeSpec } from '../panel';
+import { evaluatePanel, type PanelEvaluation } from '../evaluate';
+import type { NoisePrediction } from '../noise';
+import { catalogDesignSteps } from './catalog-mode';
+import { freeDesignSteps } from './free';
+import { bandChannel } from './free-catalog';
+import { designNoise } from './design-noise';
+import { worstInterference } from './objective';
+import { resolveOptions } from './options';
+import { freeProbes } from './refine';
+import { normalizeTargets, normalizeWindow, type DesignRequest } from './request';
+import { runSteps, runStepsAsync, type SearchProgress } from './search';
+
+/** The design objective as the API reports it: probe ids and target names of the pair that sets it. */
+export interface DesignObjectiveReport {
+  worstInterference: number;
+  from: string | null;
+  into: string | null;
+  fromTarget: string | null;
+  intoTarget: string | null;
+}
+
+/** What the design route returns. `stats` holds the search figures of the mode that ran. */
+export interface DesignResult {
+  mode: 'catalog' | 'free';
+  panel: PanelSpec;
+  evaluation: PanelEvaluation;
+  objective: DesignObjectiveReport;
+  exact: boolean;
+  stats: Record<string, unknown> & { nodesVisited: number; fullEnumeration: number; bound: number | null };
+  noise: NoisePrediction & { photons: number[] };
+  warnings: string[];
+}
+
+/** Hooks of a running design: progress reports and a stop check (between search chunks). */
+export interface DesignHooks {
+  onProgress?: (progress: SearchProgress) => void;
+  shouldStop?: () => boolean;
+}
+
+/** The pipeline as steps; see runDesign / runDesignAsync. */
+export function* designSteps(request: DesignRequest, shouldStop?: () => boolean): Generator<SearchProgress, DesignResult> {
+  if (request === null || typeof request !== 'object') throw new SpectraError('invalid_input', 'a design request must be an object', []);
+  const { names, abundance } = normalizeTargets(request.targets);
+  if (!Array.isArray(request.excitation) || request.excitation.length === 0) {
+    throw new SpectraError('invalid_input', 'a design needs at least one excitation line', ['excitation']);
+  }
+  const free = request.candidates === undefined;
+  const o = resolveOptions(request.options, free);
+  let probes: ProbeSpec[];
+  let channels: ChannelSpec[];
+  let worst: number;
+  let exact: boolean;
+  let stats: DesignResult['stats'];
+  if (free) {
+    const windowNm = normalizeWindow(request.windowNm);
+    const out = yield* freeDesignSteps(abundance, request, windowNm, o, shouldStop);
+    probes = freeProbes(out.design);
+    channels = out.design.bands.map((b, t) => bandChannel(`c${t + 1}`, b, o.edgeWidthNm));
+    ({ worst, exact } = out);
+    stats = { ...out.stats };
+  } else {
+    const out = yield* catalogDesignSteps(abundance, request, o, shouldStop);
+    ({ probes, channels, worst, exact } = out);
+    stats = { ...out.stats };
+  }
+  const panel: PanelSpec = {
+    version: 1,
+    title: free ? 'Proposed panel (free design)' : 'Proposed panel (from candidates)',
+    excitation: request.excitation,
+    probes: probes.map((p, t) => ({ ...p, label: names[t], target: names[t], abundance: abundance[t], channel: channels[t].id })),
+    channels,
+  };
+  const evaluation = evaluatePanel(panel);
+  // The pair that sets the objective, read from the evaluation (abundances are inside its collected matrix).
+  const identity = names.map((_, t) => t);
+  const pair = worstInterference(evaluation.collected, names.map(() => 1), { probe: identity, channel: identity });
+  const objective: DesignObjectiveReport = {
+    worstInterference: worst,
+    from: pair.from >= 0 ? panel.probes[pair.from].id : null,
+    into: pair.into >= 0 ? panel.probes[pair.into].id : null,
+    fromTarget: pair.from >= 0 ? names[pair.from] : null,
+    intoTarget: pair.into >= 0 ? names[pair.into] : null,
+  };
+  const noise = designNoise(evaluation, abundance, o);
+  const warnings = [...noise.warnings];
+  if (!exact) warnings.push('the search stopped at its node budget: the design is the best found, not proven optimal (see stats.bound)');
+  return { mode: free ? 'free' : 'catalog', panel, evaluation, objective, exact, stats, noise, warnings };
+}
+
+/**
+ * Runs a design synchronously (the API route: bounded by options.nodeBudget).
+ * @example runDesign({ targets: [{ name: 'CD4', abundance: 'high' }, { name: 'FOXP3', abundance: 'low' }], excitation: [{ wavelengthNm: 405 }] })
+ */
+export function runDesign(request: DesignRequest, hooks: DesignHooks = {}): DesignResult {
+  return runSteps(designSteps(request, hooks.shouldStop), hooks.onProgress);
+}
+
+/** Runs a design, yielding to the event loop between chunks (a browser Web Worker: progress and stop). */
+export function runDesignAsync(request: DesignRequest, hooks: DesignHooks = {}): Promise<DesignResult> {
+  return runStepsAsync(designSteps(request, hooks.shouldStop), hooks.onProgress);
+}

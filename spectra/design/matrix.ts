@@ -1,0 +1,57 @@
+/**
+ * The candidate matrix of a design: collected[c][p] for every candidate channel and probe at abundance 1, computed
+ * exactly as evaluatePanel computes a panel's (buildPanelModel + collectedMatrix), so that a proposed panel
+ * evaluates to the objective the search saw. A panel holds at most 16 probes and 64 channels, so large candidate
+ * sets are computed in blocks.
+ */
+import { SpectraError } from '../errors';
+import { DEFAULT_GRID, type WavelengthGrid } from '../grid';
+import { buildPanelModel } from '../evaluate';
+import { collectedMatrix } from '../crosstalk';
+import type { ChannelSpec, ExcitationLine, PanelSpec, ProbeSpec } from '../panel';
+
+const PROBES_PER_BLOCK = 16;
+const CHANNELS_PER_BLOCK = 64;
+
+/** A probe as a candidate: abundance 1, no channel assignment. */
+export function asCandidate(probe: ProbeSpec): ProbeSpec {
+  const { abundance: _a, channel: _c, ...rest } = probe;
+  return rest;
+}
+
+/**
+ * collected[c][p] at abundance 1 for candidate probes and channels. Errors from the spectral model are re-thrown
+ * with their path under `pathPrefix` (e.g. ['candidates']) so the API names the candidate's field.
+ */
+export function candidateMatrix(
+  probes: ProbeSpec[],
+  channels: ChannelSpec[],
+  excitation: ExcitationLine[],
+  options: { grid?: WavelengthGrid; pathPrefix?: (string | number)[] } = {},
+): number[][] {
+  const grid = options.grid ?? DEFAULT_GRID;
+  const out = channels.map(() => new Array<number>(probes.length).fill(0));
+  for (let p0 = 0; p0 < probes.length; p0 += PROBES_PER_BLOCK) {
+    for (let c0 = 0; c0 < channels.length; c0 += CHANNELS_PER_BLOCK) {
+      const panel: PanelSpec = {
+        version: 1,
+        excitation,
+        probes: probes.slice(p0, p0 + PROBES_PER_BLOCK).map(asCandidate),
+        channels: channels.slice(c0, c0 + CHANNELS_PER_BLOCK),
+      };
+      let block: number[][];
+      try {
+        const model = buildPanelModel(panel, grid);
+        block = collectedMatrix(model.components, model.transmissions, grid.stepNm);
+      } catch (err) {
+        if (!(err instanceof SpectraError)) throw err;
+        const [list, index, ...rest] = err.path;
+        const shifted = typeof index === 'number' ? index + (list === 'probes' ? p0 : list === 'channels' ? c0 : 0) : index;
+        const path = index === undefined ? err.path : [list, shifted, ...rest];
+        throw new SpectraError(err.code, err.message, [...(options.pathPrefix ?? []), ...path]);
+      }
+      block.forEach((row, c) => row.forEach((x, p) => (out[c0 + c][p0 + p] = x)));
+    }
+  }
+  return out;
+}

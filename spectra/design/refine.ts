@@ -1,0 +1,91 @@
+/**
+ * Local refinement of a free-mode design on the 1 nm grid: pattern search by coordinates (each target's emission
+ * peak, passband centre and passband width, moved by ±4, then ±2, then ±1 nm), keeping a move only when it lowers
+ * the worst interference and keeps every rule: peaks within the material's reach and the window, widths within the
+ * manufacturable range, bands inside the window, non-overlapping and clear of the excitation lines, the signal floor.
+ */
+import type { Material } from '../materials/types';
+import type { ExcitationLine, MaterialId, ProbeSpec } from '../panel';
+import { bandChannel, bandPassesLine, bandsOverlap, type Band } from './free-catalog';
+import { candidateMatrix } from './matrix';
+import { worstInterference } from './objective';
+import type { ResolvedDesignOptions } from './options';
+import type { SearchProgress } from './search';
+
+/** A free-mode design: per target a material, an emission peak and a band. */
+export interface FreeDesign {
+  materials: MaterialId[];
+  peaksNm: number[];
+  bands: Band[];
+}
+
+/** What the refinement needs to know besides the design. */
+export interface RefineContext {
+  abundance: number[];
+  excitation: ExcitationLine[];
+  windowNm: [number, number];
+  materials: Map<string, Material>;
+  options: ResolvedDesignOptions;
+}
+
+/** Probe specs of a free design (ids p1…pn). */
+export function freeProbes(d: FreeDesign): ProbeSpec[] {
+  return d.materials.map((material, t) => ({ id: `p${t + 1}`, material, emissionPeakNm: d.peaksNm[t] }));
+}
+
+/** True when the design keeps every free-mode rule except the signal floor (checked with the light). */
+export function freeDesignAllowed(d: FreeDesign, ctx: RefineContext): boolean {
+  const [lo, hi] = ctx.windowNm;
+  const [wMin, wMax] = ctx.options.bandwidthRangeNm;
+  return d.bands.every((b, t) => {
+    const [r0, r1] = ctx.materials.get(d.materials[t])!.emissionRangeNm!;
+    const peak = d.peaksNm[t];
+    if (peak < Math.max(Math.ceil(r0), lo) || peak > Math.min(Math.floor(r1), hi)) return false;
+    if (b.widthNm < wMin || b.widthNm > wMax || b.centerNm - b.widthNm / 2 < lo || b.centerNm + b.widthNm / 2 > hi) return false;
+    if (bandPassesLine(b, ctx.excitation, ctx.options.edgeWidthNm)) return false;
+    return d.bands.every((other, u) => u === t || !bandsOverlap(b, other));
+  });
+}
+
+/** Worst interference of a free design (probe t read in band t), Infinity when it breaks a rule or the floor. */
+export function freeObjective(d: FreeDesign, ctx: RefineContext): number {
+  if (!freeDesignAllowed(d, ctx)) return Infinity;
+  const channels = d.bands.map((b, t) => bandChannel(`c${t + 1}`, b, ctx.options.edgeWidthNm));
+  const m = candidateMatrix(freeProbes(d), channels, ctx.excitation);
+  const own = ctx.abundance.map((a, t) => a * m[t][t]);
+  if (!own.every((s) => s > 0) || Math.min(...own) < ctx.options.minSignalFraction * Math.max(...own)) return Infinity;
+  const identity = ctx.abundance.map((_, t) => t);
+  return worstInterference(m, ctx.abundance, { probe: identity, channel: identity }).worstInterference;
+}
+
+/** Pattern search from `start`; yields progress after each pass and returns the refined design and its objective. */
+export function* refineFreeDesign(start: FreeDesign, ctx: RefineContext): Generator<SearchProgress, { design: FreeDesign; worst: number; moves: number }> {
+  let design = { materials: [...start.materials], peaksNm: [...start.peaksNm], bands: start.bands.map((b) => ({ ...b })) };
+  let worst = freeObjective(design, ctx);
+  let moves = 0;
+  let evaluations = 0;
+  const MAX_EVALUATIONS = 4000; // bounds the refinement's cost (each evaluation resolves n dots and n filters)
+  for (const step of [4, 2, 1]) {
+    for (let improved = true; improved && evaluations < MAX_EVALUATIONS; ) {
+      improved = false;
+      for (let t = 0; t < design.peaksNm.length; t++) {
+        for (const [field, delta] of [['peak', step], ['peak', -step], ['center', step], ['center', -step], ['width', step], ['width', -step]] as const) {
+          const next = { materials: design.materials, peaksNm: [...design.peaksNm], bands: design.bands.map((b) => ({ ...b })) };
+          if (field === 'peak') next.peaksNm[t] += delta;
+          else if (field === 'center') next.bands[t].centerNm += delta;
+          else next.bands[t].widthNm += delta; // centre and width both stay on the 1 nm grid
+          evaluations++;
+          const score = freeObjective(next, ctx);
+          if (score < worst) {
+            design = next;
+            worst = score;
+            moves++;
+            improved = true;
+          }
+        }
+      }
+      yield { stage: 'refine', nodesVisited: evaluations, incumbent: Number.isFinite(worst) ? worst : null, bound: null };
+    }
+  }
+  return { design, worst, moves };
+}
