@@ -36,6 +36,11 @@ export { searchCatalog, searchCatalogAsync, DEFAULT_NODE_BUDGET, type SearchOpti
 export { predictUnmixingNoise, photonMixing, type NoiseInput, type NoisePrediction } from './noise';
 export { simulateUnmixing, type MonteCarloOptions, type MonteCarloResult } from './design/monte-carlo';
 export { createRandom, logFactorial, type RandomSource } from './random';
+export { runDesign, runDesignAsync, designSteps, type DesignResult, type DesignHooks, type DesignObjectiveReport } from './design/design';
+export { EXCLUSION_ELEMENTS, MAX_DESIGN_TARGETS, DEFAULT_WINDOW_NM, type DesignRequest, type DesignTarget, type Exclusion } from './design/request';
+export { DEFAULT_FREE_NODE_BUDGET, MAX_NODE_BUDGET, type DesignOptions } from './design/options';
+export { freeGridCatalog } from './design/free';
+export { bandsOverlap, type Band, type FreeCatalog } from './design/free-catalog';
 export { defaultAutofluorescence, backgroundEmission, AUTOFLUORESCENCE_BANDS, BACKGROUND_REFERENCE_BRIGHTNESS } from './background';
 export { collectedMatrix, collectedColumn, channelSupport, overlapPlan, crosstalkFigures, linesOn, overlap, type ChannelSupport, type OverlapPlan, RESOLUTION_THRESHOLD, type EmissionComponent, type CrosstalkFigures, type WorstInterference } from './crosstalk';
 export { lotShiftSensitivity, shiftEmission, LOT_SHIFT_NM, type LotShiftSensitivity } from './sensitivity';
