@@ -7,6 +7,7 @@ import { cors } from 'hono/cors';
 import type { AppEnv } from './env';
 import { errorResponse, onApiError } from './errors';
 import { securityHeaders } from './middleware/security-headers';
+import { design } from './routes/design';
 import { detectors } from './routes/detectors';
 import { dots } from './routes/dots';
 import { health } from './routes/health';
@@ -28,6 +29,7 @@ app.route('/api/v1/openapi.json', openapi);
 app.route('/api/v1/materials', materials);
 app.route('/api/v1/detectors', detectors);
 app.route('/api/v1/dots', dots);
+app.route('/api/v1/panels/design', design);
 app.route('/api/v1/panels', panels);
 app.route('/p', pages);
 
