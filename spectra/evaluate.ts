@@ -126,16 +126,18 @@ function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, excitat
   const input: Record<string, unknown> = {};
   for (const key of DOT_FIELDS) if (probe[key] !== undefined) input[key] = probe[key];
   if (excitationNm !== undefined) input.excitationNm = excitationNm;
-  const key = JSON.stringify([grid.startNm, grid.stepNm, grid.count, input]);
-  const hit = resolvedCache.get(key);
-  if (hit) {
-    resolvedCache.delete(key);
-    resolvedCache.set(key, hit);
-    return hit;
+  let key = `${grid.startNm} ${grid.stepNm} ${grid.count}`;
+  for (const field in input) {
+    const value = input[field];
+    // Strings and tables go through JSON (quoted, escaped), so no input can forge another input's key.
+    key += ` ${field}=${typeof value === 'number' ? value : JSON.stringify(value)}`;
   }
+  const hit = resolvedCache.get(key);
+  if (hit) return hit;
   try {
     const dot = resolveDot(input as unknown as DotInput, { grid });
     resolvedCache.set(key, dot);
+    // Oldest first out: cheaper than a strict LRU and just as good for a few hundred probes.
     if (resolvedCache.size > RESOLVED_CACHE_SIZE) resolvedCache.delete(resolvedCache.keys().next().value!);
     return dot;
   } catch (err) {

@@ -5,7 +5,7 @@
  * finite value (rank-deficient M, more probes than channels) it is null and a warning says why; never NaN or Infinity.
  */
 import { EPSILON, checkMatrix, checkVector, norm2 } from './linalg/matrix';
-import { svd } from './linalg/svd';
+import { svdOfColumns } from './linalg/svd';
 import { leastSquaresQr } from './linalg/qr';
 import { nnls } from './linalg/nnls';
 
@@ -28,10 +28,17 @@ function rankProblem(m: number[][], s: number[] | null, ids?: string[]): string 
   return null;
 }
 
-/** Columns scaled to unit 2-norm (zero columns left as they are). */
-function normaliseColumns(m: number[][]): { n: number[][]; norms: number[] } {
-  const norms = m[0].map((_, j) => norm2(m.map((row) => row[j])));
-  return { n: m.map((row) => row.map((v, j) => (norms[j] > 0 ? v / norms[j] : 0))), norms };
+/** Singular values and V of M with every column scaled to unit 2-norm (M has no zero column here). */
+function normalisedSvd(m: number[][], tolerance: number): { s: number[]; v: number[][] } {
+  const rows = m.length;
+  const columns = m[0].map((_, j) => {
+    const col = new Float64Array(rows);
+    for (let i = 0; i < rows; i++) col[i] = m[i][j];
+    const norm = norm2(col);
+    for (let i = 0; i < rows; i++) col[i] /= norm;
+    return col;
+  });
+  return svdOfColumns(columns, tolerance);
 }
 
 /**
@@ -46,7 +53,7 @@ export function unmixingDiagnostics(m: number[][], probeIds?: string[]): Unmixin
   if (early) return { ...nulls(), warnings: [early] };
   // |cos| ≤ 1e-12 between rotated columns bounds the relative error of κ and the gains near 1e-11: ample for a
   // diagnostic, and two or three Jacobi sweeps fewer than full precision.
-  const { s, v } = svd(normaliseColumns(m).n, 1e-12);
+  const { s, v } = normalisedSvd(m, 1e-12);
   const late = rankProblem(m, s);
   if (late) return { ...nulls(), warnings: [late] };
   const gains = v.map((row) => Math.sqrt(row.reduce((sum, vjk, k) => sum + (vjk * vjk) / (s[k] * s[k]), 0)));
@@ -74,7 +81,7 @@ function prepare(m: number[][], y: number[]): string | null {
   checkVector(y, rows, 'y');
   const problem = rankProblem(m, null);
   if (problem) return problem;
-  return rankProblem(m, svd(normaliseColumns(m).n).s);
+  return rankProblem(m, normalisedSvd(m, EPSILON).s);
 }
 
 /** Ordinary least-squares unmixing â = argmin ‖M a − y‖₂ (Householder QR); may give negative abundances. */

@@ -45,23 +45,30 @@ export function fillPassband(grid: WavelengthGrid, riseNm: number, fallNm: numbe
   const from = Math.max(0, riseFirst);
   const to = Math.min(count - 1, fallLast);
   if (floor !== 0) {
-    for (let i = 0; i < Math.min(from, count); i++) out[i] = floor;
-    for (let i = Math.max(to + 1, 0); i < count; i++) out[i] = floor;
+    out.fill(floor, 0, Math.min(Math.max(from, 0), count));
+    out.fill(floor, Math.max(to + 1, 0), count);
   }
   if (from > to) return out;
   // e1 = exp(−(λ − rise)/s) shrinks by q per step; e2 = exp((λ − fall)/s) grows by 1/q. Each is walked only inside
-  // its own window, so neither can overflow, nor crawl through subnormal numbers.
+  // its own window, so neither can overflow, nor crawl through subnormal numbers. Between the windows: the plateau.
   const q = Math.exp(-stepNm / scaleNm);
-  let e1 = from <= riseLast ? Math.exp(-(startNm + from * stepNm - riseNm) / scaleNm) : 0;
-  const e2Start = Math.max(from, fallFirst);
-  let e2 = e2Start <= to ? Math.exp((startNm + e2Start * stepNm - fallNm) / scaleNm) : 0;
+  const riseEnd = Math.min(riseLast, to);
+  const fallStart = Math.max(fallFirst, from);
+  let e1 = from <= riseEnd ? Math.exp(-(startNm + from * stepNm - riseNm) / scaleNm) : 0;
+  let e2 = fallStart <= to ? Math.exp((startNm + fallStart * stepNm - fallNm) / scaleNm) : 0;
   for (let i = from; i <= to; i++) {
+    if (i > riseEnd && i < fallStart) {
+      const plateauEnd = Math.min(fallStart, to + 1);
+      out.fill(floor + span, i, plateauEnd);
+      i = plateauEnd - 1;
+      continue;
+    }
     let v = 1;
-    if (i <= riseLast) {
+    if (i <= riseEnd) {
       v /= 1 + e1;
       e1 *= q;
     }
-    if (i >= fallFirst) {
+    if (i >= fallStart) {
       v /= 1 + e2;
       e2 /= q;
     }

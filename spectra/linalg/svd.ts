@@ -70,6 +70,23 @@ function orthogonaliseColumns(a: Float64Array[], v: Float64Array[], tolerance: n
 }
 
 /**
+ * Singular values (descending) and right singular vectors (V[j][k], column k belonging to s[k]) of a tall matrix
+ * given as its columns, which are overwritten. The lean path for diagnostics: no checks, no U.
+ */
+export function svdOfColumns(columns: Float64Array[], tolerance = EPSILON): { s: number[]; v: number[][] } {
+  const n = columns.length;
+  const v = columns.map((_, j) => {
+    const e = new Float64Array(n);
+    e[j] = 1;
+    return e;
+  });
+  orthogonaliseColumns(columns, v, tolerance);
+  const sigma = columns.map((col) => Math.sqrt(col.reduce((sum, x) => sum + x * x, 0)));
+  const order = sigma.map((_, j) => j).sort((x, y) => sigma[y] - sigma[x]);
+  return { s: order.map((j) => sigma[j]), v: Array.from({ length: n }, (_, i) => order.map((j) => v[j][i])) };
+}
+
+/**
  * Thin SVD of a non-empty finite matrix. Zero singular values get a zero U column. Rotation stops once every pair of
  * columns has |cos angle| ≤ `tolerance` (default ε); the singular values are then accurate to about
  * (cols − 1) × tolerance relative (Demmel & Veselić 1992, from memory), so a diagnostic may pass e.g. 1e-12 to save sweeps.

@@ -4,6 +4,7 @@ import {
   DEFAULT_GRID,
   SpectraError,
   channelTransmission,
+  clearResolvedDotCache,
   conditionNumber,
   evaluatePanel,
   makeGrid,
@@ -211,6 +212,19 @@ describe('evaluatePanel: bad input', () => {
     panel.probes[3] = { ...panel.probes[3], emissionPeakNm: 900 };
     const err = errorOf(() => evaluatePanel(panel));
     expect(err.path).toEqual(['probes', 3, 'emissionPeakNm']);
+  });
+});
+
+describe('evaluatePanel: resolved-dot cache', () => {
+  it('evaluatePanel gives the same result from its cache, and a forged material string still fails as unknown', () => {
+    const panel = fourProbePanel();
+    clearResolvedDotCache();
+    const cold = evaluatePanel(panel);
+    const warm = evaluatePanel(panel);
+    expect(warm).toEqual(cold);
+    const forged = fourProbePanel();
+    forged.probes[0] = { id: 'x', material: 'cdse emissionPeakNm=525' as 'cdse', quantumYield: 0.6 };
+    expect(errorOf(() => evaluatePanel(forged)).path).toEqual(['probes', 0, 'material']);
   });
 });
 
