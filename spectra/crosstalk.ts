@@ -8,6 +8,7 @@
  */
 import type { ChannelSpec, ExcitationLine } from './panel';
 import { SpectraError } from './errors';
+import { channelSupport, partialSums, windowDot, type ChannelSupport } from './linalg/runs';
 
 /** One emission spectrum of a probe and its weight in each channel (Σ powerRel × ε × QY × abundance over lines on). */
 export interface EmissionComponent {
@@ -40,108 +41,21 @@ export function linesOn(channel: ChannelSpec, lines: ExcitationLine[], path: (st
   }))].sort((a, b) => a - b);
 }
 
-/** Σ a[i] b[i] × stepNm, four partial sums (independent add chains run about twice as fast). */
-export function overlap(a: Float64Array, b: Float64Array, stepNm: number): number {
-  return windowDot(a, b, 0, a.length) * stepNm;
-}
-
-function windowDot(a: Float64Array, b: Float64Array, from: number, to: number): number {
-  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
-  let i = from;
-  for (; i + 3 < to; i += 4) {
-    s0 += a[i] * b[i];
-    s1 += a[i + 1] * b[i + 1];
-    s2 += a[i + 2] * b[i + 2];
-    s3 += a[i + 3] * b[i + 3];
-  }
-  for (; i < to; i++) s0 += a[i] * b[i];
-  return s0 + s1 + s2 + s3;
-}
-
-/**
- * A channel's transmission split into a constant run on the left (value `left` below index `first`), a window
- * [first, end) and a constant run on the right (`right` from `end` on). Filters sit at their exact blocking floor far
- * from their edges, so most of the grid lies in the two runs, whose overlap with any emission is one partial sum.
- */
-export interface ChannelSupport {
-  t: Float64Array;
-  first: number;
-  end: number;
-  left: number;
-  right: number;
-}
-
-/** Finds the constant runs at both ends of a transmission (exact equality: the split changes no result). */
-export function channelSupport(t: Float64Array): ChannelSupport {
-  const n = t.length;
-  let first = 0;
-  while (first < n && t[first] === t[0]) first++;
-  let end = n;
-  while (end > first && t[end - 1] === t[n - 1]) end--;
-  return { t, first, end, left: t[0], right: t[n - 1] };
-}
-
-function windowSum(a: Float64Array, from: number, to: number): number {
-  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
-  let i = from;
-  for (; i + 3 < to; i += 4) {
-    s0 += a[i];
-    s1 += a[i + 1];
-    s2 += a[i + 2];
-    s3 += a[i + 3];
-  }
-  for (; i < to; i++) s0 += a[i];
-  return s0 + s1 + s2 + s3;
-}
-
-/** Channel supports plus the order in which their left runs end (ascending) and right runs start (descending). */
-export interface OverlapPlan {
-  supports: ChannelSupport[];
-  byFirst: number[];
-  byEnd: number[];
-}
-
-/** Prepares the channels of a panel for collectedColumn. */
-export function overlapPlan(transmissions: Float64Array[]): OverlapPlan {
-  const supports = transmissions.map(channelSupport);
-  const order = supports.map((_, c) => c);
-  return {
-    supports,
-    byFirst: order.slice().sort((a, b) => supports[a].first - supports[b].first),
-    byEnd: order.slice().sort((a, b) => supports[b].end - supports[a].end),
-  };
-}
-
 /**
  * One probe's column of collected (one value per channel), Σλ em T Δλ taken over each channel's runs and window.
  * The emission's sums over the left runs are accumulated from the blue end, those over the right runs from the red
  * end, so a tiny tail is never the difference of two large sums (it matters against a 10^-12 blocking floor).
+ * Emission arrays must not be changed after their first use here (their partial sums are kept).
  */
-export function collectedColumn(components: EmissionComponent[], plan: OverlapPlan, stepNm: number): number[] {
-  const { supports, byFirst, byEnd } = plan;
+export function collectedColumn(components: EmissionComponent[], supports: ChannelSupport[], stepNm: number): number[] {
   const column = new Array<number>(supports.length).fill(0);
-  const leftSum = new Float64Array(supports.length);
-  const rightSum = new Float64Array(supports.length);
   for (const { emission, weightByChannel } of components) {
-    let acc = 0;
-    let at = 0;
-    for (const c of byFirst) {
-      acc += windowSum(emission, at, supports[c].first);
-      at = supports[c].first;
-      leftSum[c] = acc;
-    }
-    acc = 0;
-    at = emission.length;
-    for (const c of byEnd) {
-      acc += windowSum(emission, supports[c].end, at);
-      at = supports[c].end;
-      rightSum[c] = acc;
-    }
+    const { prefix, suffix } = partialSums(emission);
     for (let c = 0; c < supports.length; c++) {
       const w = weightByChannel[c];
       if (w === 0) continue;
       const { t, first, end, left, right } = supports[c];
-      column[c] += w * (left * leftSum[c] + windowDot(emission, t, first, end) + right * rightSum[c]) * stepNm;
+      column[c] += w * (left * prefix[first] + windowDot(emission, t, first, end) + right * suffix[end]) * stepNm;
     }
   }
   return column;
@@ -149,8 +63,8 @@ export function collectedColumn(components: EmissionComponent[], plan: OverlapPl
 
 /** collected[c][p] for every channel and probe. */
 export function collectedMatrix(probes: EmissionComponent[][], transmissions: Float64Array[], stepNm: number): number[][] {
-  const plan = overlapPlan(transmissions);
-  const columns = probes.map((components) => collectedColumn(components, plan, stepNm));
+  const supports = transmissions.map(channelSupport);
+  const columns = probes.map((components) => collectedColumn(components, supports, stepNm));
   return transmissions.map((_, c) => columns.map((col) => col[c]));
 }
 

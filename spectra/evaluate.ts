@@ -9,7 +9,8 @@ import { SpectraError } from './errors';
 import { resolveDot, extinctionAtNm, type DotInput, type ResolvedDot } from './dot';
 import { channelTransmission } from './filters/channel';
 import { backgroundEmission } from './background';
-import { collectedMatrix, crosstalkFigures, linesOn, overlap, type EmissionComponent, type WorstInterference } from './crosstalk';
+import { collectedMatrix, crosstalkFigures, linesOn, type EmissionComponent, type WorstInterference } from './crosstalk';
+import { overlap } from './linalg/runs';
 import { unmixingDiagnostics } from './unmix';
 import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
 

@@ -4,7 +4,8 @@
  * The probe's emission is translated along the wavelength axis with its shape and its extinction at the lines
  * unchanged: a first-order model of a lot shift (a real shift also changes the width and the absorption a little).
  */
-import { overlapPlan, collectedColumn, crosstalkFigures, type EmissionComponent } from './crosstalk';
+import { collectedColumn, crosstalkFigures, type EmissionComponent } from './crosstalk';
+import { channelSupport } from './linalg/runs';
 
 /** Default peak shift for the lot-to-lot check, nm (common practice). */
 export const LOT_SHIFT_NM = 5;
@@ -62,11 +63,11 @@ export function lotShiftSensitivity(
     worstInterference: null,
     worstSpillover: null,
   };
-  const plan = overlapPlan(transmissions);
+  const supports = transmissions.map(channelSupport);
   probes.forEach((components, p) => {
     for (const signed of [shiftNm, -shiftNm]) {
       const moved = components.map((c) => ({ ...c, emission: shiftEmission(c.emission, signed, stepNm) }));
-      const column = collectedColumn(moved, plan, stepNm);
+      const column = collectedColumn(moved, supports, stepNm);
       const shifted = collected.map((row, c) => row.map((v, q) => (q === p ? column[c] : v)));
       const figures = crosstalkFigures(shifted, assigned, probeIds, channelIds);
       const w = figures.worst;
