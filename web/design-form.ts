@@ -1,0 +1,207 @@
+/**
+ * <qdp-design-form>: asks for targets (with abundances), excitation lines, material limits and a window, runs the
+ * design search in a Web Worker (progress, stop, cancel), shows the objective and the predicted unmixing noise, and
+ * fires a bubbling, composed `panel-proposed` event with {panel, evaluation, objective, exact, stats} so the app
+ * loads the proposal as an editable panel. With `candidates` set it can search only those (catalog mode, exact).
+ */
+import { LitElement, css, html } from 'lit';
+import { customElement, property, state } from 'lit/decorators.js';
+import { listMaterials, type DesignOptions, type DesignRequest, type DesignResult, type SearchProgress } from '../spectra/index';
+import type { DesignWorkerMessage } from './design-worker';
+
+/** An abundance as typed: a word passes as is, anything else as a number (the library names a bad one). */
+function abundanceInput(text: string): number | 'high' | 'medium' | 'low' {
+  const word = text.trim().toLowerCase();
+  return word === 'high' || word === 'medium' || word === 'low' ? word : Number(word);
+}
+
+/** "405, 488" → excitation lines; throws a sentence naming the field when a value is not a number. */
+function excitationLines(text: string): { wavelengthNm: number }[] {
+  const parts = text.split(/[\s,;]+/).filter(Boolean);
+  if (parts.length === 0 || parts.some((p) => !Number.isFinite(Number(p)))) throw new Error('excitation lines must be numbers in nm, e.g. 405, 488');
+  return parts.map((p) => ({ wavelengthNm: Number(p) }));
+}
+
+/** A fraction as a percentage with three significant figures. */
+const percent = (x: number) => `${(100 * x).toPrecision(3)} %`;
+
+interface TargetRow {
+  name: string;
+  abundance: string;
+}
+
+const EXCLUSIONS = [
+  ['cadmium', 'cadmium-free'],
+  ['lead', 'lead-free'],
+  ['arsenic', 'arsenic-free'],
+] as const;
+
+const MATERIALS = listMaterials().filter((m) => m.id !== 'custom');
+
+@customElement('qdp-design-form')
+export class DesignForm extends LitElement {
+  /** Probes and channels to choose from (catalog mode); absent: free mode only. */
+  @property({ attribute: false }) candidates?: DesignRequest['candidates'];
+  /** Extra search options passed with every request (e.g. a node budget). */
+  @property({ attribute: false }) options: DesignOptions = {};
+
+  @state() private targets: TargetRow[] = [{ name: 'target 1', abundance: 'high' }, { name: 'target 2', abundance: 'low' }];
+  @state() private excitationText = '405';
+  @state() private exclude = new Set<string>();
+  @state() private allowed = new Set<string>(MATERIALS.map((m) => m.id));
+  @state() private windowNm: [number, number] = [400, 800];
+  @state() private useCandidates = true;
+  @state() private running = false;
+  @state() private progress: SearchProgress | null = null;
+  @state() private status = '';
+  @state() private error = '';
+  @state() private result: DesignResult | null = null;
+  private worker: Worker | null = null;
+
+  static override styles = css`
+    :host { display: block; font-size: 0.9rem; }
+    fieldset { border: 1px solid #ccd; margin: 0.4rem 0; }
+    .row { display: flex; gap: 0.4rem; align-items: center; margin: 0.2rem 0; }
+    input[type='text'], input[type='number'] { width: 8rem; }
+    .error { color: #8b1a1a; font-weight: 600; }
+    table { border-collapse: collapse; } td, th { padding: 0.1rem 0.5rem; text-align: right; } th:first-child, td:first-child { text-align: left; }
+    button:focus-visible, input:focus-visible { outline: 3px solid #1a56db; }
+  `;
+
+  override disconnectedCallback(): void {
+    super.disconnectedCallback();
+    this.worker?.terminate();
+    this.worker = null;
+  }
+
+  private request(): DesignRequest {
+    const request: DesignRequest = {
+      targets: this.targets.map((t) => ({ name: t.name.trim(), abundance: abundanceInput(t.abundance) })),
+      excitation: excitationLines(this.excitationText),
+      options: { ...this.options },
+    };
+    if (this.candidates && this.useCandidates) return { ...request, candidates: this.candidates };
+    return { ...request, exclude: [...this.exclude] as DesignRequest['exclude'], allowedMaterials: [...this.allowed] as DesignRequest['allowedMaterials'], windowNm: this.windowNm };
+  }
+
+  /** Starts the search in a fresh worker. */
+  propose(): void {
+    this.cancel(false);
+    this.error = '';
+    this.result = null;
+    let request: DesignRequest;
+    try {
+      request = this.request();
+    } catch (err) {
+      this.error = (err as Error).message;
+      return;
+    }
+    const worker = new Worker(new URL('./design-worker.ts', import.meta.url), { type: 'module' });
+    this.worker = worker;
+    this.running = true;
+    this.status = 'starting';
+    worker.onmessage = (event: MessageEvent<DesignWorkerMessage>) => this.receive(event.data);
+    worker.onerror = () => this.finish('', 'the design worker could not run');
+    worker.postMessage({ type: 'run', request });
+  }
+
+  /** Asks the search to stop and keep the best design found so far. */
+  stop(): void {
+    this.worker?.postMessage({ type: 'stop' });
+    this.status = 'stopping…';
+  }
+
+  /** Ends the search now (terminates the worker); nothing is proposed. */
+  cancel(show = true): void {
+    if (!this.worker) return;
+    this.worker.terminate();
+    this.worker = null;
+    this.running = false;
+    if (show) this.status = 'cancelled';
+  }
+
+  private finish(status: string, error = ''): void {
+    this.worker?.terminate();
+    this.worker = null;
+    this.running = false;
+    this.status = status;
+    this.error = error;
+  }
+
+  private receive(message: DesignWorkerMessage): void {
+    if (message.type === 'progress') {
+      this.progress = message.progress;
+      this.status = message.progress.stage;
+      return;
+    }
+    if (message.type === 'error') {
+      const where = message.error.path.length ? ` (${message.error.path.join('.')})` : '';
+      this.finish('failed', `${message.error.message}${where}`);
+      return;
+    }
+    const { panel, evaluation, objective, exact, stats } = message.result;
+    this.result = message.result;
+    this.finish('done');
+    this.dispatchEvent(new CustomEvent('panel-proposed', { detail: { panel, evaluation, objective, exact, stats }, bubbles: true, composed: true }));
+  }
+
+  private setTarget(i: number, field: keyof TargetRow, value: string): void {
+    this.targets = this.targets.map((t, k) => (k === i ? { ...t, [field]: value } : t));
+  }
+
+  private toggle(set: Set<string>, id: string, on: boolean): Set<string> {
+    const next = new Set(set);
+    if (on) next.add(id);
+    else next.delete(id);
+    return next;
+  }
+
+  override render() {
+    const free = !(this.candidates && this.useCandidates);
+    return html`
+      <fieldset><legend>Targets (abundance: a number, or high / medium / low)</legend>
+        ${this.targets.map((t, i) => html`<div class="row">
+          <input type="text" aria-label="target name" .value=${t.name} @input=${(e: Event) => this.setTarget(i, 'name', (e.target as HTMLInputElement).value)} />
+          <input type="text" aria-label="abundance" list="abundance-words" .value=${t.abundance} @input=${(e: Event) => this.setTarget(i, 'abundance', (e.target as HTMLInputElement).value)} />
+          <button type="button" @click=${() => (this.targets = this.targets.filter((_, k) => k !== i))} ?disabled=${this.targets.length <= 1}>Remove</button></div>`)}
+        <datalist id="abundance-words"><option value="high"></option><option value="medium"></option><option value="low"></option></datalist>
+        <button type="button" @click=${() => (this.targets = [...this.targets, { name: `target ${this.targets.length + 1}`, abundance: 'medium' }])} ?disabled=${this.targets.length >= 16}>Add target</button>
+      </fieldset>
+      <label>Excitation lines, nm <input type="text" aria-label="excitation lines" .value=${this.excitationText} @input=${(e: Event) => (this.excitationText = (e.target as HTMLInputElement).value)} /></label>
+      ${this.candidates ? html`<label><input type="checkbox" .checked=${this.useCandidates} @change=${(e: Event) => (this.useCandidates = (e.target as HTMLInputElement).checked)} /> choose only from the current panel's probes and channels</label>` : ''}
+      <fieldset ?disabled=${!free}><legend>Free design</legend>
+        ${EXCLUSIONS.map(([id, label]) => html`<label><input type="checkbox" .checked=${this.exclude.has(id)} @change=${(e: Event) => (this.exclude = this.toggle(this.exclude, id, (e.target as HTMLInputElement).checked))} /> ${label}</label> `)}
+        <div>Materials: ${MATERIALS.map((m) => html`<label><input type="checkbox" .checked=${this.allowed.has(m.id)} @change=${(e: Event) => (this.allowed = this.toggle(this.allowed, m.id, (e.target as HTMLInputElement).checked))} /> ${m.name}</label> `)}</div>
+        <label>Window, nm <input type="number" aria-label="window start" .value=${String(this.windowNm[0])} @change=${(e: Event) => (this.windowNm = [Number((e.target as HTMLInputElement).value), this.windowNm[1]])} />
+          – <input type="number" aria-label="window end" .value=${String(this.windowNm[1])} @change=${(e: Event) => (this.windowNm = [this.windowNm[0], Number((e.target as HTMLInputElement).value)])} /></label>
+      </fieldset>
+      <div class="row">
+        <button type="button" @click=${() => this.propose()} ?disabled=${this.running}>Propose</button>
+        <button type="button" @click=${() => this.stop()} ?disabled=${!this.running}>Stop and keep best</button>
+        <button type="button" @click=${() => this.cancel()} ?disabled=${!this.running}>Cancel</button>
+        <output aria-live="polite" class="progress">${this.status}${this.progress && this.running ? html` · ${this.progress.nodesVisited.toLocaleString('en')} ${this.progress.stage === 'refine' ? 'refinement steps' : 'nodes visited'}${this.progress.incumbent !== null ? ` · best so far ${percent(this.progress.incumbent)}` : ''}` : ''}</output>
+      </div>
+      ${this.error ? html`<p class="error" role="alert">${this.error}</p>` : ''}
+      ${this.result ? this.renderResult(this.result) : ''}
+      <p>Proposals can include cadmium- or lead-containing dots unless excluded: read the material notes. Handle nanoparticles and excitation lasers as your local regulations, institutional safety rules and licensed practice require.</p>
+    `;
+  }
+
+  private renderResult(r: DesignResult) {
+    const o = r.objective;
+    const pair = o.fromTarget ? ` (${o.fromTarget} into ${o.intoTarget})` : '';
+    const proof = r.exact ? (r.mode === 'free' ? 'optimal over the stated grid catalog' : 'proven optimal over the candidates') : `best found; lower bound ${r.stats.bound === null ? 'none yet' : percent(r.stats.bound)}`;
+    return html`<section class="result">
+      <p class="objective">Worst interference ${percent(o.worstInterference)}${pair}: ${proof}. ${r.stats.nodesVisited.toLocaleString('en')} nodes visited of ${r.stats.fullEnumeration.toExponential(1)} complete assignments.</p>
+      <table><caption>Predicted unmixing noise (${r.noise.photons[0]} photons per target at abundance 1)</caption>
+        <tr><th>target</th><th>abundance</th><th>SD</th><th>S/N</th></tr>
+        ${r.panel.probes.map((p, i) => html`<tr><td>${p.target}</td><td>${p.abundance}</td><td>${r.noise.sd[i]?.toPrecision(3) ?? '—'}</td><td>${r.noise.signalToNoise[i]?.toPrecision(3) ?? '—'}</td></tr>`)}
+      </table></section>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'qdp-design-form': DesignForm;
+  }
+}
