@@ -215,22 +215,22 @@ export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT
 }
 
 /** Replaces any non-finite number in place by null, with a warning naming where (a guard; none is expected). */
-function makeJsonSafe(value: unknown, path: (string | number)[], warnings: string[]): unknown {
-  if (typeof value === 'number') {
-    if (value - value === 0) return value; // false for NaN and ±Infinity
-    warnings.push(`${path.join('.')} has no finite value and is reported as null`);
-    return null;
-  }
-  if (value === null || typeof value !== 'object' || ArrayBuffer.isView(value)) return value;
+function makeJsonSafe(value: object, path: (string | number)[], warnings: string[]): void {
   const record = value as Record<string | number, unknown>;
-  for (const key of Array.isArray(value) ? value.keys() : Object.keys(value)) {
+  const visit = (key: string | number) => {
     const item = record[key];
-    if (typeof item === 'number' && item - item === 0) continue;
-    path.push(key);
-    record[key] = makeJsonSafe(item, path, warnings);
-    path.pop();
-  }
-  return value;
+    if (typeof item === 'number') {
+      if (item - item === 0) return; // false only for NaN and ±Infinity
+      record[key] = null;
+      warnings.push(`${[...path, key].join('.')} has no finite value and is reported as null`);
+    } else if (item !== null && typeof item === 'object' && !ArrayBuffer.isView(item)) {
+      path.push(key);
+      makeJsonSafe(item, path, warnings);
+      path.pop();
+    }
+  };
+  if (Array.isArray(value)) for (let i = 0; i < value.length; i++) visit(i);
+  else for (const key in value) visit(key);
 }
 
 /**
@@ -273,7 +273,8 @@ export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid
       return null;
     });
   }
-  return makeJsonSafe(evaluation, [], warnings) as PanelEvaluation;
+  makeJsonSafe(evaluation, [], warnings);
+  return evaluation;
 }
 
 /** Spectra for charting, as plain arrays on the grid (index i ↔ startNm + i × stepNm). */

@@ -4,7 +4,8 @@
  * them, 1 nm grid 300–1000 nm, collected + spillover + condition number. Target: at most half numpy's time.
  * Rows: warm (resolved dots cached, everything else recomputed: the usual case when a panel is edited or a design
  * search re-evaluates the same probes), cold (dot cache emptied before every run, so 8 resolveDot calls are included),
- * with the lot-shift check, 16 × 16, a 32-bin spectral detector, and one resolveDot.
+ * with the lot-shift check, 16 × 16, a 32-bin spectral detector, and one resolveDot. The machine is shared, so numpy
+ * and the two 8 × 8 rows run in alternating rounds and the best round of each is compared.
  */
 import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
@@ -38,6 +39,19 @@ function runNumpy(): { medianUs: number | null; note: string } {
   }
 }
 
+/** Median ms of each task of a fresh tinybench run. */
+async function medians(tasks: [string, () => void][], timeMs: number): Promise<BenchRow[]> {
+  const bench = new Bench({ time: timeMs, warmupTime: 200 });
+  for (const [name, fn] of tasks) bench.add(name, fn);
+  await bench.run();
+  return bench.tasks.map((task) => {
+    const r = task.result as unknown as { latency?: { p50: number; min: number; max: number; samplesCount?: number } } | undefined;
+    return { suite: 'spectra', name: task.name, medianMs: r?.latency?.p50 ?? null, minMs: r?.latency?.min ?? null, maxMs: r?.latency?.max ?? null, samples: r?.latency?.samplesCount };
+  });
+}
+
+const ROUNDS = 3;
+
 export default async function spectraSuite(): Promise<BenchRow[]> {
   const panel8 = panelFor([490, 525, 565, 605, 640, 680, 715, 665], 24);
   const panel16 = panelFor(Array.from({ length: 16 }, (_, i) => 470 + 20 * i), 16);
@@ -45,41 +59,51 @@ export default async function spectraSuite(): Promise<BenchRow[]> {
     ...panel8,
     channels: Array.from({ length: 32 }, (_, i) => ({ id: `bin${i}`, filters: [{ type: 'bandpass' as const, centerNm: 455 + 10 * i, widthNm: 10, edgeWidthNm: 1 }] })),
   };
-  const numpyBefore = runNumpy();
-  const bench = new Bench({ time: 2000, warmupTime: 300 });
-  bench
-    .add('evaluatePanel 8x8 warm (dots cached, no lot shift)', () => void evaluatePanel(panel8, { sensitivity: false }))
-    .add('evaluatePanel 8x8 cold (8 resolveDot, no lot shift)', () => {
+  const paired: [string, () => void][] = [
+    ['evaluatePanel 8x8 warm (dots cached, no lot shift)', () => void evaluatePanel(panel8, { sensitivity: false })],
+    ['evaluatePanel 8x8 cold (8 resolveDot, no lot shift)', () => {
       clearResolvedDotCache();
       evaluatePanel(panel8, { sensitivity: false });
-    })
-    .add('evaluatePanel 8x8 warm with lot-shift sensitivity', () => void evaluatePanel(panel8))
-    .add('evaluatePanel 16x16 warm (no lot shift)', () => void evaluatePanel(panel16, { sensitivity: false }))
-    .add('evaluatePanel 8 probes x 32-bin spectral detector warm', () => void evaluatePanel(spectral, { sensitivity: false }))
-    .add('resolveDot cdse 605 nm', () => void resolveDot({ material: 'cdse', emissionPeakNm: 605, quantumYield: 0.5 }));
-  await bench.run();
-  const numpyAfter = runNumpy();
-  const numpyUs = numpyBefore.medianUs !== null && numpyAfter.medianUs !== null ? (numpyBefore.medianUs + numpyAfter.medianUs) / 2 : null;
-  const rows: BenchRow[] = bench.tasks.map((task) => {
-    const r = task.result as unknown as { latency: { p50: number; min: number; max: number; samplesCount?: number }; samples?: number[] } | undefined;
-    const medianMs = r?.latency?.p50 ?? null;
-    const ratio = numpyUs !== null && medianMs !== null && task.name.includes('8x8') && !task.name.includes('lot-shift') ? (medianMs * 1000) / numpyUs : null;
+    }],
+  ];
+  // The machine is shared: alternate numpy and our runs, and compare the best round of each (least disturbed).
+  const numpyUs: number[] = [];
+  const ours: BenchRow[][] = [];
+  let numpyNote = '';
+  for (let round = 0; round < ROUNDS; round++) {
+    const numpy = runNumpy();
+    numpyNote = numpy.note;
+    if (numpy.medianUs !== null) numpyUs.push(numpy.medianUs);
+    ours.push(await medians(paired, 1000));
+  }
+  const bestNumpyUs = numpyUs.length > 0 ? Math.min(...numpyUs) : null;
+  const rows: BenchRow[] = paired.map(([name], k) => {
+    const perRound = ours.map((round) => round[k]);
+    const best = perRound.reduce((a, b) => ((b.medianMs ?? Infinity) < (a.medianMs ?? Infinity) ? b : a));
+    const ratio = bestNumpyUs !== null && best.medianMs !== null ? (best.medianMs * 1000) / bestNumpyUs : null;
     return {
-      suite: 'spectra',
-      name: task.name,
-      medianMs,
-      minMs: r?.latency?.min ?? null,
-      maxMs: r?.latency?.max ?? null,
-      samples: r?.latency?.samplesCount,
-      extra: ratio === null ? undefined : { ratioToNumpy: Number(ratio.toFixed(3)), target: '<= 0.5' },
+      ...best,
+      note: `best of ${ROUNDS} rounds; round medians ${perRound.map((r) => (r.medianMs === null ? '—' : (r.medianMs * 1000).toFixed(1))).join(' / ')} us`,
+      extra: ratio === null ? { ratioToNumpy: null, target: '<= 0.5' } : { ratioToNumpy: Number(ratio.toFixed(3)), target: '<= 0.5' },
     };
   });
   rows.push({
     suite: 'spectra',
-    name: 'numpy evaluate 8x8 (same run, before and after)',
-    medianMs: numpyUs === null ? null : numpyUs / 1000,
-    extra: { beforeUs: numpyBefore.medianUs, afterUs: numpyAfter.medianUs },
-    note: numpyUs === null ? numpyBefore.note : 'python3 numpy_evaluate.py',
+    name: 'numpy evaluate 8x8 (same run, alternating rounds)',
+    medianMs: bestNumpyUs === null ? null : bestNumpyUs / 1000,
+    extra: { roundsUs: numpyUs.map((u) => u.toFixed(1)).join(' / ') || null },
+    note: bestNumpyUs === null ? numpyNote : 'best of the rounds of python3 numpy_evaluate.py',
   });
+  rows.push(
+    ...(await medians(
+      [
+        ['evaluatePanel 8x8 warm with lot-shift sensitivity', () => void evaluatePanel(panel8)],
+        ['evaluatePanel 16x16 warm (no lot shift)', () => void evaluatePanel(panel16, { sensitivity: false })],
+        ['evaluatePanel 8 probes x 32-bin spectral detector warm', () => void evaluatePanel(spectral, { sensitivity: false })],
+        ['resolveDot cdse 605 nm', () => void resolveDot({ material: 'cdse', emissionPeakNm: 605, quantumYield: 0.5 })],
+      ],
+      1500,
+    )),
+  );
   return rows;
 }

@@ -50,30 +50,22 @@ export function fillPassband(grid: WavelengthGrid, riseNm: number, fallNm: numbe
   }
   if (from > to) return out;
   // e1 = exp(−(λ − rise)/s) shrinks by q per step; e2 = exp((λ − fall)/s) grows by 1/q. Each is walked only inside
-  // its own window, so neither can overflow, nor crawl through subnormal numbers. Between the windows: the plateau.
+  // its own window (so neither overflows nor crawls through subnormal numbers): rising edge alone, both edges where
+  // the windows overlap, falling edge alone, and the plateau between windows that do not overlap.
   const q = Math.exp(-stepNm / scaleNm);
   const riseEnd = Math.min(riseLast, to);
   const fallStart = Math.max(fallFirst, from);
   let e1 = from <= riseEnd ? Math.exp(-(startNm + from * stepNm - riseNm) / scaleNm) : 0;
   let e2 = fallStart <= to ? Math.exp((startNm + fallStart * stepNm - fallNm) / scaleNm) : 0;
-  for (let i = from; i <= to; i++) {
-    if (i > riseEnd && i < fallStart) {
-      const plateauEnd = Math.min(fallStart, to + 1);
-      out.fill(floor + span, i, plateauEnd);
-      i = plateauEnd - 1;
-      continue;
-    }
-    let v = 1;
-    if (i <= riseEnd) {
-      v /= 1 + e1;
-      e1 *= q;
-    }
-    if (i >= fallStart) {
-      v /= 1 + e2;
-      e2 /= q;
-    }
-    out[i] = floor + span * v;
+  const riseOnlyEnd = Math.min(riseEnd, fallStart - 1);
+  let i = from;
+  for (; i <= riseOnlyEnd; i++, e1 *= q) out[i] = floor + span / (1 + e1);
+  if (i < fallStart) {
+    out.fill(floor + span, i, fallStart);
+    i = fallStart;
   }
+  for (; i <= riseEnd; i++, e1 *= q, e2 /= q) out[i] = floor + span / ((1 + e1) * (1 + e2));
+  for (; i <= to; i++, e2 /= q) out[i] = floor + span / (1 + e2);
   return out;
 }
 
