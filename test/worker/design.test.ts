@@ -32,7 +32,7 @@ describe('POST /api/v1/panels/design', () => {
   it('POST /panels/design (catalog) returns an exact design whose evaluation reproduces the objective', async () => {
     const res = await design(catalogRequest());
     expect(res.status).toBe(200);
-    const body = await res.json();
+    const body = (await res.json()) as any;
     expect(body.exact).toBe(true);
     expect(body.panel.probes).toHaveLength(4);
     expect(body.stats.nodesVisited).toBeGreaterThan(0);
@@ -42,7 +42,7 @@ describe('POST /api/v1/panels/design', () => {
     // So does the library run here in Node on the proposed panel; another engine's Math functions and the sizing
     // law's iterative inversion allow a relative 1e-6.
     const again = evaluatePanel(body.panel);
-    expect(Math.abs(again.worst.interference / body.objective.worstInterference - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(again.worst.interference! / body.objective.worstInterference - 1)).toBeLessThan(1e-6);
     expect([body.objective.from, body.objective.into]).toEqual([again.worst.from, again.worst.into]);
     for (const probe of body.panel.probes) expect(body.panel.channels.map((c: { id: string }) => c.id)).toContain(probe.channel);
     expect(body.noise.sd).toHaveLength(4);
@@ -50,8 +50,8 @@ describe('POST /api/v1/panels/design', () => {
   });
 
   it('POST /panels/design with nodeBudget 1 answers exact false with a bound no higher than the exact objective', async () => {
-    const exact = await (await design(catalogRequest())).json();
-    const cut = await (await design({ ...catalogRequest(), options: { nodeBudget: 1 } })).json();
+    const exact = (await (await design(catalogRequest())).json()) as any;
+    const cut = (await (await design({ ...catalogRequest(), options: { nodeBudget: 1 } })).json()) as any;
     expect(cut.exact).toBe(false);
     expect(cut.stats.bound).toBeLessThanOrEqual(exact.objective.worstInterference + 1e-15);
     expect(cut.objective.worstInterference).toBeGreaterThanOrEqual(exact.objective.worstInterference - 1e-15);
@@ -67,7 +67,7 @@ describe('POST /api/v1/panels/design', () => {
       options: { nodeBudget: 2000 },
     });
     expect(res.status).toBe(200);
-    const body = await res.json();
+    const body = (await res.json()) as any;
     expect(body.panel.probes.some((p: { material: string }) => ['cdse', 'cdte', 'cds'].includes(p.material))).toBe(false);
     const bands = body.panel.channels.map((c: { filters: { centerNm: number; widthNm: number }[] }) => c.filters[0]);
     for (let i = 0; i < bands.length; i++) {
