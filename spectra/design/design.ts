@@ -14,7 +14,8 @@ import { designNoise } from './design-noise';
 import { worstInterference } from './objective';
 import { resolveOptions } from './options';
 import { freeProbes } from './refine';
-import { normalizeTargets, normalizeWindow, type DesignRequest } from './request';
+import { EXCLUSION_ELEMENTS, normalizeTargets, normalizeWindow, type DesignRequest } from './request';
+import { getMaterial } from '../materials/table';
 import { runSteps, runStepsAsync, type SearchProgress } from './search';
 
 /** The design objective as the API reports it: probe ids and target names of the pair that sets it. */
@@ -90,6 +91,13 @@ export function* designSteps(request: DesignRequest, shouldStop?: () => boolean)
   };
   const noise = designNoise(evaluation, abundance, o);
   const warnings = [...noise.warnings];
+  for (const id of new Set(panel.probes.map((p) => p.material))) {
+    const m = getMaterial(id);
+    const hazards = Object.entries(EXCLUSION_ELEMENTS).filter(([, el]) => m.elements.includes(el)).map(([word]) => word);
+    if (hazards.length) {
+      warnings.push(`the proposal uses ${m.name}, which contains ${hazards.join(' and ')}: see its cautions (GET /api/v1/materials) and handle it as local regulations, institutional safety rules and licensed practice require`);
+    }
+  }
   if (!exact) warnings.push('the search stopped at its node budget: the design is the best found, not proven optimal (see stats.bound)');
   return { mode: free ? 'free' : 'catalog', panel, evaluation, objective, exact, stats, noise, warnings };
 }

@@ -30,6 +30,7 @@ describe('runDesign', () => {
         channels: [560, 600].map((nm) => ({ id: `bp${nm}`, filters: [{ type: 'bandpass' as const, centerNm: nm, widthNm: 20 }] })),
       },
     });
+    expect(result.warnings.join(' ')).toMatch(/contains cadmium.*local regulations, institutional safety rules and licensed practice/);
     const byTarget = Object.fromEntries(result.panel.probes.map((p) => [p.target, p]));
     expect(byTarget.rare.quantumYield).toBe(0.8);
     expect(byTarget.common.quantumYield).toBe(0.2);
