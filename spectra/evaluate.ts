@@ -147,6 +147,15 @@ function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, excitat
   }
 }
 
+/** Per channel, the summed weight of the lines on in it (only line `only` when given). */
+function channelWeights(linesOnByChannel: number[][], lineWeight: number[], only: number | null): Float64Array {
+  const w = new Float64Array(linesOnByChannel.length);
+  for (let c = 0; c < linesOnByChannel.length; c++) {
+    for (const k of linesOnByChannel[c]) if (only === null || k === only) w[c] += lineWeight[k];
+  }
+  return w;
+}
+
 /** Validates the panel and resolves probes, channels and background on the grid. */
 export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT_GRID): PanelModel {
   checkPanelShape(panel);
@@ -190,20 +199,13 @@ export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT
       warnings: dot.warnings.slice(),
     };
     probeEvaluations.push(evaluation);
-    const weightsFor = (l: number | null) => {
-      const w = new Float64Array(linesOnByChannel.length);
-      linesOnByChannel.forEach((on, c) => {
-        for (const k of on) if (l === null || k === l) w[c] += lineWeight[k];
-      });
-      return w;
-    };
     // Carbon dots without a measured emission change colour with the line: one emission per line.
     if (dot.material === 'carbon' && !dot.measured.emission) {
       const perLine = lines.map((line) => resolveProbe(probe, p, grid, line.wavelengthNm));
       evaluation.emissionPeakNmByLine = perLine.map((d) => d.emissionPeakNm);
-      components.push(perLine.map((d, l) => ({ emission: d.emission.values, weightByChannel: weightsFor(l) })));
+      components.push(perLine.map((d, l) => ({ emission: d.emission.values, weightByChannel: channelWeights(linesOnByChannel, lineWeight, l) })));
     } else {
-      components.push([{ emission: dot.emission.values, weightByChannel: weightsFor(null) }]);
+      components.push([{ emission: dot.emission.values, weightByChannel: channelWeights(linesOnByChannel, lineWeight, null) }]);
     }
   }
   const assigned = panel.probes.map((probe) => (probe.channel === undefined ? undefined : channelIndex.get(probe.channel)));
@@ -214,23 +216,26 @@ export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT
   return { grid, dots, components, transmissions, linesOnByChannel, background, probeEvaluations, assigned };
 }
 
+// Module-level helpers rather than closures: a bundler that keeps function names wraps every named closure at
+// creation, which costs more than the work here.
+function checkJsonItem(record: Record<string | number, unknown>, key: string | number, path: (string | number)[], warnings: string[]): void {
+  const item = record[key];
+  if (typeof item === 'number') {
+    if (item - item === 0) return; // false only for NaN and ±Infinity
+    record[key] = null;
+    warnings.push(`${[...path, key].join('.')} has no finite value and is reported as null`);
+  } else if (item !== null && typeof item === 'object' && !ArrayBuffer.isView(item)) {
+    path.push(key);
+    makeJsonSafe(item, path, warnings);
+    path.pop();
+  }
+}
+
 /** Replaces any non-finite number in place by null, with a warning naming where (a guard; none is expected). */
 function makeJsonSafe(value: object, path: (string | number)[], warnings: string[]): void {
   const record = value as Record<string | number, unknown>;
-  const visit = (key: string | number) => {
-    const item = record[key];
-    if (typeof item === 'number') {
-      if (item - item === 0) return; // false only for NaN and ±Infinity
-      record[key] = null;
-      warnings.push(`${[...path, key].join('.')} has no finite value and is reported as null`);
-    } else if (item !== null && typeof item === 'object' && !ArrayBuffer.isView(item)) {
-      path.push(key);
-      makeJsonSafe(item, path, warnings);
-      path.pop();
-    }
-  };
-  if (Array.isArray(value)) for (let i = 0; i < value.length; i++) visit(i);
-  else for (const key in value) visit(key);
+  if (Array.isArray(value)) for (let i = 0; i < value.length; i++) checkJsonItem(record, i, path, warnings);
+  else for (const key in value) checkJsonItem(record, key, path, warnings);
 }
 
 /**
