@@ -17,6 +17,7 @@ import { addChannel, addProbe, addSpectralRun, newPanel, removeChannel, removePr
 import { moveEdge } from './edge-drag';
 import './channel-list';
 import './crosstalk-table';
+import './design-form';
 import './light-editor';
 import './material-notes';
 import './panel-actions';
@@ -174,9 +175,9 @@ export class PanelApp extends LitElement {
           <section aria-labelledby="h-channels"><h2 id="h-channels">Detection channels</h2>
             <qdp-channel-list .panel=${p} .detectors=${DETECTORS} .errors=${errors.channels}></qdp-channel-list></section>
           <section aria-labelledby="h-propose"><h2 id="h-propose">Propose a panel</h2>
-            <!-- TODO(lead): once web/design-form.ts lands, import './design-form' above and place <qdp-design-form> here; the
-                 panel-proposed listener on <main> already loads its proposal. -->
-            <p>Automatic proposals will appear here once the design engine is available.</p></section>
+            <p>Name the targets and how abundant each is; the search proposes dots and filters (or picks from this panel's
+              probes and channels) that keep the worst bleed-through low, and loads the proposal here for editing.</p>
+            <qdp-design-form .candidates=${p.probes.length > 0 && p.channels.length > 0 ? { probes: p.probes.map(({ channel: _c, ...probe }) => probe), channels: p.channels } : undefined}></qdp-design-form></section>
         </div>
         <div class="results">
           <section aria-labelledby="h-spectra"><h2 id="h-spectra">Spectra</h2>

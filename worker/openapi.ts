@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import packageJson from '../package.json';
 import * as schemas from './schemas';
+import { DesignRequest } from './design-schema';
 
 type Json = Record<string, unknown>;
 
@@ -18,6 +19,7 @@ const COMPONENTS: [string, z.ZodType][] = [
   ['Detector', schemas.Detector],
   ['ResolvedDot', schemas.ResolvedDotJson],
   ['Evaluation', schemas.Evaluation],
+  ['DesignRequest', DesignRequest],
 ];
 
 const ref = (name: string): Json => ({ $ref: `#/components/schemas/${name}` });
@@ -68,6 +70,9 @@ export function openApiDocument(): Json {
         '201': json(ref('ShareCreated'), 'stored'),
         '200': json(ref('ShareCreated'), 'already stored'),
         '429': json(ref('Error'), 'too many new links from this client (see Retry-After)'),
+      }),
+      '/api/v1/panels/design': post('propose dots and filters for a set of targets (exact on a catalog; best found under a node budget)', 'DesignRequest', {
+        '200': json({ type: 'object', required: ['panel', 'evaluation', 'objective', 'exact', 'stats'] }, 'the proposal, its evaluation, objective and search statistics'),
       }),
       '/api/v1/panels/{id}': {
         get: {
