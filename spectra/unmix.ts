@@ -5,7 +5,7 @@
  * finite value (rank-deficient M, more probes than channels) it is null and a warning says why; never NaN or Infinity.
  */
 import { EPSILON, checkMatrix, checkVector, norm2 } from './linalg/matrix';
-import { svdOfColumns } from './linalg/svd';
+import { svdPivotedQr } from './linalg/preconditioned';
 import { leastSquaresQr } from './linalg/qr';
 import { nnls } from './linalg/nnls';
 
@@ -38,7 +38,7 @@ function normalisedSvd(m: number[][], tolerance: number): { s: number[]; v: numb
     for (let i = 0; i < rows; i++) col[i] /= norm;
     return col;
   });
-  return svdOfColumns(columns, tolerance);
+  return svdPivotedQr(columns, tolerance);
 }
 
 /**

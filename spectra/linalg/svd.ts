@@ -16,11 +16,11 @@ export interface Svd {
 const MAX_SWEEPS = 80;
 
 /**
- * One-sided Jacobi on the columns of a (rows ≥ cols); rotates them and the columns of V (identity at the start) in
- * place. Column norms are carried through each rotation (‖ap‖² − tγ, ‖aq‖² + tγ; exact for the Jacobi angle) and
+ * One-sided Jacobi on the columns of a (rows ≥ cols); rotates them and, unless null, the columns of V (identity at
+ * the start) in place. Column norms are carried through each rotation (‖ap‖² − tγ, ‖aq‖² + tγ; exact for the Jacobi angle) and
  * recomputed at every sweep so rounding cannot build up; only the cross product γ is summed per pair.
  */
-function orthogonaliseColumns(a: Float64Array[], v: Float64Array[], tolerance: number): void {
+export function jacobiColumns(a: Float64Array[], v: Float64Array[] | null, tolerance: number): void {
   const n = a.length;
   const m = a[0].length;
   const norms = new Float64Array(n);
@@ -34,7 +34,7 @@ function orthogonaliseColumns(a: Float64Array[], v: Float64Array[], tolerance: n
     let rotated = false;
     for (let p = 0; p < n - 1; p++) {
       const ap = a[p];
-      const vp = v[p];
+      const vp = v?.[p];
       for (let q = p + 1; q < n; q++) {
         const aq = a[q];
         let gamma = 0;
@@ -54,8 +54,8 @@ function orthogonaliseColumns(a: Float64Array[], v: Float64Array[], tolerance: n
           ap[i] = c * x - s * y;
           aq[i] = s * x + c * y;
         }
-        const vq = v[q];
-        for (let i = 0; i < n; i++) {
+        const vq = v?.[q];
+        if (vp && vq) for (let i = 0; i < n; i++) {
           const x = vp[i];
           const y = vq[i];
           vp[i] = c * x - s * y;
@@ -80,7 +80,7 @@ export function svdOfColumns(columns: Float64Array[], tolerance = EPSILON): { s:
     e[j] = 1;
     return e;
   });
-  orthogonaliseColumns(columns, v, tolerance);
+  jacobiColumns(columns, v, tolerance);
   const sigma = columns.map((col) => Math.sqrt(col.reduce((sum, x) => sum + x * x, 0)));
   const order = sigma.map((_, j) => j).sort((x, y) => sigma[y] - sigma[x]);
   return { s: order.map((j) => sigma[j]), v: Array.from({ length: n }, (_, i) => order.map((j) => v[j][i])) };
@@ -101,7 +101,7 @@ export function svd(matrix: readonly (readonly number[])[], tolerance = EPSILON)
     e[j] = 1;
     return e;
   });
-  orthogonaliseColumns(a, v, tolerance);
+  jacobiColumns(a, v, tolerance);
   const sigma = a.map((col) => Math.sqrt(col.reduce((sum, x) => sum + x * x, 0)));
   const order = sigma.map((_, j) => j).sort((x, y) => sigma[y] - sigma[x]);
   const m = a[0].length;
