@@ -52,6 +52,19 @@ export default defineConfig({
           fileParallelism: false,
         },
       },
+      // Measured quality: load soak, faults, fuzz and security checks against the app as `npm start` runs it. One file
+      // at a time and in its own group after the others (groupOrder 1), so the load never competes with other tests.
+      {
+        test: {
+          name: 'quality',
+          include: ['test/quality/**/*.test.ts'],
+          environment: 'node',
+          testTimeout: 300_000,
+          hookTimeout: 180_000,
+          fileParallelism: false,
+          sequence: { groupOrder: 1 },
+        },
+      },
     ],
   },
 });
