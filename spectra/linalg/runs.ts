@@ -40,11 +40,13 @@ export interface ChannelSupport {
 /** Finds the constant runs at both ends of a transmission (exact equality: the split changes no result). */
 export function channelSupport(t: Float64Array): ChannelSupport {
   const n = t.length;
-  let first = 0;
-  while (first < n && t[first] === t[0]) first++;
-  let end = n;
-  while (end > first && t[end - 1] === t[n - 1]) end--;
-  return { t, first, end, left: t[0], right: t[n - 1] };
+  const left = t[0];
+  const right = t[n - 1];
+  let first = 1;
+  while (first < n && t[first] === left) first++;
+  let end = n - 1;
+  while (end > first && t[end - 1] === right) end--;
+  return { t, first: Math.min(first, n), end: Math.max(end, Math.min(first, n)), left, right };
 }
 
 // Emission arrays of resolved dots are immutable and come back evaluation after evaluation (the dot cache in

@@ -66,6 +66,19 @@ describe('collectedMatrix', () => {
     }));
   });
 
+  it('collectedMatrix handles constant, two-level and single-step transmissions exactly like a naive sum', () => {
+    const n = DEFAULT_GRID.count;
+    const step = Float64Array.from({ length: n }, (_, i) => (i < 300 ? 0.25 : 1));
+    const spike = Float64Array.from({ length: n }, (_, i) => (i === 350 ? 1 : 1e-6));
+    const transmissions = [new Float64Array(n).fill(1), step, spike, Float64Array.from({ length: n }, (_, i) => (i === 0 ? 0.5 : 0))];
+    const emission = gaussian(560, 30);
+    const collected = collectedMatrix([[{ emission, weightByChannel: Float64Array.from([1, 1, 1, 1]) }]], transmissions, 1);
+    transmissions.forEach((t, c) => {
+      const naive = t.reduce((sum, v, i) => sum + v * emission[i], 0);
+      expect(Math.abs(collected[c][0] - naive) / naive).toBeLessThan(1e-12);
+    });
+  });
+
   it('linesOn names the channel field when a line is not one of the panel\'s', () => {
     const lines = [{ wavelengthNm: 405 }, { wavelengthNm: 488 }];
     expect(linesOn({ id: 'c', filters: [], excitationNm: [488, 405] }, lines, ['channels', 1])).toEqual([0, 1]);
