@@ -113,6 +113,18 @@ async function waitForHealth(baseUrl: string, child: ChildProcess, timeoutMs: nu
 /** Starts `bash scripts/start.sh` (of a fresh snapshot unless `root` is given) under setsid with PORT, PERSIST_DIR, LOG_LEVEL=warn and SKIP_BUILD=1. */
 export async function startApp(options: { persistDir?: string; port?: number; timeoutMs?: number; root?: string } = {}): Promise<StartedApp> {
   const root = options.root ?? snapshotRoot();
+  // A free port can be taken by another process before wrangler binds it: try again on a new one.
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await startOnce({ ...options, root });
+    } catch (err) {
+      if (attempt >= 3 || options.port !== undefined || !/Address already in use/.test(String(err))) throw err;
+    }
+  }
+}
+
+async function startOnce(options: { persistDir?: string; port?: number; timeoutMs?: number; root: string }): Promise<StartedApp> {
+  const root = options.root;
   const persistDir = options.persistDir ?? freshPersistDir();
   const port = options.port ?? (await freePort());
   const child = spawn('setsid', ['bash', 'scripts/start.sh'], {

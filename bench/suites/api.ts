@@ -1,0 +1,56 @@
+/**
+ * The API under load on loopback: the app started as `npm start` does (scripts/start.sh, workerd + local KV in a
+ * temporary directory, log level warn), autocannon for 5 s per row at 1, 8 and 32 connections on POST
+ * /api/v1/panels/evaluate (the demo's 6×6 panel) and GET /api/v1/panels/<id> (fetching a share link).
+ */
+import autocannon from 'autocannon';
+import type { BenchRow } from '../run';
+import { startApp } from '../../test/quality/helpers/app';
+import { demoPanelTitled } from '../../test/quality/helpers/contract';
+
+const SECONDS = Number(process.env.BENCH_API_SECONDS ?? 5);
+const CONNECTIONS = [1, 8, 32];
+
+/** One autocannon run: requests per second, p50/p99 latency, errors and non-2xx answers. */
+async function load(name: string, opts: autocannon.Options): Promise<BenchRow> {
+  const result = await autocannon({ ...opts, duration: SECONDS });
+  return {
+    suite: 'api',
+    name,
+    medianMs: result.latency.p50,
+    minMs: result.latency.min,
+    maxMs: result.latency.max,
+    samples: result.requests.total,
+    extra: {
+      'req/s': Math.round(result.requests.average),
+      p99ms: result.latency.p99,
+      errors: result.errors + result.timeouts,
+      non2xx: result.non2xx,
+    },
+  };
+}
+
+export default async function apiSuite(): Promise<BenchRow[]> {
+  const app = await startApp();
+  try {
+    const panel = JSON.stringify(demoPanelTitled('Benchmark panel'));
+    const shared = await fetch(`${app.baseUrl}/api/v1/panels`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: panel });
+    const { id } = (await shared.json()) as { id: string };
+    const rows: BenchRow[] = [];
+    for (const connections of CONNECTIONS) {
+      rows.push(
+        await load(`POST /panels/evaluate demo 6x6, ${connections} conn`, {
+          url: `${app.baseUrl}/api/v1/panels/evaluate`,
+          method: 'POST',
+          headers: { 'content-type': 'application/json' },
+          body: panel,
+          connections,
+        }),
+      );
+      rows.push(await load(`GET /panels/<id> share fetch, ${connections} conn`, { url: `${app.baseUrl}/api/v1/panels/${id}`, connections }));
+    }
+    return rows;
+  } finally {
+    await app.stop();
+  }
+}
