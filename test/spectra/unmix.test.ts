@@ -45,6 +45,16 @@ describe('conditionNumber and noiseAmplification', () => {
     }
   });
 
+  // Same closed form far into the ill-conditioned range (κ ≈ 1.4e4 and 1.4e6), where the Gram route is not trusted.
+  it('conditionNumber of two nearly parallel unit signatures keeps the closed form √((1+c)/(1−c)) to 1e-6', () => {
+    for (const c of [1 - 1e-8, 1 - 1e-12]) {
+      const m = [[1, c], [0, Math.sqrt((1 - c) * (1 + c))], [0, 0]];
+      const expected = Math.sqrt((1 + c) / (1 - c));
+      expect(Math.abs(conditionNumber(m)! - expected) / expected).toBeLessThan(1e-6);
+      expect(Math.abs(noiseAmplification(m)[0]! - 1 / Math.sqrt((1 - c) * (1 + c))) * Math.sqrt((1 - c) * (1 + c))).toBeLessThan(1e-6);
+    }
+  });
+
   it('conditionNumber is null (never NaN or Infinity) for a rank-deficient M, a zero column, or more probes than channels', () => {
     const base = randomMatrix(6, 3, 5, true);
     expect(conditionNumber(base.map((row) => [row[0], row[1], row[0] * 3]))).toBeNull();
