@@ -3,7 +3,7 @@
  * channel's light path, and derives collected, spillover, purity, interference, unmixing diagnostics, background and
  * lot-to-lot sensitivity. The big arrays (spectra on the grid) come from panelSpectra, so the API can leave them out.
  */
-import type { PanelSpec, ProbeSpec } from './panel';
+import { MATERIAL_IDS, type MaterialId, type PanelSpec, type ProbeSpec } from './panel';
 import { DEFAULT_GRID, type WavelengthGrid } from './grid';
 import { SpectraError } from './errors';
 import { resolveDot, extinctionAtNm, type DotInput, type ResolvedDot } from './dot';
@@ -11,7 +11,7 @@ import { channelTransmission } from './filters/channel';
 import { backgroundEmission } from './background';
 import { collectedMatrix, crosstalkFigures, linesOn, type EmissionComponent, type WorstInterference } from './crosstalk';
 import { overlap } from './linalg/runs';
-import { unmixingDiagnostics } from './unmix';
+import { diagnoseMixing } from './unmix';
 import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
 
 /** One probe of an evaluated panel: the resolved dot's fields (no arrays) plus its brightness. */
@@ -65,49 +65,56 @@ const LIMITS = { probes: 16, channels: 64, lines: 16, scale: 1e6 };
 
 const bad = (message: string, path: (string | number)[]) => new SpectraError('invalid_input', message, path);
 
+function checkList(panel: PanelSpec, key: 'excitation' | 'probes' | 'channels', max: number): void {
+  const value = panel[key] as unknown;
+  if (!Array.isArray(value) || value.length === 0) throw bad(`${key} must be a non-empty array`, [key]);
+  if (value.length > max) throw bad(`at most ${max} ${key} are allowed, got ${value.length}`, [key]);
+  for (let i = 0; i < value.length; i++) {
+    if (value[i] === null || typeof value[i] !== 'object') throw bad(`${key}[${i}] must be an object`, [key, i]);
+  }
+}
+
+function checkScale(value: unknown, key: 'excitation' | 'probes', index: number, field: string): void {
+  if (value !== undefined && (typeof value !== 'number' || !(value >= 0 && value <= LIMITS.scale))) {
+    throw bad(`${field} must be a number from 0 to ${LIMITS.scale}, got ${String(value)}`, [key, index, field]);
+  }
+}
+
+function uniqueIds(panel: PanelSpec, key: 'probes' | 'channels'): Set<string> {
+  const seen = new Set<string>();
+  const items = panel[key];
+  for (let i = 0; i < items.length; i++) {
+    const id = items[i].id;
+    if (typeof id !== 'string' || id === '') throw bad('id must be a non-empty string', [key, i, 'id']);
+    if (seen.has(id)) throw bad(`duplicate id ${JSON.stringify(id)}`, [key, i, 'id']);
+    seen.add(id);
+  }
+  return seen;
+}
+
 /** Checks what the spectral modules below do not: the panel's arrays, ids, references and scale factors. */
 function checkPanelShape(panel: PanelSpec): void {
   if (panel === null || typeof panel !== 'object') throw bad('a panel must be an object', []);
   if (panel.version !== undefined && panel.version !== 1) throw bad('version must be 1', ['version']);
-  const list = (key: 'excitation' | 'probes' | 'channels', max: number) => {
-    const value = panel[key] as unknown;
-    if (!Array.isArray(value) || value.length === 0) throw bad(`${key} must be a non-empty array`, [key]);
-    if (value.length > max) throw bad(`at most ${max} ${key} are allowed, got ${value.length}`, [key]);
-    value.forEach((item, i) => {
-      if (item === null || typeof item !== 'object') throw bad(`${key}[${i}] must be an object`, [key, i]);
-    });
-  };
-  list('excitation', LIMITS.lines);
-  list('probes', LIMITS.probes);
-  list('channels', LIMITS.channels);
-  const scale = (value: unknown, name: string, path: (string | number)[]) => {
-    if (value !== undefined && (typeof value !== 'number' || !(value >= 0 && value <= LIMITS.scale))) {
-      throw bad(`${name} must be a number from 0 to ${LIMITS.scale}, got ${String(value)}`, path);
-    }
-  };
+  checkList(panel, 'excitation', LIMITS.lines);
+  checkList(panel, 'probes', LIMITS.probes);
+  checkList(panel, 'channels', LIMITS.channels);
   panel.excitation.forEach((line, l) => {
     const nm = line.wavelengthNm;
     if (typeof nm !== 'number' || !(nm > 0 && nm < 10000)) throw bad(`wavelengthNm must be a number above 0 nm, got ${String(nm)}`, ['excitation', l, 'wavelengthNm']);
-    scale(line.powerRel, 'powerRel', ['excitation', l, 'powerRel']);
+    checkScale(line.powerRel, 'excitation', l, 'powerRel');
   });
-  const unique = (key: 'probes' | 'channels') => {
-    const seen = new Set<string>();
-    panel[key].forEach((item, i) => {
-      if (typeof item.id !== 'string' || item.id === '') throw bad('id must be a non-empty string', [key, i, 'id']);
-      if (seen.has(item.id)) throw bad(`duplicate id ${JSON.stringify(item.id)}`, [key, i, 'id']);
-      seen.add(item.id);
-    });
-    return seen;
-  };
-  unique('probes');
-  const channelIds = unique('channels');
+  uniqueIds(panel, 'probes');
+  const channelIds = uniqueIds(panel, 'channels');
   panel.probes.forEach((probe, p) => {
-    scale(probe.abundance, 'abundance', ['probes', p, 'abundance']);
+    checkScale(probe.abundance, 'probes', p, 'abundance');
     if (probe.channel !== undefined && !channelIds.has(probe.channel)) {
       throw new SpectraError('unknown_channel', `channel ${JSON.stringify(probe.channel)} names no channel of the panel`, ['probes', p, 'channel']);
     }
   });
 }
+
+const MATERIAL_SET = new Set<MaterialId>(MATERIAL_IDS);
 
 const DOT_FIELDS = ['material', 'emissionPeakNm', 'diameterNm', 'sizeDispersionPct', 'fwhmNm', 'quantumYield', 'measuredEmission', 'extinction'] as const;
 
@@ -131,7 +138,7 @@ function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, excitat
   for (const field in input) {
     const value = input[field];
     // Strings and tables go through JSON (quoted, escaped), so no input can forge another input's key.
-    key += ` ${field}=${typeof value === 'number' ? value : JSON.stringify(value)}`;
+    key += ` ${field}=${typeof value === 'number' || MATERIAL_SET.has(value as MaterialId) ? value : JSON.stringify(value)}`;
   }
   const hit = resolvedCache.get(key);
   if (hit) return hit;
@@ -250,7 +257,7 @@ export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid
   const channelIds = panel.channels.map((c) => c.id);
   const collected = collectedMatrix(components, transmissions, grid.stepNm);
   const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
-  const diagnostics = unmixingDiagnostics(collected, probeIds);
+  const diagnostics = diagnoseMixing(collected, probeIds);
   const warnings = [...figures.warnings, ...diagnostics.warnings];
   const evaluation: PanelEvaluation = {
     grid: { ...grid },

@@ -70,7 +70,13 @@ function normalisedSvd(m: number[][], tolerance: number, fast = false): { s: num
  * columns in warnings.
  */
 export function unmixingDiagnostics(m: number[][], probeIds?: string[]): UnmixingDiagnostics {
-  const { cols } = checkMatrix(m, 'matrix');
+  checkMatrix(m, 'matrix');
+  return diagnoseMixing(m, probeIds);
+}
+
+/** unmixingDiagnostics for a matrix already known to be rectangular and finite (a panel's own collected). */
+export function diagnoseMixing(m: number[][], probeIds?: string[]): UnmixingDiagnostics {
+  const cols = m[0].length;
   const early = rankProblem(m, null, probeIds);
   const nulls = () => ({ conditionNumber: null, noiseAmplification: new Array<null>(cols).fill(null) });
   if (early) return { ...nulls(), warnings: [early] };
