@@ -66,7 +66,10 @@ async function readText(body: ReadableStream<Uint8Array> | null, maxBytes: numbe
   const chunks: Uint8Array[] = [];
   let total = 0;
   for (;;) {
-    const { done, value } = await reader.read();
+    const { done, value } = await reader.read().catch(() => {
+      // The client stopped sending before the declared length arrived (connection closed or reset mid-body).
+      throw new ApiError(400, 'invalid_json', 'the body ended before all of it arrived (connection closed mid-body)');
+    });
     if (done) break;
     total += value.byteLength;
     if (total > maxBytes) {
