@@ -8,7 +8,7 @@
  */
 import type { ChannelSpec, ExcitationLine } from './panel';
 import { SpectraError } from './errors';
-import { channelSupport, partialSums, windowDot, type ChannelSupport } from './linalg/runs';
+import { channelSupport, partialSums, windowDot, type ChannelSupport, type ConstantEnds } from './linalg/runs';
 
 /** One emission spectrum of a probe and its weight in each channel (Σ powerRel × ε × QY × abundance over lines on). */
 export interface EmissionComponent {
@@ -61,9 +61,9 @@ export function collectedColumn(components: EmissionComponent[], supports: Chann
   return column;
 }
 
-/** collected[c][p] for every channel and probe. */
-export function collectedMatrix(probes: EmissionComponent[][], transmissions: Float64Array[], stepNm: number): number[][] {
-  const supports = transmissions.map(channelSupport);
+/** collected[c][p] for every channel and probe; `ends[c]` (optional) is what channelTransmission reported. */
+export function collectedMatrix(probes: EmissionComponent[][], transmissions: Float64Array[], stepNm: number, ends?: ConstantEnds[]): number[][] {
+  const supports = transmissions.map((t, c) => channelSupport(t, ends?.[c]));
   const columns = probes.map((components) => collectedColumn(components, supports, stepNm));
   return transmissions.map((_, c) => columns.map((col) => col[c]));
 }

@@ -10,7 +10,7 @@ import { resolveDot, extinctionAtNm, type DotInput, type ResolvedDot } from './d
 import { channelTransmission } from './filters/channel';
 import { backgroundEmission } from './background';
 import { collectedMatrix, crosstalkFigures, linesOn, type EmissionComponent, type WorstInterference } from './crosstalk';
-import { overlap } from './linalg/runs';
+import { overlap, type ConstantEnds } from './linalg/runs';
 import { diagnoseMixing } from './unmix';
 import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
 
@@ -54,6 +54,8 @@ export interface PanelModel {
   dots: ResolvedDot[];
   components: EmissionComponent[][];
   transmissions: Float64Array[];
+  /** Per channel, the index range outside which its transmission is constant (speeds up the overlap sums). */
+  constantEnds: ConstantEnds[];
   linesOnByChannel: number[][];
   /** Background emission per line (per unit powerRel), or null without a background. */
   background: Float64Array[] | null;
@@ -169,7 +171,8 @@ export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT
   const lines = panel.excitation.map((l) => ({ wavelengthNm: l.wavelengthNm, powerRel: l.powerRel ?? 1 }));
   const channelIndex = new Map(panel.channels.map((c, i) => [c.id, i]));
   const linesOnByChannel = panel.channels.map((c, i) => linesOn(c, lines, ['channels', i]));
-  const transmissions = panel.channels.map((c, i) => channelTransmission(c, grid, ['channels', i]));
+  const constantEnds: ConstantEnds[] = panel.channels.map(() => ({ first: 0, end: grid.count }));
+  const transmissions = panel.channels.map((c, i) => channelTransmission(c, grid, ['channels', i], constantEnds[i]));
   const dots: ResolvedDot[] = [];
   const probeEvaluations: ProbeEvaluation[] = [];
   const components: EmissionComponent[][] = [];
@@ -220,7 +223,7 @@ export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT
   // A measured background does not depend on the line: one spectrum serves every line.
   const measured = spec?.points !== undefined ? backgroundEmission(spec, lines[0].wavelengthNm, grid) : null;
   const background = spec === undefined ? null : lines.map((l) => measured ?? backgroundEmission(spec, l.wavelengthNm, grid));
-  return { grid, dots, components, transmissions, linesOnByChannel, background, probeEvaluations, assigned };
+  return { grid, dots, components, transmissions, constantEnds, linesOnByChannel, background, probeEvaluations, assigned };
 }
 
 // Module-level helpers rather than closures: a bundler that keeps function names wraps every named closure at
@@ -252,10 +255,10 @@ function makeJsonSafe(value: object, path: (string | number)[], warnings: string
  */
 export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid; sensitivity?: boolean } = {}): PanelEvaluation {
   const model = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
-  const { grid, components, transmissions, assigned } = model;
+  const { grid, components, transmissions, constantEnds, assigned } = model;
   const probeIds = panel.probes.map((p) => p.id);
   const channelIds = panel.channels.map((c) => c.id);
-  const collected = collectedMatrix(components, transmissions, grid.stepNm);
+  const collected = collectedMatrix(components, transmissions, grid.stepNm, constantEnds);
   const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
   const diagnostics = diagnoseMixing(collected, probeIds);
   const warnings = [...figures.warnings, ...diagnostics.warnings];
@@ -271,7 +274,7 @@ export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid
     noiseAmplification: diagnostics.noiseAmplification,
     worst: figures.worst,
     lotShiftSensitivity: options.sensitivity === false ? null
-      : lotShiftSensitivity(components, transmissions, grid.stepNm, collected, assigned, probeIds, channelIds),
+      : lotShiftSensitivity(components, transmissions, grid.stepNm, collected, assigned, probeIds, channelIds, undefined, constantEnds),
     warnings,
   };
   if (model.background) {

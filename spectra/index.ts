@@ -42,7 +42,7 @@ export { DEFAULT_FREE_NODE_BUDGET, MAX_NODE_BUDGET, type DesignOptions } from '.
 export { freeGridCatalog } from './design/free';
 export { bandsOverlap, type Band, type FreeCatalog } from './design/free-catalog';
 export { defaultAutofluorescence, backgroundEmission, AUTOFLUORESCENCE_BANDS, BACKGROUND_REFERENCE_BRIGHTNESS } from './background';
-export { overlap, channelSupport, type ChannelSupport } from './linalg/runs';
+export { overlap, channelSupport, type ChannelSupport, type ConstantEnds } from './linalg/runs';
 export { collectedMatrix, collectedColumn, crosstalkFigures, linesOn, RESOLUTION_THRESHOLD, type EmissionComponent, type CrosstalkFigures, type WorstInterference } from './crosstalk';
 export { lotShiftSensitivity, shiftEmission, LOT_SHIFT_NM, type LotShiftSensitivity } from './sensitivity';
 export { evaluatePanel, panelSpectra, buildPanelModel, clearResolvedDotCache, type PanelEvaluation, type ProbeEvaluation, type PanelSpectra, type PanelModel } from './evaluate';

@@ -5,7 +5,7 @@
  * unchanged: a first-order model of a lot shift (a real shift also changes the width and the absorption a little).
  */
 import { collectedColumn, crosstalkFigures, type EmissionComponent } from './crosstalk';
-import { channelSupport } from './linalg/runs';
+import { channelSupport, type ConstantEnds } from './linalg/runs';
 
 /** Default peak shift for the lot-to-lot check, nm (common practice). */
 export const LOT_SHIFT_NM = 5;
@@ -54,6 +54,7 @@ export function lotShiftSensitivity(
   probeIds: string[],
   channelIds: string[],
   shiftNm = LOT_SHIFT_NM,
+  ends?: ConstantEnds[],
 ): LotShiftSensitivity {
   const base = crosstalkFigures(collected, assigned, probeIds, channelIds);
   const baseSpill = worstSpillover(base.spillover, base.primaryChannel);
@@ -63,7 +64,7 @@ export function lotShiftSensitivity(
     worstInterference: null,
     worstSpillover: null,
   };
-  const supports = transmissions.map(channelSupport);
+  const supports = transmissions.map((t, c) => channelSupport(t, ends?.[c]));
   probes.forEach((components, p) => {
     for (const signed of [shiftNm, -shiftNm]) {
       const moved = components.map((c) => ({ ...c, emission: shiftEmission(c.emission, signed, stepNm) }));

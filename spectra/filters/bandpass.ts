@@ -5,6 +5,7 @@
  */
 import type { WavelengthGrid } from '../grid';
 import { SpectraError } from '../errors';
+import type { ConstantEnds } from '../linalg/runs';
 import { FILTER_DEFAULTS, fillPassband, logisticScaleNm, requireWavelengthNm, resolveEdgeOptions } from './edge';
 
 /** A bandpass filter as the panel carries it (see spectra/panel.ts FilterSpec). */
@@ -47,7 +48,7 @@ function edgeHalfDistanceNm(widthNm: number, scaleNm: number): number {
 }
 
 /** Transmission (0–1) of a bandpass filter on a grid. Errors name the field under `path`. */
-export function bandpassTransmission(filter: BandpassSpec, grid: WavelengthGrid, path: (string | number)[] = []): Float64Array {
+export function bandpassTransmission(filter: BandpassSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
   const centerNm = requireWavelengthNm(filter.centerNm, 'centerNm', path);
   const widthNm = filter.widthNm;
   if (typeof widthNm !== 'number' || !Number.isFinite(widthNm) || widthNm <= 0) {
@@ -65,5 +66,5 @@ export function bandpassTransmission(filter: BandpassSpec, grid: WavelengthGrid,
   const h = edgeHalfDistanceNm(widthNm, scaleNm);
   // The two edges overlap a little at the centre: divide by the shape's own top so the peak is exactly peakTransmission.
   const top = scaleNm === 0 ? 1 : logistic(h / scaleNm) ** 2;
-  return fillPassband(grid, centerNm - h, centerNm + h, scaleNm, options.floor, (options.peakTransmission - options.floor) / top);
+  return fillPassband(grid, centerNm - h, centerNm + h, scaleNm, options.floor, (options.peakTransmission - options.floor) / top, ends);
 }

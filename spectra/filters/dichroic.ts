@@ -7,6 +7,7 @@ import type { WavelengthGrid } from '../grid';
 import { SpectraError } from '../errors';
 import { FILTER_DEFAULTS } from './edge';
 import { singleEdgeTransmission } from './edgepass';
+import type { ConstantEnds } from '../linalg/runs';
 
 /** A dichroic as the panel carries it. */
 export interface DichroicSpec {
@@ -19,9 +20,9 @@ export interface DichroicSpec {
 }
 
 /** Transmission (0–1) towards the channel's detector of a dichroic mirror on a grid. */
-export function dichroicTransmission(filter: DichroicSpec, grid: WavelengthGrid, path: (string | number)[] = []): Float64Array {
+export function dichroicTransmission(filter: DichroicSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
   if (filter.passes !== 'above' && filter.passes !== 'below') {
     throw new SpectraError('invalid_input', `passes must be "above" or "below", got ${String(filter.passes)}`, [...path, 'passes']);
   }
-  return singleEdgeTransmission(filter, filter.passes === 'above', FILTER_DEFAULTS.dichroic, grid, path);
+  return singleEdgeTransmission(filter, filter.passes === 'above', FILTER_DEFAULTS.dichroic, grid, path, ends);
 }

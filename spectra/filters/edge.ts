@@ -7,6 +7,7 @@
 import type { WavelengthGrid } from '../grid';
 import { SpectraError } from '../errors';
 import { FILTER_DEFAULTS, MAX_BLOCKING_OD, type FilterDefaults } from './defaults';
+import type { ConstantEnds } from '../linalg/runs';
 
 /** Logistic scale s (nm) of an edge whose 10–90 % rise takes `edgeWidthNm`. */
 export function logisticScaleNm(edgeWidthNm: number): number {
@@ -28,9 +29,21 @@ function window(grid: WavelengthGrid, edgeNm: number, scaleNm: number): [number,
  * of an edge the exponential is stepped by a constant ratio per grid point rather than one exp() per point (this
  * runs for every channel of every evaluation); the ratio walk adds at most a few hundred ulps of relative error.
  */
-export function fillPassband(grid: WavelengthGrid, riseNm: number, fallNm: number, scaleNm: number, floor: number, span: number): Float64Array {
+export function fillPassband(
+  grid: WavelengthGrid,
+  riseNm: number,
+  fallNm: number,
+  scaleNm: number,
+  floor: number,
+  span: number,
+  ends?: ConstantEnds,
+): Float64Array {
   const { startNm, stepNm, count } = grid;
   const out = new Float64Array(count);
+  if (ends) {
+    ends.first = 0;
+    ends.end = count;
+  }
   if (scaleNm === 0) {
     for (let i = 0; i < count; i++) {
       const nm = startNm + i * stepNm;
@@ -47,6 +60,11 @@ export function fillPassband(grid: WavelengthGrid, riseNm: number, fallNm: numbe
   if (floor !== 0) {
     out.fill(floor, 0, Math.min(Math.max(from, 0), count));
     out.fill(floor, Math.max(to + 1, 0), count);
+  }
+  if (ends) {
+    // Outside [from, to] the array is the floor, or the plateau beyond a missing edge: constant either way.
+    ends.first = Math.min(Math.max(from, 0), count);
+    ends.end = Math.max(Math.min(to + 1, count), ends.first);
   }
   if (from > to) return out;
   // e1 = exp(−(λ − rise)/s) shrinks by q per step; e2 = exp((λ − fall)/s) grows by 1/q. Each is walked only inside

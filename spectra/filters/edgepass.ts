@@ -3,6 +3,7 @@
  * between the blocking floor and the peak. A longpass passes wavelengths above its edge, a shortpass those below.
  */
 import type { WavelengthGrid } from '../grid';
+import type { ConstantEnds } from '../linalg/runs';
 import { FILTER_DEFAULTS, fillPassband, logisticScaleNm, requireWavelengthNm, resolveEdgeOptions } from './edge';
 import type { FilterDefaults } from './defaults';
 
@@ -25,15 +26,18 @@ export function singleEdgeTransmission(
   defaults: Readonly<FilterDefaults>,
   grid: WavelengthGrid,
   path: (string | number)[],
+  ends?: ConstantEnds,
 ): Float64Array {
   const edgeNm = requireWavelengthNm(filter.edgeNm, 'edgeNm', path);
   const options = resolveEdgeOptions(filter, defaults, path);
   const span = options.peakTransmission - options.floor;
   const scaleNm = logisticScaleNm(options.edgeWidthNm);
-  return passesAbove ? fillPassband(grid, edgeNm, Infinity, scaleNm, options.floor, span) : fillPassband(grid, -Infinity, edgeNm, scaleNm, options.floor, span);
+  return passesAbove
+    ? fillPassband(grid, edgeNm, Infinity, scaleNm, options.floor, span, ends)
+    : fillPassband(grid, -Infinity, edgeNm, scaleNm, options.floor, span, ends);
 }
 
 /** Transmission (0–1) of a longpass or shortpass filter on a grid. */
-export function edgePassTransmission(filter: EdgePassSpec, grid: WavelengthGrid, path: (string | number)[] = []): Float64Array {
-  return singleEdgeTransmission(filter, filter.type === 'longpass', FILTER_DEFAULTS.edgepass, grid, path);
+export function edgePassTransmission(filter: EdgePassSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
+  return singleEdgeTransmission(filter, filter.type === 'longpass', FILTER_DEFAULTS.edgepass, grid, path, ends);
 }

@@ -9,27 +9,29 @@ import { bandpassTransmission } from './bandpass';
 import { edgePassTransmission } from './edgepass';
 import { dichroicTransmission } from './dichroic';
 import { tableTransmission } from './table';
+import type { ConstantEnds } from '../linalg/runs';
 
 /**
  * Transmission (0–1) of one filter on a grid. Analytic kinds use a logistic edge whose `edgeWidthNm` is the 10–90 %
  * rise distance, a floor of 10^-blockingOD out of band and `peakTransmission` in band (defaults: FILTER_DEFAULTS).
- * Errors are SpectraError naming the field under `path`, e.g. ['channels', 2, 'filters', 0, 'widthNm'].
+ * Errors are SpectraError naming the field under `path`, e.g. ['channels', 2, 'filters', 0, 'widthNm']. If given,
+ * `ends` receives the index range outside which the result is constant (for the overlap integrals).
  * @example filterTransmission({ type: 'bandpass', centerNm: 605, widthNm: 20 }, DEFAULT_GRID)
  */
-export function filterTransmission(filter: FilterSpec, grid: WavelengthGrid, path: (string | number)[] = []): Float64Array {
+export function filterTransmission(filter: FilterSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
   if (filter === null || typeof filter !== 'object') {
     throw new SpectraError('invalid_input', 'a filter must be an object with a type', path);
   }
   switch (filter.type) {
     case 'bandpass':
-      return bandpassTransmission(filter, grid, path);
+      return bandpassTransmission(filter, grid, path, ends);
     case 'longpass':
     case 'shortpass':
-      return edgePassTransmission(filter, grid, path);
+      return edgePassTransmission(filter, grid, path, ends);
     case 'dichroic':
-      return dichroicTransmission(filter, grid, path);
+      return dichroicTransmission(filter, grid, path, ends);
     case 'table':
-      return tableTransmission(filter, grid, path);
+      return tableTransmission(filter, grid, path, ends);
     default: {
       const unknown: never = filter;
       throw new SpectraError(

@@ -37,14 +37,26 @@ export interface ChannelSupport {
   right: number;
 }
 
-/** Finds the constant runs at both ends of a transmission (exact equality: the split changes no result). */
-export function channelSupport(t: Float64Array): ChannelSupport {
+/**
+ * A promise about an array from whoever filled it: it is constant on [0, first) and on [end, n). Lets the run
+ * search below start at the edges of a filter's window instead of walking the whole grid.
+ */
+export interface ConstantEnds {
+  first: number;
+  end: number;
+}
+
+/**
+ * Finds the constant runs at both ends of a transmission (exact equality: the split changes no result). `known`
+ * (from the code that filled `t`) lets the search start inside the window; the runs found are the same.
+ */
+export function channelSupport(t: Float64Array, known?: ConstantEnds): ChannelSupport {
   const n = t.length;
   const left = t[0];
   const right = t[n - 1];
-  let first = 1;
+  let first = Math.max(1, known ? known.first : 1);
   while (first < n && t[first] === left) first++;
-  let end = n - 1;
+  let end = Math.min(n - 1, known ? Math.max(known.end, first) : n - 1);
   while (end > first && t[end - 1] === right) end--;
   return { t, first: Math.min(first, n), end: Math.max(end, Math.min(first, n)), left, right };
 }

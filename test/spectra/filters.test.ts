@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import erf from '@stdlib/math-base-special-erf';
-import { DEFAULT_GRID, FILTER_DEFAULTS, SpectraError, channelTransmission, filterTransmission, makeGrid } from '../../spectra/index';
-import type { FilterSpec, WavelengthGrid } from '../../spectra/index';
+import { DEFAULT_GRID, FILTER_DEFAULTS, SpectraError, channelSupport, channelTransmission, filterTransmission, makeGrid } from '../../spectra/index';
+import type { ChannelSpec, ConstantEnds, FilterSpec, WavelengthGrid } from '../../spectra/index';
 
 const at = (t: Float64Array, grid: WavelengthGrid, nm: number) => t[Math.round((nm - grid.startNm) / grid.stepNm)];
 
@@ -119,6 +119,28 @@ describe('channelTransmission', () => {
     const a = filterTransmission(bp, DEFAULT_GRID);
     const b = filterTransmission(lp, DEFAULT_GRID);
     for (let i = 0; i < t.length; i += 7) expect(t[i]).toBeCloseTo(a[i] * b[i], 15);
+  });
+
+  it('channelTransmission reports ends outside which the curve really is constant, and they change no run found', () => {
+    const channels: ChannelSpec[] = [
+      { id: 'a', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 24 }] },
+      { id: 'b', filters: [{ type: 'longpass', edgeNm: 650 }, { type: 'shortpass', edgeNm: 700, blockingOD: 3 }] },
+      { id: 'c', filters: [{ type: 'dichroic', edgeNm: 560, passes: 'below' }, { type: 'table', points: [[400, 0.2], [500, 0.8]] }] },
+      { id: 'd', filters: [{ type: 'bandpass', centerNm: 520, widthNm: 10, edgeWidthNm: 0 }] },
+      { id: 'e', filters: [{ type: 'bandpass', centerNm: 700, widthNm: 40 }], detector: 'pmt-gaasp' },
+      { id: 'f', filters: [] },
+      { id: 'g', filters: [{ type: 'longpass', edgeNm: 200 }, { type: 'shortpass', edgeNm: 1200 }] },
+    ];
+    for (const channel of channels) {
+      const ends: ConstantEnds = { first: -1, end: -1 };
+      const t = channelTransmission(channel, DEFAULT_GRID, [], ends);
+      expect(ends.first).toBeGreaterThanOrEqual(0);
+      expect(ends.end).toBeGreaterThanOrEqual(ends.first);
+      expect(ends.end).toBeLessThanOrEqual(t.length);
+      for (let i = 0; i < ends.first; i++) expect(t[i]).toBe(t[0]);
+      for (let i = ends.end; i < t.length; i++) expect(t[i]).toBe(t[t.length - 1]);
+      expect(channelSupport(t, ends)).toEqual(channelSupport(t));
+    }
   });
 
   it('channelTransmission names the nested field of a bad filter: ["channels", 2, "filters", 0, "widthNm"]', () => {
