@@ -106,11 +106,25 @@ describe('unmixNnls', () => {
       const m = randomMatrix(10, 6, 100 + seed);
       const y = randomMatrix(10, 1, 200 + seed).map((row) => row[0]);
       const ref = fcnnlsVector(m, y).K.to1DArray();
-      const ours = unmixNnls(m, y).abundances as number[];
+      const result = unmixNnls(m, y);
+      expect(result.warnings).toEqual([]); // converged within Lawson–Hanson's iteration bound
+      const ours = result.abundances as number[];
       ours.forEach((a, j) => expect(a).toBeCloseTo(ref[j], 8));
       if (ours.some((a) => a === 0)) constrained++;
     }
     expect(constrained).toBeGreaterThan(5);
+  });
+
+  // These seeds were picked because Lawson–Hanson's inner loop must step back and free a variable on them.
+  it('unmixNnls matches ml-fcnnls where a variable has to leave the passive set again', () => {
+    for (const seed of [47, 202, 379, 385]) {
+      const m = randomMatrix(10, 6, 100 + seed);
+      const y = randomMatrix(10, 1, 200 + seed).map((row) => row[0]);
+      const ref = fcnnlsVector(m, y).K.to1DArray();
+      const result = unmixNnls(m, y);
+      expect(result.warnings).toEqual([]);
+      (result.abundances as number[]).forEach((a, j) => expect(a).toBeCloseTo(ref[j], 8));
+    }
   });
 
   // Reference value from the ml-fcnnls README example: K ≈ [0.4610, 0.5611, 0].
