@@ -38,7 +38,7 @@ export const DotRequest = z
   .superRefine(checkDotSize);
 
 /** A sampled spectrum in a response: values at startNm + i × stepNm. */
-export const SampledSpectrumJson = z.object({
+export const SampledSpectrumJson = z.strictObject({
   startNm: z.number(),
   stepNm: z.number(),
   values: z.array(z.number()),
