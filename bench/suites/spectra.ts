@@ -2,10 +2,13 @@
  * Panel evaluation speed against the numpy script a scientist would otherwise write (/work/shared/bench/
  * numpy_evaluate.py, or QDPANEL_NUMPY_SCRIPT): the same 8 × 8 work, peaks 490–715 nm, 24 nm bandpasses centred on
  * them, 1 nm grid 300–1000 nm, collected + spillover + condition number. Target: at most half numpy's time.
- * Rows: warm (resolved dots cached, everything else recomputed: the usual case when a panel is edited or a design
- * search re-evaluates the same probes), cold (dot cache emptied before every run, so 8 resolveDot calls are included),
- * with the lot-shift check, 16 × 16, a 32-bin spectral detector, and one resolveDot. The machine is shared, so numpy
- * and the two 8 × 8 rows run in alternating rounds and the best round of each is compared.
+ * Headline row, like for like: the resolved-dot cache is emptied before every run, so the 8 emission spectra (and
+ * absorption, sizing, line width) and the 8 filter transmissions are computed from scratch each time, as numpy does.
+ * What stays warm is per material, not per probe (the smooth size fit and the inverse sizing table, built once per
+ * process, like the coefficients numpy's script holds as literals). Second row, not like for like: dots cached (the
+ * usual case when a panel is edited or a design search re-evaluates the same probes). Then the lot-shift check,
+ * 16 × 16, a 32-bin spectral detector, and one resolveDot. The machine is shared, so numpy and the two 8 × 8 rows run
+ * in alternating rounds and the best round of each is compared.
  */
 import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
@@ -60,11 +63,11 @@ export default async function spectraSuite(): Promise<BenchRow[]> {
     channels: Array.from({ length: 32 }, (_, i) => ({ id: `bin${i}`, filters: [{ type: 'bandpass' as const, centerNm: 455 + 10 * i, widthNm: 10, edgeWidthNm: 1 }] })),
   };
   const paired: [string, () => void][] = [
-    ['evaluatePanel 8x8 warm (dots cached, no lot shift)', () => void evaluatePanel(panel8, { sensitivity: false })],
-    ['evaluatePanel 8x8 cold (8 resolveDot, no lot shift)', () => {
+    ['HEADLINE evaluatePanel 8x8 from scratch (dot cache emptied each run: 8 dots + 8 filters computed, as numpy)', () => {
       clearResolvedDotCache();
       evaluatePanel(panel8, { sensitivity: false });
     }],
+    ['evaluatePanel 8x8 dots cached (not like for like: no emission computed)', () => void evaluatePanel(panel8, { sensitivity: false })],
   ];
   // The machine is shared: alternate numpy and our runs, and compare the best round of each (least disturbed).
   const numpyUs: number[] = [];
@@ -84,7 +87,7 @@ export default async function spectraSuite(): Promise<BenchRow[]> {
     return {
       ...best,
       note: `best of ${ROUNDS} rounds; round medians ${perRound.map((r) => (r.medianMs === null ? '—' : (r.medianMs * 1000).toFixed(1))).join(' / ')} us`,
-      extra: ratio === null ? { ratioToNumpy: null, target: '<= 0.5' } : { ratioToNumpy: Number(ratio.toFixed(3)), target: '<= 0.5' },
+      extra: { ratioToNumpy: ratio === null ? null : Number(ratio.toFixed(3)), target: k === 0 ? '<= 0.5' : 'none (not like for like)' },
     };
   });
   rows.push({
