@@ -61,8 +61,9 @@ export class DesignForm extends LitElement {
   static override styles = css`
     :host { display: block; font-size: 0.9rem; }
     fieldset { border: 1px solid #ccd; margin: 0.4rem 0; }
-    .row { display: flex; gap: 0.4rem; align-items: center; margin: 0.2rem 0; }
-    input[type='text'], input[type='number'] { width: 8rem; }
+    .row { display: flex; flex-wrap: wrap; gap: 0.4rem; align-items: center; margin: 0.2rem 0; }
+    fieldset { min-width: 0; }
+    input[type='text'], input[type='number'] { width: 8rem; max-width: 40vw; }
     .error { color: #8b1a1a; font-weight: 600; }
     table { border-collapse: collapse; } td, th { padding: 0.1rem 0.5rem; text-align: right; } th:first-child, td:first-child { text-align: left; }
     button:focus-visible, input:focus-visible { outline: 3px solid #1a56db; }
