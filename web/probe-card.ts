@@ -1,6 +1,7 @@
 /**
  * <qdp-probe-card>: edit one probe (material, emission peak or core diameter, size dispersion, quantum yield, target,
- * abundance, assigned channel, measured emission) and read what the model predicts for it. Fires `probe-change`
+ * abundance, assigned channel, measured emission), read what the model predicts for it and its material's hazard
+ * notes and cautions (collapsed, beside the probe). Fires `probe-change`
  * {index, probe} and `probe-remove` {index}.
  */
 import { LitElement, css, html } from 'lit';
@@ -31,7 +32,7 @@ export class ProbeCard extends LitElement {
     label.text { min-width: 0; max-width: 100%; }
     :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
     .pred { font-size: 0.85rem; color: #222; background: #f3f4f8; padding: 0.3rem 0.5rem; border-radius: 4px; }
-    .hazard { font-size: 0.8rem; } .high { color: #8b1a1a; } .moderate { color: #7a4a00; } .low { color: #2f4f2f; }
+    .hazard { font-size: 0.8rem; } details.hazard ul { color: #222; margin: 0.2rem 0; padding-left: 1.2rem; } .high { color: #8b1a1a; } .moderate { color: #7a4a00; } .low { color: #2f4f2f; }
     .bad { color: #8b1a1a; font-weight: 600; }
     header { display: flex; justify-content: space-between; align-items: center; gap: 0.5rem; }
   `;
@@ -96,7 +97,9 @@ export class ProbeCard extends LitElement {
           <option value="" ?selected=${!p.channel}>automatic (most light)</option>
           ${this.channels.map((c) => html`<option value=${c.id} ?selected=${c.id === p.channel}>${c.label || c.id}</option>`)}</select></label>
       </div>
-      ${m ? html`<p class="hazard ${m.toxicity.level}">${m.name}: hazard ${m.toxicity.level} (see material cautions)</p>` : ''}
+      ${m ? html`<details class="hazard ${m.toxicity.level}"><summary>${m.name}: hazard ${m.toxicity.level}; notes and cautions</summary>
+        ${m.toxicity.notes.length ? html`<ul>${m.toxicity.notes.map((n) => html`<li>${n}</li>`)}</ul>` : ''}
+        <p><strong>Cautions</strong></p><ul>${m.toxicity.cautions.map((n) => html`<li>${n}</li>`)}</ul></details>` : ''}
       ${this.errors[''] ? html`<p class="bad" role="alert">${this.errors['']}</p>` : ''}
       <p class="pred" aria-label="Predicted properties">${pr
         ? `Predicted: core ${fmt(pr.diameterNm, 2)} nm · first exciton ${fmt(pr.firstExcitonNm)} nm · emission peak ${fmt(pr.emissionPeakNm)} nm · FWHM ${fmt(pr.fwhmNm)} nm · relative brightness ${fmt(pr.relativeBrightness * 100)} %${pr.measured ? ' · measured emission' : ''}`

@@ -11,7 +11,7 @@ export interface ProbeCardMaterial {
   typicalQuantumYield: number;
   typicalSizeDispersionPct: number | null;
   typicalFwhmNm: number;
-  toxicity: { level: 'high' | 'moderate' | 'low' };
+  toxicity: { level: 'high' | 'moderate' | 'low'; notes: string[]; cautions: string[] };
 }
 
 /** What the model predicts for one probe, for the read-out under its fields. */

@@ -64,6 +64,21 @@ describe('editors', () => {
     expect(el.shadowRoot!.textContent).toContain('emission peak 605 nm · FWHM 29 nm');
   });
 
+  it('<qdp-probe-card> shows its material\'s hazard level, notes and cautions beside the probe, never calling it safe', async () => {
+    const el = document.createElement('qdp-probe-card');
+    el.probe = { id: 'p1', label: 'Orange', material: 'cdse', emissionPeakNm: 605 };
+    el.materials = listMaterials();
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const cdse = listMaterials().find((m) => m.id === 'cdse')!;
+    const box = el.shadowRoot!.querySelector('details.hazard')!;
+    expect(box.querySelector('summary')!.textContent).toContain(`hazard ${cdse.toxicity.level}`);
+    const items = [...box.querySelectorAll('li')].map((li) => li.textContent);
+    expect(items).toEqual([...cdse.toxicity.notes, ...cdse.toxicity.cautions]);
+    expect(box.textContent).toMatch(/local regulations/);
+    expect(box.textContent).not.toMatch(/\bsafe\b/i);
+  });
+
   it('<qdp-channel-card> fires channel-change with the new bandpass width', async () => {
     const el = document.createElement('qdp-channel-card');
     const channel: ChannelSpec = { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] };
