@@ -1,0 +1,98 @@
+// Component tests in headless Chromium for the excitation/background editor and the measured-spectrum input.
+import { afterEach, describe, expect, it } from 'vitest';
+import type { PanelSpec, SpectrumPoints } from '../../spectra/index';
+import '../../web/light-editor';
+import '../../web/spectrum-input';
+import { demoPanel } from '../../web/demo-panel';
+
+afterEach(() => document.body.replaceChildren());
+
+type Updating = HTMLElement & { updateComplete: Promise<unknown> };
+
+async function mountEditor(panel: PanelSpec) {
+  const el = document.createElement('qdp-light-editor');
+  el.panel = panel;
+  document.body.appendChild(el);
+  await el.updateComplete;
+  const edits: PanelSpec[] = [];
+  el.addEventListener('panel-edit', (e) => edits.push((e as CustomEvent<{ panel: PanelSpec }>).detail.panel));
+  return { el, edits };
+}
+
+function paste(input: Updating, text: string): void {
+  const area = input.shadowRoot!.querySelector('textarea')!;
+  area.value = text;
+  area.dispatchEvent(new Event('input', { bubbles: true, composed: true }));
+  input.shadowRoot!.querySelector('button')!.click();
+}
+
+describe('<qdp-light-editor>', () => {
+  it('<qdp-light-editor> turns the sample background on at level 0.1 and off again through its checkbox', async () => {
+    const { background: _bg, ...withoutBackground } = demoPanel();
+    const { el, edits } = await mountEditor(withoutBackground);
+    const box = el.shadowRoot!.querySelector('input[type="checkbox"]') as HTMLInputElement;
+    expect(box.checked).toBe(false);
+    box.click();
+    expect(edits.at(-1)?.background).toEqual({ level: 0.1 });
+    el.panel = edits.at(-1)!;
+    await el.updateComplete;
+    (el.shadowRoot!.querySelector('input[type="checkbox"]') as HTMLInputElement).click();
+    expect(edits.at(-1)).not.toHaveProperty('background');
+  });
+
+  it('<qdp-light-editor> sends a typed background level and a pasted measured background in panel-edit', async () => {
+    const { el, edits } = await mountEditor({ ...demoPanel(), background: { level: 0.1 } });
+    const level = [...el.shadowRoot!.querySelectorAll('qdp-number-field')].find((f) => (f as unknown as { label: string }).label === 'Background level') as Updating;
+    await level.updateComplete;
+    const input = level.shadowRoot!.querySelector('input')!;
+    input.value = '0.4';
+    input.dispatchEvent(new Event('input', { bubbles: true, composed: true }));
+    expect(edits.at(-1)?.background).toEqual({ level: 0.4 });
+    const spectrum = el.shadowRoot!.querySelector('qdp-spectrum-input') as Updating;
+    await spectrum.updateComplete;
+    paste(spectrum, '450,0.1\n500,1\n550,0.5\n600,0.1');
+    expect(edits.at(-1)?.background).toEqual({ level: 0.1, points: [[450, 0.1], [500, 1], [550, 0.5], [600, 0.1]] });
+  });
+
+  it('<qdp-light-editor> adds a second excitation line and then offers to remove either', async () => {
+    const { el, edits } = await mountEditor(demoPanel());
+    const add = [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent?.includes('Add excitation line'))!;
+    add.click();
+    expect(edits.at(-1)?.excitation.map((l) => l.wavelengthNm)).toEqual([405, 488]);
+    el.panel = edits.at(-1)!;
+    await el.updateComplete;
+    const removes = [...el.shadowRoot!.querySelectorAll('button')].filter((b) => b.textContent === 'Remove line');
+    expect(removes).toHaveLength(2);
+  });
+});
+
+describe('<qdp-spectrum-input>', () => {
+  async function mountInput() {
+    const el = document.createElement('qdp-spectrum-input');
+    el.kind = 'transmission';
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const loaded: SpectrumPoints[] = [];
+    el.addEventListener('spectrum-loaded', (e) => loaded.push((e as CustomEvent<{ points: SpectrumPoints }>).detail.points));
+    return { el, loaded };
+  }
+
+  it('<qdp-spectrum-input> reads a pasted transmission table in percent as 0–1 and fires spectrum-loaded', async () => {
+    const { el, loaded } = await mountInput();
+    paste(el, 'nm,T %\n500,0\n600,90\n700,0');
+    await el.updateComplete;
+    expect(loaded).toEqual([[[500, 0], [600, 0.9], [700, 0]]]);
+    expect(el.shadowRoot!.querySelector('[role="status"]')!.textContent).toContain('Loaded 3 points');
+  });
+
+  it('<qdp-spectrum-input> shows the parser message naming the line of a bad row, keeps the text and fires nothing', async () => {
+    const { el, loaded } = await mountInput();
+    paste(el, '500,0.1\n490,0.5');
+    await el.updateComplete;
+    expect(loaded).toEqual([]);
+    expect(el.shadowRoot!.querySelector('[role="status"]')!.textContent).toMatch(/line 2/);
+    const area = el.shadowRoot!.querySelector('textarea')!;
+    expect(area.value).toBe('500,0.1\n490,0.5');
+    expect(area.getAttribute('aria-invalid')).toBe('true');
+  });
+});
