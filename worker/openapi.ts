@@ -20,6 +20,9 @@ const COMPONENTS: [string, z.ZodType][] = [
   ['ResolvedDot', schemas.ResolvedDotJson],
   ['Evaluation', schemas.Evaluation],
   ['DesignRequest', DesignRequest],
+  ['DesignResponse', schemas.DesignResponse],
+  ['MaterialList', schemas.MaterialList],
+  ['DetectorList', schemas.DetectorList],
 ];
 
 const ref = (name: string): Json => ({ $ref: `#/components/schemas/${name}` });
@@ -35,7 +38,6 @@ const get = (summary: string, ok: Json): Json => ({ get: { summary, responses: {
 const post = (summary: string, body: string, responses: Json): Json => ({
   post: { summary, requestBody: { required: true, ...json(ref(body), body) }, responses: { ...responses, ...errors } },
 });
-const list = (key: string, item: string): Json => ({ type: 'object', properties: { [key]: { type: 'array', items: ref(item) } } });
 
 function componentSchemas(): Json {
   const registry = z.registry<{ id: string }>();
@@ -60,8 +62,8 @@ export function openApiDocument(): Json {
     paths: {
       '/api/v1/health': get('liveness and version', json(ref('Health'), 'ok')),
       '/api/v1/openapi.json': get('this document', json({ type: 'object' }, 'OpenAPI 3.1')),
-      '/api/v1/materials': get('materials with sizing ranges and cautions', json(list('materials', 'Material'), 'ok')),
-      '/api/v1/detectors': get('generic detector classes', json(list('detectors', 'Detector'), 'ok')),
+      '/api/v1/materials': get('materials with sizing ranges and cautions', json(ref('MaterialList'), 'ok')),
+      '/api/v1/detectors': get('generic detector classes', json(ref('DetectorList'), 'ok')),
       '/api/v1/dots/resolve': post('one dot: size, peak, spectrum', 'DotRequest', { '200': json(ref('ResolvedDot'), 'ok') }),
       '/api/v1/panels/evaluate': post('collected light, spillover, unmixing noise', 'Panel', {
         '200': json(ref('Evaluation'), 'ok'),
@@ -72,7 +74,7 @@ export function openApiDocument(): Json {
         '429': json(ref('Error'), 'too many new links from this client (see Retry-After)'),
       }),
       '/api/v1/panels/design': post('propose dots and filters for a set of targets (exact on a catalog; best found under a node budget)', 'DesignRequest', {
-        '200': json({ type: 'object', required: ['panel', 'evaluation', 'objective', 'exact', 'stats'] }, 'the proposal, its evaluation, objective and search statistics'),
+        '200': json(ref('DesignResponse'), 'the proposal, its evaluation, objective and search statistics'),
       }),
       '/api/v1/panels/{id}': {
         get: {
