@@ -25,6 +25,8 @@ export interface StartedApp {
   workerdPid(): number | null;
   /** Resident memory of workerd in KiB (VmRSS from /proc/<pid>/status), or null. */
   workerdRssKiB(): number | null;
+  /** CPU time (user + system) used so far by each workerd process of the group, ms, keyed by pid. */
+  workerdCpuMs(): Map<number, number>;
   /** Sends a signal to the whole process group and waits for the leader to exit (SIGKILL after 5 s). */
   stop(signal?: NodeJS.Signals): Promise<void>;
   /** The last 8,000 characters of the server's output. */
@@ -85,6 +87,20 @@ function groupPids(pgid: number, comm: string): number[] {
     }
   }
   return out;
+}
+
+// Linux's USER_HZ: /proc/<pid>/stat counts CPU time in 1/100 s on every common architecture.
+const CLOCK_TICKS_PER_S = 100;
+
+function cpuMs(pid: number): number {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    // utime and stime are fields 14 and 15 of stat(5), i.e. indices 11 and 12 after the name.
+    return ((Number(fields[11]) + Number(fields[12])) * 1000) / CLOCK_TICKS_PER_S;
+  } catch {
+    return 0;
+  }
 }
 
 function rssKiB(pid: number): number | null {
@@ -170,6 +186,7 @@ async function startOnce(options: { persistDir?: string; port?: number; timeoutM
       const pid = workerdPid();
       return pid === null ? null : rssKiB(pid);
     },
+    workerdCpuMs: () => new Map(groupPids(pgid, 'workerd').map((pid) => [pid, cpuMs(pid)])),
     stop,
     log: () => output,
   };
