@@ -73,7 +73,8 @@ export interface BackgroundSpec {
 }
 
 export interface PanelSpec {
-  version: 1;
+  /** Panel format version; 1 when absent (the only version so far). */
+  version?: 1;
   title?: string;
   excitation: ExcitationLine[];
   probes: ProbeSpec[];

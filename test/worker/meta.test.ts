@@ -35,7 +35,9 @@ describe('health and description', () => {
     const doc = (await (await worker.call('/api/v1/openapi.json')).json()) as { components: { schemas: Record<string, any> } };
     const panel = doc.components.schemas.Panel;
     expect(panel.additionalProperties).toBe(false);
-    expect(panel.required).toEqual(expect.arrayContaining(['version', 'excitation', 'probes', 'channels']));
+    expect(panel.required).toEqual(expect.arrayContaining(['excitation', 'probes', 'channels']));
+    // api-v1: only type, the wavelength fields and the ids are required; version defaults to 1.
+    expect(panel.required).not.toContain('version');
     expect(panel.properties.probes.maxItems).toBe(16);
     expect(panel.properties.channels.maxItems).toBe(64);
   });

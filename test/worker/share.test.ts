@@ -37,6 +37,16 @@ describe('POST /api/v1/panels', () => {
     expect(b.id).toBe(a.id);
   });
 
+  it('POST /api/v1/panels accepts a panel without version (api-v1: version defaults to 1) and returns it as sent', async () => {
+    const { version: _version, ...unversioned } = { ...examplePanel(), title: 'no version field' };
+    const res = await postJson(worker, '/api/v1/panels', unversioned);
+    expect(res.status).toBe(201);
+    const { id } = (await res.json()) as { id: string };
+    expect(await (await worker.call(`/api/v1/panels/${id}`)).json()).toStrictEqual(unversioned);
+    const evaluated = await postJson(worker, '/api/v1/panels/evaluate', unversioned);
+    expect(evaluated.status).toBe(200);
+  });
+
   it('POST /api/v1/panels gives different panels different ids', async () => {
     const a = (await (await postJson(worker, '/api/v1/panels', examplePanel())).json()) as { id: string };
     const other = { ...examplePanel(), title: 'another title' };

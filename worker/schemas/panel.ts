@@ -39,7 +39,7 @@ export const Background = z.strictObject({
 /** A panel as the API takes it (shared/api-v1.md, "Panels"): the single source of truth for its shape. */
 export const Panel = z
   .strictObject({
-    version: z.literal(1, { error: 'must be 1' }),
+    version: z.literal(1, { error: 'must be 1' }).optional(),
     title: text().optional(),
     excitation: z
       .array(ExcitationLine, { error: 'must be an array of excitation lines' })
