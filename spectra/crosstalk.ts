@@ -8,7 +8,7 @@
  */
 import type { ChannelSpec, ExcitationLine } from './panel';
 import { SpectraError } from './errors';
-import { channelSupport, partialSums, windowDot, type ChannelSupport, type ConstantEnds } from './linalg/runs';
+import { channelSupport, windowDot, type ChannelSupport, type ConstantEnds } from './linalg/runs';
 
 /** One emission spectrum of a probe and its weight in each channel (Σ powerRel × ε × QY × abundance over lines on). */
 export interface EmissionComponent {
@@ -42,20 +42,60 @@ export function linesOn(channel: ChannelSpec, lines: ExcitationLine[], path: (st
 }
 
 /**
+ * Partial sums of an emission over the window [from, to) outside which it is exactly 0 (a modelled line is cut at
+ * ±11σ; measured spectra are 0 beyond their table): prefix[k] = Σ em[from .. from+k), summed from the blue end, and
+ * suffix[k] = Σ em[from+k .. to), summed from the red end. The zeros outside add nothing, so these are the sums over
+ * the whole grid, exactly, at a fraction of the work and memory.
+ */
+interface EmissionSums {
+  from: number;
+  to: number;
+  prefix: Float64Array;
+  suffix: Float64Array;
+}
+
+// Emission arrays of resolved dots are immutable and come back evaluation after evaluation (the dot cache): keep
+// their sums beside them, dropped with the array.
+const sumsOf = new WeakMap<Float64Array, EmissionSums>();
+
+function emissionSums(em: Float64Array): EmissionSums {
+  const known = sumsOf.get(em);
+  if (known) return known;
+  let from = 0;
+  let to = em.length;
+  while (from < to && em[from] === 0) from++;
+  while (to > from && em[to - 1] === 0) to--;
+  const n = to - from;
+  const prefix = new Float64Array(n + 1);
+  const suffix = new Float64Array(n + 1);
+  for (let k = 0; k < n; k++) prefix[k + 1] = prefix[k] + em[from + k];
+  for (let k = n - 1; k >= 0; k--) suffix[k] = suffix[k + 1] + em[from + k];
+  const sums = { from, to, prefix, suffix };
+  sumsOf.set(em, sums);
+  return sums;
+}
+
+/**
  * One probe's column of collected (one value per channel), Σλ em T Δλ taken over each channel's runs and window.
  * The emission's sums over the left runs are accumulated from the blue end, those over the right runs from the red
- * end, so a tiny tail is never the difference of two large sums (it matters against a 10^-12 blocking floor).
+ * end, so a tiny tail is never the difference of two large sums (it matters against a 10^-12 blocking floor). Only
+ * the part of the channel's window where the emission is not 0 is summed point by point.
  * Emission arrays must not be changed after their first use here (their partial sums are kept).
  */
 export function collectedColumn(components: EmissionComponent[], supports: ChannelSupport[], stepNm: number): number[] {
   const column = new Array<number>(supports.length).fill(0);
-  for (const { emission, weightByChannel } of components) {
-    const { prefix, suffix } = partialSums(emission);
+  for (let k = 0; k < components.length; k++) {
+    const { emission, weightByChannel } = components[k];
+    const { from, to, prefix, suffix } = emissionSums(emission);
+    const n = to - from;
     for (let c = 0; c < supports.length; c++) {
       const w = weightByChannel[c];
       if (w === 0) continue;
       const { t, first, end, left, right } = supports[c];
-      column[c] += w * (left * prefix[first] + windowDot(emission, t, first, end) + right * suffix[end]) * stepNm;
+      const leftSum = prefix[Math.min(Math.max(first - from, 0), n)];
+      const rightSum = suffix[Math.min(Math.max(end - from, 0), n)];
+      const inside = windowDot(emission, t, Math.max(first, from), Math.min(end, to));
+      column[c] += w * (left * leftSum + inside + right * rightSum) * stepNm;
     }
   }
   return column;

@@ -40,8 +40,25 @@ export interface ResolvedDot {
   absorption: SampledSpectrum;
 }
 
-// The exact absorption model behind each resolved dot, so extinctionAtNm is not limited to the grid.
-const absorptionModels = new WeakMap<ResolvedDot, AbsorptionModel>();
+// The exact absorption model behind each resolved dot (so extinctionAtNm is not limited to the grid), and its grid.
+const absorptionModels = new WeakMap<ResolvedDot, { model: AbsorptionModel; grid: WavelengthGrid }>();
+
+// Sampling the absorption on the grid costs as much as the emission, and a panel evaluation never reads it (it uses
+// extinctionAtNm, the exact model): `absorption` is an accessor that samples on first read, then becomes a plain data
+// property. Enumerable, so spreading or serialising a dot includes it as before. Module-level functions and one shared
+// descriptor: nothing is allocated per dot for this.
+function readAbsorption(this: ResolvedDot): SampledSpectrum {
+  const { model, grid } = absorptionModels.get(this)!;
+  const absorption = sampleExtinction(model, grid);
+  Object.defineProperty(this, 'absorption', { value: absorption, writable: true, enumerable: true, configurable: true });
+  return absorption;
+}
+
+function writeAbsorption(this: ResolvedDot, value: SampledSpectrum): void {
+  Object.defineProperty(this, 'absorption', { value, writable: true, enumerable: true, configurable: true });
+}
+
+const LAZY_ABSORPTION: PropertyDescriptor = { get: readAbsorption, set: writeAbsorption, enumerable: true, configurable: true };
 
 /**
  * Resolves a probe description to its size, peaks, width and spectra on `options.grid` (default 300–1000 nm, 1 nm).
@@ -82,11 +99,11 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
     fwhmNm = fwhmNmOfLine(centerEv, part.fwhmEv!);
   }
 
-  const absorptionModel: AbsorptionModel = extinctionTable ? { type: 'table', points: extinctionTable } : part.absorption(emissionPeakNm);
+  const absorptionModel: AbsorptionModel = extinctionTable ? { type: 'table', points: extinctionTable } : part.absorption;
   if (!extinctionTable && part.absorptionWarning) warnings.push(part.absorptionWarning);
   if (extinctionTable && extinctionTable.some((p) => p[1] < 0)) warnings.push('Measured extinction has negative values; they are used as given.');
   const firstExcitonNm = part.firstExcitonNm;
-  const dot: ResolvedDot = {
+  const dot = {
     material,
     diameterNm: part.diameterNm,
     firstExcitonNm,
@@ -99,9 +116,9 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
     measured: { emission: measuredEm !== null, extinction: extinctionTable !== null },
     warnings,
     emission,
-    absorption: sampleExtinction(absorptionModel, grid),
-  };
-  absorptionModels.set(dot, absorptionModel);
+  } as ResolvedDot;
+  Object.defineProperty(dot, 'absorption', LAZY_ABSORPTION);
+  absorptionModels.set(dot, { model: absorptionModel, grid });
   return dot;
 }
 
@@ -110,8 +127,8 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
  * from resolveDot in this process, else interpolated on its sampled absorption (0 off the grid).
  */
 export function extinctionAtNm(dot: ResolvedDot, wavelengthNm: number): number {
-  const model = absorptionModels.get(dot);
-  const eps = model ? modelExtinctionAtNm(model, wavelengthNm) : spectrumAtNm(dot.absorption, wavelengthNm);
+  const exact = absorptionModels.get(dot);
+  const eps = exact ? modelExtinctionAtNm(exact.model, wavelengthNm) : spectrumAtNm(dot.absorption, wavelengthNm);
   return Number.isFinite(eps) ? eps : 0;
 }
 

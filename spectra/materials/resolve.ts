@@ -8,7 +8,7 @@ import { CARBON_ABSORPTION, CUSTOM_NOMINAL_EXTINCTION, FIRST_EXCITON_SHARE, INTR
 import { SIZE_LAWS } from './laws';
 import type { SizedMaterialId } from './params';
 import { RECORDS } from './records';
-import { diameterForEmissionPeakNm, emissionPeakForDiameterNm } from './sizing';
+import { diameterForEmissionPeakNm, sizedDotPeaks } from './sizing';
 import { CARBON_EMISSION_RANGE_NM } from './table';
 import { emissionFwhmEv } from './width';
 
@@ -23,7 +23,8 @@ export interface ModelPart {
   model: string;
   typicalQuantumYield: number;
   warnings: string[];
-  absorption(emissionPeakNm: number): AbsorptionModel;
+  /** The modelled absorption (replaced by a measured extinction when one is given). */
+  absorption: AbsorptionModel;
   absorptionWarning: string | null;
 }
 
@@ -43,8 +44,7 @@ export function resolveSized(material: SizedMaterialId, raw: Raw, measuredPeakNm
   const diameterNm = hasD ? (raw.diameterNm as number)
     : hasPeak ? diameterForEmissionPeakNm(material, raw.emissionPeakNm as number)
     : diameterForEmissionPeakNm(material, measuredPeakNm!, ['measuredEmission']);
-  const peakNm = emissionPeakForDiameterNm(material, diameterNm); // validates diameterNm
-  const e1 = law.firstExcitonEv(diameterNm);
+  const { firstExcitonEv: e1, emissionPeakNm: peakNm } = sizedDotPeaks(material, diameterNm); // validates diameterNm
   const fwhmEv = fwhmNmIn !== undefined ? fwhmEvForFwhmNm(peakNm, fwhmNmIn) : emissionFwhmEv(material, diameterNm, pct);
   const warnings: string[] = [];
   if (fwhmNmIn !== undefined && raw.sizeDispersionPct !== undefined) warnings.push('fwhmNm was given, so sizeDispersionPct does not set the width.');
@@ -54,7 +54,7 @@ export function resolveSized(material: SizedMaterialId, raw: Raw, measuredPeakNm
   return {
     diameterNm, firstExcitonNm: evToNm(e1), peakNm, fwhmEv, model: law.model,
     typicalQuantumYield: rec.typicalQuantumYield, warnings,
-    absorption: () => ({ type: 'exciton', firstExcitonEv: e1, firstExcitonEpsilon: published ?? FIRST_EXCITON_SHARE * eps350, lineFwhmEv: fwhmEv, epsilonAt350: eps350 }),
+    absorption: { type: 'exciton', firstExcitonEv: e1, firstExcitonEpsilon: published ?? FIRST_EXCITON_SHARE * eps350, lineFwhmEv: fwhmEv, epsilonAt350: eps350 },
     absorptionWarning: published === null
       ? `No published extinction law for ${material}: a nominal volume-scaled model is used (from memory, unverified); supply a measured extinction where brightness matters.`
       : null,
@@ -83,7 +83,7 @@ export function resolveCarbon(raw: Raw, excitationNm: number | undefined, measur
     diameterNm: null, firstExcitonNm: null, peakNm, fwhmEv: fwhmEvForFwhmNm(peakNm, fwhmNm),
     model: 'carbon-dot nominal model (no size law; approximate excitation dependence)',
     typicalQuantumYield: rec.typicalQuantumYield, warnings,
-    absorption: () => ({ type: 'tail', epsilonAt350: CARBON_ABSORPTION.epsilonAt350, decayNm: CARBON_ABSORPTION.decayNm }),
+    absorption: { type: 'tail', epsilonAt350: CARBON_ABSORPTION.epsilonAt350, decayNm: CARBON_ABSORPTION.decayNm },
     absorptionWarning: 'Carbon-dot extinction is a nominal exponential tail (from memory, unverified); supply a measured extinction where brightness matters.',
   };
 }
@@ -98,7 +98,8 @@ export function resolveCustom(raw: Raw, measured: { peakNm: number } | null): Mo
   return {
     diameterNm: null, firstExcitonNm: null, peakNm: null, fwhmEv: null, model: 'measured',
     typicalQuantumYield: RECORDS.custom.typicalQuantumYield, warnings,
-    absorption: (peakNm) => ({ type: 'flat', epsilon: CUSTOM_NOMINAL_EXTINCTION, untilNm: peakNm }),
+    // A custom probe's emission peak is the measured one.
+    absorption: { type: 'flat', epsilon: CUSTOM_NOMINAL_EXTINCTION, untilNm: measured.peakNm },
     absorptionWarning: `No measured extinction: a flat nominal ${CUSTOM_NOMINAL_EXTINCTION.toExponential(0)} M⁻¹ cm⁻¹ below the emission peak is assumed.`,
   };
 }

@@ -49,16 +49,38 @@ export function firstExcitonNmForDiameter(material: MaterialId, diameterNm: numb
  * @example emissionPeakForDiameterNm('cdse', 4) // ≈ 600
  */
 export function emissionPeakForDiameterNm(material: MaterialId, diameterNm: number): number {
+  return sizedDotPeaks(material, diameterNm).emissionPeakNm;
+}
+
+/**
+ * First-exciton energy (eV) and emission peak (nm) of a dot of core size `diameterNm`, from one evaluation of the
+ * size law (resolveDot needs both). Same checks and errors as emissionPeakForDiameterNm.
+ */
+export function sizedDotPeaks(material: MaterialId, diameterNm: number): { firstExcitonEv: number; emissionPeakNm: number } {
   const law = sizeLawOf(material);
   checkDiameter(material as SizedMaterialId, diameterNm);
   const e1 = law.firstExcitonEv(diameterNm);
-  return evToNm(e1 - stokesShiftEv(material as SizedMaterialId, e1));
+  return { firstExcitonEv: e1, emissionPeakNm: evToNm(e1 - stokesShiftEv(material as SizedMaterialId, e1)) };
+}
+
+// The reach of each size law, computed on first use: every emissionPeakNm input is checked against it.
+const ranges = new Map<MaterialId, readonly [number, number]>();
+
+function rangeOf(material: MaterialId): readonly [number, number] {
+  let range = ranges.get(material);
+  if (!range) {
+    const [lo, hi] = sizeLawOf(material).diameterRangeNm;
+    range = [emissionPeakForDiameterNm(material, lo), emissionPeakForDiameterNm(material, hi)];
+    ranges.set(material, range);
+  }
+  return range;
 }
 
 /** Emission peaks (nm) the size law reaches over its diameter range, [bluest, reddest]. */
 export function emissionRangeForMaterialNm(material: MaterialId): [number, number] {
-  const [lo, hi] = sizeLawOf(material).diameterRangeNm;
-  return [emissionPeakForDiameterNm(material, lo), emissionPeakForDiameterNm(material, hi)];
+  sizeLawOf(material); // the typed error for unknown, carbon and custom materials
+  const [minNm, maxNm] = rangeOf(material);
+  return [minNm, maxNm];
 }
 
 /**
@@ -69,7 +91,7 @@ export function diameterForEmissionPeakNm(material: MaterialId, emissionPeakNm: 
   const law = sizeLawOf(material);
   requireFinite(emissionPeakNm, 'emissionPeakNm', path);
   if (emissionPeakNm <= 0) throw new SpectraError('invalid_input', `emissionPeakNm must be above 0 nm, got ${emissionPeakNm}`, path);
-  const [minNm, maxNm] = emissionRangeForMaterialNm(material);
+  const [minNm, maxNm] = rangeOf(material);
   // Allow a hair of round-off at the ends so the range's own end points resolve.
   if (emissionPeakNm < minNm - 1e-9 || emissionPeakNm > maxNm + 1e-9) {
     throw new SpectraError(

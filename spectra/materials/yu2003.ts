@@ -54,19 +54,68 @@ export function yuDiameterNm(curve: YuCurve, firstExcitonNm: number): number {
   return d;
 }
 
+/** dD/dλ of the published polynomial, nm per nm (Horner's rule on the derivative). */
+function yuSlope(curve: YuCurve, firstExcitonNm: number): number {
+  const c = curve.sizeCoefficients;
+  const degree = c.length - 1;
+  let s = 0;
+  for (let k = 0; k < degree; k++) s = s * firstExcitonNm + (degree - k) * c[k];
+  return s;
+}
+
+// D(λ) tabulated at every nanometre of each curve's bracket (≤ 350 points), built on first use and kept: resolving a
+// dot inverts the curve once or twice, on every cold panel evaluation.
+const TABLE_STEP_NM = 1;
+const tables = new WeakMap<YuCurve, Float64Array>();
+
+function tableOf(curve: YuCurve): Float64Array {
+  let table = tables.get(curve);
+  if (!table) {
+    const [lo, hi] = curve.bracketNm;
+    const n = Math.round((hi - lo) / TABLE_STEP_NM);
+    table = new Float64Array(n + 1);
+    for (let k = 0; k <= n; k++) table[k] = yuDiameterNm(curve, lo + k * TABLE_STEP_NM);
+    tables.set(curve, table);
+  }
+  return table;
+}
+
 /**
- * First-exciton wavelength (nm) whose D(λ) equals `diameterNm`, by bisection on a bracket where D rises monotonically
- * (checked for all three curves over their ranges; the CdTe curve is nearly flat between ~560 and 610 nm, so λ is
- * ill-conditioned there: a 0.1 nm change in D moves λ by ~10 nm). 60 halvings of a ≤ 350 nm bracket reach well below 1e-9 nm.
+ * First-exciton wavelength (nm) whose D(λ) equals `diameterNm`, on a bracket where D rises monotonically (checked for
+ * all three curves over their ranges; the CdTe curve is nearly flat between ~560 and 610 nm, so λ is ill-conditioned
+ * there: a 0.1 nm change in D moves λ by ~10 nm). The 1 nm table gives the interval holding the root; Newton's method
+ * kept inside that interval (a bisection step whenever it would leave it) then converges to round-off. Diameters
+ * beyond the bracket's ends give the nearer end.
  */
 export function yuFirstExcitonNm(curve: YuCurve, diameterNm: number): number {
-  let [lo, hi] = curve.bracketNm;
-  for (let i = 0; i < 60; i++) {
-    const mid = 0.5 * (lo + hi);
-    if (yuDiameterNm(curve, mid) < diameterNm) lo = mid;
-    else hi = mid;
+  const table = tableOf(curve);
+  const [bracketLo, bracketHi] = curve.bracketNm;
+  const last = table.length - 1;
+  if (!(diameterNm > table[0])) return bracketLo;
+  if (!(diameterNm < table[last])) return bracketHi;
+  // Largest k with table[k] < diameterNm (table[0] < d ≤ ... < table[last]).
+  let k = 0;
+  let top = last;
+  while (top - k > 1) {
+    const mid = (k + top) >> 1;
+    if (table[mid] < diameterNm) k = mid;
+    else top = mid;
   }
-  return 0.5 * (lo + hi);
+  let lo = bracketLo + k * TABLE_STEP_NM;
+  let hi = bracketLo + top * TABLE_STEP_NM;
+  // Linear interpolation in the table as the first guess.
+  let x = lo + ((diameterNm - table[k]) / (table[top] - table[k])) * (hi - lo);
+  for (let i = 0; i < 100; i++) {
+    const f = yuDiameterNm(curve, x) - diameterNm;
+    if (f === 0) return x;
+    if (f < 0) lo = x;
+    else hi = x;
+    let next = x - f / yuSlope(curve, x);
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (Math.abs(next - x) <= 1e-15 * x || next === lo || next === hi) return next;
+    x = next;
+  }
+  return x;
 }
 
 /** ε at the first exciton, M⁻¹ cm⁻¹ (Yu et al. 2003 power law). */
