@@ -38,7 +38,8 @@ describe('POST /api/v1/panels', () => {
   });
 
   it('POST /api/v1/panels accepts a panel without version (api-v1: version defaults to 1) and returns it as sent', async () => {
-    const { version: _version, ...unversioned } = { ...examplePanel(), title: 'no version field' };
+    const unversioned: Record<string, unknown> = { ...examplePanel(), title: 'no version field' };
+    delete unversioned.version;
     const res = await postJson(worker, '/api/v1/panels', unversioned);
     expect(res.status).toBe(201);
     const { id } = (await res.json()) as { id: string };
