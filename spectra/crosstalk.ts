@@ -50,8 +50,8 @@ export function linesOn(channel: ChannelSpec, lines: ExcitationLine[], path: (st
 interface EmissionSums {
   from: number;
   to: number;
-  prefix: Float64Array;
-  suffix: Float64Array;
+  /** prefix[k] at k, suffix[k] at n + 1 + k. */
+  sums: number[];
 }
 
 // Emission arrays of resolved dots are immutable and come back evaluation after evaluation (the dot cache): keep
@@ -66,13 +66,19 @@ function emissionSums(em: Float64Array): EmissionSums {
   while (from < to && em[from] === 0) from++;
   while (to > from && em[to - 1] === 0) to--;
   const n = to - from;
-  const prefix = new Float64Array(n + 1);
-  const suffix = new Float64Array(n + 1);
-  for (let k = 0; k < n; k++) prefix[k + 1] = prefix[k] + em[from + k];
-  for (let k = n - 1; k >= 0; k--) suffix[k] = suffix[k + 1] + em[from + k];
-  const sums = { from, to, prefix, suffix };
-  sumsOf.set(em, sums);
-  return sums;
+  // A plain array: on the JS heap it costs a fraction of a typed array's separately allocated store, and most of
+  // these die young (a cold evaluation). Running totals in locals, not read back from the array.
+  const sums = new Array<number>(2 * n + 2);
+  const base = n + 1;
+  let acc = 0;
+  sums[0] = 0;
+  for (let k = 0; k < n; k++) sums[k + 1] = acc += em[from + k];
+  acc = 0;
+  sums[base + n] = 0;
+  for (let k = n - 1; k >= 0; k--) sums[base + k] = acc += em[from + k];
+  const record = { from, to, sums };
+  sumsOf.set(em, record);
+  return record;
 }
 
 /**
@@ -86,14 +92,14 @@ export function collectedColumn(components: EmissionComponent[], supports: Chann
   const column = new Array<number>(supports.length).fill(0);
   for (let k = 0; k < components.length; k++) {
     const { emission, weightByChannel } = components[k];
-    const { from, to, prefix, suffix } = emissionSums(emission);
+    const { from, to, sums } = emissionSums(emission);
     const n = to - from;
     for (let c = 0; c < supports.length; c++) {
       const w = weightByChannel[c];
       if (w === 0) continue;
       const { t, first, end, left, right } = supports[c];
-      const leftSum = prefix[Math.min(Math.max(first - from, 0), n)];
-      const rightSum = suffix[Math.min(Math.max(end - from, 0), n)];
+      const leftSum = sums[Math.min(Math.max(first - from, 0), n)];
+      const rightSum = sums[n + 1 + Math.min(Math.max(end - from, 0), n)];
       const inside = windowDot(emission, t, Math.max(first, from), Math.min(end, to));
       column[c] += w * (left * leftSum + inside + right * rightSum) * stepNm;
     }

@@ -14,20 +14,27 @@ export function logisticScaleNm(edgeWidthNm: number): number {
   return edgeWidthNm / (2 * Math.log(9));
 }
 
-// Beyond 70 scale lengths from an edge exp(-70) ≈ 4e-31: below a 10^-12 floor by 18 decades, so treating the
-// edge as fully closed or open there changes no transmission by more than 1e-18 relative.
-const TAIL_SCALES = 70;
+// An edge is computed only where it still moves the transmission by more than 1e-12 of its value; beyond, the value
+// is exactly the floor (blocked side) or the plateau (open side). Open side: 1/(1 + e^−z) differs from 1 by < e^−z,
+// so z > ln 1e12 ≈ 27.6 scale lengths. Blocked side: floor + span·e^−z is within 1e-12 of the floor once
+// z > ln(span/floor) + ln 1e12 (41 scale lengths at OD 6, 55 at OD 12).
+const OPEN_SIDE_SCALES = Math.log(1e12);
 
-/** Index range [first, last] of grid points within ±70 s of an edge (empty or infinite for a missing edge). */
-function window(grid: WavelengthGrid, edgeNm: number, scaleNm: number): [number, number] {
-  return [Math.ceil((edgeNm - TAIL_SCALES * scaleNm - grid.startNm) / grid.stepNm), Math.floor((edgeNm + TAIL_SCALES * scaleNm - grid.startNm) / grid.stepNm)];
+function blockedSideScales(floor: number, span: number): number {
+  return span > 0 ? Math.max(OPEN_SIDE_SCALES, OPEN_SIDE_SCALES + Math.log(span / floor)) : OPEN_SIDE_SCALES;
+}
+
+/** Index range [first, last] of grid points from `belowScales` below an edge to `aboveScales` above it. */
+function window(grid: WavelengthGrid, edgeNm: number, scaleNm: number, belowScales: number, aboveScales: number): [number, number] {
+  return [Math.ceil((edgeNm - belowScales * scaleNm - grid.startNm) / grid.stepNm), Math.floor((edgeNm + aboveScales * scaleNm - grid.startNm) / grid.stepNm)];
 }
 
 /**
  * Writes floor + span × L(λ − riseNm) × L(fallNm − λ) on the grid into a new array: a passband between a rising edge
- * at riseNm (−Infinity: none) and a falling edge at fallNm (+Infinity: none), both of logistic scale s. Inside ±70 s
- * of an edge the exponential is stepped by a constant ratio per grid point rather than one exp() per point (this
- * runs for every channel of every evaluation); the ratio walk adds at most a few hundred ulps of relative error.
+ * at riseNm (−Infinity: none) and a falling edge at fallNm (+Infinity: none), both of logistic scale s. Near an edge
+ * (where it changes the value by more than 1e-12 relative, see blockedSideScales) the exponential is stepped by a
+ * constant ratio per grid point rather than one exp() per point (this runs for every channel of every evaluation);
+ * the ratio walk adds at most a few hundred ulps of relative error. Elsewhere the floor or plateau is filled in.
  */
 export function fillPassband(
   grid: WavelengthGrid,
@@ -53,8 +60,9 @@ export function fillPassband(
     }
     return out;
   }
-  const [riseFirst, riseLast] = window(grid, riseNm, scaleNm);
-  const [fallFirst, fallLast] = window(grid, fallNm, scaleNm);
+  const blocked = blockedSideScales(floor, span);
+  const [riseFirst, riseLast] = window(grid, riseNm, scaleNm, blocked, OPEN_SIDE_SCALES);
+  const [fallFirst, fallLast] = window(grid, fallNm, scaleNm, OPEN_SIDE_SCALES, blocked);
   const from = Math.max(0, riseFirst);
   const to = Math.min(count - 1, fallLast);
   if (floor !== 0) {
