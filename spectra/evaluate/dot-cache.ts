@@ -1,0 +1,51 @@
+/**
+ * The resolved-dot cache of panel evaluation. Resolving a dot (sizing law inversion, line shape on the grid) costs
+ * far more than the rest of an evaluation, and the same probes come back again and again (editing one probe of a
+ * panel, the design search): the last resolutions are kept, keyed by the exact input and grid. Resolved dots are
+ * never mutated after this point (crosstalk.ts keeps partial sums beside their emission arrays).
+ */
+import { MATERIAL_IDS, type MaterialId, type ProbeSpec } from '../panel';
+import type { WavelengthGrid } from '../grid';
+import { SpectraError } from '../errors';
+import { resolveDot, type DotInput, type ResolvedDot } from '../dot';
+
+const MATERIAL_SET = new Set<MaterialId>(MATERIAL_IDS);
+
+const DOT_FIELDS = ['material', 'emissionPeakNm', 'diameterNm', 'sizeDispersionPct', 'fwhmNm', 'quantumYield', 'measuredEmission', 'extinction'] as const;
+
+/** Resolutions kept (oldest out first). */
+const RESOLVED_CACHE_SIZE = 256;
+const resolvedCache = new Map<string, ResolvedDot>();
+
+/** Empties the cache of resolved dots (for benchmarks that time an evaluation from scratch). */
+export function clearResolvedDotCache(): void {
+  resolvedCache.clear();
+}
+
+/**
+ * resolveDot for probe p of a panel (cached; `excitationNm` for the per-line resolutions of carbon dots), with any
+ * error's path moved under ['probes', p].
+ */
+export function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, excitationNm?: number): ResolvedDot {
+  const input: Record<string, unknown> = {};
+  for (const key of DOT_FIELDS) if (probe[key] !== undefined) input[key] = probe[key];
+  if (excitationNm !== undefined) input.excitationNm = excitationNm;
+  let key = `${grid.startNm} ${grid.stepNm} ${grid.count}`;
+  for (const field in input) {
+    const value = input[field];
+    // Strings and tables go through JSON (quoted, escaped), so no input can forge another input's key.
+    key += ` ${field}=${typeof value === 'number' || MATERIAL_SET.has(value as MaterialId) ? value : JSON.stringify(value)}`;
+  }
+  const hit = resolvedCache.get(key);
+  if (hit) return hit;
+  try {
+    const dot = resolveDot(input as unknown as DotInput, { grid });
+    resolvedCache.set(key, dot);
+    // Oldest first out: cheaper than a strict LRU and just as good for a few hundred probes.
+    if (resolvedCache.size > RESOLVED_CACHE_SIZE) resolvedCache.delete(resolvedCache.keys().next().value!);
+    return dot;
+  } catch (err) {
+    if (err instanceof SpectraError) throw new SpectraError(err.code, err.message, ['probes', p, ...err.path]);
+    throw err;
+  }
+}
