@@ -27,17 +27,20 @@ export function clearResolvedDotCache(): void {
  * error's path moved under ['probes', p].
  */
 export function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, excitationNm?: number): ResolvedDot {
-  const input: Record<string, unknown> = {};
-  for (const key of DOT_FIELDS) if (probe[key] !== undefined) input[key] = probe[key];
-  if (excitationNm !== undefined) input.excitationNm = excitationNm;
+  // The key lists the given fields in DOT_FIELDS order; the input object is only built on a miss.
   let key = `${grid.startNm} ${grid.stepNm} ${grid.count}`;
-  for (const field in input) {
-    const value = input[field];
+  for (let f = 0; f < DOT_FIELDS.length; f++) {
+    const value = probe[DOT_FIELDS[f]];
+    if (value === undefined) continue;
     // Strings and tables go through JSON (quoted, escaped), so no input can forge another input's key.
-    key += ` ${field}=${typeof value === 'number' || MATERIAL_SET.has(value as MaterialId) ? value : JSON.stringify(value)}`;
+    key += ` ${DOT_FIELDS[f]}=${typeof value === 'number' || MATERIAL_SET.has(value as MaterialId) ? value : JSON.stringify(value)}`;
   }
+  if (excitationNm !== undefined) key += ` excitationNm=${excitationNm}`;
   const hit = resolvedCache.get(key);
   if (hit) return hit;
+  const input: Record<string, unknown> = {};
+  for (let f = 0; f < DOT_FIELDS.length; f++) if (probe[DOT_FIELDS[f]] !== undefined) input[DOT_FIELDS[f]] = probe[DOT_FIELDS[f]];
+  if (excitationNm !== undefined) input.excitationNm = excitationNm;
   try {
     const dot = resolveDot(input as unknown as DotInput, { grid });
     resolvedCache.set(key, dot);
