@@ -21,6 +21,11 @@ export interface BandpassSpec {
 const logLogistic = (z: number) => (z >= 0 ? -Math.log1p(Math.exp(-z)) : z - Math.log1p(Math.exp(z)));
 const logistic = (z: number) => 1 / (1 + Math.exp(-z));
 
+// g(h) = ln shape(w/2) − ln shape(0) + ln 2 for edges at ±h (a module function: no closure per narrow bandpass).
+function halfMaximumGap(h: number, half: number, scaleNm: number): number {
+  return logLogistic((half + h) / scaleNm) + logLogistic((h - half) / scaleNm) - 2 * logLogistic(h / scaleNm) + Math.LN2;
+}
+
 /**
  * Half distance h (nm) between the two logistic edges that puts half the peak exactly at ±widthNm/2. Newton's method
  * on g(h) = ln shape(w/2) − ln shape(0) + ln 2, kept inside the bracket [0, w/2] where g changes sign (w ≥ edge width).
@@ -30,12 +35,11 @@ function edgeHalfDistanceNm(widthNm: number, scaleNm: number): number {
   // With the edges 50 scale lengths apart or more, the half-maximum points sit at ±w/2 to within 2e-11 scale
   // lengths (the error is about 2s·exp(−w/2s)): no need to solve.
   if (scaleNm === 0 || half > 25 * scaleNm) return half;
-  const g = (h: number) => logLogistic((half + h) / scaleNm) + logLogistic((h - half) / scaleNm) - 2 * logLogistic(h / scaleNm) + Math.LN2;
   let lo = 0;
   let hi = half;
   let h = half;
   for (let k = 0; k < 60; k++) {
-    const value = g(h);
+    const value = halfMaximumGap(h, half, scaleNm);
     if (value > 0) hi = h;
     else lo = h;
     const slope = (1 - logistic((half + h) / scaleNm) + 1 - logistic((h - half) / scaleNm) - 2 * (1 - logistic(h / scaleNm))) / scaleNm;

@@ -28,6 +28,11 @@ export function requireTable(points: unknown, path: (string | number)[]): [numbe
   return points as [number, number][];
 }
 
+// Fractional index where v crosses `half` between samples a and b (linear); a module function, not a closure per call.
+function crossingIndex(v: Float64Array, half: number, a: number, b: number): number {
+  return v[a] === v[b] ? a : a + ((half - v[a]) / (v[b] - v[a])) * (b - a);
+}
+
 /** Peak wavelength (parabolic refinement around the largest sample) and FWHM (linear half-maximum crossings), nm. */
 export function peakAndFwhmNm(s: SampledSpectrum): { peakNm: number; fwhmNm: number; truncated: boolean } {
   const v = s.values;
@@ -44,9 +49,8 @@ export function peakAndFwhmNm(s: SampledSpectrum): { peakNm: number; fwhmNm: num
   let right = k;
   while (right < v.length - 1 && v[right] > half) right++;
   const truncated = v[left] > half || v[right] > half;
-  const cross = (a: number, b: number) => (v[a] === v[b] ? a : a + (half - v[a]) / (v[b] - v[a]) * (b - a));
-  const leftIdx = v[left] > half ? left : cross(left, left + 1);
-  const rightIdx = v[right] > half ? right : cross(right - 1, right);
+  const leftIdx = v[left] > half ? left : crossingIndex(v, half, left, left + 1);
+  const rightIdx = v[right] > half ? right : crossingIndex(v, half, right - 1, right);
   return { peakNm: s.startNm + (k + offset) * s.stepNm, fwhmNm: (rightIdx - leftIdx) * s.stepNm, truncated };
 }
 
