@@ -43,7 +43,7 @@ export function linesOn(channel: ChannelSpec, lines: ExcitationLine[], path: (st
 
 /**
  * Partial sums of an emission over the window [from, to) outside which it is exactly 0 (a modelled line is cut at
- * ±11σ; measured spectra are 0 beyond their table): prefix[k] = Σ em[from .. from+k), summed from the blue end, and
+ * ±10σ; measured spectra are 0 beyond their table): prefix[k] = Σ em[from .. from+k), summed from the blue end, and
  * suffix[k] = Σ em[from+k .. to), summed from the red end. The zeros outside add nothing, so these are the sums over
  * the whole grid, exactly, at a fraction of the work and memory.
  */

@@ -7,7 +7,7 @@
  * other arguments (below −EXP_TABLE_REACH, positive, NaN) go to Math.exp.
  */
 
-/** Most negative argument the table covers; exp(−64) ≈ 1.6e-28 (a line is cut at ±11σ, exp(−60.5)). */
+/** Most negative argument the table covers; exp(−64) ≈ 1.6e-28 (a line is cut at ±10σ, exp(−50)). */
 export const EXP_TABLE_REACH = 64;
 
 const STEPS_PER_LN2 = 32;

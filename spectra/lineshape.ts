@@ -16,11 +16,12 @@ const FWHM_PER_SIGMA = GAUSSIAN_FWHM_PER_SIGMA;
 const SQRT_2PI = Math.sqrt(2 * Math.PI);
 
 /**
- * A line is sampled only within ±11σ of its centre in energy; beyond, it is set to exactly 0. There
- * exp(−11²/2) = exp(−60.5) ≈ 5e-27 of the peak: against the smallest signal the model can carry (a 10^-12 blocking
- * floor times a unit-area line) that is 5e-15 relative, and the tails of a Gaussian model are no physics that far out.
+ * A line is sampled only within ±10σ of its centre in energy; beyond, it is set to exactly 0. There the density is
+ * exp(−10²/2) = exp(−50) ≈ 2e-22 of the peak and the dropped tails hold under 1e-22 of the line's area: against the
+ * smallest signal the model can carry (a 10^-12 blocking floor times a unit-area line) that is 1e-10 relative, and the
+ * tails of a Gaussian model are no physics that far out.
  */
-export const LINE_CUTOFF_SIGMAS = 11;
+export const LINE_CUTOFF_SIGMAS = 10;
 
 /** Gaussian density per eV with unit area over energy. */
 export function gaussianDensityPerEv(energyEv: number, centerEv: number, fwhmEv: number): number {
@@ -145,7 +146,7 @@ function fillLine(values: Float64Array, grid: WavelengthGrid, from: number, to: 
   return sum;
 }
 
-// Below this share of the line on the grid the renormalisation would magnify the dropped tails (5e-27 of the peak)
+// Below this share of the line on the grid the renormalisation would magnify the dropped tails (2e-22 of the peak)
 // by more than 1e6: the whole grid is sampled instead (a line almost entirely off the grid: rare, and warned about).
 const WINDOW_AREA_FLOOR = 1e-6;
 

@@ -26,7 +26,7 @@ const LINES: [number, number][] = [[2.05, 0.09], [2.6, 0.12], [1.7, 0.3], [2.9, 
 const GRIDS = [DEFAULT_GRID, makeGrid(300, 1000, 0.25), makeGrid(400, 900, 3), makeGrid(300, 605, 0.5)];
 
 describe('cold path: line sampling', () => {
-  it.each(LINES)('sampleGaussianLine(grid, %s eV, %s eV) equals the Math.exp formula at 1e-12 wherever it is above 1e-20 of the peak', (c, w) => {
+  it.each(LINES)('sampleGaussianLine(grid, %s eV, %s eV) equals the Math.exp formula at 1e-12 wherever it is above 1e-15 of its largest value on the grid', (c, w) => {
     for (const grid of GRIDS) {
       const fast = sampleGaussianLine(grid, c, w).spectrum.values;
       const naive = naiveLine(grid, c, w);
@@ -37,8 +37,10 @@ describe('cold path: line sampling', () => {
         continue;
       }
       for (let i = 0; i < grid.count; i++) {
-        if (naive[i] > 1e-20 * peak) expect(Math.abs(fast[i] - naive[i]) / naive[i]).toBeLessThan(1e-12);
-        else expect(fast[i]).toBeLessThanOrEqual(1e-20 * peak); // the ±11σ cut only zeroes what is already negligible
+        // The ±10σ cut zeroes only values under 2e-22 of the line's own peak, magnified at most 1e6 times by the
+        // renormalisation when a grid cuts most of the line off.
+        if (naive[i] > 1e-15 * peak) expect(Math.abs(fast[i] - naive[i]) / naive[i]).toBeLessThan(1e-12);
+        else expect(fast[i]).toBeLessThanOrEqual(1e-15 * peak);
       }
     }
   });
