@@ -27,7 +27,7 @@ for (let k = 0; k <= MAX_K; k++) TABLE[k] = Math.pow(2, -(k >> 5)) * Math.pow(2,
  */
 export function expNonPositive(x: number): number {
   if (!(x >= -EXP_TABLE_REACH && x <= 0)) return Math.exp(x);
-  const k = (-x * INV_STEP + 0.5) | 0; // round to nearest; −x·INV_STEP ≥ 0
+  const k = Math.round(-x * INV_STEP); // an integer-valued double: cheaper here than a |0 conversion
   const r = x + k * STEP_HI + k * STEP_LO;
   const r2 = r * r;
   // Estrin-style grouping: shorter dependency chains than Horner's rule.
