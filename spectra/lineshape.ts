@@ -1,27 +1,19 @@
 import { GAUSSIAN_FWHM_PER_SIGMA, HC_EV_NM } from './constants';
-import { expNonPositive } from './fast-exp';
-import type { SampledSpectrum, WavelengthGrid } from './grid';
 
 /**
  * Emission line shape: a Gaussian in photon energy (the natural variable for size and phonon broadening), sampled on a
  * wavelength grid as a photon-count density per nm through the Jacobian |dE/dλ| = hc/λ²:
  * f(λ) = g(E(λ)) · hc/λ². Because of that factor the per-nm peak sits slightly to the blue of hc/E₀; the helpers below
  * place E₀ so that the per-nm peak lands exactly where asked (the emission peak users quote is read off per-nm spectra).
+ * Sampling on a grid: line-sampling.ts (re-exported here).
  */
+export { sampleGaussianLine, LINE_CUTOFF_SIGMAS } from './line-sampling';
 
-// Plain module constants: read in the per-point loops below (an imported binding can cost a getter call there when a
-// bundler turns modules into objects).
+// Plain module constants (an imported binding can cost a getter call in a loop when a bundler turns modules into
+// objects).
 const HC = HC_EV_NM;
 const FWHM_PER_SIGMA = GAUSSIAN_FWHM_PER_SIGMA;
 const SQRT_2PI = Math.sqrt(2 * Math.PI);
-
-/**
- * A line is sampled only within ±10σ of its centre in energy; beyond, it is set to exactly 0. There the density is
- * exp(−10²/2) = exp(−50) ≈ 2e-22 of the peak and the dropped tails hold under 1e-22 of the line's area: against the
- * smallest signal the model can carry (a 10^-12 blocking floor times a unit-area line) that is 1e-10 relative, and the
- * tails of a Gaussian model are no physics that far out.
- */
-export const LINE_CUTOFF_SIGMAS = 10;
 
 /** Gaussian density per eV with unit area over energy. */
 export function gaussianDensityPerEv(energyEv: number, centerEv: number, fwhmEv: number): number {
@@ -128,53 +120,4 @@ export function fwhmEvForFwhmNm(peakNm: number, fwhmNm: number): number {
     }
   }
   return 0.5 * (lo + hi);
-}
-
-// Writes the per-nm density at grid points [from, to] into `values`; returns their sum.
-function fillLine(values: Float64Array, grid: WavelengthGrid, from: number, to: number, centerEv: number, sigma: number): number {
-  const { startNm, stepNm } = grid;
-  const invSigma = 1 / sigma;
-  const scale = HC / (sigma * SQRT_2PI);
-  let sum = 0;
-  for (let i = from; i <= to; i++) {
-    const nm = startNm + i * stepNm;
-    const z = (HC / nm - centerEv) * invSigma;
-    const v = (expNonPositive(-0.5 * z * z) * scale) / (nm * nm);
-    values[i] = v;
-    sum += v;
-  }
-  return sum;
-}
-
-// Below this share of the line on the grid the renormalisation would magnify the dropped tails (2e-22 of the peak)
-// by more than 1e6: the whole grid is sampled instead (a line almost entirely off the grid: rare, and warned about).
-const WINDOW_AREA_FLOOR = 1e-6;
-
-/**
- * Samples the line on `grid` as photon counts per nm, renormalised so that sum(values) × stepNm = 1 on the grid.
- * Also returns the fraction of the line's exact area that lies on the grid (1 when the grid covers it). Only the
- * points within ±LINE_CUTOFF_SIGMAS of the centre (in energy) are computed and the rest are exactly 0, unless less
- * than 1e-6 of the line falls in that window (a line almost entirely off the grid): then every point is computed.
- */
-export function sampleGaussianLine(grid: WavelengthGrid, centerEv: number, fwhmEv: number): { spectrum: SampledSpectrum; areaOnGrid: number } {
-  const { startNm, stepNm, count } = grid;
-  const values = new Float64Array(count);
-  const sigma = fwhmEv / FWHM_PER_SIGMA;
-  const reach = LINE_CUTOFF_SIGMAS * sigma;
-  // Blue end of the window from the high-energy cut; red end from the low-energy cut (none when it is at or below 0 eV).
-  const blueNm = HC / (centerEv + reach);
-  const redNm = centerEv - reach > 0 ? HC / (centerEv - reach) : Infinity;
-  let from = Math.max(0, Math.floor((blueNm - startNm) / stepNm));
-  let to = Math.min(count - 1, Math.ceil((redNm - startNm) / stepNm));
-  let areaOnGrid = fillLine(values, grid, from, to, centerEv, sigma) * stepNm;
-  if (!(areaOnGrid >= WINDOW_AREA_FLOOR)) {
-    from = 0;
-    to = count - 1;
-    areaOnGrid = fillLine(values, grid, from, to, centerEv, sigma) * stepNm;
-  }
-  if (areaOnGrid > 0) {
-    const inverse = 1 / areaOnGrid; // one division; the products differ from quotients by at most an ulp
-    for (let i = from; i <= to; i++) values[i] *= inverse;
-  }
-  return { spectrum: { startNm, stepNm, values }, areaOnGrid };
 }
