@@ -50,7 +50,8 @@ const absorptionModels = new WeakMap<ResolvedDot, { model: AbsorptionModel; grid
 function readAbsorption(this: ResolvedDot): SampledSpectrum {
   const { model, grid } = absorptionModels.get(this)!;
   const absorption = sampleExtinction(model, grid);
-  Object.defineProperty(this, 'absorption', { value: absorption, writable: true, enumerable: true, configurable: true });
+  // A frozen or sealed dot cannot take the data property: it is sampled again on each read instead.
+  if (!Object.isSealed(this)) Object.defineProperty(this, 'absorption', { value: absorption, writable: true, enumerable: true, configurable: true });
   return absorption;
 }
 

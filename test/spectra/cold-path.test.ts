@@ -162,6 +162,8 @@ describe('cold path: a whole evaluation', () => {
     expect(Object.keys(JSON.parse(JSON.stringify(copy)).absorption.values)).toHaveLength(DEFAULT_GRID.count);
     copy.absorption = { startNm: 300, stepNm: 1, values: new Float64Array(3) };
     expect(copy.absorption.values).toHaveLength(3);
+    const frozen = Object.freeze(resolveDot({ material: 'cdse', emissionPeakNm: 605 }));
+    expect(Array.from(frozen.absorption.values)).toEqual(Array.from(values));
   });
 
   it('resolveDot(cdse 605 nm) puts its per-nm emission peak at 605 nm to 0.5 nm on the grid (centre placed from the peak)', () => {
