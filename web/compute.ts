@@ -70,7 +70,7 @@ export function computePanel(panel: PanelSpec, options: { byBrightness: boolean 
     if (e instanceof SpectraError) return { ok: false, error: { message: e.message, path: e.path } };
     return { ok: false, error: { message: `The panel could not be computed: ${e instanceof Error ? e.message : String(e)}`, path: [] } };
   }
-  const photons = ev.probes.map((d, j) => d.brightness * (panel.probes[j].abundance ?? 1));
+  const photons = ev.probes.map((d) => d.brightness);
   const signalCurves = model.dots.map((d, j) => d.emission.values.map((v) => v * photons[j]));
   const tallest = Math.max(1e-300, ...signalCurves.map(maxOf));
   const curves: ChartCurve[] = model.dots.map((d, j) => {
@@ -102,10 +102,10 @@ export function computePanel(panel: PanelSpec, options: { byBrightness: boolean 
     worst: ev.worst,
     warnings: ev.warnings,
   };
-  const maxBright = Math.max(0, ...ev.probes.map((d) => d.brightness));
+  const maxBright = Math.max(0, ...ev.probes.map((d) => d.brightnessPerAbundance));
   const predictions: ProbePrediction[] = ev.probes.map((d) => ({
     diameterNm: d.diameterNm, firstExcitonNm: d.firstExcitonNm, emissionPeakNm: d.emissionPeakNm, fwhmNm: d.fwhmNm,
-    relativeBrightness: maxBright > 0 ? d.brightness / maxBright : 0, measured: d.measured.emission, warnings: d.warnings,
+    relativeBrightness: maxBright > 0 ? d.brightnessPerAbundance / maxBright : 0, measured: d.measured.emission, warnings: d.warnings,
   }));
   const resolved = ev.probes.map((d) => ({ diameterNm: d.diameterNm, emissionPeakNm: d.emissionPeakNm, fwhmNm: d.fwhmNm, firstExcitonNm: d.firstExcitonNm }));
   return { ok: true, value: { evaluation: ev, chart: { curves, passbands, background }, crosstalk, predictions, resolved } };

@@ -16,10 +16,14 @@ import { resolveProbe } from './dot-cache';
 export interface ProbeEvaluation extends Omit<ResolvedDot, 'emission' | 'absorption' | 'extinctionAtExcitation'> {
   id: string;
   label?: string;
+  /** ε (M⁻¹ cm⁻¹) at the panel's first excitation line, as for a single dot (api-v1); every line is in extinctionAtLines. */
+  extinctionAtExcitation: number;
   /** ε (M⁻¹ cm⁻¹) at each of the panel's lines, in the order of panel.excitation. */
-  extinctionAtExcitation: number[];
-  /** Σ over the panel's lines of powerRel × ε(λline) × quantumYield, M⁻¹ cm⁻¹ (all lines on, abundance excluded). */
+  extinctionAtLines: number[];
+  /** Brightness = Σ over the panel's lines of powerRel × ε(λline) × quantumYield × abundance (all lines on). */
   brightness: number;
+  /** The same at abundance 1: the probe's own brightness under these lines, for comparing probes. */
+  brightnessPerAbundance: number;
   /** Carbon dots only: the modelled emission peak under each line (their emission moves with the excitation). */
   emissionPeakNmByLine?: number[];
 }
@@ -49,7 +53,7 @@ function channelWeights(linesOnByChannel: number[][], lineWeight: number[], only
 }
 
 /** The evaluation record of one probe: the dot's scalar fields, ε at every line and its brightness. */
-function probeEvaluation(probe: PanelSpec['probes'][number], dot: ResolvedDot, eps: number[], brightness: number): ProbeEvaluation {
+function probeEvaluation(probe: PanelSpec['probes'][number], dot: ResolvedDot, eps: number[], brightnessPerAbundance: number): ProbeEvaluation {
   return {
     id: probe.id,
     ...(probe.label !== undefined ? { label: probe.label } : {}),
@@ -60,10 +64,12 @@ function probeEvaluation(probe: PanelSpec['probes'][number], dot: ResolvedDot, e
     fwhmNm: dot.fwhmNm,
     quantumYield: dot.quantumYield,
     extinctionFirstExciton: dot.extinctionFirstExciton,
-    extinctionAtExcitation: eps,
+    extinctionAtExcitation: eps[0],
+    extinctionAtLines: eps,
     model: dot.model,
     measured: { ...dot.measured },
-    brightness,
+    brightness: brightnessPerAbundance * (probe.abundance ?? 1),
+    brightnessPerAbundance,
     warnings: dot.warnings.slice(),
   };
 }

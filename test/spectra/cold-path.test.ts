@@ -142,7 +142,7 @@ describe('cold path: a whole evaluation', () => {
     const ev = evaluatePanel(panel, { sensitivity: false });
     const spectra = panelSpectra(panel);
     ev.probes.forEach((probe, p) => {
-      const weight = probe.extinctionAtExcitation.reduce((s, eps, l) => s + (panel.excitation[l].powerRel ?? 1) * eps * probe.quantumYield, 0);
+      const weight = probe.extinctionAtLines.reduce((s, eps, l) => s + (panel.excitation[l].powerRel ?? 1) * eps * probe.quantumYield, 0);
       spectra.channels.forEach((channel, c) => {
         let naive = 0;
         for (let i = 0; i < spectra.count; i++) naive += spectra.emission[p].values[i] * channel.values[i];

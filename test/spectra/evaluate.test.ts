@@ -76,7 +76,9 @@ describe('evaluatePanel: the signal model', () => {
     const ev = evaluatePanel(panel, { grid });
     // The measured table is sampled at 1 nm and interpolated linearly: ~1e-4 relative error from that alone.
     expect(ev.collected[0][0] / (2 * 1e5 * 0.5 * 3 * closedForm)).toBeCloseTo(1, 3);
-    expect(ev.probes[0].brightness).toBeCloseTo(2 * 1e5 * 0.5, 6);
+    // Brightness = power × extinction at the lines × quantum yield × abundance (the spectral-core definition).
+    expect(ev.probes[0].brightness).toBeCloseTo(2 * 1e5 * 0.5 * 3, 6);
+    expect(ev.probes[0].brightnessPerAbundance).toBeCloseTo(2 * 1e5 * 0.5, 6);
   });
 
   it('evaluatePanel collected[c][p] equals an independent naive sum over lines and grid points', () => {
@@ -94,7 +96,7 @@ describe('evaluatePanel: the signal model', () => {
         for (let i = 0; i < t.length; i++) integral += spectra.emission[p].values[i] * t[i] * DEFAULT_GRID.stepNm;
         let weight = 0;
         panel.excitation.forEach((line, l) => {
-          if (lineOn(c, l)) weight += (line.powerRel ?? 1) * ev.probes[p].extinctionAtExcitation[l] * ev.probes[p].quantumYield * (probe.abundance ?? 1);
+          if (lineOn(c, l)) weight += (line.powerRel ?? 1) * ev.probes[p].extinctionAtLines[l] * ev.probes[p].quantumYield * (probe.abundance ?? 1);
         });
         expect(Math.abs(ev.collected[c][p] - weight * integral) / (weight * integral)).toBeLessThan(1e-12);
       });

@@ -67,7 +67,8 @@ describe('POST /api/v1/panels/evaluate', () => {
   it('POST /panels/evaluate of a two-probe panel with background answers a body Evaluation accepts', async () => {
     const body = expectValid(Evaluation, await evaluate(examplePanel()), 'evaluate');
     expect(body.signalToBackground).toHaveLength(2);
-    expect(body.probes[0].extinctionAtExcitation).toHaveLength(1);
+    expect(body.probes[0].extinctionAtLines).toHaveLength(1);
+    expect(body.probes[0].extinctionAtExcitation).toBe(body.probes[0].extinctionAtLines[0]);
   });
 
   it('POST /panels/evaluate of a one-probe panel answers worst with from, into and interference all null', async () => {
@@ -92,7 +93,8 @@ describe('POST /api/v1/panels/evaluate', () => {
       channels: [bandpass('c1', 530), { ...bandpass('c2', 620), excitationNm: 488 }],
     };
     const body = expectValid(Evaluation, await evaluate(panel), 'carbon');
-    expect(body.probes[0].extinctionAtExcitation).toHaveLength(2);
+    expect(body.probes[0].extinctionAtLines).toHaveLength(2);
+    expect(typeof body.probes[0].extinctionAtExcitation).toBe('number');
     expect(body.probes[0].emissionPeakNmByLine).toHaveLength(2);
   });
 });
