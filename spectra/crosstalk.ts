@@ -8,7 +8,8 @@
  */
 import type { ChannelSpec, ExcitationLine } from './panel';
 import { SpectraError } from './errors';
-import { channelSupport, windowDot, type ChannelSupport, type ConstantEnds } from './linalg/runs';
+import { channelSupport, type ChannelSupport, type ConstantEnds } from './linalg/runs';
+import { gridEmissionWindow, windowOverlap, type EmissionWindow } from './emission-window';
 
 /** One emission spectrum of a probe and its weight in each channel (Σ powerRel × ε × QY × abundance over lines on). */
 export interface EmissionComponent {
@@ -41,44 +42,36 @@ export function linesOn(channel: ChannelSpec, lines: ExcitationLine[], path: (st
   }))].sort((a, b) => a - b);
 }
 
-/**
- * Partial sums of an emission over the window [from, to) outside which it is exactly 0 (a modelled line is cut at
- * ±10σ; measured spectra are 0 beyond their table): prefix[k] = Σ em[from .. from+k), summed from the blue end, and
- * suffix[k] = Σ em[from+k .. to), summed from the red end. The zeros outside add nothing, so these are the sums over
- * the whole grid, exactly, at a fraction of the work and memory.
- */
-interface EmissionSums {
-  from: number;
-  to: number;
-  /** prefix[k] at k, suffix[k] at n + 1 + k. */
-  sums: number[];
+/** One emission of a probe as its nonzero window (see emission-window.ts) and its weight in each channel. */
+export interface WindowComponent {
+  emission: EmissionWindow;
+  weightByChannel: Float64Array;
 }
 
-// Emission arrays of resolved dots are immutable and come back evaluation after evaluation (the dot cache): keep
-// their sums beside them, dropped with the array.
-const sumsOf = new WeakMap<Float64Array, EmissionSums>();
+// Grid-long emission arrays given to collectedColumn come back call after call (a design search, the dot cache of
+// buildPanelModel): keep their windows and partial sums beside them, dropped with the array.
+const windowOf = new WeakMap<Float64Array, EmissionWindow>();
 
-function emissionSums(em: Float64Array): EmissionSums {
-  const known = sumsOf.get(em);
-  if (known) return known;
-  let from = 0;
-  let to = em.length;
-  while (from < to && em[from] === 0) from++;
-  while (to > from && em[to - 1] === 0) to--;
-  const n = to - from;
-  // A plain array: on the JS heap it costs a fraction of a typed array's separately allocated store, and most of
-  // these die young (a cold evaluation). Running totals in locals, not read back from the array.
-  const sums = new Array<number>(2 * n + 2);
-  const base = n + 1;
-  let acc = 0;
-  sums[0] = 0;
-  for (let k = 0; k < n; k++) sums[k + 1] = acc += em[from + k];
-  acc = 0;
-  sums[base + n] = 0;
-  for (let k = n - 1; k >= 0; k--) sums[base + k] = acc += em[from + k];
-  const record = { from, to, sums };
-  sumsOf.set(em, record);
-  return record;
+function cachedWindow(em: Float64Array): EmissionWindow {
+  let w = windowOf.get(em);
+  if (!w) {
+    w = gridEmissionWindow(em);
+    windowOf.set(em, w);
+  }
+  return w;
+}
+
+/** collectedColumn for emissions held as windows (what panel evaluation uses); same sums, same order. */
+export function collectedColumnOfWindows(components: WindowComponent[], supports: ChannelSupport[], stepNm: number): number[] {
+  const column = new Array<number>(supports.length).fill(0);
+  for (let k = 0; k < components.length; k++) {
+    const { emission, weightByChannel } = components[k];
+    for (let c = 0; c < supports.length; c++) {
+      const w = weightByChannel[c];
+      if (w !== 0) column[c] += w * windowOverlap(emission, supports[c]) * stepNm;
+    }
+  }
+  return column;
 }
 
 /**
@@ -89,28 +82,20 @@ function emissionSums(em: Float64Array): EmissionSums {
  * Emission arrays must not be changed after their first use here (their partial sums are kept).
  */
 export function collectedColumn(components: EmissionComponent[], supports: ChannelSupport[], stepNm: number): number[] {
-  const column = new Array<number>(supports.length).fill(0);
-  for (let k = 0; k < components.length; k++) {
-    const { emission, weightByChannel } = components[k];
-    const { from, to, sums } = emissionSums(emission);
-    const n = to - from;
-    for (let c = 0; c < supports.length; c++) {
-      const w = weightByChannel[c];
-      if (w === 0) continue;
-      const { t, first, end, left, right } = supports[c];
-      const leftSum = sums[Math.min(Math.max(first - from, 0), n)];
-      const rightSum = sums[n + 1 + Math.min(Math.max(end - from, 0), n)];
-      const inside = windowDot(emission, t, Math.max(first, from), Math.min(end, to));
-      column[c] += w * (left * leftSum + inside + right * rightSum) * stepNm;
-    }
-  }
-  return column;
+  return collectedColumnOfWindows(components.map((c) => ({ emission: cachedWindow(c.emission), weightByChannel: c.weightByChannel })), supports, stepNm);
 }
 
 /** collected[c][p] for every channel and probe; `ends[c]` (optional) is what channelTransmission reported. */
 export function collectedMatrix(probes: EmissionComponent[][], transmissions: Float64Array[], stepNm: number, ends?: ConstantEnds[]): number[][] {
   const supports = transmissions.map((t, c) => channelSupport(t, ends?.[c]));
   const columns = probes.map((components) => collectedColumn(components, supports, stepNm));
+  return transmissions.map((_, c) => columns.map((col) => col[c]));
+}
+
+/** collectedMatrix for emissions held as windows (panel evaluation's form). */
+export function collectedMatrixOfWindows(probes: WindowComponent[][], transmissions: Float64Array[], stepNm: number, ends?: ConstantEnds[]): number[][] {
+  const supports = transmissions.map((t, c) => channelSupport(t, ends?.[c]));
+  const columns = probes.map((components) => collectedColumnOfWindows(components, supports, stepNm));
   return transmissions.map((_, c) => columns.map((col) => col[c]));
 }
 

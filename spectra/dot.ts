@@ -1,26 +1,13 @@
+/**
+ * One probe resolved to its spectra (the public form). The work is dot-core.ts's; this file shapes its answer as a
+ * ResolvedDot and keeps the exact absorption model beside it for extinctionAtNm.
+ */
 import { modelExtinctionAtNm, sampleExtinction, type AbsorptionModel } from './absorption';
-import { SpectraError } from './errors';
 import { DEFAULT_GRID, spectrumAtNm, type SampledSpectrum, type WavelengthGrid } from './grid';
-import { centerEvForPeakNm, fwhmNmOfLine, sampleGaussianLine } from './lineshape';
-import { resolveCarbon, resolveCustom, resolveSized, type ModelPart } from './materials/resolve';
-import { optionalNumber } from './materials/inputs';
-import { requireTable, resampleMeasuredEmission } from './materials/measured';
-import { isSizedMaterial, requireMaterialId } from './materials/sizing';
+import { coreEmissionValues, resolveDotCore, type DotCore, type DotInput } from './dot-core';
 import type { MaterialId } from './panel';
 
-/** What a probe is, as the API and panels give it (see api-v1.md "One dot"). */
-export interface DotInput {
-  material: MaterialId;
-  emissionPeakNm?: number;
-  diameterNm?: number;
-  sizeDispersionPct?: number;
-  fwhmNm?: number;
-  quantumYield?: number;
-  measuredEmission?: { points: [number, number][] };
-  extinction?: { points: [number, number][] };
-  /** For extinctionAtExcitation and the carbon-dot excitation dependence. */
-  excitationNm?: number;
-}
+export type { DotInput } from './dot-core';
 
 /** A probe resolved to spectra. `emission` has unit area on its grid; `absorption` is ε in M⁻¹ cm⁻¹ on the same grid. */
 export interface ResolvedDot {
@@ -62,65 +49,41 @@ function writeAbsorption(this: ResolvedDot, value: SampledSpectrum): void {
 const LAZY_ABSORPTION: PropertyDescriptor = { get: readAbsorption, set: writeAbsorption, enumerable: true, configurable: true };
 
 /**
+ * The ResolvedDot of a resolved core: its scalar fields, its emission on the whole grid and the lazily sampled
+ * absorption. Made once per core and kept on it, so a cached core gives the same dot object every time (its arrays
+ * and lists are the core's: they must not be changed).
+ */
+export function dotFromCore(core: DotCore): ResolvedDot {
+  if (core.dot) return core.dot as ResolvedDot;
+  const { grid } = core;
+  const dot = {
+    material: core.material,
+    diameterNm: core.diameterNm,
+    firstExcitonNm: core.firstExcitonNm,
+    emissionPeakNm: core.emissionPeakNm,
+    fwhmNm: core.fwhmNm,
+    quantumYield: core.quantumYield,
+    extinctionFirstExciton: core.extinctionFirstExciton,
+    extinctionAtExcitation: core.extinctionAtExcitation,
+    model: core.model,
+    measured: core.measured,
+    warnings: core.warnings,
+    emission: { startNm: grid.startNm, stepNm: grid.stepNm, values: coreEmissionValues(core) },
+  } as ResolvedDot;
+  Object.defineProperty(dot, 'absorption', LAZY_ABSORPTION);
+  absorptionModels.set(dot, { model: core.absorptionModel, grid });
+  core.dot = dot;
+  return dot;
+}
+
+/**
  * Resolves a probe description to its size, peaks, width and spectra on `options.grid` (default 300–1000 nm, 1 nm).
  * Measured data come first: a measured emission replaces the model's shape (peak and FWHM read from it), a measured
  * extinction replaces the model's absorption. Bad input throws SpectraError naming the field.
  * @example resolveDot({ material: 'cdse', emissionPeakNm: 605 }).diameterNm // ≈ 4.2
  */
 export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } = {}): ResolvedDot {
-  if (typeof input !== 'object' || input === null) throw new SpectraError('invalid_input', 'a dot must be an object', []);
-  const raw = input as unknown as Record<string, unknown>;
-  const material = requireMaterialId(raw.material);
-  const grid = options.grid ?? DEFAULT_GRID;
-  const excitationNm = optionalNumber(raw, 'excitationNm', 0, 10000, ' nm', { minExclusive: true });
-  const quantumYield = optionalNumber(raw, 'quantumYield', 0, 1, '');
-  const measuredEm = input.measuredEmission === undefined ? null
-    : resampleMeasuredEmission(input.measuredEmission?.points, grid, ['measuredEmission', 'points']);
-  const extinctionTable = input.extinction === undefined ? null : requireTable(input.extinction?.points, ['extinction', 'points']);
-
-  const part: ModelPart = isSizedMaterial(material) ? resolveSized(material, raw, measuredEm?.peakNm)
-    : material === 'carbon' ? resolveCarbon(raw, excitationNm, measuredEm?.peakNm)
-    : resolveCustom(raw, measuredEm);
-  const warnings = [...part.warnings, ...(measuredEm?.warnings ?? [])];
-
-  let emission: SampledSpectrum;
-  let emissionPeakNm: number;
-  let fwhmNm: number;
-  if (measuredEm) {
-    ({ spectrum: emission, peakNm: emissionPeakNm, fwhmNm } = measuredEm);
-    if (part.peakNm !== null && Math.abs(part.peakNm - emissionPeakNm) > 10) {
-      warnings.push(`The measured emission peaks at ${emissionPeakNm.toFixed(1)} nm, ${Math.abs(part.peakNm - emissionPeakNm).toFixed(1)} nm from the model's ${part.peakNm.toFixed(1)} nm; the measured spectrum is used.`);
-    }
-  } else {
-    const centerEv = centerEvForPeakNm(part.peakNm!, part.fwhmEv!);
-    const line = sampleGaussianLine(grid, centerEv, part.fwhmEv!);
-    if (line.areaOnGrid < 0.99) warnings.push(`Only ${(100 * line.areaOnGrid).toFixed(1)} % of the emission lies on the wavelength grid; the spectrum is renormalised to unit area on the grid.`);
-    emission = line.spectrum;
-    emissionPeakNm = part.peakNm!;
-    fwhmNm = fwhmNmOfLine(centerEv, part.fwhmEv!);
-  }
-
-  const absorptionModel: AbsorptionModel = extinctionTable ? { type: 'table', points: extinctionTable } : part.absorption;
-  if (!extinctionTable && part.absorptionWarning) warnings.push(part.absorptionWarning);
-  if (extinctionTable && extinctionTable.some((p) => p[1] < 0)) warnings.push('Measured extinction has negative values; they are used as given.');
-  const firstExcitonNm = part.firstExcitonNm;
-  const dot = {
-    material,
-    diameterNm: part.diameterNm,
-    firstExcitonNm,
-    emissionPeakNm,
-    fwhmNm,
-    quantumYield: quantumYield ?? part.typicalQuantumYield,
-    extinctionFirstExciton: firstExcitonNm === null ? null : modelExtinctionAtNm(absorptionModel, firstExcitonNm),
-    extinctionAtExcitation: excitationNm === undefined ? null : modelExtinctionAtNm(absorptionModel, excitationNm),
-    model: measuredEm && material !== 'custom' ? `measured emission; size by ${part.model}` : part.model,
-    measured: { emission: measuredEm !== null, extinction: extinctionTable !== null },
-    warnings,
-    emission,
-  } as ResolvedDot;
-  Object.defineProperty(dot, 'absorption', LAZY_ABSORPTION);
-  absorptionModels.set(dot, { model: absorptionModel, grid });
-  return dot;
+  return dotFromCore(resolveDotCore(input, options.grid ?? DEFAULT_GRID));
 }
 
 /**

@@ -49,16 +49,16 @@ function gridTables(grid: WavelengthGrid): GridTables {
   return tables;
 }
 
-// Writes the per-nm density at grid points [from, to] into `values`; returns their sum.
-function fillLine(values: Float64Array, tables: GridTables, from: number, to: number, centerEv: number, sigma: number): number {
+// Writes the line's per-nm shape, without the 1/(σ√2π) factor, at grid points [from, to] into values[i − from];
+// returns their sum. Every point of the window is written, so `values` may be a fresh plain array.
+function fillLine(values: number[], tables: GridTables, from: number, to: number, centerEv: number, sigma: number): number {
   const { energyEv, jacobianEvPerNm } = tables;
-  const invSigma = 1 / sigma;
-  const scale = 1 / (sigma * SQRT_2PI);
+  const negHalfInvVar = -0.5 / (sigma * sigma);
   let sum = 0;
   for (let i = from; i <= to; i++) {
-    const z = (energyEv[i] - centerEv) * invSigma;
-    const v = expNonPositive(-0.5 * z * z) * scale * jacobianEvPerNm[i];
-    values[i] = v;
+    const d = energyEv[i] - centerEv;
+    const v = expNonPositive(d * d * negHalfInvVar) * jacobianEvPerNm[i];
+    values[i - from] = v;
     sum += v;
   }
   return sum;
@@ -69,31 +69,57 @@ function fillLine(values: Float64Array, tables: GridTables, from: number, to: nu
 const WINDOW_AREA_FLOOR = 1e-6;
 
 /**
+ * A sampled line as its nonzero window: the value at grid index i is values[i − from] for from ≤ i < to, exactly 0
+ * elsewhere. A plain array (a JS-heap store is cheaper to make and to collect than a typed array's separate one).
+ */
+export interface LineWindow {
+  from: number;
+  to: number;
+  values: number[];
+}
+
+/**
+ * sampleGaussianLine's result as its window only (see LineWindow), with the fraction of the line's exact area on
+ * the grid: the form panel evaluation uses, without a grid-long array per probe.
+ */
+export function sampleGaussianWindow(grid: WavelengthGrid, centerEv: number, fwhmEv: number): { window: LineWindow; areaOnGrid: number } {
+  const { startNm, stepNm, count } = grid;
+  const tables = gridTables(grid);
+  const sigma = fwhmEv / FWHM_PER_SIGMA;
+  const reach = LINE_CUTOFF_SIGMAS * sigma;
+  // 1/(σ√2π) is applied once to the sum, not per point; the renormalisation below absorbs it in the values.
+  const peakDensity = 1 / (sigma * SQRT_2PI);
+  // Blue end of the window from the high-energy cut; red end from the low-energy cut (none when it is at or below 0 eV).
+  const blueNm = HC / (centerEv + reach);
+  const redNm = centerEv - reach > 0 ? HC / (centerEv - reach) : Infinity;
+  let from = Math.max(0, Math.floor((blueNm - startNm) / stepNm));
+  let to = Math.min(count - 1, Math.ceil((redNm - startNm) / stepNm));
+  let values = new Array<number>(Math.max(0, to - from + 1));
+  let sum = fillLine(values, tables, from, to, centerEv, sigma);
+  let areaOnGrid = sum * peakDensity * stepNm;
+  if (!(areaOnGrid >= WINDOW_AREA_FLOOR)) {
+    from = 0;
+    to = count - 1;
+    values = new Array<number>(count);
+    sum = fillLine(values, tables, from, to, centerEv, sigma);
+    areaOnGrid = sum * peakDensity * stepNm;
+  }
+  if (sum > 0) {
+    const inverse = 1 / (sum * stepNm); // one division; the products differ from quotients by at most an ulp
+    for (let k = 0; k < values.length; k++) values[k] *= inverse;
+  }
+  return { window: { from, to: to + 1, values }, areaOnGrid };
+}
+
+/**
  * Samples the line on `grid` as photon counts per nm, renormalised so that sum(values) × stepNm = 1 on the grid.
  * Also returns the fraction of the line's exact area that lies on the grid (1 when the grid covers it). Only the
  * points within ±LINE_CUTOFF_SIGMAS of the centre (in energy) are computed and the rest are exactly 0, unless less
  * than 1e-6 of the line falls in that window (a line almost entirely off the grid): then every point is computed.
  */
 export function sampleGaussianLine(grid: WavelengthGrid, centerEv: number, fwhmEv: number): { spectrum: SampledSpectrum; areaOnGrid: number } {
-  const { startNm, stepNm, count } = grid;
-  const values = new Float64Array(count);
-  const tables = gridTables(grid);
-  const sigma = fwhmEv / FWHM_PER_SIGMA;
-  const reach = LINE_CUTOFF_SIGMAS * sigma;
-  // Blue end of the window from the high-energy cut; red end from the low-energy cut (none when it is at or below 0 eV).
-  const blueNm = HC / (centerEv + reach);
-  const redNm = centerEv - reach > 0 ? HC / (centerEv - reach) : Infinity;
-  let from = Math.max(0, Math.floor((blueNm - startNm) / stepNm));
-  let to = Math.min(count - 1, Math.ceil((redNm - startNm) / stepNm));
-  let areaOnGrid = fillLine(values, tables, from, to, centerEv, sigma) * stepNm;
-  if (!(areaOnGrid >= WINDOW_AREA_FLOOR)) {
-    from = 0;
-    to = count - 1;
-    areaOnGrid = fillLine(values, tables, from, to, centerEv, sigma) * stepNm;
-  }
-  if (areaOnGrid > 0) {
-    const inverse = 1 / areaOnGrid; // one division; the products differ from quotients by at most an ulp
-    for (let i = from; i <= to; i++) values[i] *= inverse;
-  }
-  return { spectrum: { startNm, stepNm, values }, areaOnGrid };
+  const { window, areaOnGrid } = sampleGaussianWindow(grid, centerEv, fwhmEv);
+  const values = new Float64Array(grid.count);
+  values.set(window.values, window.from);
+  return { spectrum: { startNm: grid.startNm, stepNm: grid.stepNm, values }, areaOnGrid };
 }

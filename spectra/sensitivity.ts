@@ -4,7 +4,8 @@
  * The probe's emission is translated along the wavelength axis with its shape and its extinction at the lines
  * unchanged: a first-order model of a lot shift (a real shift also changes the width and the absorption a little).
  */
-import { collectedColumn, crosstalkFigures, type EmissionComponent } from './crosstalk';
+import { collectedColumnOfWindows, crosstalkFigures, type EmissionComponent } from './crosstalk';
+import { gridEmissionWindow } from './emission-window';
 import { channelSupport, type ConstantEnds } from './linalg/runs';
 
 /** Default peak shift for the lot-to-lot check, nm (common practice). */
@@ -67,8 +68,9 @@ export function lotShiftSensitivity(
   const supports = transmissions.map((t, c) => channelSupport(t, ends?.[c]));
   probes.forEach((components, p) => {
     for (const signed of [shiftNm, -shiftNm]) {
-      const moved = components.map((c) => ({ ...c, emission: shiftEmission(c.emission, signed, stepNm) }));
-      const column = collectedColumn(moved, supports, stepNm);
+      // Shifted arrays are used once: their windows are not kept (collectedColumn would keep them beside the array).
+      const moved = components.map((c) => ({ emission: gridEmissionWindow(shiftEmission(c.emission, signed, stepNm)), weightByChannel: c.weightByChannel }));
+      const column = collectedColumnOfWindows(moved, supports, stepNm);
       const shifted = collected.map((row, c) => row.map((v, q) => (q === p ? column[c] : v)));
       const figures = crosstalkFigures(shifted, assigned, probeIds, channelIds);
       const w = figures.worst;

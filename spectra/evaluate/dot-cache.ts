@@ -1,13 +1,14 @@
 /**
  * The resolved-dot cache of panel evaluation. Resolving a dot (sizing law inversion, line shape on the grid) costs
  * far more than the rest of an evaluation, and the same probes come back again and again (editing one probe of a
- * panel, the design search): the last resolutions are kept, keyed by the exact input and grid. Resolved dots are
- * never mutated after this point (crosstalk.ts keeps partial sums beside their emission arrays).
+ * panel, the design search): the last resolutions are kept, keyed by the exact input and grid. Resolved cores are
+ * never mutated after this point, except to fill in what they make on first need (partial sums, the grid-long
+ * emission, the public ResolvedDot).
  */
 import { MATERIAL_IDS, type MaterialId, type ProbeSpec } from '../panel';
 import type { WavelengthGrid } from '../grid';
 import { SpectraError } from '../errors';
-import { resolveDot, type DotInput, type ResolvedDot } from '../dot';
+import { resolveDotCore, type DotCore, type DotInput } from '../dot-core';
 
 const MATERIAL_SET = new Set<MaterialId>(MATERIAL_IDS);
 
@@ -15,7 +16,7 @@ const DOT_FIELDS = ['material', 'emissionPeakNm', 'diameterNm', 'sizeDispersionP
 
 /** Resolutions kept (oldest out first). */
 const RESOLVED_CACHE_SIZE = 256;
-const resolvedCache = new Map<string, ResolvedDot>();
+const resolvedCache = new Map<string, DotCore>();
 
 /** Empties the cache of resolved dots (for benchmarks that time an evaluation from scratch). */
 export function clearResolvedDotCache(): void {
@@ -23,10 +24,10 @@ export function clearResolvedDotCache(): void {
 }
 
 /**
- * resolveDot for probe p of a panel (cached; `excitationNm` for the per-line resolutions of carbon dots), with any
- * error's path moved under ['probes', p].
+ * resolveDot's core for probe p of a panel (cached; `excitationNm` for the per-line resolutions of carbon dots), with
+ * any error's path moved under ['probes', p].
  */
-export function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, excitationNm?: number): ResolvedDot {
+export function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, excitationNm?: number): DotCore {
   // The key lists the given fields in DOT_FIELDS order; the input object is only built on a miss.
   let key = `${grid.startNm} ${grid.stepNm} ${grid.count}`;
   for (let f = 0; f < DOT_FIELDS.length; f++) {
@@ -42,7 +43,7 @@ export function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, 
   for (let f = 0; f < DOT_FIELDS.length; f++) if (probe[DOT_FIELDS[f]] !== undefined) input[DOT_FIELDS[f]] = probe[DOT_FIELDS[f]];
   if (excitationNm !== undefined) input.excitationNm = excitationNm;
   try {
-    const dot = resolveDot(input as unknown as DotInput, { grid });
+    const dot = resolveDotCore(input as unknown as DotInput, grid);
     resolvedCache.set(key, dot);
     // Oldest first out: cheaper than a strict LRU and just as good for a few hundred probes.
     if (resolvedCache.size > RESOLVED_CACHE_SIZE) resolvedCache.delete(resolvedCache.keys().next().value!);

@@ -5,11 +5,11 @@
  */
 import type { PanelSpec } from '../panel';
 import { DEFAULT_GRID, type WavelengthGrid } from '../grid';
-import { collectedMatrix, crosstalkFigures, type WorstInterference } from '../crosstalk';
+import { collectedMatrixOfWindows, crosstalkFigures, type WorstInterference } from '../crosstalk';
 import { overlap } from '../linalg/runs';
 import { diagnoseMixing } from '../unmix';
 import { lotShiftSensitivity, type LotShiftSensitivity } from '../sensitivity';
-import { buildPanelModel, type PanelModel, type ProbeEvaluation } from './panel-model';
+import { gridComponents, modelPanel, type PanelCoreModel, type ProbeEvaluation } from './panel-model';
 import { makeJsonSafe } from './json-safe';
 
 /** Everything evaluatePanel returns; JSON-safe (no NaN or Infinity: undefined figures are null with a warning). */
@@ -35,7 +35,7 @@ export interface PanelEvaluation {
 }
 
 /** Adds the background collected per channel and each channel's signal-to-background (null + warning at 0). */
-function addBackground(evaluation: PanelEvaluation, model: PanelModel, panel: PanelSpec, channelIds: string[]): void {
+function addBackground(evaluation: PanelEvaluation, model: PanelCoreModel, panel: PanelSpec, channelIds: string[]): void {
   const { grid, transmissions, linesOnByChannel } = model;
   const background = model.background!;
   const lines = panel.excitation;
@@ -55,11 +55,12 @@ function addBackground(evaluation: PanelEvaluation, model: PanelModel, panel: Pa
  * the field, e.g. ['channels', 2, 'filters', 0, 'widthNm'] or ['probes', 1, 'channel'].
  */
 export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid; sensitivity?: boolean } = {}): PanelEvaluation {
-  const model = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
+  // Transmissions in reused buffers: nothing in the result holds them.
+  const model = modelPanel(panel, options.grid ?? DEFAULT_GRID, true);
   const { grid, components, transmissions, constantEnds, assigned } = model;
   const probeIds = panel.probes.map((p) => p.id);
   const channelIds = panel.channels.map((c) => c.id);
-  const collected = collectedMatrix(components, transmissions, grid.stepNm, constantEnds);
+  const collected = collectedMatrixOfWindows(components, transmissions, grid.stepNm, constantEnds);
   const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
   const diagnostics = diagnoseMixing(collected, probeIds);
   const warnings = [...figures.warnings, ...diagnostics.warnings];
@@ -75,7 +76,7 @@ export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid
     noiseAmplification: diagnostics.noiseAmplification,
     worst: figures.worst,
     lotShiftSensitivity: options.sensitivity === false ? null
-      : lotShiftSensitivity(components, transmissions, grid.stepNm, collected, assigned, probeIds, channelIds, undefined, constantEnds),
+      : lotShiftSensitivity(gridComponents(model), transmissions, grid.stepNm, collected, assigned, probeIds, channelIds, undefined, constantEnds),
     warnings,
   };
   if (model.background) addBackground(evaluation, model, panel, channelIds);

@@ -52,7 +52,13 @@ function edgeHalfDistanceNm(widthNm: number, scaleNm: number): number {
 }
 
 /** Transmission (0–1) of a bandpass filter on a grid. Errors name the field under `path`. */
-export function bandpassTransmission(filter: BandpassSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
+export function bandpassTransmission(
+  filter: BandpassSpec,
+  grid: WavelengthGrid,
+  path: (string | number)[] = [],
+  ends?: ConstantEnds,
+  out?: Float64Array,
+): Float64Array {
   const centerNm = requireWavelengthNm(filter.centerNm, 'centerNm', path);
   const widthNm = filter.widthNm;
   if (typeof widthNm !== 'number' || !Number.isFinite(widthNm) || widthNm <= 0) {
@@ -70,5 +76,5 @@ export function bandpassTransmission(filter: BandpassSpec, grid: WavelengthGrid,
   const h = edgeHalfDistanceNm(widthNm, scaleNm);
   // The two edges overlap a little at the centre: divide by the shape's own top so the peak is exactly peakTransmission.
   const top = scaleNm === 0 ? 1 : logistic(h / scaleNm) ** 2;
-  return fillPassband(grid, centerNm - h, centerNm + h, scaleNm, options.floor, (options.peakTransmission - options.floor) / top, ends);
+  return fillPassband(grid, centerNm - h, centerNm + h, scaleNm, options.floor, (options.peakTransmission - options.floor) / top, ends, out);
 }

@@ -5,7 +5,7 @@ import type { ChannelSpec } from '../panel';
 import type { WavelengthGrid } from '../grid';
 import { SpectraError } from '../errors';
 import { detectorQe } from '../detectors';
-import { filterTransmission } from './factory';
+import { filterTransmission, filterTransmissionInto } from './factory';
 import type { ConstantEnds } from '../linalg/runs';
 
 /** Most filters one channel may stack (a guard on request size, not a physical limit). */
@@ -24,6 +24,20 @@ export function channelTransmission(
   path: (string | number)[] = [],
   ends?: ConstantEnds,
 ): Float64Array {
+  return channelTransmissionInto(channel, grid, path, ends);
+}
+
+/**
+ * channelTransmission written into `target` (every point) when given, else into a new array: panel evaluation
+ * reuses its buffers, since a grid-long typed array per channel costs more to collect than to fill.
+ */
+export function channelTransmissionInto(
+  channel: ChannelSpec,
+  grid: WavelengthGrid,
+  path: (string | number)[],
+  ends: ConstantEnds | undefined,
+  target?: Float64Array,
+): Float64Array {
   if (!Array.isArray(channel?.filters)) {
     throw new SpectraError('invalid_input', 'a channel needs a filters array (it may be empty)', [...path, 'filters']);
   }
@@ -34,7 +48,8 @@ export function channelTransmission(
   // The first filter's fresh array becomes the product, multiplied in place by the others and the QE.
   const window: ConstantEnds = { first: filters.length === 0 ? grid.count : 0, end: 0 };
   const own: ConstantEnds = { first: 0, end: grid.count };
-  const out = filters.length === 0 ? new Float64Array(grid.count).fill(1) : filterTransmission(filters[0], grid, [...path, 'filters', 0], own);
+  const out = filters.length === 0 ? (target ?? new Float64Array(grid.count)).fill(1)
+    : filterTransmissionInto(filters[0], grid, [...path, 'filters', 0], own, target);
   if (filters.length > 0) Object.assign(window, own);
   for (let f = 1; f < filters.length; f++) {
     const t = filterTransmission(filters[f], grid, [...path, 'filters', f], own);

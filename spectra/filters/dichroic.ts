@@ -20,9 +20,15 @@ export interface DichroicSpec {
 }
 
 /** Transmission (0–1) towards the channel's detector of a dichroic mirror on a grid. */
-export function dichroicTransmission(filter: DichroicSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
+export function dichroicTransmission(
+  filter: DichroicSpec,
+  grid: WavelengthGrid,
+  path: (string | number)[] = [],
+  ends?: ConstantEnds,
+  out?: Float64Array,
+): Float64Array {
   if (filter.passes !== 'above' && filter.passes !== 'below') {
     throw new SpectraError('invalid_input', `passes must be "above" or "below", got ${String(filter.passes)}`, [...path, 'passes']);
   }
-  return singleEdgeTransmission(filter, filter.passes === 'above', FILTER_DEFAULTS.dichroic, grid, path, ends);
+  return singleEdgeTransmission(filter, filter.passes === 'above', FILTER_DEFAULTS.dichroic, grid, path, ends, out);
 }

@@ -30,7 +30,7 @@ function window(grid: WavelengthGrid, edgeNm: number, scaleNm: number, belowScal
 }
 
 /**
- * Writes floor + span × L(λ − riseNm) × L(fallNm − λ) on the grid into a new array: a passband between a rising edge
+ * Writes floor + span × L(λ − riseNm) × L(fallNm − λ) on the grid into `out` (every point; a new array by default): a passband between a rising edge
  * at riseNm (−Infinity: none) and a falling edge at fallNm (+Infinity: none), both of logistic scale s. Near an edge
  * (where it changes the value by more than 1e-12 relative, see blockedSideScales) the exponential is stepped by a
  * constant ratio per grid point rather than one exp() per point (this runs for every channel of every evaluation);
@@ -44,9 +44,9 @@ export function fillPassband(
   floor: number,
   span: number,
   ends?: ConstantEnds,
+  out: Float64Array = new Float64Array(grid.count),
 ): Float64Array {
   const { startNm, stepNm, count } = grid;
-  const out = new Float64Array(count);
   if (ends) {
     ends.first = 0;
     ends.end = count;
@@ -65,10 +65,9 @@ export function fillPassband(
   const [fallFirst, fallLast] = window(grid, fallNm, scaleNm, OPEN_SIDE_SCALES, blocked);
   const from = Math.max(0, riseFirst);
   const to = Math.min(count - 1, fallLast);
-  if (floor !== 0) {
-    out.fill(floor, 0, Math.min(Math.max(from, 0), count));
-    out.fill(floor, Math.max(to + 1, 0), count);
-  }
+  // Also when the floor is 0: `out` may be a reused buffer.
+  out.fill(floor, 0, Math.min(Math.max(from, 0), count));
+  out.fill(floor, Math.max(to + 1, 0), count);
   if (ends) {
     // Outside [from, to] the array is the floor, or the plateau beyond a missing edge: constant either way.
     ends.first = Math.min(Math.max(from, 0), count);

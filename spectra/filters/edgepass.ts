@@ -27,17 +27,24 @@ export function singleEdgeTransmission(
   grid: WavelengthGrid,
   path: (string | number)[],
   ends?: ConstantEnds,
+  out?: Float64Array,
 ): Float64Array {
   const edgeNm = requireWavelengthNm(filter.edgeNm, 'edgeNm', path);
   const options = resolveEdgeOptions(filter, defaults, path);
   const span = options.peakTransmission - options.floor;
   const scaleNm = logisticScaleNm(options.edgeWidthNm);
   return passesAbove
-    ? fillPassband(grid, edgeNm, Infinity, scaleNm, options.floor, span, ends)
-    : fillPassband(grid, -Infinity, edgeNm, scaleNm, options.floor, span, ends);
+    ? fillPassband(grid, edgeNm, Infinity, scaleNm, options.floor, span, ends, out)
+    : fillPassband(grid, -Infinity, edgeNm, scaleNm, options.floor, span, ends, out);
 }
 
 /** Transmission (0–1) of a longpass or shortpass filter on a grid. */
-export function edgePassTransmission(filter: EdgePassSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
-  return singleEdgeTransmission(filter, filter.type === 'longpass', FILTER_DEFAULTS.edgepass, grid, path, ends);
+export function edgePassTransmission(
+  filter: EdgePassSpec,
+  grid: WavelengthGrid,
+  path: (string | number)[] = [],
+  ends?: ConstantEnds,
+  out?: Float64Array,
+): Float64Array {
+  return singleEdgeTransmission(filter, filter.type === 'longpass', FILTER_DEFAULTS.edgepass, grid, path, ends, out);
 }

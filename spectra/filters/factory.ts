@@ -19,19 +19,30 @@ import type { ConstantEnds } from '../linalg/runs';
  * @example filterTransmission({ type: 'bandpass', centerNm: 605, widthNm: 20 }, DEFAULT_GRID)
  */
 export function filterTransmission(filter: FilterSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
+  return filterTransmissionInto(filter, grid, path, ends);
+}
+
+/** filterTransmission written into `out` (every point) when given, else into a new array. */
+export function filterTransmissionInto(
+  filter: FilterSpec,
+  grid: WavelengthGrid,
+  path: (string | number)[],
+  ends: ConstantEnds | undefined,
+  out?: Float64Array,
+): Float64Array {
   if (filter === null || typeof filter !== 'object') {
     throw new SpectraError('invalid_input', 'a filter must be an object with a type', path);
   }
   switch (filter.type) {
     case 'bandpass':
-      return bandpassTransmission(filter, grid, path, ends);
+      return bandpassTransmission(filter, grid, path, ends, out);
     case 'longpass':
     case 'shortpass':
-      return edgePassTransmission(filter, grid, path, ends);
+      return edgePassTransmission(filter, grid, path, ends, out);
     case 'dichroic':
-      return dichroicTransmission(filter, grid, path, ends);
+      return dichroicTransmission(filter, grid, path, ends, out);
     case 'table':
-      return tableTransmission(filter, grid, path, ends);
+      return tableTransmission(filter, grid, path, ends, out);
     default: {
       const unknown: never = filter;
       throw new SpectraError(

@@ -42,14 +42,19 @@ export function checkTable(points: unknown, path: (string | number)[], range: [n
 }
 
 /** Transmission (0–1) of a measured filter on a grid, end values held beyond the table. */
-export function tableTransmission(filter: TableFilterSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
+export function tableTransmission(
+  filter: TableFilterSpec,
+  grid: WavelengthGrid,
+  path: (string | number)[] = [],
+  ends?: ConstantEnds,
+  out: Float64Array = new Float64Array(grid.count),
+): Float64Array {
   const points = checkTable(filter.points, [...path, 'points'], [0, 1]);
   if (ends) {
     // The end values are held beyond the table: constant below its first and above its last wavelength.
     ends.first = Math.min(grid.count, Math.max(0, Math.floor((points[0][0] - grid.startNm) / grid.stepNm)));
     ends.end = Math.max(ends.first, Math.min(grid.count, Math.ceil((points[points.length - 1][0] - grid.startNm) / grid.stepNm) + 1));
   }
-  const out = new Float64Array(grid.count);
   const n = points.length;
   let j = 0;
   for (let i = 0; i < grid.count; i++) {

@@ -60,22 +60,3 @@ export function channelSupport(t: Float64Array, known?: ConstantEnds): ChannelSu
   while (end > first && t[end - 1] === right) end--;
   return { t, first: Math.min(first, n), end: Math.max(end, Math.min(first, n)), left, right };
 }
-
-// Emission arrays of resolved dots are immutable and come back evaluation after evaluation (the dot cache in
-// evaluate.ts): keep their partial sums beside them, dropped with the array.
-const sumsOf = new WeakMap<Float64Array, { prefix: Float64Array; suffix: Float64Array }>();
-
-/** prefix[i] = Σ_{k<i} em (summed from the blue end), suffix[i] = Σ_{k≥i} em (from the red end). */
-export function partialSums(em: Float64Array): { prefix: Float64Array; suffix: Float64Array } {
-  const known = sumsOf.get(em);
-  if (known) return known;
-  const n = em.length;
-  const prefix = new Float64Array(n + 1);
-  const suffix = new Float64Array(n + 1);
-  for (let i = 0; i < n; i++) prefix[i + 1] = prefix[i] + em[i];
-  for (let i = n - 1; i >= 0; i--) suffix[i] = suffix[i + 1] + em[i];
-  const sums = { prefix, suffix };
-  sumsOf.set(em, sums);
-  return sums;
-}
-
