@@ -64,7 +64,10 @@ export function windowSums(w: EmissionWindow): number[] {
 /** Σ values[i − offset] t[i] over grid indices [lo, hi), four partial sums (independent add chains run faster). */
 function windowDot(values: ArrayLike<number>, offset: number, t: Float64Array, lo: number, hi: number): number {
   let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
-  let i = lo;
+  // Integer indices: a double index is converted and checked at every access.
+  offset |= 0;
+  hi |= 0;
+  let i = lo | 0;
   for (; i + 3 < hi; i += 4) {
     s0 += values[i - offset] * t[i];
     s1 += values[i + 1 - offset] * t[i + 1];

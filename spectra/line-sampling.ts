@@ -54,11 +54,15 @@ function gridTables(grid: WavelengthGrid): GridTables {
 function fillLine(values: number[], tables: GridTables, from: number, to: number, centerEv: number, sigma: number): number {
   const { energyEv, jacobianEvPerNm } = tables;
   const negHalfInvVar = -0.5 / (sigma * sigma);
+  // Integer loop bounds (|0): the bounds come from Math.floor/ceil as doubles, and a double index is converted and
+  // checked at every access (measured: about twice the time per point).
+  const first = from | 0;
+  const last = to | 0;
   let sum = 0;
-  for (let i = from; i <= to; i++) {
+  for (let i = first; i <= last; i++) {
     const d = energyEv[i] - centerEv;
     const v = expNonPositive(d * d * negHalfInvVar) * jacobianEvPerNm[i];
-    values[i - from] = v;
+    values[i - first] = v;
     sum += v;
   }
   return sum;
@@ -92,8 +96,9 @@ export function sampleGaussianWindow(grid: WavelengthGrid, centerEv: number, fwh
   // Blue end of the window from the high-energy cut; red end from the low-energy cut (none when it is at or below 0 eV).
   const blueNm = HC / (centerEv + reach);
   const redNm = centerEv - reach > 0 ? HC / (centerEv - reach) : Infinity;
-  let from = Math.max(0, Math.floor((blueNm - startNm) / stepNm));
-  let to = Math.min(count - 1, Math.ceil((redNm - startNm) / stepNm));
+  // Clamped to the grid, then integers (|0): the loops index with them.
+  let from = Math.min(count, Math.max(0, Math.floor((blueNm - startNm) / stepNm))) | 0;
+  let to = Math.max(-1, Math.min(count - 1, Math.ceil((redNm - startNm) / stepNm))) | 0;
   let values = new Array<number>(Math.max(0, to - from + 1));
   let sum = fillLine(values, tables, from, to, centerEv, sigma);
   let areaOnGrid = sum * peakDensity * stepNm;

@@ -63,8 +63,10 @@ export function fillPassband(
   const blocked = blockedSideScales(floor, span);
   const [riseFirst, riseLast] = window(grid, riseNm, scaleNm, blocked, OPEN_SIDE_SCALES);
   const [fallFirst, fallLast] = window(grid, fallNm, scaleNm, OPEN_SIDE_SCALES, blocked);
-  const from = Math.max(0, riseFirst);
-  const to = Math.min(count - 1, fallLast);
+  // Integer indices (|0) for the loops below: a double index is converted and checked at every access. The window
+  // ends are clamped to the grid first (a missing edge puts them at ±Infinity).
+  const from = Math.min(count, Math.max(0, riseFirst)) | 0;
+  const to = Math.max(-1, Math.min(count - 1, fallLast)) | 0;
   // Also when the floor is 0: `out` may be a reused buffer.
   out.fill(floor, 0, Math.min(Math.max(from, 0), count));
   out.fill(floor, Math.max(to + 1, 0), count);
@@ -78,8 +80,8 @@ export function fillPassband(
   // its own window (so neither overflows nor crawls through subnormal numbers): rising edge alone, both edges where
   // the windows overlap, falling edge alone, and the plateau between windows that do not overlap.
   const q = Math.exp(-stepNm / scaleNm);
-  const riseEnd = Math.min(riseLast, to);
-  const fallStart = Math.max(fallFirst, from);
+  const riseEnd = Math.max(from - 1, Math.min(riseLast, to)) | 0;
+  const fallStart = Math.min(to + 1, Math.max(fallFirst, from)) | 0;
   let e1 = from <= riseEnd ? Math.exp(-(startNm + from * stepNm - riseNm) / scaleNm) : 0;
   let e2 = fallStart <= to ? Math.exp((startNm + fallStart * stepNm - fallNm) / scaleNm) : 0;
   const riseOnlyEnd = Math.min(riseEnd, fallStart - 1);
