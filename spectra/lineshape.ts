@@ -49,21 +49,23 @@ function peakEvOfLine(centerEv: number, sigma: number): number {
 /**
  * Energy (eV) where the per-nm density falls to half its peak, on the blue (`side` = 1) or red (−1) side. In energy
  * the per-nm density is ∝ exp(−(E − E₀)²/2σ²)·E², so its log ψ(E) = −(E − E₀)²/2σ² + 2 ln E is concave for E > 0:
- * Newton's method on ψ(E) = ψ(E_pk) − ln 2 started beyond the crossing moves monotonically towards it (a concave
- * function lies below its tangents), and converges quadratically to round-off.
+ * Newton's method on ψ(E) = ψ(E_pk) − ln 2 converges to the crossing (from beyond it monotonically, since a concave
+ * function lies below its tangents; from inside, the first step lands beyond it), quadratically to round-off.
+ * The start is the crossing of ψ's second-order expansion about the peak, where the linear terms cancel (ψ′(E_pk) = 0):
+ * ψ(E_pk + u) ≈ ψ(E_pk) − u²(1/2σ² + 1/E_pk²), so u = ±√(ln 2 / (1/2σ² + 1/E_pk²)); its error is third order in
+ * σ/E_pk, so two or three Newton steps reach round-off.
  */
 function halfCrossingEv(centerEv: number, sigma: number, peakEv: number, side: 1 | -1): number {
   const inv2s2 = 0.5 / (sigma * sigma);
   const target = -(peakEv - centerEv) * (peakEv - centerEv) * inv2s2 + 2 * Math.log(peakEv) - Math.LN2;
-  // A start beyond the crossing: 2σ out (below half for the Gaussian alone), pushed further while still above half.
-  let offset = 2 * sigma;
-  let e = peakEv + side * offset;
-  if (side === -1 && e <= 0) e = peakEv / 2;
-  for (let k = 0; k < 200; k++) {
-    const psi = -(e - centerEv) * (e - centerEv) * inv2s2 + 2 * Math.log(e);
-    if (psi < target) break;
-    offset *= 2;
-    e = side === 1 ? peakEv + offset : e / 2;
+  let e = peakEv + side * Math.sqrt(Math.LN2 / (inv2s2 + 1 / (peakEv * peakEv)));
+  if (!(e > 0)) {
+    // Lines so wide that the expansion puts the red crossing at or below 0 eV: start beyond it by halving instead.
+    e = peakEv / 2;
+    for (let k = 0; k < 200; k++) {
+      if (-(e - centerEv) * (e - centerEv) * inv2s2 + 2 * Math.log(e) < target) break;
+      e /= 2;
+    }
   }
   for (let k = 0; k < 100; k++) {
     const psi = -(e - centerEv) * (e - centerEv) * inv2s2 + 2 * Math.log(e);
