@@ -9,7 +9,7 @@
 import type { ChannelSpec, ExcitationLine } from './panel';
 import { SpectraError } from './errors';
 import { channelSupport, type ChannelSupport, type ConstantEnds } from './linalg/runs';
-import { gridEmissionWindow, windowOverlap, type EmissionWindow } from './emission-window';
+import { gridEmissionWindow, runSums, windowOverlap, type EmissionWindow } from './emission-window';
 
 /** One emission spectrum of a probe and its weight in each channel (Σ powerRel × ε × QY × abundance over lines on). */
 export interface EmissionComponent {
@@ -49,7 +49,7 @@ export interface WindowComponent {
 }
 
 // Grid-long emission arrays given to collectedColumn come back call after call (a design search, the dot cache of
-// buildPanelModel): keep their windows and partial sums beside them, dropped with the array.
+// buildPanelModel): keep their windows beside them (found by a scan of the whole array), dropped with the array.
 const windowOf = new WeakMap<Float64Array, EmissionWindow>();
 
 function cachedWindow(em: Float64Array): EmissionWindow {
@@ -61,14 +61,24 @@ function cachedWindow(em: Float64Array): EmissionWindow {
   return w;
 }
 
-/** collectedColumn for emissions held as windows (what panel evaluation uses); same sums, same order. */
+// Scratch for the run sums of one emission (grown to the most channels seen).
+let leftSums = new Float64Array(64);
+let rightSums = new Float64Array(64);
+
+/** collectedColumn for emissions held as windows (what panel evaluation uses). */
 export function collectedColumnOfWindows(components: WindowComponent[], supports: ChannelSupport[], stepNm: number): number[] {
-  const column = new Array<number>(supports.length).fill(0);
+  const channels = supports.length;
+  if (leftSums.length < channels) {
+    leftSums = new Float64Array(channels);
+    rightSums = new Float64Array(channels);
+  }
+  const column = new Array<number>(channels).fill(0);
   for (let k = 0; k < components.length; k++) {
     const { emission, weightByChannel } = components[k];
-    for (let c = 0; c < supports.length; c++) {
+    runSums(emission, supports, leftSums, rightSums);
+    for (let c = 0; c < channels; c++) {
       const w = weightByChannel[c];
-      if (w !== 0) column[c] += w * windowOverlap(emission, supports[c]) * stepNm;
+      if (w !== 0) column[c] += w * windowOverlap(emission, supports[c], leftSums[c], rightSums[c]) * stepNm;
     }
   }
   return column;
@@ -79,7 +89,7 @@ export function collectedColumnOfWindows(components: WindowComponent[], supports
  * The emission's sums over the left runs are accumulated from the blue end, those over the right runs from the red
  * end, so a tiny tail is never the difference of two large sums (it matters against a 10^-12 blocking floor). Only
  * the part of the channel's window where the emission is not 0 is summed point by point.
- * Emission arrays must not be changed after their first use here (their partial sums are kept).
+ * Emission arrays must not be changed after their first use here (their nonzero windows are kept).
  */
 export function collectedColumn(components: EmissionComponent[], supports: ChannelSupport[], stepNm: number): number[] {
   return collectedColumnOfWindows(components.map((c) => ({ emission: cachedWindow(c.emission), weightByChannel: c.weightByChannel })), supports, stepNm);

@@ -7,19 +7,18 @@ import type { ChannelSupport } from './linalg/runs';
 
 /**
  * An emission that is exactly 0 outside grid indices [from, to); inside, the value at index i is values[i − offset]
- * (offset = from for a window-long array, 0 for a grid-long one). `sums` is filled on first use (see windowSums).
+ * (offset = from for a window-long array, 0 for a grid-long one).
  */
 export interface EmissionWindow {
   from: number;
   to: number;
   offset: number;
   values: ArrayLike<number>;
-  sums: number[] | null;
 }
 
 /** A window-long array starting at grid index `from` as an EmissionWindow. */
 export function lineEmissionWindow(from: number, values: number[]): EmissionWindow {
-  return { from, to: from + values.length, offset: from, values, sums: null };
+  return { from, to: from + values.length, offset: from, values };
 }
 
 /** The nonzero window of a grid-long emission array (the array itself is kept, not copied). */
@@ -28,7 +27,7 @@ export function gridEmissionWindow(values: Float64Array): EmissionWindow {
   let to = values.length;
   while (from < to && values[from] === 0) from++;
   while (to > from && values[to - 1] === 0) to--;
-  return { from, to, offset: 0, values, sums: null };
+  return { from, to, offset: 0, values };
 }
 
 /** The emission on the whole grid (`count` points), zeros outside the window. */
@@ -39,26 +38,77 @@ export function windowToGrid(w: EmissionWindow, count: number): Float64Array {
   return out;
 }
 
+// Scratch for runSums (grown to the most channels seen): the order of the cuts and the sums found at them.
+let order = new Int32Array(64);
+let cuts = new Int32Array(64);
+
+/** Σ values[k − offset] over grid indices [lo, hi), four partial sums. */
+function rangeSum(values: ArrayLike<number>, offset: number, lo: number, hi: number): number {
+  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+  let i = lo | 0;
+  hi |= 0;
+  offset |= 0;
+  for (; i + 3 < hi; i += 4) {
+    s0 += values[i - offset];
+    s1 += values[i + 1 - offset];
+    s2 += values[i + 2 - offset];
+    s3 += values[i + 3 - offset];
+  }
+  for (; i < hi; i++) s0 += values[i - offset];
+  return s0 + s1 + s2 + s3;
+}
+
 /**
- * Partial sums over the window, kept on it: sums[k] = Σ em[from .. from+k) summed from the blue end, and
- * sums[n + 1 + k] = Σ em[from+k .. to) summed from the red end (n = to − from). The zeros outside add nothing, so these
- * are the sums over the whole grid, exactly. A plain array: most die young (a cold evaluation), and a JS-heap store is
- * cheaper to make and collect than a typed array's.
+ * The emission's sum over each channel's constant runs: left[c] = Σ em below supports[c].first, accumulated from
+ * the blue end, and right[c] = Σ em from supports[c].end on, accumulated from the red end, so a tiny tail is never
+ * the difference of two large sums (it matters against a 10^-12 blocking floor). The zeros outside the window add
+ * nothing. One walk from each end through the cuts in order, no array per emission.
  */
-export function windowSums(w: EmissionWindow): number[] {
-  if (w.sums) return w.sums;
+export function runSums(w: EmissionWindow, supports: ChannelSupport[], left: Float64Array, right: Float64Array): void {
+  const n = supports.length;
+  if (order.length < n) {
+    order = new Int32Array(n);
+    cuts = new Int32Array(n);
+  }
   const { from, to, offset, values } = w;
-  const n = to - from;
-  const sums = new Array<number>(2 * n + 2);
-  const base = n + 1;
+  // Left runs: cut positions clamped into the window, channels sorted by cut (insertion sort: a handful of channels).
+  for (let c = 0; c < n; c++) {
+    const cut = Math.min(Math.max(supports[c].first, from), to) | 0;
+    let j = c;
+    while (j > 0 && cuts[j - 1] > cut) {
+      cuts[j] = cuts[j - 1];
+      order[j] = order[j - 1];
+      j--;
+    }
+    cuts[j] = cut;
+    order[j] = c;
+  }
   let acc = 0;
-  sums[0] = 0;
-  for (let k = 0; k < n; k++) sums[k + 1] = acc += values[from - offset + k];
+  let at = from;
+  for (let j = 0; j < n; j++) {
+    acc += rangeSum(values, offset, at, cuts[j]);
+    at = cuts[j];
+    left[order[j]] = acc;
+  }
+  // Right runs: sorted by cut, walked from the red end.
+  for (let c = 0; c < n; c++) {
+    const cut = Math.min(Math.max(supports[c].end, from), to) | 0;
+    let j = c;
+    while (j > 0 && cuts[j - 1] < cut) {
+      cuts[j] = cuts[j - 1];
+      order[j] = order[j - 1];
+      j--;
+    }
+    cuts[j] = cut;
+    order[j] = c;
+  }
   acc = 0;
-  sums[base + n] = 0;
-  for (let k = n - 1; k >= 0; k--) sums[base + k] = acc += values[from - offset + k];
-  w.sums = sums;
-  return sums;
+  at = to;
+  for (let j = 0; j < n; j++) {
+    acc += rangeSum(values, offset, cuts[j], at);
+    at = cuts[j];
+    right[order[j]] = acc;
+  }
 }
 
 /** Σ values[i − offset] t[i] over grid indices [lo, hi), four partial sums (independent add chains run faster). */
@@ -79,18 +129,11 @@ function windowDot(values: ArrayLike<number>, offset: number, t: Float64Array, l
 }
 
 /**
- * Σλ em(λ) T(λ) (no Δλ) over the whole grid, for an emission window and a channel split into constant runs and a
- * window: the emission's sum over the left run is accumulated from the blue end, over the right run from the red
- * end, so a tiny tail is never the difference of two large sums (it matters against a 10^-12 blocking floor); only
- * the part of the channel's window where the emission is not 0 is summed point by point.
+ * Σλ em(λ) T(λ) (no Δλ) over the whole grid, given the emission's sums over the channel's constant runs (runSums):
+ * only the part of the channel's window where the emission is not 0 is summed point by point.
  */
-export function windowOverlap(w: EmissionWindow, support: ChannelSupport): number {
-  const sums = windowSums(w);
-  const { from, to } = w;
-  const n = to - from;
+export function windowOverlap(w: EmissionWindow, support: ChannelSupport, leftSum: number, rightSum: number): number {
   const { t, first, end, left, right } = support;
-  const leftSum = sums[Math.min(Math.max(first - from, 0), n)];
-  const rightSum = sums[n + 1 + Math.min(Math.max(end - from, 0), n)];
-  const inside = windowDot(w.values, w.offset, t, Math.max(first, from), Math.min(end, to));
+  const inside = windowDot(w.values, w.offset, t, Math.max(first, w.from), Math.min(end, w.to));
   return left * leftSum + inside + right * rightSum;
 }

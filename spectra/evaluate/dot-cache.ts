@@ -2,8 +2,8 @@
  * The resolved-dot cache of panel evaluation. Resolving a dot (sizing law inversion, line shape on the grid) costs
  * far more than the rest of an evaluation, and the same probes come back again and again (editing one probe of a
  * panel, the design search): the last resolutions are kept, keyed by the exact input and grid. Resolved cores are
- * never mutated after this point, except to fill in what they make on first need (partial sums, the grid-long
- * emission, the public ResolvedDot).
+ * never mutated after this point, except to fill in what they make on first need (the grid-long emission, the
+ * public ResolvedDot).
  */
 import { MATERIAL_IDS, type MaterialId, type ProbeSpec } from '../panel';
 import type { WavelengthGrid } from '../grid';
