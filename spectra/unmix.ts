@@ -4,9 +4,9 @@
  * vector by least squares or by NNLS (Lawson & Hanson, Solving Least Squares Problems, 1974). Where a figure has no
  * finite value (rank-deficient M, more probes than channels) it is null and a warning says why; never NaN or Infinity.
  */
-import { EPSILON, checkMatrix, checkVector, dot, norm2 } from './linalg/matrix';
+import { EPSILON, checkMatrix, checkVector } from './linalg/matrix';
 import { svdPivotedQr } from './linalg/preconditioned';
-import { symmetricEigen } from './linalg/symeig';
+import { gramDiagnostics, unitColumns } from './linalg/gram';
 import { leastSquaresQr } from './linalg/qr';
 import { nnls } from './linalg/nnls';
 
@@ -22,46 +22,20 @@ function rankProblem(m: number[][], s: number[] | null, ids?: string[]): string 
   const rows = m.length;
   const cols = m[0].length;
   if (cols > rows) return `${cols} probes but only ${rows} channels: the probes cannot be unmixed`;
-  for (let j = 0; j < cols; j++) if (m.every((row) => row[j] === 0)) return `probe ${ids?.[j] ?? j + 1} gives no signal in any channel: the probes cannot be unmixed`;
+  for (let j = 0; j < cols; j++) {
+    let i = 0;
+    while (i < rows && m[i][j] === 0) i++;
+    if (i === rows) return `probe ${ids?.[j] ?? j + 1} gives no signal in any channel: the probes cannot be unmixed`;
+  }
   if (s && !(s[cols - 1] > Math.max(rows, cols) * EPSILON * s[0])) {
     return 'the probes\' channel signatures are linearly dependent (rank-deficient): they cannot be unmixed';
   }
   return null;
 }
 
-// Gram-matrix eigenvalues lose relative accuracy as ε κ²: trusted up to κ = 1e4 (error about 2e-8 relative at
-// worst), beyond which the one-sided Jacobi SVD, accurate at any κ, takes over.
-const GRAM_MAX_CONDITION = 1e4;
-
-/** σ and V from the eigen-decomposition of NᵀN (N = the columns), or null when κ is too large to trust it. */
-function gramSvd(columns: Float64Array[]): { s: number[]; v: number[][] } | null {
-  const n = columns.length;
-  const gram: Float64Array[] = [];
-  for (let i = 0; i < n; i++) gram.push(new Float64Array(n));
-  for (let i = 0; i < n; i++) {
-    for (let j = i; j < n; j++) gram[i][j] = gram[j][i] = dot(columns[i], columns[j]);
-  }
-  const eigen = symmetricEigen(gram);
-  if (!eigen) return null;
-  const { values, vectors } = eigen;
-  if (!(values[n - 1] > 0) || values[0] / values[n - 1] > GRAM_MAX_CONDITION ** 2) return null;
-  return { s: values.map(Math.sqrt), v: Array.from({ length: n }, (_, j) => vectors.map((vec) => vec[j])) };
-}
-
-/**
- * Singular values and V of M with every column scaled to unit 2-norm (M has no zero column here). With `fast`, the
- * Gram-matrix route answers when the matrix is well conditioned.
- */
-function normalisedSvd(m: number[][], tolerance: number, fast = false): { s: number[]; v: number[][] } {
-  const rows = m.length;
-  const columns = m[0].map((_, j) => {
-    const col = new Float64Array(rows);
-    for (let i = 0; i < rows; i++) col[i] = m[i][j];
-    const norm = norm2(col);
-    for (let i = 0; i < rows; i++) col[i] /= norm;
-    return col;
-  });
-  return (fast ? gramSvd(columns) : null) ?? svdPivotedQr(columns, tolerance);
+/** σ and V of M with every column scaled to unit 2-norm (one-sided Jacobi after pivoted QR; M has no zero column). */
+function normalisedSvd(m: number[][], tolerance: number): { s: number[]; v: number[][] } {
+  return svdPivotedQr(unitColumns(m), tolerance);
 }
 
 /**
@@ -74,17 +48,24 @@ export function unmixingDiagnostics(m: number[][], probeIds?: string[]): Unmixin
   return diagnoseMixing(m, probeIds);
 }
 
+// A module function rather than a closure per call (name-keeping bundlers wrap each named closure at creation).
+function nullFigures(cols: number): { conditionNumber: null; noiseAmplification: null[] } {
+  return { conditionNumber: null, noiseAmplification: new Array<null>(cols).fill(null) };
+}
+
 /** unmixingDiagnostics for a matrix already known to be rectangular and finite (a panel's own collected). */
 export function diagnoseMixing(m: number[][], probeIds?: string[]): UnmixingDiagnostics {
   const cols = m[0].length;
   const early = rankProblem(m, null, probeIds);
-  const nulls = () => ({ conditionNumber: null, noiseAmplification: new Array<null>(cols).fill(null) });
-  if (early) return { ...nulls(), warnings: [early] };
-  // Well-conditioned: Gram eigenvalues (cheap). Otherwise Jacobi to |cos| ≤ 1e-12 between rotated columns, which
-  // bounds the relative error of κ and the gains near 1e-11: ample for a diagnostic, and sweeps fewer than full precision.
-  const { s, v } = normalisedSvd(m, 1e-12, true);
+  if (early) return { ...nullFigures(cols), warnings: [early] };
+  // Well-conditioned: Gram eigenvalues and a Cholesky factor (cheap, see linalg/gram.ts).
+  const fast = gramDiagnostics(m);
+  if (fast) return { conditionNumber: fast.conditionNumber, noiseAmplification: fast.gains, warnings: [] };
+  // Otherwise Jacobi to |cos| ≤ 1e-12 between rotated columns, which bounds the relative error of κ and the gains
+  // near 1e-11: ample for a diagnostic, and sweeps fewer than full precision.
+  const { s, v } = normalisedSvd(m, 1e-12);
   const late = rankProblem(m, s);
-  if (late) return { ...nulls(), warnings: [late] };
+  if (late) return { ...nullFigures(cols), warnings: [late] };
   const gains = v.map((row) => Math.sqrt(row.reduce((sum, vjk, k) => sum + (vjk * vjk) / (s[k] * s[k]), 0)));
   return { conditionNumber: s[0] / s[cols - 1], noiseAmplification: gains, warnings: [] };
 }

@@ -11,14 +11,18 @@ export interface SymmetricEigen {
   vectors: Float64Array[];
 }
 
-/** Reduces symmetric `a` (rows, overwritten) to tridiagonal d/e with a = Q T Qᵀ; returns Q as columns. */
-function tridiagonalise(a: Float64Array[], d: Float64Array, e: Float64Array): Float64Array[] {
+/** Reduces symmetric `a` (rows, overwritten) to tridiagonal d/e with a = Q T Qᵀ; returns Q as columns when asked. */
+function tridiagonalise(a: Float64Array[], d: Float64Array, e: Float64Array, wantQ: boolean): Float64Array[] | null {
   const n = a.length;
-  const q = Array.from({ length: n }, (_, j) => {
-    const col = new Float64Array(n);
-    col[j] = 1;
-    return col;
-  });
+  let q: Float64Array[] | null = null;
+  if (wantQ) {
+    q = [];
+    for (let j = 0; j < n; j++) {
+      const col = new Float64Array(n);
+      col[j] = 1;
+      q.push(col);
+    }
+  }
   const v = new Float64Array(n);
   const w = new Float64Array(n);
   for (let k = 0; k < n - 2; k++) {
@@ -50,7 +54,7 @@ function tridiagonalise(a: Float64Array[], d: Float64Array, e: Float64Array): Fl
     for (let i = k + 2; i < n; i++) a[i][k] = a[k][i] = 0;
     a[k + 1][k] = a[k][k + 1] = alpha;
     // Q ← Q H, one row of Q at a time.
-    for (let r = 0; r < n; r++) {
+    if (q) for (let r = 0; r < n; r++) {
       let s = 0;
       for (let i = k + 1; i < n; i++) s += q[i][r] * v[i];
       s *= beta;
@@ -64,15 +68,15 @@ function tridiagonalise(a: Float64Array[], d: Float64Array, e: Float64Array): Fl
   return q;
 }
 
-/** Eigen-decomposition of a symmetric matrix given as rows (overwritten). */
-export function symmetricEigen(a: Float64Array[]): SymmetricEigen | null {
-  const n = a.length;
-  const d = new Float64Array(n);
-  const e = new Float64Array(n);
-  const q = tridiagonalise(a, d, e);
+/**
+ * Implicit symmetric QR on tridiagonal d/e (overwritten: d ends as the eigenvalues, unordered); the rotations are
+ * applied to the columns of q when given. False if the iteration stalls.
+ */
+function diagonalise(d: Float64Array, e: Float64Array, q: Float64Array[] | null): boolean {
+  const n = d.length;
   let hi = n - 1;
   for (let iterations = 0; hi > 0; iterations++) {
-    if (iterations > 30 * n) return null;
+    if (iterations > 30 * n) return false;
     if (Math.abs(e[hi - 1]) <= EPSILON * (Math.abs(d[hi - 1]) + Math.abs(d[hi]))) {
       e[hi - 1] = 0;
       hi--;
@@ -103,6 +107,7 @@ export function symmetricEigen(a: Float64Array[]): SymmetricEigen | null {
         z = -s * e[k + 1];
         e[k + 1] *= c;
       }
+      if (!q) continue;
       const qk = q[k];
       const qk1 = q[k + 1];
       for (let i = 0; i < n; i++) {
@@ -113,6 +118,29 @@ export function symmetricEigen(a: Float64Array[]): SymmetricEigen | null {
       }
     }
   }
+  return true;
+}
+
+/** Eigen-decomposition of a symmetric matrix given as rows (overwritten). */
+export function symmetricEigen(a: Float64Array[]): SymmetricEigen | null {
+  const n = a.length;
+  const d = new Float64Array(n);
+  const e = new Float64Array(n);
+  const q = tridiagonalise(a, d, e, true)!;
+  if (!diagonalise(d, e, q)) return null;
   const order = Array.from(d, (_, k) => k).sort((p, r) => d[r] - d[p]);
   return { values: order.map((k) => d[k]), vectors: order.map((k) => q[k]) };
+}
+
+/**
+ * Eigenvalues only (descending) of a symmetric matrix given as rows (overwritten), or null if the iteration stalls:
+ * the same reduction and iteration as symmetricEigen, so the same values, without accumulating Q (about half the work).
+ */
+export function symmetricEigenvalues(a: Float64Array[]): Float64Array | null {
+  const n = a.length;
+  const d = new Float64Array(n);
+  const e = new Float64Array(n);
+  tridiagonalise(a, d, e, false);
+  if (!diagonalise(d, e, null)) return null;
+  return d.sort().reverse();
 }
