@@ -5,14 +5,11 @@
  * never mutated after this point, except to fill in what they make on first need (the grid-long emission, the
  * public ResolvedDot).
  */
-import { MATERIAL_IDS, type MaterialId, type ProbeSpec } from '../panel';
+import type { ProbeSpec } from '../panel';
 import type { WavelengthGrid } from '../grid';
 import { SpectraError } from '../errors';
 import { resolveDotCore, type DotCore, type DotInput } from '../dot-core';
-
-const MATERIAL_SET = new Set<MaterialId>(MATERIAL_IDS);
-
-const DOT_FIELDS = ['material', 'emissionPeakNm', 'diameterNm', 'sizeDispersionPct', 'fwhmNm', 'quantumYield', 'measuredEmission', 'extinction'] as const;
+import { DOT_FIELDS, probeKey } from './probe-key';
 
 /** Resolutions kept (oldest out first). */
 const RESOLVED_CACHE_SIZE = 256;
@@ -28,15 +25,7 @@ export function clearResolvedDotCache(): void {
  * any error's path moved under ['probes', p].
  */
 export function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, excitationNm?: number): DotCore {
-  // The key lists the given fields in DOT_FIELDS order; the input object is only built on a miss.
-  let key = `${grid.startNm} ${grid.stepNm} ${grid.count}`;
-  for (let f = 0; f < DOT_FIELDS.length; f++) {
-    const value = probe[DOT_FIELDS[f]];
-    if (value === undefined) continue;
-    // Strings and tables go through JSON (quoted, escaped), so no input can forge another input's key.
-    key += ` ${DOT_FIELDS[f]}=${typeof value === 'number' || MATERIAL_SET.has(value as MaterialId) ? value : JSON.stringify(value)}`;
-  }
-  if (excitationNm !== undefined) key += ` excitationNm=${excitationNm}`;
+  const key = probeKey(probe, grid, excitationNm);
   const hit = resolvedCache.get(key);
   if (hit) return hit;
   const input: Record<string, unknown> = {};
