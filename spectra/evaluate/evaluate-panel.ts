@@ -11,6 +11,7 @@ import { diagnoseMixing } from '../unmix';
 import { lotShiftSensitivity, type LotShiftSensitivity } from '../sensitivity';
 import { gridComponents, modelPanel, type PanelCoreModel, type ProbeEvaluation } from './panel-model';
 import { makeJsonSafe } from './json-safe';
+import { evaluationIsFinite } from './finite-check';
 
 /** Everything evaluatePanel returns; JSON-safe (no NaN or Infinity: undefined figures are null with a warning). */
 export interface PanelEvaluation {
@@ -80,6 +81,7 @@ export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid
     warnings,
   };
   if (model.background) addBackground(evaluation, model, panel, channelIds);
-  makeJsonSafe(evaluation, [], warnings);
+  // The general guard (a walk that builds each value's path) only when the quick typed scan finds a non-finite number.
+  if (!evaluationIsFinite(evaluation)) makeJsonSafe(evaluation, [], warnings);
   return evaluation;
 }
