@@ -31,7 +31,22 @@ interface GridTables {
 const MAX_GRIDS = 8;
 const tablesByGrid = new Map<string, GridTables>();
 
+// The last grid asked for, by value (the same grid comes back for every probe of a panel): no key text to build.
+let lastStartNm = NaN;
+let lastStepNm = NaN;
+let lastCount = -1;
+let lastTables: GridTables | null = null;
+
 function gridTables(grid: WavelengthGrid): GridTables {
+  if (lastTables && grid.startNm === lastStartNm && grid.stepNm === lastStepNm && grid.count === lastCount) return lastTables;
+  lastTables = tablesFor(grid);
+  lastStartNm = grid.startNm;
+  lastStepNm = grid.stepNm;
+  lastCount = grid.count;
+  return lastTables;
+}
+
+function tablesFor(grid: WavelengthGrid): GridTables {
   const key = `${grid.startNm} ${grid.stepNm} ${grid.count}`;
   let tables = tablesByGrid.get(key);
   if (!tables) {
