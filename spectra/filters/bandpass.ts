@@ -18,17 +18,28 @@ export interface BandpassSpec {
   blockingOD?: number;
 }
 
-const logLogistic = (z: number) => (z >= 0 ? -Math.log1p(Math.exp(-z)) : z - Math.log1p(Math.exp(z)));
 const logistic = (z: number) => 1 / (1 + Math.exp(-z));
 
-// g(h) = ln shape(w/2) − ln shape(0) + ln 2 for edges at ±h (a module function: no closure per narrow bandpass).
-function halfMaximumGap(h: number, half: number, scaleNm: number): number {
-  return logLogistic((half + h) / scaleNm) + logLogistic((h - half) / scaleNm) - 2 * logLogistic(h / scaleNm) + Math.LN2;
+// ln L(z) and 1 − L(z) of the logistic L(z) = 1/(1 + e^−z) from one exp, without cancellation on either side
+// (written into `out` to return both without an object per call).
+function logAndComplement(z: number, out: Float64Array, at: number): void {
+  if (z >= 0) {
+    const t = Math.exp(-z);
+    out[at] = -Math.log1p(t);
+    out[at + 1] = t / (1 + t);
+  } else {
+    const t = Math.exp(z);
+    out[at] = z - Math.log1p(t);
+    out[at + 1] = 1 / (1 + t);
+  }
 }
+
+const parts = new Float64Array(6);
 
 /**
  * Half distance h (nm) between the two logistic edges that puts half the peak exactly at ±widthNm/2. Newton's method
- * on g(h) = ln shape(w/2) − ln shape(0) + ln 2, kept inside the bracket [0, w/2] where g changes sign (w ≥ edge width).
+ * on g(h) = ln shape(w/2) − ln shape(0) + ln 2 (edges at ±h), kept inside the bracket [0, w/2] where g changes sign
+ * (w ≥ edge width). g′ is made of the same three logistics: 1 − L at each argument, over s.
  */
 function edgeHalfDistanceNm(widthNm: number, scaleNm: number): number {
   const half = widthNm / 2;
@@ -39,10 +50,13 @@ function edgeHalfDistanceNm(widthNm: number, scaleNm: number): number {
   let hi = half;
   let h = half;
   for (let k = 0; k < 60; k++) {
-    const value = halfMaximumGap(h, half, scaleNm);
+    logAndComplement((half + h) / scaleNm, parts, 0);
+    logAndComplement((h - half) / scaleNm, parts, 2);
+    logAndComplement(h / scaleNm, parts, 4);
+    const value = parts[0] + parts[2] - 2 * parts[4] + Math.LN2;
     if (value > 0) hi = h;
     else lo = h;
-    const slope = (1 - logistic((half + h) / scaleNm) + 1 - logistic((h - half) / scaleNm) - 2 * (1 - logistic(h / scaleNm))) / scaleNm;
+    const slope = (parts[1] + parts[3] - 2 * parts[5]) / scaleNm;
     let next = h - value / slope;
     if (!(next > lo && next < hi)) next = (lo + hi) / 2;
     if (Math.abs(next - h) <= 1e-13 * widthNm) return next;

@@ -80,6 +80,8 @@ export function fillPassband(
   // its own window (so neither overflows nor crawls through subnormal numbers): rising edge alone, both edges where
   // the windows overlap, falling edge alone, and the plateau between windows that do not overlap.
   const q = Math.exp(-stepNm / scaleNm);
+  // The growth factor as its own exp, not 1/q: a product per step instead of a division (each rounds to half an ulp).
+  const grow = Math.exp(stepNm / scaleNm);
   const riseEnd = Math.max(from - 1, Math.min(riseLast, to)) | 0;
   const fallStart = Math.min(to + 1, Math.max(fallFirst, from)) | 0;
   let e1 = from <= riseEnd ? Math.exp(-(startNm + from * stepNm - riseNm) / scaleNm) : 0;
@@ -91,8 +93,8 @@ export function fillPassband(
     out.fill(floor + span, i, fallStart);
     i = fallStart;
   }
-  for (; i <= riseEnd; i++, e1 *= q, e2 /= q) out[i] = floor + span / ((1 + e1) * (1 + e2));
-  for (; i <= to; i++, e2 /= q) out[i] = floor + span / (1 + e2);
+  for (; i <= riseEnd; i++, e1 *= q, e2 *= grow) out[i] = floor + span / ((1 + e1) * (1 + e2));
+  for (; i <= to; i++, e2 *= grow) out[i] = floor + span / (1 + e2);
   return out;
 }
 
