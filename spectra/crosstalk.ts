@@ -132,32 +132,55 @@ export interface CrosstalkFigures {
  * interference(t→u) = collected[primary(u)][t] / collected[primary(u)][u]. Undefined ratios are null with a warning.
  */
 export function crosstalkFigures(collected: number[][], assigned: (number | undefined)[], probeIds: string[], channelIds: string[]): CrosstalkFigures {
+  // Plain loops (no callbacks): this runs on every evaluation and 2 × probes more times in the lot-shift check.
   const warnings: string[] = [];
   const channels = collected.length;
   const probes = probeIds.length;
-  const primaryChannel = probeIds.map((id, p) => {
-    if (assigned[p] !== undefined) return assigned[p]!;
-    let best = 0;
-    for (let c = 1; c < channels; c++) if (collected[c][p] > collected[best][p]) best = c;
-    return collected[best][p] > 0 ? best : null;
-  });
-  const primarySignal = primaryChannel.map((c, p) => (c === null ? 0 : collected[c][p]));
-  primaryChannel.forEach((c, p) => {
-    if (primarySignal[p] > 0) return;
+  const primaryChannel: (number | null)[] = [];
+  const primarySignal: number[] = [];
+  for (let p = 0; p < probes; p++) {
+    let c: number | null;
+    if (assigned[p] !== undefined) c = assigned[p]!;
+    else {
+      let best = 0;
+      for (let k = 1; k < channels; k++) if (collected[k][p] > collected[best][p]) best = k;
+      c = collected[best][p] > 0 ? best : null;
+    }
+    primaryChannel.push(c);
+    primarySignal.push(c === null ? 0 : collected[c][p]);
+  }
+  for (let p = 0; p < probes; p++) {
+    if (primarySignal[p] > 0) continue;
+    const c = primaryChannel[p];
     warnings.push(c === null
       ? `probe ${probeIds[p]} gives no signal in any channel (is any line absorbed by it?): its spillover is undefined`
       : `probe ${probeIds[p]} gives no signal in its channel ${channelIds[c]}: its spillover is undefined`);
-  });
-  const spillover = collected.map((row) => row.map((v, p) => (primarySignal[p] > 0 ? v / primarySignal[p] : null)));
-  const belowResolution = spillover.map((row) => row.map((s) => s !== null && s < RESOLUTION_THRESHOLD));
-  const purity = collected.map((row, c) => {
-    const total = row.reduce((a, b) => a + b, 0);
-    if (!(total > 0)) {
-      warnings.push(`channel ${channelIds[c]} collects no probe signal: its purity is undefined`);
-      return null;
+  }
+  const spillover: (number | null)[][] = [];
+  const belowResolution: boolean[][] = [];
+  const purity: (number | null)[] = [];
+  for (let c = 0; c < channels; c++) {
+    const row = collected[c];
+    const spillRow: (number | null)[] = [];
+    const belowRow: boolean[] = [];
+    let total = 0;
+    let own = 0;
+    for (let p = 0; p < row.length; p++) {
+      const v = row[p];
+      const s = primarySignal[p] > 0 ? v / primarySignal[p] : null;
+      spillRow.push(s);
+      belowRow.push(s !== null && s < RESOLUTION_THRESHOLD);
+      total += v;
+      own += primaryChannel[p] === c ? v : 0;
     }
-    return row.reduce((a, v, p) => a + (primaryChannel[p] === c ? v : 0), 0) / total;
-  });
+    spillover.push(spillRow);
+    belowResolution.push(belowRow);
+    if (total > 0) purity.push(own / total);
+    else {
+      warnings.push(`channel ${channelIds[c]} collects no probe signal: its purity is undefined`);
+      purity.push(null);
+    }
+  }
   const worst: WorstInterference = { from: null, into: null, interference: null };
   for (let u = 0; u < probes; u++) {
     const cu = primaryChannel[u];
@@ -165,7 +188,11 @@ export function crosstalkFigures(collected: number[][], assigned: (number | unde
     for (let t = 0; t < probes; t++) {
       if (t === u) continue;
       const value = collected[cu][t] / primarySignal[u];
-      if (worst.interference === null || value > worst.interference) Object.assign(worst, { from: probeIds[t], into: probeIds[u], interference: value });
+      if (worst.interference === null || value > worst.interference) {
+        worst.from = probeIds[t];
+        worst.into = probeIds[u];
+        worst.interference = value;
+      }
     }
   }
   if (probes > 1 && worst.interference !== null && worst.interference < RESOLUTION_THRESHOLD) {
