@@ -29,6 +29,11 @@ export function unitColumns(m: number[][]): Float64Array[] {
   return columns;
 }
 
+// A module function for map (no closure per call).
+function copyRow(row: Float64Array): Float64Array {
+  return row.slice();
+}
+
 function gramOf(columns: Float64Array[]): Float64Array[] {
   const n = columns.length;
   const gram: Float64Array[] = [];
@@ -78,7 +83,7 @@ export function gramDiagnostics(m: number[][]): { conditionNumber: number; gains
   const columns = unitColumns(m);
   const n = columns.length;
   const gram = gramOf(columns);
-  const values = symmetricEigenvalues(gramOf(columns));
+  const values = symmetricEigenvalues(gram.map(copyRow));
   if (!values || !(values[n - 1] > 0) || values[0] / values[n - 1] > GRAM_MAX_CONDITION ** 2) return null;
   const conditionNumber = Math.sqrt(values[0]) / Math.sqrt(values[n - 1]);
   const cholesky = conditionNumber <= CHOLESKY_MAX_CONDITION ? choleskyGains(gram) : null;

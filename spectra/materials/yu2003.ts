@@ -49,8 +49,10 @@ export type YuMaterialId = keyof typeof YU_2003;
 
 /** D(λ) of the published polynomial, nm (Horner's rule). */
 export function yuDiameterNm(curve: YuCurve, firstExcitonNm: number): number {
+  const c = curve.sizeCoefficients;
   let d = 0;
-  for (const c of curve.sizeCoefficients) d = d * firstExcitonNm + c;
+  // Indexed, not for-of: an iterator object per call where the call is not inlined (this runs in Newton loops).
+  for (let k = 0; k < c.length; k++) d = d * firstExcitonNm + c[k];
   return d;
 }
 
@@ -89,7 +91,8 @@ function tableOf(curve: YuCurve): Float64Array {
  */
 export function yuFirstExcitonNm(curve: YuCurve, diameterNm: number): number {
   const table = tableOf(curve);
-  const [bracketLo, bracketHi] = curve.bracketNm;
+  const bracketLo = curve.bracketNm[0];
+  const bracketHi = curve.bracketNm[1];
   const last = table.length - 1;
   if (!(diameterNm > table[0])) return bracketLo;
   if (!(diameterNm < table[last])) return bracketHi;
