@@ -72,8 +72,11 @@ function halfCrossingEv(centerEv: number, sigma: number, peakEv: number, side: 1
     const slope = -2 * (e - centerEv) * inv2s2 + 2 / e;
     const step = (psi - target) / slope;
     if (!Number.isFinite(step)) break;
+    // Newton's next error is about |ψ″/2ψ′| · step²: when that is below round-off, this step is the last one (the
+    // usual test, |step| at round-off, costs one more log to learn nothing).
+    const curvature = 2 * inv2s2 + 2 / (e * e);
     e -= step;
-    if (Math.abs(step) <= 4e-16 * e) break;
+    if (Math.abs(step) <= 4e-16 * e || (curvature * step * step) / Math.abs(2 * slope) <= 2e-16 * e) break;
   }
   return e;
 }
