@@ -21,6 +21,18 @@ export function clearResolvedDotCache(): void {
 }
 
 /**
+ * The probe as resolveDot's input: the probe itself when it carries no excitationNm of its own and none is to be
+ * added (resolveDotCore reads only the dot fields and excitationNm), else a copy of its dot fields.
+ */
+function dotInput(probe: ProbeSpec, excitationNm: number | undefined): DotInput {
+  if (excitationNm === undefined && (probe as { excitationNm?: unknown }).excitationNm === undefined) return probe as DotInput;
+  const input: Record<string, unknown> = {};
+  for (let f = 0; f < DOT_FIELDS.length; f++) if (probe[DOT_FIELDS[f]] !== undefined) input[DOT_FIELDS[f]] = probe[DOT_FIELDS[f]];
+  if (excitationNm !== undefined) input.excitationNm = excitationNm;
+  return input as unknown as DotInput;
+}
+
+/**
  * resolveDot's core for probe p of a panel (cached; `excitationNm` for the per-line resolutions of carbon dots), with
  * any error's path moved under ['probes', p].
  */
@@ -28,11 +40,8 @@ export function resolveProbe(probe: ProbeSpec, p: number, grid: WavelengthGrid, 
   const key = probeKey(probe, grid, excitationNm);
   const hit = resolvedCache.get(key);
   if (hit) return hit;
-  const input: Record<string, unknown> = {};
-  for (let f = 0; f < DOT_FIELDS.length; f++) if (probe[DOT_FIELDS[f]] !== undefined) input[DOT_FIELDS[f]] = probe[DOT_FIELDS[f]];
-  if (excitationNm !== undefined) input.excitationNm = excitationNm;
   try {
-    const dot = resolveDotCore(input as unknown as DotInput, grid);
+    const dot = resolveDotCore(dotInput(probe, excitationNm), grid);
     resolvedCache.set(key, dot);
     // Oldest first out: cheaper than a strict LRU and just as good for a few hundred probes.
     if (resolvedCache.size > RESOLVED_CACHE_SIZE) resolvedCache.delete(resolvedCache.keys().next().value!);
