@@ -6,8 +6,9 @@
  * half numpy's time.
  * Headline row, like for like: the resolved-dot cache is emptied before every run, so the 8 emission spectra (and
  * absorption, sizing, line width) and the 8 filter transmissions are computed from scratch each time, as numpy does.
- * What stays warm is per material, not per probe (the smooth size fit and the inverse sizing table, built once per
- * process, like the coefficients numpy's script holds as literals). Second row, not like for like: dots cached (the
+ * What stays warm is per material or per grid, not per probe (the smooth size fit and the inverse sizing table, the
+ * hc/λ tables, the exp table, built once per process like the constants numpy's script holds), plus the memory of the
+ * transmission buffers, rewritten in full every run. Second row, not like for like: dots cached (the
  * usual case when a panel is edited or a design search re-evaluates the same probes). Then the lot-shift check,
  * 16 × 16, a 32-bin spectral detector, one resolveDot, and two parts of the from-scratch row timed alone (the 8 dots,
  * the 8 filters). The machine is shared, so numpy and the two 8 × 8 rows run in alternating rounds and the best round
