@@ -19,6 +19,7 @@
  */
 import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { Bench } from 'tinybench';
 import type { BenchRow } from '../run';
 import {
@@ -26,7 +27,9 @@ import {
   type ProbeSpec,
 } from '../../spectra/index';
 
-const NUMPY_SCRIPT = process.env.QDPANEL_NUMPY_SCRIPT ?? '/work/shared/bench/numpy_evaluate.py';
+// The reference script lives in the shared folder beside the repository (../shared from the repository root).
+const SHARED_NUMPY_SCRIPT = fileURLToPath(new URL('../../../shared/bench/numpy_evaluate.py', import.meta.url));
+const NUMPY_SCRIPT = process.env.QDPANEL_NUMPY_SCRIPT ?? SHARED_NUMPY_SCRIPT;
 
 const materialFor = (peakNm: number): ProbeSpec['material'] => (peakNm <= 650 ? 'cdse' : peakNm <= 730 ? 'cdte' : 'gaas');
 
