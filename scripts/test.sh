@@ -5,5 +5,6 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 export CLOUDFLARE_CF_FETCH_ENABLED=false WRANGLER_SEND_METRICS=false
 bash scripts/ensure-chromium.sh
+npx tsc --noEmit -p tsconfig.json   # the whole tree type-checks (strict)
 npx vite build --logLevel warn
 npx vitest run "$@"
