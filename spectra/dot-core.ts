@@ -30,8 +30,8 @@ export interface DotInput {
   excitationNm?: number;
 }
 
-/** A resolved probe: ResolvedDot's scalar fields, its emission window (unit area on `grid`) and absorption model. */
-export interface DotCore {
+/** The scalar fields of a resolved probe, shared by the public ResolvedDot and the internal DotCore. */
+export interface DotFields {
   material: MaterialId;
   diameterNm: number | null;
   firstExcitonNm: number | null;
@@ -40,9 +40,14 @@ export interface DotCore {
   quantumYield: number;
   extinctionFirstExciton: number | null;
   extinctionAtExcitation: number | null;
+  /** Which sizing model answered: the law's name, 'measured' for custom probes, 'measured emission; size by …'. */
   model: string;
   measured: { emission: boolean; extinction: boolean };
   warnings: string[];
+}
+
+/** A resolved probe: ResolvedDot's scalar fields, its emission window (unit area on `grid`) and absorption model. */
+export interface DotCore extends DotFields {
   grid: WavelengthGrid;
   emissionWindow: EmissionWindow;
   /** The grid-long emission: the measured array, or made from the window on first need (see coreEmissionValues). */

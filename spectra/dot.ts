@@ -4,25 +4,12 @@
  */
 import { modelExtinctionAtNm, sampleExtinction, type AbsorptionModel } from './absorption';
 import { DEFAULT_GRID, spectrumAtNm, type SampledSpectrum, type WavelengthGrid } from './grid';
-import { coreEmissionValues, resolveDotCore, type DotCore, type DotInput } from './dot-core';
-import type { MaterialId } from './panel';
+import { coreEmissionValues, resolveDotCore, type DotCore, type DotFields, type DotInput } from './dot-core';
 
 export type { DotInput } from './dot-core';
 
 /** A probe resolved to spectra. `emission` has unit area on its grid; `absorption` is ε in M⁻¹ cm⁻¹ on the same grid. */
-export interface ResolvedDot {
-  material: MaterialId;
-  diameterNm: number | null;
-  firstExcitonNm: number | null;
-  emissionPeakNm: number;
-  fwhmNm: number;
-  quantumYield: number;
-  extinctionFirstExciton: number | null;
-  extinctionAtExcitation: number | null;
-  /** Which sizing model answered: the law's name, 'measured' for custom probes, 'measured emission; size by …'. */
-  model: string;
-  measured: { emission: boolean; extinction: boolean };
-  warnings: string[];
+export interface ResolvedDot extends DotFields {
   emission: SampledSpectrum;
   absorption: SampledSpectrum;
 }

@@ -1,15 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { errorOf } from './helpers/errors';
 import { DEFAULT_GRID, SpectraError, channelTransmission, parseSpectrumCsv } from '../../spectra/index';
 
-function errorOf(fn: () => unknown): SpectraError {
-  try {
-    fn();
-  } catch (err) {
-    if (err instanceof SpectraError) return err;
-    throw err;
-  }
-  throw new Error('expected a SpectraError');
-}
 
 // A made-up measured bandpass around 600 nm, in 0–1 and in percent.
 const rows = [[550, 0.0001], [580, 0.002], [590, 0.45], [600, 0.92], [610, 0.5], [620, 0.003], [650, 0.0001]];

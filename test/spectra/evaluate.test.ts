@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { errorOf } from './helpers/errors';
 import erf from '@stdlib/math-base-special-erf';
 import {
   DEFAULT_GRID,
@@ -35,15 +36,6 @@ function expectJsonSafe(value: unknown, path = 'evaluation'): void {
   else if (value && typeof value === 'object') for (const [k, v] of Object.entries(value)) expectJsonSafe(v, `${path}.${k}`);
 }
 
-function errorOf(fn: () => unknown): SpectraError {
-  try {
-    fn();
-  } catch (err) {
-    if (err instanceof SpectraError) return err;
-    throw err;
-  }
-  throw new Error('expected a SpectraError');
-}
 
 const fourProbePanel = (): PanelSpec => ({
   version: 1,

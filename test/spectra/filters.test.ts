@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { errorOf } from './helpers/errors';
 import erf from '@stdlib/math-base-special-erf';
 import { DEFAULT_GRID, FILTER_DEFAULTS, SpectraError, channelSupport, channelTransmission, filterTransmission, makeGrid } from '../../spectra/index';
 import type { ChannelSpec, ConstantEnds, FilterSpec, WavelengthGrid } from '../../spectra/index';
@@ -16,15 +17,6 @@ function crossingNm(t: Float64Array, grid: WavelengthGrid, level: number, rising
   return NaN;
 }
 
-function catchError(fn: () => unknown): SpectraError {
-  try {
-    fn();
-  } catch (err) {
-    if (err instanceof SpectraError) return err;
-    throw err;
-  }
-  throw new Error('expected a SpectraError');
-}
 
 describe('filterTransmission', () => {
   // Closed form: ∫ N(μ, σ²) over [a, b] = ½[erf((b−μ)/σ√2) − erf((a−μ)/σ√2)]; erf from @stdlib/math-base-special-erf.
@@ -98,16 +90,16 @@ describe('filterTransmission', () => {
 
   it('filterTransmission rejects a width ≤ 0, an out-of-order table and an unknown type with errors naming the field', () => {
     const path = ['channels', 2, 'filters', 0];
-    expect(catchError(() => filterTransmission({ type: 'bandpass', centerNm: 600, widthNm: 0 }, DEFAULT_GRID, path)).path).toEqual([...path, 'widthNm']);
-    expect(catchError(() => filterTransmission({ type: 'bandpass', centerNm: 600, widthNm: -3 }, DEFAULT_GRID, path)).message).toMatch(/widthNm must be above 0/);
-    expect(catchError(() => filterTransmission({ type: 'longpass', edgeNm: 600, edgeWidthNm: -1 }, DEFAULT_GRID, path)).path).toEqual([...path, 'edgeWidthNm']);
-    expect(catchError(() => filterTransmission({ type: 'longpass', edgeNm: 600, peakTransmission: 1.2 }, DEFAULT_GRID, path)).path).toEqual([...path, 'peakTransmission']);
-    const table = catchError(() => filterTransmission({ type: 'table', points: [[500, 0.1], [490, 0.2]] }, DEFAULT_GRID, path));
+    expect(errorOf(() => filterTransmission({ type: 'bandpass', centerNm: 600, widthNm: 0 }, DEFAULT_GRID, path)).path).toEqual([...path, 'widthNm']);
+    expect(errorOf(() => filterTransmission({ type: 'bandpass', centerNm: 600, widthNm: -3 }, DEFAULT_GRID, path)).message).toMatch(/widthNm must be above 0/);
+    expect(errorOf(() => filterTransmission({ type: 'longpass', edgeNm: 600, edgeWidthNm: -1 }, DEFAULT_GRID, path)).path).toEqual([...path, 'edgeWidthNm']);
+    expect(errorOf(() => filterTransmission({ type: 'longpass', edgeNm: 600, peakTransmission: 1.2 }, DEFAULT_GRID, path)).path).toEqual([...path, 'peakTransmission']);
+    const table = errorOf(() => filterTransmission({ type: 'table', points: [[500, 0.1], [490, 0.2]] }, DEFAULT_GRID, path));
     expect(table.code).toBe('invalid_table');
     expect(table.path).toEqual([...path, 'points', 1, 0]);
-    const bad = catchError(() => filterTransmission({ type: 'notch' } as unknown as FilterSpec, DEFAULT_GRID, path));
+    const bad = errorOf(() => filterTransmission({ type: 'notch' } as unknown as FilterSpec, DEFAULT_GRID, path));
     expect(bad.path).toEqual([...path, 'type']);
-    expect(catchError(() => filterTransmission({ type: 'dichroic', edgeNm: 560, passes: 'sideways' } as unknown as FilterSpec, DEFAULT_GRID)).path).toEqual(['passes']);
+    expect(errorOf(() => filterTransmission({ type: 'dichroic', edgeNm: 560, passes: 'sideways' } as unknown as FilterSpec, DEFAULT_GRID)).path).toEqual(['passes']);
   });
 });
 
@@ -144,7 +136,7 @@ describe('channelTransmission', () => {
   });
 
   it('channelTransmission names the nested field of a bad filter: ["channels", 2, "filters", 0, "widthNm"]', () => {
-    const err = catchError(() =>
+    const err = errorOf(() =>
       channelTransmission({ id: 'c', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 0 }] }, DEFAULT_GRID, ['channels', 2]),
     );
     expect(err.code).toBe('invalid_input');
