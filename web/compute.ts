@@ -2,9 +2,9 @@
  * The page's local computation: evaluatePanel from the spectral library, turned into what the chart, the crosstalk
  * tables and the probe read-outs show. Runs on every edit; a bad input gives the library's error with its field path.
  */
-import { buildPanelModel, DEFAULT_GRID, evaluatePanel, listDetectors, listMaterials, SpectraError, type PanelEvaluation, type PanelSpec } from '../spectra/index';
+import { buildPanelModel, DEFAULT_GRID, evaluatePanel, listDetectors, listMaterials, predictUnmixingNoise, SpectraError, type PanelEvaluation, type PanelSpec } from '../spectra/index';
 import type { ChartCurve, ChartHandle, ChartPassband, GridCurve } from './chart-types';
-import type { CrosstalkView } from './crosstalk-view';
+import type { CrosstalkView, ShotNoiseView } from './crosstalk-view';
 import type { ResolvedForSheet } from './csv-export';
 import type { FieldError } from './error-map';
 import type { ProbePrediction } from './probe-types';
@@ -47,6 +47,45 @@ function interferenceOf(ev: PanelEvaluation): (number | null)[][] {
     const v = ev.collected[c][t] / own;
     return own > 0 && Number.isFinite(v) ? v : null;
   }));
+}
+
+/**
+ * Nominal photon budget of the shot-noise reading: detected photons of the brightest target in its own channel
+ * (our convention, the same 1,000 as the design response's default; real counts depend on the instrument).
+ */
+export const NOMINAL_PHOTONS = 1000;
+
+/**
+ * Shot-noise picture at the nominal budget: collected (and background) scaled so the brightest target's own signal
+ * is NOMINAL_PHOTONS, unmixed by least squares (predictUnmixingNoise, ideal counting detector, no read noise).
+ * "Alone" is the same target with no other probe, read in its own channel: √(own + background)/own.
+ * Null when some probe has no primary channel or no signal; a null entry when its estimate is undefined.
+ */
+function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | null {
+  const primary = ev.primaryChannel;
+  if (!primary.length || primary.some((c) => c === null)) return null;
+  const prim = primary as number[];
+  const abundance = panel.probes.map((p) => p.abundance ?? 1);
+  const own = prim.map((c, p) => abundance[p] * ev.collected[c][p]);
+  const brightest = Math.max(...own);
+  if (!(brightest > 0) || !Number.isFinite(brightest)) return null;
+  const k = NOMINAL_PHOTONS / brightest;
+  try {
+    const noise = predictUnmixingNoise({
+      mixingPhotons: ev.collected.map((row) => row.map((x) => x * k)), abundance, primaryChannel: prim,
+      backgroundPhotons: ev.backgroundCollected?.map((b) => b * k),
+    });
+    const relativeSd = noise.sd.map((s, p) => (s !== null && abundance[p] > 0 ? s / abundance[p] : null));
+    const factor = relativeSd.map((r, p) => {
+      const n = own[p] * k;
+      const alone = Math.sqrt(n + (ev.backgroundCollected?.[prim[p]] ?? 0) * k) / n;
+      return r !== null && n > 0 && Number.isFinite(r / alone) ? r / alone : null;
+    });
+    return { photons: NOMINAL_PHOTONS, relativeSd, factor, withBackground: ev.backgroundCollected !== undefined };
+  } catch (e) {
+    if (e instanceof SpectraError) return null;
+    throw e;
+  }
 }
 
 const maxOf = (values: ArrayLike<number>) => {
@@ -97,6 +136,7 @@ export function computePanel(panel: PanelSpec, options: { byBrightness: boolean 
     primaryChannel: ev.primaryChannel,
     noiseAmplification: ev.noiseAmplification,
     conditionNumber: ev.conditionNumber,
+    shotNoise: shotNoiseOf(ev, panel),
     signalToBackground: ev.signalToBackground,
     lotShift: lot && wi ? { shiftNm: lot.shiftNm, baseline: lot.baseline.worstInterference, worst: wi.interference, shiftedProbe: wi.shiftedProbe, signedShiftNm: wi.shiftNm, from: wi.from, into: wi.into } : null,
     worst: ev.worst,

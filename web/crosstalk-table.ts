@@ -14,6 +14,17 @@ const shadeRules = Array.from({ length: SHADES }, (_, k) => {
 }).join('\n');
 const cellClass = (v: number | null, below = false) => `s${below ? 0 : shadeOf(v)}`;
 
+const sig2 = (v: number) => Number(v.toPrecision(2)).toString();
+
+/** One target's shot-noise reading, or '' when there is none. */
+function shotLine(v: CrosstalkView, j: number): string {
+  const s = v.shotNoise;
+  const sd = s?.relativeSd[j];
+  if (!s || sd === null || sd === undefined) return '';
+  const f = s.factor[j];
+  return ` With shot noise (${s.photons.toLocaleString('en-US')} photons for the brightest target): SD ${sig2(sd)} of its signal${f === null || f === undefined ? '' : `, ${times(f)} the SD it would have alone`}.`;
+}
+
 const times = (v: number | null) => (v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`);
 
 @customElement('qdp-crosstalk-table')
@@ -58,7 +69,10 @@ export class CrosstalkTable extends LitElement {
       <h3>Unmixing noise</h3>
       <ul>${v.probes.map((p, j) => html`<li>${p.label}: ${v.noiseAmplification[j] === null
         ? 'cannot be unmixed from the others with these channels (see warnings).'
-        : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`}</li>`)}</ul>
+        : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`}<span class="shot">${shotLine(v, j)}</span></li>`)}</ul>
+      ${v.shotNoise ? html`<p class="shot-note">The first figure assumes equal noise in every channel whatever its light; the second counts photons:
+        each channel's shot noise grows with all the light it collects${v.shotNoise.withBackground ? ' (background included)' : ''}, so a dim target beside a bright neighbour suffers most.
+        "Alone" is the same target as the only probe, read in its own channel. The photon budget is nominal: the SDs scale as 1/√photons, the factors do not.</p>` : ''}
       <p>Condition number ${v.conditionNumber === null ? '— (the channels cannot separate every probe)' : times(v.conditionNumber).replace('×', '')}: the worst-case bound;
         a relative error in the measurements can grow by up to this factor in the unmixed amounts.</p>
       ${v.lotShift ? html`<p class="lot">Lot-to-lot shift (±${v.lotShift.shiftNm} nm): the worst crosstalk is ${formatFraction(v.lotShift.baseline)} now and can reach

@@ -14,12 +14,26 @@ export interface CrosstalkView {
   primaryChannel: (number | null)[];
   noiseAmplification: (number | null)[];
   conditionNumber: number | null;
+  /** Shot-noise reading at a nominal photon budget; null or absent when it cannot be computed. */
+  shotNoise?: ShotNoiseView | null;
   /** Per channel, signal over sample background; absent when the background is off. */
   signalToBackground?: (number | null)[];
   /** Worst interference now and after the most harmful ±shiftNm move of one probe's emission (lot to lot), or null. */
   lotShift: { shiftNm: number; baseline: number | null; worst: number | null; shiftedProbe: string; signedShiftNm: number; from: string; into: string } | null;
   worst: { from: string | null; into: string | null; interference: number | null } | null;
   warnings: string[];
+}
+
+/** Each target's predicted SD under Poisson shot noise after least-squares unmixing, at a nominal photon budget. */
+export interface ShotNoiseView {
+  /** Detected photons of the brightest target in its own channel (nominal, not a measurement). */
+  photons: number;
+  /** SD of the unmixed amount over the target's amount (null: undefined). */
+  relativeSd: (number | null)[];
+  /** relativeSd over the SD the target would have alone: √(own + background photons)/own photons in its channel. */
+  factor: (number | null)[];
+  /** True when the panel's background photons were included. */
+  withBackground: boolean;
 }
 
 /** Smallest fraction the tables print as a number (0.1 %): below it the model's own error dominates (common practice). */

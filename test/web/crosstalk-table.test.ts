@@ -1,6 +1,8 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import '../../web/crosstalk-table';
 import type { CrosstalkTable } from '../../web/crosstalk-table';
+import { predictUnmixingNoise, type PanelSpec } from '../../spectra/index';
+import { computePanel } from '../../web/compute';
 import { cellLightness, formatFraction, shadeOf, type CrosstalkView } from '../../web/crosstalk-view';
 
 const view: CrosstalkView = {
@@ -79,5 +81,37 @@ describe('<qdp-crosstalk-table>', () => {
     const table = el.shadowRoot!.querySelector('table[aria-label="Spillover by channel"]')!;
     expect(table.classList.contains('many')).toBe(true);
     expect(table.querySelectorAll('tbody tr').length).toBe(16);
+  });
+
+  it('computePanel shows a larger shot-noise factor for a dim target whose channel a bright probe bleeds into, as predictUnmixingNoise gives', async () => {
+    // Invented two-dot panel: a bright orange dot whose red tail lands in a dim red dot's channel.
+    const panel: PanelSpec = {
+      version: 1, excitation: [{ wavelengthNm: 405, powerRel: 1 }],
+      probes: [
+        { id: 'b', label: 'Bright dot', material: 'cdse', emissionPeakNm: 605, quantumYield: 0.5, abundance: 1 },
+        { id: 'd', label: 'Dim dot', material: 'cdse', emissionPeakNm: 635, quantumYield: 0.5, abundance: 0.05 },
+      ],
+      channels: [
+        { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] },
+        { id: 'c2', label: 'Red', filters: [{ type: 'bandpass', centerNm: 640, widthNm: 20 }] },
+      ],
+    };
+    const result = computePanel(panel, { byBrightness: false });
+    if (!result.ok) throw new Error(result.error.message);
+    const { evaluation: ev, crosstalk } = result.value;
+    // Independent reading: scale collected so the brightest own signal is 1,000 photons, then the library's Poisson model.
+    const a = [1, 0.05];
+    const prim = ev.primaryChannel as number[];
+    const own = prim.map((c, p) => a[p] * ev.collected[c][p]);
+    const k = 1000 / Math.max(...own);
+    const direct = predictUnmixingNoise({ mixingPhotons: ev.collected.map((r) => r.map((x) => x * k)), abundance: a, primaryChannel: prim });
+    const factor = direct.sd.map((s, p) => (s! / a[p]) / (Math.sqrt(own[p] * k) / (own[p] * k)));
+    expect(crosstalk.shotNoise!.factor[1]!).toBeCloseTo(factor[1], 9);
+    expect(crosstalk.shotNoise!.relativeSd[0]!).toBeCloseTo(direct.sd[0]!, 9);
+    expect(crosstalk.shotNoise!.factor[1]!).toBeGreaterThan(crosstalk.shotNoise!.factor[0]! * 1.2);
+    const el = await mount(crosstalk);
+    const lines = [...el.shadowRoot!.querySelectorAll('li span.shot')].map((n) => n.textContent!);
+    expect(lines[1]).toContain(`With shot noise (1,000 photons for the brightest target): SD ${Number((direct.sd[1]! / a[1]).toPrecision(2))} of its signal, ${factor[1].toFixed(1)}× the SD it would have alone`);
+    expect(el.shadowRoot!.querySelector('p.shot-note')!.textContent).toContain('nominal');
   });
 });
