@@ -62,14 +62,12 @@ export const NOMINAL_PHOTONS = 1000;
  * Null when some probe has no primary channel or no signal; a null entry when its estimate is undefined.
  */
 function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | null {
-  const primary = ev.primaryChannel;
-  if (!primary.length || primary.some((c) => c === null)) return null;
-  const prim = primary as number[];
+  const prim = ev.primaryChannel as number[];
+  if (!prim.length || prim.some((c) => c === null)) return null;
   const abundance = panel.probes.map((p) => p.abundance ?? 1);
   const own = prim.map((c, p) => abundance[p] * ev.collected[c][p]);
-  const brightest = Math.max(...own);
-  if (!(brightest > 0) || !Number.isFinite(brightest)) return null;
-  const k = NOMINAL_PHOTONS / brightest;
+  const k = NOMINAL_PHOTONS / Math.max(...own); // photons per collected unit; not finite when nothing is collected
+  if (!(k > 0 && Number.isFinite(k))) return null;
   try {
     const noise = predictUnmixingNoise({
       mixingPhotons: ev.collected.map((row) => row.map((x) => x * k)), abundance, primaryChannel: prim,
@@ -83,7 +81,7 @@ function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | nul
     });
     return { photons: NOMINAL_PHOTONS, relativeSd, factor, withBackground: ev.backgroundCollected !== undefined };
   } catch (e) {
-    if (e instanceof SpectraError) return null;
+    if (e instanceof SpectraError) return null; // e.g. a probe with no light in its primary channel
     throw e;
   }
 }
