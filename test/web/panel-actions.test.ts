@@ -1,0 +1,165 @@
+// Component tests in headless Chromium for the share and export buttons. Downloads are caught as the page makes them
+// (the temporary <a download> the element clicks) and read back from their blob URL; the test page has no qdpanel API
+// behind it, so share and the server side of the ordering sheet take their real "server unreachable" paths.
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
+import type { PanelSpec } from '../../spectra/index';
+import '../../web/panel-actions';
+import { demoPanel } from '../../web/demo-panel';
+
+type Download = { filename: string; blob: Promise<Blob> };
+let downloads: Download[] = [];
+
+/** Catches each download link the element clicks, keeps its file, and stops the browser from saving it. */
+function catchDownload(e: MouseEvent): void {
+  const a = e.target;
+  if (!(a instanceof HTMLAnchorElement) || !a.download) return;
+  e.preventDefault();
+  downloads.push({ filename: a.download, blob: fetch(a.href).then((r) => r.blob()) });
+}
+
+beforeEach(() => {
+  downloads = [];
+  document.addEventListener('click', catchDownload, true);
+});
+afterEach(() => {
+  document.removeEventListener('click', catchDownload, true);
+  document.body.replaceChildren();
+});
+
+async function mount(panel: PanelSpec | undefined, setup: (el: HTMLElementTagNameMap['qdp-panel-actions']) => void = () => {}) {
+  const el = document.createElement('qdp-panel-actions');
+  el.panel = panel;
+  setup(el);
+  document.body.appendChild(el);
+  await el.updateComplete;
+  return el;
+}
+
+const button = (el: HTMLElement, start: string) => [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.startsWith(start))!;
+const panelButtons = (el: HTMLElement) => ['Share', 'Ordering sheet', 'Panel (JSON)'].map((s) => button(el, s));
+const liveMessage = (el: HTMLElement) => el.shadowRoot!.querySelector('p[aria-live="polite"]')!.textContent!.trim();
+
+/** An inline chart stand-in: 300 × 120 px with one focusable curve, as the spectrum chart draws. */
+function smallChart(): SVGSVGElement {
+  const ns = 'http://www.w3.org/2000/svg';
+  const svg = document.createElementNS(ns, 'svg');
+  svg.setAttribute('width', '300');
+  svg.setAttribute('height', '120');
+  svg.setAttribute('style', 'outline: 1px solid red');
+  const path = document.createElementNS(ns, 'path');
+  path.setAttribute('d', 'M0 100 L150 10 L300 100');
+  path.setAttribute('stroke', '#c60');
+  path.setAttribute('tabindex', '0');
+  svg.appendChild(path);
+  document.body.appendChild(svg);
+  return svg;
+}
+
+describe('<qdp-panel-actions>', () => {
+  it('<qdp-panel-actions> saves the panel as JSON under a file name made from its title, readable back as the same panel', async () => {
+    const panel = demoPanel();
+    const el = await mount(panel);
+    button(el, 'Panel (JSON)').click();
+    expect(downloads.map((d) => d.filename)).toEqual(['demo-six-targets-on-a-tissue-section-one-405-nm-line.json']);
+    const blob = await downloads[0].blob;
+    expect(blob.type).toBe('application/json');
+    expect(JSON.parse(await blob.text())).toEqual(panel);
+  });
+
+  it('<qdp-panel-actions> names the file "panel" when the title is missing or has no letters or digits', async () => {
+    const { title: _t, ...untitled } = demoPanel();
+    const el = await mount(untitled);
+    button(el, 'Panel (JSON)').click();
+    el.panel = { ...untitled, title: '— ✶ —' };
+    await el.updateComplete;
+    button(el, 'Panel (JSON)').click();
+    expect(downloads.map((d) => d.filename)).toEqual(['panel.json', 'panel.json']);
+  });
+
+  it('<qdp-panel-actions> with a blocked reason disables share, the sheet and the JSON, says why, and saves nothing', async () => {
+    const el = await mount(demoPanel(), (a) => (a.blocked = 'a probe is made of an excluded material.'));
+    expect(panelButtons(el).map((b) => b.disabled)).toEqual([true, true, true]);
+    expect(el.shadowRoot!.querySelector('p[role="status"]')!.textContent).toBe('Share and export are off: a probe is made of an excluded material.');
+    for (const b of panelButtons(el)) b.click();
+    await new Promise((r) => setTimeout(r, 50));
+    expect(downloads).toEqual([]);
+    expect(liveMessage(el)).toBe('');
+  });
+
+  it('<qdp-panel-actions> turns share and export back on when the blocked reason is cleared', async () => {
+    const el = await mount(demoPanel(), (a) => (a.blocked = 'fix the marked input first.'));
+    el.blocked = '';
+    await el.updateComplete;
+    expect(panelButtons(el).map((b) => b.disabled)).toEqual([false, false, false]);
+    expect(el.shadowRoot!.textContent).not.toContain('Share and export are off');
+  });
+
+  it('<qdp-panel-actions> gives every button a visible name and keeps a polite live region for its messages', async () => {
+    const el = await mount(demoPanel());
+    const names = [...el.shadowRoot!.querySelectorAll('button')].map((b) => b.textContent!.trim());
+    expect(names).toEqual(['Share: store and copy link', 'Ordering sheet (CSV)', 'Panel (JSON)', 'Chart (SVG)', 'Chart (PNG)']);
+    for (const b of el.shadowRoot!.querySelectorAll('button')) expect(b.type).toBe('button');
+    expect(el.shadowRoot!.querySelector('p[role="status"][aria-live="polite"]')).not.toBeNull();
+  });
+
+  it('<qdp-panel-actions> share with no API reachable disables the buttons while it tries, then says sharing failed and shows no link', async () => {
+    const el = await mount(demoPanel());
+    button(el, 'Share').click();
+    await el.updateComplete;
+    expect(panelButtons(el).map((b) => b.disabled)).toEqual([true, true, true]);
+    await vi.waitFor(() => expect(liveMessage(el)).toMatch(/^Sharing failed: \S/));
+    await el.updateComplete;
+    expect(panelButtons(el).map((b) => b.disabled)).toEqual([false, false, false]);
+    expect(el.shadowRoot!.querySelector('input')).toBeNull();
+  });
+
+  it('<qdp-panel-actions> ordering sheet with no API reachable is saved from the page\'s own values and says so', async () => {
+    const panel = demoPanel();
+    const localResolved = panel.probes.map((_, i) => ({ diameterNm: 3.25 + i, emissionPeakNm: 500 + 11 * i, fwhmNm: 30, firstExcitonNm: 490 + 11 * i }));
+    const el = await mount(panel, (a) => (a.localResolved = localResolved));
+    button(el, 'Ordering sheet').click();
+    await vi.waitFor(() => expect(downloads).toHaveLength(1));
+    expect(downloads[0].filename).toBe('demo-six-targets-on-a-tissue-section-one-405-nm-line-order.csv');
+    expect(liveMessage(el)).toMatch(/^Ordering sheet saved with values computed in this page \(server: .+\)\.$/);
+    const rows = (await (await downloads[0].blob).text()).split('\r\n');
+    const orange = rows.find((r) => r.startsWith('p4,'))!;
+    expect(orange.split(',')).toEqual(expect.arrayContaining(['Orange dot', 'cdse', String(localResolved[3].diameterNm), String(localResolved[3].emissionPeakNm)]));
+  });
+
+  it('<qdp-panel-actions> saves the chart as a standalone SVG document without its page style or tab stops', async () => {
+    const el = await mount(demoPanel(), (a) => (a.chartSvg = smallChart));
+    button(el, 'Chart (SVG)').click();
+    expect(downloads.map((d) => d.filename)).toEqual(['demo-six-targets-on-a-tissue-section-one-405-nm-line-spectra.svg']);
+    const text = await (await downloads[0].blob).text();
+    expect(text.startsWith('<?xml')).toBe(true);
+    const doc = new DOMParser().parseFromString(text, 'image/svg+xml');
+    expect(doc.querySelector('parsererror')).toBeNull();
+    expect(doc.documentElement.namespaceURI).toBe('http://www.w3.org/2000/svg');
+    expect(doc.querySelector('path')!.getAttribute('d')).toBe('M0 100 L150 10 L300 100');
+    expect(doc.querySelectorAll('[tabindex]')).toHaveLength(0);
+    expect(doc.documentElement.hasAttribute('style')).toBe(false);
+  });
+
+  it('<qdp-panel-actions> saves the chart as a PNG at twice its on-screen size', async () => {
+    const el = await mount(demoPanel(), (a) => (a.chartSvg = smallChart));
+    button(el, 'Chart (PNG)').click();
+    await vi.waitFor(() => expect(downloads).toHaveLength(1));
+    expect(downloads[0].filename).toBe('demo-six-targets-on-a-tissue-section-one-405-nm-line-spectra.png');
+    const blob = await downloads[0].blob;
+    expect(blob.type).toBe('image/png');
+    const image = await createImageBitmap(blob);
+    expect([image.width, image.height]).toEqual([600, 240]);
+  });
+
+  it('<qdp-panel-actions> chart export without a chart, and every export without a panel, saves nothing', async () => {
+    const el = await mount(undefined, (a) => (a.chartSvg = smallChart));
+    for (const b of el.shadowRoot!.querySelectorAll('button')) b.click();
+    el.panel = demoPanel();
+    el.chartSvg = () => null;
+    await el.updateComplete;
+    button(el, 'Chart (SVG)').click();
+    button(el, 'Chart (PNG)').click();
+    await new Promise((r) => setTimeout(r, 100));
+    expect(downloads).toEqual([]);
+  });
+});
