@@ -35,7 +35,10 @@ export class ChannelList extends LitElement {
     const panel = this.panel;
     if (!panel) return html``;
     const lines = panel.excitation.map((e) => e.wavelengthNm);
-    const room = this.maxChannels - panel.channels.length;
+    const room = Math.max(0, this.maxChannels - panel.channels.length);
+    const { startNm, bins, binWidthNm } = this.run;
+    // The run must fit the API's wavelength range (200–2000 nm) as well as the channel limit.
+    const runFits = Number.isInteger(bins) && bins >= 1 && bins <= room && binWidthNm > 0 && startNm >= 200 && startNm + bins * binWidthNm <= 2000;
     const set = (k: keyof typeof this.run) => (e: CustomEvent<{ value?: number }>) => {
       if (e.detail.value !== undefined) this.run = { ...this.run, [k]: e.detail.value };
     };
@@ -45,7 +48,7 @@ export class ChannelList extends LitElement {
         <qdp-number-field label="From" unit="nm" .value=${this.run.startNm} @value-change=${set('startNm')}></qdp-number-field>
         <qdp-number-field label="Bins" .value=${this.run.bins} @value-change=${set('bins')}></qdp-number-field>
         <qdp-number-field label="Bin width" unit="nm" .value=${this.run.binWidthNm} @value-change=${set('binWidthNm')}></qdp-number-field>
-        <button type="button" ?disabled=${this.run.bins < 1 || this.run.bins > room || !Number.isInteger(this.run.bins) || this.run.binWidthNm <= 0}
+        <button type="button" ?disabled=${!runFits}
           @click=${() => this.fire('spectral-run', { ...this.run })}>Add ${this.run.bins} × ${this.run.binWidthNm} nm bins</button>
         <span class="note">${room} more channel${room === 1 ? '' : 's'} allowed (at most ${this.maxChannels}).</span>
       </fieldset>`;

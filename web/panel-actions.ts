@@ -84,7 +84,7 @@ export class PanelActions extends LitElement {
         <button type="button" @click=${() => this.exportImage('svg')}>Chart (SVG)</button>
         <button type="button" @click=${() => this.exportImage('png')}>Chart (PNG)</button>
       </div>
-      ${this.blocked ? html`<p class="msg" role="status">Share and export are off: ${this.blocked}</p>` : ''}
+      ${this.blocked ? html`<p class="msg" role="status">Sharing and the ordering sheet and panel file are off (the chart can still be saved): ${this.blocked}</p>` : ''}
       ${this.link ? html`<label class="row">Share link <input type="text" readonly .value=${this.link} @focus=${(e: Event) => (e.target as HTMLInputElement).select()} /></label>` : ''}
       <p class="msg" role="status" aria-live="polite">${this.message}</p>`;
   }

@@ -21,11 +21,13 @@ export class ProbeCard extends LitElement {
   /** Error from the computation, keyed by the probe's field name ('' for the probe as a whole). */
   @property({ attribute: false }) errors: Record<string, string> = {};
   /** Why this probe breaks the panel's material exclusions, if it does. */
-  @property() blocked = '';
+  /** Why this probe is excluded (empty when it is not); the border follows it through the reflected `excluded`. */
+  @property({ attribute: false }) blocked = '';
+  @property({ type: Boolean, reflect: true }) excluded = false;
 
   static override styles = css`
     :host { display: block; border: 1px solid #ccd; border-radius: 6px; padding: 0.5rem 0.7rem; background: #fff; }
-    :host([blocked]) { border: 2px solid #8b1a1a; }
+    :host([excluded]) { border: 2px solid #8b1a1a; }
     .row { display: flex; flex-wrap: wrap; gap: 0.5rem 0.8rem; align-items: flex-end; margin: 0.3rem 0; }
     label.text { display: flex; flex-direction: column; font-size: 0.85rem; }
     input[type='text'], select { font: inherit; padding: 0.2rem 0.3rem; border: 1px solid #889; border-radius: 3px; max-width: 100%; }

@@ -32,7 +32,7 @@ export class ProbeList extends LitElement {
     if (!panel) return html``;
     const full = panel.probes.length >= this.maxProbes;
     return html`<div class="cards">${panel.probes.map((p, i) => html`<qdp-probe-card .probe=${p} .index=${i} .materials=${this.materials} .channels=${panel.channels}
-        .prediction=${this.predictions[i]} .errors=${this.errors[i] ?? {}} .blocked=${this.blocked.get(p.id) ?? ''} ?blocked=${this.blocked.has(p.id)}></qdp-probe-card>`)}</div>
+        .prediction=${this.predictions[i]} .errors=${this.errors[i] ?? {}} .blocked=${this.blocked.get(p.id) ?? ''} ?excluded=${this.blocked.has(p.id)}></qdp-probe-card>`)}</div>
       <button type="button" ?disabled=${full} @click=${() => this.dispatchEvent(new CustomEvent('probe-add', { bubbles: true, composed: true }))}>Add probe</button>
       ${full ? html`<span>A panel holds at most ${this.maxProbes} probes.</span>` : ''}`;
   }

@@ -95,6 +95,18 @@ describe('<qdp-channel-list>', () => {
     expect(runs).toEqual([{ startNm: 500, bins: 8, binWidthNm: 12.5 }]);
   });
 
+  it('<qdp-channel-list> turns the run off when it would start below 200 nm or end beyond 2000 nm (the API\'s range)', async () => {
+    const el = await mount(panelWithChannels(2));
+    await typeRun(el, 'Bins', '16');
+    await typeRun(el, 'Bin width', '10');
+    await typeRun(el, 'From', '-40');
+    expect(runButton(el).disabled).toBe(true);
+    await typeRun(el, 'From', '1900');
+    expect(runButton(el).disabled).toBe(true); // 1900 + 16 × 10 = 2060 nm
+    await typeRun(el, 'From', '480');
+    expect(runButton(el).disabled).toBe(false);
+  });
+
   it('<qdp-channel-list> labels the run\'s fields for keyboard users inside a legend-named group', async () => {
     const el = await mount(panelWithChannels(1));
     expect(el.shadowRoot!.querySelector('fieldset > legend')!.textContent).toBe('Add a spectral detector run');

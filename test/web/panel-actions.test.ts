@@ -79,7 +79,7 @@ describe('<qdp-panel-actions>', () => {
   it('<qdp-panel-actions> with a blocked reason disables share, the sheet and the JSON, says why, and saves nothing', async () => {
     const el = await mount(demoPanel(), (a) => (a.blocked = 'a probe is made of an excluded material.'));
     expect(panelButtons(el).map((b) => b.disabled)).toEqual([true, true, true]);
-    expect(el.shadowRoot!.querySelector('p[role="status"]')!.textContent).toBe('Share and export are off: a probe is made of an excluded material.');
+    expect(el.shadowRoot!.querySelector('p[role="status"]')!.textContent).toBe('Sharing and the ordering sheet and panel file are off (the chart can still be saved): a probe is made of an excluded material.');
     for (const b of panelButtons(el)) b.click();
     await new Promise((r) => setTimeout(r, 50));
     expect(downloads).toEqual([]);
@@ -91,7 +91,7 @@ describe('<qdp-panel-actions>', () => {
     el.blocked = '';
     await el.updateComplete;
     expect(panelButtons(el).map((b) => b.disabled)).toEqual([false, false, false]);
-    expect(el.shadowRoot!.textContent).not.toContain('Share and export are off');
+    expect(el.shadowRoot!.textContent).not.toContain('are off');
   });
 
   it('<qdp-panel-actions> gives every button a visible name and keeps a polite live region for its messages', async () => {

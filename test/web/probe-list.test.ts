@@ -96,16 +96,14 @@ describe('<qdp-probe-list>', () => {
 
   it('<qdp-probe-list> marks only the excluded probe\'s card as blocked', async () => {
     const el = await mount(panelWithProbes(3), (l) => (l.blocked = new Map([['p2', 'cadmium is excluded in this lab']])));
-    expect(cards(el).map((c) => c.hasAttribute('blocked'))).toEqual([false, true, false]);
+    expect(cards(el).map((c) => c.hasAttribute('excluded'))).toEqual([false, true, false]);
     await cards(el)[0].updateComplete;
     expect(cards(el)[0].shadowRoot!.querySelector('[role="alert"]')).toBeNull();
   });
 
-  // Known bug, kept visible: the list binds `.blocked=${reason}` and then `?blocked=${true}`; setting the attribute
-  // runs the card's attribute converter, which overwrites the reason with '' (the attribute's empty value), so the card
-  // shows no "Blocked: …" alert. `it.fails` keeps the suite green until web/probe-list.ts is fixed (e.g. bind
-  // ?blocked before .blocked); then this test starts failing and `.fails` should be removed.
-  it.fails('<qdp-probe-list> shows the excluded probe\'s reason inside its card as an alert', async () => {
+  // The reason is a property only and the border follows a separate reflected `excluded` flag, so no attribute write
+  // can overwrite the reason (it once did: the card showed its border but no "Blocked: …" alert).
+  it('<qdp-probe-list> shows the excluded probe\'s reason inside its card as an alert', async () => {
     const el = await mount(panelWithProbes(3), (l) => (l.blocked = new Map([['p2', 'cadmium is excluded in this lab']])));
     const card = cards(el)[1];
     await card.updateComplete;
