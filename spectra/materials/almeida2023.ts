@@ -1,5 +1,5 @@
 /**
- * Empirical sizing curve of InP quantum dots: Almeida et al., Nano Lett. 2023, 23, 8697 (status T: transcriptions
+ * Empirical sizing curve of InP quantum dots: Almeida et al., Nano Lett. 2023, 23, 8697 (status T: secondary copies
  * agree; paper not read here). E₁S (eV) = 1.33 + 9.128 (L/Å)^−0.684, L = edge length of the tetrahedral particles.
  * The tool's diameter for InP is the equivalent-sphere diameter d of the same volume: V = L³/(6√2) = πd³/6, so
  * d = L (1/(π√2))^(1/3) ≈ 0.608 L (C).

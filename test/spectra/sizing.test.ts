@@ -5,7 +5,7 @@ import {
 } from '../../spectra/index';
 
 // Yu, Qu, Guo, Peng, Chem. Mater. 2003, 15, 2854: D(λ) polynomials and ε = A·D^k, written out here independently of
-// the library (status T: transcriptions agree digit for digit).
+// the library (status T: secondary copies of the coefficients agree digit for digit).
 const paperD = {
   cdte: (l: number) => 9.8127e-7 * l ** 3 - 1.7147e-3 * l ** 2 + 1.0064 * l - 194.84,
   cdse: (l: number) => 1.6122e-9 * l ** 4 - 2.6575e-6 * l ** 3 + 1.6242e-3 * l ** 2 - 0.4277 * l + 41.57,
