@@ -14,18 +14,11 @@ import { resolveCarbon, resolveCustom, resolveSized, type ModelPart } from './ma
 import { optionalNumber } from './materials/inputs';
 import { requireTable, resampleMeasuredEmission } from './materials/measured';
 import { isSizedMaterial, requireMaterialId } from './materials/sizing';
-import type { MaterialId } from './panel';
+import type { MaterialId, ProbeSpec } from './panel';
 
 /** What a probe is, as the API and panels give it (see api-v1.md "One dot"). */
-export interface DotInput {
-  material: MaterialId;
-  emissionPeakNm?: number;
-  diameterNm?: number;
-  sizeDispersionPct?: number;
-  fwhmNm?: number;
-  quantumYield?: number;
-  measuredEmission?: { points: [number, number][] };
-  extinction?: { points: [number, number][] };
+export interface DotInput
+  extends Pick<ProbeSpec, 'material' | 'emissionPeakNm' | 'diameterNm' | 'sizeDispersionPct' | 'fwhmNm' | 'quantumYield' | 'measuredEmission' | 'extinction'> {
   /** For extinctionAtExcitation and the carbon-dot excitation dependence. */
   excitationNm?: number;
 }

@@ -31,11 +31,9 @@ export interface ProbeEvaluation extends Omit<ResolvedDot, 'emission' | 'absorpt
   emissionPeakNmByLine?: number[];
 }
 
-/** The panel reduced to what the figures need (shared by evaluatePanel and panelSpectra). */
-export interface PanelModel {
+/** What the public and the internal panel models share: grid, light paths, lines, background, probe records. */
+interface PanelModelParts {
   grid: WavelengthGrid;
-  dots: ResolvedDot[];
-  components: EmissionComponent[][];
   transmissions: Float64Array[];
   /** Per channel, the index range outside which its transmission is constant (speeds up the overlap sums). */
   constantEnds: ConstantEnds[];
@@ -44,6 +42,12 @@ export interface PanelModel {
   background: Float64Array[] | null;
   probeEvaluations: ProbeEvaluation[];
   assigned: (number | undefined)[];
+}
+
+/** The panel reduced to what the figures need (shared by evaluatePanel and panelSpectra). */
+export interface PanelModel extends PanelModelParts {
+  dots: ResolvedDot[];
+  components: EmissionComponent[][];
 }
 
 /** Per channel, the summed weight of the lines on in it (only line `only` when given). */
@@ -78,18 +82,11 @@ function probeEvaluation(probe: PanelSpec['probes'][number], dot: DotCore, eps: 
 }
 
 /** The internal panel model: resolved cores, emission windows, and transmissions that may live in reused buffers. */
-export interface PanelCoreModel {
-  grid: WavelengthGrid;
+export interface PanelCoreModel extends PanelModelParts {
   cores: DotCore[];
   /** Per probe, the cores of its emission components (one; one per line for a carbon dot without measured emission). */
   componentCores: DotCore[][];
   components: WindowComponent[][];
-  transmissions: Float64Array[];
-  constantEnds: ConstantEnds[];
-  linesOnByChannel: number[][];
-  background: Float64Array[] | null;
-  probeEvaluations: ProbeEvaluation[];
-  assigned: (number | undefined)[];
 }
 
 /**
