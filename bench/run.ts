@@ -38,18 +38,31 @@ for (const file of files) {
   }
 }
 
-const fmt = (v: number | null | undefined) => (v == null ? '—' : v < 0.1 ? v.toFixed(4) : v < 10 ? v.toFixed(3) : v.toFixed(1));
+const fmt = (v: number | null | undefined) =>
+  v == null ? '—' : v < 0.1 ? v.toFixed(4) : v < 10 ? v.toFixed(3) : v.toFixed(1);
 const table = rows.map((r) => ({
   suite: r.suite,
   name: r.name,
   'median ms': fmt(r.medianMs),
   'min ms': fmt(r.minMs),
   'max ms': fmt(r.maxMs),
-  extra: r.extra ? Object.entries(r.extra).map(([k, v]) => `${k}=${v}`).join(' ') : '',
+  extra: r.extra
+    ? Object.entries(r.extra)
+        .map(([k, v]) => `${k}=${v}`)
+        .join(' ')
+    : '',
   note: r.note ?? '',
 }));
 console.table(table);
-const machine = { cpus: cpus().length, cpuModel: cpus()[0]?.model, memGiB: Math.round(totalmem() / 2 ** 30), node: process.version };
+const machine = {
+  cpus: cpus().length,
+  cpuModel: cpus()[0]?.model,
+  memGiB: Math.round(totalmem() / 2 ** 30),
+  node: process.version,
+};
 mkdirSync(join(here, 'results'), { recursive: true });
-writeFileSync(join(here, 'results', 'latest.json'), JSON.stringify({ date: new Date().toISOString(), machine, rows }, null, 2));
+writeFileSync(
+  join(here, 'results', 'latest.json'),
+  JSON.stringify({ date: new Date().toISOString(), machine, rows }, null, 2),
+);
 console.log(`machine: ${JSON.stringify(machine)}\nwritten: bench/results/latest.json`);

@@ -26,10 +26,39 @@ interface Band {
 export const AUTOFLUORESCENCE_BANDS: readonly Band[] = Object.freeze([
   { name: 'collagen/elastin', emissionNm: 400, emissionFwhmNm: 80, excitation: [[330, 50, 1]], brightness: 0.8 },
   { name: 'NAD(P)H', emissionNm: 460, emissionFwhmNm: 110, excitation: [[340, 60, 1]], brightness: 1 },
-  { name: 'flavins', emissionNm: 530, emissionFwhmNm: 100, excitation: [[450, 70, 1], [370, 50, 0.7]], brightness: 0.6 },
+  {
+    name: 'flavins',
+    emissionNm: 530,
+    emissionFwhmNm: 100,
+    excitation: [
+      [450, 70, 1],
+      [370, 50, 0.7],
+    ],
+    brightness: 0.6,
+  },
   { name: 'lipofuscin', emissionNm: 590, emissionFwhmNm: 180, excitation: [[360, 250, 1]], brightness: 0.5 },
-  { name: 'porphyrins', emissionNm: 635, emissionFwhmNm: 30, excitation: [[405, 30, 1], [505, 30, 0.1], [630, 20, 0.05]], brightness: 0.15 },
-  { name: 'porphyrins (second band)', emissionNm: 700, emissionFwhmNm: 30, excitation: [[405, 30, 1], [505, 30, 0.1], [630, 20, 0.05]], brightness: 0.05 },
+  {
+    name: 'porphyrins',
+    emissionNm: 635,
+    emissionFwhmNm: 30,
+    excitation: [
+      [405, 30, 1],
+      [505, 30, 0.1],
+      [630, 20, 0.05],
+    ],
+    brightness: 0.15,
+  },
+  {
+    name: 'porphyrins (second band)',
+    emissionNm: 700,
+    emissionFwhmNm: 30,
+    excitation: [
+      [405, 30, 1],
+      [505, 30, 0.1],
+      [630, 20, 0.05],
+    ],
+    brightness: 0.05,
+  },
 ]);
 
 /**
@@ -77,7 +106,10 @@ export function defaultAutofluorescence(excitationNm: number, grid: WavelengthGr
 export function backgroundEmission(spec: BackgroundSpec, excitationNm: number, grid: WavelengthGrid): Float64Array {
   const level = spec.level;
   if (typeof level !== 'number' || !Number.isFinite(level) || level < 0) {
-    throw new SpectraError('invalid_input', `background level must be a finite number ≥ 0, got ${String(level)}`, ['background', 'level']);
+    throw new SpectraError('invalid_input', `background level must be a finite number ≥ 0, got ${String(level)}`, [
+      'background',
+      'level',
+    ]);
   }
   const scale = level * BACKGROUND_REFERENCE_BRIGHTNESS;
   if (spec.points === undefined) {

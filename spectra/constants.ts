@@ -35,7 +35,8 @@ export const HBAR_J_S = PLANCK_J_S / (2 * Math.PI);
 export const HC_EV_NM = ((PLANCK_J_S * SPEED_OF_LIGHT_M_PER_S) / ELEMENTARY_CHARGE_C) * 1e9;
 
 /** ħ²π²/(2mₑ) in eV nm² (≈ 0.376030): the kinetic prefactor of the Brus equation for a free-electron mass. */
-export const CONFINEMENT_EV_NM2 = ((HBAR_J_S ** 2 * Math.PI ** 2) / (2 * ELECTRON_MASS_KG) / ELEMENTARY_CHARGE_C) * 1e18;
+export const CONFINEMENT_EV_NM2 =
+  ((HBAR_J_S ** 2 * Math.PI ** 2) / (2 * ELECTRON_MASS_KG) / ELEMENTARY_CHARGE_C) * 1e18;
 
 /** e²/(4πε0) in eV nm (≈ 1.439965): the Coulomb prefactor of the Brus equation. */
 export const COULOMB_EV_NM = (ELEMENTARY_CHARGE_C / (4 * Math.PI * VACUUM_PERMITTIVITY_F_PER_M)) * 1e9;

@@ -31,15 +31,25 @@ const LINE_MATCH_NM = 0.5;
 export function linesOn(channel: ChannelSpec, lines: ExcitationLine[], path: (string | number)[]): number[] {
   if (channel.excitationNm === undefined) return lines.map((_, l) => l);
   const wanted = Array.isArray(channel.excitationNm) ? channel.excitationNm : [channel.excitationNm];
-  if (wanted.length === 0) throw new SpectraError('invalid_input', 'excitationNm must name at least one line', [...path, 'excitationNm']);
-  return [...new Set(wanted.map((nm, k) => {
-    const at = Array.isArray(channel.excitationNm) ? [...path, 'excitationNm', k] : [...path, 'excitationNm'];
-    const l = typeof nm === 'number' ? lines.findIndex((line) => Math.abs(line.wavelengthNm - nm) < LINE_MATCH_NM) : -1;
-    if (l < 0) {
-      throw new SpectraError('invalid_input', `excitationNm ${String(nm)} is not one of the panel's lines (${lines.map((x) => x.wavelengthNm).join(', ')} nm)`, at);
-    }
-    return l;
-  }))].sort((a, b) => a - b);
+  if (wanted.length === 0)
+    throw new SpectraError('invalid_input', 'excitationNm must name at least one line', [...path, 'excitationNm']);
+  return [
+    ...new Set(
+      wanted.map((nm, k) => {
+        const at = Array.isArray(channel.excitationNm) ? [...path, 'excitationNm', k] : [...path, 'excitationNm'];
+        const l =
+          typeof nm === 'number' ? lines.findIndex((line) => Math.abs(line.wavelengthNm - nm) < LINE_MATCH_NM) : -1;
+        if (l < 0) {
+          throw new SpectraError(
+            'invalid_input',
+            `excitationNm ${String(nm)} is not one of the panel's lines (${lines.map((x) => x.wavelengthNm).join(', ')} nm)`,
+            at,
+          );
+        }
+        return l;
+      }),
+    ),
+  ].sort((a, b) => a - b);
 }
 
 /** One emission of a probe as its nonzero window (see emission-window.ts) and its weight in each channel. */
@@ -66,7 +76,11 @@ let leftSums = new Float64Array(64);
 let rightSums = new Float64Array(64);
 
 /** collectedColumn for emissions held as windows (what panel evaluation uses). */
-export function collectedColumnOfWindows(components: WindowComponent[], supports: ChannelSupport[], stepNm: number): number[] {
+export function collectedColumnOfWindows(
+  components: WindowComponent[],
+  supports: ChannelSupport[],
+  stepNm: number,
+): number[] {
   const channels = supports.length;
   if (leftSums.length < channels) {
     leftSums = new Float64Array(channels);
@@ -92,18 +106,32 @@ export function collectedColumnOfWindows(components: WindowComponent[], supports
  * Emission arrays must not be changed after their first use here (their nonzero windows are kept).
  */
 export function collectedColumn(components: EmissionComponent[], supports: ChannelSupport[], stepNm: number): number[] {
-  return collectedColumnOfWindows(components.map((c) => ({ emission: cachedWindow(c.emission), weightByChannel: c.weightByChannel })), supports, stepNm);
+  return collectedColumnOfWindows(
+    components.map((c) => ({ emission: cachedWindow(c.emission), weightByChannel: c.weightByChannel })),
+    supports,
+    stepNm,
+  );
 }
 
 /** collected[c][p] for every channel and probe; `ends[c]` (optional) is what channelTransmission reported. */
-export function collectedMatrix(probes: EmissionComponent[][], transmissions: Float64Array[], stepNm: number, ends?: ConstantEnds[]): number[][] {
+export function collectedMatrix(
+  probes: EmissionComponent[][],
+  transmissions: Float64Array[],
+  stepNm: number,
+  ends?: ConstantEnds[],
+): number[][] {
   const supports = transmissions.map((t, c) => channelSupport(t, ends?.[c]));
   const columns = probes.map((components) => collectedColumn(components, supports, stepNm));
   return transmissions.map((_, c) => columns.map((col) => col[c]));
 }
 
 /** collectedMatrix for emissions held as windows (panel evaluation's form). */
-export function collectedMatrixOfWindows(probes: WindowComponent[][], transmissions: Float64Array[], stepNm: number, ends?: ConstantEnds[]): number[][] {
+export function collectedMatrixOfWindows(
+  probes: WindowComponent[][],
+  transmissions: Float64Array[],
+  stepNm: number,
+  ends?: ConstantEnds[],
+): number[][] {
   const supports = transmissions.map((t, c) => channelSupport(t, ends?.[c]));
   const columns = probes.map((components) => collectedColumnOfWindows(components, supports, stepNm));
   return transmissions.map((_, c) => columns.map((col) => col[c]));
@@ -131,7 +159,12 @@ export interface CrosstalkFigures {
  * purity[c] = share of channel c's probe signal from probes whose primary channel is c, and the worst
  * interference(t→u) = collected[primary(u)][t] / collected[primary(u)][u]. Undefined ratios are null with a warning.
  */
-export function crosstalkFigures(collected: number[][], assigned: (number | undefined)[], probeIds: string[], channelIds: string[]): CrosstalkFigures {
+export function crosstalkFigures(
+  collected: number[][],
+  assigned: (number | undefined)[],
+  probeIds: string[],
+  channelIds: string[],
+): CrosstalkFigures {
   // Plain loops (no callbacks): this runs on every evaluation and 2 × probes more times in the lot-shift check.
   const warnings: string[] = [];
   const channels = collected.length;
@@ -152,9 +185,11 @@ export function crosstalkFigures(collected: number[][], assigned: (number | unde
   for (let p = 0; p < probes; p++) {
     if (primarySignal[p] > 0) continue;
     const c = primaryChannel[p];
-    warnings.push(c === null
-      ? `probe ${probeIds[p]} gives no signal in any channel (is any line absorbed by it?): its spillover is undefined`
-      : `probe ${probeIds[p]} gives no signal in its channel ${channelIds[c]}: its spillover is undefined`);
+    warnings.push(
+      c === null
+        ? `probe ${probeIds[p]} gives no signal in any channel (is any line absorbed by it?): its spillover is undefined`
+        : `probe ${probeIds[p]} gives no signal in its channel ${channelIds[c]}: its spillover is undefined`,
+    );
   }
   const spillover: (number | null)[][] = [];
   const belowResolution: boolean[][] = [];
@@ -196,7 +231,9 @@ export function crosstalkFigures(collected: number[][], assigned: (number | unde
     }
   }
   if (probes > 1 && worst.interference !== null && worst.interference < RESOLUTION_THRESHOLD) {
-    warnings.push(`the worst interference (${worst.interference.toExponential(1)}) is below the model's resolution (${RESOLUTION_THRESHOLD}): real red tails may be larger`);
+    warnings.push(
+      `the worst interference (${worst.interference.toExponential(1)}) is below the model's resolution (${RESOLUTION_THRESHOLD}): real red tails may be larger`,
+    );
   }
   return { primaryChannel, spillover, purity, belowResolution, worst, warnings };
 }

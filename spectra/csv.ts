@@ -15,7 +15,8 @@ export const CSV_LIMITS = Object.freeze({ maxChars: 1_000_000, maxLines: 20_000,
 // Transmission above 1.5 cannot be a 0–1 fraction (slight excursions above 1 are measurement noise): percent.
 const PERCENT_THRESHOLD = 1.5;
 
-const fail = (line: number, message: string) => new SpectraError('invalid_table', `line ${line}: ${message}`, ['line', line]);
+const fail = (line: number, message: string) =>
+  new SpectraError('invalid_table', `line ${line}: ${message}`, ['line', line]);
 
 /** Splits one data line into fields; a trailing separator is tolerated. */
 function fields(line: string): string[] {
@@ -50,12 +51,17 @@ function resample(points: [number, number][], count: number): [number, number][]
  * Errors: SpectraError `invalid_table` with path ['line', n] (1-based) for a bad row, a row out of order, a ragged row
  * or an over-long line; path [] for an empty or oversized text.
  */
-export function parseSpectrumCsv(text: string, options: { kind?: SpectrumCsvKind } = {}): { points: [number, number][]; warnings: string[] } {
+export function parseSpectrumCsv(
+  text: string,
+  options: { kind?: SpectrumCsvKind } = {},
+): { points: [number, number][]; warnings: string[] } {
   const kind = options.kind ?? 'transmission';
   if (typeof text !== 'string') throw new SpectraError('invalid_table', 'the table must be text', []);
-  if (text.length > CSV_LIMITS.maxChars) throw new SpectraError('invalid_table', `the table is over ${CSV_LIMITS.maxChars} characters`, []);
+  if (text.length > CSV_LIMITS.maxChars)
+    throw new SpectraError('invalid_table', `the table is over ${CSV_LIMITS.maxChars} characters`, []);
   const lines = text.split(/\r\n|\r|\n/);
-  if (lines.length > CSV_LIMITS.maxLines) throw new SpectraError('invalid_table', `the table has over ${CSV_LIMITS.maxLines} lines`, []);
+  if (lines.length > CSV_LIMITS.maxLines)
+    throw new SpectraError('invalid_table', `the table has over ${CSV_LIMITS.maxLines} lines`, []);
   const warnings: string[] = [];
   let points: [number, number][] = [];
   let headerSaysPercent = false;
@@ -76,12 +82,16 @@ export function parseSpectrumCsv(text: string, options: { kind?: SpectrumCsvKind
     if (!Number.isFinite(nm) || !Number.isFinite(value)) throw fail(line, 'values must be finite numbers');
     if (nm <= 0) throw fail(line, `wavelength must be above 0 nm, got ${nm}`);
     if (points.length > 0 && nm <= points[points.length - 1][0]) {
-      throw fail(line, `rows out of order: ${nm} nm does not follow ${points[points.length - 1][0]} nm (sort ascending, no repeats)`);
+      throw fail(
+        line,
+        `rows out of order: ${nm} nm does not follow ${points[points.length - 1][0]} nm (sort ascending, no repeats)`,
+      );
     }
     if (kind === 'extinction' && value < 0) throw fail(line, `extinction cannot be negative, got ${value}`);
     points.push([nm, value]);
   });
-  if (points.length < 2) throw new SpectraError('invalid_table', 'the table needs at least 2 data rows (wavelength nm, value)', []);
+  if (points.length < 2)
+    throw new SpectraError('invalid_table', 'the table needs at least 2 data rows (wavelength nm, value)', []);
   if (kind === 'transmission') {
     const percent = headerSaysPercent || points.some(([, v]) => v > PERCENT_THRESHOLD);
     if (percent) {

@@ -17,8 +17,17 @@ import { isSizedMaterial, requireMaterialId } from './materials/sizing';
 import type { MaterialId, ProbeSpec } from './panel';
 
 /** What a probe is, as the API and panels give it (see api-v1.md "One dot"). */
-export interface DotInput
-  extends Pick<ProbeSpec, 'material' | 'emissionPeakNm' | 'diameterNm' | 'sizeDispersionPct' | 'fwhmNm' | 'quantumYield' | 'measuredEmission' | 'extinction'> {
+export interface DotInput extends Pick<
+  ProbeSpec,
+  | 'material'
+  | 'emissionPeakNm'
+  | 'diameterNm'
+  | 'sizeDispersionPct'
+  | 'fwhmNm'
+  | 'quantumYield'
+  | 'measuredEmission'
+  | 'extinction'
+> {
   /** For extinctionAtExcitation and the carbon-dot excitation dependence. */
   excitationNm?: number;
 }
@@ -72,18 +81,24 @@ export function coreExtinctionAtNm(core: DotCore, wavelengthNm: number): number 
  * SpectraError naming the field.
  */
 export function resolveDotCore(input: DotInput, grid: WavelengthGrid): DotCore {
-  if (typeof input !== 'object' || input === null) throw new SpectraError('invalid_input', 'a dot must be an object', []);
+  if (typeof input !== 'object' || input === null)
+    throw new SpectraError('invalid_input', 'a dot must be an object', []);
   const raw = input as unknown as Record<string, unknown>;
   const material = requireMaterialId(raw.material);
   const excitationNm = optionalNumber(raw, 'excitationNm', 0, 10000, ' nm', { minExclusive: true });
   const quantumYield = optionalNumber(raw, 'quantumYield', 0, 1, '');
-  const measuredEm = input.measuredEmission === undefined ? null
-    : resampleMeasuredEmission(input.measuredEmission?.points, grid, ['measuredEmission', 'points']);
-  const extinctionTable = input.extinction === undefined ? null : requireTable(input.extinction?.points, ['extinction', 'points']);
+  const measuredEm =
+    input.measuredEmission === undefined
+      ? null
+      : resampleMeasuredEmission(input.measuredEmission?.points, grid, ['measuredEmission', 'points']);
+  const extinctionTable =
+    input.extinction === undefined ? null : requireTable(input.extinction?.points, ['extinction', 'points']);
 
-  const part: ModelPart = isSizedMaterial(material) ? resolveSized(material, raw, measuredEm?.peakNm)
-    : material === 'carbon' ? resolveCarbon(raw, excitationNm, measuredEm?.peakNm)
-    : resolveCustom(raw, measuredEm);
+  const part: ModelPart = isSizedMaterial(material)
+    ? resolveSized(material, raw, measuredEm?.peakNm)
+    : material === 'carbon'
+      ? resolveCarbon(raw, excitationNm, measuredEm?.peakNm)
+      : resolveCustom(raw, measuredEm);
   const warnings = [...part.warnings, ...(measuredEm?.warnings ?? [])];
 
   let emissionWindow: EmissionWindow;
@@ -95,20 +110,28 @@ export function resolveDotCore(input: DotInput, grid: WavelengthGrid): DotCore {
     emissionValues = measuredEm.spectrum.values;
     emissionWindow = gridEmissionWindow(emissionValues);
     if (part.peakNm !== null && Math.abs(part.peakNm - emissionPeakNm) > 10) {
-      warnings.push(`The measured emission peaks at ${emissionPeakNm.toFixed(1)} nm, ${Math.abs(part.peakNm - emissionPeakNm).toFixed(1)} nm from the model's ${part.peakNm.toFixed(1)} nm; the measured spectrum is used.`);
+      warnings.push(
+        `The measured emission peaks at ${emissionPeakNm.toFixed(1)} nm, ${Math.abs(part.peakNm - emissionPeakNm).toFixed(1)} nm from the model's ${part.peakNm.toFixed(1)} nm; the measured spectrum is used.`,
+      );
     }
   } else {
     const centerEv = centerEvForPeakNm(part.peakNm!, part.fwhmEv!);
     const line = sampleGaussianWindow(grid, centerEv, part.fwhmEv!);
-    if (line.areaOnGrid < 0.99) warnings.push(`Only ${(100 * line.areaOnGrid).toFixed(1)} % of the emission lies on the wavelength grid; the spectrum is renormalised to unit area on the grid.`);
+    if (line.areaOnGrid < 0.99)
+      warnings.push(
+        `Only ${(100 * line.areaOnGrid).toFixed(1)} % of the emission lies on the wavelength grid; the spectrum is renormalised to unit area on the grid.`,
+      );
     emissionWindow = lineEmissionWindow(line.window.from, line.window.values);
     emissionPeakNm = part.peakNm!;
     fwhmNm = fwhmNmOfLine(centerEv, part.fwhmEv!);
   }
 
-  const absorptionModel: AbsorptionModel = extinctionTable ? { type: 'table', points: extinctionTable } : part.absorption;
+  const absorptionModel: AbsorptionModel = extinctionTable
+    ? { type: 'table', points: extinctionTable }
+    : part.absorption;
   if (!extinctionTable && part.absorptionWarning) warnings.push(part.absorptionWarning);
-  if (extinctionTable && extinctionTable.some((p) => p[1] < 0)) warnings.push('Measured extinction has negative values; they are used as given.');
+  if (extinctionTable && extinctionTable.some((p) => p[1] < 0))
+    warnings.push('Measured extinction has negative values; they are used as given.');
   const firstExcitonNm = part.firstExcitonNm;
   return {
     material,

@@ -25,7 +25,13 @@ function readAbsorption(this: ResolvedDot): SampledSpectrum {
   const { model, grid } = absorptionModels.get(this)!;
   const absorption = sampleExtinction(model, grid);
   // A frozen or sealed dot cannot take the data property: it is sampled again on each read instead.
-  if (!Object.isSealed(this)) Object.defineProperty(this, 'absorption', { value: absorption, writable: true, enumerable: true, configurable: true });
+  if (!Object.isSealed(this))
+    Object.defineProperty(this, 'absorption', {
+      value: absorption,
+      writable: true,
+      enumerable: true,
+      configurable: true,
+    });
   return absorption;
 }
 
@@ -33,7 +39,12 @@ function writeAbsorption(this: ResolvedDot, value: SampledSpectrum): void {
   Object.defineProperty(this, 'absorption', { value, writable: true, enumerable: true, configurable: true });
 }
 
-const LAZY_ABSORPTION: PropertyDescriptor = { get: readAbsorption, set: writeAbsorption, enumerable: true, configurable: true };
+const LAZY_ABSORPTION: PropertyDescriptor = {
+  get: readAbsorption,
+  set: writeAbsorption,
+  enumerable: true,
+  configurable: true,
+};
 
 /**
  * The ResolvedDot of a resolved core: its scalar fields, its emission on the whole grid and the lazily sampled
@@ -82,4 +93,3 @@ export function extinctionAtNm(dot: ResolvedDot, wavelengthNm: number): number {
   const eps = exact ? modelExtinctionAtNm(exact.model, wavelengthNm) : spectrumAtNm(dot.absorption, wavelengthNm);
   return Number.isFinite(eps) ? eps : 0;
 }
-

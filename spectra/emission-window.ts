@@ -44,7 +44,10 @@ let cuts = new Int32Array(64);
 
 /** Σ values[k − offset] over grid indices [lo, hi), four partial sums. */
 function rangeSum(values: ArrayLike<number>, offset: number, lo: number, hi: number): number {
-  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+  let s0 = 0,
+    s1 = 0,
+    s2 = 0,
+    s3 = 0;
   let i = lo | 0;
   hi |= 0;
   offset |= 0;
@@ -113,7 +116,10 @@ export function runSums(w: EmissionWindow, supports: ChannelSupport[], left: Flo
 
 /** Σ values[i − offset] t[i] over grid indices [lo, hi), four partial sums (independent add chains run faster). */
 function windowDot(values: ArrayLike<number>, offset: number, t: Float64Array, lo: number, hi: number): number {
-  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+  let s0 = 0,
+    s1 = 0,
+    s2 = 0,
+    s3 = 0;
   // Integer indices: a double index is converted and checked at every access.
   offset |= 0;
   hi |= 0;

@@ -13,7 +13,7 @@ export const EXP_TABLE_REACH = 64;
 const STEPS_PER_LN2 = 256;
 const INV_STEP = STEPS_PER_LN2 / Math.LN2;
 // fdlibm's split of ln 2 (32 significant bits in the high part), divided by 256 exactly.
-const STEP_HI = 6.93147180369123816490e-1 / STEPS_PER_LN2;
+const STEP_HI = 6.9314718036912381649e-1 / STEPS_PER_LN2;
 const STEP_LO = 1.90821492927058770002e-10 / STEPS_PER_LN2;
 const MAX_K = Math.ceil(EXP_TABLE_REACH * INV_STEP) + 1;
 

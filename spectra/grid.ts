@@ -33,7 +33,9 @@ export function makeGrid(startNm: number, endNm: number, stepNm: number): Wavele
   if (endNm <= startNm) throw new SpectraError('invalid_input', 'grid endNm must be above startNm', ['grid', 'endNm']);
   const count = Math.floor((endNm - startNm) / stepNm + 1e-9) + 1;
   if (count > MAX_GRID_POINTS) {
-    throw new SpectraError('invalid_input', `grid has ${count} points; at most ${MAX_GRID_POINTS} are allowed`, ['grid']);
+    throw new SpectraError('invalid_input', `grid has ${count} points; at most ${MAX_GRID_POINTS} are allowed`, [
+      'grid',
+    ]);
   }
   return { startNm, stepNm, count };
 }
@@ -58,7 +60,11 @@ export function gridWavelengthsNm(grid: WavelengthGrid): Float64Array {
 /**
  * Linear interpolation of an ascending table [[nm, value], ...] at one wavelength; `outside` beyond its ends.
  */
-export function interpolateTable(points: readonly (readonly [number, number])[], wavelengthNm: number, outside = 0): number {
+export function interpolateTable(
+  points: readonly (readonly [number, number])[],
+  wavelengthNm: number,
+  outside = 0,
+): number {
   const n = points.length;
   if (n === 0 || wavelengthNm < points[0][0] || wavelengthNm > points[n - 1][0]) return outside;
   let lo = 0;
@@ -75,7 +81,11 @@ export function interpolateTable(points: readonly (readonly [number, number])[],
 }
 
 /** Samples an ascending table onto a grid by linear interpolation; zero (or `outside`) beyond the table's ends. */
-export function sampleTable(points: readonly (readonly [number, number])[], grid: WavelengthGrid, outside = 0): Float64Array {
+export function sampleTable(
+  points: readonly (readonly [number, number])[],
+  grid: WavelengthGrid,
+  outside = 0,
+): Float64Array {
   const out = new Float64Array(grid.count);
   for (let i = 0; i < grid.count; i++) out[i] = interpolateTable(points, grid.startNm + i * grid.stepNm, outside);
   return out;

@@ -38,7 +38,8 @@ let lastCount = -1;
 let lastTables: GridTables | null = null;
 
 function gridTables(grid: WavelengthGrid): GridTables {
-  if (lastTables && grid.startNm === lastStartNm && grid.stepNm === lastStepNm && grid.count === lastCount) return lastTables;
+  if (lastTables && grid.startNm === lastStartNm && grid.stepNm === lastStepNm && grid.count === lastCount)
+    return lastTables;
   lastTables = tablesFor(grid);
   lastStartNm = grid.startNm;
   lastStepNm = grid.stepNm;
@@ -66,7 +67,14 @@ function tablesFor(grid: WavelengthGrid): GridTables {
 
 // Writes the line's per-nm shape, without the 1/(σ√2π) factor, at grid points [from, to] into values[i − from];
 // returns their sum. Every point of the window is written, so `values` may be a fresh plain array.
-function fillLine(values: number[], tables: GridTables, from: number, to: number, centerEv: number, sigma: number): number {
+function fillLine(
+  values: number[],
+  tables: GridTables,
+  from: number,
+  to: number,
+  centerEv: number,
+  sigma: number,
+): number {
   const { energyEv, jacobianEvPerNm } = tables;
   const negHalfInvVar = -0.5 / (sigma * sigma);
   // Integer loop bounds (|0): the bounds come from Math.floor/ceil as doubles, and a double index is converted and
@@ -101,7 +109,11 @@ export interface LineWindow {
  * sampleGaussianLine's result as its window only (see LineWindow), with the fraction of the line's exact area on
  * the grid: the form panel evaluation uses, without a grid-long array per probe.
  */
-export function sampleGaussianWindow(grid: WavelengthGrid, centerEv: number, fwhmEv: number): { window: LineWindow; areaOnGrid: number } {
+export function sampleGaussianWindow(
+  grid: WavelengthGrid,
+  centerEv: number,
+  fwhmEv: number,
+): { window: LineWindow; areaOnGrid: number } {
   const { startNm, stepNm, count } = grid;
   const tables = gridTables(grid);
   const sigma = fwhmEv / FWHM_PER_SIGMA;
@@ -137,7 +149,11 @@ export function sampleGaussianWindow(grid: WavelengthGrid, centerEv: number, fwh
  * points within ±LINE_CUTOFF_SIGMAS of the centre (in energy) are computed and the rest are exactly 0, unless less
  * than 1e-6 of the line falls in that window (a line almost entirely off the grid): then every point is computed.
  */
-export function sampleGaussianLine(grid: WavelengthGrid, centerEv: number, fwhmEv: number): { spectrum: SampledSpectrum; areaOnGrid: number } {
+export function sampleGaussianLine(
+  grid: WavelengthGrid,
+  centerEv: number,
+  fwhmEv: number,
+): { spectrum: SampledSpectrum; areaOnGrid: number } {
   const { window, areaOnGrid } = sampleGaussianWindow(grid, centerEv, fwhmEv);
   const values = new Float64Array(grid.count);
   values.set(window.values, window.from);

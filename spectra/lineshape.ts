@@ -105,7 +105,8 @@ export function fwhmEvForFwhmNm(peakNm: number, fwhmNm: number): number {
   let fhi = fwhmMismatchNm(peakNm, hi, fwhmNm);
   // Grow the bracket if the small-width estimate falls short (it does: 1/E is convex).
   while (fhi < 0 && hi < HC / peakNm) {
-    lo = hi; flo = fhi;
+    lo = hi;
+    flo = fhi;
     hi = Math.min(hi * 1.5, HC / peakNm);
     fhi = fwhmMismatchNm(peakNm, hi, fwhmNm);
   }
@@ -115,11 +116,13 @@ export function fwhmEvForFwhmNm(peakNm: number, fwhmNm: number): number {
     const fw = fwhmMismatchNm(peakNm, w, fwhmNm);
     if (Math.abs(fw) < 1e-10) return w;
     if (fw < 0) {
-      lo = w; flo = fw;
+      lo = w;
+      flo = fw;
       if (side === -1) fhi /= 2;
       side = -1;
     } else {
-      hi = w; fhi = fw;
+      hi = w;
+      fhi = fw;
       if (side === 1) flo /= 2;
       side = 1;
     }

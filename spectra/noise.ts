@@ -60,11 +60,28 @@ export interface NoiseModel {
   warnings: string[];
 }
 
-function perChannel(value: number | number[] | undefined, fallback: number, rows: number, name: string, min: number): number[] {
-  const list = value === undefined ? new Array(rows).fill(fallback) : typeof value === 'number' ? new Array(rows).fill(value) : value;
-  if (!Array.isArray(list) || list.length !== rows) throw new SpectraError('invalid_input', `${name} must be a number or one number per channel (${rows})`, [name]);
+function perChannel(
+  value: number | number[] | undefined,
+  fallback: number,
+  rows: number,
+  name: string,
+  min: number,
+): number[] {
+  const list =
+    value === undefined
+      ? new Array(rows).fill(fallback)
+      : typeof value === 'number'
+        ? new Array(rows).fill(value)
+        : value;
+  if (!Array.isArray(list) || list.length !== rows)
+    throw new SpectraError('invalid_input', `${name} must be a number or one number per channel (${rows})`, [name]);
   list.forEach((x, i) => {
-    if (typeof x !== 'number' || !Number.isFinite(x) || x < min) throw new SpectraError('invalid_input', `${name} must be finite and ≥ ${min}, got ${String(x)}`, typeof value === 'number' ? [name] : [name, i]);
+    if (typeof x !== 'number' || !Number.isFinite(x) || x < min)
+      throw new SpectraError(
+        'invalid_input',
+        `${name} must be finite and ≥ ${min}, got ${String(x)}`,
+        typeof value === 'number' ? [name] : [name, i],
+      );
   });
   return list;
 }
@@ -73,26 +90,34 @@ function perChannel(value: number | number[] | undefined, fallback: number, rows
 export function noiseModel(input: NoiseInput): NoiseModel {
   const { rows, cols } = checkMatrix(input.mixingPhotons, 'mixingPhotons');
   const m = input.mixingPhotons;
-  m.forEach((row, c) => row.forEach((x, p) => {
-    if (x < 0) throw new SpectraError('invalid_input', 'mixingPhotons must be ≥ 0', ['mixingPhotons', c, p]);
-  }));
+  m.forEach((row, c) =>
+    row.forEach((x, p) => {
+      if (x < 0) throw new SpectraError('invalid_input', 'mixingPhotons must be ≥ 0', ['mixingPhotons', c, p]);
+    }),
+  );
   const abundance = input.abundance;
-  if (!Array.isArray(abundance) || abundance.length !== cols) throw new SpectraError('invalid_input', `abundance must list ${cols} numbers (one per probe)`, ['abundance']);
+  if (!Array.isArray(abundance) || abundance.length !== cols)
+    throw new SpectraError('invalid_input', `abundance must list ${cols} numbers (one per probe)`, ['abundance']);
   abundance.forEach((a, p) => {
-    if (typeof a !== 'number' || !Number.isFinite(a) || a < 0) throw new SpectraError('invalid_input', 'abundance must be finite and ≥ 0', ['abundance', p]);
+    if (typeof a !== 'number' || !Number.isFinite(a) || a < 0)
+      throw new SpectraError('invalid_input', 'abundance must be finite and ≥ 0', ['abundance', p]);
   });
   const background = perChannel(input.backgroundPhotons, 0, rows, 'backgroundPhotons', 0);
   const readSd = perChannel(input.readNoiseElectrons, 0, rows, 'readNoiseElectrons', 0);
   const excess = perChannel(input.excessNoiseFactor, 1, rows, 'excessNoiseFactor', 1);
-  const primary = input.primaryChannel ?? m[0].map((_, p) => m.reduce((best, row, c) => (row[p] > m[best][p] ? c : best), 0));
+  const primary =
+    input.primaryChannel ?? m[0].map((_, p) => m.reduce((best, row, c) => (row[p] > m[best][p] ? c : best), 0));
   if (primary.length !== cols || primary.some((c) => !Number.isInteger(c) || c < 0 || c >= rows)) {
-    throw new SpectraError('invalid_input', `primaryChannel must list ${cols} channel indices below ${rows}`, ['primaryChannel']);
+    throw new SpectraError('invalid_input', `primaryChannel must list ${cols} channel indices below ${rows}`, [
+      'primaryChannel',
+    ]);
   }
   const warnings: string[] = [];
   let pinv: number[][] | null = null;
   const s = cols <= rows ? singularValues(m) : [];
   if (cols > rows) warnings.push(`${cols} probes but only ${rows} channels: least-squares unmixing is not defined`);
-  else if (!(s[cols - 1] > Math.max(rows, cols) * Number.EPSILON * s[0])) warnings.push('the probes\' channel signatures are linearly dependent: unmixing noise is unbounded');
+  else if (!(s[cols - 1] > Math.max(rows, cols) * Number.EPSILON * s[0]))
+    warnings.push("the probes' channel signatures are linearly dependent: unmixing noise is unbounded");
   else pinv = pseudoInverse(m);
   return { m, pinv, abundance, background, readSd, excess, primary, warnings };
 }
@@ -106,18 +131,39 @@ export function predictUnmixingNoise(input: NoiseInput): NoisePrediction {
   const { m, pinv, abundance, background, readSd, excess, primary } = model;
   const rows = m.length;
   const cols = m[0].length;
-  const variance = m.map((row, c) => excess[c] * (row.reduce((sum, x, p) => sum + x * abundance[p], 0) + background[c]) + readSd[c] ** 2);
+  const variance = m.map(
+    (row, c) => excess[c] * (row.reduce((sum, x, p) => sum + x * abundance[p], 0) + background[c]) + readSd[c] ** 2,
+  );
   if (!pinv) {
     const nulls = () => new Array<null>(cols).fill(null);
-    return { covariance: m[0].map(nulls), sd: nulls(), signalToNoise: nulls(), spreading: m[0].map(nulls), primaryChannel: primary, channelVariance: variance, warnings: model.warnings };
+    return {
+      covariance: m[0].map(nulls),
+      sd: nulls(),
+      signalToNoise: nulls(),
+      spreading: m[0].map(nulls),
+      primaryChannel: primary,
+      channelVariance: variance,
+      warnings: model.warnings,
+    };
   }
   const covariance = pinv.map((ri) => pinv.map((rj) => ri.reduce((sum, x, c) => sum + x * variance[c] * rj[c], 0)));
   const sd = covariance.map((row, i) => Math.sqrt(Math.max(0, row[i])));
   const warnings = [...model.warnings];
   const signalToNoise = sd.map((s, p) => (s > 0 ? abundance[p] / s : null));
-  if (signalToNoise.some((x) => x === null)) warnings.push('a probe has zero predicted noise (no photons, no read noise): its signal-to-noise ratio is undefined');
+  if (signalToNoise.some((x) => x === null))
+    warnings.push(
+      'a probe has zero predicted noise (no photons, no read noise): its signal-to-noise ratio is undefined',
+    );
   if (rows === 0) warnings.push('no channels');
-  return { covariance, sd, signalToNoise, spreading: spreadingMatrix(model), primaryChannel: primary, channelVariance: variance, warnings };
+  return {
+    covariance,
+    sd,
+    signalToNoise,
+    spreading: spreadingMatrix(model),
+    primaryChannel: primary,
+    channelVariance: variance,
+    warnings,
+  };
 }
 
 /**
@@ -129,8 +175,13 @@ export function photonMixing(collected: number[][], primaryChannel: number[], ph
   const scale = primaryChannel.map((c, p) => {
     const x = collected[c]?.[p];
     const n = photonsPrimary[p];
-    if (typeof n !== 'number' || !Number.isFinite(n) || n < 0) throw new SpectraError('invalid_input', 'photons must be finite and ≥ 0', ['photons', p]);
-    if (!(typeof x === 'number' && x > 0)) throw new SpectraError('invalid_input', `probe ${p + 1} collects no light in its primary channel`, ['primaryChannel', p]);
+    if (typeof n !== 'number' || !Number.isFinite(n) || n < 0)
+      throw new SpectraError('invalid_input', 'photons must be finite and ≥ 0', ['photons', p]);
+    if (!(typeof x === 'number' && x > 0))
+      throw new SpectraError('invalid_input', `probe ${p + 1} collects no light in its primary channel`, [
+        'primaryChannel',
+        p,
+      ]);
     return n / x;
   });
   return collected.map((row) => row.map((x, p) => x * scale[p]));

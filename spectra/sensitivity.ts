@@ -37,11 +37,16 @@ export function shiftEmission(emission: Float64Array, shiftNm: number, stepNm: n
   return out;
 }
 
-function worstSpillover(spillover: (number | null)[][], primary: (number | null)[]): { value: number; c: number; p: number } | null {
+function worstSpillover(
+  spillover: (number | null)[][],
+  primary: (number | null)[],
+): { value: number; c: number; p: number } | null {
   let best: { value: number; c: number; p: number } | null = null;
-  spillover.forEach((row, c) => row.forEach((s, p) => {
-    if (s !== null && c !== primary[p] && (best === null || s > best.value)) best = { value: s, c, p };
-  }));
+  spillover.forEach((row, c) =>
+    row.forEach((s, p) => {
+      if (s !== null && c !== primary[p] && (best === null || s > best.value)) best = { value: s, c, p };
+    }),
+  );
   return best;
 }
 
@@ -69,17 +74,35 @@ export function lotShiftSensitivity(
   probes.forEach((components, p) => {
     for (const signed of [shiftNm, -shiftNm]) {
       // Shifted arrays are used once: their windows are not kept (collectedColumn would keep them beside the array).
-      const moved = components.map((c) => ({ emission: gridEmissionWindow(shiftEmission(c.emission, signed, stepNm)), weightByChannel: c.weightByChannel }));
+      const moved = components.map((c) => ({
+        emission: gridEmissionWindow(shiftEmission(c.emission, signed, stepNm)),
+        weightByChannel: c.weightByChannel,
+      }));
       const column = collectedColumnOfWindows(moved, supports, stepNm);
       const shifted = collected.map((row, c) => row.map((v, q) => (q === p ? column[c] : v)));
       const figures = crosstalkFigures(shifted, assigned, probeIds, channelIds);
       const w = figures.worst;
-      if (w.interference !== null && (result.worstInterference === null || w.interference > result.worstInterference.interference)) {
-        result.worstInterference = { interference: w.interference, from: w.from!, into: w.into!, shiftedProbe: probeIds[p], shiftNm: signed };
+      if (
+        w.interference !== null &&
+        (result.worstInterference === null || w.interference > result.worstInterference.interference)
+      ) {
+        result.worstInterference = {
+          interference: w.interference,
+          from: w.from!,
+          into: w.into!,
+          shiftedProbe: probeIds[p],
+          shiftNm: signed,
+        };
       }
       const s = worstSpillover(figures.spillover, figures.primaryChannel);
       if (s && (result.worstSpillover === null || s.value > result.worstSpillover.spillover)) {
-        result.worstSpillover = { spillover: s.value, probe: probeIds[s.p], channel: channelIds[s.c], shiftedProbe: probeIds[p], shiftNm: signed };
+        result.worstSpillover = {
+          spillover: s.value,
+          probe: probeIds[s.p],
+          channel: channelIds[s.c],
+          shiftedProbe: probeIds[p],
+          shiftNm: signed,
+        };
       }
     }
   });

@@ -28,7 +28,7 @@ function rankProblem(m: number[][], s: number[] | null, ids?: string[]): string 
     if (i === rows) return `probe ${ids?.[j] ?? j + 1} gives no signal in any channel: the probes cannot be unmixed`;
   }
   if (s && !(s[cols - 1] > Math.max(rows, cols) * EPSILON * s[0])) {
-    return 'the probes\' channel signatures are linearly dependent (rank-deficient): they cannot be unmixed';
+    return "the probes' channel signatures are linearly dependent (rank-deficient): they cannot be unmixed";
   }
   return null;
 }
@@ -98,8 +98,14 @@ function prepare(m: number[][], y: number[]): string | null {
 export function unmixLeastSquares(m: number[][], y: number[]): UnmixResult {
   const problem = prepare(m, y);
   const x = problem ? null : leastSquaresQr(m, y);
-  if (!x) return { abundances: new Array(m[0].length).fill(null), warnings: [problem ?? 'the least-squares problem is rank-deficient'] };
-  const warnings = x.some((v) => v < 0) ? ['least squares gave negative abundances (noise or a missing probe); NNLS keeps them ≥ 0'] : [];
+  if (!x)
+    return {
+      abundances: new Array(m[0].length).fill(null),
+      warnings: [problem ?? 'the least-squares problem is rank-deficient'],
+    };
+  const warnings = x.some((v) => v < 0)
+    ? ['least squares gave negative abundances (noise or a missing probe); NNLS keeps them ≥ 0']
+    : [];
   return { abundances: x, warnings };
 }
 
@@ -108,5 +114,8 @@ export function unmixNnls(m: number[][], y: number[]): UnmixResult {
   const problem = prepare(m, y);
   if (problem) return { abundances: new Array(m[0].length).fill(null), warnings: [problem] };
   const result = nnls(m, y);
-  return { abundances: result.x, warnings: result.converged ? [] : [`NNLS stopped after ${result.iterations} iterations without converging`] };
+  return {
+    abundances: result.x,
+    warnings: result.converged ? [] : [`NNLS stopped after ${result.iterations} iterations without converging`],
+  };
 }

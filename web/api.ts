@@ -23,12 +23,23 @@ async function call<T>(path: string, init?: RequestInit): Promise<T> {
   try {
     res = await fetch(path, { ...init, headers: { 'content-type': 'application/json', ...(init?.headers ?? {}) } });
   } catch {
-    throw new ApiError('network', 'The server could not be reached; your panel is still here and in the page address.', 0);
+    throw new ApiError(
+      'network',
+      'The server could not be reached; your panel is still here and in the page address.',
+      0,
+    );
   }
-  const body = (await res.json().catch(() => null)) as { error?: { code?: string; message?: string; path?: (string | number)[] } } | null;
+  const body = (await res.json().catch(() => null)) as {
+    error?: { code?: string; message?: string; path?: (string | number)[] };
+  } | null;
   if (!res.ok) {
     const err = body?.error;
-    throw new ApiError(err?.code ?? `http_${res.status}`, err?.message ?? `The server answered ${res.status}.`, res.status, err?.path ?? []);
+    throw new ApiError(
+      err?.code ?? `http_${res.status}`,
+      err?.message ?? `The server answered ${res.status}.`,
+      res.status,
+      err?.path ?? [],
+    );
   }
   return body as T;
 }
@@ -44,6 +55,15 @@ export function loadSharedPanel(id: string): Promise<unknown> {
 }
 
 /** The server's evaluation of a panel (the numbers the exported sheet carries). */
-export function evaluateOnServer(panel: PanelSpec): Promise<{ probes: { diameterNm?: number | null; emissionPeakNm?: number | null; fwhmNm?: number | null; firstExcitonNm?: number | null }[] }> {
+export function evaluateOnServer(
+  panel: PanelSpec,
+): Promise<{
+  probes: {
+    diameterNm?: number | null;
+    emissionPeakNm?: number | null;
+    fwhmNm?: number | null;
+    firstExcitonNm?: number | null;
+  }[];
+}> {
   return call('/api/v1/panels/evaluate', { method: 'POST', body: JSON.stringify(panel) });
 }

@@ -15,11 +15,27 @@ type FilterKind = 'bandpass' | 'longpass' | 'shortpass' | 'table';
 /** A new filter of a kind, placed near `nearNm` so switching kind keeps it where it was. */
 function filterOfKind(kind: FilterKind, nearNm: number): FilterSpec {
   if (kind === 'bandpass') return { type: 'bandpass', centerNm: nearNm, widthNm: 20 };
-  if (kind === 'table') return { type: 'table', points: [[nearNm - 10, 0], [nearNm - 9, 0.9], [nearNm + 9, 0.9], [nearNm + 10, 0]] };
+  if (kind === 'table')
+    return {
+      type: 'table',
+      points: [
+        [nearNm - 10, 0],
+        [nearNm - 9, 0.9],
+        [nearNm + 9, 0.9],
+        [nearNm + 10, 0],
+      ],
+    };
   return { type: kind, edgeNm: nearNm };
 }
 
-const centreOf = (f: FilterSpec) => ('centerNm' in f ? f.centerNm : 'edgeNm' in f ? f.edgeNm : f.points.length ? f.points[Math.floor(f.points.length / 2)][0] : 600);
+const centreOf = (f: FilterSpec) =>
+  'centerNm' in f
+    ? f.centerNm
+    : 'edgeNm' in f
+      ? f.edgeNm
+      : f.points.length
+        ? f.points[Math.floor(f.points.length / 2)][0]
+        : 600;
 
 @customElement('qdp-channel-card')
 export class ChannelCard extends LitElement {
@@ -32,63 +48,164 @@ export class ChannelCard extends LitElement {
   @property({ attribute: false }) errors: Record<string, string> = {};
 
   static override styles = css`
-    :host { display: block; border: 1px solid #ccd; border-radius: 6px; padding: 0.5rem 0.7rem; background: #fff; }
-    .row { display: flex; flex-wrap: wrap; gap: 0.5rem 0.8rem; align-items: flex-end; margin: 0.3rem 0; }
-    label.text { display: flex; flex-direction: column; font-size: 0.85rem; }
-    input[type='text'], select { font: inherit; padding: 0.2rem 0.3rem; border: 1px solid #889; border-radius: 3px; max-width: 100%; }
-    label.text { min-width: 0; max-width: 100%; }
-    :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
-    header { display: flex; justify-content: space-between; align-items: center; gap: 0.5rem; }
-    .filter { border-left: 3px solid #8a94a6; padding-left: 0.5rem; margin: 0.3rem 0; }
-    .bad { color: #8b1a1a; }
+    :host {
+      display: block;
+      border: 1px solid #ccd;
+      border-radius: 6px;
+      padding: 0.5rem 0.7rem;
+      background: #fff;
+    }
+    .row {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0.5rem 0.8rem;
+      align-items: flex-end;
+      margin: 0.3rem 0;
+    }
+    label.text {
+      display: flex;
+      flex-direction: column;
+      font-size: 0.85rem;
+    }
+    input[type='text'],
+    select {
+      font: inherit;
+      padding: 0.2rem 0.3rem;
+      border: 1px solid #889;
+      border-radius: 3px;
+      max-width: 100%;
+    }
+    label.text {
+      min-width: 0;
+      max-width: 100%;
+    }
+    :focus-visible {
+      outline: 3px solid #1a56db;
+      outline-offset: 1px;
+    }
+    header {
+      display: flex;
+      justify-content: space-between;
+      align-items: center;
+      gap: 0.5rem;
+    }
+    .filter {
+      border-left: 3px solid #8a94a6;
+      padding-left: 0.5rem;
+      margin: 0.3rem 0;
+    }
+    .bad {
+      color: #8b1a1a;
+    }
   `;
 
   private change(channel: ChannelSpec): void {
-    this.dispatchEvent(new CustomEvent('channel-change', { detail: { index: this.index, channel }, bubbles: true, composed: true }));
+    this.dispatchEvent(
+      new CustomEvent('channel-change', { detail: { index: this.index, channel }, bubbles: true, composed: true }),
+    );
   }
 
   private setFilter(j: number, filter: FilterSpec | null): void {
-    const filters = filter === null ? this.channel.filters.filter((_, k) => k !== j) : this.channel.filters.map((f, k) => (k === j ? filter : f));
+    const filters =
+      filter === null
+        ? this.channel.filters.filter((_, k) => k !== j)
+        : this.channel.filters.map((f, k) => (k === j ? filter : f));
     this.change({ ...this.channel, filters });
   }
 
   private num(j: number, f: FilterSpec, key: 'centerNm' | 'widthNm' | 'edgeNm', label: string) {
-    return html`<qdp-number-field .label=${label} unit="nm" .value=${(f as Record<string, unknown>)[key] as number} data-field=${`filters.${j}.${key}`}
-      .error=${this.errors[`filters.${j}.${key}`] ?? ''} @value-change=${(e: CustomEvent<{ value?: number }>) => e.detail.value !== undefined && this.setFilter(j, { ...f, [key]: e.detail.value } as FilterSpec)}></qdp-number-field>`;
+    return html`<qdp-number-field
+      .label=${label}
+      unit="nm"
+      .value=${(f as Record<string, unknown>)[key] as number}
+      data-field=${`filters.${j}.${key}`}
+      .error=${this.errors[`filters.${j}.${key}`] ?? ''}
+      @value-change=${(e: CustomEvent<{ value?: number }>) => e.detail.value !== undefined && this.setFilter(j, { ...f, [key]: e.detail.value } as FilterSpec)}
+    ></qdp-number-field>`;
   }
 
   private filterRow(f: FilterSpec, j: number) {
     const kind = (f.type === 'dichroic' ? 'longpass' : f.type) as FilterKind;
-    return html`<div class="filter" aria-label=${`Filter ${j + 1}: ${describeFilter(f)}`}><div class="row">
-      <label class="text">Filter ${j + 1} <select @change=${(e: Event) => this.setFilter(j, filterOfKind((e.target as HTMLSelectElement).value as FilterKind, centreOf(f)))}>
-        ${(['bandpass', 'longpass', 'shortpass', 'table'] as const).map((k) => html`<option value=${k} ?selected=${k === kind}>${k === 'table' ? 'measured table' : k}</option>`)}
-      </select></label>
-      ${f.type === 'bandpass' ? html`${this.num(j, f, 'centerNm', 'Centre')}${this.num(j, f, 'widthNm', 'Width (FWHM)')}` : ''}
-      ${f.type === 'longpass' || f.type === 'shortpass' || f.type === 'dichroic' ? this.num(j, f, 'edgeNm', 'Edge') : ''}
-      ${f.type === 'table' ? html`<span>${describeFilter(f)}</span>` : ''}
-      ${this.channel.filters.length > 1 ? html`<button type="button" @click=${() => this.setFilter(j, null)}>Remove filter</button>` : ''}
-    </div>
-    ${f.type === 'table' ? html`<qdp-spectrum-input kind="transmission" label="filter transmission" @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.setFilter(j, { type: 'table', points: e.detail.points })}></qdp-spectrum-input>` : ''}
-    ${this.errors[`filters.${j}`] ? html`<p class="bad" role="alert">${this.errors[`filters.${j}`]}</p>` : ''}</div>`;
+    return html`<div class="filter" aria-label=${`Filter ${j + 1}: ${describeFilter(f)}`}>
+      <div class="row">
+        <label class="text"
+          >Filter ${j + 1}
+          <select
+            @change=${(e: Event) => this.setFilter(j, filterOfKind((e.target as HTMLSelectElement).value as FilterKind, centreOf(f)))}
+          >
+            ${(['bandpass', 'longpass', 'shortpass', 'table'] as const).map((k) => html`<option value=${k} ?selected=${k === kind}>${k === 'table' ? 'measured table' : k}</option>`)}
+          </select></label
+        >
+        ${f.type === 'bandpass' ? html`${this.num(j, f, 'centerNm', 'Centre')}${this.num(j, f, 'widthNm', 'Width (FWHM)')}` : ''}
+        ${f.type === 'longpass' || f.type === 'shortpass' || f.type === 'dichroic' ? this.num(j, f, 'edgeNm', 'Edge') : ''}
+        ${f.type === 'table' ? html`<span>${describeFilter(f)}</span>` : ''}
+        ${this.channel.filters.length > 1 ? html`<button type="button" @click=${() => this.setFilter(j, null)}>Remove filter</button>` : ''}
+      </div>
+      ${f.type === 'table' ? html`<qdp-spectrum-input kind="transmission" label="filter transmission" @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.setFilter(j, { type: 'table', points: e.detail.points })}></qdp-spectrum-input>` : ''}
+      ${this.errors[`filters.${j}`] ? html`<p class="bad" role="alert">${this.errors[`filters.${j}`]}</p>` : ''}
+    </div>`;
   }
 
   override render() {
     const c = this.channel;
-    const ex = c.excitationNm === undefined ? 'all' : String(Array.isArray(c.excitationNm) ? c.excitationNm[0] : c.excitationNm);
-    return html`
-      <header><strong>${c.label || c.id}</strong>
-        <button type="button" aria-label=${`Remove channel ${c.label || c.id}`} @click=${() => this.dispatchEvent(new CustomEvent('channel-remove', { detail: { index: this.index }, bubbles: true, composed: true }))}>Remove</button></header>
+    const ex =
+      c.excitationNm === undefined ? 'all' : String(Array.isArray(c.excitationNm) ? c.excitationNm[0] : c.excitationNm);
+    return html` <header>
+        <strong>${c.label || c.id}</strong>
+        <button
+          type="button"
+          aria-label=${`Remove channel ${c.label || c.id}`}
+          @click=${() => this.dispatchEvent(new CustomEvent('channel-remove', { detail: { index: this.index }, bubbles: true, composed: true }))}
+        >
+          Remove
+        </button>
+      </header>
       <div class="row">
-        <label class="text">Label <input type="text" .value=${c.label ?? ''} @change=${(e: Event) => this.change({ ...c, label: (e.target as HTMLInputElement).value })} /></label>
-        <label class="text">Excitation on <select @change=${(e: Event) => { const v = (e.target as HTMLSelectElement).value; const next = { ...c }; if (v === 'all') delete next.excitationNm; else next.excitationNm = Number(v); this.change(next); }}>
-          <option value="all" ?selected=${ex === 'all'}>all lines</option>
-          ${this.lines.map((l) => html`<option value=${l} ?selected=${ex === String(l)}>${l} nm</option>`)}</select></label>
-        <label class="text">Detector <select @change=${(e: Event) => { const v = (e.target as HTMLSelectElement).value; const next = { ...c }; if (v) next.detector = v; else delete next.detector; this.change(next); }}>
-          <option value="" ?selected=${!c.detector}>ideal (QE 1)</option>
-          ${this.detectors.map((d) => html`<option value=${d.id} ?selected=${d.id === c.detector}>${d.name}</option>`)}</select></label>
+        <label class="text"
+          >Label
+          <input
+            type="text"
+            .value=${c.label ?? ''}
+            @change=${(e: Event) => this.change({ ...c, label: (e.target as HTMLInputElement).value })}
+        /></label>
+        <label class="text"
+          >Excitation on
+          <select
+            @change=${(e: Event) => {
+              const v = (e.target as HTMLSelectElement).value;
+              const next = { ...c };
+              if (v === 'all') delete next.excitationNm;
+              else next.excitationNm = Number(v);
+              this.change(next);
+            }}
+          >
+            <option value="all" ?selected=${ex === 'all'}>all lines</option>
+            ${this.lines.map((l) => html`<option value=${l} ?selected=${ex === String(l)}>${l} nm</option>`)}
+          </select></label
+        >
+        <label class="text"
+          >Detector
+          <select
+            @change=${(e: Event) => {
+              const v = (e.target as HTMLSelectElement).value;
+              const next = { ...c };
+              if (v) next.detector = v;
+              else delete next.detector;
+              this.change(next);
+            }}
+          >
+            <option value="" ?selected=${!c.detector}>ideal (QE 1)</option>
+            ${this.detectors.map((d) => html`<option value=${d.id} ?selected=${d.id === c.detector}>${d.name}</option>`)}
+          </select></label
+        >
       </div>
       ${c.filters.map((f, j) => this.filterRow(f, j))}
-      <button type="button" @click=${() => this.change({ ...c, filters: [...c.filters, { type: 'longpass', edgeNm: 500 }] })}>Add filter to this channel</button>
+      <button
+        type="button"
+        @click=${() => this.change({ ...c, filters: [...c.filters, { type: 'longpass', edgeNm: 500 }] })}
+      >
+        Add filter to this channel
+      </button>
       ${this.errors[''] ? html`<p class="bad" role="alert">${this.errors['']}</p>` : ''}`;
   }
 }

@@ -20,11 +20,30 @@ export class ChannelList extends LitElement {
   @state() private run = { startNm: 480, bins: 16, binWidthNm: 10 };
 
   static override styles = css`
-    :host { display: block; }
-    .cards { display: grid; grid-template-columns: minmax(0, 1fr); gap: 0.6rem; }
-    fieldset { border: 1px solid #ccd; border-radius: 6px; margin-top: 0.6rem; display: flex; flex-wrap: wrap; gap: 0.5rem; align-items: flex-end; }
-    :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
-    .note { font-size: 0.85rem; }
+    :host {
+      display: block;
+    }
+    .cards {
+      display: grid;
+      grid-template-columns: minmax(0, 1fr);
+      gap: 0.6rem;
+    }
+    fieldset {
+      border: 1px solid #ccd;
+      border-radius: 6px;
+      margin-top: 0.6rem;
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0.5rem;
+      align-items: flex-end;
+    }
+    :focus-visible {
+      outline: 3px solid #1a56db;
+      outline-offset: 1px;
+    }
+    .note {
+      font-size: 0.85rem;
+    }
   `;
 
   private fire(name: string, detail?: unknown): void {
@@ -38,18 +57,38 @@ export class ChannelList extends LitElement {
     const room = Math.max(0, this.maxChannels - panel.channels.length);
     const { startNm, bins, binWidthNm } = this.run;
     // The run must fit the API's wavelength range (200–2000 nm) as well as the channel limit.
-    const runFits = Number.isInteger(bins) && bins >= 1 && bins <= room && binWidthNm > 0 && startNm >= 200 && startNm + bins * binWidthNm <= 2000;
+    const runFits =
+      Number.isInteger(bins) &&
+      bins >= 1 &&
+      bins <= room &&
+      binWidthNm > 0 &&
+      startNm >= 200 &&
+      startNm + bins * binWidthNm <= 2000;
     const set = (k: keyof typeof this.run) => (e: CustomEvent<{ value?: number }>) => {
       if (e.detail.value !== undefined) this.run = { ...this.run, [k]: e.detail.value };
     };
-    return html`<div class="cards">${panel.channels.map((c, i) => html`<qdp-channel-card .channel=${c} .index=${i} .lines=${lines} .detectors=${this.detectors} .errors=${this.errors[i] ?? {}}></qdp-channel-card>`)}</div>
+    return html`<div class="cards">
+        ${panel.channels.map((c, i) => html`<qdp-channel-card .channel=${c} .index=${i} .lines=${lines} .detectors=${this.detectors} .errors=${this.errors[i] ?? {}}></qdp-channel-card>`)}
+      </div>
       <button type="button" ?disabled=${room < 1} @click=${() => this.fire('channel-add')}>Add channel</button>
-      <fieldset><legend>Add a spectral detector run</legend>
-        <qdp-number-field label="From" unit="nm" .value=${this.run.startNm} @value-change=${set('startNm')}></qdp-number-field>
+      <fieldset>
+        <legend>Add a spectral detector run</legend>
+        <qdp-number-field
+          label="From"
+          unit="nm"
+          .value=${this.run.startNm}
+          @value-change=${set('startNm')}
+        ></qdp-number-field>
         <qdp-number-field label="Bins" .value=${this.run.bins} @value-change=${set('bins')}></qdp-number-field>
-        <qdp-number-field label="Bin width" unit="nm" .value=${this.run.binWidthNm} @value-change=${set('binWidthNm')}></qdp-number-field>
-        <button type="button" ?disabled=${!runFits}
-          @click=${() => this.fire('spectral-run', { ...this.run })}>Add ${this.run.bins} × ${this.run.binWidthNm} nm bins</button>
+        <qdp-number-field
+          label="Bin width"
+          unit="nm"
+          .value=${this.run.binWidthNm}
+          @value-change=${set('binWidthNm')}
+        ></qdp-number-field>
+        <button type="button" ?disabled=${!runFits} @click=${() => this.fire('spectral-run', { ...this.run })}>
+          Add ${this.run.bins} × ${this.run.binWidthNm} nm bins
+        </button>
         <span class="note">${room} more channel${room === 1 ? '' : 's'} allowed (at most ${this.maxChannels}).</span>
       </fieldset>`;
   }

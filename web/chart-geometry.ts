@@ -37,24 +37,42 @@ export function chartGeometry(
   widthPx: number,
   heightPx: number,
 ): ChartGeometry {
-  const x = scaleLinear().domain(domainNm).range([MARGIN.left, Math.max(MARGIN.left + 10, widthPx - MARGIN.right)]);
+  const x = scaleLinear()
+    .domain(domainNm)
+    .range([MARGIN.left, Math.max(MARGIN.left + 10, widthPx - MARGIN.right)]);
   let maxValue = 0;
   for (const c of [...curves.map((c) => c.spectrum), ...(background ? [background] : [])]) {
     for (let i = 0; i < c.values.length; i++) if (c.values[i] > maxValue) maxValue = c.values[i];
   }
-  const yEmission = scaleLinear().domain([0, maxValue > 0 ? maxValue * 1.05 : 1]).range([heightPx - MARGIN.bottom, MARGIN.top]);
-  const yTransmission = scaleLinear().domain([0, 1]).range([heightPx - MARGIN.bottom, MARGIN.top]);
+  const yEmission = scaleLinear()
+    .domain([0, maxValue > 0 ? maxValue * 1.05 : 1])
+    .range([heightPx - MARGIN.bottom, MARGIN.top]);
+  const yTransmission = scaleLinear()
+    .domain([0, 1])
+    .range([heightPx - MARGIN.bottom, MARGIN.top]);
   // Sample a 1 nm grid at most once per px: keeps paths short on a phone.
   const stride = (c: GridCurve) => Math.max(1, Math.floor((domainNm[1] - domainNm[0]) / c.stepNm / widthPx));
-  const curveLine = line<[number, number]>().x((d) => x(d[0])).y((d) => yEmission(d[1]));
-  const bandArea = area<[number, number]>().x((d) => x(d[0])).y0(yTransmission(0)).y1((d) => yTransmission(d[1]));
-  const bgArea = area<[number, number]>().x((d) => x(d[0])).y0(yEmission(0)).y1((d) => yEmission(d[1]));
+  const curveLine = line<[number, number]>()
+    .x((d) => x(d[0]))
+    .y((d) => yEmission(d[1]));
+  const bandArea = area<[number, number]>()
+    .x((d) => x(d[0]))
+    .y0(yTransmission(0))
+    .y1((d) => yTransmission(d[1]));
+  const bgArea = area<[number, number]>()
+    .x((d) => x(d[0]))
+    .y0(yEmission(0))
+    .y1((d) => yEmission(d[1]));
   return {
     x,
     yEmission,
     yTransmission,
     curvePaths: curves.map((c) => curveLine(pointsOf(c.spectrum, domainNm[0], domainNm[1], stride(c.spectrum))) ?? ''),
-    passbandPaths: passbands.map((p) => bandArea(pointsOf(p.transmission, domainNm[0], domainNm[1], stride(p.transmission))) ?? ''),
-    backgroundPath: background ? bgArea(pointsOf(background, domainNm[0], domainNm[1], stride(background))) ?? '' : '',
+    passbandPaths: passbands.map(
+      (p) => bandArea(pointsOf(p.transmission, domainNm[0], domainNm[1], stride(p.transmission))) ?? '',
+    ),
+    backgroundPath: background
+      ? (bgArea(pointsOf(background, domainNm[0], domainNm[1], stride(background))) ?? '')
+      : '',
   };
 }

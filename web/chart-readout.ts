@@ -6,8 +6,14 @@ import { curveAtNm, type ChartCurve, type ChartPassband, type GridCurve } from '
 const fmt = (v: number) => (v === 0 ? '0' : Math.abs(v) < 0.001 ? v.toExponential(1) : v.toPrecision(3));
 
 /** One line of text for the readout; a hint when the pointer is away. */
-export function chartReadout(hoverNm: number | null, curves: readonly ChartCurve[], passbands: readonly ChartPassband[], background?: GridCurve): string {
-  if (hoverNm === null) return 'Point at the chart (or focus it and use the arrow keys) to read values at a wavelength.';
+export function chartReadout(
+  hoverNm: number | null,
+  curves: readonly ChartCurve[],
+  passbands: readonly ChartPassband[],
+  background?: GridCurve,
+): string {
+  if (hoverNm === null)
+    return 'Point at the chart (or focus it and use the arrow keys) to read values at a wavelength.';
   const parts = [`${hoverNm} nm`];
   for (const c of curves) parts.push(`${c.label}: ${fmt(curveAtNm(c.spectrum, hoverNm))}`);
   if (background) parts.push(`background: ${fmt(curveAtNm(background, hoverNm))}`);

@@ -17,7 +17,8 @@ function lobe(wavelengthNm: number, meanNm: number, sigmaBelowNm: number, sigmaA
  */
 export function cie1931Cmf(wavelengthNm: number): [number, number, number] {
   const l = wavelengthNm;
-  const x = 1.056 * lobe(l, 599.8, 37.9, 31.0) + 0.362 * lobe(l, 442.0, 16.0, 26.7) - 0.065 * lobe(l, 501.1, 20.4, 26.2);
+  const x =
+    1.056 * lobe(l, 599.8, 37.9, 31.0) + 0.362 * lobe(l, 442.0, 16.0, 26.7) - 0.065 * lobe(l, 501.1, 20.4, 26.2);
   const y = 0.821 * lobe(l, 568.8, 46.9, 40.5) + 0.286 * lobe(l, 530.9, 16.3, 31.1);
   const z = 1.217 * lobe(l, 437.0, 11.8, 36.0) + 0.681 * lobe(l, 459.0, 26.0, 13.8);
   return [x, y, z];
@@ -64,7 +65,10 @@ export const NIR_COLOR = '#4a4a4a';
 export function wavelengthToCss(peakNm: number): string {
   if (!Number.isFinite(peakNm)) return NIR_COLOR;
   if (isNearInfrared(peakNm)) return NIR_COLOR;
-  const hex = (v: number) => Math.round(v * 255).toString(16).padStart(2, '0');
+  const hex = (v: number) =>
+    Math.round(v * 255)
+      .toString(16)
+      .padStart(2, '0');
   const [r, g, b] = wavelengthToDisplayRgb(peakNm);
   return `#${hex(r)}${hex(g)}${hex(b)}`;
 }

@@ -2,7 +2,17 @@
  * The page's local computation: evaluatePanel from the spectral library, turned into what the chart, the crosstalk
  * tables and the probe read-outs show. Runs on every edit; a bad input gives the library's error with its field path.
  */
-import { buildPanelModel, DEFAULT_GRID, evaluatePanel, listDetectors, listMaterials, predictUnmixingNoise, SpectraError, type PanelEvaluation, type PanelSpec } from '../spectra/index';
+import {
+  buildPanelModel,
+  DEFAULT_GRID,
+  evaluatePanel,
+  listDetectors,
+  listMaterials,
+  predictUnmixingNoise,
+  SpectraError,
+  type PanelEvaluation,
+  type PanelSpec,
+} from '../spectra/index';
 import type { ChartCurve, ChartHandle, ChartPassband, GridCurve } from './chart-types';
 import type { CrosstalkView, ShotNoiseView } from './crosstalk-view';
 import type { ResolvedForSheet } from './csv-export';
@@ -28,11 +38,13 @@ const grid = DEFAULT_GRID;
 /** Handles of a channel's editable filters (bandpass edges at centre ∓ width/2, edge filters at their edge). */
 function handlesOf(panel: PanelSpec, c: number): ChartHandle[] {
   return panel.channels[c].filters.flatMap((f, j): ChartHandle[] => {
-    if (f.type === 'bandpass') return [
-      { channelIndex: c, filterIndex: j, edge: 'low', wavelengthNm: f.centerNm - f.widthNm / 2 },
-      { channelIndex: c, filterIndex: j, edge: 'high', wavelengthNm: f.centerNm + f.widthNm / 2 },
-    ];
-    if (f.type === 'longpass' || f.type === 'shortpass' || f.type === 'dichroic') return [{ channelIndex: c, filterIndex: j, edge: 'edge', wavelengthNm: f.edgeNm }];
+    if (f.type === 'bandpass')
+      return [
+        { channelIndex: c, filterIndex: j, edge: 'low', wavelengthNm: f.centerNm - f.widthNm / 2 },
+        { channelIndex: c, filterIndex: j, edge: 'high', wavelengthNm: f.centerNm + f.widthNm / 2 },
+      ];
+    if (f.type === 'longpass' || f.type === 'shortpass' || f.type === 'dichroic')
+      return [{ channelIndex: c, filterIndex: j, edge: 'edge', wavelengthNm: f.edgeNm }];
     return [];
   });
 }
@@ -40,13 +52,15 @@ function handlesOf(panel: PanelSpec, c: number): ChartHandle[] {
 /** Interference t→u = collected[primary(u)][t] / collected[primary(u)][u] (api-v1, "worst"). */
 function interferenceOf(ev: PanelEvaluation): (number | null)[][] {
   const n = ev.probes.length;
-  return Array.from({ length: n }, (_, t) => Array.from({ length: n }, (_, u) => {
-    const c = ev.primaryChannel[u];
-    if (c === null) return null;
-    const own = ev.collected[c][u];
-    const v = ev.collected[c][t] / own;
-    return own > 0 && Number.isFinite(v) ? v : null;
-  }));
+  return Array.from({ length: n }, (_, t) =>
+    Array.from({ length: n }, (_, u) => {
+      const c = ev.primaryChannel[u];
+      if (c === null) return null;
+      const own = ev.collected[c][u];
+      const v = ev.collected[c][t] / own;
+      return own > 0 && Number.isFinite(v) ? v : null;
+    }),
+  );
 }
 
 /**
@@ -70,7 +84,9 @@ function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | nul
   if (!(k > 0 && Number.isFinite(k))) return null;
   try {
     const noise = predictUnmixingNoise({
-      mixingPhotons: ev.collected.map((row) => row.map((x) => x * k)), abundance, primaryChannel: prim,
+      mixingPhotons: ev.collected.map((row) => row.map((x) => x * k)),
+      abundance,
+      primaryChannel: prim,
       backgroundPhotons: ev.backgroundCollected?.map((b) => b * k),
     });
     const relativeSd = noise.sd.map((s, p) => (s !== null && abundance[p] > 0 ? s / abundance[p] : null));
@@ -97,7 +113,10 @@ const maxOf = (values: ArrayLike<number>) => {
  * curve is its unit-area emission × brightness × abundance (the photons it sends, as in the signal model) and the
  * background is in the same units; otherwise each curve peaks at 1 and the background keeps its ratio to the brightest.
  */
-export function computePanel(panel: PanelSpec, options: { byBrightness: boolean }): { ok: true; value: Computed } | { ok: false; error: FieldError } {
+export function computePanel(
+  panel: PanelSpec,
+  options: { byBrightness: boolean },
+): { ok: true; value: Computed } | { ok: false; error: FieldError } {
   let ev: PanelEvaluation;
   let model: ReturnType<typeof buildPanelModel>;
   try {
@@ -105,17 +124,30 @@ export function computePanel(panel: PanelSpec, options: { byBrightness: boolean 
     model = buildPanelModel(panel, grid);
   } catch (e) {
     if (e instanceof SpectraError) return { ok: false, error: { message: e.message, path: e.path } };
-    return { ok: false, error: { message: `The panel could not be computed: ${e instanceof Error ? e.message : String(e)}`, path: [] } };
+    return {
+      ok: false,
+      error: { message: `The panel could not be computed: ${e instanceof Error ? e.message : String(e)}`, path: [] },
+    };
   }
   const photons = ev.probes.map((d) => d.brightness);
   const signalCurves = model.dots.map((d, j) => d.emission.values.map((v) => v * photons[j]));
   const tallest = Math.max(1e-300, ...signalCurves.map(maxOf));
   const curves: ChartCurve[] = model.dots.map((d, j) => {
-    const values = options.byBrightness ? signalCurves[j].map((v) => v / tallest) : d.emission.values.map((v) => v / Math.max(1e-300, maxOf(d.emission.values)));
-    return { id: panel.probes[j].id, label: panel.probes[j].label || panel.probes[j].id, peakNm: d.emissionPeakNm, spectrum: { startNm: grid.startNm, stepNm: grid.stepNm, values } };
+    const values = options.byBrightness
+      ? signalCurves[j].map((v) => v / tallest)
+      : d.emission.values.map((v) => v / Math.max(1e-300, maxOf(d.emission.values)));
+    return {
+      id: panel.probes[j].id,
+      label: panel.probes[j].label || panel.probes[j].id,
+      peakNm: d.emissionPeakNm,
+      spectrum: { startNm: grid.startNm, stepNm: grid.stepNm, values },
+    };
   });
   const passbands: ChartPassband[] = panel.channels.map((c, i) => ({
-    id: c.id, label: c.label || c.id, handles: handlesOf(panel, i), transmission: { startNm: grid.startNm, stepNm: grid.stepNm, values: model.transmissions[i] },
+    id: c.id,
+    label: c.label || c.id,
+    handles: handlesOf(panel, i),
+    transmission: { startNm: grid.startNm, stepNm: grid.stepNm, values: model.transmissions[i] },
   }));
   let background: GridCurve | undefined;
   if (model.background) {
@@ -136,15 +168,39 @@ export function computePanel(panel: PanelSpec, options: { byBrightness: boolean 
     conditionNumber: ev.conditionNumber,
     shotNoise: shotNoiseOf(ev, panel),
     signalToBackground: ev.signalToBackground,
-    lotShift: lot && wi ? { shiftNm: lot.shiftNm, baseline: lot.baseline.worstInterference, worst: wi.interference, shiftedProbe: wi.shiftedProbe, signedShiftNm: wi.shiftNm, from: wi.from, into: wi.into } : null,
+    lotShift:
+      lot && wi
+        ? {
+            shiftNm: lot.shiftNm,
+            baseline: lot.baseline.worstInterference,
+            worst: wi.interference,
+            shiftedProbe: wi.shiftedProbe,
+            signedShiftNm: wi.shiftNm,
+            from: wi.from,
+            into: wi.into,
+          }
+        : null,
     worst: ev.worst,
     warnings: ev.warnings,
   };
   const maxBright = Math.max(0, ...ev.probes.map((d) => d.brightnessPerAbundance));
   const predictions: ProbePrediction[] = ev.probes.map((d) => ({
-    diameterNm: d.diameterNm, firstExcitonNm: d.firstExcitonNm, emissionPeakNm: d.emissionPeakNm, fwhmNm: d.fwhmNm,
-    relativeBrightness: maxBright > 0 ? d.brightnessPerAbundance / maxBright : 0, measured: d.measured.emission, warnings: d.warnings,
+    diameterNm: d.diameterNm,
+    firstExcitonNm: d.firstExcitonNm,
+    emissionPeakNm: d.emissionPeakNm,
+    fwhmNm: d.fwhmNm,
+    relativeBrightness: maxBright > 0 ? d.brightnessPerAbundance / maxBright : 0,
+    measured: d.measured.emission,
+    warnings: d.warnings,
   }));
-  const resolved = ev.probes.map((d) => ({ diameterNm: d.diameterNm, emissionPeakNm: d.emissionPeakNm, fwhmNm: d.fwhmNm, firstExcitonNm: d.firstExcitonNm }));
-  return { ok: true, value: { evaluation: ev, chart: { curves, passbands, background }, crosstalk, predictions, resolved } };
+  const resolved = ev.probes.map((d) => ({
+    diameterNm: d.diameterNm,
+    emissionPeakNm: d.emissionPeakNm,
+    fwhmNm: d.fwhmNm,
+    firstExcitonNm: d.firstExcitonNm,
+  }));
+  return {
+    ok: true,
+    value: { evaluation: ev, chart: { curves, passbands, background }, crosstalk, predictions, resolved },
+  };
 }

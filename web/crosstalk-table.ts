@@ -25,7 +25,8 @@ function shotLine(v: CrosstalkView, j: number): string {
   return ` With shot noise (${s.photons.toLocaleString('en-US')} photons for the brightest target): SD ${sig2(sd)} of its signal${f === null || f === undefined ? '' : `, ${times(f)} the SD it would have alone`}.`;
 }
 
-const times = (v: number | null) => (v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`);
+const times = (v: number | null) =>
+  v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`;
 
 @customElement('qdp-crosstalk-table')
 export class CrosstalkTable extends LitElement {
@@ -34,20 +35,64 @@ export class CrosstalkTable extends LitElement {
   /** True while the shown numbers belong to an earlier, valid version of the panel (the current one has an error). */
   @property({ type: Boolean }) stale = false;
 
-  static override styles = [unsafeCSS(shadeRules), css`
-    :host { display: block; font-size: 0.9rem; }
-    .scroll { overflow: auto; max-width: 100%; max-height: 28rem; border: 1px solid #ccd; }
-    table { border-collapse: collapse; }
-    th, td { padding: 0.25rem 0.45rem; border: 1px solid #dde; text-align: right; white-space: nowrap; }
-    th { background: #f3f4f8; font-weight: 600; position: sticky; top: 0; }
-    th[scope='row'] { text-align: left; position: sticky; left: 0; }
-    td.self { color: #666; background: #fff; }
-    .many td, .many th { padding: 0.1rem 0.3rem; font-size: 0.8rem; }
-    .worst { font-weight: 600; }
-    .stale { color: #8a4b00; }
-    ul { padding-left: 1.2rem; }
-    h3 { font-size: 1rem; margin: 1rem 0 0.4rem; }
-  `];
+  static override styles = [
+    unsafeCSS(shadeRules),
+    css`
+      :host {
+        display: block;
+        font-size: 0.9rem;
+      }
+      .scroll {
+        overflow: auto;
+        max-width: 100%;
+        max-height: 28rem;
+        border: 1px solid #ccd;
+      }
+      table {
+        border-collapse: collapse;
+      }
+      th,
+      td {
+        padding: 0.25rem 0.45rem;
+        border: 1px solid #dde;
+        text-align: right;
+        white-space: nowrap;
+      }
+      th {
+        background: #f3f4f8;
+        font-weight: 600;
+        position: sticky;
+        top: 0;
+      }
+      th[scope='row'] {
+        text-align: left;
+        position: sticky;
+        left: 0;
+      }
+      td.self {
+        color: #666;
+        background: #fff;
+      }
+      .many td,
+      .many th {
+        padding: 0.1rem 0.3rem;
+        font-size: 0.8rem;
+      }
+      .worst {
+        font-weight: 600;
+      }
+      .stale {
+        color: #8a4b00;
+      }
+      ul {
+        padding-left: 1.2rem;
+      }
+      h3 {
+        font-size: 1rem;
+        margin: 1rem 0 0.4rem;
+      }
+    `,
+  ];
 
   override render() {
     const v = this.view;
@@ -56,41 +101,118 @@ export class CrosstalkTable extends LitElement {
     const many = v.channels.length > 12;
     return html`
       ${this.stale ? html`<p class="stale" role="status">These numbers are from the last valid panel; fix the marked field to update them.</p>` : ''}
-      <p class="worst">${v.worst?.from && v.worst.into && v.worst.interference !== null
-        ? html`Worst pair: ${label(v.worst.from)} adds ${formatFraction(v.worst.interference)} of ${label(v.worst.into)}'s own signal in ${label(v.worst.into)}'s channel.`
-        : 'No pair of probes could be compared yet.'}</p>
+      <p class="worst">
+        ${
+          v.worst?.from && v.worst.into && v.worst.interference !== null
+            ? html`Worst pair: ${label(v.worst.from)} adds ${formatFraction(v.worst.interference)} of
+              ${label(v.worst.into)}'s own signal in ${label(v.worst.into)}'s channel.`
+            : 'No pair of probes could be compared yet.'
+        }
+      </p>
       <h3>Crosstalk between probes</h3>
-      <p>Row: whose light; column: the probe whose primary channel it lands in, relative to that probe's own signal there.</p>
-      <div class="scroll"><table aria-label="Crosstalk between probes">
-        <thead><tr><th scope="col">light from ↓ / into →</th>${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}</tr></thead>
-        <tbody>${v.probes.map((from, t) => html`<tr><th scope="row">${from.label}</th>
-          ${v.probes.map((_, u) => (t === u ? html`<td class="self">own</td>` : html`<td class=${cellClass(v.interference[t]?.[u] ?? null)}>${formatFraction(v.interference[t]?.[u])}</td>`))}</tr>`)}
-        </tbody></table></div>
+      <p>
+        Row: whose light; column: the probe whose primary channel it lands in, relative to that probe's own signal
+        there.
+      </p>
+      <div class="scroll">
+        <table aria-label="Crosstalk between probes">
+          <thead>
+            <tr>
+              <th scope="col">light from ↓ / into →</th>
+              ${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}
+            </tr>
+          </thead>
+          <tbody>
+            ${v.probes.map(
+              (from, t) =>
+                html`<tr>
+                  <th scope="row">${from.label}</th>
+                  ${v.probes.map((_, u) => (t === u ? html`<td class="self">own</td>` : html`<td class=${cellClass(v.interference[t]?.[u] ?? null)}>${formatFraction(v.interference[t]?.[u])}</td>`))}
+                </tr>`,
+            )}
+          </tbody>
+        </table>
+      </div>
       <h3>Unmixing noise</h3>
-      <ul>${v.probes.map((p, j) => html`<li>${p.label}: ${v.noiseAmplification[j] === null
-        ? 'cannot be unmixed from the others with these channels (see warnings).'
-        : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`}<span class="shot">${shotLine(v, j)}</span></li>`)}</ul>
-      ${v.shotNoise ? html`<p class="shot-note">The first figure assumes equal noise in every channel whatever its light; the second counts photons:
-        each channel's shot noise grows with all the light it collects${v.shotNoise.withBackground ? ' (background included)' : ''}, so a dim target beside a bright neighbour suffers most.
-        "Alone" is the same target as the only probe, read in its own channel. The photon budget is nominal: the SDs scale as 1/√photons, the factors do not.</p>` : ''}
-      <p>Condition number ${v.conditionNumber === null ? '— (the channels cannot separate every probe)' : times(v.conditionNumber).replace('×', '')}: the worst-case bound;
-        a relative error in the measurements can grow by up to this factor in the unmixed amounts.</p>
-      ${v.lotShift ? html`<p class="lot">Lot-to-lot shift (±${v.lotShift.shiftNm} nm): the worst crosstalk is ${formatFraction(v.lotShift.baseline)} now and can reach
-        ${formatFraction(v.lotShift.worst)} if ${label(v.lotShift.shiftedProbe)} comes ${Math.abs(v.lotShift.signedShiftNm)} nm ${v.lotShift.signedShiftNm > 0 ? 'redder' : 'bluer'}
-        (${label(v.lotShift.from)} into ${label(v.lotShift.into)}).</p>` : ''}
+      <ul>
+        ${v.probes.map(
+          (p, j) =>
+            html`<li>
+              ${p.label}:
+              ${
+                v.noiseAmplification[j] === null
+                  ? 'cannot be unmixed from the others with these channels (see warnings).'
+                  : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`
+              }<span class="shot">${shotLine(v, j)}</span>
+            </li>`,
+        )}
+      </ul>
+      ${
+        v.shotNoise
+          ? html`<p class="shot-note">
+              The first figure assumes equal noise in every channel whatever its light; the second counts photons: each
+              channel's shot noise grows with all the light it
+              collects${v.shotNoise.withBackground ? ' (background included)' : ''}, so a dim target beside a bright
+              neighbour suffers most. "Alone" is the same target as the only probe, read in its own channel. The photon
+              budget is nominal: the SDs scale as 1/√photons, the factors do not.
+            </p>`
+          : ''
+      }
+      <p>
+        Condition number
+        ${v.conditionNumber === null ? '— (the channels cannot separate every probe)' : times(v.conditionNumber).replace('×', '')}:
+        the worst-case bound; a relative error in the measurements can grow by up to this factor in the unmixed amounts.
+      </p>
+      ${
+        v.lotShift
+          ? html`<p class="lot">
+              Lot-to-lot shift (±${v.lotShift.shiftNm} nm): the worst crosstalk is
+              ${formatFraction(v.lotShift.baseline)} now and can reach ${formatFraction(v.lotShift.worst)} if
+              ${label(v.lotShift.shiftedProbe)} comes ${Math.abs(v.lotShift.signedShiftNm)} nm
+              ${v.lotShift.signedShiftNm > 0 ? 'redder' : 'bluer'} (${label(v.lotShift.from)} into
+              ${label(v.lotShift.into)}).
+            </p>`
+          : ''
+      }
       <h3>Spillover into each channel</h3>
-      <p>Each probe's light in a channel relative to its primary channel (marked ●). "&lt; 0.1 %": below the model's resolution, not a measured zero.</p>
-      <div class="scroll"><table class=${many ? 'many' : ''} aria-label="Spillover by channel">
-        <thead><tr><th scope="col">channel</th>${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}${v.signalToBackground ? html`<th scope="col">signal / background</th>` : ''}</tr></thead>
-        <tbody>${v.channels.map((c, ci) => html`<tr><th scope="row">${c.label}</th>
-          ${v.probes.map((_, p) => {
-            const primary = v.primaryChannel[p] === ci;
-            const below = v.belowResolution[ci]?.[p] ?? false;
-            return html`<td class=${cellClass(v.spillover[ci]?.[p] ?? null, below)}>${primary ? '● ' : ''}${below ? '< 0.1 %' : formatFraction(v.spillover[ci]?.[p])}</td>`;
-          })}
-          ${v.signalToBackground ? html`<td>${times(v.signalToBackground[ci] ?? null).replace('×', '')}</td>` : ''}</tr>`)}
-        </tbody></table></div>
-      ${v.warnings.length ? html`<h3>Warnings</h3><ul class="warnings">${v.warnings.map((w) => html`<li>${w}</li>`)}</ul>` : ''}
+      <p>
+        Each probe's light in a channel relative to its primary channel (marked ●). "&lt; 0.1 %": below the model's
+        resolution, not a measured zero.
+      </p>
+      <div class="scroll">
+        <table class=${many ? 'many' : ''} aria-label="Spillover by channel">
+          <thead>
+            <tr>
+              <th scope="col">channel</th>
+              ${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}${v.signalToBackground ? html`<th scope="col">signal / background</th>` : ''}
+            </tr>
+          </thead>
+          <tbody>
+            ${v.channels.map(
+              (c, ci) =>
+                html`<tr>
+                  <th scope="row">${c.label}</th>
+                  ${v.probes.map((_, p) => {
+                    const primary = v.primaryChannel[p] === ci;
+                    const below = v.belowResolution[ci]?.[p] ?? false;
+                    return html`<td class=${cellClass(v.spillover[ci]?.[p] ?? null, below)}>
+                      ${primary ? '● ' : ''}${below ? '< 0.1 %' : formatFraction(v.spillover[ci]?.[p])}
+                    </td>`;
+                  })}
+                  ${v.signalToBackground ? html`<td>${times(v.signalToBackground[ci] ?? null).replace('×', '')}</td>` : ''}
+                </tr>`,
+            )}
+          </tbody>
+        </table>
+      </div>
+      ${
+        v.warnings.length
+          ? html`<h3>Warnings</h3>
+              <ul class="warnings">
+                ${v.warnings.map((w) => html`<li>${w}</li>`)}
+              </ul>`
+          : ''
+      }
     `;
   }
 }

@@ -19,7 +19,15 @@ export interface CrosstalkView {
   /** Per channel, signal over sample background; absent when the background is off. */
   signalToBackground?: (number | null)[];
   /** Worst interference now and after the most harmful ±shiftNm move of one probe's emission (lot to lot), or null. */
-  lotShift: { shiftNm: number; baseline: number | null; worst: number | null; shiftedProbe: string; signedShiftNm: number; from: string; into: string } | null;
+  lotShift: {
+    shiftNm: number;
+    baseline: number | null;
+    worst: number | null;
+    shiftedProbe: string;
+    signedShiftNm: number;
+    from: string;
+    into: string;
+  } | null;
   worst: { from: string | null; into: string | null; interference: number | null } | null;
   warnings: string[];
 }

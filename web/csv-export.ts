@@ -33,13 +33,32 @@ export function orderingSheetCsv(panel: PanelSpec, resolved: readonly (ResolvedF
   rows.push(['panel', panel.title ?? '']);
   rows.push(['excitation lines nm', panel.excitation.map((e) => e.wavelengthNm).join(' + ')]);
   rows.push([]);
-  rows.push(['probe', 'label', 'target', 'material', 'core diameter nm', 'emission peak nm', 'FWHM nm', 'first exciton nm', 'quantum yield', 'relative abundance', 'spectrum']);
+  rows.push([
+    'probe',
+    'label',
+    'target',
+    'material',
+    'core diameter nm',
+    'emission peak nm',
+    'FWHM nm',
+    'first exciton nm',
+    'quantum yield',
+    'relative abundance',
+    'spectrum',
+  ]);
   panel.probes.forEach((p, i) => {
     const r = resolved[i] ?? {};
     rows.push([
-      p.id, p.label ?? '', p.target ?? '', p.material,
-      round(r.diameterNm ?? p.diameterNm, 2), round(r.emissionPeakNm ?? p.emissionPeakNm, 1), round(r.fwhmNm ?? p.fwhmNm, 1),
-      round(r.firstExcitonNm, 1), p.quantumYield ?? null, p.abundance ?? 1,
+      p.id,
+      p.label ?? '',
+      p.target ?? '',
+      p.material,
+      round(r.diameterNm ?? p.diameterNm, 2),
+      round(r.emissionPeakNm ?? p.emissionPeakNm, 1),
+      round(r.fwhmNm ?? p.fwhmNm, 1),
+      round(r.firstExcitonNm, 1),
+      p.quantumYield ?? null,
+      p.abundance ?? 1,
       p.measuredEmission ? 'measured' : 'model',
     ]);
   });

@@ -5,7 +5,14 @@
 import type { PanelSpec, SpectrumPoints } from '../spectra/index';
 
 /** A smooth, skewed invented curve (log-normal in wavelength) sampled every 5 nm: stands in for a measured spectrum. */
-function inventedCurve(peakNm: number, widthNm: number, skew: number, fromNm: number, toNm: number, peakValue: number): SpectrumPoints {
+function inventedCurve(
+  peakNm: number,
+  widthNm: number,
+  skew: number,
+  fromNm: number,
+  toNm: number,
+  peakValue: number,
+): SpectrumPoints {
   const out: SpectrumPoints = [];
   for (let nm = fromNm; nm <= toNm; nm += 5) {
     const x = Math.log((nm - fromNm + skew) / (peakNm - fromNm + skew));
@@ -23,15 +30,63 @@ export function demoPanel(): PanelSpec {
     excitation: [{ wavelengthNm: 405, powerRel: 1 }],
     probes: [
       {
-        id: 'p1', label: 'Counterstain', material: 'custom', target: 'nuclear DNA counterstain', abundance: 1, quantumYield: 0.4,
+        id: 'p1',
+        label: 'Counterstain',
+        material: 'custom',
+        target: 'nuclear DNA counterstain',
+        abundance: 1,
+        quantumYield: 0.4,
         measuredEmission: { points: inventedCurve(462, 38, 60, 400, 650, 1) },
         extinction: { points: inventedCurve(395, 45, 80, 300, 480, 60000) },
       },
-      { id: 'p2', label: 'Green dot', material: 'cdse', emissionPeakNm: 525, sizeDispersionPct: 5, quantumYield: 0.5, target: 'nuclear envelope marker', abundance: 1 },
-      { id: 'p3', label: 'Yellow dot', material: 'inp', emissionPeakNm: 570, quantumYield: 0.5, target: 'mitochondrial marker', abundance: 1 },
-      { id: 'p4', label: 'Orange dot', material: 'cdse', emissionPeakNm: 605, sizeDispersionPct: 5, quantumYield: 0.5, target: 'cytoskeleton marker', abundance: 1 },
-      { id: 'p5', label: 'Red dot', material: 'cdse', emissionPeakNm: 645, sizeDispersionPct: 6, quantumYield: 0.5, target: 'vessel wall marker (sparse)', abundance: 0.2 },
-      { id: 'p6', label: 'Far-red dot', material: 'cdte', emissionPeakNm: 705, quantumYield: 0.4, target: 'membrane marker', abundance: 1 },
+      {
+        id: 'p2',
+        label: 'Green dot',
+        material: 'cdse',
+        emissionPeakNm: 525,
+        sizeDispersionPct: 5,
+        quantumYield: 0.5,
+        target: 'nuclear envelope marker',
+        abundance: 1,
+      },
+      {
+        id: 'p3',
+        label: 'Yellow dot',
+        material: 'inp',
+        emissionPeakNm: 570,
+        quantumYield: 0.5,
+        target: 'mitochondrial marker',
+        abundance: 1,
+      },
+      {
+        id: 'p4',
+        label: 'Orange dot',
+        material: 'cdse',
+        emissionPeakNm: 605,
+        sizeDispersionPct: 5,
+        quantumYield: 0.5,
+        target: 'cytoskeleton marker',
+        abundance: 1,
+      },
+      {
+        id: 'p5',
+        label: 'Red dot',
+        material: 'cdse',
+        emissionPeakNm: 645,
+        sizeDispersionPct: 6,
+        quantumYield: 0.5,
+        target: 'vessel wall marker (sparse)',
+        abundance: 0.2,
+      },
+      {
+        id: 'p6',
+        label: 'Far-red dot',
+        material: 'cdte',
+        emissionPeakNm: 705,
+        quantumYield: 0.4,
+        target: 'membrane marker',
+        abundance: 1,
+      },
     ],
     channels: [
       { id: 'c1', label: 'Blue', filters: [{ type: 'bandpass', centerNm: 460, widthNm: 40 }], excitationNm: 405 },

@@ -6,7 +6,13 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { listMaterials, type DesignOptions, type DesignRequest, type DesignResult, type SearchProgress } from '../spectra/index';
+import {
+  listMaterials,
+  type DesignOptions,
+  type DesignRequest,
+  type DesignResult,
+  type SearchProgress,
+} from '../spectra/index';
 import type { DesignWorkerMessage } from './design-worker';
 
 /** An abundance as typed: a word passes as is, anything else as a number (the library names a bad one). */
@@ -18,7 +24,8 @@ function abundanceInput(text: string): number | 'high' | 'medium' | 'low' {
 /** "405, 488" → excitation lines; throws a sentence naming the field when a value is not a number. */
 function excitationLines(text: string): { wavelengthNm: number }[] {
   const parts = text.split(/[\s,;]+/).filter(Boolean);
-  if (parts.length === 0 || parts.some((p) => !Number.isFinite(Number(p)))) throw new Error('excitation lines must be numbers in nm, e.g. 405, 488');
+  if (parts.length === 0 || parts.some((p) => !Number.isFinite(Number(p))))
+    throw new Error('excitation lines must be numbers in nm, e.g. 405, 488');
   return parts.map((p) => ({ wavelengthNm: Number(p) }));
 }
 
@@ -45,7 +52,10 @@ export class DesignForm extends LitElement {
   /** Extra search options passed with every request (e.g. a node budget). */
   @property({ attribute: false }) options: DesignOptions = {};
 
-  @state() private targets: TargetRow[] = [{ name: 'target 1', abundance: 'high' }, { name: 'target 2', abundance: 'low' }];
+  @state() private targets: TargetRow[] = [
+    { name: 'target 1', abundance: 'high' },
+    { name: 'target 2', abundance: 'low' },
+  ];
   @state() private excitationText = '405';
   @state() private exclude = new Set<string>();
   @state() private allowed = new Set<string>(MATERIALS.map((m) => m.id));
@@ -59,14 +69,49 @@ export class DesignForm extends LitElement {
   private worker: Worker | null = null;
 
   static override styles = css`
-    :host { display: block; font-size: 0.9rem; }
-    fieldset { border: 1px solid #ccd; margin: 0.4rem 0; }
-    .row { display: flex; flex-wrap: wrap; gap: 0.4rem; align-items: center; margin: 0.2rem 0; }
-    fieldset { min-width: 0; }
-    input[type='text'], input[type='number'] { width: 8rem; max-width: 40vw; }
-    .error { color: #8b1a1a; font-weight: 600; }
-    table { border-collapse: collapse; } td, th { padding: 0.1rem 0.5rem; text-align: right; } th:first-child, td:first-child { text-align: left; }
-    button:focus-visible, input:focus-visible { outline: 3px solid #1a56db; }
+    :host {
+      display: block;
+      font-size: 0.9rem;
+    }
+    fieldset {
+      border: 1px solid #ccd;
+      margin: 0.4rem 0;
+    }
+    .row {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0.4rem;
+      align-items: center;
+      margin: 0.2rem 0;
+    }
+    fieldset {
+      min-width: 0;
+    }
+    input[type='text'],
+    input[type='number'] {
+      width: 8rem;
+      max-width: 40vw;
+    }
+    .error {
+      color: #8b1a1a;
+      font-weight: 600;
+    }
+    table {
+      border-collapse: collapse;
+    }
+    td,
+    th {
+      padding: 0.1rem 0.5rem;
+      text-align: right;
+    }
+    th:first-child,
+    td:first-child {
+      text-align: left;
+    }
+    button:focus-visible,
+    input:focus-visible {
+      outline: 3px solid #1a56db;
+    }
   `;
 
   override disconnectedCallback(): void {
@@ -82,7 +127,12 @@ export class DesignForm extends LitElement {
       options: { ...this.options },
     };
     if (this.candidates && this.useCandidates) return { ...request, candidates: this.candidates };
-    return { ...request, exclude: [...this.exclude] as DesignRequest['exclude'], allowedMaterials: [...this.allowed] as DesignRequest['allowedMaterials'], windowNm: this.windowNm };
+    return {
+      ...request,
+      exclude: [...this.exclude] as DesignRequest['exclude'],
+      allowedMaterials: [...this.allowed] as DesignRequest['allowedMaterials'],
+      windowNm: this.windowNm,
+    };
   }
 
   /** Starts the search in a fresh worker. */
@@ -143,7 +193,13 @@ export class DesignForm extends LitElement {
     const { panel, evaluation, objective, exact, stats } = message.result;
     this.result = message.result;
     this.finish('done');
-    this.dispatchEvent(new CustomEvent('panel-proposed', { detail: { panel, evaluation, objective, exact, stats }, bubbles: true, composed: true }));
+    this.dispatchEvent(
+      new CustomEvent('panel-proposed', {
+        detail: { panel, evaluation, objective, exact, stats },
+        bubbles: true,
+        composed: true,
+      }),
+    );
   }
 
   private setTarget(i: number, field: keyof TargetRow, value: string): void {
@@ -160,44 +216,130 @@ export class DesignForm extends LitElement {
   override render() {
     const free = !(this.candidates && this.useCandidates);
     return html`
-      <fieldset><legend>Targets (abundance: a number, or high / medium / low)</legend>
-        ${this.targets.map((t, i) => html`<div class="row">
-          <input type="text" aria-label="target name" .value=${t.name} @input=${(e: Event) => this.setTarget(i, 'name', (e.target as HTMLInputElement).value)} />
-          <input type="text" aria-label="abundance" list="abundance-words" .value=${t.abundance} @input=${(e: Event) => this.setTarget(i, 'abundance', (e.target as HTMLInputElement).value)} />
-          <button type="button" @click=${() => (this.targets = this.targets.filter((_, k) => k !== i))} ?disabled=${this.targets.length <= 1}>Remove</button></div>`)}
-        <datalist id="abundance-words"><option value="high"></option><option value="medium"></option><option value="low"></option></datalist>
-        <button type="button" @click=${() => (this.targets = [...this.targets, { name: `target ${this.targets.length + 1}`, abundance: 'medium' }])} ?disabled=${this.targets.length >= 16}>Add target</button>
+      <fieldset>
+        <legend>Targets (abundance: a number, or high / medium / low)</legend>
+        ${this.targets.map(
+          (t, i) =>
+            html`<div class="row">
+              <input
+                type="text"
+                aria-label="target name"
+                .value=${t.name}
+                @input=${(e: Event) => this.setTarget(i, 'name', (e.target as HTMLInputElement).value)}
+              />
+              <input
+                type="text"
+                aria-label="abundance"
+                list="abundance-words"
+                .value=${t.abundance}
+                @input=${(e: Event) => this.setTarget(i, 'abundance', (e.target as HTMLInputElement).value)}
+              />
+              <button
+                type="button"
+                @click=${() => (this.targets = this.targets.filter((_, k) => k !== i))}
+                ?disabled=${this.targets.length <= 1}
+              >
+                Remove
+              </button>
+            </div>`,
+        )}
+        <datalist id="abundance-words">
+          <option value="high"></option>
+          <option value="medium"></option>
+          <option value="low"></option>
+        </datalist>
+        <button
+          type="button"
+          @click=${() => (this.targets = [...this.targets, { name: `target ${this.targets.length + 1}`, abundance: 'medium' }])}
+          ?disabled=${this.targets.length >= 16}
+        >
+          Add target
+        </button>
       </fieldset>
-      <label>Excitation lines, nm <input type="text" aria-label="excitation lines" .value=${this.excitationText} @input=${(e: Event) => (this.excitationText = (e.target as HTMLInputElement).value)} /></label>
+      <label
+        >Excitation lines, nm
+        <input
+          type="text"
+          aria-label="excitation lines"
+          .value=${this.excitationText}
+          @input=${(e: Event) => (this.excitationText = (e.target as HTMLInputElement).value)}
+      /></label>
       ${this.candidates ? html`<label><input type="checkbox" .checked=${this.useCandidates} @change=${(e: Event) => (this.useCandidates = (e.target as HTMLInputElement).checked)} /> choose only from the current panel's probes and channels</label>` : ''}
-      <fieldset ?disabled=${!free}><legend>Free design</legend>
+      <fieldset ?disabled=${!free}>
+        <legend>Free design</legend>
         ${EXCLUSIONS.map(([id, label]) => html`<label><input type="checkbox" .checked=${this.exclude.has(id)} @change=${(e: Event) => (this.exclude = this.toggle(this.exclude, id, (e.target as HTMLInputElement).checked))} /> ${label}</label> `)}
-        <div>Materials: ${MATERIALS.map((m) => html`<label><input type="checkbox" .checked=${this.allowed.has(m.id)} @change=${(e: Event) => (this.allowed = this.toggle(this.allowed, m.id, (e.target as HTMLInputElement).checked))} /> ${m.name}</label> `)}</div>
-        <label>Window, nm <input type="number" aria-label="window start" .value=${String(this.windowNm[0])} @change=${(e: Event) => (this.windowNm = [Number((e.target as HTMLInputElement).value), this.windowNm[1]])} />
-          – <input type="number" aria-label="window end" .value=${String(this.windowNm[1])} @change=${(e: Event) => (this.windowNm = [this.windowNm[0], Number((e.target as HTMLInputElement).value)])} /></label>
+        <div>
+          Materials:
+          ${MATERIALS.map((m) => html`<label><input type="checkbox" .checked=${this.allowed.has(m.id)} @change=${(e: Event) => (this.allowed = this.toggle(this.allowed, m.id, (e.target as HTMLInputElement).checked))} /> ${m.name}</label> `)}
+        </div>
+        <label
+          >Window, nm
+          <input
+            type="number"
+            aria-label="window start"
+            .value=${String(this.windowNm[0])}
+            @change=${(e: Event) => (this.windowNm = [Number((e.target as HTMLInputElement).value), this.windowNm[1]])} />
+          –
+          <input
+            type="number"
+            aria-label="window end"
+            .value=${String(this.windowNm[1])}
+            @change=${(e: Event) => (this.windowNm = [this.windowNm[0], Number((e.target as HTMLInputElement).value)])}
+        /></label>
       </fieldset>
       <div class="row">
         <button type="button" @click=${() => this.propose()} ?disabled=${this.running}>Propose</button>
         <button type="button" @click=${() => this.stop()} ?disabled=${!this.running}>Stop and keep best</button>
         <button type="button" @click=${() => this.cancel()} ?disabled=${!this.running}>Cancel</button>
-        <output aria-live="polite" class="progress">${this.status}${this.progress && this.running ? html` · ${this.progress.nodesVisited.toLocaleString('en')} ${this.progress.stage === 'refine' ? 'refinement steps' : 'nodes visited'}${this.progress.incumbent !== null ? ` · best so far ${percent(this.progress.incumbent)}` : ''}` : ''}</output>
+        <output aria-live="polite" class="progress"
+          >${this.status}${this.progress && this.running ? html` · ${this.progress.nodesVisited.toLocaleString('en')} ${this.progress.stage === 'refine' ? 'refinement steps' : 'nodes visited'}${this.progress.incumbent !== null ? ` · best so far ${percent(this.progress.incumbent)}` : ''}` : ''}</output
+        >
       </div>
       ${this.error ? html`<p class="error" role="alert">${this.error}</p>` : ''}
       ${this.result ? this.renderResult(this.result) : ''}
-      <p>Proposals can include cadmium- or lead-containing dots unless excluded: read the material notes. Handle nanoparticles and excitation lasers as your local regulations, institutional safety rules and licensed practice require.</p>
+      <p>
+        Proposals can include cadmium- or lead-containing dots unless excluded: read the material notes. Handle
+        nanoparticles and excitation lasers as your local regulations, institutional safety rules and licensed practice
+        require.
+      </p>
     `;
   }
 
   private renderResult(r: DesignResult) {
     const o = r.objective;
     const pair = o.fromTarget ? ` (${o.fromTarget} into ${o.intoTarget})` : '';
-    const proof = r.exact ? (r.mode === 'free' ? 'optimal over the stated grid catalog' : 'proven optimal over the candidates') : `best found; lower bound ${r.stats.bound === null ? 'none yet' : percent(r.stats.bound)}`;
+    const proof = r.exact
+      ? r.mode === 'free'
+        ? 'optimal over the stated grid catalog'
+        : 'proven optimal over the candidates'
+      : `best found; lower bound ${r.stats.bound === null ? 'none yet' : percent(r.stats.bound)}`;
     return html`<section class="result">
-      <p class="objective">Worst interference ${percent(o.worstInterference)}${pair}: ${proof}. ${r.stats.nodesVisited.toLocaleString('en')} nodes visited of ${r.stats.fullEnumeration.toExponential(1)} complete assignments.</p>
-      <table><caption>Predicted unmixing noise (${r.noise.photons[0]} photons per target at abundance 1)</caption>
-        <tr><th>target</th><th>abundance</th><th>SD</th><th>S/N</th></tr>
-        ${r.panel.probes.map((p, i) => html`<tr><td>${p.target}</td><td>${p.abundance}</td><td>${r.noise.sd[i]?.toPrecision(3) ?? '—'}</td><td>${r.noise.signalToNoise[i]?.toPrecision(3) ?? '—'}</td></tr>`)}
-      </table></section>`;
+      <p class="objective">
+        Worst interference ${percent(o.worstInterference)}${pair}: ${proof}.
+        ${r.stats.nodesVisited.toLocaleString('en')} nodes visited of ${r.stats.fullEnumeration.toExponential(1)}
+        complete assignments.
+      </p>
+      <table>
+        <caption>
+          Predicted unmixing noise (${r.noise.photons[0]} photons per target at abundance 1)
+        </caption>
+        <tr>
+          <th>target</th>
+          <th>abundance</th>
+          <th>SD</th>
+          <th>S/N</th>
+        </tr>
+        ${r.panel.probes.map(
+          (p, i) =>
+            html`<tr>
+              <td>${p.target}</td>
+              <td>${p.abundance}</td>
+              <td>${r.noise.sd[i]?.toPrecision(3) ?? '—'}</td>
+              <td>${r.noise.signalToNoise[i]?.toPrecision(3) ?? '—'}</td>
+            </tr>`,
+        )}
+      </table>
+    </section>`;
   }
 }
 

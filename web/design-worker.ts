@@ -31,9 +31,10 @@ scope.onmessage = async (event: MessageEvent<{ type: 'run'; request: DesignReque
     });
     post({ type: 'result', result });
   } catch (err) {
-    const error = err instanceof SpectraError
-      ? { code: err.code, message: err.message, path: err.path }
-      : { code: 'internal_error', message: 'the design search failed unexpectedly', path: [] };
+    const error =
+      err instanceof SpectraError
+        ? { code: err.code, message: err.message, path: err.path }
+        : { code: 'internal_error', message: 'the design search failed unexpectedly', path: [] };
     post({ type: 'error', error });
   }
 };

@@ -17,8 +17,13 @@ export function moveEdge(panel: PanelSpec, h: ChartHandle): PanelSpec {
   if (f.type === 'bandpass' && (h.edge === 'low' || h.edge === 'high')) {
     const lo = f.centerNm - f.widthNm / 2;
     const hi = f.centerNm + f.widthNm / 2;
-    const [newLo, newHi] = h.edge === 'low' ? [Math.min(nm, hi - MIN_BAND_WIDTH_NM), hi] : [lo, Math.max(nm, lo + MIN_BAND_WIDTH_NM)];
-    return setFilter(panel, h.channelIndex, h.filterIndex, { ...f, centerNm: (newLo + newHi) / 2, widthNm: newHi - newLo });
+    const [newLo, newHi] =
+      h.edge === 'low' ? [Math.min(nm, hi - MIN_BAND_WIDTH_NM), hi] : [lo, Math.max(nm, lo + MIN_BAND_WIDTH_NM)];
+    return setFilter(panel, h.channelIndex, h.filterIndex, {
+      ...f,
+      centerNm: (newLo + newHi) / 2,
+      widthNm: newHi - newLo,
+    });
   }
   if ((f.type === 'longpass' || f.type === 'shortpass' || f.type === 'dichroic') && h.edge === 'edge') {
     return setFilter(panel, h.channelIndex, h.filterIndex, { ...f, edgeNm: nm });

@@ -25,7 +25,11 @@ export function containedClasses(panel: PanelSpec, materials: readonly MaterialE
 }
 
 /** Probe ids that contain an excluded class, each with the reason as text ("contains cadmium"). */
-export function offendingProbes(panel: PanelSpec, materials: readonly MaterialElements[], exclude: readonly ExcludableClass[]): Map<string, string> {
+export function offendingProbes(
+  panel: PanelSpec,
+  materials: readonly MaterialElements[],
+  exclude: readonly ExcludableClass[],
+): Map<string, string> {
   const out = new Map<string, string>();
   for (const p of panel.probes) {
     const elements = materials.find((m) => m.id === p.material)?.elements ?? [];

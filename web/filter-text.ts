@@ -17,7 +17,9 @@ export function describeFilter(filter: FilterSpec): string {
       return `dichroic ${nm(filter.edgeNm)} (passes ${filter.passes})`;
     case 'table': {
       const p = filter.points;
-      return p.length === 0 ? 'measured table, empty' : `measured table, ${p.length} points ${nm(p[0][0])}–${nm(p[p.length - 1][0])} nm`;
+      return p.length === 0
+        ? 'measured table, empty'
+        : `measured table, ${p.length} points ${nm(p[0][0])}–${nm(p[p.length - 1][0])} nm`;
     }
   }
 }

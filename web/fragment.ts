@@ -49,7 +49,9 @@ export function thinPanel(panel: PanelSpec): PanelSpec {
       ...c,
       filters: c.filters.map((f) => (f.type === 'table' ? { ...f, points: resamplePoints(f.points) } : f)),
     })),
-    ...(panel.background?.points ? { background: { ...panel.background, points: resamplePoints(panel.background.points) } } : {}),
+    ...(panel.background?.points
+      ? { background: { ...panel.background, points: resamplePoints(panel.background.points) } }
+      : {}),
   };
 }
 

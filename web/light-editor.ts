@@ -15,9 +15,21 @@ export class LightEditor extends LitElement {
   @property({ attribute: false }) errors: Record<string, string> = {};
 
   static override styles = css`
-    :host { display: block; font-size: 0.9rem; }
-    .row { display: flex; flex-wrap: wrap; gap: 0.5rem 0.8rem; align-items: flex-end; margin: 0.3rem 0; }
-    :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
+    :host {
+      display: block;
+      font-size: 0.9rem;
+    }
+    .row {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0.5rem 0.8rem;
+      align-items: flex-end;
+      margin: 0.3rem 0;
+    }
+    :focus-visible {
+      outline: 3px solid #1a56db;
+      outline-offset: 1px;
+    }
   `;
 
   private edit(panel: PanelSpec): void {
@@ -29,22 +41,63 @@ export class LightEditor extends LitElement {
     if (!p) return html``;
     const bg = p.background;
     const setLine = (i: number, key: 'wavelengthNm' | 'powerRel') => (e: CustomEvent<{ value?: number }>) =>
-      this.edit({ ...p, excitation: p.excitation.map((l, k) => (k === i ? { ...l, [key]: e.detail.value ?? (key === 'powerRel' ? 1 : l.wavelengthNm) } : l)) });
-    return html`
-      ${p.excitation.map((l, i) => html`<div class="row">
-        <qdp-number-field label=${`Excitation line ${i + 1}`} unit="nm" .value=${l.wavelengthNm} .error=${this.errors[`excitation.${i}.wavelengthNm`] ?? ''} @value-change=${setLine(i, 'wavelengthNm')}></qdp-number-field>
-        <qdp-number-field label="Relative power" .value=${l.powerRel} optional placeholder="1" @value-change=${setLine(i, 'powerRel')}></qdp-number-field>
-        ${p.excitation.length > 1 ? html`<button type="button" @click=${() => this.edit({ ...p, excitation: p.excitation.filter((_, k) => k !== i) })}>Remove line</button>` : ''}</div>`)}
-      <button type="button" @click=${() => this.edit({ ...p, excitation: [...p.excitation, { wavelengthNm: 488, powerRel: 1 }] })}>Add excitation line</button>
+      this.edit({
+        ...p,
+        excitation: p.excitation.map((l, k) =>
+          k === i ? { ...l, [key]: e.detail.value ?? (key === 'powerRel' ? 1 : l.wavelengthNm) } : l,
+        ),
+      });
+    return html` ${p.excitation.map(
+        (l, i) =>
+          html`<div class="row">
+            <qdp-number-field
+              label=${`Excitation line ${i + 1}`}
+              unit="nm"
+              .value=${l.wavelengthNm}
+              .error=${this.errors[`excitation.${i}.wavelengthNm`] ?? ''}
+              @value-change=${setLine(i, 'wavelengthNm')}
+            ></qdp-number-field>
+            <qdp-number-field
+              label="Relative power"
+              .value=${l.powerRel}
+              optional
+              placeholder="1"
+              @value-change=${setLine(i, 'powerRel')}
+            ></qdp-number-field>
+            ${p.excitation.length > 1 ? html`<button type="button" @click=${() => this.edit({ ...p, excitation: p.excitation.filter((_, k) => k !== i) })}>Remove line</button>` : ''}
+          </div>`,
+      )}
+      <button
+        type="button"
+        @click=${() => this.edit({ ...p, excitation: [...p.excitation, { wavelengthNm: 488, powerRel: 1 }] })}
+      >
+        Add excitation line
+      </button>
       <div class="row">
-        <label><input type="checkbox" .checked=${!!bg} @change=${(e: Event) => {
-          const next = { ...p };
-          if ((e.target as HTMLInputElement).checked) next.background = { level: 0.1 };
-          else delete next.background;
-          this.edit(next);
-        }} /> Sample background (autofluorescence)</label>
-        ${bg ? html`<qdp-number-field label="Background level" .value=${bg.level} .error=${this.errors['background.level'] ?? ''} @value-change=${(e: CustomEvent<{ value?: number }>) => e.detail.value !== undefined && this.edit({ ...p, background: { ...bg, level: e.detail.value } })}></qdp-number-field>
-          ${bg.points ? html`<span>measured spectrum, ${bg.points.length} points</span><button type="button" @click=${() => this.edit({ ...p, background: { level: bg.level } })}>Use the default model</button>` : html`<span>default model</span>`}` : ''}
+        <label
+          ><input
+            type="checkbox"
+            .checked=${!!bg}
+            @change=${(e: Event) => {
+              const next = { ...p };
+              if ((e.target as HTMLInputElement).checked) next.background = { level: 0.1 };
+              else delete next.background;
+              this.edit(next);
+            }}
+          />
+          Sample background (autofluorescence)</label
+        >
+        ${
+          bg
+            ? html`<qdp-number-field
+                  label="Background level"
+                  .value=${bg.level}
+                  .error=${this.errors['background.level'] ?? ''}
+                  @value-change=${(e: CustomEvent<{ value?: number }>) => e.detail.value !== undefined && this.edit({ ...p, background: { ...bg, level: e.detail.value } })}
+                ></qdp-number-field>
+                ${bg.points ? html`<span>measured spectrum, ${bg.points.length} points</span><button type="button" @click=${() => this.edit({ ...p, background: { level: bg.level } })}>Use the default model</button>` : html`<span>default model</span>`}`
+            : ''
+        }
       </div>
       ${bg ? html`<qdp-spectrum-input kind="background" label="measured background" @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.edit({ ...p, background: { level: bg.level, points: e.detail.points } })}></qdp-spectrum-input>` : ''}
       ${this.errors['background'] ? html`<p role="alert">${this.errors['background']}</p>` : ''}`;

@@ -6,7 +6,13 @@
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
 import type { PanelSpec } from '../spectra/index';
-import { containedClasses, EXCLUDABLE, offendingProbes, type ExcludableClass, type MaterialElements } from './exclusions';
+import {
+  containedClasses,
+  EXCLUDABLE,
+  offendingProbes,
+  type ExcludableClass,
+  type MaterialElements,
+} from './exclusions';
 
 /** What the notes need of each material (the library's Material has these fields). */
 export interface MaterialNotesInput extends MaterialElements {
@@ -19,7 +25,8 @@ export const GENERAL_CAUTION =
   'Handle nanoparticles and their waste as your local regulations, institutional safety rules and licensed practice require.';
 
 /** Excitation sources are usually lasers. */
-export const LASER_CAUTION = 'Excitation lasers: follow your institution\'s laser safety rules (laser class, eyewear, interlocks).';
+export const LASER_CAUTION =
+  "Excitation lasers: follow your institution's laser safety rules (laser class, eyewear, interlocks).";
 
 @customElement('qdp-material-notes')
 export class MaterialNotes extends LitElement {
@@ -28,16 +35,53 @@ export class MaterialNotes extends LitElement {
   @property({ attribute: false }) exclude: ExcludableClass[] = [];
 
   static override styles = css`
-    :host { display: block; font-size: 0.9rem; }
-    .summary { font-weight: 600; }
-    .level { display: inline-block; padding: 0 0.4rem; border-radius: 3px; border: 1px solid currentColor; font-size: 0.8rem; }
-    .high { color: #8b1a1a; } .moderate { color: #7a4a00; } .low { color: #2f4f2f; }
-    .blocked { color: #8b1a1a; font-weight: 600; }
-    fieldset { border: 1px solid #ccd; margin: 0.5rem 0; }
-    section { border-top: 1px solid #dde; padding-top: 0.4rem; margin-top: 0.4rem; }
-    h4 { margin: 0.2rem 0; font-size: 0.95rem; }
-    ul { margin: 0.2rem 0; padding-left: 1.2rem; }
-    input:focus-visible { outline: 3px solid #1a56db; }
+    :host {
+      display: block;
+      font-size: 0.9rem;
+    }
+    .summary {
+      font-weight: 600;
+    }
+    .level {
+      display: inline-block;
+      padding: 0 0.4rem;
+      border-radius: 3px;
+      border: 1px solid currentColor;
+      font-size: 0.8rem;
+    }
+    .high {
+      color: #8b1a1a;
+    }
+    .moderate {
+      color: #7a4a00;
+    }
+    .low {
+      color: #2f4f2f;
+    }
+    .blocked {
+      color: #8b1a1a;
+      font-weight: 600;
+    }
+    fieldset {
+      border: 1px solid #ccd;
+      margin: 0.5rem 0;
+    }
+    section {
+      border-top: 1px solid #dde;
+      padding-top: 0.4rem;
+      margin-top: 0.4rem;
+    }
+    h4 {
+      margin: 0.2rem 0;
+      font-size: 0.95rem;
+    }
+    ul {
+      margin: 0.2rem 0;
+      padding-left: 1.2rem;
+    }
+    input:focus-visible {
+      outline: 3px solid #1a56db;
+    }
   `;
 
   private toggle(id: ExcludableClass, on: boolean): void {
@@ -52,20 +96,50 @@ export class MaterialNotes extends LitElement {
     const offending = offendingProbes(panel, this.materials, this.exclude);
     const used = [...new Set(panel.probes.map((p) => p.material))];
     return html`
-      <p class="summary">${contained.length ? `This panel contains ${contained.join(' and ')}.` : 'No probe in this panel is made with cadmium or lead (by the tool\'s material list).'}</p>
-      <fieldset><legend>Exclude material classes</legend>
-        ${EXCLUDABLE.map((c) => html`<label><input type="checkbox" .checked=${this.exclude.includes(c.id)} @change=${(e: Event) => this.toggle(c.id, (e.target as HTMLInputElement).checked)} />
-          ${c.label}</label> `)}
+      <p class="summary">
+        ${contained.length ? `This panel contains ${contained.join(' and ')}.` : "No probe in this panel is made with cadmium or lead (by the tool's material list)."}
+      </p>
+      <fieldset>
+        <legend>Exclude material classes</legend>
+        ${EXCLUDABLE.map(
+          (c) =>
+            html`<label
+              ><input
+                type="checkbox"
+                .checked=${this.exclude.includes(c.id)}
+                @change=${(e: Event) => this.toggle(c.id, (e.target as HTMLInputElement).checked)}
+              />
+              ${c.label}</label
+            > `,
+        )}
       </fieldset>
       ${offending.size ? html`<p class="blocked" role="alert">Blocked: ${[...offending].map(([id, why]) => `${panel.probes.find((p) => p.id === id)?.label ?? id} ${why}`).join('; ')}. Share and export stay off until they are replaced or the choice is changed.</p>` : ''}
       ${used.map((id) => {
         const m = this.materials.find((x) => x.id === id);
-        const probes = panel.probes.filter((p) => p.material === id).map((p) => p.label ?? p.id).join(', ');
-        if (!m) return html`<section><h4>${id}</h4><p>No notes for this material.</p></section>`;
-        return html`<section data-material=${m.id}><h4>${m.name} <span class="level ${m.toxicity.level}">hazard: ${m.toxicity.level}</span></h4>
+        const probes = panel.probes
+          .filter((p) => p.material === id)
+          .map((p) => p.label ?? p.id)
+          .join(', ');
+        if (!m)
+          return html`<section>
+            <h4>${id}</h4>
+            <p>No notes for this material.</p>
+          </section>`;
+        return html`<section data-material=${m.id}>
+          <h4>${m.name} <span class="level ${m.toxicity.level}">hazard: ${m.toxicity.level}</span></h4>
           <p>Used by: ${probes}</p>
-          ${m.toxicity.notes.length ? html`<ul>${m.toxicity.notes.map((n) => html`<li>${n}</li>`)}</ul>` : ''}
-          <p><strong>Cautions</strong></p><ul>${m.toxicity.cautions.map((n) => html`<li>${n}</li>`)}</ul></section>`;
+          ${
+            m.toxicity.notes.length
+              ? html`<ul>
+                  ${m.toxicity.notes.map((n) => html`<li>${n}</li>`)}
+                </ul>`
+              : ''
+          }
+          <p><strong>Cautions</strong></p>
+          <ul>
+            ${m.toxicity.cautions.map((n) => html`<li>${n}</li>`)}
+          </ul>
+        </section>`;
       })}
       <p>${LASER_CAUTION}</p>
       <p>${GENERAL_CAUTION}</p>

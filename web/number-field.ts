@@ -22,12 +22,34 @@ export class NumberField extends LitElement {
   private raw = '';
 
   static override styles = css`
-    :host { display: inline-block; font-size: 0.85rem; }
-    label { display: flex; flex-direction: column; gap: 0.1rem; }
-    input { width: 6.5rem; font: inherit; padding: 0.2rem 0.3rem; border: 1px solid #889; border-radius: 3px; }
-    input[aria-invalid='true'] { border: 2px solid #8b1a1a; background: #fff4f4; }
-    input:focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
-    .msg { color: #8b1a1a; max-width: 18rem; }
+    :host {
+      display: inline-block;
+      font-size: 0.85rem;
+    }
+    label {
+      display: flex;
+      flex-direction: column;
+      gap: 0.1rem;
+    }
+    input {
+      width: 6.5rem;
+      font: inherit;
+      padding: 0.2rem 0.3rem;
+      border: 1px solid #889;
+      border-radius: 3px;
+    }
+    input[aria-invalid='true'] {
+      border: 2px solid #8b1a1a;
+      background: #fff4f4;
+    }
+    input:focus-visible {
+      outline: 3px solid #1a56db;
+      outline-offset: 1px;
+    }
+    .msg {
+      color: #8b1a1a;
+      max-width: 18rem;
+    }
   `;
 
   protected override willUpdate(changed: PropertyValues<this>): void {
@@ -62,9 +84,16 @@ export class NumberField extends LitElement {
 
   override render() {
     const msg = this.localError || this.error;
-    return html`<label>${this.label}${this.unit ? ` (${this.unit})` : ''}
-        <input type="text" inputmode="decimal" .value=${this.raw} placeholder=${this.placeholder} aria-invalid=${msg ? 'true' : 'false'}
-          @input=${this.onInput} /></label>
+    return html`<label
+        >${this.label}${this.unit ? ` (${this.unit})` : ''}
+        <input
+          type="text"
+          inputmode="decimal"
+          .value=${this.raw}
+          placeholder=${this.placeholder}
+          aria-invalid=${msg ? 'true' : 'false'}
+          @input=${this.onInput}
+      /></label>
       ${msg ? html`<div class="msg" role="alert">${msg}</div>` : ''}`;
   }
 }

@@ -11,7 +11,13 @@ import { downloadBlob, downloadText, svgDocument, svgToPng } from './download';
 
 /** A file name from the panel title: letters, digits and dashes only. */
 export function fileStem(panel: PanelSpec): string {
-  return (panel.title ?? 'panel').toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '').slice(0, 60) || 'panel';
+  return (
+    (panel.title ?? 'panel')
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '')
+      .slice(0, 60) || 'panel'
+  );
 }
 
 @customElement('qdp-panel-actions')
@@ -29,11 +35,27 @@ export class PanelActions extends LitElement {
   @state() private busy = false;
 
   static override styles = css`
-    :host { display: block; }
-    .row { display: flex; flex-wrap: wrap; gap: 0.4rem; align-items: center; }
-    input { font: inherit; width: min(32rem, 100%); padding: 0.25rem; }
-    :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
-    .msg { font-size: 0.9rem; }
+    :host {
+      display: block;
+    }
+    .row {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0.4rem;
+      align-items: center;
+    }
+    input {
+      font: inherit;
+      width: min(32rem, 100%);
+      padding: 0.25rem;
+    }
+    :focus-visible {
+      outline: 3px solid #1a56db;
+      outline-offset: 1px;
+    }
+    .msg {
+      font-size: 0.9rem;
+    }
   `;
 
   private async share(): Promise<void> {
@@ -72,7 +94,11 @@ export class PanelActions extends LitElement {
     if (!svg || !this.panel) return;
     const text = svgDocument(svg);
     if (kind === 'svg') downloadText(text, `${fileStem(this.panel)}-spectra.svg`, 'image/svg+xml');
-    else downloadBlob(await svgToPng(text, svg.width.baseVal.value, svg.height.baseVal.value), `${fileStem(this.panel)}-spectra.png`);
+    else
+      downloadBlob(
+        await svgToPng(text, svg.width.baseVal.value, svg.height.baseVal.value),
+        `${fileStem(this.panel)}-spectra.png`,
+      );
   }
 
   override render() {
@@ -80,7 +106,13 @@ export class PanelActions extends LitElement {
     return html`<div class="row">
         <button type="button" ?disabled=${off} @click=${this.share}>Share: store and copy link</button>
         <button type="button" ?disabled=${off} @click=${this.exportCsv}>Ordering sheet (CSV)</button>
-        <button type="button" ?disabled=${off} @click=${() => this.panel && downloadText(JSON.stringify(this.panel, null, 2), `${fileStem(this.panel)}.json`, 'application/json')}>Panel (JSON)</button>
+        <button
+          type="button"
+          ?disabled=${off}
+          @click=${() => this.panel && downloadText(JSON.stringify(this.panel, null, 2), `${fileStem(this.panel)}.json`, 'application/json')}
+        >
+          Panel (JSON)
+        </button>
         <button type="button" @click=${() => this.exportImage('svg')}>Chart (SVG)</button>
         <button type="button" @click=${() => this.exportImage('png')}>Chart (PNG)</button>
       </div>

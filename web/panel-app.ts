@@ -13,7 +13,16 @@ import { demoPanel } from './demo-panel';
 import { placeError, type FieldError } from './error-map';
 import { offendingProbes, type ExcludableClass } from './exclusions';
 import { decodeFragment, encodeFragment } from './fragment';
-import { addChannel, addProbe, addSpectralRun, newPanel, removeChannel, removeProbe, setChannel, setProbe } from './panel-edit';
+import {
+  addChannel,
+  addProbe,
+  addSpectralRun,
+  newPanel,
+  removeChannel,
+  removeProbe,
+  setChannel,
+  setProbe,
+} from './panel-edit';
 import { moveEdge } from './edge-drag';
 import './channel-list';
 import './crosstalk-table';
@@ -144,22 +153,45 @@ export class PanelApp extends LitElement {
     const c = this.computed;
     const errors = placeError(this.error);
     const blockedProbes = offendingProbes(p, MATERIALS, this.exclude);
-    const blocked = blockedProbes.size ? 'a probe is made of an excluded material.' : this.error ? 'fix the marked input first.' : '';
-    return html`
-      <header>
+    const blocked = blockedProbes.size
+      ? 'a probe is made of an excluded material.'
+      : this.error
+        ? 'fix the marked input first.'
+        : '';
+    return html` <header>
         <h1>qdpanel <span>plan a quantum-dot panel</span></h1>
         <div class="row">
-          <label>Panel title <input type="text" .value=${p.title ?? ''} ?disabled=${!!this.sharedId} @change=${(e: Event) => this.apply({ ...p, title: (e.target as HTMLInputElement).value })} /></label>
+          <label
+            >Panel title
+            <input
+              type="text"
+              .value=${p.title ?? ''}
+              ?disabled=${!!this.sharedId}
+              @change=${(e: Event) => this.apply({ ...p, title: (e.target as HTMLInputElement).value })}
+          /></label>
           <button type="button" @click=${() => this.load(newPanel(), [])}>New panel</button>
           <button type="button" @click=${() => this.load(demoPanel(), [])}>Open the demo panel</button>
-          <label class="file">Open panel JSON <input type="file" accept=".json,application/json" @change=${(e: Event) => this.importJson((e.target as HTMLInputElement).files?.[0])} /></label>
+          <label class="file"
+            >Open panel JSON
+            <input
+              type="file"
+              accept=".json,application/json"
+              @change=${(e: Event) => this.importJson((e.target as HTMLInputElement).files?.[0])}
+          /></label>
         </div>
         ${this.notice ? html`<p class="notice" role="status">${this.notice}</p>` : ''}
         ${this.sharedId ? html`<p class="shared" role="note">Shared copy (read only). <button type="button" @click=${this.duplicate}>Duplicate and edit</button></p>` : ''}
         ${this.error ? html`<p class="error" role="alert">Not updated: ${this.error.message}</p>` : ''}
       </header>
-      <main @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => { this.sharedId = ''; this.load(e.detail.panel, this.exclude); }}>
-        <div class="edit" ?inert=${!!this.sharedId}
+      <main
+        @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => {
+          this.sharedId = '';
+          this.load(e.detail.panel, this.exclude);
+        }}
+      >
+        <div
+          class="edit"
+          ?inert=${!!this.sharedId}
           @probe-change=${(e: CustomEvent<{ index: number; probe: ProbeSpec }>) => this.apply(setProbe(p, e.detail.index, e.detail.probe))}
           @probe-remove=${(e: CustomEvent<{ index: number }>) => this.apply(removeProbe(p, e.detail.index))}
           @probe-add=${() => this.apply(addProbe(p))}
@@ -167,33 +199,86 @@ export class PanelApp extends LitElement {
           @channel-remove=${(e: CustomEvent<{ index: number }>) => this.apply(removeChannel(p, e.detail.index))}
           @channel-add=${() => this.apply(addChannel(p))}
           @spectral-run=${(e: CustomEvent<{ startNm: number; bins: number; binWidthNm: number }>) => this.apply(addSpectralRun(p, e.detail.startNm, e.detail.bins, e.detail.binWidthNm))}
-          @panel-edit=${(e: CustomEvent<{ panel: PanelSpec }>) => this.apply(e.detail.panel)}>
-          <section aria-labelledby="h-light"><h2 id="h-light">Excitation and sample background</h2>
-            <qdp-light-editor .panel=${p} .errors=${errors.other}></qdp-light-editor></section>
-          <section aria-labelledby="h-probes"><h2 id="h-probes">Probes</h2>
-            <qdp-probe-list .panel=${p} .materials=${MATERIALS} .predictions=${c?.predictions ?? []} .errors=${errors.probes} .blocked=${blockedProbes}></qdp-probe-list></section>
-          <section aria-labelledby="h-channels"><h2 id="h-channels">Detection channels</h2>
-            <qdp-channel-list .panel=${p} .detectors=${DETECTORS} .errors=${errors.channels}></qdp-channel-list></section>
-          <section aria-labelledby="h-propose"><h2 id="h-propose">Propose a panel</h2>
-            <p>Name the targets and how abundant each is; the search proposes dots and filters (or picks from this panel's
-              probes and channels) that keep the worst bleed-through low, and loads the proposal here for editing.</p>
-            <qdp-design-form .candidates=${p.probes.length > 0 && p.channels.length > 0 ? { probes: p.probes.map(({ channel: _c, ...probe }) => probe), channels: p.channels } : undefined}></qdp-design-form></section>
+          @panel-edit=${(e: CustomEvent<{ panel: PanelSpec }>) => this.apply(e.detail.panel)}
+        >
+          <section aria-labelledby="h-light">
+            <h2 id="h-light">Excitation and sample background</h2>
+            <qdp-light-editor .panel=${p} .errors=${errors.other}></qdp-light-editor>
+          </section>
+          <section aria-labelledby="h-probes">
+            <h2 id="h-probes">Probes</h2>
+            <qdp-probe-list
+              .panel=${p}
+              .materials=${MATERIALS}
+              .predictions=${c?.predictions ?? []}
+              .errors=${errors.probes}
+              .blocked=${blockedProbes}
+            ></qdp-probe-list>
+          </section>
+          <section aria-labelledby="h-channels">
+            <h2 id="h-channels">Detection channels</h2>
+            <qdp-channel-list .panel=${p} .detectors=${DETECTORS} .errors=${errors.channels}></qdp-channel-list>
+          </section>
+          <section aria-labelledby="h-propose">
+            <h2 id="h-propose">Propose a panel</h2>
+            <p>
+              Name the targets and how abundant each is; the search proposes dots and filters (or picks from this
+              panel's probes and channels) that keep the worst bleed-through low, and loads the proposal here for
+              editing.
+            </p>
+            <qdp-design-form
+              .candidates=${p.probes.length > 0 && p.channels.length > 0 ? { probes: p.probes.map(({ channel: _c, ...probe }) => probe), channels: p.channels } : undefined}
+            ></qdp-design-form>
+          </section>
         </div>
         <div class="results">
-          <section aria-labelledby="h-spectra"><h2 id="h-spectra">Spectra</h2>
-            <label><input type="checkbox" .checked=${this.byBrightness} @change=${(e: Event) => { this.byBrightness = (e.target as HTMLInputElement).checked; this.apply(p, 'none'); }} />
-              Scale curves by expected brightness (otherwise each peaks at 1)</label>
-            <qdp-spectrum-chart .curves=${c?.chart.curves ?? []} .passbands=${c?.chart.passbands ?? []} .background=${c?.chart.background}
-              .excitationNm=${p.excitation.map((l) => l.wavelengthNm)} .yLabel=${this.byBrightness ? 'relative emission × brightness' : 'emission (peak = 1)'}
-              @edge-drag=${(e: CustomEvent<EdgeDragDetail>) => !this.sharedId && this.apply(moveEdge(p, e.detail), e.detail.done ? 'push' : 'replace')}></qdp-spectrum-chart></section>
-          <section aria-labelledby="h-crosstalk"><h2 id="h-crosstalk">Crosstalk and unmixing</h2>
-            <qdp-crosstalk-table .view=${c?.crosstalk} ?stale=${!!this.error}></qdp-crosstalk-table></section>
-          <section aria-labelledby="h-materials"><h2 id="h-materials">Material cautions</h2>
-            <qdp-material-notes .panel=${p} .materials=${MATERIALS} .exclude=${this.exclude}
-              @exclude-change=${(e: CustomEvent<{ exclude: ExcludableClass[] }>) => { this.exclude = e.detail.exclude; this.apply(p, 'replace'); }}></qdp-material-notes></section>
-          <section aria-labelledby="h-share"><h2 id="h-share">Share and export</h2>
-            <qdp-panel-actions .panel=${p} .blocked=${blocked} .localResolved=${c?.resolved ?? []}
-              .chartSvg=${() => this.chart?.shadowRoot?.querySelector('svg') ?? null}></qdp-panel-actions></section>
+          <section aria-labelledby="h-spectra">
+            <h2 id="h-spectra">Spectra</h2>
+            <label
+              ><input
+                type="checkbox"
+                .checked=${this.byBrightness}
+                @change=${(e: Event) => {
+                  this.byBrightness = (e.target as HTMLInputElement).checked;
+                  this.apply(p, 'none');
+                }}
+              />
+              Scale curves by expected brightness (otherwise each peaks at 1)</label
+            >
+            <qdp-spectrum-chart
+              .curves=${c?.chart.curves ?? []}
+              .passbands=${c?.chart.passbands ?? []}
+              .background=${c?.chart.background}
+              .excitationNm=${p.excitation.map((l) => l.wavelengthNm)}
+              .yLabel=${this.byBrightness ? 'relative emission × brightness' : 'emission (peak = 1)'}
+              @edge-drag=${(e: CustomEvent<EdgeDragDetail>) => !this.sharedId && this.apply(moveEdge(p, e.detail), e.detail.done ? 'push' : 'replace')}
+            ></qdp-spectrum-chart>
+          </section>
+          <section aria-labelledby="h-crosstalk">
+            <h2 id="h-crosstalk">Crosstalk and unmixing</h2>
+            <qdp-crosstalk-table .view=${c?.crosstalk} ?stale=${!!this.error}></qdp-crosstalk-table>
+          </section>
+          <section aria-labelledby="h-materials">
+            <h2 id="h-materials">Material cautions</h2>
+            <qdp-material-notes
+              .panel=${p}
+              .materials=${MATERIALS}
+              .exclude=${this.exclude}
+              @exclude-change=${(e: CustomEvent<{ exclude: ExcludableClass[] }>) => {
+                this.exclude = e.detail.exclude;
+                this.apply(p, 'replace');
+              }}
+            ></qdp-material-notes>
+          </section>
+          <section aria-labelledby="h-share">
+            <h2 id="h-share">Share and export</h2>
+            <qdp-panel-actions
+              .panel=${p}
+              .blocked=${blocked}
+              .localResolved=${c?.resolved ?? []}
+              .chartSvg=${() => this.chart?.shadowRoot?.querySelector('svg') ?? null}
+            ></qdp-panel-actions>
+          </section>
         </div>
       </main>`;
   }

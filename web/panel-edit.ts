@@ -5,7 +5,13 @@ import type { ChannelSpec, FilterSpec, PanelSpec, ProbeSpec } from '../spectra/i
 
 /** A new, empty panel with one 405 nm line. */
 export function newPanel(): PanelSpec {
-  return { version: 1, title: 'Untitled panel', excitation: [{ wavelengthNm: 405, powerRel: 1 }], probes: [], channels: [] };
+  return {
+    version: 1,
+    title: 'Untitled panel',
+    excitation: [{ wavelengthNm: 405, powerRel: 1 }],
+    probes: [],
+    channels: [],
+  };
 }
 
 /** The first id "<prefix><n>" not yet used. */
@@ -27,19 +33,34 @@ export function setChannel(panel: PanelSpec, index: number, channel: ChannelSpec
 /** Replaces filter `filterIndex` of channel `channelIndex`. */
 export function setFilter(panel: PanelSpec, channelIndex: number, filterIndex: number, filter: FilterSpec): PanelSpec {
   const channel = panel.channels[channelIndex];
-  return setChannel(panel, channelIndex, { ...channel, filters: channel.filters.map((f, i) => (i === filterIndex ? filter : f)) });
+  return setChannel(panel, channelIndex, {
+    ...channel,
+    filters: channel.filters.map((f, i) => (i === filterIndex ? filter : f)),
+  });
 }
 
 /** Adds a CdSe dot at 605 nm (a mid-visible start the user then edits). */
 export function addProbe(panel: PanelSpec): PanelSpec {
   const id = nextId('p', panel.probes);
-  return { ...panel, probes: [...panel.probes, { id, label: `Probe ${id.slice(1)}`, material: 'cdse', emissionPeakNm: 605, abundance: 1 }] };
+  return {
+    ...panel,
+    probes: [
+      ...panel.probes,
+      { id, label: `Probe ${id.slice(1)}`, material: 'cdse', emissionPeakNm: 605, abundance: 1 },
+    ],
+  };
 }
 
 /** Adds a bandpass channel at 605/20. */
 export function addChannel(panel: PanelSpec): PanelSpec {
   const id = nextId('c', panel.channels);
-  return { ...panel, channels: [...panel.channels, { id, label: `Channel ${id.slice(1)}`, filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] }] };
+  return {
+    ...panel,
+    channels: [
+      ...panel.channels,
+      { id, label: `Channel ${id.slice(1)}`, filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] },
+    ],
+  };
 }
 
 /** Removes probe `index` (and nothing else: channels keep their ids). */
@@ -64,7 +85,13 @@ const BIN_EDGE_NM = 1;
  * Adds a spectral detector run: `bins` contiguous bandpass channels of `binWidthNm` each, starting at `startNm`.
  * Returns the panel unchanged if the run would exceed `maxChannels` in total.
  */
-export function addSpectralRun(panel: PanelSpec, startNm: number, bins: number, binWidthNm: number, maxChannels = 64): PanelSpec {
+export function addSpectralRun(
+  panel: PanelSpec,
+  startNm: number,
+  bins: number,
+  binWidthNm: number,
+  maxChannels = 64,
+): PanelSpec {
   const channels = [...panel.channels];
   if (channels.length + bins > maxChannels) return panel;
   for (let k = 0; k < bins; k++) {

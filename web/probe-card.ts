@@ -26,28 +26,105 @@ export class ProbeCard extends LitElement {
   @property({ type: Boolean, reflect: true }) excluded = false;
 
   static override styles = css`
-    :host { display: block; border: 1px solid #ccd; border-radius: 6px; padding: 0.5rem 0.7rem; background: #fff; }
-    :host([excluded]) { border: 2px solid #8b1a1a; }
-    .row { display: flex; flex-wrap: wrap; gap: 0.5rem 0.8rem; align-items: flex-end; margin: 0.3rem 0; }
-    label.text { display: flex; flex-direction: column; font-size: 0.85rem; }
-    input[type='text'], select { font: inherit; padding: 0.2rem 0.3rem; border: 1px solid #889; border-radius: 3px; max-width: 100%; }
-    label.text { min-width: 0; max-width: 100%; }
-    :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
-    .pred { font-size: 0.85rem; color: #222; background: #f3f4f8; padding: 0.3rem 0.5rem; border-radius: 4px; }
-    .hazard { font-size: 0.8rem; } details.hazard ul { color: #222; margin: 0.2rem 0; padding-left: 1.2rem; } .high { color: #8b1a1a; } .moderate { color: #7a4a00; } .low { color: #2f4f2f; }
-    .bad { color: #8b1a1a; font-weight: 600; }
-    header { display: flex; justify-content: space-between; align-items: center; gap: 0.5rem; }
+    :host {
+      display: block;
+      border: 1px solid #ccd;
+      border-radius: 6px;
+      padding: 0.5rem 0.7rem;
+      background: #fff;
+    }
+    :host([excluded]) {
+      border: 2px solid #8b1a1a;
+    }
+    .row {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0.5rem 0.8rem;
+      align-items: flex-end;
+      margin: 0.3rem 0;
+    }
+    label.text {
+      display: flex;
+      flex-direction: column;
+      font-size: 0.85rem;
+    }
+    input[type='text'],
+    select {
+      font: inherit;
+      padding: 0.2rem 0.3rem;
+      border: 1px solid #889;
+      border-radius: 3px;
+      max-width: 100%;
+    }
+    label.text {
+      min-width: 0;
+      max-width: 100%;
+    }
+    :focus-visible {
+      outline: 3px solid #1a56db;
+      outline-offset: 1px;
+    }
+    .pred {
+      font-size: 0.85rem;
+      color: #222;
+      background: #f3f4f8;
+      padding: 0.3rem 0.5rem;
+      border-radius: 4px;
+    }
+    .hazard {
+      font-size: 0.8rem;
+    }
+    details.hazard ul {
+      color: #222;
+      margin: 0.2rem 0;
+      padding-left: 1.2rem;
+    }
+    .high {
+      color: #8b1a1a;
+    }
+    .moderate {
+      color: #7a4a00;
+    }
+    .low {
+      color: #2f4f2f;
+    }
+    .bad {
+      color: #8b1a1a;
+      font-weight: 600;
+    }
+    header {
+      display: flex;
+      justify-content: space-between;
+      align-items: center;
+      gap: 0.5rem;
+    }
   `;
 
   private change(patch: Partial<ProbeSpec>): void {
     const probe: ProbeSpec = { ...this.probe, ...patch };
     for (const k of Object.keys(probe) as (keyof ProbeSpec)[]) if (probe[k] === undefined) delete probe[k];
-    this.dispatchEvent(new CustomEvent('probe-change', { detail: { index: this.index, probe }, bubbles: true, composed: true }));
+    this.dispatchEvent(
+      new CustomEvent('probe-change', { detail: { index: this.index, probe }, bubbles: true, composed: true }),
+    );
   }
 
-  private num(label: string, key: 'emissionPeakNm' | 'diameterNm' | 'sizeDispersionPct' | 'quantumYield' | 'abundance' | 'fwhmNm', unit: string, optional: boolean, placeholder = '') {
-    return html`<qdp-number-field .label=${label} .unit=${unit} .value=${this.probe[key]} ?optional=${optional} .placeholder=${placeholder}
-      .error=${this.errors[key] ?? ''} data-field=${key} @value-change=${(e: CustomEvent<{ value?: number }>) => this.change({ [key]: e.detail.value })}></qdp-number-field>`;
+  private num(
+    label: string,
+    key: 'emissionPeakNm' | 'diameterNm' | 'sizeDispersionPct' | 'quantumYield' | 'abundance' | 'fwhmNm',
+    unit: string,
+    optional: boolean,
+    placeholder = '',
+  ) {
+    return html`<qdp-number-field
+      .label=${label}
+      .unit=${unit}
+      .value=${this.probe[key]}
+      ?optional=${optional}
+      .placeholder=${placeholder}
+      .error=${this.errors[key] ?? ''}
+      data-field=${key}
+      @value-change=${(e: CustomEvent<{ value?: number }>) => this.change({ [key]: e.detail.value })}
+    ></qdp-number-field>`;
   }
 
   private setMaterial(id: string): void {
@@ -57,10 +134,12 @@ export class ProbeCard extends LitElement {
     if (m?.emissionRangeNm && id !== 'custom') {
       const [lo, hi] = m.emissionRangeNm;
       const peak = this.probe.emissionPeakNm;
-      if (this.probe.diameterNm === undefined && (peak === undefined || peak < lo || peak > hi)) patch.emissionPeakNm = Math.round((lo + hi) / 2);
+      if (this.probe.diameterNm === undefined && (peak === undefined || peak < lo || peak > hi))
+        patch.emissionPeakNm = Math.round((lo + hi) / 2);
       if (this.probe.diameterNm !== undefined && m.diameterRangeNm) {
         const [dlo, dhi] = m.diameterRangeNm;
-        if (this.probe.diameterNm < dlo || this.probe.diameterNm > dhi) patch.diameterNm = Number(((dlo + dhi) / 2).toFixed(1));
+        if (this.probe.diameterNm < dlo || this.probe.diameterNm > dhi)
+          patch.diameterNm = Number(((dlo + dhi) / 2).toFixed(1));
       }
     }
     this.change(patch);
@@ -72,43 +151,113 @@ export class ProbeCard extends LitElement {
     const byDiameter = p.diameterNm !== undefined;
     const sized = p.material !== 'custom' && p.material !== 'carbon';
     const pr = this.prediction;
-    const fmt = (v: number | null | undefined, d = 0) => (v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d));
-    return html`
-      <header><strong>${p.label || p.id}</strong>
-        <button type="button" aria-label=${`Remove probe ${p.label || p.id}`} @click=${() => this.dispatchEvent(new CustomEvent('probe-remove', { detail: { index: this.index }, bubbles: true, composed: true }))}>Remove</button></header>
+    const fmt = (v: number | null | undefined, d = 0) =>
+      v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d);
+    return html` <header>
+        <strong>${p.label || p.id}</strong>
+        <button
+          type="button"
+          aria-label=${`Remove probe ${p.label || p.id}`}
+          @click=${() => this.dispatchEvent(new CustomEvent('probe-remove', { detail: { index: this.index }, bubbles: true, composed: true }))}
+        >
+          Remove
+        </button>
+      </header>
       ${this.blocked ? html`<p class="bad" role="alert">Blocked: ${this.blocked}.</p>` : ''}
       <div class="row">
-        <label class="text">Label <input type="text" .value=${p.label ?? ''} @change=${(e: Event) => this.change({ label: (e.target as HTMLInputElement).value })} /></label>
-        <label class="text">Target <input type="text" .value=${p.target ?? ''} placeholder="e.g. membrane marker" @change=${(e: Event) => this.change({ target: (e.target as HTMLInputElement).value })} /></label>
+        <label class="text"
+          >Label
+          <input
+            type="text"
+            .value=${p.label ?? ''}
+            @change=${(e: Event) => this.change({ label: (e.target as HTMLInputElement).value })}
+        /></label>
+        <label class="text"
+          >Target
+          <input
+            type="text"
+            .value=${p.target ?? ''}
+            placeholder="e.g. membrane marker"
+            @change=${(e: Event) => this.change({ target: (e.target as HTMLInputElement).value })}
+        /></label>
         ${this.num('Relative abundance', 'abundance', '', true, '1')}
       </div>
       <div class="row">
-        <label class="text">Material <select @change=${(e: Event) => this.setMaterial((e.target as HTMLSelectElement).value)}>
-          ${this.materials.map((x) => html`<option value=${x.id} ?selected=${x.id === p.material}>${x.name}</option>`)}</select></label>
-        ${sized ? html`<label class="text">Size given by <select @change=${(e: Event) => {
-            const v = (e.target as HTMLSelectElement).value;
-            if (v === 'diameter') this.change({ diameterNm: Number(fmt(pr?.diameterNm ?? 4, 2)) || 4, emissionPeakNm: undefined });
-            else this.change({ emissionPeakNm: Math.round(pr?.emissionPeakNm ?? 605), diameterNm: undefined });
-          }}>
-          <option value="peak" ?selected=${!byDiameter}>emission peak</option><option value="diameter" ?selected=${byDiameter}>core diameter</option></select></label>` : ''}
+        <label class="text"
+          >Material
+          <select @change=${(e: Event) => this.setMaterial((e.target as HTMLSelectElement).value)}>
+            ${this.materials.map((x) => html`<option value=${x.id} ?selected=${x.id === p.material}>${x.name}</option>`)}
+          </select></label
+        >
+        ${
+          sized
+            ? html`<label class="text"
+                >Size given by
+                <select
+                  @change=${(e: Event) => {
+                    const v = (e.target as HTMLSelectElement).value;
+                    if (v === 'diameter')
+                      this.change({ diameterNm: Number(fmt(pr?.diameterNm ?? 4, 2)) || 4, emissionPeakNm: undefined });
+                    else this.change({ emissionPeakNm: Math.round(pr?.emissionPeakNm ?? 605), diameterNm: undefined });
+                  }}
+                >
+                  <option value="peak" ?selected=${!byDiameter}>emission peak</option>
+                  <option value="diameter" ?selected=${byDiameter}>core diameter</option>
+                </select></label
+              >`
+            : ''
+        }
         ${p.material === 'custom' ? '' : byDiameter && sized ? this.num('Core diameter', 'diameterNm', 'nm', false) : this.num('Emission peak', 'emissionPeakNm', 'nm', false)}
         ${sized ? this.num('Size dispersion σ/d', 'sizeDispersionPct', '%', true, String(m?.typicalSizeDispersionPct ?? '')) : ''}
         ${p.material === 'carbon' ? this.num('FWHM', 'fwhmNm', 'nm', true, String(m?.typicalFwhmNm ?? '')) : ''}
         ${this.num('Quantum yield', 'quantumYield', '0–1', true, String(m?.typicalQuantumYield ?? ''))}
-        <label class="text">Channel <select @change=${(e: Event) => this.change({ channel: (e.target as HTMLSelectElement).value || undefined })}>
-          <option value="" ?selected=${!p.channel}>automatic (most light)</option>
-          ${this.channels.map((c) => html`<option value=${c.id} ?selected=${c.id === p.channel}>${c.label || c.id}</option>`)}</select></label>
+        <label class="text"
+          >Channel
+          <select @change=${(e: Event) => this.change({ channel: (e.target as HTMLSelectElement).value || undefined })}>
+            <option value="" ?selected=${!p.channel}>automatic (most light)</option>
+            ${this.channels.map((c) => html`<option value=${c.id} ?selected=${c.id === p.channel}>${c.label || c.id}</option>`)}
+          </select></label
+        >
       </div>
-      ${m ? html`<details class="hazard ${m.toxicity.level}"><summary>${m.name}: hazard ${m.toxicity.level}; notes and cautions</summary>
-        ${m.toxicity.notes.length ? html`<ul>${m.toxicity.notes.map((n) => html`<li>${n}</li>`)}</ul>` : ''}
-        <p><strong>Cautions</strong></p><ul>${m.toxicity.cautions.map((n) => html`<li>${n}</li>`)}</ul></details>` : ''}
+      ${
+        m
+          ? html`<details class="hazard ${m.toxicity.level}">
+              <summary>${m.name}: hazard ${m.toxicity.level}; notes and cautions</summary>
+              ${
+                m.toxicity.notes.length
+                  ? html`<ul>
+                      ${m.toxicity.notes.map((n) => html`<li>${n}</li>`)}
+                    </ul>`
+                  : ''
+              }
+              <p><strong>Cautions</strong></p>
+              <ul>
+                ${m.toxicity.cautions.map((n) => html`<li>${n}</li>`)}
+              </ul>
+            </details>`
+          : ''
+      }
       ${this.errors[''] ? html`<p class="bad" role="alert">${this.errors['']}</p>` : ''}
-      <p class="pred" aria-label="Predicted properties">${pr
-        ? `Predicted: core ${fmt(pr.diameterNm, 2)} nm · first exciton ${fmt(pr.firstExcitonNm)} nm · emission peak ${fmt(pr.emissionPeakNm)} nm · FWHM ${fmt(pr.fwhmNm)} nm · relative brightness ${fmt(pr.relativeBrightness * 100)} %${pr.measured ? ' · measured emission' : ''}`
-        : 'No prediction yet.'}</p>
-      ${pr?.warnings.length ? html`<ul class="hazard">${pr.warnings.map((w) => html`<li>${w}</li>`)}</ul>` : ''}
+      <p class="pred" aria-label="Predicted properties">
+        ${
+          pr
+            ? `Predicted: core ${fmt(pr.diameterNm, 2)} nm · first exciton ${fmt(pr.firstExcitonNm)} nm · emission peak ${fmt(pr.emissionPeakNm)} nm · FWHM ${fmt(pr.fwhmNm)} nm · relative brightness ${fmt(pr.relativeBrightness * 100)} %${pr.measured ? ' · measured emission' : ''}`
+            : 'No prediction yet.'
+        }
+      </p>
+      ${
+        pr?.warnings.length
+          ? html`<ul class="hazard">
+              ${pr.warnings.map((w) => html`<li>${w}</li>`)}
+            </ul>`
+          : ''
+      }
       <div class="row">
-        <qdp-spectrum-input kind="emission" label="measured emission" @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.change({ measuredEmission: { points: e.detail.points } })}></qdp-spectrum-input>
+        <qdp-spectrum-input
+          kind="emission"
+          label="measured emission"
+          @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.change({ measuredEmission: { points: e.detail.points } })}
+        ></qdp-spectrum-input>
         ${p.measuredEmission ? html`<button type="button" @click=${() => this.change({ measuredEmission: undefined })}>Use the model's curve again</button>` : ''}
       </div>`;
   }

@@ -21,19 +21,49 @@ export class ProbeList extends LitElement {
   @property({ type: Number }) maxProbes = 16;
 
   static override styles = css`
-    :host { display: block; }
-    .cards { display: grid; grid-template-columns: minmax(0, 1fr); gap: 0.6rem; }
-    button { margin-top: 0.5rem; }
-    :focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
+    :host {
+      display: block;
+    }
+    .cards {
+      display: grid;
+      grid-template-columns: minmax(0, 1fr);
+      gap: 0.6rem;
+    }
+    button {
+      margin-top: 0.5rem;
+    }
+    :focus-visible {
+      outline: 3px solid #1a56db;
+      outline-offset: 1px;
+    }
   `;
 
   override render() {
     const panel = this.panel;
     if (!panel) return html``;
     const full = panel.probes.length >= this.maxProbes;
-    return html`<div class="cards">${panel.probes.map((p, i) => html`<qdp-probe-card .probe=${p} .index=${i} .materials=${this.materials} .channels=${panel.channels}
-        .prediction=${this.predictions[i]} .errors=${this.errors[i] ?? {}} .blocked=${this.blocked.get(p.id) ?? ''} ?excluded=${this.blocked.has(p.id)}></qdp-probe-card>`)}</div>
-      <button type="button" ?disabled=${full} @click=${() => this.dispatchEvent(new CustomEvent('probe-add', { bubbles: true, composed: true }))}>Add probe</button>
+    return html`<div class="cards">
+        ${panel.probes.map(
+          (p, i) =>
+            html`<qdp-probe-card
+              .probe=${p}
+              .index=${i}
+              .materials=${this.materials}
+              .channels=${panel.channels}
+              .prediction=${this.predictions[i]}
+              .errors=${this.errors[i] ?? {}}
+              .blocked=${this.blocked.get(p.id) ?? ''}
+              ?excluded=${this.blocked.has(p.id)}
+            ></qdp-probe-card>`,
+        )}
+      </div>
+      <button
+        type="button"
+        ?disabled=${full}
+        @click=${() => this.dispatchEvent(new CustomEvent('probe-add', { bubbles: true, composed: true }))}
+      >
+        Add probe
+      </button>
       ${full ? html`<span>A panel holds at most ${this.maxProbes} probes.</span>` : ''}`;
   }
 }

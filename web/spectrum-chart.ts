@@ -7,7 +7,13 @@ import { customElement, property, state } from 'lit/decorators.js';
 import { axisBottom, axisLeft, axisRight } from 'd3-axis';
 import { select } from 'd3-selection';
 import { chartGeometry, MARGIN, type ChartGeometry } from './chart-geometry';
-import { type ChartCurve, type ChartHandle, type ChartPassband, type EdgeDragDetail, type GridCurve } from './chart-types';
+import {
+  type ChartCurve,
+  type ChartHandle,
+  type ChartPassband,
+  type EdgeDragDetail,
+  type GridCurve,
+} from './chart-types';
 import { isNearInfrared, wavelengthToCss } from './color';
 import { WidthController } from './resize-controller';
 import { chartReadout } from './chart-readout';
@@ -35,20 +41,64 @@ export class SpectrumChart extends LitElement {
   private drag?: ChartHandle;
 
   static override styles = css`
-    :host { display: block; }
-    svg { display: block; width: 100%; height: ${HEIGHT_PX}px; touch-action: none; font: 11px system-ui, sans-serif; }
-    .handle { cursor: ew-resize; }
-    .handle:focus-visible, .plot:focus-visible { outline: 3px solid #1a56db; outline-offset: 1px; }
-    .handle:focus-visible rect { fill: #1a56db; fill-opacity: 0.25; }
-    .readout { min-height: 2.6em; font-size: 0.85rem; color: #222; margin: 0.3rem 0 0; }
-    .legend { display: flex; flex-wrap: wrap; gap: 0.25rem 1rem; list-style: none; padding: 0; margin: 0.4rem 0 0; font-size: 0.85rem; }
-    .legend svg { display: inline-block; width: 28px; height: 10px; vertical-align: middle; }
+    :host {
+      display: block;
+    }
+    svg {
+      display: block;
+      width: 100%;
+      height: ${HEIGHT_PX}px;
+      touch-action: none;
+      font:
+        11px system-ui,
+        sans-serif;
+    }
+    .handle {
+      cursor: ew-resize;
+    }
+    .handle:focus-visible,
+    .plot:focus-visible {
+      outline: 3px solid #1a56db;
+      outline-offset: 1px;
+    }
+    .handle:focus-visible rect {
+      fill: #1a56db;
+      fill-opacity: 0.25;
+    }
+    .readout {
+      min-height: 2.6em;
+      font-size: 0.85rem;
+      color: #222;
+      margin: 0.3rem 0 0;
+    }
+    .legend {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 0.25rem 1rem;
+      list-style: none;
+      padding: 0;
+      margin: 0.4rem 0 0;
+      font-size: 0.85rem;
+    }
+    .legend svg {
+      display: inline-block;
+      width: 28px;
+      height: 10px;
+      vertical-align: middle;
+    }
   `;
 
   protected override willUpdate(changed: PropertyValues<this>): void {
     // Paths are rebuilt only when the data or the size changed, not on every pointer move.
     const w = this.width.widthPx;
-    if (!this.geometry || changed.has('curves') || changed.has('passbands') || changed.has('background') || changed.has('domainNm') || this.geometry.x.range()[1] !== Math.max(MARGIN.left + 10, w - MARGIN.right)) {
+    if (
+      !this.geometry ||
+      changed.has('curves') ||
+      changed.has('passbands') ||
+      changed.has('background') ||
+      changed.has('domainNm') ||
+      this.geometry.x.range()[1] !== Math.max(MARGIN.left + 10, w - MARGIN.right)
+    ) {
       this.geometry = chartGeometry(this.curves, this.passbands, this.background, this.domainNm, w, HEIGHT_PX);
     }
   }
@@ -103,7 +153,10 @@ export class SpectrumChart extends LitElement {
     if (e.key !== 'ArrowLeft' && e.key !== 'ArrowRight') return;
     e.preventDefault();
     const start = this.hoverNm ?? Math.round((this.domainNm[0] + this.domainNm[1]) / 2);
-    this.hoverNm = Math.min(this.domainNm[1], Math.max(this.domainNm[0], start + (e.key === 'ArrowRight' ? 1 : -1) * (e.shiftKey ? 10 : 1)));
+    this.hoverNm = Math.min(
+      this.domainNm[1],
+      Math.max(this.domainNm[0], start + (e.key === 'ArrowRight' ? 1 : -1) * (e.shiftKey ? 10 : 1)),
+    );
   }
 
   override render() {
@@ -113,39 +166,122 @@ export class SpectrumChart extends LitElement {
     // Band names only where they fit: up to 8 bands on a chart at least 600 px wide.
     const labelBands = this.passbands.length <= 8 && w >= 600;
     return html`
-      <svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${w} ${HEIGHT_PX}" width=${w} height=${HEIGHT_PX} role="group" aria-label="Emission spectra, passbands and excitation lines"
-        @pointermove=${this.onMove} @pointerup=${this.onUp} @pointercancel=${this.onUp} @pointerleave=${() => !this.drag && (this.hoverNm = null)}>
+      <svg
+        xmlns="http://www.w3.org/2000/svg"
+        viewBox="0 0 ${w} ${HEIGHT_PX}"
+        width=${w}
+        height=${HEIGHT_PX}
+        role="group"
+        aria-label="Emission spectra, passbands and excitation lines"
+        @pointermove=${this.onMove}
+        @pointerup=${this.onUp}
+        @pointercancel=${this.onUp}
+        @pointerleave=${() => !this.drag && (this.hoverNm = null)}
+      >
         <rect x="0" y="0" width=${w} height=${HEIGHT_PX} fill="#ffffff"></rect>
-        <rect class="plot" tabindex="0" aria-label="Plot area: arrow keys move the readout" x=${MARGIN.left} y=${top} width=${Math.max(0, w - MARGIN.left - MARGIN.right)} height=${bottom - top} fill="#fafafa" @keydown=${this.plotKey}></rect>
-        ${this.passbands.map((p, i) => svg`<path class="passband" data-channel=${p.id} d=${g.passbandPaths[i]} fill="#8a94a6" fill-opacity="0.16" stroke="#5b6475" stroke-width="1" stroke-dasharray="3 2"></path>
-          ${labelBands && p.handles.length ? svg`<text x=${g.x((p.handles[0].wavelengthNm + p.handles[p.handles.length - 1].wavelengthNm) / 2)} y=${top + 10} text-anchor="middle" fill="#3b4252" font-size="10">${p.label}</text>` : ''}`)}
+        <rect
+          class="plot"
+          tabindex="0"
+          aria-label="Plot area: arrow keys move the readout"
+          x=${MARGIN.left}
+          y=${top}
+          width=${Math.max(0, w - MARGIN.left - MARGIN.right)}
+          height=${bottom - top}
+          fill="#fafafa"
+          @keydown=${this.plotKey}
+        ></rect>
+        ${this.passbands.map(
+          (
+            p,
+            i,
+          ) => svg`<path class="passband" data-channel=${p.id} d=${g.passbandPaths[i]} fill="#8a94a6" fill-opacity="0.16" stroke="#5b6475" stroke-width="1" stroke-dasharray="3 2"></path>
+          ${labelBands && p.handles.length ? svg`<text x=${g.x((p.handles[0].wavelengthNm + p.handles[p.handles.length - 1].wavelengthNm) / 2)} y=${top + 10} text-anchor="middle" fill="#3b4252" font-size="10">${p.label}</text>` : ''}`,
+        )}
         ${this.background ? svg`<path class="background" d=${g.backgroundPath} fill="#b08d57" fill-opacity="0.22" stroke="#8a6a35" stroke-width="1"></path>` : ''}
-        ${this.excitationNm.map((nm) => svg`<line class="excitation" x1=${g.x(nm)} x2=${g.x(nm)} y1=${top} y2=${bottom} stroke=${wavelengthToCss(nm)} stroke-width="2.5"></line>
-          <text x=${g.x(nm) + 3} y=${bottom - 4} fill="#3b2b6b" font-size="10">ex ${nm}</text>`)}
+        ${this.excitationNm.map(
+          (
+            nm,
+          ) => svg`<line class="excitation" x1=${g.x(nm)} x2=${g.x(nm)} y1=${top} y2=${bottom} stroke=${wavelengthToCss(nm)} stroke-width="2.5"></line>
+          <text x=${g.x(nm) + 3} y=${bottom - 4} fill="#3b2b6b" font-size="10">ex ${nm}</text>`,
+        )}
         ${this.curves.map((c, i) => {
           const nir = isNearInfrared(c.peakNm);
           return svg`<path d=${g.curvePaths[i]} fill="none" stroke="#222" stroke-opacity="0.45" stroke-width="3.5"></path>
             <path class="curve" data-probe=${c.id} d=${g.curvePaths[i]} fill="none" stroke=${wavelengthToCss(c.peakNm)} stroke-width="2" stroke-dasharray=${nir ? '6 3' : 'none'}></path>`;
         })}
         ${this.hoverNm !== null ? svg`<line x1=${g.x(this.hoverNm)} x2=${g.x(this.hoverNm)} y1=${top} y2=${bottom} stroke="#111" stroke-width="1" stroke-dasharray="2 2"></line>` : ''}
-        ${this.passbands.flatMap((p) => p.handles.map((h) => svg`<g class="handle" tabindex="0" role="slider" aria-label=${`${p.label}: ${h.edge === 'edge' ? 'edge' : h.edge === 'low' ? 'lower edge' : 'upper edge'}`}
+        ${this.passbands.flatMap((p) =>
+          p.handles.map(
+            (
+              h,
+            ) => svg`<g class="handle" tabindex="0" role="slider" aria-label=${`${p.label}: ${h.edge === 'edge' ? 'edge' : h.edge === 'low' ? 'lower edge' : 'upper edge'}`}
             aria-valuenow=${h.wavelengthNm} aria-valuemin=${this.domainNm[0]} aria-valuemax=${this.domainNm[1]} data-channel=${p.id} data-edge=${h.edge}
             @pointerdown=${(e: PointerEvent) => this.startDrag(e, h)} @keydown=${(e: KeyboardEvent) => this.handleKey(e, h)}>
             <rect x=${g.x(h.wavelengthNm) - 7} y=${top} width="14" height=${bottom - top} fill="#000" fill-opacity="0"></rect>
             <line x1=${g.x(h.wavelengthNm)} x2=${g.x(h.wavelengthNm)} y1=${top} y2=${bottom} stroke="#5b6475" stroke-width="1.5"></line>
-            <rect x=${g.x(h.wavelengthNm) - 4} y=${top + 16} width="8" height="16" rx="2" fill="#5b6475"></rect></g>`))}
+            <rect x=${g.x(h.wavelengthNm) - 4} y=${top + 16} width="8" height="16" rx="2" fill="#5b6475"></rect></g>`,
+          ),
+        )}
         <g class="x-axis" transform="translate(0,${bottom})"></g>
         <g class="y-axis" transform="translate(${MARGIN.left},0)"></g>
         <g class="t-axis" transform="translate(${w - MARGIN.right},0)"></g>
-        <text x=${(MARGIN.left + w - MARGIN.right) / 2} y=${HEIGHT_PX - 6} text-anchor="middle" fill="#222" font-size="11">wavelength (nm)</text>
-        <text transform="translate(12,${(top + bottom) / 2}) rotate(-90)" text-anchor="middle" fill="#222" font-size="11">${this.yLabel}</text>
-        <text transform="translate(${w - 6},${(top + bottom) / 2}) rotate(90)" text-anchor="middle" fill="#222" font-size="11">passband transmission</text>
+        <text
+          x=${(MARGIN.left + w - MARGIN.right) / 2}
+          y=${HEIGHT_PX - 6}
+          text-anchor="middle"
+          fill="#222"
+          font-size="11"
+        >
+          wavelength (nm)
+        </text>
+        <text
+          transform="translate(12,${(top + bottom) / 2}) rotate(-90)"
+          text-anchor="middle"
+          fill="#222"
+          font-size="11"
+        >
+          ${this.yLabel}
+        </text>
+        <text
+          transform="translate(${w - 6},${(top + bottom) / 2}) rotate(90)"
+          text-anchor="middle"
+          fill="#222"
+          font-size="11"
+        >
+          passband transmission
+        </text>
       </svg>
-      <p class="readout" role="status" aria-live="polite">${chartReadout(this.hoverNm, this.curves, this.passbands, this.background)}</p>
+      <p class="readout" role="status" aria-live="polite">
+        ${chartReadout(this.hoverNm, this.curves, this.passbands, this.background)}
+      </p>
       <ul class="legend" aria-label="Legend">
-        ${this.curves.map((c) => html`<li><svg viewBox="0 0 28 10" aria-hidden="true"><line x1="0" x2="28" y1="5" y2="5" stroke=${wavelengthToCss(c.peakNm)} stroke-width="3" stroke-dasharray=${isNearInfrared(c.peakNm) ? '6 3' : 'none'}></line></svg>
-          ${c.label} (${Math.round(c.peakNm)} nm)${isNearInfrared(c.peakNm) ? html` <strong>NIR</strong>` : ''}</li>`)}
-        ${this.background ? html`<li><svg viewBox="0 0 28 10" aria-hidden="true"><rect width="28" height="10" fill="#b08d57" fill-opacity="0.4"></rect></svg> sample background</li>` : ''}
+        ${this.curves.map(
+          (c) =>
+            html`<li>
+              <svg viewBox="0 0 28 10" aria-hidden="true">
+                <line
+                  x1="0"
+                  x2="28"
+                  y1="5"
+                  y2="5"
+                  stroke=${wavelengthToCss(c.peakNm)}
+                  stroke-width="3"
+                  stroke-dasharray=${isNearInfrared(c.peakNm) ? '6 3' : 'none'}
+                ></line>
+              </svg>
+              ${c.label} (${Math.round(c.peakNm)} nm)${isNearInfrared(c.peakNm) ? html` <strong>NIR</strong>` : ''}
+            </li>`,
+        )}
+        ${
+          this.background
+            ? html`<li>
+                <svg viewBox="0 0 28 10" aria-hidden="true">
+                  <rect width="28" height="10" fill="#b08d57" fill-opacity="0.4"></rect>
+                </svg>
+                sample background
+              </li>`
+            : ''
+        }
       </ul>
       ${this.curves.some((c) => isNearInfrared(c.peakNm)) ? html`<p class="readout">NIR: near-infrared emission (700 nm and beyond) is nearly invisible to the eye, so it is drawn as a dashed dark-grey line rather than in a colour.</p>` : ''}
     `;

@@ -16,7 +16,10 @@ export function importSpectrumText(text: string, kind: ImportKind): ImportResult
   try {
     const { points, warnings } = parseSpectrumCsv(text, { kind });
     const thin = resamplePoints(points as SpectrumPoints);
-    const note = thin.length < points.length ? [`resampled from ${points.length} to ${thin.length} points to keep links short`] : [];
+    const note =
+      thin.length < points.length
+        ? [`resampled from ${points.length} to ${thin.length} points to keep links short`]
+        : [];
     return { ok: true, points: thin, warnings: [...warnings, ...note] };
   } catch (e) {
     return { ok: false, message: e instanceof Error ? e.message : String(e) };
@@ -25,6 +28,7 @@ export function importSpectrumText(text: string, kind: ImportKind): ImportResult
 
 /** Reads a chosen file as text and parses it. */
 export async function importSpectrumFile(file: File, kind: ImportKind): Promise<ImportResult> {
-  if (file.size > 2_000_000) return { ok: false, message: `${file.name} is over 2 MB; a two-column spectrum is far smaller.` };
+  if (file.size > 2_000_000)
+    return { ok: false, message: `${file.name} is over 2 MB; a two-column spectrum is far smaller.` };
   return importSpectrumText(await file.text(), kind);
 }

@@ -21,12 +21,22 @@ export const DesignTarget = z.strictObject({
   abundance: Abundance,
 });
 
-const wholeNm = (min: number, max: number) => z.number({ error: 'must be a whole number of nm' }).int({ error: 'must be a whole number of nm' }).min(min, { error: `must be at least ${min} nm` }).max(max, { error: `must be at most ${max} nm` });
+const wholeNm = (min: number, max: number) =>
+  z
+    .number({ error: 'must be a whole number of nm' })
+    .int({ error: 'must be a whole number of nm' })
+    .min(min, { error: `must be at least ${min} nm` })
+    .max(max, { error: `must be at most ${max} nm` });
 const perItem = (max: number) => z.union([ranged(0, max), z.array(ranged(0, max)).min(1).max(LIMITS.maxChannels)]);
 
 /** Search and noise options (spectra/design/options.ts documents each default). */
 export const DesignOptions = z.strictObject({
-  nodeBudget: z.number().int({ error: 'must be a whole number' }).min(1, { error: 'must be at least 1' }).max(5_000_000, { error: 'must be at most 5,000,000' }).optional(),
+  nodeBudget: z
+    .number()
+    .int({ error: 'must be a whole number' })
+    .min(1, { error: 'must be at least 1' })
+    .max(5_000_000, { error: 'must be at most 5,000,000' })
+    .optional(),
   minSignalFraction: ranged(0, 1).optional(),
   lineClearance: z.boolean({ error: 'must be true or false' }).optional(),
   peakStepNm: wholeNm(1, 50).optional(),
@@ -57,15 +67,23 @@ export const DesignRequest = z
     windowNm: z.tuple([wavelengthNm(), wavelengthNm()], { error: 'must be [min, max] in nm' }).optional(),
     candidates: z
       .strictObject({
-        probes: z.array(Probe).min(1, { error: 'needs at least one probe' }).max(LIMITS.maxProbes, { error: `has more than ${LIMITS.maxProbes} probes` }),
-        channels: z.array(Channel).min(1, { error: 'needs at least one channel' }).max(LIMITS.maxChannels, { error: `has more than ${LIMITS.maxChannels} channels` }),
+        probes: z
+          .array(Probe)
+          .min(1, { error: 'needs at least one probe' })
+          .max(LIMITS.maxProbes, { error: `has more than ${LIMITS.maxProbes} probes` }),
+        channels: z
+          .array(Channel)
+          .min(1, { error: 'needs at least one channel' })
+          .max(LIMITS.maxChannels, { error: `has more than ${LIMITS.maxChannels} channels` }),
       })
       .optional(),
     options: DesignOptions.optional(),
   })
   .superRefine((request, ctx) => {
-    const issue = (message: string, path: (string | number)[]) => ctx.addIssue({ code: 'custom', message, path, params: { apiCode: 'invalid_input' } });
-    if (request.windowNm && !(request.windowNm[0] < request.windowNm[1])) issue('must be [min, max] with min < max (the window is empty)', ['windowNm']);
+    const issue = (message: string, path: (string | number)[]) =>
+      ctx.addIssue({ code: 'custom', message, path, params: { apiCode: 'invalid_input' } });
+    if (request.windowNm && !(request.windowNm[0] < request.windowNm[1]))
+      issue('must be [min, max] with min < max (the window is empty)', ['windowNm']);
     const names = new Set<string>();
     request.targets.forEach((t, i) => {
       if (names.has(t.name)) issue(`names target '${t.name}' twice`, ['targets', i, 'name']);
@@ -74,7 +92,8 @@ export const DesignRequest = z
     for (const list of ['probes', 'channels'] as const) {
       const ids = new Set<string>();
       request.candidates?.[list].forEach((item, i) => {
-        if (ids.has(item.id)) issue(`id '${item.id}' is used twice in candidate ${list}`, ['candidates', list, i, 'id']);
+        if (ids.has(item.id))
+          issue(`id '${item.id}' is used twice in candidate ${list}`, ['candidates', list, i, 'id']);
         ids.add(item.id);
       });
     }

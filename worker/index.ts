@@ -34,7 +34,9 @@ app.route('/api/v1/panels', panels);
 app.route('/p', pages);
 
 app.notFound((c) =>
-  c.req.path.startsWith('/api/') ? errorResponse(404, 'not_found', `no route ${c.req.method} ${c.req.path}`) : notFoundPage(),
+  c.req.path.startsWith('/api/')
+    ? errorResponse(404, 'not_found', `no route ${c.req.method} ${c.req.path}`)
+    : notFoundPage(),
 );
 app.onError(onApiError);
 

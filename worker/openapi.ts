@@ -26,7 +26,10 @@ const COMPONENTS: [string, z.ZodType][] = [
 ];
 
 const ref = (name: string): Json => ({ $ref: `#/components/schemas/${name}` });
-const json = (schema: Json, description: string): Json => ({ description, content: { 'application/json': { schema } } });
+const json = (schema: Json, description: string): Json => ({
+  description,
+  content: { 'application/json': { schema } },
+});
 const errors: Json = {
   '400': json(ref('Error'), 'bad input: the error names the field in `path`'),
   '404': json(ref('Error'), 'unknown route or id'),
@@ -42,7 +45,11 @@ const post = (summary: string, body: string, responses: Json): Json => ({
 function componentSchemas(): Json {
   const registry = z.registry<{ id: string }>();
   for (const [id, schema] of COMPONENTS) registry.add(schema, { id });
-  const out = z.toJSONSchema(registry, { uri: (id) => `#/components/schemas/${id}`, io: 'input', unrepresentable: 'any' });
+  const out = z.toJSONSchema(registry, {
+    uri: (id) => `#/components/schemas/${id}`,
+    io: 'input',
+    unrepresentable: 'any',
+  });
   // The document's own openapi/jsonSchemaDialect fields say which dialect applies; drop the per-schema headers.
   for (const schema of Object.values(out.schemas)) {
     delete (schema as Json).$schema;
@@ -64,7 +71,9 @@ export function openApiDocument(): Json {
       '/api/v1/openapi.json': get('this document', json({ type: 'object' }, 'OpenAPI 3.1')),
       '/api/v1/materials': get('materials with sizing ranges and cautions', json(ref('MaterialList'), 'ok')),
       '/api/v1/detectors': get('generic detector classes', json(ref('DetectorList'), 'ok')),
-      '/api/v1/dots/resolve': post('one dot: size, peak, spectrum', 'DotRequest', { '200': json(ref('ResolvedDot'), 'ok') }),
+      '/api/v1/dots/resolve': post('one dot: size, peak, spectrum', 'DotRequest', {
+        '200': json(ref('ResolvedDot'), 'ok'),
+      }),
       '/api/v1/panels/evaluate': post('collected light, spillover, unmixing noise', 'Panel', {
         '200': json(ref('Evaluation'), 'ok'),
       }),
@@ -73,13 +82,19 @@ export function openApiDocument(): Json {
         '200': json(ref('ShareCreated'), 'already stored'),
         '429': json(ref('Error'), 'too many new links from this client (see Retry-After)'),
       }),
-      '/api/v1/panels/design': post('propose dots and filters for a set of targets (exact on a catalog; best found under a node budget)', 'DesignRequest', {
-        '200': json(ref('DesignResponse'), 'the proposal, its evaluation, objective and search statistics'),
-      }),
+      '/api/v1/panels/design': post(
+        'propose dots and filters for a set of targets (exact on a catalog; best found under a node budget)',
+        'DesignRequest',
+        {
+          '200': json(ref('DesignResponse'), 'the proposal, its evaluation, objective and search statistics'),
+        },
+      ),
       '/api/v1/panels/{id}': {
         get: {
           summary: 'a stored panel, exactly as it was sent',
-          parameters: [{ name: 'id', in: 'path', required: true, schema: { type: 'string', pattern: '^[A-Za-z0-9_-]{24}$' } }],
+          parameters: [
+            { name: 'id', in: 'path', required: true, schema: { type: 'string', pattern: '^[A-Za-z0-9_-]{24}$' } },
+          ],
           responses: { '200': json(ref('Panel'), 'ok'), ...errors },
         },
       },

@@ -13,7 +13,11 @@ export interface StoredPanel {
  * and an existing value is never overwritten (the same text always maps to the same key anyway). `beforeWrite` runs
  * only when a new value is about to be written (the per-client budget of new links); it may throw to refuse.
  */
-export async function savePanel(kv: KVNamespace, panel: unknown, beforeWrite?: () => Promise<void>): Promise<StoredPanel> {
+export async function savePanel(
+  kv: KVNamespace,
+  panel: unknown,
+  beforeWrite?: () => Promise<void>,
+): Promise<StoredPanel> {
   const canonical = canonicalJson(panel);
   const id = await shareIdOf(canonical);
   const existing = await kv.get(KEY_PREFIX + id);

@@ -19,7 +19,11 @@ export function issueToError(issue: Issue): { code: ApiErrorCode; message: strin
   switch (issue.code) {
     case 'unrecognized_keys': {
       const key = issue.keys[0];
-      return { code: 'invalid_input', message: `${pathText([...path, key])} is not a known field`, path: [...path, key] };
+      return {
+        code: 'invalid_input',
+        message: `${pathText([...path, key])} is not a known field`,
+        path: [...path, key],
+      };
     }
     case 'invalid_union':
       if ('discriminator' in issue && issue.discriminator === 'type') {
@@ -35,7 +39,11 @@ export function issueToError(issue: Issue): { code: ApiErrorCode; message: strin
     case 'too_small':
     case 'too_big':
       if (issue.origin === 'number') {
-        return { code: inTable ? 'invalid_table' : 'out_of_range', message: `${pathText(path)} ${issue.message}`, path };
+        return {
+          code: inTable ? 'invalid_table' : 'out_of_range',
+          message: `${pathText(path)} ${issue.message}`,
+          path,
+        };
       }
       break;
     case 'custom': {

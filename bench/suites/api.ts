@@ -42,7 +42,11 @@ export default async function apiSuite(): Promise<BenchRow[]> {
   const app = await startApp();
   try {
     const panel = JSON.stringify(demoPanelTitled('Benchmark panel'));
-    const shared = await fetch(`${app.baseUrl}/api/v1/panels`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: panel });
+    const shared = await fetch(`${app.baseUrl}/api/v1/panels`, {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: panel,
+    });
     const { id } = (await shared.json()) as { id: string };
     const rows: BenchRow[] = [];
     for (const connections of CONNECTIONS) {
@@ -55,7 +59,12 @@ export default async function apiSuite(): Promise<BenchRow[]> {
           connections,
         }),
       );
-      rows.push(await load(app, `GET /panels/<id> share fetch, ${connections} conn`, { url: `${app.baseUrl}/api/v1/panels/${id}`, connections }));
+      rows.push(
+        await load(app, `GET /panels/<id> share fetch, ${connections} conn`, {
+          url: `${app.baseUrl}/api/v1/panels/${id}`,
+          connections,
+        }),
+      );
     }
     return rows;
   } finally {

@@ -16,15 +16,26 @@ const WORDS = ['high', 'low', 'medium', 'high', 'low', 'medium', 'high', 'low'] 
 
 function syntheticCatalog(seed: number): { collected: number[][]; abundance: number[] } {
   const rng = createRandom(seed);
-  const probes = Array.from({ length: 16 }, () => ({ mu: 450 + 300 * rng.uniform(), s: (20 + 25 * rng.uniform()) / 2.3548, b: 0.2 + 2.8 * rng.uniform() }));
+  const probes = Array.from({ length: 16 }, () => ({
+    mu: 450 + 300 * rng.uniform(),
+    s: (20 + 25 * rng.uniform()) / 2.3548,
+    b: 0.2 + 2.8 * rng.uniform(),
+  }));
   const bands = Array.from({ length: 16 }, () => ({ c: 450 + 300 * rng.uniform(), w: 15 + 35 * rng.uniform() }));
-  const collected = bands.map(({ c, w }) => probes.map(({ mu, s, b }) => b * (phi((c + w / 2 - mu) / s) - phi((c - w / 2 - mu) / s) + 1e-6)));
+  const collected = bands.map(({ c, w }) =>
+    probes.map(({ mu, s, b }) => b * (phi((c + w / 2 - mu) / s) - phi((c - w / 2 - mu) / s) + 1e-6)),
+  );
   return { collected, abundance: Array.from({ length: 8 }, () => [1, 0.3, 0.1][Math.floor(rng.uniform() * 3)]) };
 }
 
 function stats(ms: number[]): Pick<BenchRow, 'medianMs' | 'minMs' | 'maxMs' | 'samples'> {
   const sorted = [...ms].sort((a, b) => a - b);
-  return { medianMs: sorted[Math.floor(sorted.length / 2)], minMs: sorted[0], maxMs: sorted[sorted.length - 1], samples: ms.length };
+  return {
+    medianMs: sorted[Math.floor(sorted.length / 2)],
+    minMs: sorted[0],
+    maxMs: sorted[sorted.length - 1],
+    samples: ms.length,
+  };
 }
 
 function timed<T>(run: () => T): [T, number] {
@@ -63,13 +74,22 @@ function catalogRows(): BenchRow[] {
       suite: 'design',
       name: 'catalog search 8 of 16×16 (8 synthetic catalogs)',
       ...stats(times),
-      extra: { medianNodes, maxNodes: Math.max(...nodes), fullEnumeration: full.toExponential(2), exactRuns: `${exact}/8` },
+      extra: {
+        medianNodes,
+        maxNodes: Math.max(...nodes),
+        fullEnumeration: full.toExponential(2),
+        exactRuns: `${exact}/8`,
+      },
     },
     {
       suite: 'design',
       name: 'catalog runDesign 8 of 16×16 real dots',
       ...stats(pipeline.map(([, ms]) => ms)),
-      extra: { nodes: last.stats.nodesVisited, exact: String(last.exact), worst: last.objective.worstInterference.toExponential(3) },
+      extra: {
+        nodes: last.stats.nodesVisited,
+        exact: String(last.exact),
+        worst: last.objective.worstInterference.toExponential(3),
+      },
     },
   ];
 }

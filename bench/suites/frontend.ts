@@ -12,7 +12,15 @@ import { chromium } from 'playwright-core';
 import type { BenchRow } from '../run';
 import { ROOT, startApp } from '../../test/quality/helpers/app';
 
-const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
 const LOADS = 7;
 /** Budget for the first load, gzipped (our target). */
 const BUDGET_KIB = 80;
@@ -39,7 +47,12 @@ function bundleRow(): BenchRow {
     suite: 'frontend',
     name: 'first load, gzipped',
     medianMs: null,
-    extra: { files: files.length, rawKiB: +(raw / 1024).toFixed(1), gzipKiB: +(gz / 1024).toFixed(1), budgetKiB: BUDGET_KIB },
+    extra: {
+      files: files.length,
+      rawKiB: +(raw / 1024).toFixed(1),
+      gzipKiB: +(gz / 1024).toFixed(1),
+      budgetKiB: BUDGET_KIB,
+    },
     note: gz / 1024 <= BUDGET_KIB ? 'within budget' : 'OVER BUDGET',
   };
 }
@@ -47,7 +60,12 @@ function bundleRow(): BenchRow {
 async function chartRow(): Promise<BenchRow> {
   const app = await startApp();
   const profile = mkdtempSync(join(tmpdir(), 'qdpanel-bench-chrome-'));
-  const context = await chromium.launchPersistentContext(profile, { executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS, viewport: { width: 1280, height: 900 } });
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: CHROMIUM_ARGS,
+    viewport: { width: 1280, height: 900 },
+  });
   try {
     const times: number[] = [];
     for (let i = 0; i <= LOADS; i++) {

@@ -23,7 +23,15 @@ import { fileURLToPath } from 'node:url';
 import { Bench } from 'tinybench';
 import type { BenchRow } from '../run';
 import {
-  DEFAULT_GRID, centerEvForPeakNm, channelTransmission, clearResolvedDotCache, evaluatePanel, fwhmNmOfLine, resolveDot, type DotInput, type PanelSpec,
+  DEFAULT_GRID,
+  centerEvForPeakNm,
+  channelTransmission,
+  clearResolvedDotCache,
+  evaluatePanel,
+  fwhmNmOfLine,
+  resolveDot,
+  type DotInput,
+  type PanelSpec,
   type ProbeSpec,
 } from '../../spectra/index';
 
@@ -31,7 +39,8 @@ import {
 const SHARED_NUMPY_SCRIPT = fileURLToPath(new URL('../../../shared/bench/numpy_evaluate.py', import.meta.url));
 const NUMPY_SCRIPT = process.env.QDPANEL_NUMPY_SCRIPT ?? SHARED_NUMPY_SCRIPT;
 
-const materialFor = (peakNm: number): ProbeSpec['material'] => (peakNm <= 650 ? 'cdse' : peakNm <= 730 ? 'cdte' : 'gaas');
+const materialFor = (peakNm: number): ProbeSpec['material'] =>
+  peakNm <= 650 ? 'cdse' : peakNm <= 730 ? 'cdte' : 'gaas';
 
 /** A panel with one probe per peak and one bandpass (centre = peak) per probe, excited at 405 nm. */
 function panelFor(peaksNm: number[], widthNm: number): PanelSpec {
@@ -60,7 +69,10 @@ function numpyPanel(): PanelSpec {
     probe.fwhmNm = fwhmNmOfLine(centerEvForPeakNm(peaksNm[i], NUMPY_FWHM_EV), NUMPY_FWHM_EV);
   });
   panel.channels.forEach((channel) => {
-    channel.filters[0] = { ...channel.filters[0], edgeWidthNm: 2 * Math.log(9) * NUMPY_EDGE_SCALE_NM } as (typeof channel.filters)[number];
+    channel.filters[0] = {
+      ...channel.filters[0],
+      edgeWidthNm: 2 * Math.log(9) * NUMPY_EDGE_SCALE_NM,
+    } as (typeof channel.filters)[number];
   });
   return panel;
 }
@@ -71,7 +83,9 @@ function runNumpy(): { medianUs: number | null; note: string } {
   try {
     const out = execFileSync('python3', [NUMPY_SCRIPT], { encoding: 'utf8', timeout: 300_000 });
     const match = /median ([\d.]+) us/.exec(out);
-    return match ? { medianUs: Number(match[1]), note: out.trim() } : { medianUs: null, note: `unexpected output: ${out.trim()}` };
+    return match
+      ? { medianUs: Number(match[1]), note: out.trim() }
+      : { medianUs: null, note: `unexpected output: ${out.trim()}` };
   } catch (err) {
     return { medianUs: null, note: `skipped: python3/numpy failed (${String((err as Error).message).split('\n')[0]})` };
   }
@@ -95,8 +109,16 @@ async function medians(tasks: [string, () => void][], timeMs: number): Promise<B
   for (const [name, fn] of tasks) bench.add(name, fn);
   await bench.run();
   return bench.tasks.map((task) => {
-    const r = task.result as unknown as { latency?: { p50: number; min: number; max: number; samplesCount?: number } } | undefined;
-    return { suite: 'spectra', name: task.name, medianMs: r?.latency?.p50 ?? null, minMs: r?.latency?.min ?? null, maxMs: r?.latency?.max ?? null, samples: r?.latency?.samplesCount };
+    const r = task.result as unknown as
+      { latency?: { p50: number; min: number; max: number; samplesCount?: number } } | undefined;
+    return {
+      suite: 'spectra',
+      name: task.name,
+      medianMs: r?.latency?.p50 ?? null,
+      minMs: r?.latency?.min ?? null,
+      maxMs: r?.latency?.max ?? null,
+      samples: r?.latency?.samplesCount,
+    };
   });
 }
 
@@ -104,17 +126,29 @@ const ROUNDS = 3;
 
 export default async function spectraSuite(): Promise<BenchRow[]> {
   const panel8 = numpyPanel();
-  const panel16 = panelFor(Array.from({ length: 16 }, (_, i) => 470 + 20 * i), 16);
+  const panel16 = panelFor(
+    Array.from({ length: 16 }, (_, i) => 470 + 20 * i),
+    16,
+  );
   const spectral: PanelSpec = {
     ...panel8,
-    channels: Array.from({ length: 32 }, (_, i) => ({ id: `bin${i}`, filters: [{ type: 'bandpass' as const, centerNm: 455 + 10 * i, widthNm: 10, edgeWidthNm: 1 }] })),
+    channels: Array.from({ length: 32 }, (_, i) => ({
+      id: `bin${i}`,
+      filters: [{ type: 'bandpass' as const, centerNm: 455 + 10 * i, widthNm: 10, edgeWidthNm: 1 }],
+    })),
   };
   const paired: [string, () => void][] = [
-    ['HEADLINE evaluatePanel 8x8 from scratch (dot cache emptied each run: 8 dots + 8 filters computed, as numpy)', () => {
-      clearResolvedDotCache();
-      evaluatePanel(panel8, { sensitivity: false });
-    }],
-    ['evaluatePanel 8x8 dots cached (not like for like: no emission computed)', () => void evaluatePanel(panel8, { sensitivity: false })],
+    [
+      'HEADLINE evaluatePanel 8x8 from scratch (dot cache emptied each run: 8 dots + 8 filters computed, as numpy)',
+      () => {
+        clearResolvedDotCache();
+        evaluatePanel(panel8, { sensitivity: false });
+      },
+    ],
+    [
+      'evaluatePanel 8x8 dots cached (not like for like: no emission computed)',
+      () => void evaluatePanel(panel8, { sensitivity: false }),
+    ],
   ];
   // The machine is shared: alternate numpy and our runs, and compare the best round of each (least disturbed).
   const numpyUs: number[] = [];
@@ -143,9 +177,13 @@ export default async function spectraSuite(): Promise<BenchRow[]> {
       minMs: bestP50.minMs,
       maxMs: bestP50.maxMs,
       samples: 15 * 200,
-      note: `median of 15 batch means (numpy's method), best of ${ROUNDS} rounds: ${batchRounds.map((ms) => (ms * 1000).toFixed(1)).join(' / ')} us; `
-        + `per-call p50 (tinybench, no GC): ${perRound.map((r) => (r.medianMs === null ? '—' : (r.medianMs * 1000).toFixed(1))).join(' / ')} us`,
-      extra: { ratioToNumpy: ratio === null ? null : Number(ratio.toFixed(3)), target: k === 0 ? '<= 0.5' : 'none (not like for like)' },
+      note:
+        `median of 15 batch means (numpy's method), best of ${ROUNDS} rounds: ${batchRounds.map((ms) => (ms * 1000).toFixed(1)).join(' / ')} us; ` +
+        `per-call p50 (tinybench, no GC): ${perRound.map((r) => (r.medianMs === null ? '—' : (r.medianMs * 1000).toFixed(1))).join(' / ')} us`,
+      extra: {
+        ratioToNumpy: ratio === null ? null : Number(ratio.toFixed(3)),
+        target: k === 0 ? '<= 0.5' : 'none (not like for like)',
+      },
     };
   });
   rows.push({
@@ -160,16 +198,25 @@ export default async function spectraSuite(): Promise<BenchRow[]> {
       [
         ['evaluatePanel 8x8 warm with lot-shift sensitivity', () => void evaluatePanel(panel8)],
         ['evaluatePanel 16x16 warm (no lot shift)', () => void evaluatePanel(panel16, { sensitivity: false })],
-        ['evaluatePanel 8 probes x 32-bin spectral detector warm', () => void evaluatePanel(spectral, { sensitivity: false })],
+        [
+          'evaluatePanel 8 probes x 32-bin spectral detector warm',
+          () => void evaluatePanel(spectral, { sensitivity: false }),
+        ],
         ['resolveDot cdse 605 nm', () => void resolveDot({ material: 'cdse', emissionPeakNm: 605, quantumYield: 0.5 })],
         // Where the from-scratch time goes: the two parts numpy also does, alone (the rest is the cached row's work
         // besides the filters, plus the emission partial sums and the collection of the freed arrays).
-        ['part of from-scratch: 8 resolveDot (the 8x8 probes)', () => {
-          for (const probe of panel8.probes) resolveDot(probe as DotInput);
-        }],
-        ['part of both: 8 channelTransmission (the 8x8 bandpasses)', () => {
-          for (const channel of panel8.channels) channelTransmission(channel, DEFAULT_GRID);
-        }],
+        [
+          'part of from-scratch: 8 resolveDot (the 8x8 probes)',
+          () => {
+            for (const probe of panel8.probes) resolveDot(probe as DotInput);
+          },
+        ],
+        [
+          'part of both: 8 channelTransmission (the 8x8 bandpasses)',
+          () => {
+            for (const channel of panel8.channels) channelTransmission(channel, DEFAULT_GRID);
+          },
+        ],
       ],
       1500,
     )),

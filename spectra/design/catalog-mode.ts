@@ -29,9 +29,19 @@ export interface CatalogOutcome {
 
 function checkCandidates(list: unknown, field: 'probes' | 'channels', needed: number): void {
   const max = MAX_CANDIDATES[field];
-  if (!Array.isArray(list)) throw new SpectraError('invalid_input', `candidates.${field} must be an array`, ['candidates', field]);
-  if (list.length > max) throw new SpectraError('invalid_input', `at most ${max} candidate ${field} are allowed, got ${list.length}`, ['candidates', field]);
-  if (list.length < needed) throw new SpectraError('invalid_input', `${needed} targets need at least ${needed} candidate ${field}, got ${list.length}`, ['candidates', field]);
+  if (!Array.isArray(list))
+    throw new SpectraError('invalid_input', `candidates.${field} must be an array`, ['candidates', field]);
+  if (list.length > max)
+    throw new SpectraError('invalid_input', `at most ${max} candidate ${field} are allowed, got ${list.length}`, [
+      'candidates',
+      field,
+    ]);
+  if (list.length < needed)
+    throw new SpectraError(
+      'invalid_input',
+      `${needed} targets need at least ${needed} candidate ${field}, got ${list.length}`,
+      ['candidates', field],
+    );
 }
 
 /** Runs catalog mode as steps (see search.ts for the drivers). */
@@ -49,25 +59,40 @@ export function* catalogDesignSteps(
   const channels = offered.filter((ch, c) => {
     if (!o.lineClearance) return true;
     const t = channelTransmission(ch, DEFAULT_GRID, ['candidates', 'channels', c]);
-    const passes = request.excitation.some((l) => t[Math.round(l.wavelengthNm - DEFAULT_GRID.startNm)] >= LINE_PASS_TRANSMISSION);
+    const passes = request.excitation.some(
+      (l) => t[Math.round(l.wavelengthNm - DEFAULT_GRID.startNm)] >= LINE_PASS_TRANSMISSION,
+    );
     if (passes) dropped.push(ch.id);
     return !passes;
   });
   if (channels.length < n) {
-    throw new SpectraError('invalid_input', `only ${channels.length} candidate channels block every excitation line; ${n} targets need ${n}`, ['candidates', 'channels']);
+    throw new SpectraError(
+      'invalid_input',
+      `only ${channels.length} candidate channels block every excitation line; ${n} targets need ${n}`,
+      ['candidates', 'channels'],
+    );
   }
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
   const collected = candidateMatrix(probes, channels, request.excitation, { pathPrefix: ['candidates'] });
   const search = new CatalogSearch({ collected, abundance, minSignalFraction: o.minSignalFraction });
   const found = yield* searchSteps(search, o.nodeBudget, 2000, shouldStop);
   if (!found.design) {
-    throw new SpectraError('invalid_input', 'no assignment of the candidates gives every target a signal and meets the signal floor', ['candidates']);
+    throw new SpectraError(
+      'invalid_input',
+      'no assignment of the candidates gives every target a signal and meets the signal floor',
+      ['candidates'],
+    );
   }
   return {
     probes: found.design.probe.map((p) => asCandidate(probes[p])),
     channels: found.design.channel.map((c) => channels[c]),
     worst: found.objective!.worstInterference,
     exact: found.exact,
-    stats: { ...found.stats, candidateProbes: probes.length, candidateChannels: offered.length, channelsDropped: dropped },
+    stats: {
+      ...found.stats,
+      candidateProbes: probes.length,
+      candidateChannels: offered.length,
+      channelsDropped: dropped,
+    },
   };
 }

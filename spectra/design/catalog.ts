@@ -76,7 +76,8 @@ export class CatalogSearch {
     this.childIdx = new Int32Array(n + 1);
     this.sideConditions = f.minSignalFraction > 0 || f.conflict !== null;
     this.brightness = new Float64Array(f.probes);
-    for (let c = 0; c < f.channels; c++) for (let q = 0; q < f.probes; q++) this.brightness[q] = Math.max(this.brightness[q], f.light[c * f.probes + q]);
+    for (let c = 0; c < f.channels; c++)
+      for (let q = 0; q < f.probes; q++) this.brightness[q] = Math.max(this.brightness[q], f.light[c * f.probes + q]);
     const greedy = greedyDesign(f);
     this.greedyWorst = greedy ? greedy.worst : null;
     if (greedy) this.offer(this.toDesign(greedy.values));
@@ -84,7 +85,8 @@ export class CatalogSearch {
     const root = this.frames[0];
     for (let u = 0; u < n; u++) {
       for (let q = 0; q < f.probes; q++) {
-        for (let c = 0; c < f.channels; c++) root.m[(u * f.probes + q) * f.channels + c] = f.light[c * f.probes + q] > 0 ? 0 : Infinity;
+        for (let c = 0; c < f.channels; c++)
+          root.m[(u * f.probes + q) * f.channels + c] = f.light[c * f.probes + q] > 0 ? 0 : Infinity;
       }
     }
     this.prepareChildren(0);
@@ -156,7 +158,10 @@ export class CatalogSearch {
   }
 
   private toDesign(values: Int32Array): DesignAssignment {
-    return { probe: Array.from(values, (v) => this.flat.probeOf[v]), channel: Array.from(values, (v) => this.flat.channelOf[v]) };
+    return {
+      probe: Array.from(values, (v) => this.flat.probeOf[v]),
+      channel: Array.from(values, (v) => this.flat.channelOf[v]),
+    };
   }
 
   /** Every probe placed: the frame's rows are exact channel costs; settle channels and maybe take the incumbent. */
@@ -166,7 +171,8 @@ export class CatalogSearch {
     if (this.sideConditions && choice) {
       const signal = new Float64Array(f.targets * f.channels);
       for (let u = 0; u < f.targets; u++) {
-        for (let c = 0; c < f.channels; c++) signal[u * f.channels + c] = f.abundance[u] * f.light[c * f.probes + frame.probeOf[u]];
+        for (let c = 0; c < f.channels; c++)
+          signal[u * f.channels + c] = f.abundance[u] * f.light[c * f.probes + frame.probeOf[u]];
       }
       const table = { cost: frame.rows, rows: f.targets, cols: f.channels };
       const side = { signal, minSignalFraction: f.minSignalFraction, conflict: f.conflict };
@@ -189,7 +195,8 @@ export class CatalogSearch {
     const f = this.flat;
     const frame = this.frames[d];
     const t = frame.order[d];
-    const previous = d > 0 && f.abundance[frame.order[d - 1]] === f.abundance[t] ? frame.probeOf[frame.order[d - 1]] : -1;
+    const previous =
+      d > 0 && f.abundance[frame.order[d - 1]] === f.abundance[t] ? frame.probeOf[frame.order[d - 1]] : -1;
     const keys: [number, number][] = [];
     for (let q = previous + 1; q < f.probes; q++) {
       if (frame.probeUsed[q]) continue;

@@ -95,7 +95,13 @@ export interface ConstrainedChoice {
  * place must keep a usable column. `floorValue` is a known lower bound (the matching value); the search stops when
  * it reaches it, or after `maxVisits` choices.
  */
-export function constrainedAssignment(t: CostTable, side: ChannelSideConditions, limit: number, floorValue: number, maxVisits = 100_000): ConstrainedChoice {
+export function constrainedAssignment(
+  t: CostTable,
+  side: ChannelSideConditions,
+  limit: number,
+  floorValue: number,
+  maxVisits = 100_000,
+): ConstrainedChoice {
   const rows = Array.from({ length: t.rows }, (_, r) => r);
   const lists = rows.map((r) =>
     Array.from({ length: t.cols }, (_, c) => c)
@@ -110,7 +116,8 @@ export function constrainedAssignment(t: CostTable, side: ChannelSideConditions,
   const used = new Uint8Array(t.cols);
   const usable = (r: number, c: number, worstSoFar: number, minS: number, maxS: number): boolean => {
     if (used[c] || Math.max(worstSoFar, t.cost[r * t.cols + c]) >= bound) return false;
-    for (let k = 0; k < t.rows; k++) if (columns[k] >= 0 && side.conflict && side.conflict[columns[k] * t.cols + c] === 1) return false;
+    for (let k = 0; k < t.rows; k++)
+      if (columns[k] >= 0 && side.conflict && side.conflict[columns[k] * t.cols + c] === 1) return false;
     const s = side.signal[r * t.cols + c];
     return Math.min(minS, s) >= side.minSignalFraction * Math.max(maxS, s);
   };
@@ -134,7 +141,8 @@ export function constrainedAssignment(t: CostTable, side: ChannelSideConditions,
       columns[r] = c;
       // Forward check: every later row keeps at least one usable column.
       let alive = true;
-      for (let j = k + 1; j < rows.length && alive; j++) alive = lists[rows[j]].some((d) => usable(rows[j], d, cost, lo, hi));
+      for (let j = k + 1; j < rows.length && alive; j++)
+        alive = lists[rows[j]].some((d) => usable(rows[j], d, cost, lo, hi));
       const stop = alive && visit(k + 1, cost, lo, hi);
       used[c] = 0;
       columns[r] = -1;

@@ -9,12 +9,20 @@ import type { ResolvedDesignOptions } from './options';
 
 function perItem(value: number | number[], count: number, field: string): number[] {
   const list = typeof value === 'number' ? new Array<number>(count).fill(value) : value;
-  if (list.length !== count) throw new SpectraError('invalid_input', `options.${field} must be a number or ${count} numbers`, ['options', field]);
+  if (list.length !== count)
+    throw new SpectraError('invalid_input', `options.${field} must be a number or ${count} numbers`, [
+      'options',
+      field,
+    ]);
   return list;
 }
 
 /** Noise of a proposed panel whose channel t is target t's own channel. */
-export function designNoise(evaluation: PanelEvaluation, abundance: number[], o: ResolvedDesignOptions): NoisePrediction & { photons: number[] } {
+export function designNoise(
+  evaluation: PanelEvaluation,
+  abundance: number[],
+  o: ResolvedDesignOptions,
+): NoisePrediction & { photons: number[] } {
   const n = abundance.length;
   const photons = perItem(o.photons, n, 'photons');
   const atUnitAbundance = evaluation.collected.map((row) => row.map((x, p) => x / abundance[p]));

@@ -46,8 +46,12 @@ export interface DesignHooks {
 }
 
 /** The pipeline as steps; see runDesign / runDesignAsync. */
-export function* designSteps(request: DesignRequest, shouldStop?: () => boolean): Generator<SearchProgress, DesignResult> {
-  if (request === null || typeof request !== 'object') throw new SpectraError('invalid_input', 'a design request must be an object', []);
+export function* designSteps(
+  request: DesignRequest,
+  shouldStop?: () => boolean,
+): Generator<SearchProgress, DesignResult> {
+  if (request === null || typeof request !== 'object')
+    throw new SpectraError('invalid_input', 'a design request must be an object', []);
   const { names, abundance } = normalizeTargets(request.targets);
   if (!Array.isArray(request.excitation) || request.excitation.length === 0) {
     throw new SpectraError('invalid_input', 'a design needs at least one excitation line', ['excitation']);
@@ -75,13 +79,23 @@ export function* designSteps(request: DesignRequest, shouldStop?: () => boolean)
     version: 1,
     title: free ? 'Proposed panel (free design)' : 'Proposed panel (from candidates)',
     excitation: request.excitation,
-    probes: probes.map((p, t) => ({ ...p, label: names[t], target: names[t], abundance: abundance[t], channel: channels[t].id })),
+    probes: probes.map((p, t) => ({
+      ...p,
+      label: names[t],
+      target: names[t],
+      abundance: abundance[t],
+      channel: channels[t].id,
+    })),
     channels,
   };
   const evaluation = evaluatePanel(panel);
   // The pair that sets the objective, read from the evaluation (abundances are inside its collected matrix).
   const identity = names.map((_, t) => t);
-  const pair = worstInterference(evaluation.collected, names.map(() => 1), { probe: identity, channel: identity });
+  const pair = worstInterference(
+    evaluation.collected,
+    names.map(() => 1),
+    { probe: identity, channel: identity },
+  );
   const objective: DesignObjectiveReport = {
     worstInterference: worst,
     from: pair.from >= 0 ? panel.probes[pair.from].id : null,
@@ -93,12 +107,19 @@ export function* designSteps(request: DesignRequest, shouldStop?: () => boolean)
   const warnings = [...noise.warnings];
   for (const id of new Set(panel.probes.map((p) => p.material))) {
     const m = getMaterial(id);
-    const hazards = Object.entries(EXCLUSION_ELEMENTS).filter(([, el]) => m.elements.includes(el)).map(([word]) => word);
+    const hazards = Object.entries(EXCLUSION_ELEMENTS)
+      .filter(([, el]) => m.elements.includes(el))
+      .map(([word]) => word);
     if (hazards.length) {
-      warnings.push(`the proposal uses ${m.name}, which contains ${hazards.join(' and ')}: see its cautions (GET /api/v1/materials) and handle it as local regulations, institutional safety rules and licensed practice require`);
+      warnings.push(
+        `the proposal uses ${m.name}, which contains ${hazards.join(' and ')}: see its cautions (GET /api/v1/materials) and handle it as local regulations, institutional safety rules and licensed practice require`,
+      );
     }
   }
-  if (!exact) warnings.push('the search stopped at its node budget: the design is the best found, not proven optimal (see stats.bound)');
+  if (!exact)
+    warnings.push(
+      'the search stopped at its node budget: the design is the best found, not proven optimal (see stats.bound)',
+    );
   return { mode: free ? 'free' : 'catalog', panel, evaluation, objective, exact, stats, noise, warnings };
 }
 

@@ -48,10 +48,16 @@ export function peaksFor(material: Material, windowNm: [number, number], stepNm:
 }
 
 /** Builds the grid catalog for the allowed materials, window, lines and options. */
-export function freeCatalog(materials: Material[], windowNm: [number, number], excitation: ExcitationLine[], o: ResolvedDesignOptions): FreeCatalog {
+export function freeCatalog(
+  materials: Material[],
+  windowNm: [number, number],
+  excitation: ExcitationLine[],
+  o: ResolvedDesignOptions,
+): FreeCatalog {
   const probes: ProbeSpec[] = [];
   for (const m of materials) {
-    for (const peak of peaksFor(m, windowNm, o.peakStepNm)) probes.push({ id: `${m.id}-${peak}`, material: m.id, emissionPeakNm: peak });
+    for (const peak of peaksFor(m, windowNm, o.peakStepNm))
+      probes.push({ id: `${m.id}-${peak}`, material: m.id, emissionPeakNm: peak });
   }
   const bands: Band[] = [];
   for (const widthNm of o.bandwidthsNm) {

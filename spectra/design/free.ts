@@ -47,18 +47,35 @@ export function* freeDesignSteps(
   const n = abundance.length;
   const materials = allowedMaterials(request, windowNm);
   if (n * o.bandwidthRangeNm[0] > windowNm[1] - windowNm[0]) {
-    throw new SpectraError('invalid_input', `${n} passbands of at least ${o.bandwidthRangeNm[0]} nm do not fit in ${windowNm[0]}–${windowNm[1]} nm`, ['windowNm']);
+    throw new SpectraError(
+      'invalid_input',
+      `${n} passbands of at least ${o.bandwidthRangeNm[0]} nm do not fit in ${windowNm[0]}–${windowNm[1]} nm`,
+      ['windowNm'],
+    );
   }
   const catalog = freeCatalog(materials, windowNm, request.excitation, o);
   if (catalog.probes.length < n || catalog.channels.length < n) {
-    throw new SpectraError('invalid_input', `the window holds ${catalog.probes.length} dots and ${catalog.channels.length} passbands on the grid; ${n} targets need ${n} of each`, ['windowNm']);
+    throw new SpectraError(
+      'invalid_input',
+      `the window holds ${catalog.probes.length} dots and ${catalog.channels.length} passbands on the grid; ${n} targets need ${n} of each`,
+      ['windowNm'],
+    );
   }
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
   const collected = candidateMatrix(catalog.probes, catalog.channels, request.excitation);
-  const search = new CatalogSearch({ collected, abundance, minSignalFraction: o.minSignalFraction, channelConflict: catalog.conflict });
+  const search = new CatalogSearch({
+    collected,
+    abundance,
+    minSignalFraction: o.minSignalFraction,
+    channelConflict: catalog.conflict,
+  });
   const found = yield* searchSteps(search, o.nodeBudget, 500, shouldStop);
   if (!found.design) {
-    throw new SpectraError('invalid_input', 'no design on the grid meets the signal floor with non-overlapping passbands; lower options.minSignalFraction or widen the window', ['options', 'minSignalFraction']);
+    throw new SpectraError(
+      'invalid_input',
+      'no design on the grid meets the signal floor with non-overlapping passbands; lower options.minSignalFraction or widen the window',
+      ['options', 'minSignalFraction'],
+    );
   }
   const start: FreeDesign = {
     materials: found.design.probe.map((p) => catalog.probes[p].material),
@@ -68,7 +85,13 @@ export function* freeDesignSteps(
   const gridWorst = found.objective!.worstInterference;
   let outcome = { design: start, worst: gridWorst, moves: 0 };
   if (o.refine && !shouldStop?.()) {
-    const ctx = { abundance, excitation: request.excitation, windowNm, materials: new Map(materials.map((m) => [m.id as string, m])), options: o };
+    const ctx = {
+      abundance,
+      excitation: request.excitation,
+      windowNm,
+      materials: new Map(materials.map((m) => [m.id as string, m])),
+      options: o,
+    };
     outcome = yield* refineFreeDesign(start, ctx);
   }
   return {
@@ -90,7 +113,14 @@ export function* freeDesignSteps(
 }
 
 /** The grid catalog free mode searches for a request (what `exact` refers to). */
-export function freeGridCatalog(request: Pick<DesignRequest, 'allowedMaterials' | 'exclude' | 'windowNm' | 'excitation' | 'options'>): FreeCatalog {
+export function freeGridCatalog(
+  request: Pick<DesignRequest, 'allowedMaterials' | 'exclude' | 'windowNm' | 'excitation' | 'options'>,
+): FreeCatalog {
   const windowNm = normalizeWindow(request.windowNm);
-  return freeCatalog(allowedMaterials(request, windowNm), windowNm, request.excitation, resolveOptions(request.options, true));
+  return freeCatalog(
+    allowedMaterials(request, windowNm),
+    windowNm,
+    request.excitation,
+    resolveOptions(request.options, true),
+  );
 }

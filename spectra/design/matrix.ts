@@ -46,7 +46,8 @@ export function candidateMatrix(
       } catch (err) {
         if (!(err instanceof SpectraError)) throw err;
         const [list, index, ...rest] = err.path;
-        const shifted = typeof index === 'number' ? index + (list === 'probes' ? p0 : list === 'channels' ? c0 : 0) : index;
+        const shifted =
+          typeof index === 'number' ? index + (list === 'probes' ? p0 : list === 'channels' ? c0 : 0) : index;
         const path = index === undefined ? err.path : [list, shifted, ...rest];
         throw new SpectraError(err.code, err.message, [...(options.pathPrefix ?? []), ...path]);
       }

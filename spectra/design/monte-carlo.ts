@@ -37,10 +37,12 @@ export interface MonteCarloResult {
 export function simulateUnmixing(input: NoiseInput, options: MonteCarloOptions = {}): MonteCarloResult {
   const draws = options.draws ?? 20_000;
   const seed = options.seed ?? 1;
-  if (!Number.isInteger(draws) || draws < 2 || draws > 1_000_000) throw new SpectraError('invalid_input', 'draws must be an integer from 2 to 1,000,000', ['draws']);
+  if (!Number.isInteger(draws) || draws < 2 || draws > 1_000_000)
+    throw new SpectraError('invalid_input', 'draws must be an integer from 2 to 1,000,000', ['draws']);
   const model = noiseModel(input);
   const { m, pinv, abundance, background, readSd, excess } = model;
-  if (!pinv) return { draws, seed, mean: null, covariance: null, covarianceStandardError: null, warnings: model.warnings };
+  if (!pinv)
+    return { draws, seed, mean: null, covariance: null, covarianceStandardError: null, warnings: model.warnings };
   const rows = m.length;
   const cols = m[0].length;
   const rng = createRandom(seed);
@@ -72,6 +74,8 @@ export function simulateUnmixing(input: NoiseInput, options: MonteCarloOptions =
       }
     }
   }
-  const covarianceStandardError = covariance.map((row, i) => row.map((s, j) => Math.sqrt(Math.max(0, m22[i][j] - s * s) / draws)));
+  const covarianceStandardError = covariance.map((row, i) =>
+    row.map((s, j) => Math.sqrt(Math.max(0, m22[i][j] - s * s) / draws)),
+  );
   return { draws, seed, mean: avg, covariance, covarianceStandardError, warnings: model.warnings };
 }

@@ -44,7 +44,11 @@ export function abundanceValue(input: AbundanceInput, path: (string | number)[] 
   if (typeof input === 'string') {
     const value = (ABUNDANCE_WORDS as Record<string, number>)[input];
     if (value === undefined) {
-      throw new SpectraError('invalid_input', `abundance must be a number > 0 or high, medium or low, got "${input}"`, path);
+      throw new SpectraError(
+        'invalid_input',
+        `abundance must be a number > 0 or high, medium or low, got "${input}"`,
+        path,
+      );
     }
     return value;
   }
@@ -86,6 +90,10 @@ export function worstInterference(
 }
 
 /** Each target's own signal a_u · collected[c_u][p_u], relative units. */
-export function targetSignals(collected: CollectedMatrix, abundance: readonly number[], design: DesignAssignment): number[] {
+export function targetSignals(
+  collected: CollectedMatrix,
+  abundance: readonly number[],
+  design: DesignAssignment,
+): number[] {
   return abundance.map((a, u) => a * collected[design.channel[u]][design.probe[u]]);
 }

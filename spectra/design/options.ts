@@ -69,15 +69,41 @@ export function resolveOptions(options: DesignOptions = {}, free: boolean): Reso
     readNoiseElectrons: options.readNoiseElectrons ?? 0,
     excessNoiseFactor: options.excessNoiseFactor ?? 1,
   };
-  check(Number.isInteger(o.nodeBudget) && o.nodeBudget >= 1 && o.nodeBudget <= MAX_NODE_BUDGET, 'nodeBudget', `must be an integer from 1 to ${MAX_NODE_BUDGET}`);
+  check(
+    Number.isInteger(o.nodeBudget) && o.nodeBudget >= 1 && o.nodeBudget <= MAX_NODE_BUDGET,
+    'nodeBudget',
+    `must be an integer from 1 to ${MAX_NODE_BUDGET}`,
+  );
   check(o.minSignalFraction >= 0 && o.minSignalFraction <= 1, 'minSignalFraction', 'must lie between 0 and 1');
-  check(Number.isInteger(o.peakStepNm) && o.peakStepNm >= 1 && o.peakStepNm <= 50, 'peakStepNm', 'must be an integer from 1 to 50 nm');
-  check(Number.isInteger(o.bandStepNm) && o.bandStepNm >= 1 && o.bandStepNm <= 50, 'bandStepNm', 'must be an integer from 1 to 50 nm');
+  check(
+    Number.isInteger(o.peakStepNm) && o.peakStepNm >= 1 && o.peakStepNm <= 50,
+    'peakStepNm',
+    'must be an integer from 1 to 50 nm',
+  );
+  check(
+    Number.isInteger(o.bandStepNm) && o.bandStepNm >= 1 && o.bandStepNm <= 50,
+    'bandStepNm',
+    'must be an integer from 1 to 50 nm',
+  );
   const [wMin, wMax] = o.bandwidthRangeNm;
-  check(Number.isInteger(wMin) && Number.isInteger(wMax) && wMin >= 5 && wMin <= wMax && wMax <= 200, 'bandwidthRangeNm', 'must be [min, max] whole nm with 5 ≤ min ≤ max ≤ 200');
-  check(o.bandwidthsNm.length >= 1 && o.bandwidthsNm.length <= 8 && o.bandwidthsNm.every((w) => Number.isInteger(w) && w >= wMin && w <= wMax), 'bandwidthsNm', `must list 1–8 whole widths inside bandwidthRangeNm (${wMin}–${wMax} nm)`);
+  check(
+    Number.isInteger(wMin) && Number.isInteger(wMax) && wMin >= 5 && wMin <= wMax && wMax <= 200,
+    'bandwidthRangeNm',
+    'must be [min, max] whole nm with 5 ≤ min ≤ max ≤ 200',
+  );
+  check(
+    o.bandwidthsNm.length >= 1 &&
+      o.bandwidthsNm.length <= 8 &&
+      o.bandwidthsNm.every((w) => Number.isInteger(w) && w >= wMin && w <= wMax),
+    'bandwidthsNm',
+    `must list 1–8 whole widths inside bandwidthRangeNm (${wMin}–${wMax} nm)`,
+  );
   check(o.edgeWidthNm >= 0 && o.edgeWidthNm <= 20, 'edgeWidthNm', 'must lie between 0 and 20 nm');
-  check(o.readNoiseElectrons >= 0 && Number.isFinite(o.readNoiseElectrons), 'readNoiseElectrons', 'must be finite and ≥ 0');
+  check(
+    o.readNoiseElectrons >= 0 && Number.isFinite(o.readNoiseElectrons),
+    'readNoiseElectrons',
+    'must be finite and ≥ 0',
+  );
   check(o.excessNoiseFactor >= 1 && o.excessNoiseFactor <= 10, 'excessNoiseFactor', 'must lie between 1 and 10');
   return o;
 }

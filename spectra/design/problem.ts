@@ -43,17 +43,27 @@ export function flattenProblem(problem: CatalogProblem): FlatProblem {
   const targets = abundance.length;
   if (targets === 0) throw new SpectraError('invalid_input', 'a design needs at least one target', ['targets']);
   if (probes < targets) {
-    throw new SpectraError('invalid_input', `${targets} targets need at least ${targets} probe candidates, got ${probes}`, ['candidates', 'probes']);
+    throw new SpectraError(
+      'invalid_input',
+      `${targets} targets need at least ${targets} probe candidates, got ${probes}`,
+      ['candidates', 'probes'],
+    );
   }
   if (channels < targets) {
-    throw new SpectraError('invalid_input', `${targets} targets need at least ${targets} channel candidates, got ${channels}`, ['candidates', 'channels']);
+    throw new SpectraError(
+      'invalid_input',
+      `${targets} targets need at least ${targets} channel candidates, got ${channels}`,
+      ['candidates', 'channels'],
+    );
   }
   const light = new Float64Array(channels * probes);
   for (let c = 0; c < channels; c++) {
-    if (collected[c].length !== probes) throw new SpectraError('invalid_input', 'collected rows differ in length', ['collected', c]);
+    if (collected[c].length !== probes)
+      throw new SpectraError('invalid_input', 'collected rows differ in length', ['collected', c]);
     for (let p = 0; p < probes; p++) {
       const x = collected[c][p];
-      if (!Number.isFinite(x) || x < 0) throw new SpectraError('invalid_input', 'collected light must be finite and ≥ 0', ['collected', c, p]);
+      if (!Number.isFinite(x) || x < 0)
+        throw new SpectraError('invalid_input', 'collected light must be finite and ≥ 0', ['collected', c, p]);
       light[c * probes + p] = x;
     }
   }
@@ -66,19 +76,36 @@ export function flattenProblem(problem: CatalogProblem): FlatProblem {
   }
   const own = new Float64Array(targets * values);
   abundance.forEach((a, t) => {
-    if (!Number.isFinite(a) || a <= 0) throw new SpectraError('invalid_input', 'abundance must be a finite number > 0', ['targets', t, 'abundance']);
+    if (!Number.isFinite(a) || a <= 0)
+      throw new SpectraError('invalid_input', 'abundance must be a finite number > 0', ['targets', t, 'abundance']);
     for (let v = 0; v < values; v++) own[t * values + v] = a * light[channelOf[v] * probes + probeOf[v]];
   });
   let conflict: Uint8Array | null = null;
   if (problem.channelConflict) {
     conflict = new Uint8Array(channels * channels);
-    for (let a = 0; a < channels; a++) for (let b = 0; b < channels; b++) conflict[a * channels + b] = a !== b && problem.channelConflict(a, b) ? 1 : 0;
+    for (let a = 0; a < channels; a++)
+      for (let b = 0; b < channels; b++) conflict[a * channels + b] = a !== b && problem.channelConflict(a, b) ? 1 : 0;
   }
   const minSignalFraction = problem.minSignalFraction ?? 0;
   if (!Number.isFinite(minSignalFraction) || minSignalFraction < 0 || minSignalFraction > 1) {
-    throw new SpectraError('invalid_input', 'minSignalFraction must lie between 0 and 1', ['options', 'minSignalFraction']);
+    throw new SpectraError('invalid_input', 'minSignalFraction must lie between 0 and 1', [
+      'options',
+      'minSignalFraction',
+    ]);
   }
-  return { targets, probes, channels, values, abundance: Float64Array.from(abundance), light, probeOf, channelOf, own, conflict, minSignalFraction };
+  return {
+    targets,
+    probes,
+    channels,
+    values,
+    abundance: Float64Array.from(abundance),
+    light,
+    probeOf,
+    channelOf,
+    own,
+    conflict,
+    minSignalFraction,
+  };
 }
 
 /**

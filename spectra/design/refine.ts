@@ -41,7 +41,8 @@ export function freeDesignAllowed(d: FreeDesign, ctx: RefineContext): boolean {
     const [r0, r1] = ctx.materials.get(d.materials[t])!.emissionRangeNm!;
     const peak = d.peaksNm[t];
     if (peak < Math.max(Math.ceil(r0), lo) || peak > Math.min(Math.floor(r1), hi)) return false;
-    if (b.widthNm < wMin || b.widthNm > wMax || b.centerNm - b.widthNm / 2 < lo || b.centerNm + b.widthNm / 2 > hi) return false;
+    if (b.widthNm < wMin || b.widthNm > wMax || b.centerNm - b.widthNm / 2 < lo || b.centerNm + b.widthNm / 2 > hi)
+      return false;
     if (bandPassesLine(b, ctx.excitation, ctx.options.edgeWidthNm)) return false;
     return d.bands.every((other, u) => u === t || !bandsOverlap(b, other));
   });
@@ -59,18 +60,36 @@ export function freeObjective(d: FreeDesign, ctx: RefineContext): number {
 }
 
 /** Pattern search from `start`; yields progress after each pass and returns the refined design and its objective. */
-export function* refineFreeDesign(start: FreeDesign, ctx: RefineContext): Generator<SearchProgress, { design: FreeDesign; worst: number; moves: number }> {
-  let design = { materials: [...start.materials], peaksNm: [...start.peaksNm], bands: start.bands.map((b) => ({ ...b })) };
+export function* refineFreeDesign(
+  start: FreeDesign,
+  ctx: RefineContext,
+): Generator<SearchProgress, { design: FreeDesign; worst: number; moves: number }> {
+  let design = {
+    materials: [...start.materials],
+    peaksNm: [...start.peaksNm],
+    bands: start.bands.map((b) => ({ ...b })),
+  };
   let worst = freeObjective(design, ctx);
   let moves = 0;
   let evaluations = 0;
   const MAX_EVALUATIONS = 4000; // bounds the refinement's cost (each evaluation resolves n dots and n filters)
   for (const step of [4, 2, 1]) {
-    for (let improved = true; improved && evaluations < MAX_EVALUATIONS; ) {
+    for (let improved = true; improved && evaluations < MAX_EVALUATIONS;) {
       improved = false;
       for (let t = 0; t < design.peaksNm.length; t++) {
-        for (const [field, delta] of [['peak', step], ['peak', -step], ['center', step], ['center', -step], ['width', step], ['width', -step]] as const) {
-          const next = { materials: design.materials, peaksNm: [...design.peaksNm], bands: design.bands.map((b) => ({ ...b })) };
+        for (const [field, delta] of [
+          ['peak', step],
+          ['peak', -step],
+          ['center', step],
+          ['center', -step],
+          ['width', step],
+          ['width', -step],
+        ] as const) {
+          const next = {
+            materials: design.materials,
+            peaksNm: [...design.peaksNm],
+            bands: design.bands.map((b) => ({ ...b })),
+          };
           if (field === 'peak') next.peaksNm[t] += delta;
           else if (field === 'center') next.bands[t].centerNm += delta;
           else next.bands[t].widthNm += delta; // centre and width both stay on the 1 nm grid
@@ -84,7 +103,12 @@ export function* refineFreeDesign(start: FreeDesign, ctx: RefineContext): Genera
           }
         }
       }
-      yield { stage: 'refine', nodesVisited: evaluations, incumbent: Number.isFinite(worst) ? worst : null, bound: null };
+      yield {
+        stage: 'refine',
+        nodesVisited: evaluations,
+        incumbent: Number.isFinite(worst) ? worst : null,
+        bound: null,
+      };
     }
   }
   return { design, worst, moves };

@@ -45,14 +45,21 @@ export interface NormalizedTargets {
 
 /** Checks the targets: 1–16, unique names, abundances > 0 (words mapped by ABUNDANCE_WORDS). */
 export function normalizeTargets(targets: DesignTarget[]): NormalizedTargets {
-  if (!Array.isArray(targets) || targets.length === 0) throw new SpectraError('invalid_input', 'a design needs at least one target', ['targets']);
+  if (!Array.isArray(targets) || targets.length === 0)
+    throw new SpectraError('invalid_input', 'a design needs at least one target', ['targets']);
   if (targets.length > MAX_DESIGN_TARGETS) {
-    throw new SpectraError('invalid_input', `at most ${MAX_DESIGN_TARGETS} targets are allowed, got ${targets.length}`, ['targets']);
+    throw new SpectraError(
+      'invalid_input',
+      `at most ${MAX_DESIGN_TARGETS} targets are allowed, got ${targets.length}`,
+      ['targets'],
+    );
   }
   const seen = new Set<string>();
   const names = targets.map((t, i) => {
-    if (typeof t?.name !== 'string' || t.name === '') throw new SpectraError('invalid_input', 'a target needs a name', ['targets', i, 'name']);
-    if (seen.has(t.name)) throw new SpectraError('invalid_input', `target name "${t.name}" is used twice`, ['targets', i, 'name']);
+    if (typeof t?.name !== 'string' || t.name === '')
+      throw new SpectraError('invalid_input', 'a target needs a name', ['targets', i, 'name']);
+    if (seen.has(t.name))
+      throw new SpectraError('invalid_input', `target name "${t.name}" is used twice`, ['targets', i, 'name']);
     seen.add(t.name);
     return t.name;
   });
@@ -64,10 +71,16 @@ export function normalizeWindow(windowNm: [number, number] | undefined): [number
   if (windowNm === undefined) return [DEFAULT_WINDOW_NM[0], DEFAULT_WINDOW_NM[1]];
   const [lo, hi] = windowNm;
   if (!Number.isFinite(lo) || !Number.isFinite(hi) || !(lo < hi)) {
-    throw new SpectraError('invalid_input', `windowNm must be [min, max] with min < max, got [${lo}, ${hi}]`, ['windowNm']);
+    throw new SpectraError('invalid_input', `windowNm must be [min, max] with min < max, got [${lo}, ${hi}]`, [
+      'windowNm',
+    ]);
   }
   if (lo < DEFAULT_GRID.startNm || hi > gridEndNm(DEFAULT_GRID)) {
-    throw new SpectraError('out_of_range', `windowNm must lie within ${DEFAULT_GRID.startNm}–${gridEndNm(DEFAULT_GRID)} nm`, ['windowNm']);
+    throw new SpectraError(
+      'out_of_range',
+      `windowNm must lie within ${DEFAULT_GRID.startNm}–${gridEndNm(DEFAULT_GRID)} nm`,
+      ['windowNm'],
+    );
   }
   return [lo, hi];
 }
@@ -76,16 +89,26 @@ export function normalizeWindow(windowNm: [number, number] | undefined): [number
  * The materials free mode may use: the allowed list (default: every material with a size law or accepted range, i.e.
  * not `custom`), minus those containing an excluded element, minus those whose emission cannot reach the window.
  */
-export function allowedMaterials(request: Pick<DesignRequest, 'allowedMaterials' | 'exclude'>, windowNm: [number, number]): Material[] {
+export function allowedMaterials(
+  request: Pick<DesignRequest, 'allowedMaterials' | 'exclude'>,
+  windowNm: [number, number],
+): Material[] {
   const excluded = new Set<string>((request.exclude ?? []).map((word) => EXCLUSION_ELEMENTS[word]));
   const wanted = request.allowedMaterials ? new Set<string>(request.allowedMaterials) : null;
   const field = wanted ? 'allowedMaterials' : 'exclude';
-  const usable = listMaterials().filter((m) => m.id !== 'custom' && m.emissionRangeNm !== null && (!wanted || wanted.has(m.id)));
+  const usable = listMaterials().filter(
+    (m) => m.id !== 'custom' && m.emissionRangeNm !== null && (!wanted || wanted.has(m.id)),
+  );
   const clean = usable.filter((m) => !m.elements.some((e) => excluded.has(e)));
-  if (clean.length === 0) throw new SpectraError('invalid_input', 'no material is left after the allowed list and the exclusions', [field]);
+  if (clean.length === 0)
+    throw new SpectraError('invalid_input', 'no material is left after the allowed list and the exclusions', [field]);
   const reach = clean.filter((m) => m.emissionRangeNm![1] >= windowNm[0] && m.emissionRangeNm![0] <= windowNm[1]);
   if (reach.length === 0) {
-    throw new SpectraError('invalid_input', `none of ${clean.map((m) => m.id).join(', ')} emits inside ${windowNm[0]}–${windowNm[1]} nm`, ['windowNm']);
+    throw new SpectraError(
+      'invalid_input',
+      `none of ${clean.map((m) => m.id).join(', ')} emits inside ${windowNm[0]}–${windowNm[1]} nm`,
+      ['windowNm'],
+    );
   }
   return reach;
 }

@@ -74,7 +74,10 @@ export function runSteps<T>(steps: Generator<SearchProgress, T>, onProgress?: (p
 }
 
 /** As runSteps, but yields to the event loop after each report so that messages (e.g. a stop request) can arrive. */
-export async function runStepsAsync<T>(steps: Generator<SearchProgress, T>, onProgress?: (p: SearchProgress) => void): Promise<T> {
+export async function runStepsAsync<T>(
+  steps: Generator<SearchProgress, T>,
+  onProgress?: (p: SearchProgress) => void,
+): Promise<T> {
   for (;;) {
     const next = steps.next();
     if (next.done) return next.value;
@@ -89,13 +92,23 @@ export async function runStepsAsync<T>(steps: Generator<SearchProgress, T>, onPr
  */
 export function searchCatalog(problem: CatalogProblem, options: SearchOptions = {}): CatalogResult {
   const search = new CatalogSearch(problem, options.initial);
-  const steps = searchSteps(search, options.nodeBudget ?? DEFAULT_NODE_BUDGET, options.chunkNodes ?? 2000, options.shouldStop);
+  const steps = searchSteps(
+    search,
+    options.nodeBudget ?? DEFAULT_NODE_BUDGET,
+    options.chunkNodes ?? 2000,
+    options.shouldStop,
+  );
   return runSteps(steps, options.onProgress);
 }
 
 /** As searchCatalog (no default budget), yielding to the event loop between chunks so a stop request can arrive. */
 export function searchCatalogAsync(problem: CatalogProblem, options: SearchOptions = {}): Promise<CatalogResult> {
   const search = new CatalogSearch(problem, options.initial);
-  const steps = searchSteps(search, options.nodeBudget ?? Number.POSITIVE_INFINITY, options.chunkNodes ?? 2000, options.shouldStop);
+  const steps = searchSteps(
+    search,
+    options.nodeBudget ?? Number.POSITIVE_INFINITY,
+    options.chunkNodes ?? 2000,
+    options.shouldStop,
+  );
   return runStepsAsync(steps, options.onProgress);
 }

@@ -25,9 +25,11 @@ export function clearResolvedDotCache(): void {
  * added (resolveDotCore reads only the dot fields and excitationNm), else a copy of its dot fields.
  */
 function dotInput(probe: ProbeSpec, excitationNm: number | undefined): DotInput {
-  if (excitationNm === undefined && (probe as { excitationNm?: unknown }).excitationNm === undefined) return probe as DotInput;
+  if (excitationNm === undefined && (probe as { excitationNm?: unknown }).excitationNm === undefined)
+    return probe as DotInput;
   const input: Record<string, unknown> = {};
-  for (let f = 0; f < DOT_FIELDS.length; f++) if (probe[DOT_FIELDS[f]] !== undefined) input[DOT_FIELDS[f]] = probe[DOT_FIELDS[f]];
+  for (let f = 0; f < DOT_FIELDS.length; f++)
+    if (probe[DOT_FIELDS[f]] !== undefined) input[DOT_FIELDS[f]] = probe[DOT_FIELDS[f]];
   if (excitationNm !== undefined) input.excitationNm = excitationNm;
   return input as unknown as DotInput;
 }

@@ -36,12 +36,18 @@ export interface PanelEvaluation {
 }
 
 /** Adds the background collected per channel and each channel's signal-to-background (null + warning at 0). */
-function addBackground(evaluation: PanelEvaluation, model: PanelCoreModel, panel: PanelSpec, channelIds: string[]): void {
+function addBackground(
+  evaluation: PanelEvaluation,
+  model: PanelCoreModel,
+  panel: PanelSpec,
+  channelIds: string[],
+): void {
   const { grid, transmissions, linesOnByChannel } = model;
   const background = model.background!;
   const lines = panel.excitation;
   const bg = transmissions.map((t, c) =>
-    linesOnByChannel[c].reduce((s, l) => s + (lines[l].powerRel ?? 1) * overlap(background[l], t, grid.stepNm), 0));
+    linesOnByChannel[c].reduce((s, l) => s + (lines[l].powerRel ?? 1) * overlap(background[l], t, grid.stepNm), 0),
+  );
   evaluation.backgroundCollected = bg;
   evaluation.signalToBackground = bg.map((b, c) => {
     if (b > 0) return evaluation.collected[c].reduce((a, v) => a + v, 0) / b;
@@ -55,7 +61,10 @@ function addBackground(evaluation: PanelEvaluation, model: PanelCoreModel, panel
  * lot-to-lot check (each peak moved ±5 nm), which costs about twice the rest. Bad input throws SpectraError naming
  * the field, e.g. ['channels', 2, 'filters', 0, 'widthNm'] or ['probes', 1, 'channel'].
  */
-export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid; sensitivity?: boolean } = {}): PanelEvaluation {
+export function evaluatePanel(
+  panel: PanelSpec,
+  options: { grid?: WavelengthGrid; sensitivity?: boolean } = {},
+): PanelEvaluation {
   // Transmissions in reused buffers: nothing in the result holds them.
   const model = modelPanel(panel, options.grid ?? DEFAULT_GRID, true);
   const { grid, components, transmissions, constantEnds, assigned } = model;
@@ -76,8 +85,20 @@ export function evaluatePanel(panel: PanelSpec, options: { grid?: WavelengthGrid
     conditionNumber: diagnostics.conditionNumber,
     noiseAmplification: diagnostics.noiseAmplification,
     worst: figures.worst,
-    lotShiftSensitivity: options.sensitivity === false ? null
-      : lotShiftSensitivity(gridComponents(model), transmissions, grid.stepNm, collected, assigned, probeIds, channelIds, undefined, constantEnds),
+    lotShiftSensitivity:
+      options.sensitivity === false
+        ? null
+        : lotShiftSensitivity(
+            gridComponents(model),
+            transmissions,
+            grid.stepNm,
+            collected,
+            assigned,
+            probeIds,
+            channelIds,
+            undefined,
+            constantEnds,
+          ),
     warnings,
   };
   if (model.background) addBackground(evaluation, model, panel, channelIds);

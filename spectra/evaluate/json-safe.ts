@@ -5,7 +5,12 @@
 
 // Module-level functions rather than closures: a bundler that keeps function names wraps every named closure at
 // creation, which costs more than the work here.
-function checkJsonItem(record: Record<string | number, unknown>, key: string | number, path: (string | number)[], warnings: string[]): void {
+function checkJsonItem(
+  record: Record<string | number, unknown>,
+  key: string | number,
+  path: (string | number)[],
+  warnings: string[],
+): void {
   const item = record[key];
   if (typeof item === 'number') {
     if (item - item === 0) return; // false only for NaN and ±Infinity

@@ -50,7 +50,8 @@ export function checkPanelShape(panel: PanelSpec): void {
   const lines = panel.excitation;
   for (let l = 0; l < lines.length; l++) {
     const nm = lines[l].wavelengthNm;
-    if (typeof nm !== 'number' || !(nm > 0 && nm < 10000)) throw bad(`wavelengthNm must be a number above 0 nm, got ${String(nm)}`, ['excitation', l, 'wavelengthNm']);
+    if (typeof nm !== 'number' || !(nm > 0 && nm < 10000))
+      throw bad(`wavelengthNm must be a number above 0 nm, got ${String(nm)}`, ['excitation', l, 'wavelengthNm']);
     checkScale(lines[l].powerRel, 'excitation', l, 'powerRel');
   }
   uniqueIds(panel, 'probes');
@@ -60,7 +61,11 @@ export function checkPanelShape(panel: PanelSpec): void {
     checkScale(probes[p].abundance, 'probes', p, 'abundance');
     const channel = probes[p].channel;
     if (channel !== undefined && !channelIds.has(channel)) {
-      throw new SpectraError('unknown_channel', `channel ${JSON.stringify(channel)} names no channel of the panel`, ['probes', p, 'channel']);
+      throw new SpectraError('unknown_channel', `channel ${JSON.stringify(channel)} names no channel of the panel`, [
+        'probes',
+        p,
+        'channel',
+      ]);
     }
   }
 }

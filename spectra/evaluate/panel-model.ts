@@ -60,7 +60,12 @@ function channelWeights(linesOnByChannel: number[][], lineWeight: number[], only
 }
 
 /** The evaluation record of one probe: the dot's scalar fields, ε at every line and its brightness. */
-function probeEvaluation(probe: PanelSpec['probes'][number], dot: DotCore, eps: number[], brightnessPerAbundance: number): ProbeEvaluation {
+function probeEvaluation(
+  probe: PanelSpec['probes'][number],
+  dot: DotCore,
+  eps: number[],
+  brightnessPerAbundance: number,
+): ProbeEvaluation {
   return {
     id: probe.id,
     ...(probe.label !== undefined ? { label: probe.label } : {}),
@@ -100,7 +105,8 @@ export function modelPanel(panel: PanelSpec, grid: WavelengthGrid, reuse: boolea
   const linesOnByChannel = panel.channels.map((c, i) => linesOn(c, lines, ['channels', i]));
   const constantEnds: ConstantEnds[] = panel.channels.map(() => ({ first: 0, end: grid.count }));
   const transmissions = panel.channels.map((c, i) =>
-    channelTransmissionInto(c, grid, ['channels', i], constantEnds[i], reuse ? reusedBuffer(grid.count, i) : undefined));
+    channelTransmissionInto(c, grid, ['channels', i], constantEnds[i], reuse ? reusedBuffer(grid.count, i) : undefined),
+  );
   const cores: DotCore[] = [];
   const componentCores: DotCore[][] = [];
   const probeEvaluations: ProbeEvaluation[] = [];
@@ -127,23 +133,49 @@ export function modelPanel(panel: PanelSpec, grid: WavelengthGrid, reuse: boolea
       const perLine = lines.map((line) => resolveProbe(probe, p, grid, line.wavelengthNm));
       evaluation.emissionPeakNmByLine = perLine.map((d) => d.emissionPeakNm);
       componentCores.push(perLine);
-      components.push(perLine.map((d, l) => ({ emission: d.emissionWindow, weightByChannel: channelWeights(linesOnByChannel, lineWeight, l) })));
+      components.push(
+        perLine.map((d, l) => ({
+          emission: d.emissionWindow,
+          weightByChannel: channelWeights(linesOnByChannel, lineWeight, l),
+        })),
+      );
     } else {
       componentCores.push([dot]);
-      components.push([{ emission: dot.emissionWindow, weightByChannel: channelWeights(linesOnByChannel, lineWeight, null) }]);
+      components.push([
+        { emission: dot.emissionWindow, weightByChannel: channelWeights(linesOnByChannel, lineWeight, null) },
+      ]);
     }
   }
-  const assigned = panel.probes.map((probe) => (probe.channel === undefined ? undefined : channelIndex.get(probe.channel)));
+  const assigned = panel.probes.map((probe) =>
+    probe.channel === undefined ? undefined : channelIndex.get(probe.channel),
+  );
   const spec = panel.background;
   // A measured background does not depend on the line: one spectrum serves every line.
   const measured = spec?.points !== undefined ? backgroundEmission(spec, lines[0].wavelengthNm, grid) : null;
-  const background = spec === undefined ? null : lines.map((l) => measured ?? backgroundEmission(spec, l.wavelengthNm, grid));
-  return { grid, cores, componentCores, components, transmissions, constantEnds, linesOnByChannel, background, probeEvaluations, assigned };
+  const background =
+    spec === undefined ? null : lines.map((l) => measured ?? backgroundEmission(spec, l.wavelengthNm, grid));
+  return {
+    grid,
+    cores,
+    componentCores,
+    components,
+    transmissions,
+    constantEnds,
+    linesOnByChannel,
+    background,
+    probeEvaluations,
+    assigned,
+  };
 }
 
 /** The components of a probe with grid-long emission arrays (the public EmissionComponent form). */
 export function gridComponents(model: PanelCoreModel): EmissionComponent[][] {
-  return model.components.map((list, p) => list.map((c, k) => ({ emission: coreEmissionValues(model.componentCores[p][k]), weightByChannel: c.weightByChannel })));
+  return model.components.map((list, p) =>
+    list.map((c, k) => ({
+      emission: coreEmissionValues(model.componentCores[p][k]),
+      weightByChannel: c.weightByChannel,
+    })),
+  );
 }
 
 /** Validates the panel and resolves probes, channels and background on the grid. */
@@ -151,5 +183,15 @@ export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT
   const model = modelPanel(panel, grid, false);
   const { transmissions, constantEnds, linesOnByChannel, background, probeEvaluations, assigned } = model;
   const dots = model.cores.map(dotFromCore);
-  return { grid, dots, components: gridComponents(model), transmissions, constantEnds, linesOnByChannel, background, probeEvaluations, assigned };
+  return {
+    grid,
+    dots,
+    components: gridComponents(model),
+    transmissions,
+    constantEnds,
+    linesOnByChannel,
+    background,
+    probeEvaluations,
+    assigned,
+  };
 }

@@ -7,7 +7,16 @@ import { MATERIAL_IDS, type ProbeSpec } from '../panel';
 import type { WavelengthGrid } from '../grid';
 
 /** The probe fields a resolution depends on, in key order. */
-export const DOT_FIELDS = ['material', 'emissionPeakNm', 'diameterNm', 'sizeDispersionPct', 'fwhmNm', 'quantumYield', 'measuredEmission', 'extinction'] as const;
+export const DOT_FIELDS = [
+  'material',
+  'emissionPeakNm',
+  'diameterNm',
+  'sizeDispersionPct',
+  'fwhmNm',
+  'quantumYield',
+  'measuredEmission',
+  'extinction',
+] as const;
 
 const MATERIAL_INDEX = new Map<unknown, number>(MATERIAL_IDS.map((id, i) => [id, i]));
 

@@ -90,5 +90,14 @@ export function bandpassTransmission(
   const h = edgeHalfDistanceNm(widthNm, scaleNm);
   // The two edges overlap a little at the centre: divide by the shape's own top so the peak is exactly peakTransmission.
   const top = scaleNm === 0 ? 1 : logistic(h / scaleNm) ** 2;
-  return fillPassband(grid, centerNm - h, centerNm + h, scaleNm, options.floor, (options.peakTransmission - options.floor) / top, ends, out);
+  return fillPassband(
+    grid,
+    centerNm - h,
+    centerNm + h,
+    scaleNm,
+    options.floor,
+    (options.peakTransmission - options.floor) / top,
+    ends,
+    out,
+  );
 }

@@ -42,14 +42,19 @@ export function channelTransmissionInto(
     throw new SpectraError('invalid_input', 'a channel needs a filters array (it may be empty)', [...path, 'filters']);
   }
   if (channel.filters.length > MAX_FILTERS_PER_CHANNEL) {
-    throw new SpectraError('invalid_input', `a channel may stack at most ${MAX_FILTERS_PER_CHANNEL} filters`, [...path, 'filters']);
+    throw new SpectraError('invalid_input', `a channel may stack at most ${MAX_FILTERS_PER_CHANNEL} filters`, [
+      ...path,
+      'filters',
+    ]);
   }
   const { filters } = channel;
   // The first filter's fresh array becomes the product, multiplied in place by the others and the QE.
   const window: ConstantEnds = { first: filters.length === 0 ? grid.count : 0, end: 0 };
   const own: ConstantEnds = { first: 0, end: grid.count };
-  const out = filters.length === 0 ? (target ?? new Float64Array(grid.count)).fill(1)
-    : filterTransmissionInto(filters[0], grid, [...path, 'filters', 0], own, target);
+  const out =
+    filters.length === 0
+      ? (target ?? new Float64Array(grid.count)).fill(1)
+      : filterTransmissionInto(filters[0], grid, [...path, 'filters', 0], own, target);
   if (filters.length > 0) Object.assign(window, own);
   for (let f = 1; f < filters.length; f++) {
     const t = filterTransmission(filters[f], grid, [...path, 'filters', f], own);

@@ -28,7 +28,10 @@ export function dichroicTransmission(
   out?: Float64Array,
 ): Float64Array {
   if (filter.passes !== 'above' && filter.passes !== 'below') {
-    throw new SpectraError('invalid_input', `passes must be "above" or "below", got ${String(filter.passes)}`, [...path, 'passes']);
+    throw new SpectraError('invalid_input', `passes must be "above" or "below", got ${String(filter.passes)}`, [
+      ...path,
+      'passes',
+    ]);
   }
   return singleEdgeTransmission(filter, filter.passes === 'above', FILTER_DEFAULTS.dichroic, grid, path, ends, out);
 }

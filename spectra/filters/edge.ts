@@ -25,8 +25,17 @@ function blockedSideScales(floor: number, span: number): number {
 }
 
 /** Index range [first, last] of grid points from `belowScales` below an edge to `aboveScales` above it. */
-function window(grid: WavelengthGrid, edgeNm: number, scaleNm: number, belowScales: number, aboveScales: number): [number, number] {
-  return [Math.ceil((edgeNm - belowScales * scaleNm - grid.startNm) / grid.stepNm), Math.floor((edgeNm + aboveScales * scaleNm - grid.startNm) / grid.stepNm)];
+function window(
+  grid: WavelengthGrid,
+  edgeNm: number,
+  scaleNm: number,
+  belowScales: number,
+  aboveScales: number,
+): [number, number] {
+  return [
+    Math.ceil((edgeNm - belowScales * scaleNm - grid.startNm) / grid.stepNm),
+    Math.floor((edgeNm + aboveScales * scaleNm - grid.startNm) / grid.stepNm),
+  ];
 }
 
 /**
@@ -115,13 +124,23 @@ export function resolveEdgeOptions(
   const edge = filter.edgeWidthNm ?? defaults.edgeWidthNm;
   const od = filter.blockingOD ?? defaults.blockingOD;
   if (typeof peak !== 'number' || !(peak > 0 && peak <= 1)) {
-    throw new SpectraError('invalid_input', `peakTransmission must be a number in (0, 1], got ${String(peak)}`, [...path, 'peakTransmission']);
+    throw new SpectraError('invalid_input', `peakTransmission must be a number in (0, 1], got ${String(peak)}`, [
+      ...path,
+      'peakTransmission',
+    ]);
   }
   if (typeof edge !== 'number' || !(edge >= 0 && edge <= 200)) {
-    throw new SpectraError('invalid_input', `edgeWidthNm must be a number from 0 to 200 nm, got ${String(edge)}`, [...path, 'edgeWidthNm']);
+    throw new SpectraError('invalid_input', `edgeWidthNm must be a number from 0 to 200 nm, got ${String(edge)}`, [
+      ...path,
+      'edgeWidthNm',
+    ]);
   }
   if (typeof od !== 'number' || !(od >= 0 && od <= MAX_BLOCKING_OD)) {
-    throw new SpectraError('invalid_input', `blockingOD must be a number from 0 to ${MAX_BLOCKING_OD}, got ${String(od)}`, [...path, 'blockingOD']);
+    throw new SpectraError(
+      'invalid_input',
+      `blockingOD must be a number from 0 to ${MAX_BLOCKING_OD}, got ${String(od)}`,
+      [...path, 'blockingOD'],
+    );
   }
   return { peakTransmission: peak, edgeWidthNm: edge, floor: Math.min(10 ** -od, peak) };
 }
@@ -129,7 +148,10 @@ export function resolveEdgeOptions(
 /** Checks a wavelength field (finite, above 0 nm) without allocating its path unless it is wrong. */
 export function requireWavelengthNm(value: unknown, field: string, path: (string | number)[]): number {
   if (typeof value !== 'number' || !Number.isFinite(value) || value <= 0) {
-    throw new SpectraError('invalid_input', `${field} must be a number above 0 nm, got ${String(value)}`, [...path, field]);
+    throw new SpectraError('invalid_input', `${field} must be a number above 0 nm, got ${String(value)}`, [
+      ...path,
+      field,
+    ]);
   }
   return value;
 }

@@ -18,7 +18,12 @@ import type { ConstantEnds } from '../linalg/runs';
  * `ends` receives the index range outside which the result is constant (for the overlap integrals).
  * @example filterTransmission({ type: 'bandpass', centerNm: 605, widthNm: 20 }, DEFAULT_GRID)
  */
-export function filterTransmission(filter: FilterSpec, grid: WavelengthGrid, path: (string | number)[] = [], ends?: ConstantEnds): Float64Array {
+export function filterTransmission(
+  filter: FilterSpec,
+  grid: WavelengthGrid,
+  path: (string | number)[] = [],
+  ends?: ConstantEnds,
+): Float64Array {
   return filterTransmissionInto(filter, grid, path, ends);
 }
 

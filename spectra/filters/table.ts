@@ -17,7 +17,12 @@ export interface TableFilterSpec {
 export const MAX_TABLE_POINTS = 1000;
 
 /** Checks a [[nm, value], ...] table: 2–maxPoints rows, finite, nm > 0 strictly ascending, value in [min, max]. */
-export function checkTable(points: unknown, path: (string | number)[], range: [number, number], maxPoints = MAX_TABLE_POINTS): [number, number][] {
+export function checkTable(
+  points: unknown,
+  path: (string | number)[],
+  range: [number, number],
+  maxPoints = MAX_TABLE_POINTS,
+): [number, number][] {
   if (!Array.isArray(points) || points.length < 2) {
     throw new SpectraError('invalid_table', 'a table needs at least 2 points [nm, value]', path);
   }
@@ -31,10 +36,18 @@ export function checkTable(points: unknown, path: (string | number)[], range: [n
     }
     const [nm, value] = row as [number, number];
     if (nm <= previousNm) {
-      throw new SpectraError('invalid_table', `point ${i}: wavelengths must be above 0 and strictly ascending (${nm} nm after ${previousNm} nm)`, [...path, i, 0]);
+      throw new SpectraError(
+        'invalid_table',
+        `point ${i}: wavelengths must be above 0 and strictly ascending (${nm} nm after ${previousNm} nm)`,
+        [...path, i, 0],
+      );
     }
     if (value < range[0] || value > range[1]) {
-      throw new SpectraError('invalid_table', `point ${i}: value ${value} is outside ${range[0]}–${range[1]}`, [...path, i, 1]);
+      throw new SpectraError('invalid_table', `point ${i}: value ${value} is outside ${range[0]}–${range[1]}`, [
+        ...path,
+        i,
+        1,
+      ]);
     }
     previousNm = nm;
   });
@@ -53,7 +66,10 @@ export function tableTransmission(
   if (ends) {
     // The end values are held beyond the table: constant below its first and above its last wavelength.
     ends.first = Math.min(grid.count, Math.max(0, Math.floor((points[0][0] - grid.startNm) / grid.stepNm)));
-    ends.end = Math.max(ends.first, Math.min(grid.count, Math.ceil((points[points.length - 1][0] - grid.startNm) / grid.stepNm) + 1));
+    ends.end = Math.max(
+      ends.first,
+      Math.min(grid.count, Math.ceil((points[points.length - 1][0] - grid.startNm) / grid.stepNm) + 1),
+    );
   }
   const n = points.length;
   let j = 0;

@@ -19,7 +19,11 @@ export function checkMatrix(m: unknown, name = 'matrix'): { rows: number; cols: 
     }
     row.forEach((v: unknown, j) => {
       if (typeof v !== 'number' || !Number.isFinite(v)) {
-        throw new SpectraError('invalid_input', `${name}[${i}][${j}] must be a finite number, got ${String(v)}`, [name, i, j]);
+        throw new SpectraError('invalid_input', `${name}[${i}][${j}] must be a finite number, got ${String(v)}`, [
+          name,
+          i,
+          j,
+        ]);
       }
     });
   });
@@ -29,7 +33,9 @@ export function checkMatrix(m: unknown, name = 'matrix'): { rows: number; cols: 
 /** Checks a vector of finite numbers of the given length. Errors name [name, i]. */
 export function checkVector(y: unknown, length: number, name = 'y'): number[] {
   if (!Array.isArray(y) || y.length !== length) {
-    throw new SpectraError('invalid_input', `${name} must be an array of ${length} numbers (one per matrix row)`, [name]);
+    throw new SpectraError('invalid_input', `${name} must be an array of ${length} numbers (one per matrix row)`, [
+      name,
+    ]);
   }
   y.forEach((v: unknown, i) => {
     if (typeof v !== 'number' || !Number.isFinite(v)) {

@@ -38,7 +38,10 @@ export function nnls(a: readonly (readonly number[])[], y: readonly number[]): N
     for (;;) {
       if (++iterations > maxIterations) return { x, converged: false, iterations };
       const idx = passive.flatMap((p, j) => (p ? [j] : []));
-      const sub = leastSquaresQr(a.map((row) => idx.map((j) => row[j])), y);
+      const sub = leastSquaresQr(
+        a.map((row) => idx.map((j) => row[j])),
+        y,
+      );
       // A rank-deficient passive set cannot improve the fit: drop the column just added and stop there.
       if (sub === null) {
         passive[t] = false;

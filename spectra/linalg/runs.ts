@@ -12,7 +12,10 @@ export function overlap(a: Float64Array, b: Float64Array, stepNm: number): numbe
 
 /** Σ a[i] b[i] over [from, to), four partial sums. */
 export function windowDot(a: Float64Array, b: Float64Array, from: number, to: number): number {
-  let s0 = 0, s1 = 0, s2 = 0, s3 = 0;
+  let s0 = 0,
+    s1 = 0,
+    s2 = 0,
+    s3 = 0;
   let i = from;
   for (; i + 3 < to; i += 4) {
     s0 += a[i] * b[i];

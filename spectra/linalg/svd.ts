@@ -55,12 +55,13 @@ export function jacobiColumns(a: Float64Array[], v: Float64Array[] | null, toler
           aq[i] = s * x + c * y;
         }
         const vq = v?.[q];
-        if (vp && vq) for (let i = 0; i < n; i++) {
-          const x = vp[i];
-          const y = vq[i];
-          vp[i] = c * x - s * y;
-          vq[i] = s * x + c * y;
-        }
+        if (vp && vq)
+          for (let i = 0; i < n; i++) {
+            const x = vp[i];
+            const y = vq[i];
+            vp[i] = c * x - s * y;
+            vq[i] = s * x + c * y;
+          }
         norms[p] = alpha - t * gamma;
         norms[q] = beta + t * gamma;
       }

@@ -54,12 +54,13 @@ function tridiagonalise(a: Float64Array[], d: Float64Array, e: Float64Array, wan
     for (let i = k + 2; i < n; i++) a[i][k] = a[k][i] = 0;
     a[k + 1][k] = a[k][k + 1] = alpha;
     // Q ← Q H, one row of Q at a time.
-    if (q) for (let r = 0; r < n; r++) {
-      let s = 0;
-      for (let i = k + 1; i < n; i++) s += q[i][r] * v[i];
-      s *= beta;
-      for (let i = k + 1; i < n; i++) q[i][r] -= s * v[i];
-    }
+    if (q)
+      for (let r = 0; r < n; r++) {
+        let s = 0;
+        for (let i = k + 1; i < n; i++) s += q[i][r] * v[i];
+        s *= beta;
+        for (let i = k + 1; i < n; i++) q[i][r] -= s * v[i];
+      }
   }
   for (let i = 0; i < n; i++) {
     d[i] = a[i][i];

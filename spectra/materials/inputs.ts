@@ -14,7 +14,11 @@ export function optionalNumber(
   const x = requireFinite(value, field);
   const tooLow = opts.minExclusive ? x <= min : x < min;
   if (tooLow) {
-    throw new SpectraError('invalid_input', `${field} must be ${opts.minExclusive ? 'above' : 'at least'} ${min}${unit}, got ${x}`, [field]);
+    throw new SpectraError(
+      'invalid_input',
+      `${field} must be ${opts.minExclusive ? 'above' : 'at least'} ${min}${unit}, got ${x}`,
+      [field],
+    );
   }
   if (x > max) throw new SpectraError('out_of_range', `${field} must be at most ${max}${unit}, got ${x}`, [field]);
   return x;

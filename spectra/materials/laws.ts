@@ -35,7 +35,12 @@ function yuLaw(id: YuMaterialId): SizeLaw {
   };
 }
 
-function brusLaw(id: 'gaas' | 'cspbbr3', range: readonly [number, number], sizeMeaning: string, cube: boolean): SizeLaw {
+function brusLaw(
+  id: 'gaas' | 'cspbbr3',
+  range: readonly [number, number],
+  sizeMeaning: string,
+  cube: boolean,
+): SizeLaw {
   return {
     model: 'Brus 1984 effective-mass equation (1.786 Coulomb and −0.248 E*Ry terms, Kayanuma 1988)',
     sizeMeaning,

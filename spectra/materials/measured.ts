@@ -14,15 +14,27 @@ export function requireTable(points: unknown, path: (string | number)[]): [numbe
     throw new SpectraError('invalid_table', 'a measured table needs at least 2 [nm, value] points', path);
   }
   if (points.length > MAX_MEASURED_POINTS) {
-    throw new SpectraError('invalid_table', `a measured table has at most ${MAX_MEASURED_POINTS} points, got ${points.length}`, path);
+    throw new SpectraError(
+      'invalid_table',
+      `a measured table has at most ${MAX_MEASURED_POINTS} points, got ${points.length}`,
+      path,
+    );
   }
   points.forEach((p, i) => {
     if (!Array.isArray(p) || p.length !== 2 || !p.every((v) => typeof v === 'number' && Number.isFinite(v))) {
-      throw new SpectraError('invalid_table', `point ${i} must be [wavelength nm, value] with two finite numbers`, [...path, i]);
+      throw new SpectraError('invalid_table', `point ${i} must be [wavelength nm, value] with two finite numbers`, [
+        ...path,
+        i,
+      ]);
     }
-    if (p[0] <= 0) throw new SpectraError('invalid_table', `point ${i}: wavelength must be above 0 nm`, [...path, i, 0]);
+    if (p[0] <= 0)
+      throw new SpectraError('invalid_table', `point ${i}: wavelength must be above 0 nm`, [...path, i, 0]);
     if (i > 0 && p[0] <= points[i - 1][0]) {
-      throw new SpectraError('invalid_table', `point ${i}: wavelengths must be strictly ascending (${p[0]} nm after ${points[i - 1][0]} nm)`, [...path, i, 0]);
+      throw new SpectraError(
+        'invalid_table',
+        `point ${i}: wavelengths must be strictly ascending (${p[0]} nm after ${points[i - 1][0]} nm)`,
+        [...path, i, 0],
+      );
     }
   });
   return points as [number, number][];
@@ -66,14 +78,21 @@ export function resampleMeasuredEmission(points: unknown, grid: WavelengthGrid, 
   let sum = 0;
   let clipped = false;
   for (let i = 0; i < values.length; i++) {
-    if (values[i] < 0) { values[i] = 0; clipped = true; }
+    if (values[i] < 0) {
+      values[i] = 0;
+      clipped = true;
+    }
     sum += values[i];
   }
   if (clipped) warnings.push('Measured emission had negative values; they were set to zero.');
-  if (!(sum > 0)) throw new SpectraError('invalid_table', 'measured emission has no positive value on the wavelength grid', path);
+  if (!(sum > 0))
+    throw new SpectraError('invalid_table', 'measured emission has no positive value on the wavelength grid', path);
   for (let i = 0; i < values.length; i++) values[i] /= sum * grid.stepNm;
   const spectrum: SampledSpectrum = { startNm: grid.startNm, stepNm: grid.stepNm, values };
   const { peakNm, fwhmNm, truncated } = peakAndFwhmNm(spectrum);
-  if (truncated) warnings.push('Measured emission does not fall to half maximum on both sides within the grid: its FWHM is a lower bound.');
+  if (truncated)
+    warnings.push(
+      'Measured emission does not fall to half maximum on both sides within the grid: its FWHM is a lower bound.',
+    );
   return { spectrum, peakNm, fwhmNm, warnings };
 }

@@ -16,10 +16,16 @@ export interface PowerLawFit {
 
 function linearFit(xs: number[], ys: number[], p: number): { a: number; b: number; sse: number } {
   const n = xs.length;
-  let su = 0, sy = 0, suu = 0, suy = 0;
+  let su = 0,
+    sy = 0,
+    suu = 0,
+    suy = 0;
   for (let i = 0; i < n; i++) {
     const u = Math.pow(xs[i], -p);
-    su += u; sy += ys[i]; suu += u * u; suy += u * ys[i];
+    su += u;
+    sy += ys[i];
+    suu += u * u;
+    suy += u * ys[i];
   }
   const b = (n * suy - su * sy) / (n * suu - su * su);
   const a = (sy - b * su) / n;
@@ -29,7 +35,11 @@ function linearFit(xs: number[], ys: number[], p: number): { a: number; b: numbe
 }
 
 /** Fits E = a + b d^−p to the law sampled at `samples` diameters spread evenly over `rangeNm`. */
-export function fitPowerLaw(lawEv: (diameterNm: number) => number, rangeNm: readonly [number, number], samples = 41): PowerLawFit {
+export function fitPowerLaw(
+  lawEv: (diameterNm: number) => number,
+  rangeNm: readonly [number, number],
+  samples = 41,
+): PowerLawFit {
   const xs: number[] = [];
   const ys: number[] = [];
   for (let i = 0; i < samples; i++) {
@@ -55,7 +65,8 @@ export function fitPowerLaw(lawEv: (diameterNm: number) => number, rangeNm: read
   const p = 0.5 * (lo + hi);
   const { a, b } = linearFit(xs, ys, p);
   let maxResidualEv = 0;
-  for (let i = 0; i < xs.length; i++) maxResidualEv = Math.max(maxResidualEv, Math.abs(a + b * Math.pow(xs[i], -p) - ys[i]));
+  for (let i = 0; i < xs.length; i++)
+    maxResidualEv = Math.max(maxResidualEv, Math.abs(a + b * Math.pow(xs[i], -p) - ys[i]));
   return { offsetEv: a, prefactorEvNmP: b, exponent: p, maxResidualEv };
 }
 

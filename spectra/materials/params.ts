@@ -31,12 +31,60 @@ function reduced(me: number, mh: number): number {
 
 /** Bulk parameters by sized material (see the provenance header above). */
 export const BULK_PARAMS = {
-  cdse: { bandGapEv: 1.74, electronMassRel: 0.13, holeMassRel: 0.45, reducedMassRel: reduced(0.13, 0.45), dielectricConstant: 10.6, bohrRadiusNm: 5.6, homogeneousFwhmEv: 0.07 },
-  cdte: { bandGapEv: 1.5, electronMassRel: 0.1, holeMassRel: 0.4, reducedMassRel: reduced(0.1, 0.4), dielectricConstant: 10.2, bohrRadiusNm: 7.3, homogeneousFwhmEv: 0.07 },
-  cds: { bandGapEv: 2.42, electronMassRel: 0.2, holeMassRel: 0.7, reducedMassRel: reduced(0.2, 0.7), dielectricConstant: 8.9, bohrRadiusNm: 2.8, homogeneousFwhmEv: 0.08 },
-  inp: { bandGapEv: 1.344, electronMassRel: 0.08, holeMassRel: 0.6, reducedMassRel: reduced(0.08, 0.6), dielectricConstant: 12.5, bohrRadiusNm: 10, homogeneousFwhmEv: 0.08 },
-  gaas: { bandGapEv: 1.424, electronMassRel: 0.063, holeMassRel: 0.51, reducedMassRel: reduced(0.063, 0.51), dielectricConstant: 12.9, bohrRadiusNm: 12, homogeneousFwhmEv: 0.06 },
-  cspbbr3: { bandGapEv: 2.36, electronMassRel: 0.15, holeMassRel: 0.14, reducedMassRel: 0.126, dielectricConstant: 4.96, bohrRadiusNm: 3.5, homogeneousFwhmEv: 0.08 },
+  cdse: {
+    bandGapEv: 1.74,
+    electronMassRel: 0.13,
+    holeMassRel: 0.45,
+    reducedMassRel: reduced(0.13, 0.45),
+    dielectricConstant: 10.6,
+    bohrRadiusNm: 5.6,
+    homogeneousFwhmEv: 0.07,
+  },
+  cdte: {
+    bandGapEv: 1.5,
+    electronMassRel: 0.1,
+    holeMassRel: 0.4,
+    reducedMassRel: reduced(0.1, 0.4),
+    dielectricConstant: 10.2,
+    bohrRadiusNm: 7.3,
+    homogeneousFwhmEv: 0.07,
+  },
+  cds: {
+    bandGapEv: 2.42,
+    electronMassRel: 0.2,
+    holeMassRel: 0.7,
+    reducedMassRel: reduced(0.2, 0.7),
+    dielectricConstant: 8.9,
+    bohrRadiusNm: 2.8,
+    homogeneousFwhmEv: 0.08,
+  },
+  inp: {
+    bandGapEv: 1.344,
+    electronMassRel: 0.08,
+    holeMassRel: 0.6,
+    reducedMassRel: reduced(0.08, 0.6),
+    dielectricConstant: 12.5,
+    bohrRadiusNm: 10,
+    homogeneousFwhmEv: 0.08,
+  },
+  gaas: {
+    bandGapEv: 1.424,
+    electronMassRel: 0.063,
+    holeMassRel: 0.51,
+    reducedMassRel: reduced(0.063, 0.51),
+    dielectricConstant: 12.9,
+    bohrRadiusNm: 12,
+    homogeneousFwhmEv: 0.06,
+  },
+  cspbbr3: {
+    bandGapEv: 2.36,
+    electronMassRel: 0.15,
+    holeMassRel: 0.14,
+    reducedMassRel: 0.126,
+    dielectricConstant: 4.96,
+    bohrRadiusNm: 3.5,
+    homogeneousFwhmEv: 0.08,
+  },
 } as const satisfies Record<string, BulkParams>;
 
 /** Materials that have bulk parameters (every material with a size law). */

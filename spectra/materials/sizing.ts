@@ -13,7 +13,11 @@ export function isSizedMaterial(material: string): material is SizedMaterialId {
 /** Throws `unknown_material` unless `material` is one of the contract's ids. */
 export function requireMaterialId(material: unknown, path: (string | number)[] = ['material']): MaterialId {
   if (typeof material !== 'string' || !(MATERIAL_IDS as readonly string[]).includes(material)) {
-    throw new SpectraError('unknown_material', `unknown material ${JSON.stringify(material)}; known: ${MATERIAL_IDS.join(', ')}`, path);
+    throw new SpectraError(
+      'unknown_material',
+      `unknown material ${JSON.stringify(material)}; known: ${MATERIAL_IDS.join(', ')}`,
+      path,
+    );
   }
   return material as MaterialId;
 }
@@ -22,17 +26,26 @@ export function requireMaterialId(material: unknown, path: (string | number)[] =
 export function sizeLawOf(material: unknown): SizeLaw {
   const id = requireMaterialId(material);
   if (!isSizedMaterial(id)) {
-    throw new SpectraError('invalid_input', `${id} has no size law: give emissionPeakNm (carbon) or measuredEmission (custom)`, ['material']);
+    throw new SpectraError(
+      'invalid_input',
+      `${id} has no size law: give emissionPeakNm (carbon) or measuredEmission (custom)`,
+      ['material'],
+    );
   }
   return SIZE_LAWS[id];
 }
 
 function checkDiameter(material: SizedMaterialId, diameterNm: number): void {
   requireFinite(diameterNm, 'diameterNm');
-  if (diameterNm <= 0) throw new SpectraError('invalid_input', `diameterNm must be above 0 nm, got ${diameterNm}`, ['diameterNm']);
+  if (diameterNm <= 0)
+    throw new SpectraError('invalid_input', `diameterNm must be above 0 nm, got ${diameterNm}`, ['diameterNm']);
   const [lo, hi] = SIZE_LAWS[material].diameterRangeNm;
   if (diameterNm < lo || diameterNm > hi) {
-    throw new SpectraError('out_of_range', `diameterNm ${diameterNm} is outside the ${material} size law's range ${lo}–${hi} nm`, ['diameterNm']);
+    throw new SpectraError(
+      'out_of_range',
+      `diameterNm ${diameterNm} is outside the ${material} size law's range ${lo}–${hi} nm`,
+      ['diameterNm'],
+    );
   }
 }
 
@@ -56,7 +69,10 @@ export function emissionPeakForDiameterNm(material: MaterialId, diameterNm: numb
  * First-exciton energy (eV) and emission peak (nm) of a dot of core size `diameterNm`, from one evaluation of the
  * size law (resolveDot needs both). Same checks and errors as emissionPeakForDiameterNm.
  */
-export function sizedDotPeaks(material: MaterialId, diameterNm: number): { firstExcitonEv: number; emissionPeakNm: number } {
+export function sizedDotPeaks(
+  material: MaterialId,
+  diameterNm: number,
+): { firstExcitonEv: number; emissionPeakNm: number } {
   const law = sizeLawOf(material);
   checkDiameter(material as SizedMaterialId, diameterNm);
   const e1 = law.firstExcitonEv(diameterNm);
@@ -87,10 +103,15 @@ export function emissionRangeForMaterialNm(material: MaterialId): [number, numbe
  * Core size (nm) of the dot that emits at `emissionPeakNm`: the inverse of emissionPeakForDiameterNm (closed form for
  * the Stokes step, then the size law's own inverse). Outside the reach: `out_of_range` naming the reachable range.
  */
-export function diameterForEmissionPeakNm(material: MaterialId, emissionPeakNm: number, path: (string | number)[] = ['emissionPeakNm']): number {
+export function diameterForEmissionPeakNm(
+  material: MaterialId,
+  emissionPeakNm: number,
+  path: (string | number)[] = ['emissionPeakNm'],
+): number {
   const law = sizeLawOf(material);
   requireFinite(emissionPeakNm, 'emissionPeakNm', path);
-  if (emissionPeakNm <= 0) throw new SpectraError('invalid_input', `emissionPeakNm must be above 0 nm, got ${emissionPeakNm}`, path);
+  if (emissionPeakNm <= 0)
+    throw new SpectraError('invalid_input', `emissionPeakNm must be above 0 nm, got ${emissionPeakNm}`, path);
   const [minNm, maxNm] = rangeOf(material);
   // Allow a hair of round-off at the ends so the range's own end points resolve.
   if (emissionPeakNm < minNm - 1e-9 || emissionPeakNm > maxNm + 1e-9) {

@@ -20,7 +20,8 @@ export function stokesShiftEv(material: SizedMaterialId, firstExcitonEv: number)
 /** First-exciton energy (eV) whose emission, after the Stokes shift, lies at `emissionEv` (exact inverse). */
 export function firstExcitonEvForEmissionEv(material: SizedMaterialId, emissionEv: number): number {
   const gap = BULK_PARAMS[material].bandGapEv;
-  const e1 = (emissionEv + STOKES_MODEL.floorEv - STOKES_MODEL.confinementShare * gap) / (1 - STOKES_MODEL.confinementShare);
+  const e1 =
+    (emissionEv + STOKES_MODEL.floorEv - STOKES_MODEL.confinementShare * gap) / (1 - STOKES_MODEL.confinementShare);
   // Below the gap the confinement term is clamped at zero, so the shift is only the floor.
   return e1 >= gap ? e1 : emissionEv + STOKES_MODEL.floorEv;
 }

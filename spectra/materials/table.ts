@@ -22,17 +22,27 @@ function build(id: MaterialId): Material {
       sizeMeaning: law.sizeMeaning,
       diameterRangeNm: [law.diameterRangeNm[0], law.diameterRangeNm[1]],
       emissionRangeNm: [Math.round(lo * 10) / 10, Math.round(hi * 10) / 10],
-      bulkBandGapEv: p.bandGapEv, electronMassRel: p.electronMassRel, holeMassRel: p.holeMassRel,
-      dielectricConstant: p.dielectricConstant, bohrRadiusNm: p.bohrRadiusNm,
+      bulkBandGapEv: p.bandGapEv,
+      electronMassRel: p.electronMassRel,
+      holeMassRel: p.holeMassRel,
+      dielectricConstant: p.dielectricConstant,
+      bohrRadiusNm: p.bohrRadiusNm,
       sizingModel: law.model,
     };
   }
   return {
     ...base,
-    sizeMeaning: id === 'carbon' ? 'no size law: carbon dots are described by their emission peak' : 'no size law: described by measured spectra',
+    sizeMeaning:
+      id === 'carbon'
+        ? 'no size law: carbon dots are described by their emission peak'
+        : 'no size law: described by measured spectra',
     diameterRangeNm: null,
     emissionRangeNm: id === 'carbon' ? [...CARBON_EMISSION_RANGE_NM] : null,
-    bulkBandGapEv: null, electronMassRel: null, holeMassRel: null, dielectricConstant: null, bohrRadiusNm: null,
+    bulkBandGapEv: null,
+    electronMassRel: null,
+    holeMassRel: null,
+    dielectricConstant: null,
+    bohrRadiusNm: null,
     sizingModel: id === 'carbon' ? 'no size law (emission peak given; approximate excitation dependence)' : 'measured',
   };
 }
@@ -48,6 +58,11 @@ export function listMaterials(): Material[] {
 /** One material by id; `unknown_material` naming `material` otherwise. */
 export function getMaterial(id: string): Material {
   const found = (cache ?? listMaterials()).find((m) => m.id === id);
-  if (!found) throw new SpectraError('unknown_material', `unknown material ${JSON.stringify(id)}; known: ${MATERIAL_IDS.join(', ')}`, ['material']);
+  if (!found)
+    throw new SpectraError(
+      'unknown_material',
+      `unknown material ${JSON.stringify(id)}; known: ${MATERIAL_IDS.join(', ')}`,
+      ['material'],
+    );
   return structuredClone(found);
 }

@@ -8,10 +8,11 @@ import type { Toxicity } from './types';
  * regulations, institutional safety rules and licensed practice.
  */
 const DEFER =
-  'Follow local regulations, your institution\'s safety rules and licensed practice for handling, storage, use in living systems and disposal; they take precedence over anything shown here.';
+  "Follow local regulations, your institution's safety rules and licensed practice for handling, storage, use in living systems and disposal; they take precedence over anything shown here.";
 const NANO =
   'Handle dispersions and dry powders so as to avoid inhalation, ingestion and skin contact (e.g. gloves and a fume hood or enclosure as your safety office requires).';
-const WASTE = 'Collect waste as hazardous heavy-metal waste where your rules require it; do not pour it down the drain.';
+const WASTE =
+  'Collect waste as hazardous heavy-metal waste where your rules require it; do not pour it down the drain.';
 const NOT_SAFE = 'A low rating is not a finding of safety: toxicity depends on size, surface, coating, dose and route.';
 
 const cadmium = (massPct: string): Toxicity => ({
@@ -53,7 +54,12 @@ export const TOXICITY: Record<MaterialId, Toxicity> = {
       'CsPbBr3 is about 35.7 % lead by mass (computed from atomic masses).',
       'Lead-halide perovskites degrade quickly in water, heat and light, releasing Pb²⁺ unless encapsulated (silica or polymer shells are used to hold it in).',
     ],
-    cautions: [DEFER, NANO, WASTE, 'Use only encapsulated material in aqueous or biological media, and expect lead release if the shell fails.'],
+    cautions: [
+      DEFER,
+      NANO,
+      WASTE,
+      'Use only encapsulated material in aqueous or biological media, and expect lead release if the shell fails.',
+    ],
   },
   carbon: {
     level: 'low',
@@ -64,7 +70,9 @@ export const TOXICITY: Record<MaterialId, Toxicity> = {
   },
   custom: {
     level: 'high',
-    notes: ['Unknown material: the tool knows nothing of its hazards, so it is rated high as a precaution, not as an assessment.'],
-    cautions: ['Follow the supplier\'s safety data sheet.', DEFER],
+    notes: [
+      'Unknown material: the tool knows nothing of its hazards, so it is rated high as a precaution, not as an assessment.',
+    ],
+    cautions: ["Follow the supplier's safety data sheet.", DEFER],
   },
 };

@@ -23,7 +23,8 @@ export function smoothSizeFit(material: SizedMaterialId): PowerLawFit {
  * (params.ts), FWHM = 2√(2 ln 2) σE. Both are Gaussian in energy, so their variances add.
  */
 export function emissionFwhmEv(material: SizedMaterialId, diameterNm: number, sizeDispersionPct: number): number {
-  const sigmaInhomEv = powerLawSlopeEvPerNm(smoothSizeFit(material), diameterNm) * diameterNm * (sizeDispersionPct / 100);
+  const sigmaInhomEv =
+    powerLawSlopeEvPerNm(smoothSizeFit(material), diameterNm) * diameterNm * (sizeDispersionPct / 100);
   const sigmaHomEv = BULK_PARAMS[material].homogeneousFwhmEv / GAUSSIAN_FWHM_PER_SIGMA;
   return GAUSSIAN_FWHM_PER_SIGMA * Math.hypot(sigmaInhomEv, sigmaHomEv);
 }

@@ -23,20 +23,27 @@ async function open(url: string): Promise<{ page: Page; problems: string[] }> {
   const page = await browser.context.newPage();
   const problems: string[] = [];
   page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
-  page.on('dialog', async (d) => { problems.push(`dialog: ${d.message()}`); await d.dismiss(); });
+  page.on('dialog', async (d) => {
+    problems.push(`dialog: ${d.message()}`);
+    await d.dismiss();
+  });
   page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
   await page.goto(url);
   await page.locator('qdp-crosstalk-table p.worst').waitFor();
   return { page, problems };
 }
 
-const orangeWidth = (page: Page) => page.locator('qdp-channel-card').nth(3).locator('qdp-number-field[data-field="filters.0.widthNm"] input');
-const spillover = (page: Page) => page.locator('qdp-crosstalk-table table[aria-label="Spillover by channel"]').innerText();
+const orangeWidth = (page: Page) =>
+  page.locator('qdp-channel-card').nth(3).locator('qdp-number-field[data-field="filters.0.widthNm"] input');
+const spillover = (page: Page) =>
+  page.locator('qdp-crosstalk-table table[aria-label="Spillover by channel"]').innerText();
 
 describe('the panel page', () => {
   it('opening / shows the demo panel with spectra, crosstalk and material cautions, at 1280 px and 390 px', async () => {
     const { page, problems } = await open(app.baseUrl + '/');
-    expect(await page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toContain('Demo: six targets');
+    expect(await page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toContain(
+      'Demo: six targets',
+    );
     expect(await page.locator('qdp-spectrum-chart path.curve').count()).toBe(6);
     expect(await page.locator('qdp-material-notes p.summary').innerText()).toContain('This panel contains cadmium');
     await shot(page, '01-demo-1280');
@@ -111,7 +118,9 @@ describe('the panel page', () => {
     await shot(other.page, '06-opened-link-1280');
     await other.page.getByRole('button', { name: 'Duplicate and edit' }).click();
     await expect.poll(() => other.page.url()).toMatch(/\/#v1\./);
-    expect(await other.page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toContain('(copy)');
+    expect(await other.page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toContain(
+      '(copy)',
+    );
     expect([...problems, ...other.problems]).toEqual([]);
     await other.page.close();
     await page.close();
@@ -119,12 +128,16 @@ describe('the panel page', () => {
 
   it('exporting the ordering sheet downloads a CSV with every probe and each channel written as "bandpass 605/20"', async () => {
     const { page } = await open(app.baseUrl + '/');
-    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Ordering sheet (CSV)' }).click()]);
+    const [download] = await Promise.all([
+      page.waitForEvent('download'),
+      page.getByRole('button', { name: 'Ordering sheet (CSV)' }).click(),
+    ]);
     const csv = readFileSync((await download.path())!, 'utf8');
     expect(download.suggestedFilename()).toMatch(/\.csv$/);
     expect(csv).toContain('bandpass 605/20');
     expect(csv).toContain('longpass 690');
-    for (const target of ['nuclear envelope marker', 'mitochondrial marker', 'membrane marker']) expect(csv).toContain(target);
+    for (const target of ['nuclear envelope marker', 'mitochondrial marker', 'membrane marker'])
+      expect(csv).toContain(target);
     const cdseRow = csv.split('\r\n').find((r) => r.startsWith('p4,'))!;
     // material, core diameter (a number), emission peak 605.
     expect(cdseRow).toMatch(/^p4,Orange dot,cytoskeleton marker,cdse,\d+(\.\d+)?,605,/);

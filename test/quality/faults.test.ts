@@ -45,7 +45,12 @@ function acceptableForBrokenBody(o: RawOutcome): boolean {
  * Opens a socket, sends `head` and then `chunks` (each after `gapMs`), then ends (FIN) or destroys the socket, and
  * waits up to `waitMs` for a status line or for the server to close.
  */
-function rawExchange(port: number, head: string, chunks: string[], opts: { gapMs?: number; finish: 'end' | 'destroy' | 'none'; waitMs: number }): Promise<RawOutcome> {
+function rawExchange(
+  port: number,
+  head: string,
+  chunks: string[],
+  opts: { gapMs?: number; finish: 'end' | 'destroy' | 'none'; waitMs: number },
+): Promise<RawOutcome> {
   return new Promise((resolve) => {
     const socket = connect(port, '127.0.0.1');
     let received = '';
@@ -68,7 +73,9 @@ function rawExchange(port: number, head: string, chunks: string[], opts: { gapMs
     });
     socket.on('close', () => {
       const match = /^HTTP\/1\.[01] (\d{3})[^]*?\r\n\r\n/.exec(received);
-      settle(match ? { status: Number(match[1]), body: received.slice(match[0].length) } : { closedWithoutResponse: true });
+      settle(
+        match ? { status: Number(match[1]), body: received.slice(match[0].length) } : { closedWithoutResponse: true },
+      );
     });
     socket.on('error', () => settle({ closedWithoutResponse: true }));
     socket.on('connect', async () => {
@@ -128,7 +135,7 @@ describe('a hard kill during a burst of new shares', () => {
 describe('bodies cut off or sent slowly', () => {
   let app: StartedApp;
 
-  it('a body cut off halfway (Content-Length 1000, 500 bytes, then FIN or reset) gets a 4xx or a close (or the local proxy\'s own 503), the worker raises no unhandled error, and the server still answers promptly', async () => {
+  it("a body cut off halfway (Content-Length 1000, 500 bytes, then FIN or reset) gets a 4xx or a close (or the local proxy's own 503), the worker raises no unhandled error, and the server still answers promptly", async () => {
     app = await start(freshPersistDir(), snapshotRoot());
     const half = JSON.stringify(demoPanelTitled('cut off')).slice(0, 500);
     for (const finish of ['end', 'destroy'] as const) {
@@ -151,11 +158,16 @@ describe('bodies cut off or sent slowly', () => {
     });
     const chunks = body.match(/.{1,8}/gs)!;
     const drips = Array.from({ length: 20 }, (_, k) =>
-      rawExchange(app.port, head(app.port, Buffer.byteLength(body)), k % 2 === 0 ? chunks : chunks.slice(0, chunks.length >> 1), {
-        gapMs: 100,
-        finish: k % 2 === 0 ? 'none' : 'end',
-        waitMs: 60_000,
-      }),
+      rawExchange(
+        app.port,
+        head(app.port, Buffer.byteLength(body)),
+        k % 2 === 0 ? chunks : chunks.slice(0, chunks.length >> 1),
+        {
+          gapMs: 100,
+          finish: k % 2 === 0 ? 'none' : 'end',
+          waitMs: 60_000,
+        },
+      ),
     );
     const healthTimes: number[] = [];
     const dripping = Promise.all(drips);
@@ -164,7 +176,9 @@ describe('bodies cut off or sent slowly', () => {
       await new Promise((r) => setTimeout(r, 300));
     }
     const outcomes = await dripping;
-    console.log(`health while dripping: ${healthTimes.join(' ')} ms; outcomes ${outcomes.map((o) => ('status' in o ? o.status : Object.keys(o)[0])).join(' ')}`);
+    console.log(
+      `health while dripping: ${healthTimes.join(' ')} ms; outcomes ${outcomes.map((o) => ('status' in o ? o.status : Object.keys(o)[0])).join(' ')}`,
+    );
     expect(Math.max(...healthTimes)).toBeLessThan(2000);
     outcomes.forEach((o, k) => {
       if (k % 2 === 0) expect(o, `complete drip ${k}`).toMatchObject({ status: 200 });

@@ -29,34 +29,82 @@ interface Case {
 const POST_ROUTES = ['/api/v1/panels/evaluate', '/api/v1/panels', '/api/v1/dots/resolve', '/api/v1/panels/design'];
 const GET_ROUTES = ['/api/v1/health', '/api/v1/materials', '/api/v1/detectors', '/api/v1/openapi.json'];
 
-const nested = (depth: number, open: string, close: string, inner = '1') => open.repeat(depth) + inner + close.repeat(depth);
+const nested = (depth: number, open: string, close: string, inner = '1') =>
+  open.repeat(depth) + inner + close.repeat(depth);
 const numberText = fc.oneof(
-  fc.constantFrom('1e999', '-1e999', '1e308', '-0', '5e-324', '1e-400', '123456789012345678901234567890', 'NaN', 'Infinity', '"NaN"', '"Infinity"', '"-Infinity"', '"1e999"', 'null', 'true', '"605"'),
+  fc.constantFrom(
+    '1e999',
+    '-1e999',
+    '1e308',
+    '-0',
+    '5e-324',
+    '1e-400',
+    '123456789012345678901234567890',
+    'NaN',
+    'Infinity',
+    '"NaN"',
+    '"Infinity"',
+    '"-Infinity"',
+    '"1e999"',
+    'null',
+    'true',
+    '"605"',
+  ),
   fc.double().map((d) => (Number.isFinite(d) ? String(d) : '0')),
 );
-const unicodeText = fc.oneof(fc.string({ unit: 'grapheme', maxLength: 80 }), fc.string({ unit: 'binary', maxLength: 80 }), fc.constantFrom('\u0000', '\u202e', '\ud800', '\uffff', '𝔮𝔡', 'é'.normalize('NFD')));
+const unicodeText = fc.oneof(
+  fc.string({ unit: 'grapheme', maxLength: 80 }),
+  fc.string({ unit: 'binary', maxLength: 80 }),
+  fc.constantFrom('\u0000', '\u202e', '\ud800', '\uffff', '𝔮𝔡', 'é'.normalize('NFD')),
+);
 
 /** The demo panel with one field's JSON text swapped for a generated literal. */
-const panelWithLiteral = fc.tuple(fc.constantFrom('"centerNm":460', '"widthNm":40', '"emissionPeakNm":525', '"quantumYield":0.5', '"wavelengthNm":405', '"abundance":0.2', '"level":0.1'), numberText).map(([field, literal]) => {
-  const text = JSON.stringify(demoPanelTitled('fuzz'));
-  return text.replace(field, `${field.split(':')[0]}:${literal}`);
-});
+const panelWithLiteral = fc
+  .tuple(
+    fc.constantFrom(
+      '"centerNm":460',
+      '"widthNm":40',
+      '"emissionPeakNm":525',
+      '"quantumYield":0.5',
+      '"wavelengthNm":405',
+      '"abundance":0.2',
+      '"level":0.1',
+    ),
+    numberText,
+  )
+  .map(([field, literal]) => {
+    const text = JSON.stringify(demoPanelTitled('fuzz'));
+    return text.replace(field, `${field.split(':')[0]}:${literal}`);
+  });
 /** The demo panel with a generated string in a text field. */
-const panelWithText = fc.tuple(fc.constantFrom('title', 'label', 'target', 'id', 'material', 'detector'), unicodeText).map(([field, text]) => {
-  const panel = demoPanelTitled('fuzz') as { title: string; probes: Record<string, unknown>[]; channels: Record<string, unknown>[] };
-  if (field === 'title') panel.title = text;
-  else if (field === 'detector') panel.channels[0].detector = text;
-  else panel.probes[1][field] = text;
-  return JSON.stringify(panel);
-});
+const panelWithText = fc
+  .tuple(fc.constantFrom('title', 'label', 'target', 'id', 'material', 'detector'), unicodeText)
+  .map(([field, text]) => {
+    const panel = demoPanelTitled('fuzz') as {
+      title: string;
+      probes: Record<string, unknown>[];
+      channels: Record<string, unknown>[];
+    };
+    if (field === 'title') panel.title = text;
+    else if (field === 'detector') panel.channels[0].detector = text;
+    else panel.probes[1][field] = text;
+    return JSON.stringify(panel);
+  });
 /** Enormous arrays, within or beyond the body limit. */
-const enormous = fc.tuple(fc.constantFrom('probes', 'channels', 'excitation', 'points'), fc.integer({ min: 17, max: 24_000 })).map(([what, n]) => {
-  const panel = demoPanelTitled('fuzz') as Record<string, any>;
-  if (what === 'points') panel.channels[0].filters = [{ type: 'table', points: Array.from({ length: n }, (_, i) => [300 + i * 0.01, 0.5]) }];
-  else panel[what] = Array.from({ length: n }, (_, i) => ({ ...(panel[what][0] as object), id: `x${i}` }));
-  return JSON.stringify(panel);
-});
-const deep = fc.tuple(fc.integer({ min: 50, max: 20_000 }), fc.constantFrom(['[', ']'], ['{"a":', '}'])).map(([depth, [o, c]]) => nested(depth, o, c));
+const enormous = fc
+  .tuple(fc.constantFrom('probes', 'channels', 'excitation', 'points'), fc.integer({ min: 17, max: 24_000 }))
+  .map(([what, n]) => {
+    const panel = demoPanelTitled('fuzz') as Record<string, any>;
+    if (what === 'points')
+      panel.channels[0].filters = [
+        { type: 'table', points: Array.from({ length: n }, (_, i) => [300 + i * 0.01, 0.5]) },
+      ];
+    else panel[what] = Array.from({ length: n }, (_, i) => ({ ...(panel[what][0] as object), id: `x${i}` }));
+    return JSON.stringify(panel);
+  });
+const deep = fc
+  .tuple(fc.integer({ min: 50, max: 20_000 }), fc.constantFrom(['[', ']'], ['{"a":', '}']))
+  .map(([depth, [o, c]]) => nested(depth, o, c));
 const bodyText = fc.oneof(
   { weight: 3, arbitrary: fc.jsonValue({ maxDepth: 4 }).map((v) => JSON.stringify(v)) },
   { weight: 3, arbitrary: panelWithLiteral },
@@ -68,16 +116,42 @@ const bodyText = fc.oneof(
 );
 const contentType = fc.oneof(
   { weight: 6, arbitrary: fc.constant('application/json') },
-  { weight: 1, arbitrary: fc.constantFrom('text/plain', 'application/x-www-form-urlencoded', 'multipart/form-data; boundary=x', 'application/json; charset=utf-16', 'application/problem+json', 'APPLICATION/JSON', '', 'application/jsonx') },
+  {
+    weight: 1,
+    arbitrary: fc.constantFrom(
+      'text/plain',
+      'application/x-www-form-urlencoded',
+      'multipart/form-data; boundary=x',
+      'application/json; charset=utf-16',
+      'application/problem+json',
+      'APPLICATION/JSON',
+      '',
+      'application/jsonx',
+    ),
+  },
 );
-const postCase: fc.Arbitrary<Case> = fc.record({ method: fc.constant('POST'), path: fc.constantFrom(...POST_ROUTES), contentType, body: bodyText });
-const idText = fc.oneof(fc.string({ unit: 'grapheme', maxLength: 40 }), fc.stringMatching(/^[A-Za-z0-9_-]{24}$/), fc.constantFrom('..', '%2e%2e', '%00', 'evaluate', 'design', 'a'.repeat(5000)));
+const postCase: fc.Arbitrary<Case> = fc.record({
+  method: fc.constant('POST'),
+  path: fc.constantFrom(...POST_ROUTES),
+  contentType,
+  body: bodyText,
+});
+const idText = fc.oneof(
+  fc.string({ unit: 'grapheme', maxLength: 40 }),
+  fc.stringMatching(/^[A-Za-z0-9_-]{24}$/),
+  fc.constantFrom('..', '%2e%2e', '%00', 'evaluate', 'design', 'a'.repeat(5000)),
+);
 const getCase: fc.Arbitrary<Case> = fc.oneof(
   fc.record({ method: fc.constant('GET'), path: fc.constantFrom(...GET_ROUTES) }),
   idText.map((id) => ({ method: 'GET', path: `/api/v1/panels/${encodeURIComponent(id)}` })),
   idText.map((id) => ({ method: 'GET', path: `/p/${encodeURIComponent(id)}` })),
-  fc.record({ method: fc.constantFrom('PUT', 'DELETE', 'PATCH', 'HEAD', 'OPTIONS'), path: fc.constantFrom(...POST_ROUTES, ...GET_ROUTES, '/api/v1/panels/AAAAAAAAAAAAAAAAAAAAAAAA') }),
-  fc.string({ maxLength: 60 }).map((s) => ({ method: 'GET', path: `/api/v1/${encodeURIComponent(s)}?q=${encodeURIComponent(s)}` })),
+  fc.record({
+    method: fc.constantFrom('PUT', 'DELETE', 'PATCH', 'HEAD', 'OPTIONS'),
+    path: fc.constantFrom(...POST_ROUTES, ...GET_ROUTES, '/api/v1/panels/AAAAAAAAAAAAAAAAAAAAAAAA'),
+  }),
+  fc
+    .string({ maxLength: 60 })
+    .map((s) => ({ method: 'GET', path: `/api/v1/${encodeURIComponent(s)}?q=${encodeURIComponent(s)}` })),
 );
 const anyCase = fc.oneof({ weight: 4, arbitrary: postCase }, { weight: 1, arbitrary: getCase });
 
@@ -95,7 +169,15 @@ async function problemOf(c: Case): Promise<string | null> {
     const shape = errorShapeProblem(text);
     if (shape) return `${res.status} not in the error shape: ${shape}`;
   }
-  if (isApi && res.status < 300 && c.method !== 'HEAD' && c.method !== 'OPTIONS' && /\bNaN\b|Infinity/.test(text) && !/"[^"]*(NaN|Infinity)[^"]*"/.test(text)) return `non-finite number in ${text.slice(0, 200)}`;
+  if (
+    isApi &&
+    res.status < 300 &&
+    c.method !== 'HEAD' &&
+    c.method !== 'OPTIONS' &&
+    /\bNaN\b|Infinity/.test(text) &&
+    !/"[^"]*(NaN|Infinity)[^"]*"/.test(text)
+  )
+    return `non-finite number in ${text.slice(0, 200)}`;
   return null;
 }
 
@@ -114,7 +196,10 @@ describe('fuzz', () => {
             const c = cases[next++];
             try {
               const problem = await problemOf(c);
-              if (problem) failures.push(`batch ${batch}: ${c.method} ${c.path} [${c.contentType}] ${String(c.body).slice(0, 120)} → ${problem}`);
+              if (problem)
+                failures.push(
+                  `batch ${batch}: ${c.method} ${c.path} [${c.contentType}] ${String(c.body).slice(0, 120)} → ${problem}`,
+                );
             } catch (err) {
               failures.push(`batch ${batch}: ${c.method} ${c.path}: ${String((err as Error).cause ?? err)}`);
             }

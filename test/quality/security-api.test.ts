@@ -18,11 +18,15 @@ const stored = demoPanelTitled('Stored panel that must never change');
 
 /** Writes a key straight into the local KV store with wrangler's own CLI (before the server opens it). */
 function plantKv(persistDir: string, key: string, value: string): void {
-  execFileSync('npx', ['wrangler', 'kv', 'key', 'put', '--binding', 'PANELS', '--local', '--persist-to', persistDir, key, value], {
-    cwd: ROOT,
-    env: { ...process.env, CLOUDFLARE_CF_FETCH_ENABLED: 'false', WRANGLER_SEND_METRICS: 'false', CI: 'true' },
-    stdio: 'pipe',
-  });
+  execFileSync(
+    'npx',
+    ['wrangler', 'kv', 'key', 'put', '--binding', 'PANELS', '--local', '--persist-to', persistDir, key, value],
+    {
+      cwd: ROOT,
+      env: { ...process.env, CLOUDFLARE_CF_FETCH_ENABLED: 'false', WRANGLER_SEND_METRICS: 'false', CI: 'true' },
+      stdio: 'pipe',
+    },
+  );
 }
 
 beforeAll(async () => {
@@ -37,7 +41,10 @@ afterAll(async () => {
   await app?.stop();
 });
 
-async function expectContractError(res: Response, status: number): Promise<{ code: string; path?: (string | number)[] }> {
+async function expectContractError(
+  res: Response,
+  status: number,
+): Promise<{ code: string; path?: (string | number)[] }> {
   const text = await res.text();
   expect(res.status, text.slice(0, 200)).toBe(status);
   expect(errorShapeProblem(text)).toBeNull();
@@ -48,7 +55,9 @@ describe('share ids', () => {
   it('GET /api/v1/panels/<random 144-bit id> answers 404 in the error shape for 200 random ids', async () => {
     for (let i = 0; i < 200; i++) {
       const id = randomBytes(18).toString('base64url');
-      expect((await expectContractError(await fetch(`${app.baseUrl}/api/v1/panels/${id}`), 404)).code).toBe('not_found');
+      expect((await expectContractError(await fetch(`${app.baseUrl}/api/v1/panels/${id}`), 404)).code).toBe(
+        'not_found',
+      );
     }
   });
 
@@ -57,7 +66,14 @@ describe('share ids', () => {
     expect((await fetch(`${app.baseUrl}/api/v1/panels/${PLANTED_GOOD_ID}`)).status).toBe(200);
     await expectContractError(await fetch(`${app.baseUrl}/api/v1/panels/${PLANTED_BAD_ID}`), 404);
     expect((await fetch(`${app.baseUrl}/p/${PLANTED_BAD_ID}`)).status).toBe(404);
-    for (const id of ['a', storedId.slice(1), `${storedId}A`, `${storedId.slice(0, 23)}.`, '%2e%2e%2fx', `${storedId.slice(0, 22)}é`]) {
+    for (const id of [
+      'a',
+      storedId.slice(1),
+      `${storedId}A`,
+      `${storedId.slice(0, 23)}.`,
+      '%2e%2e%2fx',
+      `${storedId.slice(0, 22)}é`,
+    ]) {
       expect((await fetch(`${app.baseUrl}/api/v1/panels/${id}`)).status, id).toBe(404);
     }
   });
@@ -67,7 +83,10 @@ describe('share ids', () => {
     const again = await postJson(app.baseUrl, '/api/v1/panels', stored);
     expect(again.status).toBe(200);
     expect(((await again.json()) as { id: string }).id).toBe(storedId);
-    const changed = await postJson(app.baseUrl, '/api/v1/panels', { ...stored, title: 'Stored panel that must never change!' });
+    const changed = await postJson(app.baseUrl, '/api/v1/panels', {
+      ...stored,
+      title: 'Stored panel that must never change!',
+    });
     expect(changed.status).toBe(201);
     expect(((await changed.json()) as { id: string }).id).not.toBe(storedId);
   });
@@ -75,7 +94,11 @@ describe('share ids', () => {
   it('PUT, DELETE and PATCH on a stored panel and on /api/v1/panels answer 405, and the stored panel is unchanged', async () => {
     for (const method of ['PUT', 'DELETE', 'PATCH']) {
       for (const path of [`/api/v1/panels/${storedId}`, '/api/v1/panels']) {
-        const res = await fetch(app.baseUrl + path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(demoPanelTitled('overwrite')) });
+        const res = await fetch(app.baseUrl + path, {
+          method,
+          headers: { 'content-type': 'application/json' },
+          body: JSON.stringify(demoPanelTitled('overwrite')),
+        });
         expect(res.headers.get('allow'), `${method} ${path}`).toBeTruthy();
         expect((await expectContractError(res, 405)).code).toBe('method_not_allowed');
       }
@@ -86,31 +109,64 @@ describe('share ids', () => {
 
 describe('limits', () => {
   const big = 'x'.repeat(300 * 1024);
-  it.each(['/api/v1/panels/evaluate', '/api/v1/panels', '/api/v1/dots/resolve', '/api/v1/panels/design'])('POST %s with a 300 KiB body answers 413 in the error shape', async (route) => {
-    const res = await fetch(app.baseUrl + route, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ title: big }) });
-    expect((await expectContractError(res, 413)).code).toBe('payload_too_large');
-  });
+  it.each(['/api/v1/panels/evaluate', '/api/v1/panels', '/api/v1/dots/resolve', '/api/v1/panels/design'])(
+    'POST %s with a 300 KiB body answers 413 in the error shape',
+    async (route) => {
+      const res = await fetch(app.baseUrl + route, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ title: big }),
+      });
+      expect((await expectContractError(res, 413)).code).toBe('payload_too_large');
+    },
+  );
 
   const cases: [string, (p: Record<string, any>) => void, string][] = [
-    ['17 probes', (p) => (p.probes = Array.from({ length: 17 }, (_, i) => ({ ...p.probes[1], id: `q${i}` }))), 'probes'],
-    ['65 channels', (p) => (p.channels = Array.from({ length: 65 }, (_, i) => ({ ...p.channels[1], id: `k${i}` }))), 'channels'],
-    ['17 excitation lines', (p) => (p.excitation = Array.from({ length: 17 }, (_, i) => ({ wavelengthNm: 300 + i }))), 'excitation'],
-    ['a 1,001-point filter table', (p) => (p.channels[0].filters = [{ type: 'table', points: Array.from({ length: 1001 }, (_, i) => [400 + i * 0.1, 0.5]) }]), 'points'],
+    [
+      '17 probes',
+      (p) => (p.probes = Array.from({ length: 17 }, (_, i) => ({ ...p.probes[1], id: `q${i}` }))),
+      'probes',
+    ],
+    [
+      '65 channels',
+      (p) => (p.channels = Array.from({ length: 65 }, (_, i) => ({ ...p.channels[1], id: `k${i}` }))),
+      'channels',
+    ],
+    [
+      '17 excitation lines',
+      (p) => (p.excitation = Array.from({ length: 17 }, (_, i) => ({ wavelengthNm: 300 + i }))),
+      'excitation',
+    ],
+    [
+      'a 1,001-point filter table',
+      (p) =>
+        (p.channels[0].filters = [
+          { type: 'table', points: Array.from({ length: 1001 }, (_, i) => [400 + i * 0.1, 0.5]) },
+        ]),
+      'points',
+    ],
     ['a 201-character title', (p) => (p.title = 't'.repeat(201)), 'title'],
     ['a 201-character label', (p) => (p.probes[0].label = 'l'.repeat(201)), 'label'],
     ['a 65-character id', (p) => (p.probes[0].id = 'i'.repeat(65)), 'id'],
   ];
-  it.each(cases)('POST /api/v1/panels and /evaluate refuse %s with 400 naming the field', async (_what, change, field) => {
-    for (const route of ['/api/v1/panels', '/api/v1/panels/evaluate']) {
-      const panel = demoPanelTitled('limits') as Record<string, any>;
-      change(panel);
-      const error = await expectContractError(await postJson(app.baseUrl, route, panel), 400);
-      expect(error.path, route).toContain(field);
-    }
-  });
+  it.each(cases)(
+    'POST /api/v1/panels and /evaluate refuse %s with 400 naming the field',
+    async (_what, change, field) => {
+      for (const route of ['/api/v1/panels', '/api/v1/panels/evaluate']) {
+        const panel = demoPanelTitled('limits') as Record<string, any>;
+        change(panel);
+        const error = await expectContractError(await postJson(app.baseUrl, route, panel), 400);
+        expect(error.path, route).toContain(field);
+      }
+    },
+  );
 
   it('POST /api/v1/dots/resolve refuses a grid of more than 4,001 points with 400 naming the grid', async () => {
-    const res = await postJson(app.baseUrl, '/api/v1/dots/resolve', { material: 'cdse', emissionPeakNm: 605, grid: { startNm: 300, endNm: 1000, stepNm: 0.1 } });
+    const res = await postJson(app.baseUrl, '/api/v1/dots/resolve', {
+      material: 'cdse',
+      emissionPeakNm: 605,
+      grid: { startNm: 300, endNm: 1000, stepNm: 0.1 },
+    });
     expect((await expectContractError(res, 400)).path).toContain('grid');
   });
 });
@@ -120,17 +176,32 @@ describe('security headers', () => {
     const html = readFileSync(join(app.root, 'dist', 'index.html'), 'utf8');
     const script = /src="(\/assets\/[^"]+\.js)"/.exec(html)![1];
     const requests: [string, RequestInit?][] = [
-      ['/'], [script], ['/page.css'], ['/no/such/page'], [`/p/${storedId}`], ['/p/AAAAAAAAAAAAAAAAAAAAAAAA'],
-      ['/api/v1/health'], ['/api/v1/materials'], ['/api/v1/detectors'], ['/api/v1/openapi.json'], [`/api/v1/panels/${storedId}`],
-      ['/api/v1/nothing'], ['/api/v1/panels/evaluate', { method: 'GET' }], ['/api/v1/panels/evaluate', { method: 'OPTIONS' }],
-      ['/api/v1/panels/evaluate', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(stored) }],
+      ['/'],
+      [script],
+      ['/page.css'],
+      ['/no/such/page'],
+      [`/p/${storedId}`],
+      ['/p/AAAAAAAAAAAAAAAAAAAAAAAA'],
+      ['/api/v1/health'],
+      ['/api/v1/materials'],
+      ['/api/v1/detectors'],
+      ['/api/v1/openapi.json'],
+      [`/api/v1/panels/${storedId}`],
+      ['/api/v1/nothing'],
+      ['/api/v1/panels/evaluate', { method: 'GET' }],
+      ['/api/v1/panels/evaluate', { method: 'OPTIONS' }],
+      [
+        '/api/v1/panels/evaluate',
+        { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(stored) },
+      ],
       ['/api/v1/panels', { method: 'POST', headers: { 'content-type': 'application/json' }, body: '{' }],
       ['/api/v1/dots/resolve', { method: 'POST', headers: { 'content-type': 'text/plain' }, body: '{}' }],
     ];
     for (const [path, init] of requests) {
       const res = await fetch(app.baseUrl + path, init);
       await res.arrayBuffer();
-      for (const [name, value] of Object.entries(SECURITY_HEADERS)) expect(res.headers.get(name), `${init?.method ?? 'GET'} ${path}: ${name}`).toBe(value);
+      for (const [name, value] of Object.entries(SECURITY_HEADERS))
+        expect(res.headers.get(name), `${init?.method ?? 'GET'} ${path}: ${name}`).toBe(value);
     }
   });
 
@@ -149,7 +220,9 @@ describe('security headers', () => {
 });
 
 describe('budget of new share links per client', () => {
-  const limit = Number(/\[\[ratelimits\]\][^[]*?limit\s*=\s*(\d+)/.exec(readFileSync(join(ROOT, 'wrangler.toml'), 'utf8'))![1]);
+  const limit = Number(
+    /\[\[ratelimits\]\][^[]*?limit\s*=\s*(\d+)/.exec(readFileSync(join(ROOT, 'wrangler.toml'), 'utf8'))![1],
+  );
   const client = { 'cf-connecting-ip': '203.0.113.77' }; // TEST-NET-3 (RFC 5737): no real client
 
   it('POST /api/v1/panels from one address gets 429 in the error shape after its budget, while reads, re-shares, other addresses and loopback still work', async () => {
@@ -173,7 +246,13 @@ describe('budget of new share links per client', () => {
     expect((await postJson(app.baseUrl, '/api/v1/panels', stored, client)).status).toBe(200);
     expect((await postJson(app.baseUrl, '/api/v1/panels/evaluate', stored, client)).status).toBe(200);
     // Another address, and loopback (local runs), still create links.
-    expect((await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled('Budget other client'), { 'cf-connecting-ip': '203.0.113.78' })).status).toBe(201);
+    expect(
+      (
+        await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled('Budget other client'), {
+          'cf-connecting-ip': '203.0.113.78',
+        })
+      ).status,
+    ).toBe(201);
     expect((await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled('Budget loopback'))).status).toBe(201);
   });
 
@@ -183,7 +262,9 @@ describe('budget of new share links per client', () => {
     const statuses: number[] = [];
     for (let i = 0; i < limit + 1; i++) {
       const ip = `2001:db8:1:2:${(i + 1).toString(16)}::${i}`; // 2001:db8::/32 is the documentation prefix (RFC 3849)
-      const res = await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled(`Budget v6 ${i}`), { 'cf-connecting-ip': ip });
+      const res = await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled(`Budget v6 ${i}`), {
+        'cf-connecting-ip': ip,
+      });
       statuses.push(res.status);
       await res.text();
     }

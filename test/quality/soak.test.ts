@@ -41,7 +41,11 @@ async function connectionLoop(conn: number, until: number, t: Tally): Promise<vo
       let res: Response;
       if (kind < 5) {
         // Peaks 590–620 nm in 0.5 nm steps: more distinct dots than the resolved-dot cache holds.
-        res = await postJson(app.baseUrl, '/api/v1/panels/evaluate', demoPanelWithPeak(590 + ((conn * 7 + i) % 61) * 0.5));
+        res = await postJson(
+          app.baseUrl,
+          '/api/v1/panels/evaluate',
+          demoPanelWithPeak(590 + ((conn * 7 + i) % 61) * 0.5),
+        );
       } else if (kind < 8 || t.stored.size === 0) {
         const panel = demoPanelTitled(`Soak run, connection ${conn}, request ${i}`);
         res = await postJson(app.baseUrl, '/api/v1/panels', panel);
@@ -96,7 +100,14 @@ function deepEqual(a: unknown, b: unknown): boolean {
 describe('soak', () => {
   it(`mixed evaluate and share traffic for ${SECONDS} s at ${CONNECTIONS} connections gives no 5xx, loses no share and grows in memory no faster per request than plain health requests`, async () => {
     const baseline = await healthBaseline();
-    const t: Tally = { byStatus: new Map(), serverErrors: [], networkErrors: [], stored: new Map(), fetchMismatches: [], rssKiB: [] };
+    const t: Tally = {
+      byStatus: new Map(),
+      serverErrors: [],
+      networkErrors: [],
+      stored: new Map(),
+      fetchMismatches: [],
+      rssKiB: [],
+    };
     const started = Date.now();
     const until = started + SECONDS * 1000;
     const sampler = setInterval(() => {
@@ -123,7 +134,10 @@ describe('soak', () => {
       `soak: ${total} requests in ${elapsedS.toFixed(1)} s (${(total / elapsedS).toFixed(0)} req/s), statuses ${JSON.stringify(Object.fromEntries(t.byStatus))}, ` +
         `${t.stored.size} shares stored, workerd RSS median first third ${firstMiB.toFixed(0)} MiB, last third ${lastMiB.toFixed(0)} MiB, max ${(Math.max(...t.rssKiB) / 1024).toFixed(0)} MiB; ` +
         `growth ${kibPerRequest.toFixed(2)} KiB/request against ${baseline.kibPerRequest.toFixed(2)} KiB/request for ${baseline.requests} health requests; ` +
-        `every 5 s: ${t.rssKiB.filter((_, i) => i % 5 === 0).map((k) => (k / 1024).toFixed(0)).join(' ')}`,
+        `every 5 s: ${t.rssKiB
+          .filter((_, i) => i % 5 === 0)
+          .map((k) => (k / 1024).toFixed(0))
+          .join(' ')}`,
     );
 
     if (t.serverErrors.length > 0) console.log(`server output:\n${app.log()}`);
@@ -134,6 +148,8 @@ describe('soak', () => {
     expect(t.fetchMismatches).toEqual([]);
     expect(lost).toEqual([]);
     expect(t.rssKiB.length).toBeGreaterThanOrEqual(6);
-    expect(kibPerRequest).toBeLessThanOrEqual(Math.max(0, baseline.kibPerRequest) * RSS_GROWTH_RATIO + RSS_GROWTH_SLACK_KIB);
+    expect(kibPerRequest).toBeLessThanOrEqual(
+      Math.max(0, baseline.kibPerRequest) * RSS_GROWTH_RATIO + RSS_GROWTH_SLACK_KIB,
+    );
   });
 });

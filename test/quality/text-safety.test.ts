@@ -11,7 +11,15 @@ import { orderingSheetCsv } from '../../web/csv-export';
 import { startApp, type StartedApp } from './helpers/app';
 import { demoPanelTitled, postJson } from './helpers/contract';
 
-const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
 // Each payload sets a global and opens a dialog if it ever runs.
 const PAYLOADS = [
   '<img src=x onerror="window.__qdpRan=1;alert(1)">',
@@ -27,7 +35,12 @@ let profile: string;
 beforeAll(async () => {
   app = await startApp();
   profile = mkdtempSync(join(tmpdir(), 'qdpanel-quality-chrome-'));
-  context = await chromium.launchPersistentContext(profile, { executablePath: '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS, viewport: { width: 1280, height: 900 } });
+  context = await chromium.launchPersistentContext(profile, {
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: CHROMIUM_ARGS,
+    viewport: { width: 1280, height: 900 },
+  });
 });
 afterAll(async () => {
   await context?.close();
@@ -36,38 +49,44 @@ afterAll(async () => {
 });
 
 describe('shared text in the page', () => {
-  it.each(PAYLOADS.map((p, i) => [i, p] as const))('opening /p/<id> with payload %i in title, labels and targets runs nothing and shows the text literally', async (_i, payload) => {
-    const panel = demoPanelTitled(payload) as { probes: Record<string, unknown>[]; channels: Record<string, unknown>[] };
-    panel.probes[1].label = payload;
-    panel.probes[2].target = payload;
-    panel.channels[1].label = payload;
-    const res = await postJson(app.baseUrl, '/api/v1/panels', panel);
-    expect(res.status).toBe(201);
-    const { url } = (await res.json()) as { url: string };
+  it.each(PAYLOADS.map((p, i) => [i, p] as const))(
+    'opening /p/<id> with payload %i in title, labels and targets runs nothing and shows the text literally',
+    async (_i, payload) => {
+      const panel = demoPanelTitled(payload) as {
+        probes: Record<string, unknown>[];
+        channels: Record<string, unknown>[];
+      };
+      panel.probes[1].label = payload;
+      panel.probes[2].target = payload;
+      panel.channels[1].label = payload;
+      const res = await postJson(app.baseUrl, '/api/v1/panels', panel);
+      expect(res.status).toBe(201);
+      const { url } = (await res.json()) as { url: string };
 
-    const page = await context.newPage();
-    const dialogs: string[] = [];
-    const errors: string[] = [];
-    page.on('dialog', async (d) => {
-      dialogs.push(d.message());
-      await d.dismiss();
-    });
-    page.on('pageerror', (e) => errors.push(e.message));
-    await page.goto(app.baseUrl + url);
-    await page.locator('qdp-crosstalk-table p.worst').waitFor();
-    await page.waitForTimeout(500);
-    expect(dialogs).toEqual([]);
-    expect(await page.evaluate('window.__qdpRan')).toBeUndefined();
-    expect(errors).toEqual([]);
-    // The payload is text: the title field holds it, and the probe's card header and the page's text show it.
-    expect(await page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toBe(payload);
-    expect(await page.locator('qdp-probe-card').nth(1).locator('header strong').innerText()).toBe(payload);
-    expect(await page.locator('qdp-crosstalk-table table').first().innerText()).toContain(payload);
-    // No element the payloads would create exists anywhere, shadow roots included.
-    for (const tag of ['img', 'iframe', 'script:not([src])']) expect(await page.locator(tag).count(), tag).toBe(0);
-    expect(await page.locator('svg[onload]').count()).toBe(0);
-    await page.close();
-  });
+      const page = await context.newPage();
+      const dialogs: string[] = [];
+      const errors: string[] = [];
+      page.on('dialog', async (d) => {
+        dialogs.push(d.message());
+        await d.dismiss();
+      });
+      page.on('pageerror', (e) => errors.push(e.message));
+      await page.goto(app.baseUrl + url);
+      await page.locator('qdp-crosstalk-table p.worst').waitFor();
+      await page.waitForTimeout(500);
+      expect(dialogs).toEqual([]);
+      expect(await page.evaluate('window.__qdpRan')).toBeUndefined();
+      expect(errors).toEqual([]);
+      // The payload is text: the title field holds it, and the probe's card header and the page's text show it.
+      expect(await page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toBe(payload);
+      expect(await page.locator('qdp-probe-card').nth(1).locator('header strong').innerText()).toBe(payload);
+      expect(await page.locator('qdp-crosstalk-table table').first().innerText()).toContain(payload);
+      // No element the payloads would create exists anywhere, shadow roots included.
+      for (const tag of ['img', 'iframe', 'script:not([src])']) expect(await page.locator(tag).count(), tag).toBe(0);
+      expect(await page.locator('svg[onload]').count()).toBe(0);
+      await page.close();
+    },
+  );
 });
 
 describe('spectrum CSV import bounds', () => {
@@ -93,7 +112,10 @@ describe('spectrum CSV import bounds', () => {
     expectTableError(`400,1\n410,${'9'.repeat(CSV_LIMITS.maxLineChars)}\n`, /line 2/);
   });
   it('parseSpectrumCsv reads a large table within the limits and resamples it to at most 1,000 points', () => {
-    const rows = Array.from({ length: CSV_LIMITS.maxLines - 1 }, (_, i) => `${(400 + i * 0.01).toFixed(2)},${Math.exp(-(((i - 10_000) / 3000) ** 2)).toFixed(5)}`);
+    const rows = Array.from(
+      { length: CSV_LIMITS.maxLines - 1 },
+      (_, i) => `${(400 + i * 0.01).toFixed(2)},${Math.exp(-(((i - 10_000) / 3000) ** 2)).toFixed(5)}`,
+    );
     const { points } = parseSpectrumCsv(rows.join('\n'), { kind: 'emission' });
     expect(points.length).toBeLessThanOrEqual(1000);
     expect(points.length).toBeGreaterThan(100);
@@ -109,7 +131,10 @@ describe('ordering sheet export', () => {
     panel.channels[0].label = formulas[3];
     const csv = orderingSheetCsv(panel, []);
     // Every field of every row, with RFC 4180 quotes removed: none may start with a formula character.
-    const fields = csv.split('\r\n').flatMap((row) => row.match(/("([^"]|"")*"|[^,]*)(,|$)/g) ?? []).map((f) => f.replace(/,$/, '').replace(/^"|"$/g, '').replace(/""/g, '"'));
+    const fields = csv
+      .split('\r\n')
+      .flatMap((row) => row.match(/("([^"]|"")*"|[^,]*)(,|$)/g) ?? [])
+      .map((f) => f.replace(/,$/, '').replace(/^"|"$/g, '').replace(/""/g, '"'));
     for (const formula of formulas) expect(fields).toContain(`'${formula}`);
     expect(fields.filter((f) => /^[=+@]/.test(f) || /^-[^\d]/.test(f))).toEqual([]);
   });

@@ -17,7 +17,10 @@ const onePanel = (background: PanelSpec['background'], lines = [405]): PanelSpec
   excitation: lines.map((wavelengthNm) => ({ wavelengthNm })),
   probes: [{ id: 'q605', material: 'cdse', emissionPeakNm: 605, quantumYield: 0.5 }],
   channels: [
-    { id: 'c605', filters: [{ type: 'bandpass', centerNm: 600, widthNm: 20, edgeWidthNm: 0, peakTransmission: 1, blockingOD: 12 }] },
+    {
+      id: 'c605',
+      filters: [{ type: 'bandpass', centerNm: 600, widthNm: 20, edgeWidthNm: 0, peakTransmission: 1, blockingOD: 12 }],
+    },
     { id: 'c450', filters: [{ type: 'bandpass', centerNm: 450, widthNm: 40 }] },
   ],
   ...(background ? { background } : {}),
@@ -30,9 +33,13 @@ describe('defaultAutofluorescence', () => {
     for (const excitationNm of [340, 405, 488, 561]) {
       let expected = 0;
       for (const band of AUTOFLUORESCENCE_BANDS) {
-        const weight = band.excitation.reduce((s, [nm, fwhm, w]) => s + w * Math.exp(-0.5 * ((excitationNm - nm) / (fwhm / 2.3548200450309493)) ** 2), 0);
+        const weight = band.excitation.reduce(
+          (s, [nm, fwhm, w]) => s + w * Math.exp(-0.5 * ((excitationNm - nm) / (fwhm / 2.3548200450309493)) ** 2),
+          0,
+        );
         const sigma = band.emissionFwhmNm / 2.3548200450309493;
-        expected += band.brightness * weight * 0.5 * erfc((excitationNm + 0.5 - band.emissionNm) / (sigma * Math.SQRT2));
+        expected +=
+          band.brightness * weight * 0.5 * erfc((excitationNm + 0.5 - band.emissionNm) / (sigma * Math.SQRT2));
       }
       // The grid sum starts half a step above the line (first point after it): compare at the rectangle rule's accuracy.
       expect(area(defaultAutofluorescence(excitationNm, DEFAULT_GRID)) / expected).toBeCloseTo(1, 4);
@@ -56,14 +63,25 @@ describe('evaluatePanel with a background', () => {
   it('evaluatePanel reports signal-to-background = total probe signal / background collected, per channel', () => {
     const ev = evaluatePanel(onePanel({ level: 0.2 }), { sensitivity: false });
     expect(ev.backgroundCollected).toHaveLength(2);
-    ev.signalToBackground!.forEach((sb, c) => expect(sb).toBeCloseTo(ev.collected[c][0] / ev.backgroundCollected![c], 12));
+    ev.signalToBackground!.forEach((sb, c) =>
+      expect(sb).toBeCloseTo(ev.collected[c][0] / ev.backgroundCollected![c], 12),
+    );
     const double = evaluatePanel(onePanel({ level: 0.4 }), { sensitivity: false });
     expect(double.backgroundCollected![0] / ev.backgroundCollected![0]).toBeCloseTo(2, 12);
     expect(evaluatePanel(onePanel(undefined), { sensitivity: false }).signalToBackground).toBeUndefined();
   });
 
   it('evaluatePanel with a measured flat background collects level × 1e5 × (passband / spectrum width)', () => {
-    const ev = evaluatePanel(onePanel({ level: 1, points: [[500, 3], [700, 3]] }), { sensitivity: false });
+    const ev = evaluatePanel(
+      onePanel({
+        level: 1,
+        points: [
+          [500, 3],
+          [700, 3],
+        ],
+      }),
+      { sensitivity: false },
+    );
     // Flat over 500–700 nm on a 1 nm grid: 201 points of 1/201 each; the ideal 590–610 band passes 19 full points
     // and two half points.
     expect(ev.backgroundCollected![0]).toBeCloseTo((BACKGROUND_REFERENCE_BRIGHTNESS * 20) / 201, 6);

@@ -1,9 +1,22 @@
 import { describe, expect, it } from 'vitest';
 import * as math from 'mathjs';
 import {
-  AVOGADRO_PER_MOL, BOHR_RADIUS_NM, CONFINEMENT_EV_NM2, COULOMB_EV_NM, ELECTRON_MASS_KG, ELEMENTARY_CHARGE_C,
-  GAUSSIAN_FWHM_PER_SIGMA, HBAR_J_S, HC_EV_NM, PLANCK_J_S, RYDBERG_EV, SPEED_OF_LIGHT_M_PER_S,
-  VACUUM_PERMITTIVITY_F_PER_M, energyWidthToNm, evToNm, nmToEv,
+  AVOGADRO_PER_MOL,
+  BOHR_RADIUS_NM,
+  CONFINEMENT_EV_NM2,
+  COULOMB_EV_NM,
+  ELECTRON_MASS_KG,
+  ELEMENTARY_CHARGE_C,
+  GAUSSIAN_FWHM_PER_SIGMA,
+  HBAR_J_S,
+  HC_EV_NM,
+  PLANCK_J_S,
+  RYDBERG_EV,
+  SPEED_OF_LIGHT_M_PER_S,
+  VACUUM_PERMITTIVITY_F_PER_M,
+  energyWidthToNm,
+  evToNm,
+  nmToEv,
 } from '../../spectra/index';
 
 // Reference: CODATA 2018 as shipped by mathjs 15 (read in SI units; its eV unit uses an older e, so it is avoided).
@@ -34,7 +47,7 @@ describe('constants (CODATA 2018 via mathjs)', () => {
   });
 
   it('HC_EV_NM equals h·c/e·1e9 from CODATA 2018 and the handy value 1239.841984 eV nm (science notes, C)', () => {
-    expect(Math.abs(HC_EV_NM / ((h * c) / e * 1e9) - 1)).toBeLessThan(1e-13);
+    expect(Math.abs(HC_EV_NM / (((h * c) / e) * 1e9) - 1)).toBeLessThan(1e-13);
     expect(HC_EV_NM).toBeCloseTo(1239.841984, 5);
   });
 

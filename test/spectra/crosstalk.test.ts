@@ -14,11 +14,24 @@ import type { PanelSpec, ProbeSpec } from '../../spectra/index';
 function gaussianProbe(id: string, peakNm: number, sigmaNm: number): ProbeSpec {
   const points: [number, number][] = [];
   for (let nm = 301; nm <= 999; nm += 1) points.push([nm, Math.exp(-0.5 * ((nm - peakNm) / sigmaNm) ** 2) + 1e-300]);
-  return { id, material: 'custom', quantumYield: 0.5, measuredEmission: { points }, extinction: { points: [[300, 1e5], [1000, 1e5]] } };
+  return {
+    id,
+    material: 'custom',
+    quantumYield: 0.5,
+    measuredEmission: { points },
+    extinction: {
+      points: [
+        [300, 1e5],
+        [1000, 1e5],
+      ],
+    },
+  };
 }
 
 const gaussian = (peakNm: number, sigmaNm: number) =>
-  Float64Array.from({ length: DEFAULT_GRID.count }, (_, i) => Math.exp(-0.5 * ((DEFAULT_GRID.startNm + i - peakNm) / sigmaNm) ** 2));
+  Float64Array.from({ length: DEFAULT_GRID.count }, (_, i) =>
+    Math.exp(-0.5 * ((DEFAULT_GRID.startNm + i - peakNm) / sigmaNm) ** 2),
+  );
 
 describe('crosstalkFigures', () => {
   // Worked by hand: column sums and ratios of a 3 × 3 matrix.
@@ -41,7 +54,16 @@ describe('crosstalkFigures', () => {
   });
 
   it('crosstalkFigures reports a channel with no probe signal as null purity with a warning', () => {
-    const f = crosstalkFigures([[1, 0], [0, 1], [0, 0]], [undefined, undefined], ['a', 'b'], ['x', 'y', 'z']);
+    const f = crosstalkFigures(
+      [
+        [1, 0],
+        [0, 1],
+        [0, 0],
+      ],
+      [undefined, undefined],
+      ['a', 'b'],
+      ['x', 'y', 'z'],
+    );
     expect(f.purity[2]).toBeNull();
     expect(f.warnings[0]).toMatch(/channel z collects no probe signal/);
   });
@@ -53,33 +75,54 @@ describe('collectedMatrix', () => {
       filterTransmission({ type: 'longpass', edgeNm: 700, blockingOD: 12 }, DEFAULT_GRID),
       filterTransmission({ type: 'shortpass', edgeNm: 450, blockingOD: 12 }, DEFAULT_GRID),
       filterTransmission({ type: 'bandpass', centerNm: 605, widthNm: 20 }, DEFAULT_GRID),
-      filterTransmission({ type: 'table', points: [[400, 0], [600, 0.9], [800, 0]] }, DEFAULT_GRID),
+      filterTransmission(
+        {
+          type: 'table',
+          points: [
+            [400, 0],
+            [600, 0.9],
+            [800, 0],
+          ],
+        },
+        DEFAULT_GRID,
+      ),
     ];
     const emissions = [gaussian(480, 10), gaussian(600, 12), gaussian(760, 20)];
     const probes = emissions.map((emission) => [{ emission, weightByChannel: Float64Array.from([1, 2, 3, 4]) }]);
     const collected = collectedMatrix(probes, transmissions, 1);
-    transmissions.forEach((t, c) => emissions.forEach((em, p) => {
-      let naive = 0;
-      for (let i = 0; i < t.length; i++) naive += em[i] * t[i];
-      naive *= c + 1;
-      expect(Math.abs(collected[c][p] - naive) / naive).toBeLessThan(1e-12);
-    }));
+    transmissions.forEach((t, c) =>
+      emissions.forEach((em, p) => {
+        let naive = 0;
+        for (let i = 0; i < t.length; i++) naive += em[i] * t[i];
+        naive *= c + 1;
+        expect(Math.abs(collected[c][p] - naive) / naive).toBeLessThan(1e-12);
+      }),
+    );
   });
 
   it('collectedMatrix handles constant, two-level and single-step transmissions exactly like a naive sum', () => {
     const n = DEFAULT_GRID.count;
     const step = Float64Array.from({ length: n }, (_, i) => (i < 300 ? 0.25 : 1));
     const spike = Float64Array.from({ length: n }, (_, i) => (i === 350 ? 1 : 1e-6));
-    const transmissions = [new Float64Array(n).fill(1), step, spike, Float64Array.from({ length: n }, (_, i) => (i === 0 ? 0.5 : 0))];
+    const transmissions = [
+      new Float64Array(n).fill(1),
+      step,
+      spike,
+      Float64Array.from({ length: n }, (_, i) => (i === 0 ? 0.5 : 0)),
+    ];
     const emission = gaussian(560, 30);
-    const collected = collectedMatrix([[{ emission, weightByChannel: Float64Array.from([1, 1, 1, 1]) }]], transmissions, 1);
+    const collected = collectedMatrix(
+      [[{ emission, weightByChannel: Float64Array.from([1, 1, 1, 1]) }]],
+      transmissions,
+      1,
+    );
     transmissions.forEach((t, c) => {
       const naive = t.reduce((sum, v, i) => sum + v * emission[i], 0);
       expect(Math.abs(collected[c][0] - naive) / naive).toBeLessThan(1e-12);
     });
   });
 
-  it('linesOn names the channel field when a line is not one of the panel\'s', () => {
+  it("linesOn names the channel field when a line is not one of the panel's", () => {
     const lines = [{ wavelengthNm: 405 }, { wavelengthNm: 488 }];
     expect(linesOn({ id: 'c', filters: [], excitationNm: [488, 405] }, lines, ['channels', 1])).toEqual([0, 1]);
     try {
@@ -104,15 +147,26 @@ describe('lot-shift sensitivity', () => {
   // Independent route: build the shifted panels explicitly (the measured tables moved by ±5 nm) and evaluate them.
   it('evaluatePanel lotShiftSensitivity equals the worst of the explicitly shifted panels', () => {
     const probes = [gaussianProbe('a', 560, 12), gaussianProbe('b', 600, 12), gaussianProbe('c', 640, 14)];
-    const channels = [560, 600, 640].map((nm, i) => ({ id: `c${i}`, filters: [{ type: 'bandpass' as const, centerNm: nm, widthNm: 20 }] }));
+    const channels = [560, 600, 640].map((nm, i) => ({
+      id: `c${i}`,
+      filters: [{ type: 'bandpass' as const, centerNm: nm, widthNm: 20 }],
+    }));
     const panel: PanelSpec = { version: 1, excitation: [{ wavelengthNm: 405 }], probes, channels };
     const ev = evaluatePanel(panel);
     let worst = -1;
     let worstCase = '';
     probes.forEach((probe, p) => {
       for (const shift of [5, -5]) {
-        const moved = { ...probe, measuredEmission: { points: probe.measuredEmission!.points.map(([nm, v]) => [nm + shift, v] as [number, number]) } };
-        const shifted = evaluatePanel({ ...panel, probes: probes.map((q, k) => (k === p ? moved : q)) }, { sensitivity: false });
+        const moved = {
+          ...probe,
+          measuredEmission: {
+            points: probe.measuredEmission!.points.map(([nm, v]) => [nm + shift, v] as [number, number]),
+          },
+        };
+        const shifted = evaluatePanel(
+          { ...panel, probes: probes.map((q, k) => (k === p ? moved : q)) },
+          { sensitivity: false },
+        );
         if (shifted.worst.interference! > worst) {
           worst = shifted.worst.interference!;
           worstCase = `${probe.id} ${shift}`;

@@ -2,16 +2,27 @@ import { describe, expect, it } from 'vitest';
 import { errorOf } from './helpers/errors';
 import { DEFAULT_GRID, SpectraError, channelTransmission, parseSpectrumCsv } from '../../spectra/index';
 
-
 // A made-up measured bandpass around 600 nm, in 0–1 and in percent.
-const rows = [[550, 0.0001], [580, 0.002], [590, 0.45], [600, 0.92], [610, 0.5], [620, 0.003], [650, 0.0001]];
+const rows = [
+  [550, 0.0001],
+  [580, 0.002],
+  [590, 0.45],
+  [600, 0.92],
+  [610, 0.5],
+  [620, 0.003],
+  [650, 0.0001],
+];
 
 describe('parseSpectrumCsv', () => {
   it('parseSpectrumCsv gives the same channel from a filter table in percent (header or values) and in 0–1', () => {
     const fraction = rows.map(([nm, t]) => `${nm},${t}`).join('\n');
     const percentByHeader = 'wavelength (nm);T (%)\n' + rows.map(([nm, t]) => `${nm};${t * 100}`).join('\n');
     const percentByValue = rows.map(([nm, t]) => `${nm}\t${t * 100}`).join('\r\n');
-    const channel = (text: string) => channelTransmission({ id: 'c', filters: [{ type: 'table', points: parseSpectrumCsv(text).points }] }, DEFAULT_GRID);
+    const channel = (text: string) =>
+      channelTransmission(
+        { id: 'c', filters: [{ type: 'table', points: parseSpectrumCsv(text).points }] },
+        DEFAULT_GRID,
+      );
     const a = channel(fraction);
     expect(parseSpectrumCsv(fraction).warnings).toEqual([]);
     expect(parseSpectrumCsv(percentByHeader).warnings[0]).toMatch(/percent/);
@@ -23,18 +34,29 @@ describe('parseSpectrumCsv', () => {
 
   it('parseSpectrumCsv detects percent from the header alone even when every value is at most 1.5', () => {
     const { points } = parseSpectrumCsv('nm, %T\n500, 0.5\n600, 1.2');
-    expect(points).toEqual([[500, 0.005], [600, 0.012]]);
+    expect(points).toEqual([
+      [500, 0.005],
+      [600, 0.012],
+    ]);
   });
 
   it('parseSpectrumCsv skips comments and blank lines and clips small transmission excursions with a warning', () => {
     const out = parseSpectrumCsv('# measured 2026\n\n500 -0.001\n600 1.01\n700 0.5\n');
-    expect(out.points).toEqual([[500, 0], [600, 1], [700, 0.5]]);
+    expect(out.points).toEqual([
+      [500, 0],
+      [600, 1],
+      [700, 0.5],
+    ]);
     expect(out.warnings.join(' ')).toMatch(/2 transmission values outside 0–1 were clipped/);
   });
 
   it('parseSpectrumCsv(kind emission) sets negative baseline values to 0 and never reads percent', () => {
     const out = parseSpectrumCsv('500,-3\n600,250\n700,10', { kind: 'emission' });
-    expect(out.points).toEqual([[500, 0], [600, 250], [700, 10]]);
+    expect(out.points).toEqual([
+      [500, 0],
+      [600, 250],
+      [700, 10],
+    ]);
     expect(out.warnings).toHaveLength(1);
   });
 

@@ -1,11 +1,20 @@
 import { describe, expect, it } from 'vitest';
-import { DEFAULT_GRID, SpectraError, channelTransmission, detectorQe, filterTransmission, listDetectors } from '../../spectra/index';
+import {
+  DEFAULT_GRID,
+  SpectraError,
+  channelTransmission,
+  detectorQe,
+  filterTransmission,
+  listDetectors,
+} from '../../spectra/index';
 
 describe('detectors', () => {
   it('listDetectors() names generic classes only, each with notes saying the curve is approximate', () => {
     const list = listDetectors();
     const ids = list.map((d) => d.id);
-    expect(ids).toEqual(expect.arrayContaining(['ideal', 'pmt-bialkali', 'pmt-gaasp', 'hybrid-gaasp', 'scmos', 'emccd', 'si-apd']));
+    expect(ids).toEqual(
+      expect.arrayContaining(['ideal', 'pmt-bialkali', 'pmt-gaasp', 'hybrid-gaasp', 'scmos', 'emccd', 'si-apd']),
+    );
     expect(new Set(ids).size).toBe(ids.length);
     for (const d of list.filter((d) => d.id !== 'ideal')) expect(d.notes).toMatch(/approximate/i);
   });

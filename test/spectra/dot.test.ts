@@ -1,32 +1,50 @@
 import { describe, expect, it } from 'vitest';
 import {
-  DEFAULT_GRID, SpectraError, emissionPeakForDiameterNm, emissionRangeForMaterialNm, listMaterials, makeGrid, resolveDot, type DotInput, type ResolvedDot,
+  DEFAULT_GRID,
+  SpectraError,
+  emissionPeakForDiameterNm,
+  emissionRangeForMaterialNm,
+  listMaterials,
+  makeGrid,
+  resolveDot,
+  type DotInput,
+  type ResolvedDot,
 } from '../../spectra/index';
 
 function catchError(fn: () => unknown): SpectraError {
-  try { fn(); } catch (err) { if (err instanceof SpectraError) return err; throw err; }
+  try {
+    fn();
+  } catch (err) {
+    if (err instanceof SpectraError) return err;
+    throw err;
+  }
   throw new Error('expected a SpectraError');
 }
 const area = (d: ResolvedDot) => d.emission.values.reduce((a, b) => a + b, 0) * d.emission.stepNm;
 const argmaxNm = (d: ResolvedDot) => {
   let k = 0;
-  d.emission.values.forEach((v, i) => { if (v > d.emission.values[k]) k = i; });
+  d.emission.values.forEach((v, i) => {
+    if (v > d.emission.values[k]) k = i;
+  });
   return d.emission.startNm + k * d.emission.stepNm;
 };
 const allFinite = (d: ResolvedDot) =>
   [d.emissionPeakNm, d.fwhmNm, d.quantumYield, ...d.emission.values, ...d.absorption.values].every(Number.isFinite);
 
 describe('resolveDot: model spectra', () => {
-  it.each(['cdse', 'cdte', 'cds', 'inp', 'gaas', 'cspbbr3'] as const)('resolveDot(%s) across its size range gives unit-area, finite spectra peaking at emissionPeakNm', (m) => {
-    const [lo, hi] = listMaterials().find((x) => x.id === m)!.diameterRangeNm!;
-    for (const d of [lo, (lo + hi) / 2, hi]) {
-      const dot = resolveDot({ material: m, diameterNm: d });
-      expect(allFinite(dot)).toBe(true);
-      expect(area(dot)).toBeCloseTo(1, 10);
-      expect(Math.abs(argmaxNm(dot) - dot.emissionPeakNm)).toBeLessThanOrEqual(0.5 + 1e-9);
-      expect(dot.emissionPeakNm).toBeCloseTo(emissionPeakForDiameterNm(m, d), 9);
-    }
-  });
+  it.each(['cdse', 'cdte', 'cds', 'inp', 'gaas', 'cspbbr3'] as const)(
+    'resolveDot(%s) across its size range gives unit-area, finite spectra peaking at emissionPeakNm',
+    (m) => {
+      const [lo, hi] = listMaterials().find((x) => x.id === m)!.diameterRangeNm!;
+      for (const d of [lo, (lo + hi) / 2, hi]) {
+        const dot = resolveDot({ material: m, diameterNm: d });
+        expect(allFinite(dot)).toBe(true);
+        expect(area(dot)).toBeCloseTo(1, 10);
+        expect(Math.abs(argmaxNm(dot) - dot.emissionPeakNm)).toBeLessThanOrEqual(0.5 + 1e-9);
+        expect(dot.emissionPeakNm).toBeCloseTo(emissionPeakForDiameterNm(m, d), 9);
+      }
+    },
+  );
 
   it('resolveDot(cdse, 605 nm) returns a 4.0–4.4 nm core whose emission peaks at 605 nm', () => {
     const dot = resolveDot({ material: 'cdse', emissionPeakNm: 605 });
@@ -40,8 +58,10 @@ describe('resolveDot: model spectra', () => {
     const widths: number[] = [];
     for (let d = 2; d <= 7 + 1e-9; d += 0.02) widths.push(resolveDot({ material: 'cdte', diameterNm: d }).fwhmNm);
     expect(widths.every(Number.isFinite)).toBe(true);
-    for (let i = 1; i < widths.length; i++) expect(Math.abs(widths[i] - widths[i - 1])).toBeLessThan(0.01 * widths[i - 1]);
-    for (let i = 1; i < widths.length - 1; i++) expect(Math.abs(widths[i + 1] - 2 * widths[i] + widths[i - 1])).toBeLessThan(0.02);
+    for (let i = 1; i < widths.length; i++)
+      expect(Math.abs(widths[i] - widths[i - 1])).toBeLessThan(0.01 * widths[i - 1]);
+    for (let i = 1; i < widths.length - 1; i++)
+      expect(Math.abs(widths[i + 1] - 2 * widths[i] + widths[i - 1])).toBeLessThan(0.02);
   });
 
   it('resolveDot(cdse) FWHM grows with sizeDispersionPct and equals the homogeneous width alone at 0 %', () => {
@@ -51,12 +71,20 @@ describe('resolveDot: model spectra', () => {
     expect(w[0]).toBeCloseTo(20.4, 0);
   });
 
-  it.each([['cdse', 30], ['cdte', 42], ['inp', 45], ['cspbbr3', 20]] as const)('resolveDot(%s) mid-range at typical dispersion has a FWHM within 35 percent of the typical %s nm (science notes, mostly from memory)', (m, typical) => {
-    const mat = listMaterials().find((x) => x.id === m)!;
-    const [lo, hi] = mat.emissionRangeNm!;
-    const dot = resolveDot({ material: m, emissionPeakNm: (lo + hi) / 2 });
-    expect(Math.abs(dot.fwhmNm / typical - 1)).toBeLessThan(0.35);
-  });
+  it.each([
+    ['cdse', 30],
+    ['cdte', 42],
+    ['inp', 45],
+    ['cspbbr3', 20],
+  ] as const)(
+    'resolveDot(%s) mid-range at typical dispersion has a FWHM within 35 percent of the typical %s nm (science notes, mostly from memory)',
+    (m, typical) => {
+      const mat = listMaterials().find((x) => x.id === m)!;
+      const [lo, hi] = mat.emissionRangeNm!;
+      const dot = resolveDot({ material: m, emissionPeakNm: (lo + hi) / 2 });
+      expect(Math.abs(dot.fwhmNm / typical - 1)).toBeLessThan(0.35);
+    },
+  );
 
   it('resolveDot with fwhmNm overrides the predicted width exactly', () => {
     expect(resolveDot({ material: 'inp', emissionPeakNm: 620, fwhmNm: 38 }).fwhmNm).toBeCloseTo(38, 6);
@@ -71,7 +99,9 @@ describe('resolveDot: model spectra', () => {
 
   it('resolveDot without excitationNm leaves extinctionAtExcitation null; with 405 nm it is positive', () => {
     expect(resolveDot({ material: 'cdse', emissionPeakNm: 605 }).extinctionAtExcitation).toBeNull();
-    expect(resolveDot({ material: 'cdse', emissionPeakNm: 605, excitationNm: 405 }).extinctionAtExcitation!).toBeGreaterThan(0);
+    expect(
+      resolveDot({ material: 'cdse', emissionPeakNm: 605, excitationNm: 405 }).extinctionAtExcitation!,
+    ).toBeGreaterThan(0);
   });
 });
 
@@ -84,7 +114,9 @@ describe('resolveDot: carbon dots', () => {
   });
 
   it('resolveDot(carbon) moves the emission peak to the red as the excitation moves to the red', () => {
-    const peaks = [350, 405, 488, 532].map((x) => resolveDot({ material: 'carbon', emissionPeakNm: 450, excitationNm: x }).emissionPeakNm);
+    const peaks = [350, 405, 488, 532].map(
+      (x) => resolveDot({ material: 'carbon', emissionPeakNm: 450, excitationNm: x }).emissionPeakNm,
+    );
     expect(peaks[0]).toBe(450);
     for (let i = 1; i < peaks.length; i++) expect(peaks[i]).toBeGreaterThan(peaks[i - 1]);
   });
@@ -106,7 +138,10 @@ describe('resolveDot: measured data first', () => {
 
   it('resolveDot(cdse) with a measured emission and no size input sizes the core from the measured peak', () => {
     const dot = resolveDot({ material: 'cdse', measuredEmission: { points } });
-    expect(dot.diameterNm!).toBeCloseTo(resolveDot({ material: 'cdse', emissionPeakNm: dot.emissionPeakNm }).diameterNm!, 6);
+    expect(dot.diameterNm!).toBeCloseTo(
+      resolveDot({ material: 'cdse', emissionPeakNm: dot.emissionPeakNm }).diameterNm!,
+      6,
+    );
     expect(dot.model.startsWith('measured emission')).toBe(true);
   });
 
@@ -119,7 +154,12 @@ describe('resolveDot: measured data first', () => {
 
 describe('resolveDot: bad input', () => {
   const cases: [string, DotInput, string, (string | number)[]][] = [
-    ['both diameterNm and emissionPeakNm', { material: 'cdse', diameterNm: 4, emissionPeakNm: 600 }, 'invalid_input', ['diameterNm']],
+    [
+      'both diameterNm and emissionPeakNm',
+      { material: 'cdse', diameterNm: 4, emissionPeakNm: 600 },
+      'invalid_input',
+      ['diameterNm'],
+    ],
     ['neither diameterNm nor emissionPeakNm', { material: 'cdse' }, 'invalid_input', ['diameterNm']],
     ['a negative diameterNm', { material: 'cdse', diameterNm: -1 }, 'invalid_input', ['diameterNm']],
     ['a NaN diameterNm', { material: 'cdse', diameterNm: NaN }, 'invalid_input', ['diameterNm']],
@@ -129,15 +169,79 @@ describe('resolveDot: bad input', () => {
     ['custom without measuredEmission', { material: 'custom' }, 'invalid_input', ['measuredEmission']],
     ['carbon with a diameter', { material: 'carbon', diameterNm: 3 }, 'invalid_input', ['diameterNm']],
     ['carbon without a peak', { material: 'carbon' }, 'invalid_input', ['emissionPeakNm']],
-    ['carbon with a peak out of reach', { material: 'carbon', emissionPeakNm: 900 }, 'out_of_range', ['emissionPeakNm']],
-    ['a negative sizeDispersionPct', { material: 'cdse', diameterNm: 4, sizeDispersionPct: -2 }, 'invalid_input', ['sizeDispersionPct']],
-    ['a quantumYield above 1', { material: 'cdse', diameterNm: 4, quantumYield: 1.5 }, 'out_of_range', ['quantumYield']],
+    [
+      'carbon with a peak out of reach',
+      { material: 'carbon', emissionPeakNm: 900 },
+      'out_of_range',
+      ['emissionPeakNm'],
+    ],
+    [
+      'a negative sizeDispersionPct',
+      { material: 'cdse', diameterNm: 4, sizeDispersionPct: -2 },
+      'invalid_input',
+      ['sizeDispersionPct'],
+    ],
+    [
+      'a quantumYield above 1',
+      { material: 'cdse', diameterNm: 4, quantumYield: 1.5 },
+      'out_of_range',
+      ['quantumYield'],
+    ],
     ['a zero fwhmNm', { material: 'carbon', emissionPeakNm: 450, fwhmNm: 0 }, 'invalid_input', ['fwhmNm']],
-    ['a string excitationNm', { material: 'cdse', diameterNm: 4, excitationNm: '405' as never }, 'invalid_input', ['excitationNm']],
-    ['a descending measured table', { material: 'custom', measuredEmission: { points: [[500, 1], [490, 2]] } }, 'invalid_table', ['measuredEmission', 'points', 1, 0]],
-    ['a measured table with a NaN', { material: 'custom', measuredEmission: { points: [[500, 1], [510, NaN]] } }, 'invalid_table', ['measuredEmission', 'points', 1]],
-    ['an all-zero measured emission', { material: 'custom', measuredEmission: { points: [[500, 0], [510, 0]] } }, 'invalid_table', ['measuredEmission', 'points']],
-    ['a one-point extinction table', { material: 'cdse', diameterNm: 4, extinction: { points: [[500, 1]] } }, 'invalid_table', ['extinction', 'points']],
+    [
+      'a string excitationNm',
+      { material: 'cdse', diameterNm: 4, excitationNm: '405' as never },
+      'invalid_input',
+      ['excitationNm'],
+    ],
+    [
+      'a descending measured table',
+      {
+        material: 'custom',
+        measuredEmission: {
+          points: [
+            [500, 1],
+            [490, 2],
+          ],
+        },
+      },
+      'invalid_table',
+      ['measuredEmission', 'points', 1, 0],
+    ],
+    [
+      'a measured table with a NaN',
+      {
+        material: 'custom',
+        measuredEmission: {
+          points: [
+            [500, 1],
+            [510, NaN],
+          ],
+        },
+      },
+      'invalid_table',
+      ['measuredEmission', 'points', 1],
+    ],
+    [
+      'an all-zero measured emission',
+      {
+        material: 'custom',
+        measuredEmission: {
+          points: [
+            [500, 0],
+            [510, 0],
+          ],
+        },
+      },
+      'invalid_table',
+      ['measuredEmission', 'points'],
+    ],
+    [
+      'a one-point extinction table',
+      { material: 'cdse', diameterNm: 4, extinction: { points: [[500, 1]] } },
+      'invalid_table',
+      ['extinction', 'points'],
+    ],
   ];
   it.each(cases)('resolveDot with %s throws a SpectraError naming the field', (_what, input, code, path) => {
     const err = catchError(() => resolveDot(input));
@@ -147,7 +251,9 @@ describe('resolveDot: bad input', () => {
 
   it('resolveDot with a peak out of reach names the reachable range in nm', () => {
     const [lo, hi] = emissionRangeForMaterialNm('cspbbr3');
-    expect(catchError(() => resolveDot({ material: 'cspbbr3', emissionPeakNm: 620 })).message).toContain(`${Math.ceil(lo)}–${Math.floor(hi)} nm`);
+    expect(catchError(() => resolveDot({ material: 'cspbbr3', emissionPeakNm: 620 })).message).toContain(
+      `${Math.ceil(lo)}–${Math.floor(hi)} nm`,
+    );
   });
 
   it('resolveDot uses DEFAULT_GRID when no grid is given', () => {

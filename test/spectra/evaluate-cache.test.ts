@@ -19,7 +19,11 @@ describe('evaluatePanel with a warm resolved-dot cache', () => {
   // field out would hand back base's dot and the figures would not change.
   it.each([
     ['fwhmNm', { fwhmNm: 40 }, (a: number[], b: number[]) => expect(b[0]).not.toBeCloseTo(a[0], 6)],
-    ['sizeDispersionPct', { sizeDispersionPct: 9 }, (a: number[], b: number[]) => expect(b[0]).not.toBeCloseTo(a[0], 6)],
+    [
+      'sizeDispersionPct',
+      { sizeDispersionPct: 9 },
+      (a: number[], b: number[]) => expect(b[0]).not.toBeCloseTo(a[0], 6),
+    ],
     ['emissionPeakNm', { emissionPeakNm: 610 }, (a: number[], b: number[]) => expect(b[1]).not.toBeCloseTo(a[1], 6)],
   ] as const)('evaluatePanel gives a probe that differs only in %s its own figures', (_field, change, check) => {
     const first = evaluatePanel(panelOf(base), { sensitivity: false });
@@ -41,7 +45,16 @@ describe('evaluatePanel with a warm resolved-dot cache', () => {
 
 describe('evaluatePanel on figures that overflow double precision', () => {
   it('evaluatePanel with a measured extinction of 1e308 answers nulls and a warning, never NaN or Infinity', () => {
-    const huge: ProbeSpec = { ...base, abundance: 1e6, extinction: { points: [[300, 1e308], [1000, 1e308]] } };
+    const huge: ProbeSpec = {
+      ...base,
+      abundance: 1e6,
+      extinction: {
+        points: [
+          [300, 1e308],
+          [1000, 1e308],
+        ],
+      },
+    };
     const ev = evaluatePanel(panelOf(huge));
     const text = JSON.stringify(ev, (_k, v) => (typeof v === 'number' && !Number.isFinite(v) ? `NONFINITE(${v})` : v));
     expect(text).not.toContain('NONFINITE');

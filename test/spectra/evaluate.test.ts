@@ -20,7 +20,19 @@ function gaussianProbe(id: string, peakNm: number, sigmaNm: number, extra: Parti
   for (let nm = Math.max(301, peakNm - 8 * sigmaNm); nm <= Math.min(999, peakNm + 8 * sigmaNm); nm += 1) {
     points.push([nm, Math.exp(-0.5 * ((nm - peakNm) / sigmaNm) ** 2)]);
   }
-  return { id, material: 'custom', quantumYield: 0.5, measuredEmission: { points }, extinction: { points: [[300, 1e5], [1000, 1e5]] }, ...extra };
+  return {
+    id,
+    material: 'custom',
+    quantumYield: 0.5,
+    measuredEmission: { points },
+    extinction: {
+      points: [
+        [300, 1e5],
+        [1000, 1e5],
+      ],
+    },
+    ...extra,
+  };
 }
 
 const bandpass = (id: string, centerNm: number, widthNm = 24, extra: Partial<ChannelSpec> = {}): ChannelSpec => ({
@@ -33,13 +45,16 @@ const bandpass = (id: string, centerNm: number, widthNm = 24, extra: Partial<Cha
 function expectJsonSafe(value: unknown, path = 'evaluation'): void {
   if (typeof value === 'number') expect(Number.isFinite(value), `${path} is ${value}`).toBe(true);
   else if (Array.isArray(value)) value.forEach((v, i) => expectJsonSafe(v, `${path}[${i}]`));
-  else if (value && typeof value === 'object') for (const [k, v] of Object.entries(value)) expectJsonSafe(v, `${path}.${k}`);
+  else if (value && typeof value === 'object')
+    for (const [k, v] of Object.entries(value)) expectJsonSafe(v, `${path}.${k}`);
 }
-
 
 const fourProbePanel = (): PanelSpec => ({
   version: 1,
-  excitation: [{ wavelengthNm: 405, powerRel: 1 }, { wavelengthNm: 488, powerRel: 0.5 }],
+  excitation: [
+    { wavelengthNm: 405, powerRel: 1 },
+    { wavelengthNm: 488, powerRel: 0.5 },
+  ],
   probes: [
     { id: 'q525', material: 'cdse', emissionPeakNm: 525, quantumYield: 0.6 },
     { id: 'q565', material: 'cdse', emissionPeakNm: 565, quantumYield: 0.5, abundance: 2 },
@@ -50,7 +65,14 @@ const fourProbePanel = (): PanelSpec => ({
     bandpass('c525', 525, 20),
     bandpass('c565', 565, 20, { excitationNm: 405 }),
     bandpass('c605', 605, 20, { detector: 'pmt-gaasp', excitationNm: [405, 488] }),
-    { id: 'c655', filters: [{ type: 'longpass', edgeNm: 640 }, { type: 'shortpass', edgeNm: 680 }], detector: 'scmos' },
+    {
+      id: 'c655',
+      filters: [
+        { type: 'longpass', edgeNm: 640 },
+        { type: 'shortpass', edgeNm: 680 },
+      ],
+      detector: 'scmos',
+    },
   ],
 });
 
@@ -62,7 +84,14 @@ describe('evaluatePanel: the signal model', () => {
       version: 1,
       excitation: [{ wavelengthNm: 405, powerRel: 2 }],
       probes: [gaussianProbe('a', 600, 12, { abundance: 3 })],
-      channels: [{ id: 'c', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20, edgeWidthNm: 0, peakTransmission: 1, blockingOD: 12 }] }],
+      channels: [
+        {
+          id: 'c',
+          filters: [
+            { type: 'bandpass', centerNm: 605, widthNm: 20, edgeWidthNm: 0, peakTransmission: 1, blockingOD: 12 },
+          ],
+        },
+      ],
     };
     const closedForm = 0.5 * (erf((615 - 600) / (12 * Math.SQRT2)) - erf((595 - 600) / (12 * Math.SQRT2)));
     const ev = evaluatePanel(panel, { grid });
@@ -88,7 +117,12 @@ describe('evaluatePanel: the signal model', () => {
         for (let i = 0; i < t.length; i++) integral += spectra.emission[p].values[i] * t[i] * DEFAULT_GRID.stepNm;
         let weight = 0;
         panel.excitation.forEach((line, l) => {
-          if (lineOn(c, l)) weight += (line.powerRel ?? 1) * ev.probes[p].extinctionAtLines[l] * ev.probes[p].quantumYield * (probe.abundance ?? 1);
+          if (lineOn(c, l))
+            weight +=
+              (line.powerRel ?? 1) *
+              ev.probes[p].extinctionAtLines[l] *
+              ev.probes[p].quantumYield *
+              (probe.abundance ?? 1);
         });
         expect(Math.abs(ev.collected[c][p] - weight * integral) / (weight * integral)).toBeLessThan(1e-12);
       });
@@ -99,7 +133,14 @@ describe('evaluatePanel: the signal model', () => {
     const panel = fourProbePanel();
     const both = evaluatePanel(panel, { sensitivity: false }).collected;
     const only = (l: number) =>
-      evaluatePanel({ ...panel, excitation: [panel.excitation[l]], channels: panel.channels.map(({ excitationNm: _x, ...c }) => c) }, { sensitivity: false }).collected;
+      evaluatePanel(
+        {
+          ...panel,
+          excitation: [panel.excitation[l]],
+          channels: panel.channels.map(({ excitationNm: _x, ...c }) => c),
+        },
+        { sensitivity: false },
+      ).collected;
     const at405 = only(0);
     const at488 = only(1);
     for (let p = 0; p < 4; p++) {
@@ -113,9 +154,17 @@ describe('evaluatePanel: the signal model', () => {
   it('evaluatePanel reads a 32-bin spectral detector (10 nm bins) whose bins add up to one wide band', () => {
     const ideal = { edgeWidthNm: 0, peakTransmission: 1, blockingOD: 12 };
     const probes = [gaussianProbe('a', 560, 15), gaussianProbe('b', 600, 15), gaussianProbe('c', 650, 20)];
-    const bins: ChannelSpec[] = Array.from({ length: 32 }, (_, i) => ({ id: `b${i}`, filters: [{ type: 'bandpass', centerNm: 455 + 10 * i, widthNm: 10, ...ideal }] }));
+    const bins: ChannelSpec[] = Array.from({ length: 32 }, (_, i) => ({
+      id: `b${i}`,
+      filters: [{ type: 'bandpass', centerNm: 455 + 10 * i, widthNm: 10, ...ideal }],
+    }));
     const ev = evaluatePanel({ version: 1, excitation: [{ wavelengthNm: 405 }], probes, channels: bins });
-    const wide = evaluatePanel({ version: 1, excitation: [{ wavelengthNm: 405 }], probes, channels: [{ id: 'w', filters: [{ type: 'bandpass', centerNm: 610, widthNm: 320, ...ideal }] }] });
+    const wide = evaluatePanel({
+      version: 1,
+      excitation: [{ wavelengthNm: 405 }],
+      probes,
+      channels: [{ id: 'w', filters: [{ type: 'bandpass', centerNm: 610, widthNm: 320, ...ideal }] }],
+    });
     expect(ev.collected).toHaveLength(32);
     for (let p = 0; p < 3; p++) {
       const sum = ev.collected.reduce((s, row) => s + row[p], 0);
@@ -131,7 +180,9 @@ describe('evaluatePanel: crosstalk figures', () => {
     const ev = evaluatePanel(fourProbePanel());
     const { collected, primaryChannel } = ev;
     expect(primaryChannel).toEqual([0, 1, 2, 3]);
-    collected.forEach((row, c) => row.forEach((v, p) => expect(ev.spillover[c][p]).toBeCloseTo(v / collected[primaryChannel[p]!][p], 12)));
+    collected.forEach((row, c) =>
+      row.forEach((v, p) => expect(ev.spillover[c][p]).toBeCloseTo(v / collected[primaryChannel[p]!][p], 12)),
+    );
     let worst = { value: -1, from: '', into: '' };
     for (let u = 0; u < 4; u++) {
       for (let t = 0; t < 4; t++) {
@@ -151,7 +202,7 @@ describe('evaluatePanel: crosstalk figures', () => {
     expectJsonSafe(ev);
   });
 
-  it('evaluatePanel uses a probe\'s assigned channel as its primary even where another collects more', () => {
+  it("evaluatePanel uses a probe's assigned channel as its primary even where another collects more", () => {
     const panel = fourProbePanel();
     panel.probes[0] = { ...panel.probes[0], channel: 'c565' };
     const ev = evaluatePanel(panel, { sensitivity: false });
@@ -164,7 +215,18 @@ describe('evaluatePanel: crosstalk figures', () => {
     const panel: PanelSpec = {
       version: 1,
       excitation: [{ wavelengthNm: 405 }],
-      probes: [gaussianProbe('a', 600, 12), gaussianProbe('b', 600, 12), gaussianProbe('dark', 650, 12, { extinction: { points: [[500, 0], [900, 0]] } })],
+      probes: [
+        gaussianProbe('a', 600, 12),
+        gaussianProbe('b', 600, 12),
+        gaussianProbe('dark', 650, 12, {
+          extinction: {
+            points: [
+              [500, 0],
+              [900, 0],
+            ],
+          },
+        }),
+      ],
       channels: [bandpass('c1', 600), bandpass('c2', 650), bandpass('c3', 700)],
     };
     const ev = evaluatePanel(panel);
@@ -181,7 +243,11 @@ describe('evaluatePanel: crosstalk figures', () => {
 describe('evaluatePanel: bad input', () => {
   it('evaluatePanel names the offending field for a bad filter, detector, channel reference or line', () => {
     const cases: [(p: PanelSpec) => void, string, (string | number)[]][] = [
-      [(p) => (p.channels[2].filters[0] = { type: 'bandpass', centerNm: 605, widthNm: 0 }), 'invalid_input', ['channels', 2, 'filters', 0, 'widthNm']],
+      [
+        (p) => (p.channels[2].filters[0] = { type: 'bandpass', centerNm: 605, widthNm: 0 }),
+        'invalid_input',
+        ['channels', 2, 'filters', 0, 'widthNm'],
+      ],
       [(p) => (p.channels[0].detector = 'film'), 'unknown_detector', ['channels', 0, 'detector']],
       [(p) => (p.probes[1].channel = 'nowhere'), 'unknown_channel', ['probes', 1, 'channel']],
       [(p) => (p.channels[1].excitationNm = 561), 'invalid_input', ['channels', 1, 'excitationNm']],
@@ -189,8 +255,25 @@ describe('evaluatePanel: bad input', () => {
       [(p) => (p.probes[2].abundance = -1), 'invalid_input', ['probes', 2, 'abundance']],
       [(p) => (p.excitation[1].wavelengthNm = Number.NaN), 'invalid_input', ['excitation', 1, 'wavelengthNm']],
       [(p) => (p.probes = []), 'invalid_input', ['probes']],
-      [(p) => (p.probes = Array.from({ length: 17 }, (_, i) => ({ ...p.probes[0], id: `x${i}` }))), 'invalid_input', ['probes']],
-      [(p) => (p.channels[0].filters = [{ type: 'table', points: [[500, 0.2], [500, 0.3]] }]), 'invalid_table', ['channels', 0, 'filters', 0, 'points', 1, 0]],
+      [
+        (p) => (p.probes = Array.from({ length: 17 }, (_, i) => ({ ...p.probes[0], id: `x${i}` }))),
+        'invalid_input',
+        ['probes'],
+      ],
+      [
+        (p) =>
+          (p.channels[0].filters = [
+            {
+              type: 'table',
+              points: [
+                [500, 0.2],
+                [500, 0.3],
+              ],
+            },
+          ]),
+        'invalid_table',
+        ['channels', 0, 'filters', 0, 'points', 1, 0],
+      ],
     ];
     for (const [breakIt, code, path] of cases) {
       const panel = fourProbePanel();
@@ -223,7 +306,7 @@ describe('evaluatePanel: resolved-dot cache', () => {
 });
 
 describe('evaluatePanel: carbon dots and charts', () => {
-  it('evaluatePanel resolves a carbon dot once per line and adds the lines\' contributions', () => {
+  it("evaluatePanel resolves a carbon dot once per line and adds the lines' contributions", () => {
     const panel: PanelSpec = {
       version: 1,
       excitation: [{ wavelengthNm: 405 }, { wavelengthNm: 488 }],
@@ -233,7 +316,8 @@ describe('evaluatePanel: carbon dots and charts', () => {
     const ev = evaluatePanel(panel, { sensitivity: false });
     const [a, b] = ev.probes[0].emissionPeakNmByLine!;
     expect(b).toBeGreaterThan(a); // the modelled peak follows the line to the red
-    const single = (l: number) => evaluatePanel({ ...panel, excitation: [panel.excitation[l]] }, { sensitivity: false }).collected;
+    const single = (l: number) =>
+      evaluatePanel({ ...panel, excitation: [panel.excitation[l]] }, { sensitivity: false }).collected;
     const [s405, s488] = [single(0), single(1)];
     for (let c = 0; c < 2; c++) expect(ev.collected[c][0]).toBeCloseTo(s405[c][0] + s488[c][0], 6);
     expectJsonSafe(ev);
@@ -247,7 +331,9 @@ describe('evaluatePanel: carbon dots and charts', () => {
       expect(Array.isArray(values)).toBe(true);
       expect(values.reduce((a, b) => a + b, 0) * spectra.stepNm).toBeCloseTo(1, 6);
     }
-    spectra.channels.forEach(({ values }, c) => expect(values).toEqual(Array.from(channelTransmission(panel.channels[c], DEFAULT_GRID))));
+    spectra.channels.forEach(({ values }, c) =>
+      expect(values).toEqual(Array.from(channelTransmission(panel.channels[c], DEFAULT_GRID))),
+    );
     expect(spectra.background).toBeNull();
   });
 });

@@ -1,7 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { errorOf } from './helpers/errors';
 import erf from '@stdlib/math-base-special-erf';
-import { DEFAULT_GRID, FILTER_DEFAULTS, SpectraError, channelSupport, channelTransmission, filterTransmission, makeGrid } from '../../spectra/index';
+import {
+  DEFAULT_GRID,
+  FILTER_DEFAULTS,
+  SpectraError,
+  channelSupport,
+  channelTransmission,
+  filterTransmission,
+  makeGrid,
+} from '../../spectra/index';
 import type { ChannelSpec, ConstantEnds, FilterSpec, WavelengthGrid } from '../../spectra/index';
 
 const at = (t: Float64Array, grid: WavelengthGrid, nm: number) => t[Math.round((nm - grid.startNm) / grid.stepNm)];
@@ -17,19 +25,26 @@ function crossingNm(t: Float64Array, grid: WavelengthGrid, level: number, rising
   return NaN;
 }
 
-
 describe('filterTransmission', () => {
   // Closed form: ∫ N(μ, σ²) over [a, b] = ½[erf((b−μ)/σ√2) − erf((a−μ)/σ√2)]; erf from @stdlib/math-base-special-erf.
   it('filterTransmission(ideal 605/20) passes a Gaussian (in wavelength) exactly as the erf closed form says', () => {
     const grid = makeGrid(480, 730, 0.0625); // 1/16 nm: the band edges fall exactly on grid points
-    const t = filterTransmission({ type: 'bandpass', centerNm: 605, widthNm: 20, edgeWidthNm: 0, peakTransmission: 1, blockingOD: 12 }, grid);
-    for (const [meanNm, sigmaNm] of [[600, 12], [560, 15], [612, 4]]) {
+    const t = filterTransmission(
+      { type: 'bandpass', centerNm: 605, widthNm: 20, edgeWidthNm: 0, peakTransmission: 1, blockingOD: 12 },
+      grid,
+    );
+    for (const [meanNm, sigmaNm] of [
+      [600, 12],
+      [560, 15],
+      [612, 4],
+    ]) {
       let sum = 0;
       for (let i = 0; i < grid.count; i++) {
         const z = (grid.startNm + i * grid.stepNm - meanNm) / sigmaNm;
         sum += (t[i] * Math.exp(-0.5 * z * z)) / (sigmaNm * Math.sqrt(2 * Math.PI));
       }
-      const expected = 0.5 * (erf((615 - meanNm) / (sigmaNm * Math.SQRT2)) - erf((595 - meanNm) / (sigmaNm * Math.SQRT2)));
+      const expected =
+        0.5 * (erf((615 - meanNm) / (sigmaNm * Math.SQRT2)) - erf((595 - meanNm) / (sigmaNm * Math.SQRT2)));
       // The grid sum is the trapezoid rule (the step's value is exactly ½ on each edge): error ≈ h²/12 · |Δf'| ≲ 2e-6.
       expect(Math.abs(sum * grid.stepNm - expected) / expected).toBeLessThan(1e-5);
     }
@@ -37,8 +52,16 @@ describe('filterTransmission', () => {
 
   it('filterTransmission(bandpass) peaks at peakTransmission and is half of it at centre ± width/2 (common practice: width = FWHM)', () => {
     const grid = makeGrid(560, 640, 0.02);
-    for (const [widthNm, edgeWidthNm] of [[20, 2], [10, 2], [3, 3], [40, 8]]) {
-      const t = filterTransmission({ type: 'bandpass', centerNm: 600, widthNm, edgeWidthNm, peakTransmission: 0.9 }, grid);
+    for (const [widthNm, edgeWidthNm] of [
+      [20, 2],
+      [10, 2],
+      [3, 3],
+      [40, 8],
+    ]) {
+      const t = filterTransmission(
+        { type: 'bandpass', centerNm: 600, widthNm, edgeWidthNm, peakTransmission: 0.9 },
+        grid,
+      );
       expect(at(t, grid, 600)).toBeCloseTo(0.9, 9);
       expect(Math.max(...t)).toBeCloseTo(0.9, 9);
       const floor = 1e-6;
@@ -50,7 +73,10 @@ describe('filterTransmission', () => {
   it('filterTransmission(longpass) rises from 10 % to 90 % over exactly edgeWidthNm, centred on edgeNm', () => {
     const grid = makeGrid(580, 620, 0.01);
     for (const edgeWidthNm of [1, 2, 5]) {
-      const t = filterTransmission({ type: 'longpass', edgeNm: 600, edgeWidthNm, peakTransmission: 1, blockingOD: 12 }, grid);
+      const t = filterTransmission(
+        { type: 'longpass', edgeNm: 600, edgeWidthNm, peakTransmission: 1, blockingOD: 12 },
+        grid,
+      );
       const rise = crossingNm(t, grid, 0.9) - crossingNm(t, grid, 0.1);
       expect(rise).toBeCloseTo(edgeWidthNm, 3);
       expect(at(t, grid, 600)).toBeCloseTo(0.5, 9);
@@ -81,7 +107,17 @@ describe('filterTransmission', () => {
 
   it('filterTransmission(table) interpolates linearly and holds the end values beyond the table', () => {
     const grid = makeGrid(400, 800, 1);
-    const t = filterTransmission({ type: 'table', points: [[500, 0.1], [600, 0.9], [700, 0.5]] }, grid);
+    const t = filterTransmission(
+      {
+        type: 'table',
+        points: [
+          [500, 0.1],
+          [600, 0.9],
+          [700, 0.5],
+        ],
+      },
+      grid,
+    );
     expect(at(t, grid, 450)).toBe(0.1);
     expect(at(t, grid, 550)).toBeCloseTo(0.5, 12);
     expect(at(t, grid, 650)).toBeCloseTo(0.7, 12);
@@ -90,16 +126,44 @@ describe('filterTransmission', () => {
 
   it('filterTransmission rejects a width ≤ 0, an out-of-order table and an unknown type with errors naming the field', () => {
     const path = ['channels', 2, 'filters', 0];
-    expect(errorOf(() => filterTransmission({ type: 'bandpass', centerNm: 600, widthNm: 0 }, DEFAULT_GRID, path)).path).toEqual([...path, 'widthNm']);
-    expect(errorOf(() => filterTransmission({ type: 'bandpass', centerNm: 600, widthNm: -3 }, DEFAULT_GRID, path)).message).toMatch(/widthNm must be above 0/);
-    expect(errorOf(() => filterTransmission({ type: 'longpass', edgeNm: 600, edgeWidthNm: -1 }, DEFAULT_GRID, path)).path).toEqual([...path, 'edgeWidthNm']);
-    expect(errorOf(() => filterTransmission({ type: 'longpass', edgeNm: 600, peakTransmission: 1.2 }, DEFAULT_GRID, path)).path).toEqual([...path, 'peakTransmission']);
-    const table = errorOf(() => filterTransmission({ type: 'table', points: [[500, 0.1], [490, 0.2]] }, DEFAULT_GRID, path));
+    expect(
+      errorOf(() => filterTransmission({ type: 'bandpass', centerNm: 600, widthNm: 0 }, DEFAULT_GRID, path)).path,
+    ).toEqual([...path, 'widthNm']);
+    expect(
+      errorOf(() => filterTransmission({ type: 'bandpass', centerNm: 600, widthNm: -3 }, DEFAULT_GRID, path)).message,
+    ).toMatch(/widthNm must be above 0/);
+    expect(
+      errorOf(() => filterTransmission({ type: 'longpass', edgeNm: 600, edgeWidthNm: -1 }, DEFAULT_GRID, path)).path,
+    ).toEqual([...path, 'edgeWidthNm']);
+    expect(
+      errorOf(() => filterTransmission({ type: 'longpass', edgeNm: 600, peakTransmission: 1.2 }, DEFAULT_GRID, path))
+        .path,
+    ).toEqual([...path, 'peakTransmission']);
+    const table = errorOf(() =>
+      filterTransmission(
+        {
+          type: 'table',
+          points: [
+            [500, 0.1],
+            [490, 0.2],
+          ],
+        },
+        DEFAULT_GRID,
+        path,
+      ),
+    );
     expect(table.code).toBe('invalid_table');
     expect(table.path).toEqual([...path, 'points', 1, 0]);
     const bad = errorOf(() => filterTransmission({ type: 'notch' } as unknown as FilterSpec, DEFAULT_GRID, path));
     expect(bad.path).toEqual([...path, 'type']);
-    expect(errorOf(() => filterTransmission({ type: 'dichroic', edgeNm: 560, passes: 'sideways' } as unknown as FilterSpec, DEFAULT_GRID)).path).toEqual(['passes']);
+    expect(
+      errorOf(() =>
+        filterTransmission(
+          { type: 'dichroic', edgeNm: 560, passes: 'sideways' } as unknown as FilterSpec,
+          DEFAULT_GRID,
+        ),
+      ).path,
+    ).toEqual(['passes']);
   });
 });
 
@@ -116,12 +180,36 @@ describe('channelTransmission', () => {
   it('channelTransmission reports ends outside which the curve really is constant, and they change no run found', () => {
     const channels: ChannelSpec[] = [
       { id: 'a', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 24 }] },
-      { id: 'b', filters: [{ type: 'longpass', edgeNm: 650 }, { type: 'shortpass', edgeNm: 700, blockingOD: 3 }] },
-      { id: 'c', filters: [{ type: 'dichroic', edgeNm: 560, passes: 'below' }, { type: 'table', points: [[400, 0.2], [500, 0.8]] }] },
+      {
+        id: 'b',
+        filters: [
+          { type: 'longpass', edgeNm: 650 },
+          { type: 'shortpass', edgeNm: 700, blockingOD: 3 },
+        ],
+      },
+      {
+        id: 'c',
+        filters: [
+          { type: 'dichroic', edgeNm: 560, passes: 'below' },
+          {
+            type: 'table',
+            points: [
+              [400, 0.2],
+              [500, 0.8],
+            ],
+          },
+        ],
+      },
       { id: 'd', filters: [{ type: 'bandpass', centerNm: 520, widthNm: 10, edgeWidthNm: 0 }] },
       { id: 'e', filters: [{ type: 'bandpass', centerNm: 700, widthNm: 40 }], detector: 'pmt-gaasp' },
       { id: 'f', filters: [] },
-      { id: 'g', filters: [{ type: 'longpass', edgeNm: 200 }, { type: 'shortpass', edgeNm: 1200 }] },
+      {
+        id: 'g',
+        filters: [
+          { type: 'longpass', edgeNm: 200 },
+          { type: 'shortpass', edgeNm: 1200 },
+        ],
+      },
     ];
     for (const channel of channels) {
       const ends: ConstantEnds = { first: -1, end: -1 };
@@ -137,7 +225,10 @@ describe('channelTransmission', () => {
 
   it('channelTransmission names the nested field of a bad filter: ["channels", 2, "filters", 0, "widthNm"]', () => {
     const err = errorOf(() =>
-      channelTransmission({ id: 'c', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 0 }] }, DEFAULT_GRID, ['channels', 2]),
+      channelTransmission({ id: 'c', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 0 }] }, DEFAULT_GRID, [
+        'channels',
+        2,
+      ]),
     );
     expect(err.code).toBe('invalid_input');
     expect(err.path).toEqual(['channels', 2, 'filters', 0, 'widthNm']);

@@ -9,7 +9,14 @@ function randomMatrix(rows: number, cols: number, seed: number): number[][] {
   return Array.from({ length: rows }, () => Array.from({ length: cols }, next));
 }
 
-const shapes: [number, number][] = [[8, 8], [12, 5], [5, 12], [64, 16], [3, 1], [1, 4]];
+const shapes: [number, number][] = [
+  [8, 8],
+  [12, 5],
+  [5, 12],
+  [64, 16],
+  [3, 1],
+  [1, 4],
+];
 
 describe('svd', () => {
   // Independent reference: ml-matrix 6.15 SVD (Golub–Kahan), a different algorithm from the one-sided Jacobi here.
@@ -69,7 +76,12 @@ describe('pseudoInverse', () => {
   });
 
   it('pseudoInverse returns null for an all-zero matrix and throws on a ragged one naming the row', () => {
-    expect(pseudoInverse([[0, 0], [0, 0]])).toBeNull();
+    expect(
+      pseudoInverse([
+        [0, 0],
+        [0, 0],
+      ]),
+    ).toBeNull();
     try {
       pseudoInverse([[1, 2], [3]]);
       expect.unreachable();

@@ -1,11 +1,23 @@
 import { describe, expect, it } from 'vitest';
-import { MATERIAL_IDS, SpectraError, emissionRangeForMaterialNm, getMaterial, listMaterials } from '../../spectra/index';
+import {
+  MATERIAL_IDS,
+  SpectraError,
+  emissionRangeForMaterialNm,
+  getMaterial,
+  listMaterials,
+} from '../../spectra/index';
 
 function catchError(fn: () => unknown): SpectraError {
-  try { fn(); } catch (err) { if (err instanceof SpectraError) return err; throw err; }
+  try {
+    fn();
+  } catch (err) {
+    if (err instanceof SpectraError) return err;
+    throw err;
+  }
   throw new Error('expected a SpectraError');
 }
-const text = (m: ReturnType<typeof getMaterial>) => [...m.toxicity.notes, ...m.toxicity.cautions, ...m.warnings].join(' ');
+const text = (m: ReturnType<typeof getMaterial>) =>
+  [...m.toxicity.notes, ...m.toxicity.cautions, ...m.warnings].join(' ');
 
 // IUPAC standard atomic weights (abridged, 2021; values from memory, unverified): mass fractions of the hazardous metal.
 const W = { Cd: 112.414, Se: 78.971, Te: 127.6, S: 32.06, Cs: 132.905, Pb: 207.2, Br: 79.904 };
@@ -25,7 +37,7 @@ describe('listMaterials', () => {
     expect(listMaterials()[0].name).toBe('CdSe');
   });
 
-  it('listMaterials() emissionRangeNm of sized materials is the size law\'s reach (computed, 0.1 nm)', () => {
+  it("listMaterials() emissionRangeNm of sized materials is the size law's reach (computed, 0.1 nm)", () => {
     for (const m of listMaterials().filter((x) => x.diameterRangeNm)) {
       const [lo, hi] = emissionRangeForMaterialNm(m.id);
       expect(m.emissionRangeNm![0]).toBeCloseTo(lo, 1);
@@ -43,7 +55,11 @@ describe('listMaterials', () => {
   });
 
   it('listMaterials() has null size fields for carbon and custom, and null emission range only for custom', () => {
-    expect([getMaterial('carbon').diameterRangeNm, getMaterial('custom').diameterRangeNm, getMaterial('custom').emissionRangeNm]).toEqual([null, null, null]);
+    expect([
+      getMaterial('carbon').diameterRangeNm,
+      getMaterial('custom').diameterRangeNm,
+      getMaterial('custom').emissionRangeNm,
+    ]).toEqual([null, null, null]);
     expect(getMaterial('carbon').emissionRangeNm).not.toBeNull();
   });
 
@@ -77,7 +93,7 @@ describe('toxicity notes (IARC Monographs; always defer to local rules)', () => 
     expect(text(m)).toContain('low, not proven');
   });
 
-  it('getMaterial(custom) defers to the supplier\'s safety data sheet', () => {
+  it("getMaterial(custom) defers to the supplier's safety data sheet", () => {
     expect(getMaterial('custom').toxicity.cautions.join(' ')).toMatch(/supplier's safety data sheet/);
   });
 
@@ -88,7 +104,12 @@ describe('toxicity notes (IARC Monographs; always defer to local rules)', () => 
     }
   });
 
-  it.each([['cdse', 'Cd', W.Cd / (W.Cd + W.Se)], ['cdte', 'Cd', W.Cd / (W.Cd + W.Te)], ['cds', 'Cd', W.Cd / (W.Cd + W.S)], ['cspbbr3', 'Pb', W.Pb / (W.Cs + W.Pb + 3 * W.Br)]] as const)(
+  it.each([
+    ['cdse', 'Cd', W.Cd / (W.Cd + W.Se)],
+    ['cdte', 'Cd', W.Cd / (W.Cd + W.Te)],
+    ['cds', 'Cd', W.Cd / (W.Cd + W.S)],
+    ['cspbbr3', 'Pb', W.Pb / (W.Cs + W.Pb + 3 * W.Br)],
+  ] as const)(
     'getMaterial(%s) states the %s mass fraction computed from IUPAC atomic weights to 0.1 percent',
     (id, _el, fraction) => {
       expect(text(getMaterial(id))).toContain(`${(100 * fraction).toFixed(1)} %`);

@@ -31,14 +31,24 @@ describe('unmixing noise prediction', () => {
   it('predictUnmixingNoise(design).covariance matches M⁺ diag(v) M⁺ᵀ built with ml-matrix to 1e-10 relative', () => {
     const predicted = predictUnmixingNoise(design).covariance;
     const reference = referenceCovariance(design);
-    reference.forEach((row, i) => row.forEach((x, j) => expect(Math.abs(predicted[i][j]! - x)).toBeLessThan(1e-10 * Math.abs(reference[i][i]))));
+    reference.forEach((row, i) =>
+      row.forEach((x, j) => expect(Math.abs(predicted[i][j]! - x)).toBeLessThan(1e-10 * Math.abs(reference[i][i]))),
+    );
   });
 
   it('predictUnmixingNoise with white noise only reduces to σ² (MᵀM)⁻¹ (ml-matrix inverse)', () => {
     const sigma = 7;
-    const zero = { ...design, abundance: [0, 0, 0], backgroundPhotons: undefined, excessNoiseFactor: 1, readNoiseElectrons: sigma };
+    const zero = {
+      ...design,
+      abundance: [0, 0, 0],
+      backgroundPhotons: undefined,
+      excessNoiseFactor: 1,
+      readNoiseElectrons: sigma,
+    };
     const m = new Matrix(design.mixingPhotons);
-    const reference = mlInverse(m.transpose().mmul(m)).mul(sigma * sigma).to2DArray();
+    const reference = mlInverse(m.transpose().mmul(m))
+      .mul(sigma * sigma)
+      .to2DArray();
     const predicted = predictUnmixingNoise(zero).covariance;
     reference.forEach((row, i) => row.forEach((x, j) => expect(predicted[i][j]!).toBeCloseTo(x, 12)));
   });
@@ -48,10 +58,14 @@ describe('unmixing noise prediction', () => {
     const mc = simulateUnmixing(design, { draws: 40_000, seed: 12345 });
     // Standard error of a sample covariance from the same draws: √((m₂₂ − s²)/N) (large-sample theory of moments).
     mc.covariance!.forEach((row, i) =>
-      row.forEach((s, j) => expect(Math.abs(s - predicted[i][j]!)).toBeLessThan(4.5 * mc.covarianceStandardError![i][j])),
+      row.forEach((s, j) =>
+        expect(Math.abs(s - predicted[i][j]!)).toBeLessThan(4.5 * mc.covarianceStandardError![i][j]),
+      ),
     );
     // The unmixed mean is unbiased: within 4.5 standard errors of the true abundance.
-    mc.mean!.forEach((x, i) => expect(Math.abs(x - design.abundance[i])).toBeLessThan(4.5 * Math.sqrt(predicted[i][i]! / 40_000)));
+    mc.mean!.forEach((x, i) =>
+      expect(Math.abs(x - design.abundance[i])).toBeLessThan(4.5 * Math.sqrt(predicted[i][i]! / 40_000)),
+    );
   });
 
   it('simulateUnmixing with the same seed gives the same figures, and a different seed different ones', () => {
@@ -69,7 +83,14 @@ describe('unmixing noise prediction', () => {
   });
 
   it('predictUnmixingNoise spreading is 1 on the diagonal and 0 off it for perfectly separated probes (ideal detector)', () => {
-    const separated = predictUnmixingNoise({ mixingPhotons: [[500, 0], [0, 80], [0, 0]], abundance: [1, 1] });
+    const separated = predictUnmixingNoise({
+      mixingPhotons: [
+        [500, 0],
+        [0, 80],
+        [0, 0],
+      ],
+      abundance: [1, 1],
+    });
     expect(separated.spreading[0][0]).toBeCloseTo(1, 12);
     expect(separated.spreading[1][1]).toBeCloseTo(1, 12);
     expect(separated.spreading[0][1]).toBeCloseTo(0, 12);
@@ -90,7 +111,14 @@ describe('unmixing noise prediction', () => {
   });
 
   it('predictUnmixingNoise of a rank-deficient design gives nulls and a warning, never NaN', () => {
-    const result = predictUnmixingNoise({ mixingPhotons: [[1, 2], [2, 4], [3, 6]], abundance: [1, 1] });
+    const result = predictUnmixingNoise({
+      mixingPhotons: [
+        [1, 2],
+        [2, 4],
+        [3, 6],
+      ],
+      abundance: [1, 1],
+    });
     expect(result.covariance.flat().every((x) => x === null)).toBe(true);
     expect(result.warnings.join(' ')).toMatch(/linearly dependent/);
   });
@@ -99,13 +127,31 @@ describe('unmixing noise prediction', () => {
     [{ ...design, abundance: [1, -1, 0] }, ['abundance', 1]],
     [{ ...design, excessNoiseFactor: 0.5 }, ['excessNoiseFactor']],
     [{ ...design, backgroundPhotons: [1, 2] }, ['backgroundPhotons']],
-    [{ ...design, mixingPhotons: [[1, 2, 3], [1, Number.NaN, 3]] }, ['mixingPhotons', 1, 1]],
+    [
+      {
+        ...design,
+        mixingPhotons: [
+          [1, 2, 3],
+          [1, Number.NaN, 3],
+        ],
+      },
+      ['mixingPhotons', 1, 1],
+    ],
   ])('predictUnmixingNoise(bad input %#) throws invalid_input naming the field', (input, path) => {
-    expect(() => predictUnmixingNoise(input as NoiseInput)).toThrow(expect.objectContaining({ code: 'invalid_input', path }));
+    expect(() => predictUnmixingNoise(input as NoiseInput)).toThrow(
+      expect.objectContaining({ code: 'invalid_input', path }),
+    );
   });
 
   it('photonMixing scales each probe so its primary channel holds the stated photons', () => {
-    const m = photonMixing([[2, 0.1], [0.5, 4]], [0, 1], [1000, 300]);
+    const m = photonMixing(
+      [
+        [2, 0.1],
+        [0.5, 4],
+      ],
+      [0, 1],
+      [1000, 300],
+    );
     expect(m[0][0]).toBeCloseTo(1000, 9);
     expect(m[1][1]).toBeCloseTo(300, 9);
     expect(m[1][0] / m[0][0]).toBeCloseTo(0.25, 12);

@@ -42,52 +42,69 @@ describe('seeded random source', () => {
     expect(Math.abs(variance - 1)).toBeLessThan(5 * Math.sqrt(2 / n));
   });
 
-  it.each([0.5, 3, 9.9, 10, 37, 1000])('createRandom().poisson(%s) has mean and variance equal to the mean within 5 standard errors', (lambda) => {
-    const rng = createRandom(Math.round(lambda * 100));
-    const n = 100_000;
-    const { mean, variance } = moments(Array.from({ length: n }, () => rng.poisson(lambda)));
-    // Poisson: Var(x̄) = λ/n; Var(s²) ≈ (μ4 − λ²)/n with μ4 = λ(1 + 3λ).
-    expect(Math.abs(mean - lambda)).toBeLessThan(5 * Math.sqrt(lambda / n));
-    expect(Math.abs(variance - lambda)).toBeLessThan(5 * Math.sqrt((lambda * (1 + 3 * lambda) - lambda ** 2) / n));
-  });
+  it.each([0.5, 3, 9.9, 10, 37, 1000])(
+    'createRandom().poisson(%s) has mean and variance equal to the mean within 5 standard errors',
+    (lambda) => {
+      const rng = createRandom(Math.round(lambda * 100));
+      const n = 100_000;
+      const { mean, variance } = moments(Array.from({ length: n }, () => rng.poisson(lambda)));
+      // Poisson: Var(x̄) = λ/n; Var(s²) ≈ (μ4 − λ²)/n with μ4 = λ(1 + 3λ).
+      expect(Math.abs(mean - lambda)).toBeLessThan(5 * Math.sqrt(lambda / n));
+      expect(Math.abs(variance - lambda)).toBeLessThan(5 * Math.sqrt((lambda * (1 + 3 * lambda) - lambda ** 2) / n));
+    },
+  );
 
-  it.each([4, 10, 30, 100])('createRandom().poisson(%s) histogram passes a chi-square test against the exact pmf (99.9 % level)', (lambda) => {
-    const rng = createRandom(2024 + lambda);
-    const n = 100_000;
-    const counts = new Map<number, number>();
-    for (let i = 0; i < n; i++) {
-      const k = rng.poisson(lambda);
-      counts.set(k, (counts.get(k) ?? 0) + 1);
-    }
-    // Bins with expectation ≥ 5; the tails pooled into the two end bins.
-    const lo = Math.max(0, Math.floor(lambda - 4 * Math.sqrt(lambda)));
-    const hi = Math.ceil(lambda + 4 * Math.sqrt(lambda));
-    let chi2 = 0;
-    let bins = 0;
-    let pLow = 0;
-    for (let k = 0; k < lo; k++) pLow += poissonPmf(k, lambda);
-    let pHigh = 1 - pLow;
-    for (let k = lo; k <= hi; k++) pHigh -= poissonPmf(k, lambda);
-    const observe = (observed: number, p: number) => {
-      if (n * p < 5) return;
-      chi2 += (observed - n * p) ** 2 / (n * p);
-      bins++;
-    };
-    observe([...counts].filter(([k]) => k < lo).reduce((s, [, c]) => s + c, 0), pLow);
-    for (let k = lo; k <= hi; k++) observe(counts.get(k) ?? 0, poissonPmf(k, lambda));
-    observe([...counts].filter(([k]) => k > hi).reduce((s, [, c]) => s + c, 0), pHigh);
-    // 99.9 % point of chi-square with ν dof, Wilson–Hilferty approximation (Wilson & Hilferty, PNAS 1931).
-    const nu = bins - 1;
-    const critical = nu * (1 - 2 / (9 * nu) + 3.0902 * Math.sqrt(2 / (9 * nu))) ** 3;
-    expect(chi2).toBeLessThan(critical);
-  });
+  it.each([4, 10, 30, 100])(
+    'createRandom().poisson(%s) histogram passes a chi-square test against the exact pmf (99.9 % level)',
+    (lambda) => {
+      const rng = createRandom(2024 + lambda);
+      const n = 100_000;
+      const counts = new Map<number, number>();
+      for (let i = 0; i < n; i++) {
+        const k = rng.poisson(lambda);
+        counts.set(k, (counts.get(k) ?? 0) + 1);
+      }
+      // Bins with expectation ≥ 5; the tails pooled into the two end bins.
+      const lo = Math.max(0, Math.floor(lambda - 4 * Math.sqrt(lambda)));
+      const hi = Math.ceil(lambda + 4 * Math.sqrt(lambda));
+      let chi2 = 0;
+      let bins = 0;
+      let pLow = 0;
+      for (let k = 0; k < lo; k++) pLow += poissonPmf(k, lambda);
+      let pHigh = 1 - pLow;
+      for (let k = lo; k <= hi; k++) pHigh -= poissonPmf(k, lambda);
+      const observe = (observed: number, p: number) => {
+        if (n * p < 5) return;
+        chi2 += (observed - n * p) ** 2 / (n * p);
+        bins++;
+      };
+      observe(
+        [...counts].filter(([k]) => k < lo).reduce((s, [, c]) => s + c, 0),
+        pLow,
+      );
+      for (let k = lo; k <= hi; k++) observe(counts.get(k) ?? 0, poissonPmf(k, lambda));
+      observe(
+        [...counts].filter(([k]) => k > hi).reduce((s, [, c]) => s + c, 0),
+        pHigh,
+      );
+      // 99.9 % point of chi-square with ν dof, Wilson–Hilferty approximation (Wilson & Hilferty, PNAS 1931).
+      const nu = bins - 1;
+      const critical = nu * (1 - 2 / (9 * nu) + 3.0902 * Math.sqrt(2 / (9 * nu))) ** 3;
+      expect(chi2).toBeLessThan(critical);
+    },
+  );
 
-  it.each([0, 1, 5, 20, 255, 256, 1000, 1e6])('logFactorial(%s) matches mathjs lgamma(k + 1) to 1e-12 relative', (k) => {
-    const expected = lgamma(k + 1);
-    expect(Math.abs(logFactorial(k) - expected)).toBeLessThanOrEqual(1e-12 * Math.max(1, Math.abs(expected)));
-  });
+  it.each([0, 1, 5, 20, 255, 256, 1000, 1e6])(
+    'logFactorial(%s) matches mathjs lgamma(k + 1) to 1e-12 relative',
+    (k) => {
+      const expected = lgamma(k + 1);
+      expect(Math.abs(logFactorial(k) - expected)).toBeLessThanOrEqual(1e-12 * Math.max(1, Math.abs(expected)));
+    },
+  );
 
   it('createRandom(1).poisson(-1) throws invalid_input naming mean', () => {
-    expect(() => createRandom(1).poisson(-1)).toThrow(expect.objectContaining({ code: 'invalid_input', path: ['mean'] }));
+    expect(() => createRandom(1).poisson(-1)).toThrow(
+      expect.objectContaining({ code: 'invalid_input', path: ['mean'] }),
+    );
   });
 });

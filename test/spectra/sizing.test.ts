@@ -1,7 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import {
-  SpectraError, diameterForEmissionPeakNm, emissionPeakForDiameterNm, emissionRangeForMaterialNm, firstExcitonNmForDiameter,
-  listMaterials, resolveDot, type MaterialId,
+  SpectraError,
+  diameterForEmissionPeakNm,
+  emissionPeakForDiameterNm,
+  emissionRangeForMaterialNm,
+  firstExcitonNmForDiameter,
+  listMaterials,
+  resolveDot,
+  type MaterialId,
 } from '../../spectra/index';
 
 // Yu, Qu, Guo, Peng, Chem. Mater. 2003, 15, 2854: D(λ) polynomials and ε = A·D^k, written out here independently of
@@ -11,12 +17,21 @@ const paperD = {
   cdse: (l: number) => 1.6122e-9 * l ** 4 - 2.6575e-6 * l ** 3 + 1.6242e-3 * l ** 2 - 0.4277 * l + 41.57,
   cds: (l: number) => -6.6521e-8 * l ** 3 + 1.9557e-4 * l ** 2 - 9.2352e-2 * l + 13.29,
 };
-const paperEps = { cdte: (d: number) => 10043 * d ** 2.12, cdse: (d: number) => 5857 * d ** 2.65, cds: (d: number) => 21536 * d ** 2.3 };
+const paperEps = {
+  cdte: (d: number) => 10043 * d ** 2.12,
+  cdse: (d: number) => 5857 * d ** 2.65,
+  cds: (d: number) => 21536 * d ** 2.3,
+};
 const sizes = { cdse: [1.5, 2, 3, 4, 5, 6, 7, 8], cdte: [2, 3, 3.5, 4, 5, 6, 7], cds: [1.5, 2, 3, 4, 5, 5.5] };
 const SIZED: MaterialId[] = ['cdse', 'cdte', 'cds', 'inp', 'gaas', 'cspbbr3'];
 
 function catchError(fn: () => unknown): SpectraError {
-  try { fn(); } catch (err) { if (err instanceof SpectraError) return err; throw err; }
+  try {
+    fn();
+  } catch (err) {
+    if (err instanceof SpectraError) return err;
+    throw err;
+  }
   throw new Error('expected a SpectraError');
 }
 
@@ -25,10 +40,13 @@ describe('Yu–Qu–Guo–Peng 2003 curves', () => {
     it.each(sizes[m])(`firstExcitonNmForDiameter('${m}', %s nm) satisfies the paper's D(λ) to 1e-6 nm`, (d) => {
       expect(Math.abs(paperD[m](firstExcitonNmForDiameter(m, d)) - d)).toBeLessThan(1e-6);
     });
-    it.each(sizes[m])(`resolveDot(${m}, %s nm).extinctionFirstExciton equals the paper's power law to 1e-9 relative`, (d) => {
-      const dot = resolveDot({ material: m, diameterNm: d });
-      expect(Math.abs(dot.extinctionFirstExciton! / paperEps[m](d) - 1)).toBeLessThan(1e-9);
-    });
+    it.each(sizes[m])(
+      `resolveDot(${m}, %s nm).extinctionFirstExciton equals the paper's power law to 1e-9 relative`,
+      (d) => {
+        const dot = resolveDot({ material: m, diameterNm: d });
+        expect(Math.abs(dot.extinctionFirstExciton! / paperEps[m](d) - 1)).toBeLessThan(1e-9);
+      },
+    );
   }
 
   it('firstExcitonNmForDiameter(cdte) jumps by over 40 nm between 3.3 and 3.8 nm, where the published curve is nearly flat in D', () => {
@@ -56,8 +74,10 @@ describe('size ↔ emission peak', () => {
   });
 
   it('emissionPeakForDiameterNm(cdse, d) − firstExcitonNmForDiameter lies in 10–25 nm and shrinks with size (Stokes shift, from memory)', () => {
-    const shifts = [2, 3, 4, 5, 6, 7, 8].map((d) => emissionPeakForDiameterNm('cdse', d) - firstExcitonNmForDiameter('cdse', d));
-    for (const s of shifts) expect(s).toBeGreaterThanOrEqual(10), expect(s).toBeLessThanOrEqual(25);
+    const shifts = [2, 3, 4, 5, 6, 7, 8].map(
+      (d) => emissionPeakForDiameterNm('cdse', d) - firstExcitonNmForDiameter('cdse', d),
+    );
+    for (const s of shifts) (expect(s).toBeGreaterThanOrEqual(10), expect(s).toBeLessThanOrEqual(25));
     expect(shifts[0]).toBeGreaterThan(shifts[shifts.length - 1]);
   });
 

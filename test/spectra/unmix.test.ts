@@ -5,7 +5,8 @@ import { SpectraError, conditionNumber, noiseAmplification, unmixLeastSquares, u
 
 function randomMatrix(rows: number, cols: number, seed: number, positive = false): number[][] {
   let state = seed >>> 0;
-  const next = () => ((state = (Math.imul(state, 1664525) + 1013904223) >>> 0) / 2 ** 32) * (positive ? 1 : 2) - (positive ? 0 : 1);
+  const next = () =>
+    ((state = (Math.imul(state, 1664525) + 1013904223) >>> 0) / 2 ** 32) * (positive ? 1 : 2) - (positive ? 0 : 1);
   return Array.from({ length: rows }, () => Array.from({ length: cols }, next));
 }
 
@@ -17,7 +18,12 @@ const normalised = (m: number[][]) => {
 describe('conditionNumber and noiseAmplification', () => {
   // Independent reference: ml-matrix SVD `condition` (σmax/σmin) of the column-normalised matrix.
   it('conditionNumber(M) matches ml-matrix SVD condition of the column-normalised M', () => {
-    for (const [r, c, seed] of [[8, 8, 1], [32, 8, 2], [64, 16, 3], [4, 2, 4]]) {
+    for (const [r, c, seed] of [
+      [8, 8, 1],
+      [32, 8, 2],
+      [64, 16, 3],
+      [4, 2, 4],
+    ]) {
       const m = randomMatrix(r, c, seed, true);
       const ref = new SVD(new Matrix(normalised(m))).condition;
       expect(Math.abs(conditionNumber(m)! - ref) / ref).toBeLessThan(1e-10);
@@ -39,7 +45,11 @@ describe('conditionNumber and noiseAmplification', () => {
   // Derived by hand: unit columns at cosine c give NᵀN = [[1, c], [c, 1]], eigenvalues 1 ± c, (NᵀN)⁻¹jj = 1/(1 − c²).
   it('conditionNumber and noiseAmplification of two unit signatures at cosine c are √((1+c)/(1−c)) and 1/√(1−c²)', () => {
     for (const c of [0, 0.3, 0.9, 0.999]) {
-      const m = [[1, c], [0, Math.sqrt(1 - c * c)], [0, 0]].map((row) => row.map((v) => v * 7));
+      const m = [
+        [1, c],
+        [0, Math.sqrt(1 - c * c)],
+        [0, 0],
+      ].map((row) => row.map((v) => v * 7));
       expect(conditionNumber(m)!).toBeCloseTo(Math.sqrt((1 + c) / (1 - c)), 9);
       for (const g of noiseAmplification(m)) expect(g!).toBeCloseTo(1 / Math.sqrt(1 - c * c), 9);
     }
@@ -48,10 +58,16 @@ describe('conditionNumber and noiseAmplification', () => {
   // Same closed form far into the ill-conditioned range (κ ≈ 1.4e4 and 1.4e6), where the Gram route is not trusted.
   it('conditionNumber of two nearly parallel unit signatures keeps the closed form √((1+c)/(1−c)) to 1e-6', () => {
     for (const c of [1 - 1e-8, 1 - 1e-12]) {
-      const m = [[1, c], [0, Math.sqrt((1 - c) * (1 + c))], [0, 0]];
+      const m = [
+        [1, c],
+        [0, Math.sqrt((1 - c) * (1 + c))],
+        [0, 0],
+      ];
       const expected = Math.sqrt((1 + c) / (1 - c));
       expect(Math.abs(conditionNumber(m)! - expected) / expected).toBeLessThan(1e-6);
-      expect(Math.abs(noiseAmplification(m)[0]! - 1 / Math.sqrt((1 - c) * (1 + c))) * Math.sqrt((1 - c) * (1 + c))).toBeLessThan(1e-6);
+      expect(
+        Math.abs(noiseAmplification(m)[0]! - 1 / Math.sqrt((1 - c) * (1 + c))) * Math.sqrt((1 - c) * (1 + c)),
+      ).toBeLessThan(1e-6);
     }
   });
 
@@ -90,7 +106,13 @@ describe('unmixLeastSquares', () => {
 
   it('unmixLeastSquares rejects a y of the wrong length naming the field', () => {
     try {
-      unmixLeastSquares([[1, 0], [0, 1]], [1]);
+      unmixLeastSquares(
+        [
+          [1, 0],
+          [0, 1],
+        ],
+        [1],
+      );
       expect.unreachable();
     } catch (err) {
       expect((err as SpectraError).path).toEqual(['y']);
@@ -129,7 +151,12 @@ describe('unmixNnls', () => {
 
   // Reference value from the ml-fcnnls README example: K ≈ [0.4610, 0.5611, 0].
   it('unmixNnls reproduces the ml-fcnnls README example to 4 decimals', () => {
-    const x = [[1, 1, 2], [10, 11, -9], [-1, 0, 0], [-5, 6, -7]];
+    const x = [
+      [1, 1, 2],
+      [10, 11, -9],
+      [-1, 0, 0],
+      [-5, 6, -7],
+    ];
     const k = unmixNnls(x, [-1, 11, 0, 1]).abundances as number[];
     expect(k[0]).toBeCloseTo(0.461, 3);
     expect(k[1]).toBeCloseTo(0.5611, 4);
@@ -139,9 +166,16 @@ describe('unmixNnls', () => {
   // Checked by hand: least squares gives x = (5/3, −1/3); NNLS gives x = (3/2, 0). KKT: r = y − A x = (½, −½, −1),
   // w = Aᵀr = (0, −½): zero gradient on the free variable, negative on the one held at zero.
   it('unmixNnls([[1,1],[1,0],[0,1]], [2,1,−1]) is (3/2, 0), satisfying the KKT conditions', () => {
-    const a = [[1, 1], [1, 0], [0, 1]];
+    const a = [
+      [1, 1],
+      [1, 0],
+      [0, 1],
+    ];
     const y = [2, 1, -1];
-    expect(unmixLeastSquares(a, y).abundances.map((v) => v!)).toEqual([expect.closeTo(5 / 3, 12), expect.closeTo(-1 / 3, 12)]);
+    expect(unmixLeastSquares(a, y).abundances.map((v) => v!)).toEqual([
+      expect.closeTo(5 / 3, 12),
+      expect.closeTo(-1 / 3, 12),
+    ]);
     const x = unmixNnls(a, y).abundances as number[];
     expect(x[0]).toBeCloseTo(1.5, 12);
     expect(x[1]).toBe(0);

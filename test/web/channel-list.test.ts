@@ -8,13 +8,28 @@ import { demoPanel } from '../../web/demo-panel';
 afterEach(() => document.body.replaceChildren());
 
 type Updating = HTMLElement & { updateComplete: Promise<unknown> };
-type Card = Updating & { channel: ChannelSpec; index: number; lines: number[]; detectors: { id: string; name: string }[]; errors: Record<string, string> };
+type Card = Updating & {
+  channel: ChannelSpec;
+  index: number;
+  lines: number[];
+  detectors: { id: string; name: string }[];
+  errors: Record<string, string>;
+};
 type Field = Updating & { label: string };
 
 /** A small invented panel with `n` 20 nm bandpass channels, centres 20 nm apart from 520 nm, under 405 and 488 nm. */
 function panelWithChannels(n: number): PanelSpec {
-  const channels: ChannelSpec[] = Array.from({ length: n }, (_, i) => ({ id: `c${i + 1}`, label: `Band ${i + 1}`, filters: [{ type: 'bandpass', centerNm: 520 + 20 * i, widthNm: 20 }] }));
-  return { version: 1, excitation: [{ wavelengthNm: 405 }, { wavelengthNm: 488 }], probes: [{ id: 'p1', material: 'cdse', emissionPeakNm: 605 }], channels };
+  const channels: ChannelSpec[] = Array.from({ length: n }, (_, i) => ({
+    id: `c${i + 1}`,
+    label: `Band ${i + 1}`,
+    filters: [{ type: 'bandpass', centerNm: 520 + 20 * i, widthNm: 20 }],
+  }));
+  return {
+    version: 1,
+    excitation: [{ wavelengthNm: 405 }, { wavelengthNm: 488 }],
+    probes: [{ id: 'p1', material: 'cdse', emissionPeakNm: 605 }],
+    channels,
+  };
 }
 
 async function mount(panel: PanelSpec, setup: (el: HTMLElementTagNameMap['qdp-channel-list']) => void = () => {}) {
@@ -27,12 +42,15 @@ async function mount(panel: PanelSpec, setup: (el: HTMLElementTagNameMap['qdp-ch
 }
 
 const cards = (el: HTMLElement) => [...el.shadowRoot!.querySelectorAll('qdp-channel-card')] as Card[];
-const button = (el: HTMLElement, start: string) => [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.trim().startsWith(start))!;
+const button = (el: HTMLElement, start: string) =>
+  [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.trim().startsWith(start))!;
 const runButton = (el: HTMLElement) => el.shadowRoot!.querySelector('fieldset button') as HTMLButtonElement;
 
 /** Types into the run field labelled `label`, as a keyboard user would, and waits for the list to re-render. */
 async function typeRun(el: Updating, label: string, text: string): Promise<void> {
-  const field = [...el.shadowRoot!.querySelectorAll('qdp-number-field')].find((f) => (f as Field).label === label) as Field;
+  const field = [...el.shadowRoot!.querySelectorAll('qdp-number-field')].find(
+    (f) => (f as Field).label === label,
+  ) as Field;
   await field.updateComplete;
   const input = field.shadowRoot!.querySelector('input')!;
   input.value = text;
@@ -41,7 +59,7 @@ async function typeRun(el: Updating, label: string, text: string): Promise<void>
 }
 
 describe('<qdp-channel-list>', () => {
-  it('<qdp-channel-list> renders one card per channel of the demo panel, in order, with the panel\'s excitation lines', async () => {
+  it("<qdp-channel-list> renders one card per channel of the demo panel, in order, with the panel's excitation lines", async () => {
     const panel = demoPanel();
     const el = await mount(panel);
     const shown = cards(el);
@@ -59,7 +77,11 @@ describe('<qdp-channel-list>', () => {
     await el.updateComplete;
     const shown = cards(el);
     expect(shown.map((c) => c.channel.label)).toEqual(['Band 1', 'Band 2', 'Band 3']);
-    expect(shown.map((c) => c.lines)).toEqual([[405, 488], [405, 488], [405, 488]]);
+    expect(shown.map((c) => c.lines)).toEqual([
+      [405, 488],
+      [405, 488],
+      [405, 488],
+    ]);
     expect(shown[2].detectors).toEqual([{ id: 'det-a', name: 'Invented detector A' }]);
     expect(shown.map((c) => c.errors)).toEqual([{}, {}, { 'filters.0.widthNm': 'widthNm must be positive' }]);
   });
@@ -73,7 +95,7 @@ describe('<qdp-channel-list>', () => {
     expect(seen[0].composed).toBe(true);
   });
 
-  it('<qdp-channel-list> lets a card\'s channel-remove bubble out with that card\'s index, read by its keyboard label', async () => {
+  it("<qdp-channel-list> lets a card's channel-remove bubble out with that card's index, read by its keyboard label", async () => {
     const el = await mount(panelWithChannels(3));
     const removed: number[] = [];
     el.addEventListener('channel-remove', (e) => removed.push((e as CustomEvent<{ index: number }>).detail.index));
@@ -95,7 +117,7 @@ describe('<qdp-channel-list>', () => {
     expect(runs).toEqual([{ startNm: 500, bins: 8, binWidthNm: 12.5 }]);
   });
 
-  it('<qdp-channel-list> turns the run off when it would start below 200 nm or end beyond 2000 nm (the API\'s range)', async () => {
+  it("<qdp-channel-list> turns the run off when it would start below 200 nm or end beyond 2000 nm (the API's range)", async () => {
     const el = await mount(panelWithChannels(2));
     await typeRun(el, 'Bins', '16');
     await typeRun(el, 'Bin width', '10');
@@ -107,14 +129,18 @@ describe('<qdp-channel-list>', () => {
     expect(runButton(el).disabled).toBe(false);
   });
 
-  it('<qdp-channel-list> labels the run\'s fields for keyboard users inside a legend-named group', async () => {
+  it("<qdp-channel-list> labels the run's fields for keyboard users inside a legend-named group", async () => {
     const el = await mount(panelWithChannels(1));
     expect(el.shadowRoot!.querySelector('fieldset > legend')!.textContent).toBe('Add a spectral detector run');
     const fields = [...el.shadowRoot!.querySelectorAll('fieldset qdp-number-field')] as Field[];
     await Promise.all(fields.map((f) => f.updateComplete));
     // Each input sits inside its <label>, so its accessible name is the label text.
     expect(fields.map((f) => f.shadowRoot!.querySelector('label > input') !== null)).toEqual([true, true, true]);
-    expect(fields.map((f) => f.shadowRoot!.querySelector('label')!.textContent!.trim())).toEqual(['From (nm)', 'Bins', 'Bin width (nm)']);
+    expect(fields.map((f) => f.shadowRoot!.querySelector('label')!.textContent!.trim())).toEqual([
+      'From (nm)',
+      'Bins',
+      'Bin width (nm)',
+    ]);
   });
 
   it('<qdp-channel-list> disables the run for a fractional or zero bin count and for a zero bin width', async () => {

@@ -6,11 +6,26 @@ import { computePanel } from '../../web/compute';
 import { cellLightness, formatFraction, shadeOf, type CrosstalkView } from '../../web/crosstalk-view';
 
 const view: CrosstalkView = {
-  probes: [{ id: 'p1', label: 'Green dot' }, { id: 'p2', label: 'Orange dot' }],
-  channels: [{ id: 'c1', label: 'Green' }, { id: 'c2', label: 'Orange' }],
-  interference: [[1, 0.031], [0.00002, 1]],
-  spillover: [[1, 0.00002], [0.031, 1]],
-  belowResolution: [[false, true], [false, false]],
+  probes: [
+    { id: 'p1', label: 'Green dot' },
+    { id: 'p2', label: 'Orange dot' },
+  ],
+  channels: [
+    { id: 'c1', label: 'Green' },
+    { id: 'c2', label: 'Orange' },
+  ],
+  interference: [
+    [1, 0.031],
+    [0.00002, 1],
+  ],
+  spillover: [
+    [1, 0.00002],
+    [0.031, 1],
+  ],
+  belowResolution: [
+    [false, true],
+    [false, false],
+  ],
   primaryChannel: [0, 1],
   noiseAmplification: [1.04, 2.31],
   conditionNumber: 1.07,
@@ -50,7 +65,9 @@ describe('<qdp-crosstalk-table>', () => {
     const cells = [...el.shadowRoot!.querySelectorAll('td')];
     expect(cells.every((c) => !c.hasAttribute('style'))).toBe(true);
     const big = cells.find((c) => c.textContent === '3.1 %')!;
-    expect(getComputedStyle(big).backgroundColor).not.toBe(getComputedStyle(cells.find((c) => c.textContent === '< 0.1 %')!).backgroundColor);
+    expect(getComputedStyle(big).backgroundColor).not.toBe(
+      getComputedStyle(cells.find((c) => c.textContent === '< 0.1 %')!).backgroundColor,
+    );
   });
 
   it('renders the worst pair in words and every value as text', async () => {
@@ -77,7 +94,14 @@ describe('<qdp-crosstalk-table>', () => {
   it('shows a spectral run of 16 channels as 16 rows with compact cells', async () => {
     const channels = Array.from({ length: 16 }, (_, i) => ({ id: `c${i + 1}`, label: `bin ${500 + 10 * i}` }));
     const spill = channels.map((_, i) => [i === 2 ? 1 : 0.01, i === 9 ? 1 : 0.0001]);
-    const el = await mount({ ...view, channels, spillover: spill, belowResolution: spill.map((r) => r.map((v) => v < 0.001)), primaryChannel: [2, 9], signalToBackground: undefined });
+    const el = await mount({
+      ...view,
+      channels,
+      spillover: spill,
+      belowResolution: spill.map((r) => r.map((v) => v < 0.001)),
+      primaryChannel: [2, 9],
+      signalToBackground: undefined,
+    });
     const table = el.shadowRoot!.querySelector('table[aria-label="Spillover by channel"]')!;
     expect(table.classList.contains('many')).toBe(true);
     expect(table.querySelectorAll('tbody tr').length).toBe(16);
@@ -86,7 +110,8 @@ describe('<qdp-crosstalk-table>', () => {
   it('computePanel shows a larger shot-noise factor for a dim target whose channel a bright probe bleeds into, as predictUnmixingNoise gives', async () => {
     // Invented two-dot panel: a bright orange dot whose red tail lands in a dim red dot's channel.
     const panel: PanelSpec = {
-      version: 1, excitation: [{ wavelengthNm: 405, powerRel: 1 }],
+      version: 1,
+      excitation: [{ wavelengthNm: 405, powerRel: 1 }],
       probes: [
         { id: 'b', label: 'Bright dot', material: 'cdse', emissionPeakNm: 605, quantumYield: 0.5, abundance: 1 },
         { id: 'd', label: 'Dim dot', material: 'cdse', emissionPeakNm: 635, quantumYield: 0.5, abundance: 0.05 },
@@ -104,14 +129,20 @@ describe('<qdp-crosstalk-table>', () => {
     const prim = ev.primaryChannel as number[];
     const own = prim.map((c, p) => a[p] * ev.collected[c][p]);
     const k = 1000 / Math.max(...own);
-    const direct = predictUnmixingNoise({ mixingPhotons: ev.collected.map((r) => r.map((x) => x * k)), abundance: a, primaryChannel: prim });
-    const factor = direct.sd.map((s, p) => (s! / a[p]) / (Math.sqrt(own[p] * k) / (own[p] * k)));
+    const direct = predictUnmixingNoise({
+      mixingPhotons: ev.collected.map((r) => r.map((x) => x * k)),
+      abundance: a,
+      primaryChannel: prim,
+    });
+    const factor = direct.sd.map((s, p) => s! / a[p] / (Math.sqrt(own[p] * k) / (own[p] * k)));
     expect(crosstalk.shotNoise!.factor[1]!).toBeCloseTo(factor[1], 9);
     expect(crosstalk.shotNoise!.relativeSd[0]!).toBeCloseTo(direct.sd[0]!, 9);
     expect(crosstalk.shotNoise!.factor[1]!).toBeGreaterThan(crosstalk.shotNoise!.factor[0]! * 1.2);
     const el = await mount(crosstalk);
     const lines = [...el.shadowRoot!.querySelectorAll('li span.shot')].map((n) => n.textContent!);
-    expect(lines[1]).toContain(`With shot noise (1,000 photons for the brightest target): SD ${Number((direct.sd[1]! / a[1]).toPrecision(2))} of its signal, ${factor[1].toFixed(1)}× the SD it would have alone`);
+    expect(lines[1]).toContain(
+      `With shot noise (1,000 photons for the brightest target): SD ${Number((direct.sd[1]! / a[1]).toPrecision(2))} of its signal, ${factor[1].toFixed(1)}× the SD it would have alone`,
+    );
     expect(el.shadowRoot!.querySelector('p.shot-note')!.textContent).toContain('nominal');
   });
 });

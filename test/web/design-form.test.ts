@@ -30,7 +30,8 @@ describe('<qdp-design-form>', () => {
     const el = await mount();
     const text = el.shadowRoot!.textContent!;
     expect(el.shadowRoot!.querySelectorAll('input[aria-label="target name"]')).toHaveLength(2);
-    for (const label of ['cadmium-free', 'lead-free', 'arsenic-free', 'Window, nm', 'Excitation lines']) expect(text).toContain(label);
+    for (const label of ['cadmium-free', 'lead-free', 'arsenic-free', 'Window, nm', 'Excitation lines'])
+      expect(text).toContain(label);
     expect(text).toContain('local regulations, institutional safety rules and licensed practice');
     expect(text).not.toMatch(/\bsafe\b/i);
   });

@@ -51,12 +51,22 @@ describe('editors', () => {
     const probe: ProbeSpec = { id: 'p1', label: 'Orange', material: 'cdse', emissionPeakNm: 605 };
     el.probe = probe;
     el.materials = listMaterials();
-    el.prediction = { diameterNm: 4.9, firstExcitonNm: 590, emissionPeakNm: 605, fwhmNm: 29, relativeBrightness: 0.5, measured: false, warnings: [] };
+    el.prediction = {
+      diameterNm: 4.9,
+      firstExcitonNm: 590,
+      emissionPeakNm: 605,
+      fwhmNm: 29,
+      relativeBrightness: 0.5,
+      measured: false,
+      warnings: [],
+    };
     document.body.appendChild(el);
     await el.updateComplete;
     const changes: ProbeSpec[] = [];
     el.addEventListener('probe-change', (e) => changes.push((e as CustomEvent<{ probe: ProbeSpec }>).detail.probe));
-    const field = el.shadowRoot!.querySelector('qdp-number-field[data-field="emissionPeakNm"]') as HTMLElement & { updateComplete: Promise<unknown> };
+    const field = el.shadowRoot!.querySelector('qdp-number-field[data-field="emissionPeakNm"]') as HTMLElement & {
+      updateComplete: Promise<unknown>;
+    };
     await field.updateComplete;
     typeInto(field.shadowRoot!.querySelector('input')!, '615');
     expect(changes).toEqual([{ ...probe, emissionPeakNm: 615 }]);
@@ -64,7 +74,7 @@ describe('editors', () => {
     expect(el.shadowRoot!.textContent).toContain('emission peak 605 nm · FWHM 29 nm');
   });
 
-  it('<qdp-probe-card> shows its material\'s hazard level, notes and cautions beside the probe, never calling it safe', async () => {
+  it("<qdp-probe-card> shows its material's hazard level, notes and cautions beside the probe, never calling it safe", async () => {
     const el = document.createElement('qdp-probe-card');
     el.probe = { id: 'p1', label: 'Orange', material: 'cdse', emissionPeakNm: 605 };
     el.materials = listMaterials();
@@ -81,14 +91,22 @@ describe('editors', () => {
 
   it('<qdp-channel-card> fires channel-change with the new bandpass width', async () => {
     const el = document.createElement('qdp-channel-card');
-    const channel: ChannelSpec = { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] };
+    const channel: ChannelSpec = {
+      id: 'c1',
+      label: 'Orange',
+      filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }],
+    };
     el.channel = channel;
     el.lines = [405];
     document.body.appendChild(el);
     await el.updateComplete;
     const changes: ChannelSpec[] = [];
-    el.addEventListener('channel-change', (e) => changes.push((e as CustomEvent<{ channel: ChannelSpec }>).detail.channel));
-    const field = el.shadowRoot!.querySelector('qdp-number-field[data-field="filters.0.widthNm"]') as HTMLElement & { updateComplete: Promise<unknown> };
+    el.addEventListener('channel-change', (e) =>
+      changes.push((e as CustomEvent<{ channel: ChannelSpec }>).detail.channel),
+    );
+    const field = el.shadowRoot!.querySelector('qdp-number-field[data-field="filters.0.widthNm"]') as HTMLElement & {
+      updateComplete: Promise<unknown>;
+    };
     await field.updateComplete;
     typeInto(field.shadowRoot!.querySelector('input')!, '30');
     expect(changes[0].filters[0]).toEqual({ type: 'bandpass', centerNm: 605, widthNm: 30 });

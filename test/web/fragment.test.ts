@@ -25,8 +25,14 @@ describe('URL fragment', () => {
   });
 
   it('encodeFragment(state) thins a 2,000-point measured spectrum to 200 points', () => {
-    const points: [number, number][] = Array.from({ length: 2000 }, (_, i) => [400 + i * 0.2, Math.exp(-(((i - 1000) / 300) ** 2))]);
-    const big: PageState = { ...state, panel: { ...state.panel, probes: [{ id: 'p1', material: 'custom', measuredEmission: { points } }] } };
+    const points: [number, number][] = Array.from({ length: 2000 }, (_, i) => [
+      400 + i * 0.2,
+      Math.exp(-(((i - 1000) / 300) ** 2)),
+    ]);
+    const big: PageState = {
+      ...state,
+      panel: { ...state.panel, probes: [{ id: 'p1', material: 'custom', measuredEmission: { points } }] },
+    };
     const back = decodeFragment(encodeFragment(big)) as PageState;
     const thin = back.panel.probes[0].measuredEmission!.points;
     expect(thin.length).toBe(200);

@@ -42,7 +42,9 @@ describe('<qdp-light-editor>', () => {
 
   it('<qdp-light-editor> sends a typed background level and a pasted measured background in panel-edit', async () => {
     const { el, edits } = await mountEditor({ ...demoPanel(), background: { level: 0.1 } });
-    const level = [...el.shadowRoot!.querySelectorAll('qdp-number-field')].find((f) => (f as unknown as { label: string }).label === 'Background level') as Updating;
+    const level = [...el.shadowRoot!.querySelectorAll('qdp-number-field')].find(
+      (f) => (f as unknown as { label: string }).label === 'Background level',
+    ) as Updating;
     await level.updateComplete;
     const input = level.shadowRoot!.querySelector('input')!;
     input.value = '0.4';
@@ -51,12 +53,22 @@ describe('<qdp-light-editor>', () => {
     const spectrum = el.shadowRoot!.querySelector('qdp-spectrum-input') as Updating;
     await spectrum.updateComplete;
     paste(spectrum, '450,0.1\n500,1\n550,0.5\n600,0.1');
-    expect(edits.at(-1)?.background).toEqual({ level: 0.1, points: [[450, 0.1], [500, 1], [550, 0.5], [600, 0.1]] });
+    expect(edits.at(-1)?.background).toEqual({
+      level: 0.1,
+      points: [
+        [450, 0.1],
+        [500, 1],
+        [550, 0.5],
+        [600, 0.1],
+      ],
+    });
   });
 
   it('<qdp-light-editor> adds a second excitation line and then offers to remove either', async () => {
     const { el, edits } = await mountEditor(demoPanel());
-    const add = [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent?.includes('Add excitation line'))!;
+    const add = [...el.shadowRoot!.querySelectorAll('button')].find((b) =>
+      b.textContent?.includes('Add excitation line'),
+    )!;
     add.click();
     expect(edits.at(-1)?.excitation.map((l) => l.wavelengthNm)).toEqual([405, 488]);
     el.panel = edits.at(-1)!;
@@ -73,7 +85,9 @@ describe('<qdp-spectrum-input>', () => {
     document.body.appendChild(el);
     await el.updateComplete;
     const loaded: SpectrumPoints[] = [];
-    el.addEventListener('spectrum-loaded', (e) => loaded.push((e as CustomEvent<{ points: SpectrumPoints }>).detail.points));
+    el.addEventListener('spectrum-loaded', (e) =>
+      loaded.push((e as CustomEvent<{ points: SpectrumPoints }>).detail.points),
+    );
     return { el, loaded };
   }
 
@@ -81,7 +95,13 @@ describe('<qdp-spectrum-input>', () => {
     const { el, loaded } = await mountInput();
     paste(el, 'nm,T %\n500,0\n600,90\n700,0');
     await el.updateComplete;
-    expect(loaded).toEqual([[[500, 0], [600, 0.9], [700, 0]]]);
+    expect(loaded).toEqual([
+      [
+        [500, 0],
+        [600, 0.9],
+        [700, 0],
+      ],
+    ]);
     expect(el.shadowRoot!.querySelector('[role="status"]')!.textContent).toContain('Loaded 3 points');
   });
 

@@ -26,7 +26,10 @@ afterEach(() => {
   document.body.replaceChildren();
 });
 
-async function mount(panel: PanelSpec | undefined, setup: (el: HTMLElementTagNameMap['qdp-panel-actions']) => void = () => {}) {
+async function mount(
+  panel: PanelSpec | undefined,
+  setup: (el: HTMLElementTagNameMap['qdp-panel-actions']) => void = () => {},
+) {
   const el = document.createElement('qdp-panel-actions');
   el.panel = panel;
   setup(el);
@@ -35,7 +38,8 @@ async function mount(panel: PanelSpec | undefined, setup: (el: HTMLElementTagNam
   return el;
 }
 
-const button = (el: HTMLElement, start: string) => [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.startsWith(start))!;
+const button = (el: HTMLElement, start: string) =>
+  [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.startsWith(start))!;
 const panelButtons = (el: HTMLElement) => ['Share', 'Ordering sheet', 'Panel (JSON)'].map((s) => button(el, s));
 const liveMessage = (el: HTMLElement) => el.shadowRoot!.querySelector('p[aria-live="polite"]')!.textContent!.trim();
 
@@ -79,7 +83,9 @@ describe('<qdp-panel-actions>', () => {
   it('<qdp-panel-actions> with a blocked reason disables share, the sheet and the JSON, says why, and saves nothing', async () => {
     const el = await mount(demoPanel(), (a) => (a.blocked = 'a probe is made of an excluded material.'));
     expect(panelButtons(el).map((b) => b.disabled)).toEqual([true, true, true]);
-    expect(el.shadowRoot!.querySelector('p[role="status"]')!.textContent).toBe('Sharing and the ordering sheet and panel file are off (the chart can still be saved): a probe is made of an excluded material.');
+    expect(el.shadowRoot!.querySelector('p[role="status"]')!.textContent).toBe(
+      'Sharing and the ordering sheet and panel file are off (the chart can still be saved): a probe is made of an excluded material.',
+    );
     for (const b of panelButtons(el)) b.click();
     await new Promise((r) => setTimeout(r, 50));
     expect(downloads).toEqual([]);
@@ -97,7 +103,13 @@ describe('<qdp-panel-actions>', () => {
   it('<qdp-panel-actions> gives every button a visible name and keeps a polite live region for its messages', async () => {
     const el = await mount(demoPanel());
     const names = [...el.shadowRoot!.querySelectorAll('button')].map((b) => b.textContent!.trim());
-    expect(names).toEqual(['Share: store and copy link', 'Ordering sheet (CSV)', 'Panel (JSON)', 'Chart (SVG)', 'Chart (PNG)']);
+    expect(names).toEqual([
+      'Share: store and copy link',
+      'Ordering sheet (CSV)',
+      'Panel (JSON)',
+      'Chart (SVG)',
+      'Chart (PNG)',
+    ]);
     for (const b of el.shadowRoot!.querySelectorAll('button')) expect(b.type).toBe('button');
     expect(el.shadowRoot!.querySelector('p[role="status"][aria-live="polite"]')).not.toBeNull();
   });
@@ -113,9 +125,14 @@ describe('<qdp-panel-actions>', () => {
     expect(el.shadowRoot!.querySelector('input')).toBeNull();
   });
 
-  it('<qdp-panel-actions> ordering sheet with no API reachable is saved from the page\'s own values and says so', async () => {
+  it("<qdp-panel-actions> ordering sheet with no API reachable is saved from the page's own values and says so", async () => {
     const panel = demoPanel();
-    const localResolved = panel.probes.map((_, i) => ({ diameterNm: 3.25 + i, emissionPeakNm: 500 + 11 * i, fwhmNm: 30, firstExcitonNm: 490 + 11 * i }));
+    const localResolved = panel.probes.map((_, i) => ({
+      diameterNm: 3.25 + i,
+      emissionPeakNm: 500 + 11 * i,
+      fwhmNm: 30,
+      firstExcitonNm: 490 + 11 * i,
+    }));
     const el = await mount(panel, (a) => (a.localResolved = localResolved));
     button(el, 'Ordering sheet').click();
     await vi.waitFor(() => expect(downloads).toHaveLength(1));
@@ -123,13 +140,22 @@ describe('<qdp-panel-actions>', () => {
     expect(liveMessage(el)).toMatch(/^Ordering sheet saved with values computed in this page \(server: .+\)\.$/);
     const rows = (await (await downloads[0].blob).text()).split('\r\n');
     const orange = rows.find((r) => r.startsWith('p4,'))!;
-    expect(orange.split(',')).toEqual(expect.arrayContaining(['Orange dot', 'cdse', String(localResolved[3].diameterNm), String(localResolved[3].emissionPeakNm)]));
+    expect(orange.split(',')).toEqual(
+      expect.arrayContaining([
+        'Orange dot',
+        'cdse',
+        String(localResolved[3].diameterNm),
+        String(localResolved[3].emissionPeakNm),
+      ]),
+    );
   });
 
   it('<qdp-panel-actions> saves the chart as a standalone SVG document without its page style or tab stops', async () => {
     const el = await mount(demoPanel(), (a) => (a.chartSvg = smallChart));
     button(el, 'Chart (SVG)').click();
-    expect(downloads.map((d) => d.filename)).toEqual(['demo-six-targets-on-a-tissue-section-one-405-nm-line-spectra.svg']);
+    expect(downloads.map((d) => d.filename)).toEqual([
+      'demo-six-targets-on-a-tissue-section-one-405-nm-line-spectra.svg',
+    ]);
     const text = await (await downloads[0].blob).text();
     expect(text.startsWith('<?xml')).toBe(true);
     const doc = new DOMParser().parseFromString(text, 'image/svg+xml');

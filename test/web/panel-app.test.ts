@@ -25,7 +25,9 @@ describe('<qdp-panel-app>', () => {
     await settle(app);
     const chart = inner(app, 'qdp-spectrum-chart');
     expect(chart.shadowRoot!.querySelectorAll('path.curve').length).toBe(6);
-    expect(inner(app, 'qdp-crosstalk-table').shadowRoot!.querySelector('p.worst')!.textContent).toMatch(/Worst pair: .+ adds .+ %/);
+    expect(inner(app, 'qdp-crosstalk-table').shadowRoot!.querySelector('p.worst')!.textContent).toMatch(
+      /Worst pair: .+ adds .+ %/,
+    );
     expect(inner(app, 'qdp-material-notes').shadowRoot!.querySelector('p.summary')!.textContent).toContain('cadmium');
   });
 
@@ -35,9 +37,13 @@ describe('<qdp-panel-app>', () => {
     await settle(app);
     const table = inner(app, 'qdp-crosstalk-table');
     const before = table.shadowRoot!.querySelector('table')!.textContent;
-    app.shadowRoot!.querySelector('.edit')!.dispatchEvent(new CustomEvent('probe-change', {
-      detail: { index: 1, probe: { id: 'p2', label: 'Green dot', material: 'cdse', emissionPeakNm: 990 } }, bubbles: true, composed: true,
-    }));
+    app.shadowRoot!.querySelector('.edit')!.dispatchEvent(
+      new CustomEvent('probe-change', {
+        detail: { index: 1, probe: { id: 'p2', label: 'Green dot', material: 'cdse', emissionPeakNm: 990 } },
+        bubbles: true,
+        composed: true,
+      }),
+    );
     await settle(app);
     expect(table.shadowRoot!.querySelector('.stale')).not.toBeNull();
     expect(table.shadowRoot!.querySelector('table')!.textContent).toBe(before);

@@ -7,12 +7,28 @@ import { demoPanel } from '../../web/demo-panel';
 
 afterEach(() => document.body.replaceChildren());
 
-type Card = HTMLElement & { updateComplete: Promise<unknown>; probe: ProbeSpec; index: number; blocked: string; errors: Record<string, string> };
+type Card = HTMLElement & {
+  updateComplete: Promise<unknown>;
+  probe: ProbeSpec;
+  index: number;
+  blocked: string;
+  errors: Record<string, string>;
+};
 
 /** A small invented panel with `n` CdSe probes, peaks 20 nm apart from 520 nm. */
 function panelWithProbes(n: number): PanelSpec {
-  const probes: ProbeSpec[] = Array.from({ length: n }, (_, i) => ({ id: `p${i + 1}`, label: `Dot ${i + 1}`, material: 'cdse', emissionPeakNm: 520 + 20 * i }));
-  return { version: 1, excitation: [{ wavelengthNm: 405 }], probes, channels: [{ id: 'c1', label: 'Wide', filters: [{ type: 'longpass', edgeNm: 500 }] }] };
+  const probes: ProbeSpec[] = Array.from({ length: n }, (_, i) => ({
+    id: `p${i + 1}`,
+    label: `Dot ${i + 1}`,
+    material: 'cdse',
+    emissionPeakNm: 520 + 20 * i,
+  }));
+  return {
+    version: 1,
+    excitation: [{ wavelengthNm: 405 }],
+    probes,
+    channels: [{ id: 'c1', label: 'Wide', filters: [{ type: 'longpass', edgeNm: 500 }] }],
+  };
 }
 
 async function mount(panel: PanelSpec, setup: (el: HTMLElementTagNameMap['qdp-probe-list']) => void = () => {}) {
@@ -26,7 +42,8 @@ async function mount(panel: PanelSpec, setup: (el: HTMLElementTagNameMap['qdp-pr
 }
 
 const cards = (el: HTMLElement) => [...el.shadowRoot!.querySelectorAll('qdp-probe-card')] as Card[];
-const addButton = (el: HTMLElement) => [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent === 'Add probe')!;
+const addButton = (el: HTMLElement) =>
+  [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent === 'Add probe')!;
 
 describe('<qdp-probe-list>', () => {
   it('<qdp-probe-list> renders one card per probe of the demo panel, in order, each with its own index', async () => {
@@ -64,7 +81,7 @@ describe('<qdp-probe-list>', () => {
     expect(seen[0].composed).toBe(true);
   });
 
-  it('<qdp-probe-list> lets a card\'s probe-remove bubble out with that card\'s index, read by its keyboard label', async () => {
+  it("<qdp-probe-list> lets a card's probe-remove bubble out with that card's index, read by its keyboard label", async () => {
     const el = await mount(panelWithProbes(3));
     const removed: number[] = [];
     el.addEventListener('probe-remove', (e) => removed.push((e as CustomEvent<{ index: number }>).detail.index));
@@ -94,8 +111,11 @@ describe('<qdp-probe-list>', () => {
     expect(addButton(el).disabled).toBe(true);
   });
 
-  it('<qdp-probe-list> marks only the excluded probe\'s card as blocked', async () => {
-    const el = await mount(panelWithProbes(3), (l) => (l.blocked = new Map([['p2', 'cadmium is excluded in this lab']])));
+  it("<qdp-probe-list> marks only the excluded probe's card as blocked", async () => {
+    const el = await mount(
+      panelWithProbes(3),
+      (l) => (l.blocked = new Map([['p2', 'cadmium is excluded in this lab']])),
+    );
     expect(cards(el).map((c) => c.hasAttribute('excluded'))).toEqual([false, true, false]);
     await cards(el)[0].updateComplete;
     expect(cards(el)[0].shadowRoot!.querySelector('[role="alert"]')).toBeNull();
@@ -103,8 +123,11 @@ describe('<qdp-probe-list>', () => {
 
   // The reason is a property only and the border follows a separate reflected `excluded` flag, so no attribute write
   // can overwrite the reason (it once did: the card showed its border but no "Blocked: …" alert).
-  it('<qdp-probe-list> shows the excluded probe\'s reason inside its card as an alert', async () => {
-    const el = await mount(panelWithProbes(3), (l) => (l.blocked = new Map([['p2', 'cadmium is excluded in this lab']])));
+  it("<qdp-probe-list> shows the excluded probe's reason inside its card as an alert", async () => {
+    const el = await mount(
+      panelWithProbes(3),
+      (l) => (l.blocked = new Map([['p2', 'cadmium is excluded in this lab']])),
+    );
     const card = cards(el)[1];
     await card.updateComplete;
     expect(card.blocked).toBe('cadmium is excluded in this lab');
@@ -114,13 +137,28 @@ describe('<qdp-probe-list>', () => {
   it('<qdp-probe-list> hands each card its own errors and prediction by probe index', async () => {
     const el = await mount(panelWithProbes(2), (l) => {
       l.errors = { 1: { emissionPeakNm: 'emissionPeakNm 990 nm is out of range' } };
-      l.predictions = [undefined, { diameterNm: 5.1, firstExcitonNm: 528, emissionPeakNm: 540, fwhmNm: 30, relativeBrightness: 0.8, measured: false, warnings: [] }];
+      l.predictions = [
+        undefined,
+        {
+          diameterNm: 5.1,
+          firstExcitonNm: 528,
+          emissionPeakNm: 540,
+          fwhmNm: 30,
+          relativeBrightness: 0.8,
+          measured: false,
+          warnings: [],
+        },
+      ];
     });
     const [first, second] = cards(el);
     expect(first.errors).toEqual({});
     expect(second.errors).toEqual({ emissionPeakNm: 'emissionPeakNm 990 nm is out of range' });
     await Promise.all([first.updateComplete, second.updateComplete]);
-    expect(first.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain('No prediction yet.');
-    expect(second.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain('emission peak 540 nm');
+    expect(first.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain(
+      'No prediction yet.',
+    );
+    expect(second.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain(
+      'emission peak 540 nm',
+    );
   });
 });

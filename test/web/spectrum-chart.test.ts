@@ -7,11 +7,19 @@ import { wavelengthToCss } from '../../web/color';
 /** A Gaussian on a 1 nm grid from 300 nm (test data only). */
 function gaussian(peakNm: number, fwhmNm: number): ChartCurve['spectrum'] {
   const s = fwhmNm / 2.3548;
-  return { startNm: 300, stepNm: 1, values: Float64Array.from({ length: 701 }, (_, i) => Math.exp(-0.5 * ((300 + i - peakNm) / s) ** 2)) };
+  return {
+    startNm: 300,
+    stepNm: 1,
+    values: Float64Array.from({ length: 701 }, (_, i) => Math.exp(-0.5 * ((300 + i - peakNm) / s) ** 2)),
+  };
 }
 
 function box(loNm: number, hiNm: number): ChartPassband['transmission'] {
-  return { startNm: 300, stepNm: 1, values: Float64Array.from({ length: 701 }, (_, i) => (300 + i >= loNm && 300 + i <= hiNm ? 0.9 : 0)) };
+  return {
+    startNm: 300,
+    stepNm: 1,
+    values: Float64Array.from({ length: 701 }, (_, i) => (300 + i >= loNm && 300 + i <= hiNm ? 0.9 : 0)),
+  };
 }
 
 async function mount(): Promise<SpectrumChart> {
@@ -21,10 +29,17 @@ async function mount(): Promise<SpectrumChart> {
     { id: 'p1', label: 'Green', peakNm: 525, spectrum: gaussian(525, 30) },
     { id: 'p2', label: 'Deep red', peakNm: 760, spectrum: gaussian(760, 40) },
   ];
-  el.passbands = [{ id: 'c1', label: 'Orange', transmission: box(595, 615), handles: [
-    { channelIndex: 0, filterIndex: 0, edge: 'low', wavelengthNm: 595 },
-    { channelIndex: 0, filterIndex: 0, edge: 'high', wavelengthNm: 615 },
-  ] }];
+  el.passbands = [
+    {
+      id: 'c1',
+      label: 'Orange',
+      transmission: box(595, 615),
+      handles: [
+        { channelIndex: 0, filterIndex: 0, edge: 'low', wavelengthNm: 595 },
+        { channelIndex: 0, filterIndex: 0, edge: 'high', wavelengthNm: 615 },
+      ],
+    },
+  ];
   el.excitationNm = [405];
   document.body.appendChild(el);
   await el.updateComplete;
@@ -78,7 +93,9 @@ describe('<qdp-spectrum-chart>', () => {
     const rect = svgEl.getBoundingClientRect();
     // The x scale maps [380, 800] nm onto [52, 800 - 46] px (the chart's margins).
     const px = 52 + ((605 - 380) / 420) * (800 - 46 - 52);
-    svgEl.dispatchEvent(new PointerEvent('pointermove', { clientX: rect.left + px, clientY: rect.top + 100, bubbles: true }));
+    svgEl.dispatchEvent(
+      new PointerEvent('pointermove', { clientX: rect.left + px, clientY: rect.top + 100, bubbles: true }),
+    );
     await el.updateComplete;
     const text = el.shadowRoot!.querySelector('.readout')!.textContent!;
     expect(text).toMatch(/60[45] nm/);

@@ -14,7 +14,11 @@ afterAll(async () => {
   await worker?.dispose();
 });
 
-const designRequest = () => ({ targets: [{ name: 'A', abundance: 1 }], excitation: [{ wavelengthNm: 405 }], options: { nodeBudget: 50 } });
+const designRequest = () => ({
+  targets: [{ name: 'A', abundance: 1 }],
+  excitation: [{ wavelengthNm: 405 }],
+  options: { nodeBudget: 50 },
+});
 
 /** Each POST route with a valid body and one required top-level field (missing it must be a 400 naming it). */
 const ROUTES: [string, () => Record<string, unknown>, string][] = [
@@ -52,12 +56,20 @@ describe.each(ROUTES)('POST %s', (route, valid, required) => {
   });
 
   it(`POST ${route} sent as text/plain answers 415 in the contract shape`, async () => {
-    const res = await worker.call(route, { method: 'POST', headers: { 'content-type': 'text/plain' }, body: JSON.stringify(valid()) });
+    const res = await worker.call(route, {
+      method: 'POST',
+      headers: { 'content-type': 'text/plain' },
+      body: JSON.stringify(valid()),
+    });
     await expectError(res, 415, 'unsupported_media_type');
   });
 
   it(`POST ${route} with a body over 256 KiB answers 413 in the contract shape`, async () => {
-    await expectError(await postJson(worker, route, { ...valid(), padding: 'x'.repeat(300 * 1024) }), 413, 'payload_too_large');
+    await expectError(
+      await postJson(worker, route, { ...valid(), padding: 'x'.repeat(300 * 1024) }),
+      413,
+      'payload_too_large',
+    );
   });
 
   it(`POST ${route} without ${required} answers 400 naming ${required}`, async () => {

@@ -44,7 +44,8 @@ describe('POST /api/v1/panels/design', () => {
     const again = evaluatePanel(body.panel);
     expect(Math.abs(again.worst.interference! / body.objective.worstInterference - 1)).toBeLessThan(1e-6);
     expect([body.objective.from, body.objective.into]).toEqual([again.worst.from, again.worst.into]);
-    for (const probe of body.panel.probes) expect(body.panel.channels.map((c: { id: string }) => c.id)).toContain(probe.channel);
+    for (const probe of body.panel.probes)
+      expect(body.panel.channels.map((c: { id: string }) => c.id)).toContain(probe.channel);
     expect(body.noise.sd).toHaveLength(4);
     expect(body.noise.sd.every((x: number | null) => typeof x === 'number' && x > 0)).toBe(true);
   });
@@ -60,7 +61,11 @@ describe('POST /api/v1/panels/design', () => {
 
   it('POST /panels/design (free, cadmium-free) proposes no cadmium material and non-overlapping bands', async () => {
     const res = await design({
-      targets: [{ name: 'A', abundance: 1 }, { name: 'B', abundance: 'low' }, { name: 'C', abundance: 'medium' }],
+      targets: [
+        { name: 'A', abundance: 1 },
+        { name: 'B', abundance: 'low' },
+        { name: 'C', abundance: 'medium' },
+      ],
       excitation: [{ wavelengthNm: 405 }],
       exclude: ['cadmium'],
       windowNm: [450, 750],
@@ -68,28 +73,78 @@ describe('POST /api/v1/panels/design', () => {
     });
     expect(res.status).toBe(200);
     const body = (await res.json()) as any;
-    expect(body.panel.probes.some((p: { material: string }) => ['cdse', 'cdte', 'cds'].includes(p.material))).toBe(false);
+    expect(body.panel.probes.some((p: { material: string }) => ['cdse', 'cdte', 'cds'].includes(p.material))).toBe(
+      false,
+    );
     const bands = body.panel.channels.map((c: { filters: { centerNm: number; widthNm: number }[] }) => c.filters[0]);
     for (let i = 0; i < bands.length; i++) {
-      for (let j = i + 1; j < bands.length; j++) expect(Math.abs(bands[i].centerNm - bands[j].centerNm)).toBeGreaterThanOrEqual((bands[i].widthNm + bands[j].widthNm) / 2);
+      for (let j = i + 1; j < bands.length; j++)
+        expect(Math.abs(bands[i].centerNm - bands[j].centerNm)).toBeGreaterThanOrEqual(
+          (bands[i].widthNm + bands[j].widthNm) / 2,
+        );
     }
   });
 
   const bad: [string, (r: ReturnType<typeof catalogRequest>) => unknown, (string | number)[]][] = [
     ['no targets', (r) => ({ ...r, targets: [] }), ['targets']],
-    ['17 targets', (r) => ({ ...r, targets: Array.from({ length: 17 }, (_, i) => ({ name: `t${i}`, abundance: 1 })) }), ['targets']],
+    [
+      '17 targets',
+      (r) => ({ ...r, targets: Array.from({ length: 17 }, (_, i) => ({ name: `t${i}`, abundance: 1 })) }),
+      ['targets'],
+    ],
     ['a zero abundance', (r) => ({ ...r, targets: [{ name: 'x', abundance: 0 }] }), ['targets', 0, 'abundance']],
     ['a negative abundance', (r) => ({ ...r, targets: [{ name: 'x', abundance: -2 }] }), ['targets', 0, 'abundance']],
-    ['an abundance word that is not one', (r) => ({ ...r, targets: [{ name: 'x', abundance: 'lots' }] }), ['targets', 0, 'abundance']],
+    [
+      'an abundance word that is not one',
+      (r) => ({ ...r, targets: [{ name: 'x', abundance: 'lots' }] }),
+      ['targets', 0, 'abundance'],
+    ],
     ['an empty window', (r) => ({ targets: r.targets, excitation: r.excitation, windowNm: [600, 600] }), ['windowNm']],
-    ['an inverted window', (r) => ({ targets: r.targets, excitation: r.excitation, windowNm: [700, 500] }), ['windowNm']],
-    ['every material excluded', (r) => ({ targets: r.targets, excitation: r.excitation, allowedMaterials: ['cdse', 'cdte'], exclude: ['cadmium'] }), ['allowedMaterials']],
+    [
+      'an inverted window',
+      (r) => ({ targets: r.targets, excitation: r.excitation, windowNm: [700, 500] }),
+      ['windowNm'],
+    ],
+    [
+      'every material excluded',
+      (r) => ({
+        targets: r.targets,
+        excitation: r.excitation,
+        allowedMaterials: ['cdse', 'cdte'],
+        exclude: ['cadmium'],
+      }),
+      ['allowedMaterials'],
+    ],
     ['an unknown exclusion', (r) => ({ ...r, exclude: ['mercury'] }), ['exclude', 0]],
-    ['fewer candidate probes than targets', (r) => ({ ...r, candidates: { ...r.candidates, probes: r.candidates.probes.slice(0, 2) } }), ['candidates', 'probes']],
-    ['a duplicate target name', (r) => ({ ...r, targets: [{ name: 'x', abundance: 1 }, { name: 'x', abundance: 1 }] }), ['targets', 1, 'name']],
+    [
+      'fewer candidate probes than targets',
+      (r) => ({ ...r, candidates: { ...r.candidates, probes: r.candidates.probes.slice(0, 2) } }),
+      ['candidates', 'probes'],
+    ],
+    [
+      'a duplicate target name',
+      (r) => ({
+        ...r,
+        targets: [
+          { name: 'x', abundance: 1 },
+          { name: 'x', abundance: 1 },
+        ],
+      }),
+      ['targets', 1, 'name'],
+    ],
     ['an unknown option', (r) => ({ ...r, options: { speed: 'max' } }), ['options', 'speed']],
     ['a node budget of 0', (r) => ({ ...r, options: { nodeBudget: 0 } }), ['options', 'nodeBudget']],
-    ['a candidate dot out of its material reach', (r) => ({ ...r, candidates: { ...r.candidates, probes: [{ id: 'x', material: 'cdse', emissionPeakNm: 900 }, ...r.candidates.probes] } }), ['candidates', 'probes', 0, 'emissionPeakNm']],
+    [
+      'a candidate dot out of its material reach',
+      (r) => ({
+        ...r,
+        candidates: {
+          ...r.candidates,
+          probes: [{ id: 'x', material: 'cdse', emissionPeakNm: 900 }, ...r.candidates.probes],
+        },
+      }),
+      ['candidates', 'probes', 0, 'emissionPeakNm'],
+    ],
   ];
 
   it.each(bad)('POST /panels/design with %s answers 400 naming the field', async (_name, change, path) => {

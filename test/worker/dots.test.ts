@@ -30,7 +30,8 @@ function expectSameArray(api: number[], lib: Float64Array, what: string): void {
 }
 
 type DotJson = Record<string, any> & { spectrum: { startNm: number; stepNm: number; values: number[] } };
-const resolve = async (body: unknown) => (await (await postJson(worker, '/api/v1/dots/resolve', body)).json()) as DotJson;
+const resolve = async (body: unknown) =>
+  (await (await postJson(worker, '/api/v1/dots/resolve', body)).json()) as DotJson;
 
 describe('GET /api/v1/materials', () => {
   it('GET /api/v1/materials lists the contract ids with the same data as listMaterials()', async () => {
@@ -55,7 +56,15 @@ describe('POST /api/v1/dots/resolve', () => {
     const input = { material: 'cdse' as const, emissionPeakNm: 605, excitationNm: 405 };
     const api = await resolve(input);
     const lib = resolveDot(input);
-    for (const key of ['diameterNm', 'firstExcitonNm', 'emissionPeakNm', 'fwhmNm', 'extinctionFirstExciton', 'extinctionAtExcitation', 'model']) {
+    for (const key of [
+      'diameterNm',
+      'firstExcitonNm',
+      'emissionPeakNm',
+      'fwhmNm',
+      'extinctionFirstExciton',
+      'extinctionAtExcitation',
+      'model',
+    ]) {
       expectSameNumber(api[key], lib[key as keyof typeof lib], key);
     }
     expect(api.warnings).toEqual(lib.warnings);
@@ -70,7 +79,11 @@ describe('POST /api/v1/dots/resolve', () => {
   });
 
   it('POST /api/v1/dots/resolve on a custom grid samples on that grid, as resolveDot() does', async () => {
-    const api = await resolve({ material: 'inp', emissionPeakNm: 620, grid: { startNm: 400, endNm: 800, stepNm: 0.5 } });
+    const api = await resolve({
+      material: 'inp',
+      emissionPeakNm: 620,
+      grid: { startNm: 400, endNm: 800, stepNm: 0.5 },
+    });
     const lib = resolveDot({ material: 'inp', emissionPeakNm: 620 }, { grid: makeGrid(400, 800, 0.5) });
     expect(api.spectrum.values).toHaveLength(801);
     expectSameArray(api.spectrum.values, lib.emission.values, 'spectrum');
@@ -96,9 +109,24 @@ describe('POST /api/v1/dots/resolve with bad input', () => {
     ['a diameter for a carbon dot', { material: 'carbon', diameterNm: 3 }, 'invalid_input', ['diameterNm']],
     ['a string diameter', { material: 'cdse', diameterNm: '4' }, 'invalid_input', ['diameterNm']],
     ['an unknown key', { material: 'cdse', diameterNm: 4, colour: 'red' }, 'invalid_input', ['colour']],
-    ['a grid of 7,001 points', { material: 'cdse', diameterNm: 4, grid: { startNm: 300, endNm: 1000, stepNm: 0.1 } }, 'out_of_range', ['grid', 'stepNm']],
-    ['a grid ending before it starts', { material: 'cdse', diameterNm: 4, grid: { startNm: 800, endNm: 400, stepNm: 1 } }, 'invalid_input', ['grid', 'endNm']],
-    ['an excitation line at 100 nm', { material: 'cdse', diameterNm: 4, excitationNm: 100 }, 'out_of_range', ['excitationNm']],
+    [
+      'a grid of 7,001 points',
+      { material: 'cdse', diameterNm: 4, grid: { startNm: 300, endNm: 1000, stepNm: 0.1 } },
+      'out_of_range',
+      ['grid', 'stepNm'],
+    ],
+    [
+      'a grid ending before it starts',
+      { material: 'cdse', diameterNm: 4, grid: { startNm: 800, endNm: 400, stepNm: 1 } },
+      'invalid_input',
+      ['grid', 'endNm'],
+    ],
+    [
+      'an excitation line at 100 nm',
+      { material: 'cdse', diameterNm: 4, excitationNm: 100 },
+      'out_of_range',
+      ['excitationNm'],
+    ],
   ])('POST /api/v1/dots/resolve with %s is a 400 naming the field', async (_name, body, code, path) => {
     const res = await postJson(worker, '/api/v1/dots/resolve', body);
     expect(res.status).toBe(400);
@@ -108,7 +136,9 @@ describe('POST /api/v1/dots/resolve with bad input', () => {
   });
 
   it('POST /api/v1/dots/resolve names the reachable range when a peak is out of reach', async () => {
-    const error = await errorOf(await postJson(worker, '/api/v1/dots/resolve', { material: 'cdse', emissionPeakNm: 900 }));
+    const error = await errorOf(
+      await postJson(worker, '/api/v1/dots/resolve', { material: 'cdse', emissionPeakNm: 900 }),
+    );
     expect(error?.message).toMatch(/\d+.*–.*\d+ nm/);
   });
 

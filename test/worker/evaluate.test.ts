@@ -53,7 +53,14 @@ describe('POST /api/v1/panels/evaluate', () => {
     const api = (await res.json()) as Record<string, unknown>;
     const lib = JSON.parse(JSON.stringify(evaluatePanel(examplePanel() as unknown as PanelSpec)));
     const peak = Math.max(...(lib.collected as number[][]).flat());
-    for (const key of ['collected', 'spillover', 'primaryChannel', 'conditionNumber', 'noiseAmplification', 'signalToBackground']) {
+    for (const key of [
+      'collected',
+      'spillover',
+      'primaryChannel',
+      'conditionNumber',
+      'noiseAmplification',
+      'signalToBackground',
+    ]) {
       expectSame(api[key], lib[key], key, key === 'collected' ? 1e-12 * peak : 1e-15);
     }
     expectSame(api.worst, lib.worst, 'worst');
@@ -65,7 +72,11 @@ describe('POST /api/v1/panels/evaluate', () => {
     expect(body.collected).toHaveLength(2); // channels
     expect(body.collected[0]).toHaveLength(2); // probes
     body.primaryChannel.forEach((c: number, p: number) => expect(body.spillover[c][p]).toBeCloseTo(1, 12));
-    expect(body.worst).toEqual({ from: expect.any(String), into: expect.any(String), interference: expect.any(Number) });
+    expect(body.worst).toEqual({
+      from: expect.any(String),
+      into: expect.any(String),
+      interference: expect.any(Number),
+    });
     expect(Array.isArray(body.warnings)).toBe(true);
   });
 
@@ -81,9 +92,24 @@ describe('POST /api/v1/panels/evaluate', () => {
   });
 
   it.each([
-    ['a peak CdSe cannot reach', (p: any) => (p.probes[0].emissionPeakNm = 900), 'out_of_range', ['probes', 0, 'emissionPeakNm']],
-    ['a bandpass narrower than its edges', (p: any) => (p.channels[0].filters[0].edgeWidthNm = 50), 'invalid_input', ['channels', 0, 'filters', 0, 'edgeWidthNm']],
-    ['an InP dot larger than its size law covers', (p: any) => (p.probes[1] = { id: 'p2', material: 'inp', diameterNm: 29 }), 'out_of_range', ['probes', 1, 'diameterNm']],
+    [
+      'a peak CdSe cannot reach',
+      (p: any) => (p.probes[0].emissionPeakNm = 900),
+      'out_of_range',
+      ['probes', 0, 'emissionPeakNm'],
+    ],
+    [
+      'a bandpass narrower than its edges',
+      (p: any) => (p.channels[0].filters[0].edgeWidthNm = 50),
+      'invalid_input',
+      ['channels', 0, 'filters', 0, 'edgeWidthNm'],
+    ],
+    [
+      'an InP dot larger than its size law covers',
+      (p: any) => (p.probes[1] = { id: 'p2', material: 'inp', diameterNm: 29 }),
+      'out_of_range',
+      ['probes', 1, 'diameterNm'],
+    ],
   ])('POST /api/v1/panels/evaluate with %s is a 400 naming the probe or channel', async (_name, change, code, path) => {
     const panel = examplePanel();
     change(panel);

@@ -37,7 +37,8 @@ function edited(pathIndex: number, edit: Edit): unknown {
   const last = path[path.length - 1];
   if (edit.kind === 'set') parent[last] = edit.value;
   else if (edit.kind === 'delete') Array.isArray(parent) ? parent.splice(Number(last), 1) : delete parent[last];
-  else if (typeof parent[last] === 'object' && parent[last] !== null && !Array.isArray(parent[last])) parent[last][edit.key] = edit.value;
+  else if (typeof parent[last] === 'object' && parent[last] !== null && !Array.isArray(parent[last]))
+    parent[last][edit.key] = edit.value;
   else parent[last] = { [edit.key]: edit.value };
   return panel;
 }
@@ -50,7 +51,15 @@ const edit: fc.Arbitrary<Edit> = fc.oneof(
   fc.record({ kind: fc.constant('addKey' as const), key: fc.string({ maxLength: 12 }), value: anyValue }),
 );
 // Raw texts: numbers JSON.stringify would never write (1e999, -0, huge exponents) spliced into the example.
-const rawNumber = fc.constantFrom('1e999', '-1e999', '-0', '1e-400', '0.0000', '1E+2', '123456789012345678901234567890');
+const rawNumber = fc.constantFrom(
+  '1e999',
+  '-1e999',
+  '-0',
+  '1e-400',
+  '0.0000',
+  '1E+2',
+  '123456789012345678901234567890',
+);
 
 async function expectContractAnswer(res: Response): Promise<void> {
   expect(res.status).toBeLessThan(500);

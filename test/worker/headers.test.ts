@@ -70,7 +70,14 @@ describe('security headers', () => {
   });
 
   it('the static front end and the API send the same security headers', async () => {
-    const names = ['content-security-policy', 'x-content-type-options', 'referrer-policy', 'cross-origin-opener-policy', 'x-frame-options', 'permissions-policy'];
+    const names = [
+      'content-security-policy',
+      'x-content-type-options',
+      'referrer-policy',
+      'cross-origin-opener-policy',
+      'x-frame-options',
+      'permissions-policy',
+    ];
     const page = await worker.call('/');
     const api = await worker.call('/api/v1/health');
     for (const name of names) expect(page.headers.get(name), name).toBe(api.headers.get(name));
@@ -87,7 +94,11 @@ describe('CORS', () => {
   it('OPTIONS /api/v1/panels/evaluate answers the preflight for a JSON POST', async () => {
     const res = await worker.call('/api/v1/panels/evaluate', {
       method: 'OPTIONS',
-      headers: { Origin: 'https://notebook.example', 'Access-Control-Request-Method': 'POST', 'Access-Control-Request-Headers': 'content-type' },
+      headers: {
+        Origin: 'https://notebook.example',
+        'Access-Control-Request-Method': 'POST',
+        'Access-Control-Request-Headers': 'content-type',
+      },
     });
     expect(res.status).toBe(204);
     expect(res.headers.get('access-control-allow-methods')).toContain('POST');

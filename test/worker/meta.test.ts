@@ -24,15 +24,29 @@ describe('health and description', () => {
   });
 
   it('GET /api/v1/openapi.json describes every route of the contract', async () => {
-    const doc = (await (await worker.call('/api/v1/openapi.json')).json()) as { openapi: string; paths: Record<string, object> };
+    const doc = (await (await worker.call('/api/v1/openapi.json')).json()) as {
+      openapi: string;
+      paths: Record<string, object>;
+    };
     expect(doc.openapi).toMatch(/^3\.1/);
-    for (const path of ['/api/v1/health', '/api/v1/openapi.json', '/api/v1/materials', '/api/v1/detectors', '/api/v1/dots/resolve', '/api/v1/panels/evaluate', '/api/v1/panels', '/api/v1/panels/{id}']) {
+    for (const path of [
+      '/api/v1/health',
+      '/api/v1/openapi.json',
+      '/api/v1/materials',
+      '/api/v1/detectors',
+      '/api/v1/dots/resolve',
+      '/api/v1/panels/evaluate',
+      '/api/v1/panels',
+      '/api/v1/panels/{id}',
+    ]) {
       expect(Object.keys(doc.paths), path).toContain(path);
     }
   });
 
   it('GET /api/v1/openapi.json gives the panel schema its limits and strictness', async () => {
-    const doc = (await (await worker.call('/api/v1/openapi.json')).json()) as { components: { schemas: Record<string, any> } };
+    const doc = (await (await worker.call('/api/v1/openapi.json')).json()) as {
+      components: { schemas: Record<string, any> };
+    };
     const panel = doc.components.schemas.Panel;
     expect(panel.additionalProperties).toBe(false);
     expect(panel.required).toEqual(expect.arrayContaining(['excitation', 'probes', 'channels']));
@@ -43,7 +57,9 @@ describe('health and description', () => {
   });
 
   it('GET /api/v1/detectors lists detector classes with id, name and notes', async () => {
-    const body = (await (await worker.call('/api/v1/detectors')).json()) as { detectors: { id: string; name: string; notes: string }[] };
+    const body = (await (await worker.call('/api/v1/detectors')).json()) as {
+      detectors: { id: string; name: string; notes: string }[];
+    };
     expect(body.detectors.length).toBeGreaterThan(0);
     for (const d of body.detectors) expect(Object.keys(d).sort()).toEqual(['id', 'name', 'notes']);
   });
@@ -73,13 +89,21 @@ describe('routes and methods', () => {
 
 describe('content type and size', () => {
   it('POST /api/v1/panels with a form content type is a 415 in the contract shape', async () => {
-    const res = await worker.call('/api/v1/panels', { method: 'POST', headers: { 'content-type': 'text/plain' }, body: JSON.stringify(examplePanel()) });
+    const res = await worker.call('/api/v1/panels', {
+      method: 'POST',
+      headers: { 'content-type': 'text/plain' },
+      body: JSON.stringify(examplePanel()),
+    });
     expect(res.status).toBe(415);
     expect((await errorOf(res))?.code).toBe('unsupported_media_type');
   });
 
   it('POST /api/v1/panels with a charset parameter is accepted', async () => {
-    const res = await worker.call('/api/v1/panels', { method: 'POST', headers: { 'content-type': 'application/json; charset=utf-8' }, body: JSON.stringify(examplePanel()) });
+    const res = await worker.call('/api/v1/panels', {
+      method: 'POST',
+      headers: { 'content-type': 'application/json; charset=utf-8' },
+      body: JSON.stringify(examplePanel()),
+    });
     expect([200, 201]).toContain(res.status);
   });
 
@@ -101,11 +125,17 @@ describe('content type and size', () => {
     let sent = 0;
     const body = new ReadableStream<Uint8Array>({
       pull(controller) {
-        if (sent++ < 6) controller.enqueue(chunk); // 384 KiB in all
+        if (sent++ < 6)
+          controller.enqueue(chunk); // 384 KiB in all
         else controller.close();
       },
     });
-    const res = await worker.call('/api/v1/panels/evaluate', { method: 'POST', headers: { 'content-type': 'application/json' }, body, duplex: 'half' } as RequestInit);
+    const res = await worker.call('/api/v1/panels/evaluate', {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body,
+      duplex: 'half',
+    } as RequestInit);
     expect(res.status).toBe(413);
     expect((await errorOf(res))?.code).toBe('payload_too_large');
     // The connection stays usable: the next request is answered normally.

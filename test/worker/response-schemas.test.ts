@@ -55,9 +55,24 @@ describe('GET routes', () => {
 describe('POST /api/v1/dots/resolve', () => {
   it.each([
     ['a CdSe dot by peak', { material: 'cdse', emissionPeakNm: 605 }],
-    ['a CdSe dot by size at 405 nm on a 0.5 nm grid', { material: 'cdse', diameterNm: 4, excitationNm: 405, grid: { startNm: 400, endNm: 800, stepNm: 0.5 } }],
+    [
+      'a CdSe dot by size at 405 nm on a 0.5 nm grid',
+      { material: 'cdse', diameterNm: 4, excitationNm: 405, grid: { startNm: 400, endNm: 800, stepNm: 0.5 } },
+    ],
     ['a carbon dot', { material: 'carbon', emissionPeakNm: 480, fwhmNm: 90, excitationNm: 405 }],
-    ['a custom probe from measured emission', { material: 'custom', measuredEmission: { points: [[430, 0], [460, 1], [500, 0]] } }],
+    [
+      'a custom probe from measured emission',
+      {
+        material: 'custom',
+        measuredEmission: {
+          points: [
+            [430, 0],
+            [460, 1],
+            [500, 0],
+          ],
+        },
+      },
+    ],
   ])('POST /dots/resolve with %s answers a body ResolvedDotJson accepts', async (_name, dot) => {
     expectValid(ResolvedDotJson, await bodyOf(await postJson(worker, '/api/v1/dots/resolve', dot), 200), 'resolve');
   });
@@ -72,14 +87,41 @@ describe('POST /api/v1/panels/evaluate', () => {
   });
 
   it('POST /panels/evaluate of a one-probe panel answers worst with from, into and interference all null', async () => {
-    const body = expectValid(Evaluation, await evaluate({ version: 1, excitation: line405, probes: [{ id: 'p1', material: 'cdse', emissionPeakNm: 605 }], channels: [bandpass('c1', 605)] }), 'one probe');
+    const body = expectValid(
+      Evaluation,
+      await evaluate({
+        version: 1,
+        excitation: line405,
+        probes: [{ id: 'p1', material: 'cdse', emissionPeakNm: 605 }],
+        channels: [bandpass('c1', 605)],
+      }),
+      'one probe',
+    );
     expect(body.worst).toEqual({ from: null, into: null, interference: null });
   });
 
   it('POST /panels/evaluate of a panel whose channel sees nothing answers null primary channels and condition number', async () => {
-    const dark = { id: 'c1', filters: [{ type: 'table', points: [[300, 0], [1000, 0]] }] };
-    const probes = [{ id: 'p1', material: 'cdse', emissionPeakNm: 605 }, { id: 'p2', material: 'cdse', emissionPeakNm: 650 }];
-    const body = expectValid(Evaluation, await evaluate({ version: 1, excitation: line405, probes, channels: [dark] }), 'dark');
+    const dark = {
+      id: 'c1',
+      filters: [
+        {
+          type: 'table',
+          points: [
+            [300, 0],
+            [1000, 0],
+          ],
+        },
+      ],
+    };
+    const probes = [
+      { id: 'p1', material: 'cdse', emissionPeakNm: 605 },
+      { id: 'p2', material: 'cdse', emissionPeakNm: 650 },
+    ];
+    const body = expectValid(
+      Evaluation,
+      await evaluate({ version: 1, excitation: line405, probes, channels: [dark] }),
+      'dark',
+    );
     expect(body.primaryChannel).toEqual([null, null]);
     expect(body.conditionNumber).toBeNull();
     expect(body.noiseAmplification).toEqual([null, null]);
@@ -89,7 +131,10 @@ describe('POST /api/v1/panels/evaluate', () => {
     const panel = {
       version: 1,
       excitation: [{ wavelengthNm: 405 }, { wavelengthNm: 488, powerRel: 0.5 }],
-      probes: [{ id: 'cd', material: 'carbon', emissionPeakNm: 520 }, { id: 'q', material: 'cdse', emissionPeakNm: 620 }],
+      probes: [
+        { id: 'cd', material: 'carbon', emissionPeakNm: 520 },
+        { id: 'q', material: 'cdse', emissionPeakNm: 620 },
+      ],
       channels: [bandpass('c1', 530), { ...bandpass('c2', 620), excitationNm: 488 }],
     };
     const body = expectValid(Evaluation, await evaluate(panel), 'carbon');
@@ -101,7 +146,11 @@ describe('POST /api/v1/panels/evaluate', () => {
 
 describe('share links and errors', () => {
   it('POST /panels then GET /panels/<id> answer bodies ShareCreated and Panel accept', async () => {
-    const first = expectValid(ShareCreated, await bodyOf(await postJson(worker, '/api/v1/panels', examplePanel()), 201), 'created');
+    const first = expectValid(
+      ShareCreated,
+      await bodyOf(await postJson(worker, '/api/v1/panels', examplePanel()), 201),
+      'created',
+    );
     expectValid(ShareCreated, await bodyOf(await postJson(worker, '/api/v1/panels', examplePanel()), 200), 'again');
     expectValid(Panel, await bodyOf(await worker.call(`/api/v1/panels/${first.id}`), 200), 'stored');
   });
@@ -112,7 +161,11 @@ describe('share links and errors', () => {
     ['a 404 (unknown id)', () => worker.call('/api/v1/panels/AAAAAAAAAAAAAAAAAAAAAAAA'), 404],
     ['a 405', () => worker.call('/api/v1/panels/evaluate'), 405],
     ['a 413', () => postJson(worker, '/api/v1/panels', { title: 'x'.repeat(300_000) }), 413],
-    ['a 415', () => worker.call('/api/v1/panels', { method: 'POST', headers: { 'content-type': 'text/plain' }, body: '{}' }), 415],
+    [
+      'a 415',
+      () => worker.call('/api/v1/panels', { method: 'POST', headers: { 'content-type': 'text/plain' }, body: '{}' }),
+      415,
+    ],
   ])('an API error, %s, answers a body ErrorBody accepts', async (_name, send, status) => {
     expectValid(ErrorBody, await bodyOf(await send(), status), 'error');
   });
@@ -122,20 +175,39 @@ describe('POST /api/v1/panels/design', () => {
   it('POST /panels/design in catalog mode answers a body DesignResponse accepts, with a panel Panel accepts', async () => {
     const peaks = [520, 565, 605, 655];
     const request = {
-      targets: [{ name: 'A', abundance: 'high' }, { name: 'B', abundance: 'low' }, { name: 'C', abundance: 0.3 }],
+      targets: [
+        { name: 'A', abundance: 'high' },
+        { name: 'B', abundance: 'low' },
+        { name: 'C', abundance: 0.3 },
+      ],
       excitation: line405,
       candidates: {
         probes: peaks.map((nm, i) => ({ id: `d${i}`, material: 'cdse', emissionPeakNm: nm })),
         channels: peaks.map((nm, i) => bandpass(`b${i}`, nm)),
       },
     };
-    const body = expectValid(DesignResponse, await bodyOf(await postJson(worker, '/api/v1/panels/design', request), 200), 'catalog');
+    const body = expectValid(
+      DesignResponse,
+      await bodyOf(await postJson(worker, '/api/v1/panels/design', request), 200),
+      'catalog',
+    );
     expect(body.mode).toBe('catalog');
   });
 
   it('POST /panels/design in free mode answers a body DesignResponse accepts', async () => {
-    const request = { targets: [{ name: 'A', abundance: 1 }, { name: 'B', abundance: 'low' }], excitation: line405, options: { nodeBudget: 500 } };
-    const body = expectValid(DesignResponse, await bodyOf(await postJson(worker, '/api/v1/panels/design', request), 200), 'free');
+    const request = {
+      targets: [
+        { name: 'A', abundance: 1 },
+        { name: 'B', abundance: 'low' },
+      ],
+      excitation: line405,
+      options: { nodeBudget: 500 },
+    };
+    const body = expectValid(
+      DesignResponse,
+      await bodyOf(await postJson(worker, '/api/v1/panels/design', request), 200),
+      'free',
+    );
     expect(body.mode).toBe('free');
   });
 });

@@ -8,8 +8,14 @@ import { ApiError } from '../errors';
 export function methodNotAllowed(...allowed: ('GET' | 'POST')[]): Handler {
   const allow = [...allowed, ...(allowed.includes('GET') ? ['HEAD'] : []), 'OPTIONS'].join(', ');
   return function rejectMethod(c) {
-    throw new ApiError(405, 'method_not_allowed', `${c.req.method} is not allowed here; use ${allowed.join(' or ')}`, [], {
-      Allow: allow,
-    });
+    throw new ApiError(
+      405,
+      'method_not_allowed',
+      `${c.req.method} is not allowed here; use ${allowed.join(' or ')}`,
+      [],
+      {
+        Allow: allow,
+      },
+    );
   };
 }

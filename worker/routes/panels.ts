@@ -31,7 +31,10 @@ export const panels = new Hono<AppEnv>()
     const text = await loadPanelText(c.env.PANELS, c.req.param('id') ?? '');
     if (text === null) throw new ApiError(404, 'not_found', 'no panel is stored under this id', ['id']);
     // A stored panel never changes, so any cache may keep it.
-    return c.body(text, 200, { 'content-type': 'application/json; charset=utf-8', 'cache-control': 'public, max-age=31536000, immutable' });
+    return c.body(text, 200, {
+      'content-type': 'application/json; charset=utf-8',
+      'cache-control': 'public, max-age=31536000, immutable',
+    });
   })
   .all('/', methodNotAllowed('POST'))
   .all('/evaluate', methodNotAllowed('POST'))

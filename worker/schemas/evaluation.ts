@@ -34,10 +34,22 @@ export const LotShiftJson = z.strictObject({
   shiftNm: z.number(),
   baseline: z.strictObject({ worstInterference: nullableNumber, worstSpillover: nullableNumber }),
   worstInterference: z
-    .strictObject({ interference: z.number(), from: z.string(), into: z.string(), shiftedProbe: z.string(), shiftNm: z.number() })
+    .strictObject({
+      interference: z.number(),
+      from: z.string(),
+      into: z.string(),
+      shiftedProbe: z.string(),
+      shiftNm: z.number(),
+    })
     .nullable(),
   worstSpillover: z
-    .strictObject({ spillover: z.number(), probe: z.string(), channel: z.string(), shiftedProbe: z.string(), shiftNm: z.number() })
+    .strictObject({
+      spillover: z.number(),
+      probe: z.string(),
+      channel: z.string(),
+      shiftedProbe: z.string(),
+      shiftNm: z.number(),
+    })
     .nullable(),
 });
 

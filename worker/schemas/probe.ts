@@ -41,7 +41,8 @@ export function checkDotSize(dot: DotLike, ctx: z.RefinementCtx): void {
   const hasPeak = dot.emissionPeakNm !== undefined;
   const hasDiameter = dot.diameterNm !== undefined;
   if (dot.material === 'carbon' && hasDiameter) add('carbon dots take emissionPeakNm, not diameterNm', 'diameterNm');
-  else if (hasPeak && hasDiameter) add('must not be given together with emissionPeakNm (give exactly one of the two)', 'diameterNm');
+  else if (hasPeak && hasDiameter)
+    add('must not be given together with emissionPeakNm (give exactly one of the two)', 'diameterNm');
   else if (!hasPeak && !hasDiameter) add('is required (or diameterNm instead)', 'emissionPeakNm');
 }
 

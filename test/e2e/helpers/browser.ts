@@ -8,7 +8,15 @@ import { join } from 'node:path';
 import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
 
 /** Flags for a closed network and a root user (no sandbox). */
-export const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+export const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
 
 /** Where the flows save their screenshots. */
 export const SHOT_DIR = join(process.cwd(), 'test-output', 'e2e');

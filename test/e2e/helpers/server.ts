@@ -23,7 +23,12 @@ export function freePort(): Promise<number> {
   });
 }
 
-async function waitForHealth(baseUrl: string, child: ChildProcess, timeoutMs: number, log: () => string): Promise<void> {
+async function waitForHealth(
+  baseUrl: string,
+  child: ChildProcess,
+  timeoutMs: number,
+  log: () => string,
+): Promise<void> {
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
     if (child.exitCode !== null) throw new Error(`start script exited with ${child.exitCode}:\n${log()}`);
@@ -52,8 +57,25 @@ export async function startApp(timeoutMs = 150_000): Promise<RunningApp> {
   const stop = async () => {
     if (child.exitCode !== null || child.pid === undefined) return;
     // setsid made the child a process-group leader: signal the whole group (bash, npx, wrangler, workerd).
-    try { process.kill(-child.pid, 'SIGTERM'); } catch { /* already gone */ }
-    await new Promise<void>((r) => { const t = setTimeout(() => { try { process.kill(-child.pid!, 'SIGKILL'); } catch { /* gone */ } r(); }, 5000); child.once('exit', () => { clearTimeout(t); r(); }); });
+    try {
+      process.kill(-child.pid, 'SIGTERM');
+    } catch {
+      /* already gone */
+    }
+    await new Promise<void>((r) => {
+      const t = setTimeout(() => {
+        try {
+          process.kill(-child.pid!, 'SIGKILL');
+        } catch {
+          /* gone */
+        }
+        r();
+      }, 5000);
+      child.once('exit', () => {
+        clearTimeout(t);
+        r();
+      });
+    });
   };
   try {
     await waitForHealth(baseUrl, child, timeoutMs, () => output);

@@ -52,7 +52,17 @@ export function ensureBuilt(): void {
 export function snapshotRoot(): string {
   ensureBuilt();
   const dir = mkdtempSync(join(tmpdir(), 'qdpanel-quality-app-'));
-  for (const entry of ['scripts', 'worker', 'spectra', 'web', 'dist', 'package.json', 'tsconfig.json', 'wrangler.toml', 'vite.config.ts']) {
+  for (const entry of [
+    'scripts',
+    'worker',
+    'spectra',
+    'web',
+    'dist',
+    'package.json',
+    'tsconfig.json',
+    'wrangler.toml',
+    'vite.config.ts',
+  ]) {
     if (existsSync(join(ROOT, entry))) cpSync(join(ROOT, entry), join(dir, entry), { recursive: true });
   }
   symlinkSync(join(ROOT, 'node_modules'), join(dir, 'node_modules'));
@@ -112,7 +122,12 @@ function rssKiB(pid: number): number | null {
   }
 }
 
-async function waitForHealth(baseUrl: string, child: ChildProcess, timeoutMs: number, log: () => string): Promise<void> {
+async function waitForHealth(
+  baseUrl: string,
+  child: ChildProcess,
+  timeoutMs: number,
+  log: () => string,
+): Promise<void> {
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
     if (child.exitCode !== null) throw new Error(`start script exited with ${child.exitCode}:\n${log()}`);
@@ -127,7 +142,9 @@ async function waitForHealth(baseUrl: string, child: ChildProcess, timeoutMs: nu
 }
 
 /** Starts `bash scripts/start.sh` (of a fresh snapshot unless `root` is given) under setsid with PORT, PERSIST_DIR, LOG_LEVEL=warn and SKIP_BUILD=1. */
-export async function startApp(options: { persistDir?: string; port?: number; timeoutMs?: number; root?: string } = {}): Promise<StartedApp> {
+export async function startApp(
+  options: { persistDir?: string; port?: number; timeoutMs?: number; root?: string } = {},
+): Promise<StartedApp> {
   const root = options.root ?? snapshotRoot();
   // A free port can be taken by another process before wrangler binds it: try again on a new one.
   for (let attempt = 1; ; attempt++) {
@@ -139,7 +156,12 @@ export async function startApp(options: { persistDir?: string; port?: number; ti
   }
 }
 
-async function startOnce(options: { persistDir?: string; port?: number; timeoutMs?: number; root: string }): Promise<StartedApp> {
+async function startOnce(options: {
+  persistDir?: string;
+  port?: number;
+  timeoutMs?: number;
+  root: string;
+}): Promise<StartedApp> {
   const root = options.root;
   const persistDir = options.persistDir ?? freshPersistDir();
   const port = options.port ?? (await freePort());
@@ -156,14 +178,29 @@ async function startOnce(options: { persistDir?: string; port?: number; timeoutM
   const exited = new Promise<void>((r) => child.once('exit', () => r()));
   const stop = async (signal: NodeJS.Signals = 'SIGTERM') => {
     if (child.exitCode === null && child.signalCode === null) {
-      try { process.kill(-pgid, signal); } catch { /* group already gone */ }
-      const timer = setTimeout(() => { try { process.kill(-pgid, 'SIGKILL'); } catch { /* gone */ } }, 5000);
+      try {
+        process.kill(-pgid, signal);
+      } catch {
+        /* group already gone */
+      }
+      const timer = setTimeout(() => {
+        try {
+          process.kill(-pgid, 'SIGKILL');
+        } catch {
+          /* gone */
+        }
+      }, 5000);
       await exited;
       clearTimeout(timer);
     }
     // wrangler's children may outlive the leader by a moment: make sure nothing of the group is left.
     for (let i = 0; i < 40 && groupPids(pgid, 'workerd').length > 0; i++) {
-      if (i === 20) try { process.kill(-pgid, 'SIGKILL'); } catch { /* gone */ }
+      if (i === 20)
+        try {
+          process.kill(-pgid, 'SIGKILL');
+        } catch {
+          /* gone */
+        }
       await new Promise((r) => setTimeout(r, 100));
     }
   };

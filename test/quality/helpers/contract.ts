@@ -20,10 +20,14 @@ export function errorShapeProblem(text: string): string | null {
     return `not JSON: ${text.slice(0, 200)}`;
   }
   const error = (body as { error?: unknown } | null)?.error as Partial<ContractError> | undefined;
-  if (error === undefined || error === null || typeof error !== 'object') return `no error object: ${text.slice(0, 200)}`;
+  if (error === undefined || error === null || typeof error !== 'object')
+    return `no error object: ${text.slice(0, 200)}`;
   if (typeof error.code !== 'string' || !/^[a-z_]+$/.test(error.code)) return `bad code: ${text.slice(0, 200)}`;
   if (typeof error.message !== 'string' || error.message.length === 0) return `bad message: ${text.slice(0, 200)}`;
-  if (error.path !== undefined && !(Array.isArray(error.path) && error.path.every((p) => typeof p === 'string' || typeof p === 'number'))) {
+  if (
+    error.path !== undefined &&
+    !(Array.isArray(error.path) && error.path.every((p) => typeof p === 'string' || typeof p === 'number'))
+  ) {
     return `bad path: ${text.slice(0, 200)}`;
   }
   return null;
@@ -42,6 +46,15 @@ export function demoPanelWithPeak(peakNm: number): Record<string, unknown> {
 }
 
 /** A POST of a JSON value. */
-export function postJson(baseUrl: string, path: string, body: unknown, headers: Record<string, string> = {}): Promise<Response> {
-  return fetch(baseUrl + path, { method: 'POST', headers: { 'content-type': 'application/json', ...headers }, body: JSON.stringify(body) });
+export function postJson(
+  baseUrl: string,
+  path: string,
+  body: unknown,
+  headers: Record<string, string> = {},
+): Promise<Response> {
+  return fetch(baseUrl + path, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', ...headers },
+    body: JSON.stringify(body),
+  });
 }

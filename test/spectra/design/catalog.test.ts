@@ -29,7 +29,8 @@ function enumerateOptimum(
     if (lo < floor * hi) return Infinity;
     for (let x = 0; x < n; x++) for (let y = x + 1; y < n; y++) if (conflict(channels[x], channels[y])) return Infinity;
     let worst = 0;
-    for (let u = 0; u < n; u++) for (let t = 0; t < n; t++) if (t !== u) worst = Math.max(worst, (a[t] * C[channels[u]][probes[t]]) / own[u]);
+    for (let u = 0; u < n; u++)
+      for (let t = 0; t < n; t++) if (t !== u) worst = Math.max(worst, (a[t] * C[channels[u]][probes[t]]) / own[u]);
     return worst;
   };
   const visit = (t: number) => {
@@ -63,30 +64,38 @@ const instances = Array.from({ length: 40 }, (_, k) => ({
 }));
 
 describe('catalog branch and bound', () => {
-  it.each(instances)('searchCatalog(seed $seed, $targets of $probes × $channels) equals the plain enumeration', ({ seed, targets, probes, channels }) => {
-    const { collected } = syntheticCatalog(seed, probes, channels);
-    const abundance = syntheticAbundances(seed + 1, targets);
-    const result = searchCatalog({ collected, abundance });
-    const optimum = enumerateOptimum(collected, abundance);
-    expect(result.exact).toBe(true);
-    expect(result.objective!.worstInterference).toBeCloseTo(optimum, 12);
-    expect(result.stats.bound).toBeCloseTo(optimum, 12);
-    expect(result.stats.nodesVisited).toBeLessThan(result.stats.fullEnumeration);
-  });
-
-  it.each(instances.slice(0, 16))('searchCatalog(seed $seed) with a 20 % signal floor and overlapping-band conflicts equals the enumeration', ({ seed, targets, probes, channels }) => {
-    const { collected, bands } = syntheticCatalog(seed, probes, channels);
-    const abundance = syntheticAbundances(seed + 1, targets);
-    const overlap = (x: number, y: number) => Math.abs(bands[x].centerNm - bands[y].centerNm) < (bands[x].widthNm + bands[y].widthNm) / 2;
-    const result = searchCatalog({ collected, abundance, minSignalFraction: 0.2, channelConflict: overlap });
-    const optimum = enumerateOptimum(collected, abundance, 0.2, overlap);
-    if (optimum === Infinity) expect(result.design).toBeNull();
-    else {
+  it.each(instances)(
+    'searchCatalog(seed $seed, $targets of $probes × $channels) equals the plain enumeration',
+    ({ seed, targets, probes, channels }) => {
+      const { collected } = syntheticCatalog(seed, probes, channels);
+      const abundance = syntheticAbundances(seed + 1, targets);
+      const result = searchCatalog({ collected, abundance });
+      const optimum = enumerateOptimum(collected, abundance);
+      expect(result.exact).toBe(true);
       expect(result.objective!.worstInterference).toBeCloseTo(optimum, 12);
-      const { channel } = result.design!;
-      for (let x = 0; x < channel.length; x++) for (let y = x + 1; y < channel.length; y++) expect(overlap(channel[x], channel[y])).toBe(false);
-    }
-  });
+      expect(result.stats.bound).toBeCloseTo(optimum, 12);
+      expect(result.stats.nodesVisited).toBeLessThan(result.stats.fullEnumeration);
+    },
+  );
+
+  it.each(instances.slice(0, 16))(
+    'searchCatalog(seed $seed) with a 20 % signal floor and overlapping-band conflicts equals the enumeration',
+    ({ seed, targets, probes, channels }) => {
+      const { collected, bands } = syntheticCatalog(seed, probes, channels);
+      const abundance = syntheticAbundances(seed + 1, targets);
+      const overlap = (x: number, y: number) =>
+        Math.abs(bands[x].centerNm - bands[y].centerNm) < (bands[x].widthNm + bands[y].widthNm) / 2;
+      const result = searchCatalog({ collected, abundance, minSignalFraction: 0.2, channelConflict: overlap });
+      const optimum = enumerateOptimum(collected, abundance, 0.2, overlap);
+      if (optimum === Infinity) expect(result.design).toBeNull();
+      else {
+        expect(result.objective!.worstInterference).toBeCloseTo(optimum, 12);
+        const { channel } = result.design!;
+        for (let x = 0; x < channel.length; x++)
+          for (let y = x + 1; y < channel.length; y++) expect(overlap(channel[x], channel[y])).toBe(false);
+      }
+    },
+  );
 
   it('searchCatalog gives the rare target the brighter probe when two probes differ only in brightness', () => {
     // Two probes with the same spectral shape far apart in wavelength, one 5× brighter, two clean channels.
@@ -116,7 +125,10 @@ describe('catalog branch and bound', () => {
     const { collected } = syntheticCatalog(11, 12, 12);
     const abundance = [1, 0.3, 0.1, 1, 0.5, 0.1];
     const seen: SearchProgress[] = [];
-    const stopped = await searchCatalogAsync({ collected, abundance }, { chunkNodes: 5, onProgress: (p) => seen.push(p), shouldStop: () => seen.length >= 3 });
+    const stopped = await searchCatalogAsync(
+      { collected, abundance },
+      { chunkNodes: 5, onProgress: (p) => seen.push(p), shouldStop: () => seen.length >= 3 },
+    );
     expect(seen).toHaveLength(3);
     expect(seen[2].nodesVisited).toBeGreaterThan(seen[0].nodesVisited);
     expect(stopped.exact).toBe(false);
@@ -125,8 +137,15 @@ describe('catalog branch and bound', () => {
   });
 
   it('searchCatalog with fewer probe candidates than targets throws invalid_input naming candidates.probes', () => {
-    expect(() => searchCatalog({ collected: [[1, 1], [1, 1], [1, 1]], abundance: [1, 1, 1] })).toThrow(
-      expect.objectContaining({ code: 'invalid_input', path: ['candidates', 'probes'] }),
-    );
+    expect(() =>
+      searchCatalog({
+        collected: [
+          [1, 1],
+          [1, 1],
+          [1, 1],
+        ],
+        abundance: [1, 1, 1],
+      }),
+    ).toThrow(expect.objectContaining({ code: 'invalid_input', path: ['candidates', 'probes'] }));
   });
 });

@@ -20,17 +20,35 @@ const overlap = (a: { centerNm: number; widthNm: number }, b: { centerNm: number
 
 describe('runDesign', () => {
   it('runDesign (catalog) gives the rare target the brighter of two same-colour dots, as the objective rewards', () => {
-    const dot = (id: string, nm: number, qy: number) => ({ id, material: 'cdse' as const, emissionPeakNm: nm, quantumYield: qy });
+    const dot = (id: string, nm: number, qy: number) => ({
+      id,
+      material: 'cdse' as const,
+      emissionPeakNm: nm,
+      quantumYield: qy,
+    });
     const result = runDesign({
-      targets: [{ name: 'common', abundance: 'high' }, { name: 'rare', abundance: 'low' }],
+      targets: [
+        { name: 'common', abundance: 'high' },
+        { name: 'rare', abundance: 'low' },
+      ],
       excitation: line405,
       candidates: {
         // Peaks close enough that line tails, not the filters' blocking floor, set the crosstalk.
-        probes: [dot('dim-560', 560, 0.2), dot('bright-560', 560, 0.8), dot('dim-600', 600, 0.2), dot('bright-600', 600, 0.8)],
-        channels: [560, 600].map((nm) => ({ id: `bp${nm}`, filters: [{ type: 'bandpass' as const, centerNm: nm, widthNm: 20 }] })),
+        probes: [
+          dot('dim-560', 560, 0.2),
+          dot('bright-560', 560, 0.8),
+          dot('dim-600', 600, 0.2),
+          dot('bright-600', 600, 0.8),
+        ],
+        channels: [560, 600].map((nm) => ({
+          id: `bp${nm}`,
+          filters: [{ type: 'bandpass' as const, centerNm: nm, widthNm: 20 }],
+        })),
       },
     });
-    expect(result.warnings.join(' ')).toMatch(/contains cadmium.*local regulations, institutional safety rules and licensed practice/);
+    expect(result.warnings.join(' ')).toMatch(
+      /contains cadmium.*local regulations, institutional safety rules and licensed practice/,
+    );
     const byTarget = Object.fromEntries(result.panel.probes.map((p) => [p.target, p]));
     expect(byTarget.rare.quantumYield).toBe(0.8);
     expect(byTarget.common.quantumYield).toBe(0.2);
@@ -39,7 +57,11 @@ describe('runDesign', () => {
 
   it('runDesign (free) proposes a panel whose evaluatePanel worst interference equals the objective', () => {
     const result = runDesign({
-      targets: [{ name: 'A', abundance: 1 }, { name: 'B', abundance: 'low' }, { name: 'C', abundance: 'medium' }],
+      targets: [
+        { name: 'A', abundance: 1 },
+        { name: 'B', abundance: 'low' },
+        { name: 'C', abundance: 'medium' },
+      ],
       excitation: line405,
       windowNm: [480, 720],
     });
@@ -56,7 +78,12 @@ describe('runDesign', () => {
   ];
   it.each(freeCases)('runDesign (free, %s) keeps every free-mode rule', (_name, extra) => {
     const request: DesignRequest = {
-      targets: [{ name: 'A', abundance: 'high' }, { name: 'B', abundance: 'low' }, { name: 'C', abundance: 'medium' }, { name: 'D', abundance: 0.5 }],
+      targets: [
+        { name: 'A', abundance: 'high' },
+        { name: 'B', abundance: 'low' },
+        { name: 'C', abundance: 'medium' },
+        { name: 'D', abundance: 0.5 },
+      ],
       excitation: line405,
       options: { nodeBudget: 1500 },
       ...extra,
@@ -87,30 +114,49 @@ describe('runDesign', () => {
     });
   });
 
-  it.each([1, 2, 3])('runDesign (free) is no worse than catalog mode on a catalog drawn from its own grid (draw %s)', (draw) => {
-    const base: DesignRequest = {
-      targets: [{ name: 'A', abundance: 'high' }, { name: 'B', abundance: 'low' }, { name: 'C', abundance: 'medium' }],
-      excitation: line405,
-      windowNm: [480, 700],
-      options: { peakStepNm: 20, bandStepNm: 20, bandwidthsNm: [20, 40], nodeBudget: 200_000 },
-    };
-    const grid = freeGridCatalog(base);
-    const rng = createRandom(draw);
-    const pick = <T,>(list: T[], k: number) => [...list].sort(() => rng.uniform() - 0.5).slice(0, k);
-    // Six dots, and passbands added one by one while they overlap none already drawn (free mode's own rule).
-    const probes = pick(grid.probes, 6);
-    const bandIdx: number[] = [];
-    for (const i of pick(grid.bands.map((_, k) => k), grid.bands.length)) if (bandIdx.every((j) => !overlap(grid.bands[i], grid.bands[j]))) bandIdx.push(i);
-    const channels = bandIdx.slice(0, 6).map((i) => grid.channels[i]);
-    const catalog = runDesign({ ...base, windowNm: undefined, candidates: { probes, channels }, options: { minSignalFraction: 0.05 } });
-    const free = runDesign(base);
-    expect(free.exact).toBe(true);
-    expect(free.objective.worstInterference).toBeLessThanOrEqual(catalog.objective.worstInterference * (1 + 1e-12));
-  });
+  it.each([1, 2, 3])(
+    'runDesign (free) is no worse than catalog mode on a catalog drawn from its own grid (draw %s)',
+    (draw) => {
+      const base: DesignRequest = {
+        targets: [
+          { name: 'A', abundance: 'high' },
+          { name: 'B', abundance: 'low' },
+          { name: 'C', abundance: 'medium' },
+        ],
+        excitation: line405,
+        windowNm: [480, 700],
+        options: { peakStepNm: 20, bandStepNm: 20, bandwidthsNm: [20, 40], nodeBudget: 200_000 },
+      };
+      const grid = freeGridCatalog(base);
+      const rng = createRandom(draw);
+      const pick = <T>(list: T[], k: number) => [...list].sort(() => rng.uniform() - 0.5).slice(0, k);
+      // Six dots, and passbands added one by one while they overlap none already drawn (free mode's own rule).
+      const probes = pick(grid.probes, 6);
+      const bandIdx: number[] = [];
+      for (const i of pick(
+        grid.bands.map((_, k) => k),
+        grid.bands.length,
+      ))
+        if (bandIdx.every((j) => !overlap(grid.bands[i], grid.bands[j]))) bandIdx.push(i);
+      const channels = bandIdx.slice(0, 6).map((i) => grid.channels[i]);
+      const catalog = runDesign({
+        ...base,
+        windowNm: undefined,
+        candidates: { probes, channels },
+        options: { minSignalFraction: 0.05 },
+      });
+      const free = runDesign(base);
+      expect(free.exact).toBe(true);
+      expect(free.objective.worstInterference).toBeLessThanOrEqual(catalog.objective.worstInterference * (1 + 1e-12));
+    },
+  );
 
   it('runDesignAsync reports the candidate and search stages and returns what runDesign returns', async () => {
     const request: DesignRequest = {
-      targets: [{ name: 'A', abundance: 1 }, { name: 'B', abundance: 0.2 }],
+      targets: [
+        { name: 'A', abundance: 1 },
+        { name: 'B', abundance: 0.2 },
+      ],
       excitation: line405,
       windowNm: [500, 680],
       options: { refine: false },

@@ -22,7 +22,10 @@ export function syntheticCatalog(seed: number, probes: number, channels: number)
   const peaksNm = Array.from({ length: probes }, () => 450 + 300 * rng.uniform());
   const sigmaNm = Array.from({ length: probes }, () => (20 + 25 * rng.uniform()) / 2.3548);
   const brightness = Array.from({ length: probes }, () => 0.2 + 2.8 * rng.uniform());
-  const bands = Array.from({ length: channels }, () => ({ centerNm: 450 + 300 * rng.uniform(), widthNm: 15 + 35 * rng.uniform() }));
+  const bands = Array.from({ length: channels }, () => ({
+    centerNm: 450 + 300 * rng.uniform(),
+    widthNm: 15 + 35 * rng.uniform(),
+  }));
   const collected = bands.map(({ centerNm, widthNm }) =>
     peaksNm.map((mu, p) => {
       const inBand = phi((centerNm + widthNm / 2 - mu) / sigmaNm[p]) - phi((centerNm - widthNm / 2 - mu) / sigmaNm[p]);

@@ -7,7 +7,15 @@ export function examplePanel(): Record<string, unknown> {
     title: 'Fictional tonsil section, two targets',
     excitation: [{ wavelengthNm: 405, powerRel: 1 }],
     probes: [
-      { id: 'p1', label: 'CD-x', material: 'cdse', emissionPeakNm: 605, quantumYield: 0.6, abundance: 1, channel: 'c1' },
+      {
+        id: 'p1',
+        label: 'CD-x',
+        material: 'cdse',
+        emissionPeakNm: 605,
+        quantumYield: 0.6,
+        abundance: 1,
+        channel: 'c1',
+      },
       { id: 'p2', label: 'nucleus', material: 'cdse', diameterNm: 3.2, sizeDispersionPct: 6, target: 'nuclei' },
     ],
     channels: [
@@ -17,7 +25,15 @@ export function examplePanel(): Record<string, unknown> {
         filters: [
           { type: 'longpass', edgeNm: 500, peakTransmission: 0.95 },
           { type: 'dichroic', edgeNm: 560, passes: 'below' },
-          { type: 'table', points: [[500, 0.1], [520, 0.9], [560, 0.9], [580, 0.1]] },
+          {
+            type: 'table',
+            points: [
+              [500, 0.1],
+              [520, 0.9],
+              [560, 0.9],
+              [580, 0.1],
+            ],
+          },
         ],
       },
     ],
@@ -29,7 +45,11 @@ export function examplePanel(): Record<string, unknown> {
 export function reverseKeys(value: unknown): unknown {
   if (Array.isArray(value)) return value.map(reverseKeys);
   if (value !== null && typeof value === 'object') {
-    return Object.fromEntries(Object.entries(value as Record<string, unknown>).reverse().map(([k, v]) => [k, reverseKeys(v)]));
+    return Object.fromEntries(
+      Object.entries(value as Record<string, unknown>)
+        .reverse()
+        .map(([k, v]) => [k, reverseKeys(v)]),
+    );
   }
   return value;
 }

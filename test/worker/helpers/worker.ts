@@ -65,7 +65,9 @@ export function postJson(w: RunningWorker, path: string, body: unknown, raw = fa
 }
 
 /** The `error` object of a response in the contract's error shape, or null when the body is not one. */
-export async function errorOf(res: Response): Promise<{ code: string; message: string; path: (string | number)[] } | null> {
+export async function errorOf(
+  res: Response,
+): Promise<{ code: string; message: string; path: (string | number)[] } | null> {
   const text = await res.text();
   try {
     const body = JSON.parse(text) as { error?: { code: string; message: string; path: (string | number)[] } };
