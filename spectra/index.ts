@@ -1,16 +1,96 @@
-// Public surface of the spectral library. Only re-exports live here (a test snapshots this list).
-export * from './errors';
-export * from './grid';
-export * from './panel';
-// Filters, light path, detectors (spectral core II).
-export { FILTER_DEFAULTS, MAX_BLOCKING_OD, type FilterDefaults } from './filters/defaults';
-export { filterTransmission } from './filters/factory';
-export { channelTransmission, MAX_FILTERS_PER_CHANNEL } from './filters/channel';
-export { MAX_TABLE_POINTS } from './filters/table';
-export { listDetectors, detectorQe, DETECTOR_CLASSES, type DetectorClass } from './detectors';
-export { parseSpectrumCsv, CSV_LIMITS, type SpectrumCsvKind } from './csv';
-export { svd, singularValues, type Svd } from './linalg/svd';
-export { pseudoInverse } from './linalg/pinv';
+/**
+ * The spectral library's public names: what the worker, the page and the benchmarks use, plus the reference functions
+ * that docs/science.md documents (published models the tests check against their sources). Only re-exports live
+ * here; a test snapshots the list, so it changes only on purpose.
+ */
+
+// Core: plain data, units, grids, limits, tables.
+export { SpectraError, type SpectraErrorCode } from './core/errors';
+export * from './core/constants';
+export { nmToEv, evToNm, energyWidthToNm } from './core/units';
+export {
+  DEFAULT_GRID,
+  gridPointCount,
+  makeGrid,
+  spectrumAtNm,
+  spectrumOnGrid,
+  type SampledSpectrum,
+  type Table,
+  type WavelengthGrid,
+} from './core/grid';
+export {
+  DOT_INPUT_FIELDS,
+  FILTER_TYPES,
+  MATERIAL_IDS,
+  type BackgroundSpec,
+  type ChannelSpec,
+  type DotInput,
+  type EdgeFilterOptions,
+  type ExcitationLine,
+  type FilterSpec,
+  type FilterType,
+  type MaterialId,
+  type PanelSpec,
+  type ProbeSpec,
+  type SpectrumPoints,
+} from './core/panel';
+export { LIMITS } from './core/limits';
+export { CSV_LIMITS, parseSpectrumCsv, resampleTable, type SpectrumCsvKind } from './core/tables';
+export { createRandom, type RandomSource } from './core/random';
+
+// One probe: materials, size laws, line shape, absorption.
+export { listMaterials } from './dot/materials/catalog';
+export type { Material, MaterialFamily, Toxicity } from './dot/materials/types';
+export { EXCLUSIONS, EXCLUSION_WORDS, exclusionsOf, type Exclusion } from './dot/materials/exclusions';
+export { BULK_PARAMS } from './dot/materials/params';
+export {
+  diameterForEmissionPeakNm,
+  emissionPeakForDiameterNm,
+  emissionRangeForMaterialNm,
+  firstExcitonNmForDiameter,
+} from './dot/sizing/sizing';
+export { YU_2003, yuDiameterNm, yuExtinctionFirstExciton } from './dot/sizing/yu2003';
+export { INP_ALMEIDA_2023 } from './dot/sizing/almeida2023';
+export { brusDiameterNm, brusGapEv } from './dot/sizing/brus';
+export { STOKES_MODEL, stokesShiftEv } from './dot/sizing/stokes';
+export { emissionFwhmEv } from './dot/sizing/width';
+export { CARBON_EMISSION_RANGE_NM, CARBON_EXCITATION_MODEL, carbonEmissionPeakNm } from './dot/sizing/carbon';
+export {
+  centerEvForPeakNm,
+  fwhmEvForFwhmNm,
+  fwhmNmOfLine,
+  gaussianDensityPerEv,
+  gaussianDensityPerNm,
+  peakNmOfLine,
+  sampleGaussianLine,
+} from './dot/lineshape';
+export { intrinsicExtinction, sampleExtinction, type AbsorptionModel } from './dot/absorption';
+export { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from './dot/resolve';
+export { clearResolvedDotCache } from './dot/cache';
+
+// The light path: filters, detectors, sample background.
+export { FILTER_DEFAULTS, MAX_BLOCKING_OD } from './light/filters/defaults';
+export { filterTransmission } from './light/filters/filter';
+export { channelTransmission } from './light/filters/channel';
+export { DETECTOR_CLASSES, DETECTOR_IDS, detectorQe, listDetectors, type DetectorClass } from './light/detectors';
+export {
+  AUTOFLUORESCENCE_BANDS,
+  BACKGROUND_REFERENCE_BRIGHTNESS,
+  backgroundEmission,
+  defaultAutofluorescence,
+} from './light/background';
+
+// Signals: crosstalk, unmixing, noise, lot-to-lot sensitivity, whole-panel evaluation.
+export {
+  RESOLUTION_THRESHOLD,
+  collectedMatrix,
+  crosstalkFigures,
+  type CrosstalkFigures,
+  type EmissionComponent,
+  type WorstInterference,
+} from './signal/crosstalk';
+export { svd, singularValues, type Svd } from './signal/linalg/svd';
+export { pseudoInverse } from './signal/linalg/pinv';
 export {
   conditionNumber,
   noiseAmplification,
@@ -19,106 +99,32 @@ export {
   unmixingDiagnostics,
   type UnmixResult,
   type UnmixingDiagnostics,
-} from './unmix';
-// Materials, sizing, line shapes, absorption, one dot (spectral core I).
-export * from './constants';
-export { nmToEv, evToNm, energyWidthToNm } from './units';
-export {
-  gaussianDensityPerEv,
-  gaussianDensityPerNm,
-  centerEvForPeakNm,
-  peakNmOfLine,
-  fwhmNmOfLine,
-  fwhmEvForFwhmNm,
-  sampleGaussianLine,
-} from './lineshape';
-export { intrinsicExtinction, modelExtinctionAtNm, sampleExtinction, type AbsorptionModel } from './absorption';
-export { resolveDot, extinctionAtNm, type DotInput, type ResolvedDot } from './dot';
-export { listMaterials, getMaterial, CARBON_EMISSION_RANGE_NM } from './materials/table';
-export type { Material, MaterialFamily, Toxicity } from './materials/types';
-export {
-  emissionPeakForDiameterNm,
-  diameterForEmissionPeakNm,
-  firstExcitonNmForDiameter,
-  emissionRangeForMaterialNm,
-  isSizedMaterial,
-} from './materials/sizing';
-export { brusGapEv, brusDiameterNm } from './materials/brus';
-export { BULK_PARAMS, type SizedMaterialId, type BulkParams } from './materials/params';
-export { YU_2003, yuDiameterNm, yuExtinctionFirstExciton, type YuCurve } from './materials/yu2003';
-export { INP_ALMEIDA_2023 } from './materials/almeida2023';
-export { stokesShiftEv, STOKES_MODEL } from './materials/stokes';
-export { smoothSizeFit, emissionFwhmEv } from './materials/width';
-export { CARBON_EXCITATION_MODEL, carbonEmissionPeakNm } from './materials/carbon';
-// Design engine, unmixing noise prediction, seeded random numbers.
+} from './signal/unmix';
+export { photonMixing, predictUnmixingNoise, type NoiseInput, type NoisePrediction } from './signal/noise';
+export { simulateUnmixing, type MonteCarloOptions, type MonteCarloResult } from './signal/monte-carlo';
+export { LOT_SHIFT_NM, lotShiftSensitivity, shiftEmission, type LotShiftSensitivity } from './signal/sensitivity';
+export { buildPanelModel, type PanelModel, type ProbeEvaluation } from './signal/panel-model';
+export { evaluatePanel, type PanelEvaluation } from './signal/evaluate';
+export { panelSpectra, type PanelSpectra } from './signal/panel-spectra';
+
+// Design: the objective, the exact catalog search, the whole pipeline.
 export {
   ABUNDANCE_WORDS,
-  DEFAULT_MIN_SIGNAL_FRACTION,
-  abundanceValue,
-  interference,
   worstInterference,
-  targetSignals,
   type AbundanceInput,
   type CollectedMatrix,
   type DesignAssignment,
   type DesignObjective,
 } from './design/objective';
-export { CatalogSearch, type CatalogResult, type CatalogSearchStats } from './design/catalog';
+export type { CatalogResult } from './design/catalog';
 export type { CatalogProblem } from './design/problem';
-export {
-  searchCatalog,
-  searchCatalogAsync,
-  DEFAULT_NODE_BUDGET,
-  type SearchOptions,
-  type SearchProgress,
-} from './design/search';
-export { predictUnmixingNoise, photonMixing, type NoiseInput, type NoisePrediction } from './noise';
-export { simulateUnmixing, type MonteCarloOptions, type MonteCarloResult } from './design/monte-carlo';
-export { createRandom, logFactorial, type RandomSource } from './random';
+export { searchCatalog, type SearchOptions, type SearchProgress } from './design/search';
+export { DESIGN_DEFAULTS, type DesignOptions } from './design/options';
+export { DEFAULT_WINDOW_NM, type DesignRequest, type DesignTarget } from './design/request';
 export {
   runDesign,
   runDesignAsync,
-  designSteps,
-  type DesignResult,
   type DesignHooks,
   type DesignObjectiveReport,
+  type DesignResult,
 } from './design/design';
-export {
-  EXCLUSION_ELEMENTS,
-  MAX_DESIGN_TARGETS,
-  DEFAULT_WINDOW_NM,
-  type DesignRequest,
-  type DesignTarget,
-  type Exclusion,
-} from './design/request';
-export { DEFAULT_FREE_NODE_BUDGET, MAX_NODE_BUDGET, type DesignOptions } from './design/options';
-export { freeGridCatalog } from './design/free';
-export { bandsOverlap, type Band, type FreeCatalog } from './design/free-catalog';
-export {
-  defaultAutofluorescence,
-  backgroundEmission,
-  AUTOFLUORESCENCE_BANDS,
-  BACKGROUND_REFERENCE_BRIGHTNESS,
-} from './background';
-export { overlap, channelSupport, type ChannelSupport, type ConstantEnds } from './linalg/runs';
-export {
-  collectedMatrix,
-  collectedColumn,
-  crosstalkFigures,
-  linesOn,
-  RESOLUTION_THRESHOLD,
-  type EmissionComponent,
-  type CrosstalkFigures,
-  type WorstInterference,
-} from './crosstalk';
-export { lotShiftSensitivity, shiftEmission, LOT_SHIFT_NM, type LotShiftSensitivity } from './sensitivity';
-export {
-  evaluatePanel,
-  panelSpectra,
-  buildPanelModel,
-  clearResolvedDotCache,
-  type PanelEvaluation,
-  type ProbeEvaluation,
-  type PanelSpectra,
-  type PanelModel,
-} from './evaluate';

@@ -1,5 +1,5 @@
 /**
- * The qdpanel worker: API v1 (shared/api-v1.md) and the share-link page route on the Workers runtime. Everything
+ * The qdpanel worker: API v1 (docs/api.md) and the share-link page route on the Workers runtime. Everything
  * else (the built front end in dist/) is served by the asset layer; wrangler.toml sends /api/* and /p/* here first.
  */
 import { Hono } from 'hono';
@@ -7,6 +7,7 @@ import { cors } from 'hono/cors';
 import type { AppEnv } from './env';
 import { errorResponse, onApiError } from './errors';
 import { securityHeaders } from './middleware/security-headers';
+import { wrongMethod } from './middleware/wrong-method';
 import { design } from './routes/design';
 import { detectors } from './routes/detectors';
 import { dots } from './routes/dots';
@@ -22,6 +23,8 @@ app.use('*', securityHeaders());
 // Any origin may call the API (scripts, notebooks, other pages) with plain GET/POST and no credentials: nothing in
 // it depends on cookies or identity, and stored panels are public by their link anyway.
 app.use('/api/*', cors({ origin: '*', allowMethods: ['GET', 'POST'], allowHeaders: ['Content-Type'], maxAge: 86400 }));
+// A known path asked with another method: 405 with the allowed methods (every route below is known to it).
+app.use('*', wrongMethod(app));
 
 // routes (one small app per resource; mount new resources here)
 app.route('/api/v1/health', health);

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import packageJson from '../package.json';
-import * as schemas from './schemas';
-import { DesignRequest } from './design-schema';
+import * as schemas from './schemas/index';
+
 
 type Json = Record<string, unknown>;
 
@@ -19,7 +19,7 @@ const COMPONENTS: [string, z.ZodType][] = [
   ['Detector', schemas.Detector],
   ['ResolvedDot', schemas.ResolvedDotJson],
   ['Evaluation', schemas.Evaluation],
-  ['DesignRequest', DesignRequest],
+  ['DesignRequest', schemas.DesignRequest],
   ['DesignResponse', schemas.DesignResponse],
   ['MaterialList', schemas.MaterialList],
   ['DetectorList', schemas.DetectorList],

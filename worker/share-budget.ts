@@ -1,6 +1,6 @@
 import type { Context } from 'hono';
 import type { AppEnv } from './env';
-import { ApiError } from './errors';
+import { ApiError } from './schemas/index';
 
 /** Seconds a client waits after its budget of new share links is spent (the binding's window, wrangler.toml). */
 export const SHARE_BUDGET_PERIOD_S = 60;

@@ -1,4 +1,4 @@
-import { canonicalJson, isShareId, shareIdOf } from './canonical';
+import { canonicalJson, isShareId, shareIdOf } from './share-id';
 
 const KEY_PREFIX = 'panel:';
 

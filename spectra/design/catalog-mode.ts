@@ -3,17 +3,14 @@
  * computed once (channel × probe at abundance 1). The signal floor and the rule that no channel passes an excitation
  * line apply only when the request sets them (options.minSignalFraction, options.lineClearance).
  */
-import { SpectraError } from '../errors';
-import { DEFAULT_GRID } from '../grid';
-import { channelTransmission } from '../filters/channel';
-import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../panel';
+import { SpectraError } from '../core/errors';
+import { DEFAULT_GRID } from '../core/grid';
+import { channelTransmission } from '../light/filters/channel';
+import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../core/panel';
 import { CatalogSearch, type CatalogSearchStats } from './catalog';
 import { asCandidate, candidateMatrix } from './matrix';
 import type { ResolvedDesignOptions } from './options';
 import { searchSteps, type SearchProgress } from './search';
-
-/** Most candidates catalog mode takes: a panel's limits (16 probes, 64 channels). */
-export const MAX_CANDIDATES = Object.freeze({ probes: 16, channels: 64 });
 
 /** A channel passes a line when its transmission there is at least this (1 %: our choice, far above any blocking floor). */
 export const LINE_PASS_TRANSMISSION = 0.01;
@@ -27,23 +24,6 @@ export interface CatalogOutcome {
   stats: CatalogSearchStats & { candidateProbes: number; candidateChannels: number; channelsDropped: string[] };
 }
 
-function checkCandidates(list: unknown, field: 'probes' | 'channels', needed: number): void {
-  const max = MAX_CANDIDATES[field];
-  if (!Array.isArray(list))
-    throw new SpectraError('invalid_input', `candidates.${field} must be an array`, ['candidates', field]);
-  if (list.length > max)
-    throw new SpectraError('invalid_input', `at most ${max} candidate ${field} are allowed, got ${list.length}`, [
-      'candidates',
-      field,
-    ]);
-  if (list.length < needed)
-    throw new SpectraError(
-      'invalid_input',
-      `${needed} targets need at least ${needed} candidate ${field}, got ${list.length}`,
-      ['candidates', field],
-    );
-}
-
 /** Runs catalog mode as steps (see search.ts for the drivers). */
 export function* catalogDesignSteps(
   abundance: number[],
@@ -53,8 +33,6 @@ export function* catalogDesignSteps(
 ): Generator<SearchProgress, CatalogOutcome> {
   const n = abundance.length;
   const { probes, channels: offered } = request.candidates ?? { probes: [], channels: [] };
-  checkCandidates(probes, 'probes', n);
-  checkCandidates(offered, 'channels', n);
   const dropped: string[] = [];
   const channels = offered.filter((ch, c) => {
     if (!o.lineClearance) return true;

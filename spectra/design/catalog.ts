@@ -11,7 +11,7 @@
  */
 import { flattenProblem, fullEnumerationSize, type CatalogProblem, type FlatProblem } from './problem';
 import { flatObjective, greedyDesign } from './greedy';
-import { bottleneckAssignment, constrainedAssignment, type ChannelChoice } from './channels';
+import { constrainedAssignment, type ChannelChoice } from './channels';
 import { worstInterference, type DesignAssignment, type DesignObjective } from './objective';
 import { childKey, extendFrame, type Frame } from './frame';
 

@@ -2,19 +2,13 @@
  * The noise figures reported with a design: the proposed panel's collected matrix at abundance 1, scaled to photons
  * (options.photons detected in each target's own channel at abundance 1), through predictUnmixingNoise.
  */
-import { SpectraError } from '../errors';
-import type { PanelEvaluation } from '../evaluate';
-import { photonMixing, predictUnmixingNoise, type NoisePrediction } from '../noise';
+import type { PanelEvaluation } from '../signal/evaluate';
+import { photonMixing, predictUnmixingNoise, type NoisePrediction } from '../signal/noise';
 import type { ResolvedDesignOptions } from './options';
 
-function perItem(value: number | number[], count: number, field: string): number[] {
-  const list = typeof value === 'number' ? new Array<number>(count).fill(value) : value;
-  if (list.length !== count)
-    throw new SpectraError('invalid_input', `options.${field} must be a number or ${count} numbers`, [
-      'options',
-      field,
-    ]);
-  return list;
+/** One number per target (or channel): a single number stands for all. */
+function perItem(value: number | number[], count: number): number[] {
+  return typeof value === 'number' ? new Array<number>(count).fill(value) : value;
 }
 
 /** Noise of a proposed panel whose channel t is target t's own channel. */
@@ -24,13 +18,13 @@ export function designNoise(
   o: ResolvedDesignOptions,
 ): NoisePrediction & { photons: number[] } {
   const n = abundance.length;
-  const photons = perItem(o.photons, n, 'photons');
+  const photons = perItem(o.photons, n);
   const atUnitAbundance = evaluation.collected.map((row) => row.map((x, p) => x / abundance[p]));
   const primary = abundance.map((_, t) => t);
   const prediction = predictUnmixingNoise({
     mixingPhotons: photonMixing(atUnitAbundance, primary, photons),
     abundance,
-    backgroundPhotons: perItem(o.backgroundPhotons, n, 'backgroundPhotons'),
+    backgroundPhotons: perItem(o.backgroundPhotons, n),
     readNoiseElectrons: o.readNoiseElectrons,
     excessNoiseFactor: o.excessNoiseFactor,
     primaryChannel: primary,

@@ -3,19 +3,19 @@
  * catalog mode (candidates given) or free mode, turn the answer into a panel whose probes carry their `channel` and
  * `abundance` (so evaluatePanel reproduces the objective), evaluate it, and predict its unmixing noise.
  */
-import { SpectraError } from '../errors';
-import type { ChannelSpec, PanelSpec, ProbeSpec } from '../panel';
-import { evaluatePanel, type PanelEvaluation } from '../evaluate';
-import type { NoisePrediction } from '../noise';
-import { catalogDesignSteps } from './catalog-mode';
-import { freeDesignSteps } from './free';
+import type { ChannelSpec, PanelSpec, ProbeSpec } from '../core/panel';
+import { evaluatePanel, type PanelEvaluation } from '../signal/evaluate';
+import type { NoisePrediction } from '../signal/noise';
+import { catalogDesignSteps, type CatalogOutcome } from './catalog-mode';
+import { freeDesignSteps, type FreeOutcome } from './free';
 import { bandChannel } from './free-catalog';
 import { designNoise } from './design-noise';
 import { worstInterference } from './objective';
 import { resolveOptions } from './options';
 import { freeProbes } from './refine';
-import { EXCLUSION_ELEMENTS, normalizeTargets, normalizeWindow, type DesignRequest } from './request';
-import { getMaterial } from '../materials/table';
+import { normalizeWindow, targetsOf, type DesignRequest } from './request';
+import { exclusionsOf } from '../dot/materials/exclusions';
+import { getMaterial } from '../dot/materials/catalog';
 import { runSteps, runStepsAsync, type SearchProgress } from './search';
 
 /** The design objective as the API reports it: probe ids and target names of the pair that sets it. */
@@ -34,7 +34,7 @@ export interface DesignResult {
   evaluation: PanelEvaluation;
   objective: DesignObjectiveReport;
   exact: boolean;
-  stats: Record<string, unknown> & { nodesVisited: number; fullEnumeration: number; bound: number | null };
+  stats: CatalogOutcome['stats'] | FreeOutcome['stats'];
   noise: NoisePrediction & { photons: number[] };
   warnings: string[];
 }
@@ -50,12 +50,7 @@ export function* designSteps(
   request: DesignRequest,
   shouldStop?: () => boolean,
 ): Generator<SearchProgress, DesignResult> {
-  if (request === null || typeof request !== 'object')
-    throw new SpectraError('invalid_input', 'a design request must be an object', []);
-  const { names, abundance } = normalizeTargets(request.targets);
-  if (!Array.isArray(request.excitation) || request.excitation.length === 0) {
-    throw new SpectraError('invalid_input', 'a design needs at least one excitation line', ['excitation']);
-  }
+  const { names, abundance } = targetsOf(request.targets);
   const free = request.candidates === undefined;
   const o = resolveOptions(request.options, free);
   let probes: ProbeSpec[];
@@ -107,12 +102,12 @@ export function* designSteps(
   const warnings = [...noise.warnings];
   for (const id of new Set(panel.probes.map((p) => p.material))) {
     const m = getMaterial(id);
-    const hazards = Object.entries(EXCLUSION_ELEMENTS)
-      .filter(([, el]) => m.elements.includes(el))
-      .map(([word]) => word);
+    const hazards = exclusionsOf(m);
     if (hazards.length) {
       warnings.push(
-        `the proposal uses ${m.name}, which contains ${hazards.join(' and ')}: see its cautions (GET /api/v1/materials) and handle it as local regulations, institutional safety rules and licensed practice require`,
+        `the proposal uses ${m.name}, which contains ${hazards.join(' and ')}: see its cautions ` +
+          '(GET /api/v1/materials) and handle it as local regulations, institutional safety rules and licensed ' +
+          'practice require',
       );
     }
   }
@@ -131,7 +126,13 @@ export function runDesign(request: DesignRequest, hooks: DesignHooks = {}): Desi
   return runSteps(designSteps(request, hooks.shouldStop), hooks.onProgress);
 }
 
-/** Runs a design, yielding to the event loop between chunks (a browser Web Worker: progress and stop). */
-export function runDesignAsync(request: DesignRequest, hooks: DesignHooks = {}): Promise<DesignResult> {
-  return runStepsAsync(designSteps(request, hooks.shouldStop), hooks.onProgress);
+/**
+ * Runs a design, awaiting `pause` between chunks of the search (in a browser Web Worker a zero-delay timer, so that
+ * progress is posted and a stop request can arrive).
+ */
+export function runDesignAsync(
+  request: DesignRequest,
+  hooks: DesignHooks & { pause: () => Promise<void> },
+): Promise<DesignResult> {
+  return runStepsAsync(designSteps(request, hooks.shouldStop), hooks.pause, hooks.onProgress);
 }

@@ -4,8 +4,8 @@
  * window and clear of every excitation line by half the width plus the edge width. Two passbands conflict when their
  * FWHM intervals overlap (free-mode designs use non-overlapping bands).
  */
-import type { Material } from '../materials/types';
-import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../panel';
+import type { Material } from '../dot/materials/types';
+import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../core/panel';
 import type { ResolvedDesignOptions } from './options';
 
 /** A bandpass filter's centre and width (FWHM), nm. */

@@ -6,8 +6,8 @@
  * `exact` means stage 2 was exhausted: no design drawn from the stated grid catalog beats the answer (the refinement
  * can only have improved on that optimum). The continuous problem has no proven bound.
  */
-import { SpectraError } from '../errors';
-import type { ExcitationLine } from '../panel';
+import { SpectraError } from '../core/errors';
+import type { ExcitationLine } from '../core/panel';
 import { CatalogSearch } from './catalog';
 import { freeCatalog, type FreeCatalog } from './free-catalog';
 import { candidateMatrix } from './matrix';

@@ -4,11 +4,11 @@
  * evaluates to the objective the search saw. A panel holds at most 16 probes and 64 channels, so large candidate
  * sets are computed in blocks.
  */
-import { SpectraError } from '../errors';
-import { DEFAULT_GRID, type WavelengthGrid } from '../grid';
-import { buildPanelModel } from '../evaluate';
-import { collectedMatrix } from '../crosstalk';
-import type { ChannelSpec, ExcitationLine, PanelSpec, ProbeSpec } from '../panel';
+import { SpectraError } from '../core/errors';
+import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
+import { buildPanelModel } from '../signal/panel-model';
+import { collectedMatrix } from '../signal/crosstalk';
+import type { ChannelSpec, ExcitationLine, PanelSpec, ProbeSpec } from '../core/panel';
 
 const PROBES_PER_BLOCK = 16;
 const CHANNELS_PER_BLOCK = 64;

@@ -6,7 +6,6 @@
  * the light of t's probe in u's channel relative to u's own signal there: the same quantity as `worst` in the
  * evaluate route once abundances are inside collected. A design is scored by its worst interference.
  */
-import { SpectraError } from '../errors';
 
 /** A channel × probe matrix of collected light at abundance 1 (rows: channels, columns: probes). */
 export type CollectedMatrix = readonly ArrayLike<number>[];
@@ -25,7 +24,7 @@ export interface DesignObjective {
 }
 
 /**
- * Relative abundance words of a design request. Our own convention (documented in DEVELOPERS.md): one
+ * Relative abundance words of a design request. Our own convention (documented in docs/science.md): one
  * decade between "high" and "low", "medium" about half-way on a log scale.
  */
 export const ABUNDANCE_WORDS = Object.freeze({ high: 1, medium: 0.3, low: 0.1 });
@@ -39,23 +38,9 @@ export type AbundanceInput = number | keyof typeof ABUNDANCE_WORDS;
  */
 export const DEFAULT_MIN_SIGNAL_FRACTION = 0.05;
 
-/** Turns an abundance (a number > 0 or high/medium/low) into a number; throws `invalid_input` naming `path`. */
-export function abundanceValue(input: AbundanceInput, path: (string | number)[] = ['abundance']): number {
-  if (typeof input === 'string') {
-    const value = (ABUNDANCE_WORDS as Record<string, number>)[input];
-    if (value === undefined) {
-      throw new SpectraError(
-        'invalid_input',
-        `abundance must be a number > 0 or high, medium or low, got "${input}"`,
-        path,
-      );
-    }
-    return value;
-  }
-  if (typeof input !== 'number' || !Number.isFinite(input) || input <= 0) {
-    throw new SpectraError('invalid_input', `abundance must be a finite number > 0, got ${String(input)}`, path);
-  }
-  return input;
+/** An abundance as a number: the value of a word (ABUNDANCE_WORDS), or the number itself. */
+export function abundanceValue(input: AbundanceInput): number {
+  return typeof input === 'string' ? ABUNDANCE_WORDS[input] : input;
 }
 
 /** I(t→u) for one ordered pair of targets of a design (Infinity when u's own signal is zero). */

@@ -1,8 +1,7 @@
 /**
  * Settings of a design search and of the noise figures reported with it, with their documented defaults.
  */
-import { SpectraError } from '../errors';
-import { FILTER_DEFAULTS } from '../filters/defaults';
+import { FILTER_DEFAULTS } from '../light/filters/defaults';
 import { DEFAULT_MIN_SIGNAL_FRACTION } from './objective';
 import { DEFAULT_NODE_BUDGET } from './search';
 
@@ -45,65 +44,41 @@ export type ResolvedDesignOptions = Required<Omit<DesignOptions, 'minSignalFract
  */
 export const DEFAULT_FREE_NODE_BUDGET = 5_000;
 
-/** Largest node budget a request may ask for (keeps one request's CPU bounded). */
-export const MAX_NODE_BUDGET = 5_000_000;
+/**
+ * The defaults of the search and noise options other than the node budget and the signal floor (which depend on the
+ * mode). Our choices: passbands every 10 nm at 20, 30 and 40 nm FWHM within 20–60 nm (common stock widths of emission
+ * filters, common practice), 1,000 photons in each target's own channel, an ideal counting detector.
+ */
+export const DESIGN_DEFAULTS = Object.freeze({
+  lineClearance: false,
+  peakStepNm: 10,
+  bandStepNm: 10,
+  bandwidthsNm: Object.freeze([20, 30, 40]),
+  bandwidthRangeNm: Object.freeze([20, 60] as const),
+  edgeWidthNm: FILTER_DEFAULTS.bandpass.edgeWidthNm,
+  refine: true,
+  photons: 1000,
+  backgroundPhotons: 0,
+  readNoiseElectrons: 0,
+  excessNoiseFactor: 1,
+});
 
-function check(ok: boolean, field: string, message: string): void {
-  if (!ok) throw new SpectraError('invalid_input', `options.${field} ${message}`, ['options', field]);
-}
-
-/** Fills defaults and checks ranges; `free` selects the free-mode default of the signal floor. */
+/** Fills in the defaults; `free` selects the free-mode node budget and signal floor. The API's schema checks ranges. */
 export function resolveOptions(options: DesignOptions = {}, free: boolean): ResolvedDesignOptions {
-  const o: ResolvedDesignOptions = {
+  const d = DESIGN_DEFAULTS;
+  return {
     nodeBudget: options.nodeBudget ?? (free ? DEFAULT_FREE_NODE_BUDGET : DEFAULT_NODE_BUDGET),
     minSignalFraction: options.minSignalFraction ?? (free ? DEFAULT_MIN_SIGNAL_FRACTION : 0),
-    lineClearance: options.lineClearance ?? false,
-    peakStepNm: options.peakStepNm ?? 10,
-    bandStepNm: options.bandStepNm ?? 10,
-    bandwidthsNm: options.bandwidthsNm ?? [20, 30, 40],
-    bandwidthRangeNm: options.bandwidthRangeNm ?? [20, 60],
-    edgeWidthNm: options.edgeWidthNm ?? FILTER_DEFAULTS.bandpass.edgeWidthNm,
-    refine: options.refine ?? true,
-    photons: options.photons ?? 1000,
-    backgroundPhotons: options.backgroundPhotons ?? 0,
-    readNoiseElectrons: options.readNoiseElectrons ?? 0,
-    excessNoiseFactor: options.excessNoiseFactor ?? 1,
+    lineClearance: options.lineClearance ?? d.lineClearance,
+    peakStepNm: options.peakStepNm ?? d.peakStepNm,
+    bandStepNm: options.bandStepNm ?? d.bandStepNm,
+    bandwidthsNm: options.bandwidthsNm ?? [...d.bandwidthsNm],
+    bandwidthRangeNm: options.bandwidthRangeNm ?? [d.bandwidthRangeNm[0], d.bandwidthRangeNm[1]],
+    edgeWidthNm: options.edgeWidthNm ?? d.edgeWidthNm,
+    refine: options.refine ?? d.refine,
+    photons: options.photons ?? d.photons,
+    backgroundPhotons: options.backgroundPhotons ?? d.backgroundPhotons,
+    readNoiseElectrons: options.readNoiseElectrons ?? d.readNoiseElectrons,
+    excessNoiseFactor: options.excessNoiseFactor ?? d.excessNoiseFactor,
   };
-  check(
-    Number.isInteger(o.nodeBudget) && o.nodeBudget >= 1 && o.nodeBudget <= MAX_NODE_BUDGET,
-    'nodeBudget',
-    `must be an integer from 1 to ${MAX_NODE_BUDGET}`,
-  );
-  check(o.minSignalFraction >= 0 && o.minSignalFraction <= 1, 'minSignalFraction', 'must lie between 0 and 1');
-  check(
-    Number.isInteger(o.peakStepNm) && o.peakStepNm >= 1 && o.peakStepNm <= 50,
-    'peakStepNm',
-    'must be an integer from 1 to 50 nm',
-  );
-  check(
-    Number.isInteger(o.bandStepNm) && o.bandStepNm >= 1 && o.bandStepNm <= 50,
-    'bandStepNm',
-    'must be an integer from 1 to 50 nm',
-  );
-  const [wMin, wMax] = o.bandwidthRangeNm;
-  check(
-    Number.isInteger(wMin) && Number.isInteger(wMax) && wMin >= 5 && wMin <= wMax && wMax <= 200,
-    'bandwidthRangeNm',
-    'must be [min, max] whole nm with 5 ≤ min ≤ max ≤ 200',
-  );
-  check(
-    o.bandwidthsNm.length >= 1 &&
-      o.bandwidthsNm.length <= 8 &&
-      o.bandwidthsNm.every((w) => Number.isInteger(w) && w >= wMin && w <= wMax),
-    'bandwidthsNm',
-    `must list 1–8 whole widths inside bandwidthRangeNm (${wMin}–${wMax} nm)`,
-  );
-  check(o.edgeWidthNm >= 0 && o.edgeWidthNm <= 20, 'edgeWidthNm', 'must lie between 0 and 20 nm');
-  check(
-    o.readNoiseElectrons >= 0 && Number.isFinite(o.readNoiseElectrons),
-    'readNoiseElectrons',
-    'must be finite and ≥ 0',
-  );
-  check(o.excessNoiseFactor >= 1 && o.excessNoiseFactor <= 10, 'excessNoiseFactor', 'must lie between 1 and 10');
-  return o;
 }

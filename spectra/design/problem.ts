@@ -2,7 +2,7 @@
  * A catalog design problem in the flat form the search works on: every (probe, channel) pair is one candidate
  * "value" v = probe · channelCount + channel that a target can take.
  */
-import { SpectraError } from '../errors';
+import { SpectraError } from '../core/errors';
 import type { CollectedMatrix } from './objective';
 
 /** What a catalog search needs: the candidate matrix at abundance 1, the targets' abundances and the floors. */

@@ -4,8 +4,8 @@
  * the worst interference and keeps every rule: peaks within the material's reach and the window, widths within the
  * manufacturable range, bands inside the window, non-overlapping and clear of the excitation lines, the signal floor.
  */
-import type { Material } from '../materials/types';
-import type { ExcitationLine, MaterialId, ProbeSpec } from '../panel';
+import type { Material } from '../dot/materials/types';
+import type { ExcitationLine, MaterialId, ProbeSpec } from '../core/panel';
 import { bandChannel, bandPassesLine, bandsOverlap, type Band } from './free-catalog';
 import { candidateMatrix } from './matrix';
 import { worstInterference } from './objective';

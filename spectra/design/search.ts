@@ -73,16 +73,20 @@ export function runSteps<T>(steps: Generator<SearchProgress, T>, onProgress?: (p
   }
 }
 
-/** As runSteps, but yields to the event loop after each report so that messages (e.g. a stop request) can arrive. */
+/**
+ * As runSteps, but awaits `pause` after each report: the caller's way to yield to its event loop (in a browser, a
+ * zero-delay timer) so that messages such as a stop request can arrive between chunks.
+ */
 export async function runStepsAsync<T>(
   steps: Generator<SearchProgress, T>,
+  pause: () => Promise<void>,
   onProgress?: (p: SearchProgress) => void,
 ): Promise<T> {
   for (;;) {
     const next = steps.next();
     if (next.done) return next.value;
     onProgress?.(next.value);
-    await new Promise((resolve) => setTimeout(resolve, 0));
+    await pause();
   }
 }
 
@@ -99,16 +103,4 @@ export function searchCatalog(problem: CatalogProblem, options: SearchOptions = 
     options.shouldStop,
   );
   return runSteps(steps, options.onProgress);
-}
-
-/** As searchCatalog (no default budget), yielding to the event loop between chunks so a stop request can arrive. */
-export function searchCatalogAsync(problem: CatalogProblem, options: SearchOptions = {}): Promise<CatalogResult> {
-  const search = new CatalogSearch(problem, options.initial);
-  const steps = searchSteps(
-    search,
-    options.nodeBudget ?? Number.POSITIVE_INFINITY,
-    options.chunkNodes ?? 2000,
-    options.shouldStop,
-  );
-  return runStepsAsync(steps, options.onProgress);
 }

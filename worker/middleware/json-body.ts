@@ -1,8 +1,5 @@
 import type { MiddlewareHandler } from 'hono';
-import { ApiError } from '../errors';
-
-/** Largest request body the API reads, in bytes (256 KiB, shared/api-v1.md "Errors"). */
-export const MAX_BODY_BYTES = 256 * 1024;
+import { ApiError, LIMITS } from '../schemas/index';
 
 const JSON_MEDIA_TYPE = /^application\/([\w.-]+\+)?json$/;
 
@@ -11,7 +8,7 @@ const JSON_MEDIA_TYPE = /^application\/([\w.-]+\+)?json$/;
  * (413: by Content-Length up front and by counting bytes while reading, so a chunked body is limited too) and
  * rejects malformed JSON (400 `invalid_json`) before any validator runs.
  */
-export function jsonBody(maxBytes: number = MAX_BODY_BYTES): MiddlewareHandler {
+export function jsonBody(maxBytes: number = LIMITS.bodyBytes): MiddlewareHandler {
   return async function readJsonBody(c, next) {
     const contentType = c.req.header('content-type') ?? '';
     const mediaType = contentType.split(';')[0].trim().toLowerCase();
@@ -85,7 +82,7 @@ async function readText(body: ReadableStream<Uint8Array> | null, maxBytes: numbe
     offset += chunk.byteLength;
   }
   try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(bytes);
+    return new TextDecoder('utf-8', { fatal: true, ignoreBOM: false }).decode(bytes);
   } catch {
     throw new ApiError(400, 'invalid_json', 'the body is not valid UTF-8 text');
   }

@@ -1,10 +1,9 @@
 import { Hono } from 'hono';
 import { runDesign } from '../../spectra/index';
-import { DesignRequest } from '../design-schema';
+import { DesignRequest } from '../schemas/index';
 import type { AppEnv } from '../env';
 import { finiteJsonResponse } from '../json';
 import { jsonBody } from '../middleware/json-body';
-import { methodNotAllowed } from '../middleware/method-not-allowed';
 import { validJson } from '../validation';
 
 /**
@@ -13,5 +12,4 @@ import { validJson } from '../validation';
  * ends first the answer is the best found, with `exact: false` and the bound in `stats.bound`.
  */
 export const design = new Hono<AppEnv>()
-  .post('/', jsonBody(), validJson(DesignRequest), (c) => finiteJsonResponse(runDesign(c.req.valid('json'))))
-  .all('/', methodNotAllowed('POST'));
+  .post('/', jsonBody(), validJson(DesignRequest), (c) => finiteJsonResponse(runDesign(c.req.valid('json'))));

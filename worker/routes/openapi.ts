@@ -1,7 +1,6 @@
 import { Hono } from 'hono';
 import type { AppEnv } from '../env';
-import { methodNotAllowed } from '../middleware/method-not-allowed';
 import { openApiDocument } from '../openapi';
 
 /** GET /api/v1/openapi.json: the OpenAPI 3.1 description generated from worker/schemas.ts. */
-export const openapi = new Hono<AppEnv>().get('/', (c) => c.json(openApiDocument())).all('/', methodNotAllowed('GET'));
+export const openapi = new Hono<AppEnv>().get('/', (c) => c.json(openApiDocument()));

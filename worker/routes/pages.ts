@@ -1,6 +1,5 @@
 import { Hono } from 'hono';
 import type { AppEnv } from '../env';
-import { methodNotAllowed } from '../middleware/method-not-allowed';
 import { loadPanelText } from '../store';
 
 /** The plain page for an unknown share link or path (no script, no inline style: it must pass the CSP). */
@@ -33,5 +32,4 @@ export const pages = new Hono<AppEnv>()
     const index = await c.env.ASSETS.fetch(new Request(new URL('/', c.req.url)));
     if (!index.ok) return notFoundPage();
     return new Response(index.body, { status: 200, headers: { 'content-type': 'text/html; charset=utf-8' } });
-  })
-  .all('/:id', methodNotAllowed('GET'));
+  });

@@ -1,12 +1,10 @@
 import { Hono } from 'hono';
 import { DEFAULT_GRID, evaluatePanel } from '../../spectra/index';
-import { SHARE_ID_PATTERN } from '../canonical';
+import { SHARE_ID_PATTERN } from '../share-id';
 import type { AppEnv } from '../env';
-import { ApiError } from '../errors';
 import { finiteJsonResponse } from '../json';
 import { jsonBody } from '../middleware/json-body';
-import { methodNotAllowed } from '../middleware/method-not-allowed';
-import { Panel } from '../schemas';
+import { ApiError, Panel } from '../schemas/index';
 import { spendShareBudget } from '../share-budget';
 import { loadPanelText, savePanel } from '../store';
 import { validJson } from '../validation';
@@ -35,7 +33,4 @@ export const panels = new Hono<AppEnv>()
       'content-type': 'application/json; charset=utf-8',
       'cache-control': 'public, max-age=31536000, immutable',
     });
-  })
-  .all('/', methodNotAllowed('POST'))
-  .all('/evaluate', methodNotAllowed('POST'))
-  .all(ID_PATH, methodNotAllowed('GET'));
+  });

@@ -1,14 +1,11 @@
 import { z } from 'zod';
-import { LIMITS, ranged, wavelengthNm } from './fields';
+import { gridPointCount } from '../../spectra/index';
+import { LIMITS } from './limits';
+import { ranged, wavelengthNm } from './fields';
 import { checkDotSize, dotFields } from './probe';
 
-/** Number of samples of a grid from startNm to endNm in steps of stepNm (both ends included). */
-export function gridPointCount(grid: { startNm: number; endNm: number; stepNm: number }): number {
-  // The small tolerance keeps 300..1000 step 0.1 at 7,001 points despite binary rounding of the step.
-  return Math.floor((grid.endNm - grid.startNm) / grid.stepNm + 1e-9) + 1;
-}
 
-/** A wavelength grid for a returned spectrum: at most LIMITS.maxGridPoints samples. */
+/** A wavelength grid for a returned spectrum: at most LIMITS.gridPoints samples. */
 export const Grid = z
   .strictObject({
     startNm: wavelengthNm(),
@@ -18,10 +15,10 @@ export const Grid = z
   .superRefine((grid, ctx) => {
     if (!(grid.endNm > grid.startNm)) {
       ctx.addIssue({ code: 'custom', message: 'must be greater than startNm', path: ['endNm'] });
-    } else if (gridPointCount(grid) > LIMITS.maxGridPoints) {
+    } else if (gridPointCount(grid.startNm, grid.endNm, grid.stepNm) > LIMITS.gridPoints) {
       ctx.addIssue({
         code: 'custom',
-        message: `gives ${gridPointCount(grid)} points; at most ${LIMITS.maxGridPoints} are allowed`,
+        message: `gives ${gridPointCount(grid.startNm, grid.endNm, grid.stepNm)} points; at most ${LIMITS.gridPoints} are allowed`,
         path: ['stepNm'],
         params: { apiCode: 'out_of_range' },
       });

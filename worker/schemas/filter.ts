@@ -1,19 +1,20 @@
 import { z } from 'zod';
-import { fraction, LIMITS, ranged, wavelengthNm } from './fields';
+import { RANGES } from './limits';
+import { ranged, wavelengthNm } from './fields';
 import { pointsTable } from './spectrum';
 
 /** Options shared by the modelled filters (defaults documented in spectra/panel.ts: EdgeFilterOptions). */
 const edgeOptions = {
-  peakTransmission: fraction().optional(),
-  edgeWidthNm: ranged(LIMITS.edgeWidthNm[0], LIMITS.edgeWidthNm[1], 'nm').optional(),
-  blockingOD: ranged(LIMITS.blockingOD[0], LIMITS.blockingOD[1]).optional(),
+  peakTransmission: ranged(0, 1, '', true).optional(),
+  edgeWidthNm: ranged(RANGES.edgeWidthNm[0], RANGES.edgeWidthNm[1], 'nm').optional(),
+  blockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
 };
 
 /** A bandpass filter: centre and FWHM of the passband (e.g. 605/20). */
 export const BandpassFilter = z.strictObject({
   type: z.literal('bandpass'),
   centerNm: wavelengthNm(),
-  widthNm: ranged(LIMITS.filterWidthNm[0], LIMITS.filterWidthNm[1], 'nm'),
+  widthNm: ranged(RANGES.filterWidthNm[0], RANGES.filterWidthNm[1], 'nm'),
   ...edgeOptions,
 });
 

@@ -1,21 +1,32 @@
-// The schema family's public names (re-exported by worker/schemas.ts).
-export { LIMITS } from './fields';
+/**
+ * The API's contract as zod schemas (docs/api.md): they validate requests, give the TypeScript types (z.infer) and
+ * generate GET /api/v1/openapi.json. The page validates what it computes and loads with the same schemas, and reads
+ * their complaints through issueToError, so both say the same words.
+ */
+import type { z } from 'zod';
+import type {
+  DesignResult,
+  LotShiftSensitivity,
+  Material as MaterialSpec,
+  PanelEvaluation,
+  PanelSpec,
+} from '../../spectra/index';
+import { Panel } from './panel';
+import type { DesignResponse } from './design-response';
+import type { Evaluation, LotShiftJson } from './evaluation';
+import type { Material } from './responses';
+
+export { LIMITS, RANGES } from './limits';
+export { ApiError, ErrorBody, type ApiErrorCode } from './errors';
+export { issueToError, pathText } from './issues';
 export { pointsTable } from './spectrum';
 export { BandpassFilter, EdgeFilter, DichroicFilter, TableFilter, Filter } from './filter';
 export { MaterialIdSchema, Probe } from './probe';
 export { ExcitationLine, Channel, Background, Panel } from './panel';
-export { Grid, DotRequest, SampledSpectrumJson, gridPointCount } from './dot';
-export {
-  ErrorBody,
-  Health,
-  ShareCreated,
-  Material,
-  MaterialList,
-  Detector,
-  DetectorList,
-  ResolvedDotJson,
-} from './responses';
+export { Grid, DotRequest, SampledSpectrumJson } from './dot';
+export { Health, ShareCreated, Material, MaterialList, Detector, DetectorList, ResolvedDotJson } from './responses';
 export { Evaluation, ProbeEvaluationJson, WorstJson, LotShiftJson, GridJson } from './evaluation';
+export { Abundance, DesignOptions, DesignRequest, DesignTarget } from './design';
 export {
   DesignResponse,
   DesignObjectiveJson,
@@ -23,3 +34,21 @@ export {
   FreeStatsJson,
   NoisePredictionJson,
 } from './design-response';
+
+/** A validated panel. */
+export type Panel = z.infer<typeof Panel>;
+
+// spectra/ cannot import zod, so its types are written by hand. These lines stop compiling when a schema and the
+// spectral library's type drift apart (in both directions where both describe the same data).
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+type Assert<T extends true> = T;
+/** The zod Panel and spectra's PanelSpec describe the same shape. */
+export type PanelMatchesSpec = Assert<Same<Panel, PanelSpec>>;
+/** An evaluation as the API sends it is exactly what evaluatePanel returns. */
+export type EvaluationMatchesSpec = Assert<Same<z.infer<typeof Evaluation>, PanelEvaluation>>;
+/** The lot-shift figures likewise. */
+export type LotShiftMatchesSpec = Assert<Same<z.infer<typeof LotShiftJson>, LotShiftSensitivity>>;
+/** A material of GET /api/v1/materials is the library's Material. */
+export type MaterialMatchesSpec = Assert<Same<z.infer<typeof Material>, MaterialSpec>>;
+/** What runDesign returns is a valid design answer (the answer may also carry null where a number had no finite value). */
+export type DesignResponseMatchesSpec = Assert<DesignResult extends z.infer<typeof DesignResponse> ? true : false>;

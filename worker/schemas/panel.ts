@@ -1,6 +1,7 @@
 import { z } from 'zod';
-import { listDetectors } from '../../spectra/index';
-import { identifier, LIMITS, ranged, text, wavelengthNm } from './fields';
+import { LIMITS, RANGES } from './limits';
+import { DETECTOR_IDS } from '../../spectra/index';
+import { identifier, ranged, text, wavelengthNm } from './fields';
 import { Filter } from './filter';
 import { Probe } from './probe';
 import { pointsTable } from './spectrum';
@@ -8,11 +9,9 @@ import { pointsTable } from './spectrum';
 /** One excitation line (laser or LED), relative power default 1. */
 export const ExcitationLine = z.strictObject({
   wavelengthNm: wavelengthNm(),
-  powerRel: ranged(LIMITS.powerRel[0], LIMITS.powerRel[1]).optional(),
+  powerRel: ranged(RANGES.powerRel[0], RANGES.powerRel[1]).optional(),
 });
 
-/** Ids of the detector classes a channel may name (GET /api/v1/detectors). */
-const DETECTOR_IDS = listDetectors().map((d) => d.id) as [string, ...string[]];
 
 /** One detection channel: its filters, the lines on while it is read, its detector class. */
 export const Channel = z.strictObject({
@@ -20,11 +19,11 @@ export const Channel = z.strictObject({
   label: text().optional(),
   filters: z
     .array(Filter, { error: 'must be an array of filters' })
-    .max(LIMITS.maxFiltersPerChannel, { error: `has more than ${LIMITS.maxFiltersPerChannel} filters` }),
+    .max(LIMITS.filtersPerChannel, { error: `has more than ${LIMITS.filtersPerChannel} filters` }),
   excitationNm: z
     .union([
       wavelengthNm(),
-      z.array(wavelengthNm()).min(1, { error: 'must not be empty' }).max(LIMITS.maxExcitationLines),
+      z.array(wavelengthNm()).min(1, { error: 'must not be empty' }).max(LIMITS.lines),
     ])
     .optional(),
   detector: z.enum(DETECTOR_IDS, { error: `must be one of ${DETECTOR_IDS.join(', ')}` }).optional(),
@@ -32,8 +31,8 @@ export const Channel = z.strictObject({
 
 /** Sample autofluorescence: the default model scaled by `level`, or a measured spectrum times `level`. */
 export const Background = z.strictObject({
-  level: ranged(LIMITS.backgroundLevel[0], LIMITS.backgroundLevel[1]),
-  points: pointsTable(LIMITS.maxSpectralValue, 'background').shape.points.optional(),
+  level: ranged(RANGES.backgroundLevel[0], RANGES.backgroundLevel[1]),
+  points: pointsTable(RANGES.spectralValue[1], 'background').shape.points.optional(),
 });
 
 /** A panel as the API takes it (shared/api-v1.md, "Panels"): the single source of truth for its shape. */
@@ -44,15 +43,15 @@ export const Panel = z
     excitation: z
       .array(ExcitationLine, { error: 'must be an array of excitation lines' })
       .min(1, { error: 'needs at least one excitation line' })
-      .max(LIMITS.maxExcitationLines, { error: `has more than ${LIMITS.maxExcitationLines} lines` }),
+      .max(LIMITS.lines, { error: `has more than ${LIMITS.lines} lines` }),
     probes: z
       .array(Probe, { error: 'must be an array of probes' })
       .min(1, { error: 'needs at least one probe' })
-      .max(LIMITS.maxProbes, { error: `has more than ${LIMITS.maxProbes} probes` }),
+      .max(LIMITS.probes, { error: `has more than ${LIMITS.probes} probes` }),
     channels: z
       .array(Channel, { error: 'must be an array of channels' })
       .min(1, { error: 'needs at least one channel' })
-      .max(LIMITS.maxChannels, { error: `has more than ${LIMITS.maxChannels} channels` }),
+      .max(LIMITS.channels, { error: `has more than ${LIMITS.channels} channels` }),
     background: Background.optional(),
   })
   .superRefine(checkReferences);

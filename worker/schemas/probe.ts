@@ -1,6 +1,7 @@
 import { z } from 'zod';
+import { RANGES } from './limits';
 import { MATERIAL_IDS } from '../../spectra/index';
-import { fraction, identifier, LIMITS, ranged, text, wavelengthNm } from './fields';
+import { fraction, identifier, ranged, text, wavelengthNm } from './fields';
 import { pointsTable } from './spectrum';
 
 /** A material id of the contract (`custom` = any other probe, described by measured data only). */
@@ -12,12 +13,12 @@ export const MaterialIdSchema = z.enum(MATERIAL_IDS, {
 export const dotFields = {
   material: MaterialIdSchema,
   emissionPeakNm: wavelengthNm().optional(),
-  diameterNm: ranged(LIMITS.diameterNm[0], LIMITS.diameterNm[1], 'nm').optional(),
-  sizeDispersionPct: ranged(LIMITS.sizeDispersionPct[0], LIMITS.sizeDispersionPct[1], '%').optional(),
-  fwhmNm: ranged(LIMITS.fwhmNm[0], LIMITS.fwhmNm[1], 'nm').optional(),
+  diameterNm: ranged(RANGES.diameterNm[0], RANGES.diameterNm[1], 'nm').optional(),
+  sizeDispersionPct: ranged(RANGES.sizeDispersionPct[0], RANGES.sizeDispersionPct[1], '%').optional(),
+  fwhmNm: ranged(RANGES.fwhmNm[0], RANGES.fwhmNm[1], 'nm').optional(),
   quantumYield: fraction().optional(),
-  measuredEmission: pointsTable(LIMITS.maxSpectralValue, 'emission').optional(),
-  extinction: pointsTable(LIMITS.maxExtinction, 'extinction (M-1 cm-1)').optional(),
+  measuredEmission: pointsTable(RANGES.spectralValue[1], 'emission').optional(),
+  extinction: pointsTable(RANGES.extinction[1], 'extinction (M-1 cm-1)').optional(),
 };
 
 interface DotLike {
@@ -52,7 +53,7 @@ export const Probe = z
     id: identifier(),
     label: text().optional(),
     ...dotFields,
-    abundance: ranged(LIMITS.abundance[0], LIMITS.abundance[1], '', true).optional(),
+    abundance: ranged(RANGES.abundance[0], RANGES.abundance[1], '', true).optional(),
     target: text().optional(),
     channel: identifier().optional(),
   })

@@ -1,21 +1,10 @@
 import { z } from 'zod';
 import { SampledSpectrumJson } from './dot';
+import { MaterialIdSchema } from './probe';
 
 // Response schemas: they describe, field for field, what the handlers return (the OpenAPI document's responses), and
 // test/worker/response-schemas.test.ts parses real responses with them, so the description cannot drift from the
 // code. Strict objects: a field added to a response must be added here too.
-
-const path = z.array(z.union([z.string(), z.number()]));
-
-/** The contract's error body; `issues` lists up to eleven validation issues (the first is `error` itself). */
-export const ErrorBody = z.strictObject({
-  error: z.strictObject({
-    code: z.string(),
-    message: z.string(),
-    path,
-    issues: z.array(z.strictObject({ code: z.string(), message: z.string(), path })).optional(),
-  }),
-});
 
 /** GET /api/v1/health. */
 export const Health = z.strictObject({ ok: z.literal(true), version: z.string() });
@@ -27,7 +16,7 @@ const range = z.tuple([z.number(), z.number()]);
 
 /** One material of GET /api/v1/materials (null where a material has no such quantity, e.g. carbon dots' size). */
 export const Material = z.strictObject({
-  id: z.string(),
+  id: MaterialIdSchema,
   name: z.string(),
   family: z.enum(['II-VI', 'III-V', 'perovskite', 'carbon', 'other']),
   elements: z.array(z.string()),
@@ -67,7 +56,7 @@ export const MeasuredParts = z.strictObject({ emission: z.boolean(), extinction:
 
 /** The scalar fields of a resolved dot, shared by POST /dots/resolve and each probe of an evaluation. */
 export const resolvedDotFields = {
-  material: z.string(),
+  material: MaterialIdSchema,
   diameterNm: z.number().nullable(),
   firstExcitonNm: z.number().nullable(),
   emissionPeakNm: z.number(),

@@ -1,8 +1,9 @@
 import { z } from 'zod';
-import { LIMITS, wavelengthNm } from './fields';
+import { LIMITS } from './limits';
+import { wavelengthNm } from './fields';
 
 /**
- * A measured table `{"points": [[nm, value], ...]}`: 2 to LIMITS.maxTablePoints points, wavelengths strictly
+ * A measured table `{"points": [[nm, value], ...]}`: 2 to LIMITS.tablePoints points, wavelengths strictly
  * ascending, values finite in [0, maxValue]. `what` names the value in messages (e.g. "transmission").
  */
 export function pointsTable(maxValue: number, what: string) {
@@ -14,7 +15,7 @@ export function pointsTable(maxValue: number, what: string) {
   const points = z
     .array(point, { error: 'must be an array of [nm, value] pairs' })
     .min(2, { error: 'needs at least 2 points' })
-    .max(LIMITS.maxTablePoints, { error: `has more than ${LIMITS.maxTablePoints} points` })
+    .max(LIMITS.tablePoints, { error: `has more than ${LIMITS.tablePoints} points` })
     .superRefine((pairs, ctx) => {
       for (let i = 1; i < pairs.length; i++) {
         if (!(pairs[i][0] > pairs[i - 1][0])) {

@@ -1,0 +1,113 @@
+/**
+ * The panel as plain data: the same shape as the API's panel (docs/api.md, "Panels"). The API's zod schema validates
+ * requests into exactly this shape (a compile-time check in worker/schemas keeps the two in step), and the page
+ * validates with the same schema; the spectral library takes checked panels and knows nothing of zod or HTTP.
+ */
+
+/** Material ids of the API contract. `custom` is any other probe, described only by measured spectra. */
+export const MATERIAL_IDS = ['cdse', 'cdte', 'cds', 'inp', 'gaas', 'cspbbr3', 'carbon', 'custom'] as const;
+export type MaterialId = (typeof MATERIAL_IDS)[number];
+
+/** [wavelength in nm, value] pairs, ascending in wavelength. */
+export type SpectrumPoints = [number, number][];
+
+export interface ExcitationLine {
+  wavelengthNm: number;
+  /** Relative power of the line (default 1). */
+  powerRel?: number;
+}
+
+export interface ProbeSpec {
+  id: string;
+  label?: string;
+  material: MaterialId;
+  /** Exactly one of emissionPeakNm / diameterNm for sized materials; carbon dots take emissionPeakNm. */
+  emissionPeakNm?: number;
+  diameterNm?: number;
+  /** Size dispersion σ/d in percent (default: the material's typical value). */
+  sizeDispersionPct?: number;
+  /** Emission FWHM override in nm (carbon dots; otherwise predicted from size dispersion). */
+  fwhmNm?: number;
+  /** 0–1 (default: the material's typical value for water-soluble conjugates). */
+  quantumYield?: number;
+  /** Relative abundance of the target (default 1). */
+  abundance?: number;
+  target?: string;
+  /** Id of the channel assigned to this probe. */
+  channel?: string;
+  /** Replaces the model's emission shape. */
+  measuredEmission?: { points: SpectrumPoints };
+  /** Replaces the model's absorption, in M⁻¹ cm⁻¹. */
+  extinction?: { points: SpectrumPoints };
+}
+
+/** The fields that describe one dot (a probe's own fields, without its place in a panel). */
+export const DOT_INPUT_FIELDS = [
+  'material',
+  'emissionPeakNm',
+  'diameterNm',
+  'sizeDispersionPct',
+  'fwhmNm',
+  'quantumYield',
+  'measuredEmission',
+  'extinction',
+] as const satisfies readonly (keyof ProbeSpec)[];
+
+/**
+ * One dot as the API's POST /dots/resolve takes it (without the output grid): a probe's dot fields, plus the line
+ * that excites it (for extinctionAtExcitation and the carbon-dot excitation dependence).
+ */
+export interface DotInput extends Pick<ProbeSpec, (typeof DOT_INPUT_FIELDS)[number]> {
+  excitationNm?: number;
+}
+
+export interface EdgeFilterOptions {
+  /** 0–1, default 0.93 (bandpass) / 0.95 (edge filters). */
+  peakTransmission?: number;
+  /** 10–90 % rise distance of the edge, nm. */
+  edgeWidthNm?: number;
+  /** Out-of-band optical density (transmission floor 10^-OD). */
+  blockingOD?: number;
+}
+
+/** Filter kinds of the contract: the `type` of a FilterSpec. */
+export const FILTER_TYPES = ['bandpass', 'longpass', 'shortpass', 'dichroic', 'table'] as const;
+export type FilterType = (typeof FILTER_TYPES)[number];
+
+export type FilterSpec =
+  | ({ type: 'bandpass'; centerNm: number; widthNm: number } & EdgeFilterOptions)
+  | ({ type: 'longpass' | 'shortpass'; edgeNm: number } & EdgeFilterOptions)
+  | ({ type: 'dichroic'; edgeNm: number; passes: 'above' | 'below' } & EdgeFilterOptions)
+  | { type: 'table'; points: SpectrumPoints };
+
+export interface ChannelSpec {
+  id: string;
+  label?: string;
+  filters: FilterSpec[];
+  /** The excitation lines on while this channel is read (default: all lines of the panel). */
+  excitationNm?: number | number[];
+  /** A detector class id (see detectors); default: an ideal detector (QE 1). */
+  detector?: string;
+}
+
+/** Sample autofluorescence: the default model scaled by `level`, or a measured spectrum (times `level`). */
+export interface BackgroundSpec {
+  level: number;
+  points?: SpectrumPoints;
+}
+
+export interface PanelSpec {
+  /** Panel format version; 1 when absent (the only version so far). */
+  version?: 1;
+  title?: string;
+  excitation: ExcitationLine[];
+  probes: ProbeSpec[];
+  channels: ChannelSpec[];
+  background?: BackgroundSpec;
+}
+
+// FILTER_TYPES must list exactly the kinds of FilterSpec (a compile error otherwise).
+type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
+type Assert<T extends true> = T;
+/** `true` while FILTER_TYPES and FilterSpec['type'] agree. */
+export type FilterTypesMatchSpec = Assert<Same<FilterType, FilterSpec['type']>>;

@@ -1,0 +1,67 @@
+import { AVOGADRO_PER_MOL, GAUSSIAN_FWHM_PER_SIGMA, HC_EV_NM } from '../core/constants';
+import type { SampledSpectrum, WavelengthGrid } from '../core/grid';
+import { interpolateTable } from '../core/grid';
+
+/**
+ * Absorption of one probe as molar extinction ε(λ), M⁻¹ cm⁻¹ per mole of particles. Approximate by design; a measured
+ * extinction (type 'table') always replaces the model. Shapes:
+ * - 'exciton' (sized dots): zero below the band edge (4 line σ under the first exciton), a Gaussian first-exciton
+ *   feature whose height is the first-exciton ε, and above it a continuum rising linearly in energy to the
+ *   volume-scaled intrinsic value at 350 nm (Hens & Moreels, J. Mater. Chem. 2012; Leatherdale et al., J. Phys. Chem. B
+ *   2002), switched on smoothly (smoothstep over 3σ) so that ε at the first exciton equals the first-exciton ε.
+ * - 'tail' (carbon dots): ε350 · exp(−(λ − 350)/decay).
+ * - 'flat' (custom probes without data): a nominal ε at λ ≤ untilNm, zero above.
+ * - 'table' (measured): linear interpolation, zero outside the table.
+ */
+export type AbsorptionModel =
+  | { type: 'exciton'; firstExcitonEv: number; firstExcitonEpsilon: number; lineFwhmEv: number; epsilonAt350: number }
+  | { type: 'tail'; epsilonAt350: number; decayNm: number }
+  | { type: 'flat'; epsilon: number; untilNm: number }
+  | { type: 'table'; points: readonly (readonly [number, number])[] };
+
+/** Energy of 350 nm light, eV: the reference wavelength of the intrinsic absorption. */
+const E350_EV = HC_EV_NM / 350;
+
+/**
+ * Volume-scaled intrinsic extinction ε = N_A · V · μi / (1000 ln 10), M⁻¹ cm⁻¹, with V in nm³ (converted to cm³) and
+ * μi in cm⁻¹ (Hens & Moreels, J. Mater. Chem. 2012, 22, 10406).
+ */
+export function intrinsicExtinction(volumeNm3: number, intrinsicPerCm: number): number {
+  return (AVOGADRO_PER_MOL * volumeNm3 * 1e-21 * intrinsicPerCm) / (1000 * Math.LN10);
+}
+
+function excitonEpsilon(m: Extract<AbsorptionModel, { type: 'exciton' }>, energyEv: number): number {
+  const sigma = m.lineFwhmEv / GAUSSIAN_FWHM_PER_SIGMA;
+  const dE = energyEv - m.firstExcitonEv;
+  if (dE < -4 * sigma) return 0; // below the band edge: a dot does not absorb
+  let eps = m.firstExcitonEpsilon * Math.exp(-0.5 * (dE / sigma) ** 2);
+  if (dE > 0) {
+    // Linear rise to the intrinsic value at 350 nm; 0.5 eV floor keeps the slope finite when E₁ lies near or above 350 nm.
+    const rise = (m.epsilonAt350 * dE) / Math.max(E350_EV - m.firstExcitonEv, 0.5);
+    const t = Math.min(1, dE / (3 * sigma));
+    eps += rise * t * t * (3 - 2 * t);
+  }
+  return eps;
+}
+
+/** ε (M⁻¹ cm⁻¹) of an absorption model at one wavelength; 0 for non-positive or non-finite wavelengths. */
+export function modelExtinctionAtNm(model: AbsorptionModel, wavelengthNm: number): number {
+  if (!(wavelengthNm > 0) || !Number.isFinite(wavelengthNm)) return 0;
+  switch (model.type) {
+    case 'exciton':
+      return excitonEpsilon(model, HC_EV_NM / wavelengthNm);
+    case 'tail':
+      return model.epsilonAt350 * Math.exp(-(wavelengthNm - 350) / model.decayNm);
+    case 'flat':
+      return wavelengthNm <= model.untilNm ? model.epsilon : 0;
+    case 'table':
+      return interpolateTable(model.points, wavelengthNm, 0);
+  }
+}
+
+/** Samples an absorption model on a grid (M⁻¹ cm⁻¹). */
+export function sampleExtinction(model: AbsorptionModel, grid: WavelengthGrid): SampledSpectrum {
+  const values = new Array<number>(grid.count);
+  for (let i = 0; i < grid.count; i++) values[i] = modelExtinctionAtNm(model, grid.startNm + i * grid.stepNm);
+  return { startNm: grid.startNm, stepNm: grid.stepNm, values };
+}

@@ -1,0 +1,72 @@
+import { SpectraError } from '../../core/errors';
+import { MATERIAL_IDS, type MaterialId } from '../../core/panel';
+import { SIZE_LAWS } from '../sizing/laws';
+import { BULK_PARAMS } from './params';
+import { RECORDS } from './records';
+import { emissionRangeForMaterialNm, isSizedMaterial } from '../sizing/sizing';
+import { TOXICITY } from './toxicity';
+import { CARBON_EMISSION_RANGE_NM } from '../sizing/carbon';
+import type { Material } from './types';
+
+function build(id: MaterialId): Material {
+  const rec = RECORDS[id];
+  const base = { id, ...rec, toxicity: TOXICITY[id] };
+  if (isSizedMaterial(id)) {
+    const law = SIZE_LAWS[id];
+    const p = BULK_PARAMS[id];
+    const [lo, hi] = emissionRangeForMaterialNm(id);
+    return {
+      ...base,
+      sizeMeaning: law.sizeMeaning,
+      diameterRangeNm: [law.diameterRangeNm[0], law.diameterRangeNm[1]],
+      emissionRangeNm: [Math.round(lo * 10) / 10, Math.round(hi * 10) / 10],
+      bulkBandGapEv: p.bandGapEv,
+      electronMassRel: p.electronMassRel,
+      holeMassRel: p.holeMassRel,
+      dielectricConstant: p.dielectricConstant,
+      bohrRadiusNm: p.bohrRadiusNm,
+      sizingModel: law.model,
+    };
+  }
+  return {
+    ...base,
+    sizeMeaning:
+      id === 'carbon'
+        ? 'no size law: carbon dots are described by their emission peak'
+        : 'no size law: described by measured spectra',
+    diameterRangeNm: null,
+    emissionRangeNm: id === 'carbon' ? [...CARBON_EMISSION_RANGE_NM] : null,
+    bulkBandGapEv: null,
+    electronMassRel: null,
+    holeMassRel: null,
+    dielectricConstant: null,
+    bohrRadiusNm: null,
+    sizingModel: id === 'carbon' ? 'no size law (emission peak given; approximate excitation dependence)' : 'measured',
+  };
+}
+
+// Material records are plain JSON data built from shared constants: callers get deep copies they may change.
+function copy(material: Material): Material {
+  return JSON.parse(JSON.stringify(material)) as Material;
+}
+
+let built: Material[] | null = null;
+
+/** Every material of the contract, in MATERIAL_IDS order; plain JSON-serialisable data. */
+export function listMaterials(): Material[] {
+  built ??= MATERIAL_IDS.map(build);
+  return built.map(copy);
+}
+
+/** One material by id; `unknown_material` naming `material` otherwise. */
+export function getMaterial(id: string): Material {
+  built ??= MATERIAL_IDS.map(build);
+  const found = built.find((m) => m.id === id);
+  if (!found)
+    throw new SpectraError(
+      'unknown_material',
+      `unknown material ${JSON.stringify(id)}; known: ${MATERIAL_IDS.join(', ')}`,
+      ['material'],
+    );
+  return copy(found);
+}

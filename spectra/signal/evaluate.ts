@@ -1,0 +1,94 @@
+/**
+ * Evaluates a whole panel under the signal model (docs/api.md, "The signal model"): collected, spillover, purity,
+ * interference, unmixing diagnostics, background and lot-to-lot sensitivity. The spectra themselves (large arrays on
+ * the grid) come from panelSpectra instead, so the API can leave them out.
+ */
+import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
+import type { PanelSpec } from '../core/panel';
+import { collectedMatrix, crosstalkFigures, type WorstInterference } from './crosstalk';
+import { makeJsonSafe } from './json-safe';
+import { buildPanelModel, type PanelModel, type ProbeEvaluation } from './panel-model';
+import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
+import { unmixingDiagnostics } from './unmix';
+
+/** Everything evaluatePanel returns; JSON-safe (no NaN or Infinity: undefined figures are null with a warning). */
+export interface PanelEvaluation {
+  grid: WavelengthGrid;
+  probes: ProbeEvaluation[];
+  /** collected[c][p] in relative detected photons. */
+  collected: number[][];
+  spillover: (number | null)[][];
+  primaryChannel: (number | null)[];
+  purity: (number | null)[];
+  /** spillover[c][p] below RESOLUTION_THRESHOLD (1e-3): smaller than the Gaussian line model can vouch for. */
+  belowResolution: boolean[][];
+  conditionNumber: number | null;
+  noiseAmplification: (number | null)[];
+  /** Present when the panel has a background: autofluorescence collected per channel, same units as collected. */
+  backgroundCollected?: number[];
+  signalToBackground?: (number | null)[];
+  worst: WorstInterference;
+  /** Null when options.sensitivity is false. */
+  lotShiftSensitivity: LotShiftSensitivity | null;
+  warnings: string[];
+}
+
+/** The background collected per channel (lines on in it, times their power) and each channel's signal-to-background. */
+function backgroundFigures(model: PanelModel, panel: PanelSpec, collected: number[][], warnings: string[]) {
+  const { grid, transmissions, linesOnByChannel } = model;
+  const background = model.background!;
+  const backgroundCollected = transmissions.map((t, c) => {
+    let sum = 0;
+    for (const l of linesOnByChannel[c]) {
+      let overlap = 0;
+      for (let i = 0; i < t.length; i++) overlap += background[l][i] * t[i];
+      sum += (panel.excitation[l].powerRel ?? 1) * overlap * grid.stepNm;
+    }
+    return sum;
+  });
+  const signalToBackground = backgroundCollected.map((b, c) => {
+    if (b > 0) return collected[c].reduce((a, v) => a + v, 0) / b;
+    warnings.push(`channel ${panel.channels[c].id} collects no background: its signal-to-background is undefined`);
+    return null;
+  });
+  return { backgroundCollected, signalToBackground };
+}
+
+/**
+ * Evaluates a checked panel on `options.grid` (default 300–1000 nm, 1 nm). `options.sensitivity` (default true) adds
+ * the lot-to-lot check (each peak moved ±5 nm), which costs about twice the rest. Model errors throw SpectraError
+ * naming the field, e.g. ['probes', 1, 'emissionPeakNm'].
+ */
+export function evaluatePanel(
+  panel: PanelSpec,
+  options: { grid?: WavelengthGrid; sensitivity?: boolean } = {},
+): PanelEvaluation {
+  const model = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
+  const { grid, components, transmissions, assigned } = model;
+  const probeIds = panel.probes.map((p) => p.id);
+  const channelIds = panel.channels.map((c) => c.id);
+  const collected = collectedMatrix(components, transmissions, grid.stepNm);
+  const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
+  const diagnostics = unmixingDiagnostics(collected, probeIds);
+  const warnings = [...figures.warnings, ...diagnostics.warnings];
+  const evaluation: PanelEvaluation = {
+    grid: { ...grid },
+    probes: model.probeEvaluations,
+    collected,
+    spillover: figures.spillover,
+    primaryChannel: figures.primaryChannel,
+    purity: figures.purity,
+    belowResolution: figures.belowResolution,
+    conditionNumber: diagnostics.conditionNumber,
+    noiseAmplification: diagnostics.noiseAmplification,
+    worst: figures.worst,
+    lotShiftSensitivity:
+      options.sensitivity === false
+        ? null
+        : lotShiftSensitivity(components, transmissions, grid.stepNm, collected, assigned, probeIds, channelIds),
+    warnings,
+  };
+  if (model.background) Object.assign(evaluation, backgroundFigures(model, panel, collected, warnings));
+  makeJsonSafe(evaluation, [], warnings);
+  return evaluation;
+}

@@ -1,0 +1,133 @@
+/**
+ * A panel reduced to what its figures need: every probe resolved on the grid with its weight per channel under the
+ * signal model (docs/api.md, "The signal model"), every channel's light path, and the background per line.
+ */
+import { SpectraError } from '../core/errors';
+import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
+import type { PanelSpec, ProbeSpec } from '../core/panel';
+import { dotInputOf, resolveDotCached } from '../dot/cache';
+import { extinctionAtNm, type DotFields, type ResolvedDot } from '../dot/resolve';
+import { backgroundEmission } from '../light/background';
+import { channelTransmission } from '../light/filters/channel';
+import { linesOn, type EmissionComponent } from './crosstalk';
+
+/** One probe of an evaluated panel: the resolved dot's fields plus its extinction at the lines and its brightness. */
+export interface ProbeEvaluation extends Omit<DotFields, 'extinctionAtExcitation'> {
+  id: string;
+  label?: string;
+  /** ε (M⁻¹ cm⁻¹) at the panel's first line, as for a single dot; every line is in extinctionAtLines. */
+  extinctionAtExcitation: number;
+  /** ε (M⁻¹ cm⁻¹) at each of the panel's lines, in the order of panel.excitation. */
+  extinctionAtLines: number[];
+  /** Brightness = Σ over the panel's lines of powerRel × ε(λline) × quantumYield × abundance (all lines on). */
+  brightness: number;
+  /** The same at abundance 1: the probe's own brightness under these lines, for comparing probes. */
+  brightnessPerAbundance: number;
+  /** Carbon dots only: the modelled emission peak under each line (their emission moves with the excitation). */
+  emissionPeakNmByLine?: number[];
+}
+
+/** The panel reduced to what the figures need (shared by evaluatePanel, panelSpectra, the design search). */
+export interface PanelModel {
+  grid: WavelengthGrid;
+  /** The resolved dot of each probe (carbon dots: their nominal emission, before the line-dependent shift). */
+  dots: ResolvedDot[];
+  /** Per probe, its emission components (one; one per line for a carbon dot without measured emission). */
+  components: EmissionComponent[][];
+  /** Per channel, Π filters × detector QE on the grid. */
+  transmissions: number[][];
+  /** Per channel, the indices of the lines on while it is read. */
+  linesOnByChannel: number[][];
+  /** Background emission per line (per unit powerRel), or null without a background. */
+  background: number[][] | null;
+  probeEvaluations: ProbeEvaluation[];
+  /** Per probe, the index of its assigned channel (undefined: none assigned). */
+  assigned: (number | undefined)[];
+}
+
+/** A model error inside probe p, moved under ['probes', p]. */
+function inProbe<T>(p: number, resolve: () => T): T {
+  try {
+    return resolve();
+  } catch (err) {
+    if (err instanceof SpectraError) throw new SpectraError(err.code, err.message, ['probes', p, ...err.path]);
+    throw err;
+  }
+}
+
+/** Per channel, the summed weight of the lines on in it (only line `only` when given). */
+function channelWeights(linesOnByChannel: number[][], lineWeight: number[], only: number | null): number[] {
+  const w = new Array<number>(linesOnByChannel.length).fill(0);
+  linesOnByChannel.forEach((on, c) => {
+    for (const l of on) if (only === null || l === only) w[c] += lineWeight[l];
+  });
+  return w;
+}
+
+/** The evaluation record of one probe: the dot's scalar fields, ε at every line and its brightness. */
+function probeEvaluation(probe: ProbeSpec, dot: ResolvedDot, eps: number[], perAbundance: number): ProbeEvaluation {
+  return {
+    id: probe.id,
+    ...(probe.label !== undefined ? { label: probe.label } : {}),
+    material: dot.material,
+    diameterNm: dot.diameterNm,
+    firstExcitonNm: dot.firstExcitonNm,
+    emissionPeakNm: dot.emissionPeakNm,
+    fwhmNm: dot.fwhmNm,
+    quantumYield: dot.quantumYield,
+    extinctionFirstExciton: dot.extinctionFirstExciton,
+    extinctionAtExcitation: eps[0],
+    extinctionAtLines: eps,
+    model: dot.model,
+    measured: { ...dot.measured },
+    brightness: perAbundance * (probe.abundance ?? 1),
+    brightnessPerAbundance: perAbundance,
+    warnings: dot.warnings.slice(),
+  };
+}
+
+/** One emission component of a resolved dot. */
+function component(dot: ResolvedDot, weightByChannel: number[]): EmissionComponent {
+  return { emission: dot.emission.values, from: dot.emissionFrom, weightByChannel };
+}
+
+/**
+ * Resolves a checked panel's probes, channels and background on the grid (default 300–1000 nm, 1 nm). Model errors
+ * name the field, e.g. ['probes', 1, 'emissionPeakNm'] or ['channels', 2, 'filters', 0, 'edgeWidthNm'].
+ */
+export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT_GRID): PanelModel {
+  const lines = panel.excitation.map((l) => ({ wavelengthNm: l.wavelengthNm, powerRel: l.powerRel ?? 1 }));
+  const linesOnByChannel = panel.channels.map((c) => linesOn(c, lines));
+  const transmissions = panel.channels.map((c, i) => channelTransmission(c, grid, ['channels', i]));
+  const dots: ResolvedDot[] = [];
+  const components: EmissionComponent[][] = [];
+  const probeEvaluations: ProbeEvaluation[] = [];
+  panel.probes.forEach((probe, p) => {
+    const dot = inProbe(p, () => resolveDotCached(dotInputOf(probe), grid));
+    dots.push(dot);
+    const abundance = probe.abundance ?? 1;
+    // lineWeight[l] = powerRel × ε(λl) × QY × abundance: the line's factor in the signal model.
+    const eps = lines.map((line) => extinctionAtNm(dot, line.wavelengthNm));
+    const lineWeight = lines.map((line, l) => line.powerRel * eps[l] * dot.quantumYield * abundance);
+    let perAbundance = 0;
+    lines.forEach((line, l) => (perAbundance += line.powerRel * eps[l] * dot.quantumYield));
+    const evaluation = probeEvaluation(probe, dot, eps, perAbundance);
+    probeEvaluations.push(evaluation);
+    // Carbon dots without a measured emission change colour with the line: one emission per line.
+    if (dot.material === 'carbon' && !dot.measured.emission) {
+      const perLine = lines.map((line) => inProbe(p, () => resolveDotCached(dotInputOf(probe, line.wavelengthNm), grid)));
+      evaluation.emissionPeakNmByLine = perLine.map((d) => d.emissionPeakNm);
+      components.push(perLine.map((d, l) => component(d, channelWeights(linesOnByChannel, lineWeight, l))));
+    } else {
+      components.push([component(dot, channelWeights(linesOnByChannel, lineWeight, null))]);
+    }
+  });
+  const channelIndex = new Map(panel.channels.map((c, i) => [c.id, i]));
+  const assigned = panel.probes.map((probe) => (probe.channel === undefined ? undefined : channelIndex.get(probe.channel)));
+  const spec = panel.background;
+  // A measured background does not depend on the line: one spectrum serves every line.
+  const measured = spec?.points !== undefined ? backgroundEmission(spec, lines[0].wavelengthNm, grid) : null;
+  const background =
+    spec === undefined ? null : lines.map((l) => measured ?? backgroundEmission(spec, l.wavelengthNm, grid));
+  return { grid, dots, components, transmissions, linesOnByChannel, background, probeEvaluations, assigned };
+}

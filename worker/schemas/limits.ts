@@ -1,0 +1,37 @@
+/**
+ * The limits of the API's input, in one place: the sizes from the spectral library (how much work one request may
+ * cause), the HTTP layer's own, and the ranges every number must lie in. Ranges are physical plausibility bounds
+ * (common practice for fluorescence microscopy: UV to short-wave infrared light, colloidal dots from clusters to large
+ * shells), not validity ranges of any model: a model with a narrower range answers `out_of_range` itself.
+ */
+import { LIMITS as SIZE_LIMITS, MAX_BLOCKING_OD } from '../../spectra/index';
+
+/** Sizes: the spectral library's (probes, channels, lines, filters per channel, table and grid points, node budget)
+ * plus the HTTP layer's (id and text lengths, request body). */
+export const LIMITS = Object.freeze({
+  ...SIZE_LIMITS,
+  /** Characters of a probe or channel id. */
+  idLength: 64,
+  /** Characters of a title, label or target name. */
+  textLength: 200,
+  /** Bytes of a request body (256 KiB). */
+  bodyBytes: 256 * 1024,
+});
+
+/** [min, max] of each kind of number the API takes. */
+export const RANGES = Object.freeze({
+  wavelengthNm: [200, 2000],
+  diameterNm: [0.5, 30],
+  sizeDispersionPct: [0, 30],
+  fwhmNm: [1, 500],
+  filterWidthNm: [0.1, 1000],
+  edgeWidthNm: [0, 200],
+  blockingOD: [0, MAX_BLOCKING_OD],
+  powerRel: [0, 1e6],
+  abundance: [0, 1e6],
+  backgroundLevel: [0, 1e6],
+  /** Largest value of a measured emission or background table. */
+  spectralValue: [0, 1e15],
+  /** Largest molar extinction of a measured table, M⁻¹ cm⁻¹. */
+  extinction: [0, 1e9],
+} as const);
