@@ -1,2 +1,2 @@
 // Front-end entry: defines the page element; index.html places it. No inline script (the CSP forbids it).
-import './panel-app';
+import './elements/panel-app';

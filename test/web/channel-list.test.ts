@@ -2,8 +2,8 @@
 // detector run (its three number fields and the spectral-run event), and the channel limit.
 import { afterEach, describe, expect, it } from 'vitest';
 import type { ChannelSpec, PanelSpec } from '../../spectra/index';
-import '../../web/channel-list';
-import { demoPanel } from '../../web/demo-panel';
+import '../../web/elements/channel-list';
+import { demoPanel } from '../../web/state/demo-panel';
 
 afterEach(() => document.body.replaceChildren());
 

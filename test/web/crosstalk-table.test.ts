@@ -1,9 +1,9 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import '../../web/crosstalk-table';
-import type { CrosstalkTable } from '../../web/crosstalk-table';
+import '../../web/elements/crosstalk-table';
+import type { CrosstalkTable } from '../../web/elements/crosstalk-table';
 import { predictUnmixingNoise, type PanelSpec } from '../../spectra/index';
-import { computePanel } from '../../web/compute';
-import { cellLightness, formatFraction, shadeOf, type CrosstalkView } from '../../web/crosstalk-view';
+import { computePanel } from '../../web/state/compute';
+import { cellLightness, formatFraction, shadeOf, type CrosstalkView } from '../../web/chart/crosstalk-view';
 
 const view: CrosstalkView = {
   probes: [

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { csvCell, orderingSheetCsv } from '../../web/csv-export';
-import { describeFilter } from '../../web/filter-text';
+import { csvCell, orderingSheetCsv } from '../../web/io/csv-export';
+import { describeFilter } from '../../web/io/filter-text';
 
 /** A small RFC 4180 reader, enough to check the sheet parses back into the same cells. */
 function parseCsv(text: string): string[][] {

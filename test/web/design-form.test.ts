@@ -1,7 +1,7 @@
 // <qdp-design-form> in real Chromium with its real Web Worker running the design search.
 import { afterEach, describe, expect, it } from 'vitest';
-import '../../web/design-form';
-import type { DesignForm } from '../../web/design-form';
+import '../../web/elements/design-form';
+import type { DesignForm } from '../../web/elements/design-form';
 
 afterEach(() => document.body.replaceChildren());
 

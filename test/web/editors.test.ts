@@ -1,10 +1,10 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { listMaterials, type ChannelSpec, type ProbeSpec } from '../../spectra/index';
-import '../../web/number-field';
-import '../../web/probe-card';
-import '../../web/channel-card';
-import { moveEdge } from '../../web/edge-drag';
-import { demoPanel } from '../../web/demo-panel';
+import '../../web/elements/number-field';
+import '../../web/elements/probe-card';
+import '../../web/elements/channel-card';
+import { moveEdge } from '../../web/state/edge-drag';
+import { demoPanel } from '../../web/state/demo-panel';
 
 afterEach(() => document.body.replaceChildren());
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { decodeFragment, encodeFragment, type PageState } from '../../web/fragment';
-import { resamplePoints } from '../../web/resample';
+import { decodeFragment, encodeFragment, type PageState } from '../../web/state/fragment';
+import { resamplePoints } from '../../web/state/thin-table';
 
 const state: PageState = {
   panel: {

@@ -1,9 +1,9 @@
 // Component tests in headless Chromium for the excitation/background editor and the measured-spectrum input.
 import { afterEach, describe, expect, it } from 'vitest';
 import type { PanelSpec, SpectrumPoints } from '../../spectra/index';
-import '../../web/light-editor';
-import '../../web/spectrum-input';
-import { demoPanel } from '../../web/demo-panel';
+import '../../web/elements/light-editor';
+import '../../web/elements/spectrum-input';
+import { demoPanel } from '../../web/state/demo-panel';
 
 afterEach(() => document.body.replaceChildren());
 

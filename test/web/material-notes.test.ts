@@ -1,7 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { listMaterials } from '../../spectra/index';
-import '../../web/material-notes';
-import { demoPanel } from '../../web/demo-panel';
+import '../../web/elements/material-notes';
+import { demoPanel } from '../../web/state/demo-panel';
 
 afterEach(() => document.body.replaceChildren());
 

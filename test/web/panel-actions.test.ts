@@ -3,8 +3,8 @@
 // behind it, so share and the server side of the ordering sheet take their real "server unreachable" paths.
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import type { PanelSpec } from '../../spectra/index';
-import '../../web/panel-actions';
-import { demoPanel } from '../../web/demo-panel';
+import '../../web/elements/panel-actions';
+import { demoPanel } from '../../web/state/demo-panel';
 
 type Download = { filename: string; blob: Promise<Blob> };
 let downloads: Download[] = [];

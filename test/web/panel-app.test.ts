@@ -1,6 +1,6 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import '../../web/panel-app';
-import { decodeFragment } from '../../web/fragment';
+import '../../web/elements/panel-app';
+import { decodeFragment } from '../../web/state/fragment';
 
 type Host = HTMLElement & { updateComplete: Promise<unknown> };
 

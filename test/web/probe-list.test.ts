@@ -2,8 +2,8 @@
 // per-probe errors, predictions and exclusion reasons it hands to each card.
 import { afterEach, describe, expect, it } from 'vitest';
 import { listMaterials, type PanelSpec, type ProbeSpec } from '../../spectra/index';
-import '../../web/probe-list';
-import { demoPanel } from '../../web/demo-panel';
+import '../../web/elements/probe-list';
+import { demoPanel } from '../../web/state/demo-panel';
 
 afterEach(() => document.body.replaceChildren());
 

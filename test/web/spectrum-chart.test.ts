@@ -1,8 +1,8 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import '../../web/spectrum-chart';
-import type { SpectrumChart } from '../../web/spectrum-chart';
-import type { ChartCurve, ChartPassband, EdgeDragDetail } from '../../web/chart-types';
-import { wavelengthToCss } from '../../web/color';
+import '../../web/elements/spectrum-chart';
+import type { SpectrumChart } from '../../web/elements/spectrum-chart';
+import type { ChartCurve, ChartPassband, EdgeDragDetail } from '../../web/chart/types';
+import { wavelengthToCss } from '../../web/chart/color';
 
 /** A Gaussian on a 1 nm grid from 300 nm (test data only). */
 function gaussian(peakNm: number, fwhmNm: number): ChartCurve['spectrum'] {

@@ -2,8 +2,8 @@
  * Reads a measured spectrum (two-column CSV: wavelength nm, value) from a file or pasted text, through the spectral
  * library's parser, and thins it for links. Errors come back as the library's SpectraError message.
  */
-import { parseSpectrumCsv, type SpectrumPoints } from '../spectra/index';
-import { resamplePoints } from './resample';
+import { parseSpectrumCsv, type SpectrumPoints } from '../../spectra/index';
+import { resamplePoints } from '../state/thin-table';
 
 /** The parsed table (≤ 200 points) and the parser's warnings, or an error message for the user. */
 export type ImportResult = { ok: true; points: SpectrumPoints; warnings: string[] } | { ok: false; message: string };

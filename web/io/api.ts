@@ -2,7 +2,7 @@
  * The page's calls to the qdpanel API (shared/api-v1.md): share a panel, load a shared one, evaluate for export.
  * Every failure becomes an ApiError with the contract's code and message, never an unhandled rejection.
  */
-import type { PanelSpec } from '../spectra/index';
+import type { PanelSpec } from '../../spectra/index';
 
 /** An API error as the contract shapes it ({error: {code, message, path}}), or a network failure (code "network"). */
 export class ApiError extends Error {

@@ -1,7 +1,7 @@
 /**
  * Plain description of a filter as one writes it on an order, e.g. "bandpass 605/20" (centre/FWHM in nm).
  */
-import type { ChannelSpec, FilterSpec } from '../spectra/index';
+import type { ChannelSpec, FilterSpec } from '../../spectra/index';
 
 const nm = (v: number) => String(Math.round(v * 10) / 10);
 

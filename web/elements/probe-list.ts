@@ -4,9 +4,9 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { PanelSpec } from '../spectra/index';
+import type { PanelSpec } from '../../spectra/index';
 import './probe-card';
-import type { ProbeCardMaterial, ProbePrediction } from './probe-types';
+import type { ProbeCardMaterial, ProbePrediction } from '../state/probe-types';
 
 @customElement('qdp-probe-list')
 export class ProbeList extends LitElement {

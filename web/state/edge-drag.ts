@@ -2,8 +2,8 @@
  * Applies a dragged filter edge to the panel: a bandpass keeps its other edge fixed (so centre and width both move),
  * an edge filter moves its edge. The numbers in the channel editor follow because they read the same panel.
  */
-import type { PanelSpec } from '../spectra/index';
-import type { ChartHandle } from './chart-types';
+import type { PanelSpec } from '../../spectra/index';
+import type { ChartHandle } from '../chart/types';
 import { setFilter } from './panel-edit';
 
 /** Narrowest passband a drag can make, nm. */

@@ -5,14 +5,14 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { PanelSpec } from '../spectra/index';
+import type { PanelSpec } from '../../spectra/index';
 import {
   containedClasses,
   EXCLUDABLE,
   offendingProbes,
   type ExcludableClass,
   type MaterialElements,
-} from './exclusions';
+} from '../state/exclusions';
 
 /** What the notes need of each material (the library's Material has these fields). */
 export interface MaterialNotesInput extends MaterialElements {

@@ -2,7 +2,7 @@
  * The bundled demo: an invented six-target panel for a fixed tissue section under one violet 405 nm line. The targets
  * are generic; the counterstain spectra are smooth made-up curves (no real product), entered as measured data.
  */
-import type { PanelSpec, SpectrumPoints } from '../spectra/index';
+import type { PanelSpec, SpectrumPoints } from '../../spectra/index';
 
 /** A smooth, skewed invented curve (log-normal in wavelength) sampled every 5 nm: stands in for a measured spectrum. */
 function inventedCurve(

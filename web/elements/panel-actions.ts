@@ -4,10 +4,10 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import type { PanelSpec } from '../spectra/index';
-import { ApiError, evaluateOnServer, sharePanel } from './api';
-import { orderingSheetCsv, type ResolvedForSheet } from './csv-export';
-import { downloadBlob, downloadText, svgDocument, svgToPng } from './download';
+import type { PanelSpec } from '../../spectra/index';
+import { ApiError, evaluateOnServer, sharePanel } from '../io/api';
+import { orderingSheetCsv, type ResolvedForSheet } from '../io/csv-export';
+import { downloadBlob, downloadText, svgDocument, svgToPng } from '../io/download';
 
 /** A file name from the panel title: letters, digits and dashes only. */
 export function fileStem(panel: PanelSpec): string {

@@ -1,7 +1,7 @@
 /**
  * The text under the chart's pointer: the wavelength, each curve's value there and each passband's transmission.
  */
-import { curveAtNm, type ChartCurve, type ChartPassband, type GridCurve } from './chart-types';
+import { curveAtNm, type ChartCurve, type ChartPassband, type GridCurve } from './types';
 
 const fmt = (v: number) => (v === 0 ? '0' : Math.abs(v) < 0.001 ? v.toExponential(1) : v.toPrecision(3));
 

@@ -4,7 +4,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { importSpectrumFile, importSpectrumText, type ImportKind, type ImportResult } from './spectrum-import';
+import { importSpectrumFile, importSpectrumText, type ImportKind, type ImportResult } from '../io/spectrum-import';
 
 @customElement('qdp-spectrum-input')
 export class SpectrumInput extends LitElement {

@@ -4,12 +4,12 @@
  * `{type: 'progress', progress}` after each chunk of the search, then `{type: 'result', result}` or
  * `{type: 'error', error: {code, message, path}}`. Cancelling outright is the page's `worker.terminate()`.
  */
-import { runDesignAsync, SpectraError, type DesignRequest } from '../spectra/index';
+import { runDesignAsync, SpectraError, type DesignRequest } from '../../spectra/index';
 
 /** What the worker posts back. */
 export type DesignWorkerMessage =
-  | { type: 'progress'; progress: import('../spectra/index').SearchProgress }
-  | { type: 'result'; result: import('../spectra/index').DesignResult }
+  | { type: 'progress'; progress: import('../../spectra/index').SearchProgress }
+  | { type: 'result'; result: import('../../spectra/index').DesignResult }
   | { type: 'error'; error: { code: string; message: string; path: (string | number)[] } };
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
@@ -26,6 +26,8 @@ scope.onmessage = async (event: MessageEvent<{ type: 'run'; request: DesignReque
   const post = (m: DesignWorkerMessage) => scope.postMessage(m);
   try {
     const result = await runDesignAsync(message.request, {
+      // A macrotask between chunks lets a 'stop' message in before the search goes on.
+      pause: () => new Promise((resolve) => setTimeout(resolve, 0)),
       onProgress: (progress) => post({ type: 'progress', progress }),
       shouldStop: () => stopRequested,
     });

@@ -4,15 +4,15 @@
  */
 import { LitElement, html } from 'lit';
 import { customElement, query, state } from 'lit/decorators.js';
-import type { ChannelSpec, PanelSpec, ProbeSpec } from '../spectra/index';
-import { loadSharedPanel } from './api';
-import { appStyles } from './app-styles';
-import type { EdgeDragDetail } from './chart-types';
-import { computePanel, DETECTORS, MATERIALS, type Computed } from './compute';
-import { demoPanel } from './demo-panel';
-import { placeError, type FieldError } from './error-map';
-import { offendingProbes, type ExcludableClass } from './exclusions';
-import { decodeFragment, encodeFragment } from './fragment';
+import type { ChannelSpec, PanelSpec, ProbeSpec } from '../../spectra/index';
+import { loadSharedPanel } from '../io/api';
+import { appStyles } from './panel-app-styles';
+import type { EdgeDragDetail } from '../chart/types';
+import { computePanel, DETECTORS, MATERIALS, type Computed } from '../state/compute';
+import { demoPanel } from '../state/demo-panel';
+import { placeError, type FieldError } from '../state/error-map';
+import { offendingProbes, type ExcludableClass } from '../state/exclusions';
+import { decodeFragment, encodeFragment } from '../state/fragment';
 import {
   addChannel,
   addProbe,
@@ -22,8 +22,8 @@ import {
   removeProbe,
   setChannel,
   setProbe,
-} from './panel-edit';
-import { moveEdge } from './edge-drag';
+} from '../state/panel-edit';
+import { moveEdge } from '../state/edge-drag';
 import './channel-list';
 import './crosstalk-table';
 import './design-form';
@@ -76,7 +76,7 @@ export class PanelApp extends LitElement {
     try {
       const raw = decodeFragment(location.hash);
       if (raw === null) return this.load(demoPanel(), []);
-      const { readPageState } = await import('./page-state');
+      const { readPageState } = await import('../state/page-state');
       const r = readPageState(raw);
       if (!r.ok) throw new Error(`The link's panel is not valid (${r.message}).`);
       this.load(r.state.panel, r.state.view.exclude, false);
@@ -90,7 +90,7 @@ export class PanelApp extends LitElement {
     this.sharedId = id;
     this.notice = 'Loading the shared panel…';
     try {
-      const [{ readPanel }, raw] = await Promise.all([import('./page-state'), loadSharedPanel(id)]);
+      const [{ readPanel }, raw] = await Promise.all([import('../state/page-state'), loadSharedPanel(id)]);
       const r = readPanel(raw);
       if (!r.ok) throw new Error(r.message);
       this.notice = '';
@@ -138,7 +138,7 @@ export class PanelApp extends LitElement {
   private async importJson(file: File | undefined): Promise<void> {
     if (!file) return;
     try {
-      const { readPanel } = await import('./page-state');
+      const { readPanel } = await import('../state/page-state');
       const r = readPanel(JSON.parse(await file.text()));
       if (!r.ok) throw new Error(r.message);
       this.notice = `Opened ${file.name}.`;

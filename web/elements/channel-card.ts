@@ -5,8 +5,8 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { ChannelSpec, FilterSpec, SpectrumPoints } from '../spectra/index';
-import { describeFilter } from './filter-text';
+import type { ChannelSpec, FilterSpec, SpectrumPoints } from '../../spectra/index';
+import { describeFilter } from '../io/filter-text';
 import './number-field';
 import './spectrum-input';
 

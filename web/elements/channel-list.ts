@@ -4,7 +4,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import type { PanelSpec } from '../spectra/index';
+import type { PanelSpec } from '../../spectra/index';
 import './channel-card';
 import './number-field';
 

@@ -5,7 +5,7 @@
  */
 import { LitElement, css, html, unsafeCSS } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import { formatFraction, shadeLightness, shadeOf, SHADES, type CrosstalkView } from './crosstalk-view';
+import { formatFraction, shadeLightness, shadeOf, SHADES, type CrosstalkView } from '../chart/crosstalk-view';
 
 // Cells get a class per ramp step: the page's CSP (style-src 'self') blocks style attributes.
 const shadeRules = Array.from({ length: SHADES }, (_, k) => {

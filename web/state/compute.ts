@@ -10,12 +10,13 @@ import {
   listMaterials,
   predictUnmixingNoise,
   SpectraError,
+  spectrumOnGrid,
   type PanelEvaluation,
   type PanelSpec,
-} from '../spectra/index';
-import type { ChartCurve, ChartHandle, ChartPassband, GridCurve } from './chart-types';
-import type { CrosstalkView, ShotNoiseView } from './crosstalk-view';
-import type { ResolvedForSheet } from './csv-export';
+} from '../../spectra/index';
+import type { ChartCurve, ChartHandle, ChartPassband, GridCurve } from '../chart/types';
+import type { CrosstalkView, ShotNoiseView } from '../chart/crosstalk-view';
+import type { ResolvedForSheet } from '../io/csv-export';
 import type { FieldError } from './error-map';
 import type { ProbePrediction } from './probe-types';
 
@@ -130,12 +131,14 @@ export function computePanel(
     };
   }
   const photons = ev.probes.map((d) => d.brightness);
-  const signalCurves = model.dots.map((d, j) => d.emission.values.map((v) => v * photons[j]));
+  // A dot's emission is held only where it is not zero: the chart draws every curve over the whole grid.
+  const emissions = model.dots.map((d) => spectrumOnGrid(d.emission, grid));
+  const signalCurves = emissions.map((values, j) => values.map((v) => v * photons[j]));
   const tallest = Math.max(1e-300, ...signalCurves.map(maxOf));
   const curves: ChartCurve[] = model.dots.map((d, j) => {
     const values = options.byBrightness
       ? signalCurves[j].map((v) => v / tallest)
-      : d.emission.values.map((v) => v / Math.max(1e-300, maxOf(d.emission.values)));
+      : emissions[j].map((v) => v / Math.max(1e-300, maxOf(emissions[j])));
     return {
       id: panel.probes[j].id,
       label: panel.probes[j].label || panel.probes[j].id,

@@ -3,7 +3,7 @@
  */
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import { area, line } from 'd3-shape';
-import type { ChartCurve, ChartPassband, GridCurve } from './chart-types';
+import type { ChartCurve, ChartPassband, GridCurve } from './types';
 
 /** Plot margins in px: room for the axes' tick labels and titles. */
 export const MARGIN = { top: 14, right: 46, bottom: 40, left: 52 };

@@ -1,7 +1,7 @@
 /**
  * Material classes a user can exclude from a panel (cadmium-free, lead-free) and which probes break that choice.
  */
-import type { PanelSpec } from '../spectra/index';
+import type { PanelSpec } from '../../spectra/index';
 
 /** The part of a material this check needs (the library's Material has these fields). */
 export interface MaterialElements {

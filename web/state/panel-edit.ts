@@ -1,7 +1,7 @@
 /**
  * Immutable edits of a panel: each returns a new PanelSpec, so the app can keep the last good state and compare.
  */
-import type { ChannelSpec, FilterSpec, PanelSpec, ProbeSpec } from '../spectra/index';
+import type { ChannelSpec, FilterSpec, PanelSpec, ProbeSpec } from '../../spectra/index';
 
 /** A new, empty panel with one 405 nm line. */
 export function newPanel(): PanelSpec {

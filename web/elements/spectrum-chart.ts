@@ -6,17 +6,17 @@ import { LitElement, css, html, svg, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { axisBottom, axisLeft, axisRight } from 'd3-axis';
 import { select } from 'd3-selection';
-import { chartGeometry, MARGIN, type ChartGeometry } from './chart-geometry';
+import { chartGeometry, MARGIN, type ChartGeometry } from '../chart/geometry';
 import {
   type ChartCurve,
   type ChartHandle,
   type ChartPassband,
   type EdgeDragDetail,
   type GridCurve,
-} from './chart-types';
-import { isNearInfrared, wavelengthToCss } from './color';
-import { WidthController } from './resize-controller';
-import { chartReadout } from './chart-readout';
+} from '../chart/types';
+import { isNearInfrared, wavelengthToCss } from '../chart/color';
+import { WidthController } from '../chart/resize-controller';
+import { chartReadout } from '../chart/readout';
 
 const HEIGHT_PX = 300;
 

@@ -4,7 +4,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { PanelSpec, SpectrumPoints } from '../spectra/index';
+import type { PanelSpec, SpectrumPoints } from '../../spectra/index';
 import './number-field';
 import './spectrum-input';
 

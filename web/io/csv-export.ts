@@ -2,7 +2,7 @@
  * The ordering sheet as CSV (RFC 4180 quoting): one row per probe with what a supplier needs (material, core
  * diameter, emission peak, FWHM) and one row per channel with its filters written as ordered ("bandpass 605/20").
  */
-import type { PanelSpec } from '../spectra/index';
+import type { PanelSpec } from '../../spectra/index';
 import { describeChannel, describeChannelExcitation } from './filter-text';
 
 /** What the sheet takes from an evaluation for each probe (the API's resolved-dot fields). */

@@ -6,10 +6,10 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { ProbeSpec, SpectrumPoints } from '../spectra/index';
+import type { ProbeSpec, SpectrumPoints } from '../../spectra/index';
 import './number-field';
 import './spectrum-input';
-import type { ProbeCardMaterial, ProbePrediction } from './probe-types';
+import type { ProbeCardMaterial, ProbePrediction } from '../state/probe-types';
 
 @customElement('qdp-probe-card')
 export class ProbeCard extends LitElement {

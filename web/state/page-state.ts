@@ -2,8 +2,8 @@
  * Reading untrusted panel JSON (an imported file, a link's fragment, a shared panel) into a PanelSpec through the
  * API's own zod schema, so the page accepts exactly what the server would.
  */
-import type { PanelSpec } from '../spectra/index';
-import { Panel } from '../worker/schemas';
+import type { PanelSpec } from '../../spectra/index';
+import { Panel } from '../../worker/schemas';
 import type { PageState } from './fragment';
 import type { ExcludableClass } from './exclusions';
 

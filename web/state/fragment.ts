@@ -3,8 +3,8 @@
  * (RFC 1951) and written in base64url (RFC 4648 §5), so a reload or back/forward keeps the work without a server.
  */
 import { deflateSync, inflateSync, strFromU8, strToU8 } from 'fflate';
-import type { PanelSpec } from '../spectra/index';
-import { resamplePoints } from './resample';
+import type { PanelSpec } from '../../spectra/index';
+import { resamplePoints } from './thin-table';
 
 /** What the fragment carries besides the panel: view options that are not part of the stored panel. */
 export interface ViewOptions {

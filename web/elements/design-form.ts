@@ -12,8 +12,8 @@ import {
   type DesignRequest,
   type DesignResult,
   type SearchProgress,
-} from '../spectra/index';
-import type { DesignWorkerMessage } from './design-worker';
+} from '../../spectra/index';
+import type { DesignWorkerMessage } from '../state/design-worker';
 
 /** An abundance as typed: a word passes as is, anything else as a number (the library names a bad one). */
 function abundanceInput(text: string): number | 'high' | 'medium' | 'low' {
@@ -147,7 +147,7 @@ export class DesignForm extends LitElement {
       this.error = (err as Error).message;
       return;
     }
-    const worker = new Worker(new URL('./design-worker.ts', import.meta.url), { type: 'module' });
+    const worker = new Worker(new URL('../state/design-worker.ts', import.meta.url), { type: 'module' });
     this.worker = worker;
     this.running = true;
     this.status = 'starting';
