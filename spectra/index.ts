@@ -66,7 +66,6 @@ export {
 } from './dot/lineshape';
 export { intrinsicExtinction, sampleExtinction, type AbsorptionModel } from './dot/absorption';
 export { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from './dot/resolve';
-export { clearResolvedDotCache } from './dot/cache';
 
 // The light path: filters, detectors, sample background.
 export { FILTER_DEFAULTS, MAX_BLOCKING_OD } from './light/filters/defaults';

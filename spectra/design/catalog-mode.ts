@@ -8,7 +8,7 @@ import { DEFAULT_GRID } from '../core/grid';
 import { channelTransmission } from '../light/filters/channel';
 import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../core/panel';
 import { CatalogSearch, type CatalogSearchStats } from './catalog';
-import { asCandidate, candidateMatrix } from './matrix';
+import { asCandidate, candidateMatrix, rememberingResolver } from './matrix';
 import type { ResolvedDesignOptions } from './options';
 import { searchSteps, type SearchProgress } from './search';
 
@@ -51,7 +51,9 @@ export function* catalogDesignSteps(
     );
   }
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
-  const collected = candidateMatrix(probes, channels, request.excitation, { pathPrefix: ['candidates'] });
+  const collected = candidateMatrix(probes, channels, request.excitation, rememberingResolver(), {
+    pathPrefix: ['candidates'],
+  });
   const search = new CatalogSearch({ collected, abundance, minSignalFraction: o.minSignalFraction });
   const found = yield* searchSteps(search, o.nodeBudget, 2000, shouldStop);
   if (!found.design) {

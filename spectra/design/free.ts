@@ -10,7 +10,7 @@ import { SpectraError } from '../core/errors';
 import type { ExcitationLine } from '../core/panel';
 import { CatalogSearch } from './catalog';
 import { freeCatalog, type FreeCatalog } from './free-catalog';
-import { candidateMatrix } from './matrix';
+import { candidateMatrix, rememberingResolver } from './matrix';
 import { resolveOptions, type ResolvedDesignOptions } from './options';
 import { refineFreeDesign, type FreeDesign } from './refine';
 import { allowedMaterials, normalizeWindow, type DesignRequest } from './request';
@@ -62,7 +62,8 @@ export function* freeDesignSteps(
     );
   }
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
-  const collected = candidateMatrix(catalog.probes, catalog.channels, request.excitation);
+  const resolve = rememberingResolver();
+  const collected = candidateMatrix(catalog.probes, catalog.channels, request.excitation, resolve);
   const search = new CatalogSearch({
     collected,
     abundance,
@@ -91,6 +92,7 @@ export function* freeDesignSteps(
       windowNm,
       materials: new Map(materials.map((m) => [m.id as string, m])),
       options: o,
+      resolve,
     };
     outcome = yield* refineFreeDesign(start, ctx);
   }

@@ -6,7 +6,8 @@
  */
 import { SpectraError } from '../core/errors';
 import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
-import { buildPanelModel } from '../signal/panel-model';
+import { modelPanel, type DotResolver } from '../signal/panel-model';
+import { resolveDot, type ResolvedDot } from '../dot/resolve';
 import { collectedMatrix } from '../signal/crosstalk';
 import type { ChannelSpec, ExcitationLine, PanelSpec, ProbeSpec } from '../core/panel';
 
@@ -20,13 +21,32 @@ export function asCandidate(probe: ProbeSpec): ProbeSpec {
 }
 
 /**
- * collected[c][p] at abundance 1 for candidate probes and channels. Errors from the spectral model are re-thrown
- * with their path under `pathPrefix` (e.g. ['candidates']) so the API names the candidate's field.
+ * A DotResolver that keeps its answers for one design run: the search and its refinement ask for the same dots many
+ * times. Dropped with the run.
+ */
+export function rememberingResolver(): DotResolver {
+  const known = new Map<string, ResolvedDot>();
+  return (input, grid) => {
+    const key = `${grid.startNm} ${grid.stepNm} ${grid.count} ${JSON.stringify(input)}`;
+    let dot = known.get(key);
+    if (!dot) {
+      dot = resolveDot(input, { grid });
+      known.set(key, dot);
+    }
+    return dot;
+  };
+}
+
+/**
+ * collected[c][p] at abundance 1 for candidate probes and channels, with the dots from `resolve`. Errors from the
+ * spectral model are re-thrown with their path under `pathPrefix` (e.g. ['candidates']) so the API names the
+ * candidate's field.
  */
 export function candidateMatrix(
   probes: ProbeSpec[],
   channels: ChannelSpec[],
   excitation: ExcitationLine[],
+  resolve: DotResolver,
   options: { grid?: WavelengthGrid; pathPrefix?: (string | number)[] } = {},
 ): number[][] {
   const grid = options.grid ?? DEFAULT_GRID;
@@ -41,7 +61,7 @@ export function candidateMatrix(
       };
       let block: number[][];
       try {
-        const model = buildPanelModel(panel, grid);
+        const model = modelPanel(panel, grid, resolve);
         block = collectedMatrix(model.components, model.transmissions, grid.stepNm);
       } catch (err) {
         if (!(err instanceof SpectraError)) throw err;

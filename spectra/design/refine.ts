@@ -11,6 +11,7 @@ import { candidateMatrix } from './matrix';
 import { worstInterference } from './objective';
 import type { ResolvedDesignOptions } from './options';
 import type { SearchProgress } from './search';
+import type { DotResolver } from '../signal/panel-model';
 
 /** A free-mode design: per target a material, an emission peak and a band. */
 export interface FreeDesign {
@@ -26,6 +27,8 @@ export interface RefineContext {
   windowNm: [number, number];
   materials: Map<string, Material>;
   options: ResolvedDesignOptions;
+  /** Where the refinement gets its dots (remembered for the run). */
+  resolve: DotResolver;
 }
 
 /** Probe specs of a free design (ids p1…pn). */
@@ -52,7 +55,7 @@ export function freeDesignAllowed(d: FreeDesign, ctx: RefineContext): boolean {
 export function freeObjective(d: FreeDesign, ctx: RefineContext): number {
   if (!freeDesignAllowed(d, ctx)) return Infinity;
   const channels = d.bands.map((b, t) => bandChannel(`c${t + 1}`, b, ctx.options.edgeWidthNm));
-  const m = candidateMatrix(freeProbes(d), channels, ctx.excitation);
+  const m = candidateMatrix(freeProbes(d), channels, ctx.excitation, ctx.resolve);
   const own = ctx.abundance.map((a, t) => a * m[t][t]);
   if (!own.every((s) => s > 0) || Math.min(...own) < ctx.options.minSignalFraction * Math.max(...own)) return Infinity;
   const identity = ctx.abundance.map((_, t) => t);

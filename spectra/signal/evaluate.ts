@@ -9,7 +9,7 @@ import { collectedMatrix, crosstalkFigures, type WorstInterference } from './cro
 import { makeJsonSafe } from './json-safe';
 import { buildPanelModel, type PanelModel, type ProbeEvaluation } from './panel-model';
 import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
-import { unmixingDiagnostics } from './unmix';
+import { diagnoseMixing } from './unmix';
 
 /** Everything evaluatePanel returns; JSON-safe (no NaN or Infinity: undefined figures are null with a warning). */
 export interface PanelEvaluation {
@@ -69,7 +69,7 @@ export function evaluatePanel(
   const channelIds = panel.channels.map((c) => c.id);
   const collected = collectedMatrix(components, transmissions, grid.stepNm);
   const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
-  const diagnostics = unmixingDiagnostics(collected, probeIds);
+  const diagnostics = diagnoseMixing(collected, probeIds);
   const warnings = [...figures.warnings, ...diagnostics.warnings];
   const evaluation: PanelEvaluation = {
     grid: { ...grid },

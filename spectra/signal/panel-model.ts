@@ -4,9 +4,8 @@
  */
 import { SpectraError } from '../core/errors';
 import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
-import type { PanelSpec, ProbeSpec } from '../core/panel';
-import { dotInputOf, resolveDotCached } from '../dot/cache';
-import { extinctionAtNm, type DotFields, type ResolvedDot } from '../dot/resolve';
+import { DOT_INPUT_FIELDS, type DotInput, type PanelSpec, type ProbeSpec } from '../core/panel';
+import { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from '../dot/resolve';
 import { backgroundEmission } from '../light/background';
 import { channelTransmission } from '../light/filters/channel';
 import { linesOn, type EmissionComponent } from './crosstalk';
@@ -44,6 +43,19 @@ export interface PanelModel {
   /** Per probe, the index of its assigned channel (undefined: none assigned). */
   assigned: (number | undefined)[];
 }
+
+/** A probe's dot fields (every field resolveDot reads), plus the exciting line when one is given. */
+export function dotInputOf(probe: ProbeSpec, excitationNm?: number): DotInput {
+  const input: Record<string, unknown> = {};
+  for (const field of DOT_INPUT_FIELDS) if (probe[field] !== undefined) input[field] = probe[field];
+  if (excitationNm !== undefined) input.excitationNm = excitationNm;
+  return input as unknown as DotInput;
+}
+
+/** How a panel model gets a probe's resolved dot (the design search passes one that remembers its answers). */
+export type DotResolver = (input: DotInput, grid: WavelengthGrid) => ResolvedDot;
+
+const resolveOnGrid: DotResolver = (input, grid) => resolveDot(input, { grid });
 
 /** A model error inside probe p, moved under ['probes', p]. */
 function inProbe<T>(p: number, resolve: () => T): T {
@@ -96,6 +108,11 @@ function component(dot: ResolvedDot, weightByChannel: number[]): EmissionCompone
  * name the field, e.g. ['probes', 1, 'emissionPeakNm'] or ['channels', 2, 'filters', 0, 'edgeWidthNm'].
  */
 export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT_GRID): PanelModel {
+  return modelPanel(panel, grid, resolveOnGrid);
+}
+
+/** buildPanelModel with the probes' dots from `resolve`. */
+export function modelPanel(panel: PanelSpec, grid: WavelengthGrid, resolve: DotResolver): PanelModel {
   const lines = panel.excitation.map((l) => ({ wavelengthNm: l.wavelengthNm, powerRel: l.powerRel ?? 1 }));
   const linesOnByChannel = panel.channels.map((c) => linesOn(c, lines));
   const transmissions = panel.channels.map((c, i) => channelTransmission(c, grid, ['channels', i]));
@@ -103,7 +120,7 @@ export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT
   const components: EmissionComponent[][] = [];
   const probeEvaluations: ProbeEvaluation[] = [];
   panel.probes.forEach((probe, p) => {
-    const dot = inProbe(p, () => resolveDotCached(dotInputOf(probe), grid));
+    const dot = inProbe(p, () => resolve(dotInputOf(probe), grid));
     dots.push(dot);
     const abundance = probe.abundance ?? 1;
     // lineWeight[l] = powerRel × ε(λl) × QY × abundance: the line's factor in the signal model.
@@ -115,7 +132,7 @@ export function buildPanelModel(panel: PanelSpec, grid: WavelengthGrid = DEFAULT
     probeEvaluations.push(evaluation);
     // Carbon dots without a measured emission change colour with the line: one emission per line.
     if (dot.material === 'carbon' && !dot.measured.emission) {
-      const perLine = lines.map((line) => inProbe(p, () => resolveDotCached(dotInputOf(probe, line.wavelengthNm), grid)));
+      const perLine = lines.map((line) => inProbe(p, () => resolve(dotInputOf(probe, line.wavelengthNm), grid)));
       evaluation.emissionPeakNmByLine = perLine.map((d) => d.emissionPeakNm);
       components.push(perLine.map((d, l) => component(d, channelWeights(linesOnByChannel, lineWeight, l))));
     } else {

@@ -122,9 +122,9 @@ describe('sizing errors', () => {
     expect([err.code, err.path, err.message.includes('1.5–8 nm')]).toEqual(['out_of_range', ['diameterNm'], true]);
   });
 
-  it.each([-3, 0, NaN, Infinity])('emissionPeakForDiameterNm(cdse, %s) throws invalid_input on diameterNm', (d) => {
+  it.each([-3, 0, NaN, Infinity])('emissionPeakForDiameterNm(cdse, %s) throws out_of_range on diameterNm', (d) => {
     const err = catchError(() => emissionPeakForDiameterNm('cdse', d));
-    expect([err.code, err.path]).toEqual(['invalid_input', ['diameterNm']]);
+    expect([err.code, err.path]).toEqual(['out_of_range', ['diameterNm']]);
   });
 
   it('emissionPeakForDiameterNm(carbon, 3) throws invalid_input on material: no size law', () => {
@@ -132,8 +132,8 @@ describe('sizing errors', () => {
     expect([err.code, err.path]).toEqual(['invalid_input', ['material']]);
   });
 
-  it('diameterForEmissionPeakNm(unobtainium, 600) throws unknown_material', () => {
-    const err = catchError(() => diameterForEmissionPeakNm('unobtainium' as MaterialId, 600));
-    expect([err.code, err.path]).toEqual(['unknown_material', ['material']]);
+  it('diameterForEmissionPeakNm(custom, 600) throws invalid_input on material: no size law', () => {
+    const err = catchError(() => diameterForEmissionPeakNm('custom' as MaterialId, 600));
+    expect([err.code, err.path, /no size law/.test(err.message)]).toEqual(['invalid_input', ['material'], true]);
   });
 });

@@ -2,10 +2,10 @@
 // free mode. Scenarios are fictional (imagined markers, no real lab or product).
 import { describe, expect, it } from 'vitest';
 import {
+  EXCLUSIONS,
   createRandom,
   evaluatePanel,
-  freeGridCatalog,
-  getMaterial,
+  listMaterials,
   resolveDot,
   runDesign,
   runDesignAsync,
@@ -14,6 +14,37 @@ import {
 } from '../../../spectra/index';
 
 const line405 = [{ wavelengthNm: 405 }];
+const getMaterial = (id: string) => listMaterials().find((m) => m.id === id)!;
+
+/**
+ * Free mode's grid catalog as its documentation states it, written here independently of the library: dots every
+ * `peakStepNm` inside each material's reach and the window; bandpasses (2 nm edges) centred every `bandStepNm` at each
+ * width, inside the window and clear of each line by half the width plus the edge.
+ */
+function gridCatalog(windowNm: [number, number], stepNm: number, widthsNm: number[], lineNm: number) {
+  const [lo, hi] = windowNm;
+  const probes = listMaterials()
+    .filter((m) => m.id !== 'custom' && m.emissionRangeNm)
+    .flatMap((m) => {
+      const from = Math.max(Math.ceil(m.emissionRangeNm![0]), lo);
+      const to = Math.min(Math.floor(m.emissionRangeNm![1]), hi);
+      const peaks: number[] = [];
+      for (let nm = Math.ceil(from / stepNm) * stepNm; nm <= to; nm += stepNm) peaks.push(nm);
+      return peaks.map((nm) => ({ id: `${m.id}-${nm}`, material: m.id, emissionPeakNm: nm }));
+    });
+  const bands = widthsNm.flatMap((widthNm) => {
+    const out: { centerNm: number; widthNm: number }[] = [];
+    for (let c = Math.ceil((lo + widthNm / 2) / stepNm) * stepNm; c + widthNm / 2 <= hi; c += stepNm)
+      if (Math.abs(lineNm - c) > widthNm / 2 + 2) out.push({ centerNm: c, widthNm });
+    return out;
+  });
+  const channels = bands.map((b, k) => ({
+    id: `b${k}`,
+    filters: [{ type: 'bandpass' as const, centerNm: b.centerNm, widthNm: b.widthNm, edgeWidthNm: 2 }],
+  }));
+  return { probes, bands, channels };
+}
+
 /** Two passbands overlap when their FWHM intervals do (written here, independently of the library). */
 const overlap = (a: { centerNm: number; widthNm: number }, b: { centerNm: number; widthNm: number }) =>
   Math.abs(a.centerNm - b.centerNm) < (a.widthNm + b.widthNm) / 2;
@@ -90,7 +121,7 @@ describe('runDesign', () => {
     };
     const result = runDesign(request);
     const [lo, hi] = request.windowNm ?? [400, 800];
-    const excluded = new Set((request.exclude ?? []).map((w) => ({ cadmium: 'Cd', lead: 'Pb', arsenic: 'As' })[w]));
+    const excluded = new Set((request.exclude ?? []).map((w) => EXCLUSIONS[w]));
     for (const probe of result.panel.probes) {
       const material = getMaterial(probe.material);
       if (request.allowedMaterials) expect(request.allowedMaterials).toContain(probe.material);
@@ -127,7 +158,7 @@ describe('runDesign', () => {
         windowNm: [480, 700],
         options: { peakStepNm: 20, bandStepNm: 20, bandwidthsNm: [20, 40], nodeBudget: 200_000 },
       };
-      const grid = freeGridCatalog(base);
+      const grid = gridCatalog(base.windowNm!, 20, [20, 40], 405);
       const rng = createRandom(draw);
       const pick = <T>(list: T[], k: number) => [...list].sort(() => rng.uniform() - 0.5).slice(0, k);
       // Six dots, and passbands added one by one while they overlap none already drawn (free mode's own rule).
@@ -162,7 +193,8 @@ describe('runDesign', () => {
       options: { refine: false },
     };
     const seen: SearchProgress['stage'][] = [];
-    const result = await runDesignAsync(request, { onProgress: (p) => seen.push(p.stage) });
+    const pause = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
+    const result = await runDesignAsync(request, { onProgress: (p) => seen.push(p.stage), pause });
     expect(seen[0]).toBe('candidates');
     expect(seen).toContain('done');
     expect(result.objective.worstInterference).toBe(runDesign(request).objective.worstInterference);
