@@ -7,7 +7,7 @@ import { join } from 'node:path';
 import { chromium, type BrowserContext } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CSV_LIMITS, parseSpectrumCsv, SpectraError } from '../../spectra/index';
-import { orderingSheetCsv } from '../../web/csv-export';
+import { orderingSheetCsv } from '../../web/io/csv-export';
 import { startApp, type StartedApp } from './helpers/app';
 import { demoPanelTitled, postJson } from './helpers/contract';
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { errorOf } from './helpers/errors';
-import { DEFAULT_GRID, SpectraError, channelTransmission, parseSpectrumCsv } from '../../spectra/index';
+import { DEFAULT_GRID, channelTransmission, parseSpectrumCsv } from '../../spectra/index';
 
 // A made-up measured bandpass around 600 nm, in 0–1 and in percent.
 const rows = [

@@ -200,6 +200,20 @@ describe('evaluatePanel: crosstalk figures', () => {
     expectJsonSafe(ev);
   });
 
+  it('evaluatePanel counts both of two lines 0.3 nm apart when a channel names both (each name is its own line)', () => {
+    const probe = gaussianProbe('g', 560, 12);
+    const panelWith = (excitationNm: number[]): PanelSpec => ({
+      excitation: [{ wavelengthNm: 494.5 }, { wavelengthNm: 494.2, powerRel: 2 }],
+      probes: [probe],
+      channels: [{ id: 'c', filters: [{ type: 'bandpass', centerNm: 560, widthNm: 30 }], excitationNm }],
+    });
+    const first = evaluatePanel(panelWith([494.5]), { sensitivity: false }).collected[0][0];
+    const second = evaluatePanel(panelWith([494.2]), { sensitivity: false }).collected[0][0];
+    const both = evaluatePanel(panelWith([494.5, 494.2]), { sensitivity: false }).collected[0][0];
+    expect(second / first).toBeCloseTo(2, 12);
+    expect(both / first).toBeCloseTo(3, 12);
+  });
+
   it("evaluatePanel uses a probe's assigned channel as its primary even where another collects more", () => {
     const panel = fourProbePanel();
     panel.probes[0] = { ...panel.probes[0], channel: 'c565' };

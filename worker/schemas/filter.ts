@@ -5,7 +5,13 @@ import { pointsTable } from './spectrum';
 
 /** Options shared by the modelled filters (defaults documented in spectra/panel.ts: EdgeFilterOptions). */
 const edgeOptions = {
-  peakTransmission: ranged(0, 1, '', true).optional(),
+  // Above 0: a filter that passes nothing is no filter (invalid_input, like the other ill-formed filters).
+  peakTransmission: ranged(0, 1)
+    .superRefine((value, ctx) => {
+      if (value === 0)
+        ctx.addIssue({ code: 'custom', message: 'must be greater than 0 and at most 1', params: { apiCode: 'invalid_input' } });
+    })
+    .optional(),
   edgeWidthNm: ranged(RANGES.edgeWidthNm[0], RANGES.edgeWidthNm[1], 'nm').optional(),
   blockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
 };

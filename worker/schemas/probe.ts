@@ -37,6 +37,7 @@ export function checkDotSize(dot: DotLike, ctx: z.RefinementCtx): void {
     ctx.addIssue({ code: 'custom', message, path: [field], params: { apiCode: 'invalid_input' } });
   if (dot.material === 'custom') {
     if (dot.measuredEmission === undefined) add("is required for material 'custom'", 'measuredEmission');
+    if (dot.diameterNm !== undefined) add('must not be given for custom probes (they have no size law)', 'diameterNm');
     return;
   }
   const hasPeak = dot.emissionPeakNm !== undefined;

@@ -1,5 +1,5 @@
 /** Checks shared by the quality tests: the contract's error shape and the panels the traffic is made of. */
-import { demoPanel } from '../../../web/demo-panel';
+import { demoPanel } from '../../../web/state/demo-panel';
 
 /** The contract's error body (shared/api-v1.md, "Errors"). */
 export interface ContractError {
