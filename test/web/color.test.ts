@@ -1,7 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { cmfs } from 'spectral-color';
 import { converter } from 'culori';
-import { cie1931Cmf, isNearInfrared, wavelengthToCss, wavelengthToDisplayRgb, xyzToLinearSrgb } from '../../web/chart/color';
+import {
+  cie1931Cmf,
+  isNearInfrared,
+  wavelengthToCss,
+  wavelengthToDisplayRgb,
+  xyzToLinearSrgb,
+} from '../../web/chart/color';
 
 const toLrgb = converter('lrgb');
 

@@ -77,7 +77,7 @@ describe('<qdp-crosstalk-table>', () => {
     expect(text).toContain("below the model's resolution");
     const spill = el.shadowRoot!.querySelector('table[aria-label="Spillover by channel"]')!;
     // spillover[0][1] = 2e-5 is flagged below resolution: shown as "< 0.1 %", not to three digits.
-    expect(spill.querySelectorAll('tbody tr')[0].querySelectorAll('td')[1].textContent).toBe('< 0.1 %');
+    expect(spill.querySelectorAll('tbody tr')[0].querySelectorAll('td')[1].textContent!.trim()).toBe('< 0.1 %');
     expect(text).toContain("this target's noise grows about 2.3× after unmixing");
     expect(text).toContain('Condition number 1.1');
     expect(text).toContain('can reach 5 % if Green dot comes 5 nm redder (Green dot into Orange dot)');
@@ -88,7 +88,7 @@ describe('<qdp-crosstalk-table>', () => {
     const el = await mount(view);
     el.view = { ...view, worst: { from: 'p2', into: 'p1', interference: 0.12 } };
     await el.updateComplete;
-    expect(el.shadowRoot!.textContent).toContain('Worst pair: Orange dot adds 12 % of Green dot');
+    expect(el.shadowRoot!.textContent!.replace(/\s+/g, ' ')).toContain('Worst pair: Orange dot adds 12 % of Green dot');
   });
 
   it('shows a spectral run of 16 channels as 16 rows with compact cells', async () => {

@@ -120,3 +120,44 @@ describe('editors', () => {
     expect(panel.channels[i].filters[0]).toMatchObject({ centerNm: 605, widthNm: 20 });
   });
 });
+
+describe('editors: messages without a field of their own', () => {
+  it('<qdp-probe-card> lists a message about its label (a field with no number input) in the card as an alert', async () => {
+    const el = document.createElement('qdp-probe-card');
+    el.probe = { id: 'p1', label: 'Orange', material: 'cdse', emissionPeakNm: 605 };
+    el.materials = listMaterials();
+    el.errors = { label: 'probes[0].label must be at most 200 characters' };
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const alerts = [...el.shadowRoot!.querySelectorAll('p[role="alert"]')].map((p) => p.textContent);
+    expect(alerts).toEqual(['probes[0].label must be at most 200 characters']);
+  });
+
+  it('<qdp-probe-card> shows a message about its emission peak under that field only, not again in the card', async () => {
+    const el = document.createElement('qdp-probe-card');
+    el.probe = { id: 'p1', label: 'Orange', material: 'cdse', emissionPeakNm: 2500 };
+    el.materials = listMaterials();
+    el.errors = { emissionPeakNm: 'probes[0].emissionPeakNm must be between 200 and 2000 nm' };
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const field = el.shadowRoot!.querySelector('qdp-number-field[data-field="emissionPeakNm"]') as HTMLElement & {
+      updateComplete: Promise<unknown>;
+    };
+    await field.updateComplete;
+    expect(field.shadowRoot!.querySelector('[role="alert"]')!.textContent).toBe(
+      'probes[0].emissionPeakNm must be between 200 and 2000 nm',
+    );
+    expect(el.shadowRoot!.querySelectorAll('p[role="alert"]')).toHaveLength(0);
+  });
+
+  it('<qdp-channel-card> lists a message about its excitation line choice in the card as an alert', async () => {
+    const el = document.createElement('qdp-channel-card');
+    el.channel = { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] };
+    el.lines = [405];
+    el.errors = { excitationNm: "405 nm is not one of the panel's excitation lines" };
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const alerts = [...el.shadowRoot!.querySelectorAll('p[role="alert"]')].map((p) => p.textContent);
+    expect(alerts).toEqual(["405 nm is not one of the panel's excitation lines"]);
+  });
+});

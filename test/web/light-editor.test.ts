@@ -64,6 +64,32 @@ describe('<qdp-light-editor>', () => {
     });
   });
 
+  it("<qdp-light-editor> shows a message about line 1's relative power under that line's power field", async () => {
+    const el = document.createElement('qdp-light-editor');
+    el.panel = demoPanel();
+    el.errors = { 'excitation.0.powerRel': 'excitation[0].powerRel must be between 0 and 1000000' };
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const power = [...el.shadowRoot!.querySelectorAll('qdp-number-field')].find(
+      (f) => (f as unknown as { label: string }).label === 'Relative power',
+    ) as Updating;
+    await power.updateComplete;
+    expect(power.shadowRoot!.querySelector('[role="alert"]')!.textContent).toBe(
+      'excitation[0].powerRel must be between 0 and 1000000',
+    );
+    expect(el.shadowRoot!.querySelectorAll('p[role="alert"]')).toHaveLength(0);
+  });
+
+  it('<qdp-light-editor> lists a message about the lines as a whole (17 lines) under the editor', async () => {
+    const el = document.createElement('qdp-light-editor');
+    el.panel = demoPanel();
+    el.errors = { excitation: 'excitation has more than 16 lines', title: 'title must be at most 200 characters' };
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const alerts = [...el.shadowRoot!.querySelectorAll('p[role="alert"]')].map((p) => p.textContent);
+    expect(alerts).toEqual(['excitation has more than 16 lines']);
+  });
+
   it('<qdp-light-editor> adds a second excitation line and then offers to remove either', async () => {
     const { el, edits } = await mountEditor(demoPanel());
     const add = [...el.shadowRoot!.querySelectorAll('button')].find((b) =>

@@ -39,7 +39,7 @@ async function mount(
 }
 
 const button = (el: HTMLElement, start: string) =>
-  [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.startsWith(start))!;
+  [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.trim().startsWith(start))!;
 const panelButtons = (el: HTMLElement) => ['Share', 'Ordering sheet', 'Panel (JSON)'].map((s) => button(el, s));
 const liveMessage = (el: HTMLElement) => el.shadowRoot!.querySelector('p[aria-live="polite"]')!.textContent!.trim();
 
@@ -119,7 +119,7 @@ describe('<qdp-panel-actions>', () => {
     button(el, 'Share').click();
     await el.updateComplete;
     expect(panelButtons(el).map((b) => b.disabled)).toEqual([true, true, true]);
-    await vi.waitFor(() => expect(liveMessage(el)).toMatch(/^Sharing failed: \S/));
+    await vi.waitFor(() => expect(liveMessage(el)).toMatch(/^Sharing failed: \S/), { timeout: 10_000 });
     await el.updateComplete;
     expect(panelButtons(el).map((b) => b.disabled)).toEqual([false, false, false]);
     expect(el.shadowRoot!.querySelector('input')).toBeNull();
@@ -135,7 +135,7 @@ describe('<qdp-panel-actions>', () => {
     }));
     const el = await mount(panel, (a) => (a.localResolved = localResolved));
     button(el, 'Ordering sheet').click();
-    await vi.waitFor(() => expect(downloads).toHaveLength(1));
+    await vi.waitFor(() => expect(downloads).toHaveLength(1), { timeout: 10_000 });
     expect(downloads[0].filename).toBe('demo-six-targets-on-a-tissue-section-one-405-nm-line-order.csv');
     expect(liveMessage(el)).toMatch(/^Ordering sheet saved with values computed in this page \(server: .+\)\.$/);
     const rows = (await (await downloads[0].blob).text()).split('\r\n');
@@ -169,7 +169,7 @@ describe('<qdp-panel-actions>', () => {
   it('<qdp-panel-actions> saves the chart as a PNG at twice its on-screen size', async () => {
     const el = await mount(demoPanel(), (a) => (a.chartSvg = smallChart));
     button(el, 'Chart (PNG)').click();
-    await vi.waitFor(() => expect(downloads).toHaveLength(1));
+    await vi.waitFor(() => expect(downloads).toHaveLength(1), { timeout: 10_000 });
     expect(downloads[0].filename).toBe('demo-six-targets-on-a-tissue-section-one-405-nm-line-spectra.png');
     const blob = await downloads[0].blob;
     expect(blob.type).toBe('image/png');

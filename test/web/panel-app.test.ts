@@ -1,4 +1,7 @@
+// The whole page in headless Chromium, driven as a user drives it: keystrokes into its inputs and clicks on its
+// buttons (vitest's userEvent, through Playwright), then what the page shows.
 import { afterEach, describe, expect, it } from 'vitest';
+import { page, userEvent } from 'vitest/browser';
 import '../../web/elements/panel-app';
 import { decodeFragment } from '../../web/state/fragment';
 
@@ -9,46 +12,108 @@ afterEach(() => {
   history.replaceState(null, '', location.pathname + location.search);
 });
 
-async function settle(el: Host): Promise<void> {
-  for (let i = 0; i < 5; i++) {
-    await el.updateComplete;
-    await new Promise((r) => setTimeout(r, 20));
-  }
+/** The first element matching `selector` inside `root`'s shadow root. */
+const inner = (root: Element, selector: string) => root.shadowRoot!.querySelector(selector) as Host;
+
+/** The page's text in one line, as a reader sees it. */
+const text = (el: Element) => (el.shadowRoot ?? el).textContent!.replace(/\s+/g, ' ').trim();
+
+/** Opens the page and waits until the demo panel's six emission curves are drawn. */
+async function openPage(): Promise<Host> {
+  const app = document.createElement('qdp-panel-app') as Host;
+  document.body.appendChild(app);
+  await expect
+    .poll(() => inner(app, 'qdp-spectrum-chart')?.shadowRoot?.querySelectorAll('path.curve').length, {
+      timeout: 10_000,
+    })
+    .toBe(6);
+  return app;
 }
 
-const inner = (root: Element, selector: string) => (root.shadowRoot ?? root).querySelector(selector) as Host;
+/** The emission-peak field of probe `index` (its <qdp-number-field>), to read what it shows. */
+function peakField(app: Host, index: number): Host {
+  const card = inner(app, 'qdp-probe-list').shadowRoot!.querySelectorAll('qdp-probe-card')[index];
+  return inner(card, 'qdp-number-field[data-field="emissionPeakNm"]');
+}
+
+/** Empties probe `index`'s "Emission peak (nm)" input, found by its label, and types `keys` into it key by key. */
+async function typePeak(app: Host, index: number, keys: string): Promise<void> {
+  const card = inner(app, 'qdp-probe-list').shadowRoot!.querySelectorAll('qdp-probe-card')[index];
+  const input = page.elementLocator(card).getByLabelText('Emission peak (nm)');
+  await userEvent.clear(input);
+  await userEvent.type(input, keys);
+}
+
+const crosstalkTable = (app: Host) => inner(app, 'qdp-crosstalk-table').shadowRoot!.querySelector('table')!;
+const staleNote = (app: Host) => inner(app, 'qdp-crosstalk-table').shadowRoot!.querySelector('.stale');
+const fieldMessage = (field: Host) => field.shadowRoot!.querySelector('[role="alert"]')?.textContent ?? '';
+const headerAlert = (app: Host) => app.shadowRoot!.querySelector('header [role="alert"]')?.textContent ?? '';
+const linkedPeak = (index: number) =>
+  (decodeFragment(location.hash) as { panel: { probes: { emissionPeakNm?: number }[] } }).panel.probes[index]
+    .emissionPeakNm;
 
 describe('<qdp-panel-app>', () => {
-  it('renders the demo panel: six curves, the crosstalk tables and the material summary', async () => {
-    const app = document.createElement('qdp-panel-app') as Host;
-    document.body.appendChild(app);
-    await settle(app);
-    const chart = inner(app, 'qdp-spectrum-chart');
-    expect(chart.shadowRoot!.querySelectorAll('path.curve').length).toBe(6);
-    expect(inner(app, 'qdp-crosstalk-table').shadowRoot!.querySelector('p.worst')!.textContent).toMatch(
-      /Worst pair: .+ adds .+ %/,
+  it('opens on the demo panel: six emission curves, a worst pair in the crosstalk section, cadmium in the notes', async () => {
+    const app = await openPage();
+    expect(text(inner(app, 'qdp-crosstalk-table').shadowRoot!.querySelector('p.worst')!)).toMatch(
+      /^Worst pair: .+ adds [\d.]+ % of .+'s own signal/,
     );
-    expect(inner(app, 'qdp-material-notes').shadowRoot!.querySelector('p.summary')!.textContent).toContain('cadmium');
+    expect(text(inner(app, 'qdp-material-notes').shadowRoot!.querySelector('p.summary')!)).toBe(
+      'This panel contains cadmium.',
+    );
   });
 
-  it('an out-of-range peak keeps the last good numbers, marks them stale and names the field; the fragment keeps the edit', async () => {
-    const app = document.createElement('qdp-panel-app') as Host;
-    document.body.appendChild(app);
-    await settle(app);
-    const table = inner(app, 'qdp-crosstalk-table');
-    const before = table.shadowRoot!.querySelector('table')!.textContent;
-    app.shadowRoot!.querySelector('.edit')!.dispatchEvent(
-      new CustomEvent('probe-change', {
-        detail: { index: 1, probe: { id: 'p2', label: 'Green dot', material: 'cdse', emissionPeakNm: 990 } },
-        bubbles: true,
-        composed: true,
-      }),
-    );
-    await settle(app);
-    expect(table.shadowRoot!.querySelector('.stale')).not.toBeNull();
-    expect(table.shadowRoot!.querySelector('table')!.textContent).toBe(before);
-    expect(app.shadowRoot!.querySelector('.error')!.textContent).toMatch(/990/);
-    const state = decodeFragment(location.hash) as { panel: { probes: { emissionPeakNm?: number }[] } };
-    expect(state.panel.probes[1].emissionPeakNm).toBe(990);
+  it("typing 990 nm as the green CdSe dot's peak keeps 990 in the field, shows the size law's reach under it, and leaves the numbers as they were, marked stale; the link keeps 990", async () => {
+    const app = await openPage();
+    const before = crosstalkTable(app).textContent;
+    const field = peakField(app, 1);
+    await typePeak(app, 1, '990');
+    // The model's refusal names the peaks the CdSe size law reaches (two wavelengths in nm).
+    await expect
+      .poll(() => fieldMessage(field))
+      .toMatch(/^an emission peak of 990 nm is out of reach .+ \d{3}–\d{3} nm/);
+    expect(field.shadowRoot!.querySelector('input')!.value).toBe('990');
+    expect(headerAlert(app)).toBe(`Not updated: ${fieldMessage(field)}`);
+    expect(staleNote(app)).not.toBeNull();
+    expect(crosstalkTable(app).textContent).toBe(before);
+    expect(linkedPeak(1)).toBe(990);
+  });
+
+  it("typing 2500 nm as a peak shows the API's own message under the field, 'probes[1].emissionPeakNm must be between 200 and 2000 nm', and computes nothing", async () => {
+    const app = await openPage();
+    const before = crosstalkTable(app).textContent;
+    const field = peakField(app, 1);
+    await typePeak(app, 1, '2500');
+    await expect.poll(() => fieldMessage(field)).toBe('probes[1].emissionPeakNm must be between 200 and 2000 nm');
+    expect(field.shadowRoot!.querySelector('input')!.value).toBe('2500');
+    expect(headerAlert(app)).toBe('Not updated: probes[1].emissionPeakNm must be between 200 and 2000 nm');
+    expect(staleNote(app)).not.toBeNull();
+    expect(crosstalkTable(app).textContent).toBe(before);
+    expect(linkedPeak(1)).toBe(2500);
+  });
+
+  it('typing 540 nm after a refused 2500 nm clears both messages and the stale mark and changes the crosstalk numbers', async () => {
+    const app = await openPage();
+    const before = crosstalkTable(app).textContent;
+    const field = peakField(app, 1);
+    await typePeak(app, 1, '2500');
+    await expect.poll(() => staleNote(app)).not.toBeNull();
+    await typePeak(app, 1, '540');
+    await expect.poll(() => staleNote(app)).toBeNull();
+    expect(fieldMessage(field)).toBe('');
+    expect(headerAlert(app)).toBe('');
+    expect(crosstalkTable(app).textContent).not.toBe(before);
+    expect(linkedPeak(1)).toBe(540);
+  });
+
+  it("clicking 'New panel' shows the API's message that a panel needs a probe and turns sharing and export off", async () => {
+    const app = await openPage();
+    const newPanel = [...app.shadowRoot!.querySelectorAll('header button')].find((b) => b.textContent === 'New panel')!;
+    await userEvent.click(newPanel);
+    await expect.poll(() => headerAlert(app)).toBe('Not updated: probes needs at least one probe');
+    const actions = inner(app, 'qdp-panel-actions');
+    await actions.updateComplete;
+    expect(text(actions)).toContain('Sharing and the ordering sheet and panel file are off');
+    expect(text(actions)).toContain('fix the marked input first.');
   });
 });

@@ -43,7 +43,7 @@ async function mount(panel: PanelSpec, setup: (el: HTMLElementTagNameMap['qdp-pr
 
 const cards = (el: HTMLElement) => [...el.shadowRoot!.querySelectorAll('qdp-probe-card')] as Card[];
 const addButton = (el: HTMLElement) =>
-  [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent === 'Add probe')!;
+  [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.trim() === 'Add probe')!;
 
 describe('<qdp-probe-list>', () => {
   it('<qdp-probe-list> renders one card per probe of the demo panel, in order, each with its own index', async () => {

@@ -1,8 +1,29 @@
 import { afterEach, describe, expect, it } from 'vitest';
+import { cmfs } from 'spectral-color';
+import { converter, differenceCiede2000, formatHex } from 'culori';
 import '../../web/elements/spectrum-chart';
 import type { SpectrumChart } from '../../web/elements/spectrum-chart';
 import type { ChartCurve, ChartPassband, EdgeDragDetail } from '../../web/chart/types';
-import { wavelengthToCss } from '../../web/chart/color';
+
+const toLinearRgb = converter('lrgb');
+const colourDifference = differenceCiede2000();
+
+/**
+ * The display colour of a wavelength worked out independently of the page's code: the CIE 1931 2° colour-matching
+ * table (CIE 015:2018, as the spectral-color package ships it) at that wavelength, turned into linear sRGB and then
+ * encoded sRGB by culori, after the display rule the chart promises (add white until no channel is negative, then
+ * scale the brightest channel to 1).
+ */
+function referenceColour(wavelengthNm: number): string {
+  const [x, y, z] = cmfs.CIE_1931_2DEG.sampleAt(wavelengthNm);
+  const { r, g, b } = toLinearRgb({ mode: 'xyz65', x, y, z });
+  const lift = Math.max(0, -Math.min(r, g, b));
+  const top = Math.max(r, g, b) + lift;
+  return formatHex({ mode: 'lrgb', r: (r + lift) / top, g: (g + lift) / top, b: (b + lift) / top });
+}
+
+/** CIEDE2000 difference below which two colours look the same side by side (about one just-noticeable step). */
+const SAME_COLOUR = 1;
 
 /** A Gaussian on a 1 nm grid from 300 nm (test data only). */
 function gaussian(peakNm: number, fwhmNm: number): ChartCurve['spectrum'] {
@@ -10,7 +31,7 @@ function gaussian(peakNm: number, fwhmNm: number): ChartCurve['spectrum'] {
   return {
     startNm: 300,
     stepNm: 1,
-    values: Float64Array.from({ length: 701 }, (_, i) => Math.exp(-0.5 * ((300 + i - peakNm) / s) ** 2)),
+    values: Array.from({ length: 701 }, (_, i) => Math.exp(-0.5 * ((300 + i - peakNm) / s) ** 2)),
   };
 }
 
@@ -18,7 +39,7 @@ function box(loNm: number, hiNm: number): ChartPassband['transmission'] {
   return {
     startNm: 300,
     stepNm: 1,
-    values: Float64Array.from({ length: 701 }, (_, i) => (300 + i >= loNm && 300 + i <= hiNm ? 0.9 : 0)),
+    values: Array.from({ length: 701 }, (_, i) => (300 + i >= loNm && 300 + i <= hiNm ? 0.9 : 0)),
   };
 }
 
@@ -49,14 +70,17 @@ async function mount(): Promise<SpectrumChart> {
 afterEach(() => document.body.replaceChildren());
 
 describe('<qdp-spectrum-chart>', () => {
-  it('renders one coloured path per curve, a dashed grey one for the near-infrared dot, and an NIR legend note', async () => {
+  it('draws a 525 nm curve solid in the colour the CIE 1931 table gives 525 nm, and a 760 nm curve dashed in #4a4a4a with an NIR note', async () => {
     const el = await mount();
     const paths = el.shadowRoot!.querySelectorAll<SVGPathElement>('path.curve');
     expect(paths.length).toBe(2);
-    expect(paths[0].getAttribute('stroke')).toBe(wavelengthToCss(525));
+    expect(colourDifference(paths[0].getAttribute('stroke')!, referenceColour(525))).toBeLessThan(SAME_COLOUR);
+    expect(paths[0].getAttribute('stroke-dasharray')).toBe('none');
     expect(paths[0].getAttribute('d')!.length).toBeGreaterThan(50);
+    // Near-infrared curves share one dark grey (the chart's NIR style), told apart by their dashes and the legend.
+    expect(paths[1].getAttribute('stroke')).toBe('#4a4a4a');
     expect(paths[1].getAttribute('stroke-dasharray')).toBe('6 3');
-    expect(el.shadowRoot!.textContent).toContain('NIR');
+    expect(el.shadowRoot!.textContent).toContain('NIR: near-infrared emission');
   });
 
   it('draws the x axis in nm with d3-axis tick labels and marks the excitation line', async () => {
@@ -67,14 +91,16 @@ describe('<qdp-spectrum-chart>', () => {
     expect(el.shadowRoot!.textContent).toContain('ex 405');
   });
 
-  it('redraws a curve when the curves property changes', async () => {
+  it('redraws the curve with a new path in the CIE 1931 colour of 545 nm when its peak moves from 525 to 545 nm', async () => {
     const el = await mount();
     const before = el.shadowRoot!.querySelector('path.curve')!.getAttribute('d');
     el.curves = [{ id: 'p1', label: 'Green', peakNm: 545, spectrum: gaussian(545, 30) }];
     await el.updateComplete;
     const after = el.shadowRoot!.querySelector('path.curve')!;
     expect(after.getAttribute('d')).not.toBe(before);
-    expect(after.getAttribute('stroke')).toBe(wavelengthToCss(545));
+    expect(colourDifference(after.getAttribute('stroke')!, referenceColour(545))).toBeLessThan(SAME_COLOUR);
+    // 525 and 545 nm must not look alike, or the check above would pass for a curve that kept its old colour.
+    expect(colourDifference(referenceColour(525), referenceColour(545))).toBeGreaterThan(5 * SAME_COLOUR);
   });
 
   it('fires edge-drag with the new wavelength when a focused edge handle gets ArrowRight', async () => {

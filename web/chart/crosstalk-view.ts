@@ -1,23 +1,30 @@
 /**
- * What the crosstalk section shows, as plain numbers and labels (the app builds it from a panel evaluation).
- * A null value has no finite meaning (e.g. a probe no channel collects); the warnings say why.
+ * What the crosstalk section shows, as plain numbers and labels (the app builds it from a panel evaluation), with the
+ * tables' number format and their one-hue shade ramp. A null value has no finite meaning (e.g. a probe no channel
+ * collects); the warnings say why.
  */
-export interface CrosstalkView {
+import type { PanelEvaluation } from '../../spectra/index';
+
+/** The evaluation's figures the tables print as they are (spillover, primary channels, noise gains, warnings…). */
+type EvaluationFigures = Pick<
+  PanelEvaluation,
+  | 'spillover'
+  | 'belowResolution'
+  | 'primaryChannel'
+  | 'noiseAmplification'
+  | 'conditionNumber'
+  | 'signalToBackground'
+  | 'warnings'
+>;
+
+/** The crosstalk section's numbers and labels. */
+export interface CrosstalkView extends EvaluationFigures {
   probes: { id: string; label: string }[];
   channels: { id: string; label: string }[];
   /** interference[t][u]: light of probe t in u's primary channel relative to u's own signal there. */
   interference: (number | null)[][];
-  /** spillover[c][p]: probe p's light in channel c relative to its primary channel. */
-  spillover: (number | null)[][];
-  /** belowResolution[c][p]: spillover too small for the model to tell from zero. */
-  belowResolution: boolean[][];
-  primaryChannel: (number | null)[];
-  noiseAmplification: (number | null)[];
-  conditionNumber: number | null;
   /** Shot-noise reading at a nominal photon budget; null or absent when it cannot be computed. */
   shotNoise?: ShotNoiseView | null;
-  /** Per channel, signal over sample background; absent when the background is off. */
-  signalToBackground?: (number | null)[];
   /** Worst interference now and after the most harmful ±shiftNm move of one probe's emission (lot to lot), or null. */
   lotShift: {
     shiftNm: number;
@@ -28,8 +35,7 @@ export interface CrosstalkView {
     from: string;
     into: string;
   } | null;
-  worst: { from: string | null; into: string | null; interference: number | null } | null;
-  warnings: string[];
+  worst: PanelEvaluation['worst'] | null;
 }
 
 /** Each target's predicted SD under Poisson shot noise after least-squares unmixing, at a nominal photon budget. */

@@ -3,7 +3,8 @@
  */
 import { scaleLinear, type ScaleLinear } from 'd3-scale';
 import { area, line } from 'd3-shape';
-import type { ChartCurve, ChartPassband, GridCurve } from './types';
+import type { SampledSpectrum } from '../../spectra/index';
+import type { ChartCurve, ChartPassband } from './types';
 
 /** Plot margins in px: room for the axes' tick labels and titles. */
 export const MARGIN = { top: 14, right: 46, bottom: 40, left: 52 };
@@ -19,7 +20,7 @@ export interface ChartGeometry {
 }
 
 /** Points of a grid curve inside [loNm, hiNm], every `stride`-th sample (enough for a few px per point). */
-function pointsOf(c: GridCurve, loNm: number, hiNm: number, stride: number): [number, number][] {
+function pointsOf(c: SampledSpectrum, loNm: number, hiNm: number, stride: number): [number, number][] {
   const out: [number, number][] = [];
   for (let i = 0; i < c.values.length; i += stride) {
     const nm = c.startNm + i * c.stepNm;
@@ -32,7 +33,7 @@ function pointsOf(c: GridCurve, loNm: number, hiNm: number, stride: number): [nu
 export function chartGeometry(
   curves: readonly ChartCurve[],
   passbands: readonly ChartPassband[],
-  background: GridCurve | undefined,
+  background: SampledSpectrum | undefined,
   domainNm: [number, number],
   widthPx: number,
   heightPx: number,
@@ -51,7 +52,7 @@ export function chartGeometry(
     .domain([0, 1])
     .range([heightPx - MARGIN.bottom, MARGIN.top]);
   // Sample a 1 nm grid at most once per px: keeps paths short on a phone.
-  const stride = (c: GridCurve) => Math.max(1, Math.floor((domainNm[1] - domainNm[0]) / c.stepNm / widthPx));
+  const stride = (c: SampledSpectrum) => Math.max(1, Math.floor((domainNm[1] - domainNm[0]) / c.stepNm / widthPx));
   const curveLine = line<[number, number]>()
     .x((d) => x(d[0]))
     .y((d) => yEmission(d[1]));

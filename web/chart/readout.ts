@@ -1,7 +1,8 @@
 /**
  * The text under the chart's pointer: the wavelength, each curve's value there and each passband's transmission.
  */
-import { curveAtNm, type ChartCurve, type ChartPassband, type GridCurve } from './types';
+import { spectrumAtNm, type SampledSpectrum } from '../../spectra/index';
+import type { ChartCurve, ChartPassband } from './types';
 
 const fmt = (v: number) => (v === 0 ? '0' : Math.abs(v) < 0.001 ? v.toExponential(1) : v.toPrecision(3));
 
@@ -10,13 +11,13 @@ export function chartReadout(
   hoverNm: number | null,
   curves: readonly ChartCurve[],
   passbands: readonly ChartPassband[],
-  background?: GridCurve,
+  background?: SampledSpectrum,
 ): string {
   if (hoverNm === null)
     return 'Point at the chart (or focus it and use the arrow keys) to read values at a wavelength.';
   const parts = [`${hoverNm} nm`];
-  for (const c of curves) parts.push(`${c.label}: ${fmt(curveAtNm(c.spectrum, hoverNm))}`);
-  if (background) parts.push(`background: ${fmt(curveAtNm(background, hoverNm))}`);
-  for (const p of passbands) parts.push(`${p.label} T = ${(100 * curveAtNm(p.transmission, hoverNm)).toFixed(1)} %`);
+  for (const c of curves) parts.push(`${c.label}: ${fmt(spectrumAtNm(c.spectrum, hoverNm))}`);
+  if (background) parts.push(`background: ${fmt(spectrumAtNm(background, hoverNm))}`);
+  for (const p of passbands) parts.push(`${p.label} T = ${(100 * spectrumAtNm(p.transmission, hoverNm)).toFixed(1)} %`);
   return parts.join(' · ');
 }

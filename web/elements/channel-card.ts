@@ -5,12 +5,22 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { ChannelSpec, FilterSpec, SpectrumPoints } from '../../spectra/index';
+import {
+  FILTER_TYPES,
+  type ChannelSpec,
+  type DetectorClass,
+  type FilterSpec,
+  type FilterType,
+  type SpectrumPoints,
+} from '../../spectra/index';
 import { describeFilter } from '../io/filter-text';
+import { messagesBesides } from '../state/error-map';
 import './number-field';
 import './spectrum-input';
 
-type FilterKind = 'bandpass' | 'longpass' | 'shortpass' | 'table';
+/** A filter kind the card offers: every kind but the dichroic, which it edits by its edge like a longpass. */
+type FilterKind = Exclude<FilterType, 'dichroic'>;
+const KINDS = FILTER_TYPES.filter((t): t is FilterKind => t !== 'dichroic');
 
 /** A new filter of a kind, placed near `nearNm` so switching kind keeps it where it was. */
 function filterOfKind(kind: FilterKind, nearNm: number): FilterSpec {
@@ -43,8 +53,8 @@ export class ChannelCard extends LitElement {
   @property({ type: Number }) index = 0;
   /** The panel's excitation lines, nm. */
   @property({ attribute: false }) lines: number[] = [];
-  @property({ attribute: false }) detectors: { id: string; name: string }[] = [];
-  /** Errors from the computation keyed by the field path inside the channel, e.g. "filters.0.widthNm". */
+  @property({ attribute: false }) detectors: Pick<DetectorClass, 'id' | 'name'>[] = [];
+  /** Errors keyed by the field path inside the channel, e.g. "filters.0.widthNm"; those without a field show together. */
   @property({ attribute: false }) errors: Record<string, string> = {};
 
   static override styles = css`
@@ -133,7 +143,7 @@ export class ChannelCard extends LitElement {
           <select
             @change=${(e: Event) => this.setFilter(j, filterOfKind((e.target as HTMLSelectElement).value as FilterKind, centreOf(f)))}
           >
-            ${(['bandpass', 'longpass', 'shortpass', 'table'] as const).map((k) => html`<option value=${k} ?selected=${k === kind}>${k === 'table' ? 'measured table' : k}</option>`)}
+            ${KINDS.map((k) => html`<option value=${k} ?selected=${k === kind}>${k === 'table' ? 'measured table' : k}</option>`)}
           </select></label
         >
         ${f.type === 'bandpass' ? html`${this.num(j, f, 'centerNm', 'Centre')}${this.num(j, f, 'widthNm', 'Width (FWHM)')}` : ''}
@@ -144,6 +154,14 @@ export class ChannelCard extends LitElement {
       ${f.type === 'table' ? html`<qdp-spectrum-input kind="transmission" label="filter transmission" @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.setFilter(j, { type: 'table', points: e.detail.points })}></qdp-spectrum-input>` : ''}
       ${this.errors[`filters.${j}`] ? html`<p class="bad" role="alert">${this.errors[`filters.${j}`]}</p>` : ''}
     </div>`;
+  }
+
+  /** The error keys this card shows in place: each filter's number fields and the filter as a whole. */
+  private shownKeys(): string[] {
+    return this.channel.filters.flatMap((f, j) => {
+      const keys = f.type === 'bandpass' ? ['centerNm', 'widthNm'] : f.type === 'table' ? [] : ['edgeNm'];
+      return [`filters.${j}`, ...keys.map((k) => `filters.${j}.${k}`)];
+    });
   }
 
   override render() {
@@ -206,7 +224,7 @@ export class ChannelCard extends LitElement {
       >
         Add filter to this channel
       </button>
-      ${this.errors[''] ? html`<p class="bad" role="alert">${this.errors['']}</p>` : ''}`;
+      ${messagesBesides(this.errors, this.shownKeys()).map((message) => html`<p class="bad" role="alert">${message}</p>`)}`;
   }
 }
 

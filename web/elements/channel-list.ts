@@ -4,18 +4,19 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import type { PanelSpec } from '../../spectra/index';
+import { LIMITS, type DetectorClass, type PanelSpec } from '../../spectra/index';
+import { RANGES } from '../../worker/schemas';
 import './channel-card';
 import './number-field';
 
 @customElement('qdp-channel-list')
 export class ChannelList extends LitElement {
   @property({ attribute: false }) panel?: PanelSpec;
-  @property({ attribute: false }) detectors: { id: string; name: string }[] = [];
+  @property({ attribute: false }) detectors: Pick<DetectorClass, 'id' | 'name'>[] = [];
   /** Errors keyed by channel index, then by field path inside the channel. */
   @property({ attribute: false }) errors: Record<number, Record<string, string>> = {};
-  /** Most channels a panel may hold (api-v1: 64). */
-  @property({ type: Number }) maxChannels = 64;
+  /** Most channels a panel may hold (the API's limit). */
+  @property({ type: Number }) maxChannels: number = LIMITS.channels;
 
   @state() private run = { startNm: 480, bins: 16, binWidthNm: 10 };
 
@@ -56,14 +57,15 @@ export class ChannelList extends LitElement {
     const lines = panel.excitation.map((e) => e.wavelengthNm);
     const room = Math.max(0, this.maxChannels - panel.channels.length);
     const { startNm, bins, binWidthNm } = this.run;
-    // The run must fit the API's wavelength range (200–2000 nm) as well as the channel limit.
+    // The run must fit the API's wavelength range as well as the channel limit.
+    const [minNm, maxNm] = RANGES.wavelengthNm;
     const runFits =
       Number.isInteger(bins) &&
       bins >= 1 &&
       bins <= room &&
       binWidthNm > 0 &&
-      startNm >= 200 &&
-      startNm + bins * binWidthNm <= 2000;
+      startNm >= minNm &&
+      startNm + bins * binWidthNm <= maxNm;
     const set = (k: keyof typeof this.run) => (e: CustomEvent<{ value?: number }>) => {
       if (e.detail.value !== undefined) this.run = { ...this.run, [k]: e.detail.value };
     };

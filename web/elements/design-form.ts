@@ -7,18 +7,29 @@
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import {
+  ABUNDANCE_WORDS,
+  DEFAULT_WINDOW_NM,
+  EXCLUSION_WORDS,
+  LIMITS,
   listMaterials,
+  type AbundanceInput,
   type DesignOptions,
   type DesignRequest,
   type DesignResult,
+  type Exclusion,
   type SearchProgress,
 } from '../../spectra/index';
+import { pathText } from '../../worker/schemas';
 import type { DesignWorkerMessage } from '../state/design-worker';
+import { loadChecks } from '../state/load-checks';
 
-/** An abundance as typed: a word passes as is, anything else as a number (the library names a bad one). */
-function abundanceInput(text: string): number | 'high' | 'medium' | 'low' {
+/** The abundance words a target may take instead of a number (high, medium, low). */
+const WORDS = Object.keys(ABUNDANCE_WORDS) as (keyof typeof ABUNDANCE_WORDS)[];
+
+/** An abundance as typed: a word passes as is, anything else as a number (the API's schema names a bad one). */
+function abundanceInput(text: string): AbundanceInput {
   const word = text.trim().toLowerCase();
-  return word === 'high' || word === 'medium' || word === 'low' ? word : Number(word);
+  return WORDS.find((w) => w === word) ?? Number(word);
 }
 
 /** "405, 488" → excitation lines; throws a sentence naming the field when a value is not a number. */
@@ -37,13 +48,8 @@ interface TargetRow {
   abundance: string;
 }
 
-const EXCLUSIONS = [
-  ['cadmium', 'cadmium-free'],
-  ['lead', 'lead-free'],
-  ['arsenic', 'arsenic-free'],
-] as const;
-
-const MATERIALS = listMaterials().filter((m) => m.id !== 'custom');
+/** The materials free design can size: those with a size law or an accepted peak range (not the custom probe). */
+const MATERIALS = listMaterials().filter((m) => m.emissionRangeNm !== null);
 
 @customElement('qdp-design-form')
 export class DesignForm extends LitElement {
@@ -57,9 +63,9 @@ export class DesignForm extends LitElement {
     { name: 'target 2', abundance: 'low' },
   ];
   @state() private excitationText = '405';
-  @state() private exclude = new Set<string>();
-  @state() private allowed = new Set<string>(MATERIALS.map((m) => m.id));
-  @state() private windowNm: [number, number] = [400, 800];
+  @state() private exclude = new Set<Exclusion>();
+  @state() private allowed = new Set(MATERIALS.map((m) => m.id));
+  @state() private windowNm: [number, number] = [DEFAULT_WINDOW_NM[0], DEFAULT_WINDOW_NM[1]];
   @state() private useCandidates = true;
   @state() private running = false;
   @state() private progress: SearchProgress | null = null;
@@ -67,6 +73,8 @@ export class DesignForm extends LitElement {
   @state() private error = '';
   @state() private result: DesignResult | null = null;
   private worker: Worker | null = null;
+  /** Counts proposals, so a check that returns after a newer proposal or a cancel starts nothing. */
+  private proposals = 0;
 
   static override styles = css`
     :host {
@@ -116,8 +124,7 @@ export class DesignForm extends LitElement {
 
   override disconnectedCallback(): void {
     super.disconnectedCallback();
-    this.worker?.terminate();
-    this.worker = null;
+    this.cancel(false);
   }
 
   private request(): DesignRequest {
@@ -129,14 +136,14 @@ export class DesignForm extends LitElement {
     if (this.candidates && this.useCandidates) return { ...request, candidates: this.candidates };
     return {
       ...request,
-      exclude: [...this.exclude] as DesignRequest['exclude'],
-      allowedMaterials: [...this.allowed] as DesignRequest['allowedMaterials'],
+      exclude: [...this.exclude],
+      allowedMaterials: [...this.allowed],
       windowNm: this.windowNm,
     };
   }
 
-  /** Starts the search in a fresh worker. */
-  propose(): void {
+  /** Checks the request with the API's schema, then starts the search in a fresh worker. */
+  async propose(): Promise<void> {
     this.cancel(false);
     this.error = '';
     this.result = null;
@@ -147,6 +154,17 @@ export class DesignForm extends LitElement {
       this.error = (err as Error).message;
       return;
     }
+    const ticket = ++this.proposals;
+    this.running = true;
+    this.status = 'checking';
+    let problem: string | undefined;
+    try {
+      problem = (await loadChecks()).checkDesignRequest(request)?.message;
+    } catch {
+      problem = 'the request checks could not be loaded: reload the page to try again';
+    }
+    if (ticket !== this.proposals || !this.running) return; // cancelled, or a newer proposal, while checking
+    if (problem) return this.finish('', problem);
     const worker = new Worker(new URL('../state/design-worker.ts', import.meta.url), { type: 'module' });
     this.worker = worker;
     this.running = true;
@@ -162,11 +180,11 @@ export class DesignForm extends LitElement {
     this.status = 'stopping…';
   }
 
-  /** Ends the search now (terminates the worker); nothing is proposed. */
+  /** Ends the search now (terminates the worker, or drops a request still being checked); nothing is proposed. */
   cancel(show = true): void {
-    if (!this.worker) return;
-    this.worker.terminate();
+    this.worker?.terminate();
     this.worker = null;
+    if (!this.running) return;
     this.running = false;
     if (show) this.status = 'cancelled';
   }
@@ -186,7 +204,7 @@ export class DesignForm extends LitElement {
       return;
     }
     if (message.type === 'error') {
-      const where = message.error.path.length ? ` (${message.error.path.join('.')})` : '';
+      const where = message.error.path.length ? ` (${pathText(message.error.path)})` : '';
       this.finish('failed', `${message.error.message}${where}`);
       return;
     }
@@ -206,7 +224,7 @@ export class DesignForm extends LitElement {
     this.targets = this.targets.map((t, k) => (k === i ? { ...t, [field]: value } : t));
   }
 
-  private toggle(set: Set<string>, id: string, on: boolean): Set<string> {
+  private toggle<T>(set: Set<T>, id: T, on: boolean): Set<T> {
     const next = new Set(set);
     if (on) next.add(id);
     else next.delete(id);
@@ -243,15 +261,11 @@ export class DesignForm extends LitElement {
               </button>
             </div>`,
         )}
-        <datalist id="abundance-words">
-          <option value="high"></option>
-          <option value="medium"></option>
-          <option value="low"></option>
-        </datalist>
+        <datalist id="abundance-words">${WORDS.map((w) => html`<option value=${w}></option>`)}</datalist>
         <button
           type="button"
           @click=${() => (this.targets = [...this.targets, { name: `target ${this.targets.length + 1}`, abundance: 'medium' }])}
-          ?disabled=${this.targets.length >= 16}
+          ?disabled=${this.targets.length >= LIMITS.probes}
         >
           Add target
         </button>
@@ -267,7 +281,7 @@ export class DesignForm extends LitElement {
       ${this.candidates ? html`<label><input type="checkbox" .checked=${this.useCandidates} @change=${(e: Event) => (this.useCandidates = (e.target as HTMLInputElement).checked)} /> choose only from the current panel's probes and channels</label>` : ''}
       <fieldset ?disabled=${!free}>
         <legend>Free design</legend>
-        ${EXCLUSIONS.map(([id, label]) => html`<label><input type="checkbox" .checked=${this.exclude.has(id)} @change=${(e: Event) => (this.exclude = this.toggle(this.exclude, id, (e.target as HTMLInputElement).checked))} /> ${label}</label> `)}
+        ${EXCLUSION_WORDS.map((word) => html`<label><input type="checkbox" .checked=${this.exclude.has(word)} @change=${(e: Event) => (this.exclude = this.toggle(this.exclude, word, (e.target as HTMLInputElement).checked))} /> ${word}-free</label> `)}
         <div>
           Materials:
           ${MATERIALS.map((m) => html`<label><input type="checkbox" .checked=${this.allowed.has(m.id)} @change=${(e: Event) => (this.allowed = this.toggle(this.allowed, m.id, (e.target as HTMLInputElement).checked))} /> ${m.name}</label> `)}

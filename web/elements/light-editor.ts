@@ -5,13 +5,17 @@
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
 import type { PanelSpec, SpectrumPoints } from '../../spectra/index';
+import { messagesBesides } from '../state/error-map';
 import './number-field';
 import './spectrum-input';
 
 @customElement('qdp-light-editor')
 export class LightEditor extends LitElement {
   @property({ attribute: false }) panel?: PanelSpec;
-  /** Errors keyed by the panel path joined with dots, e.g. "excitation.0.wavelengthNm". */
+  /**
+   * Errors keyed by the panel path joined with dots, e.g. "excitation.0.wavelengthNm"; those about the lines or the
+   * background without a field here show together under the editor.
+   */
   @property({ attribute: false }) errors: Record<string, string> = {};
 
   static override styles = css`
@@ -34,6 +38,15 @@ export class LightEditor extends LitElement {
 
   private edit(panel: PanelSpec): void {
     this.dispatchEvent(new CustomEvent('panel-edit', { detail: { panel }, bubbles: true, composed: true }));
+  }
+
+  /** Messages about the lines or the background that no field of this editor shows. */
+  private lightMessages(panel: PanelSpec): string[] {
+    const shown = panel.excitation.flatMap((_, i) => [`excitation.${i}.wavelengthNm`, `excitation.${i}.powerRel`]);
+    const mine = Object.fromEntries(
+      Object.entries(this.errors).filter(([key]) => /^(excitation|background)\b/.test(key)),
+    );
+    return messagesBesides(mine, [...shown, 'background.level']);
   }
 
   override render() {
@@ -62,6 +75,7 @@ export class LightEditor extends LitElement {
               .value=${l.powerRel}
               optional
               placeholder="1"
+              .error=${this.errors[`excitation.${i}.powerRel`] ?? ''}
               @value-change=${setLine(i, 'powerRel')}
             ></qdp-number-field>
             ${p.excitation.length > 1 ? html`<button type="button" @click=${() => this.edit({ ...p, excitation: p.excitation.filter((_, k) => k !== i) })}>Remove line</button>` : ''}
@@ -100,7 +114,7 @@ export class LightEditor extends LitElement {
         }
       </div>
       ${bg ? html`<qdp-spectrum-input kind="background" label="measured background" @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.edit({ ...p, background: { level: bg.level, points: e.detail.points } })}></qdp-spectrum-input>` : ''}
-      ${this.errors['background'] ? html`<p role="alert">${this.errors['background']}</p>` : ''}`;
+      ${this.lightMessages(p).map((message) => html`<p role="alert">${message}</p>`)}`;
   }
 }
 

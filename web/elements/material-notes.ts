@@ -5,19 +5,11 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { PanelSpec } from '../../spectra/index';
-import {
-  containedClasses,
-  EXCLUDABLE,
-  offendingProbes,
-  type ExcludableClass,
-  type MaterialElements,
-} from '../state/exclusions';
+import type { Material, PanelSpec } from '../../spectra/index';
+import { containedClasses, offendingProbes, PANEL_EXCLUSIONS, type PanelExclusion } from '../state/exclusions';
 
-/** What the notes need of each material (the library's Material has these fields). */
-export interface MaterialNotesInput extends MaterialElements {
-  toxicity: { level: 'high' | 'moderate' | 'low'; notes: string[]; cautions: string[] };
-}
+/** What the notes need of each material. */
+export type MaterialNotesInput = Pick<Material, 'id' | 'name' | 'elements' | 'toxicity'>;
 
 /** Shown under every panel: the tool summarises hazards, it does not assess them. */
 export const GENERAL_CAUTION =
@@ -32,7 +24,7 @@ export const LASER_CAUTION =
 export class MaterialNotes extends LitElement {
   @property({ attribute: false }) panel?: PanelSpec;
   @property({ attribute: false }) materials: MaterialNotesInput[] = [];
-  @property({ attribute: false }) exclude: ExcludableClass[] = [];
+  @property({ attribute: false }) exclude: PanelExclusion[] = [];
 
   static override styles = css`
     :host {
@@ -84,7 +76,7 @@ export class MaterialNotes extends LitElement {
     }
   `;
 
-  private toggle(id: ExcludableClass, on: boolean): void {
+  private toggle(id: PanelExclusion, on: boolean): void {
     const exclude = on ? [...new Set([...this.exclude, id])] : this.exclude.filter((x) => x !== id);
     this.dispatchEvent(new CustomEvent('exclude-change', { detail: { exclude }, bubbles: true, composed: true }));
   }
@@ -97,19 +89,19 @@ export class MaterialNotes extends LitElement {
     const used = [...new Set(panel.probes.map((p) => p.material))];
     return html`
       <p class="summary">
-        ${contained.length ? `This panel contains ${contained.join(' and ')}.` : "No probe in this panel is made with cadmium or lead (by the tool's material list)."}
+        ${contained.length ? `This panel contains ${contained.join(' and ')}.` : `No probe in this panel is made with ${PANEL_EXCLUSIONS.join(' or ')} (by the tool's material list).`}
       </p>
       <fieldset>
         <legend>Exclude material classes</legend>
-        ${EXCLUDABLE.map(
-          (c) =>
+        ${PANEL_EXCLUSIONS.map(
+          (word) =>
             html`<label
               ><input
                 type="checkbox"
-                .checked=${this.exclude.includes(c.id)}
-                @change=${(e: Event) => this.toggle(c.id, (e.target as HTMLInputElement).checked)}
+                .checked=${this.exclude.includes(word)}
+                @change=${(e: Event) => this.toggle(word, (e.target as HTMLInputElement).checked)}
               />
-              ${c.label}</label
+              ${word}-free</label
             > `,
         )}
       </fieldset>

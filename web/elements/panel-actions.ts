@@ -5,7 +5,6 @@
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import type { PanelSpec } from '../../spectra/index';
-import { ApiError, evaluateOnServer, sharePanel } from '../io/api';
 import { orderingSheetCsv, type ResolvedForSheet } from '../io/csv-export';
 import { downloadBlob, downloadText, svgDocument, svgToPng } from '../io/download';
 
@@ -62,6 +61,7 @@ export class PanelActions extends LitElement {
     if (!this.panel) return;
     this.busy = true;
     try {
+      const { sharePanel } = await import('../io/api');
       const { url } = await sharePanel(this.panel);
       this.link = new URL(url, location.origin).href;
       try {
@@ -71,7 +71,7 @@ export class PanelActions extends LitElement {
         this.message = 'The link could not be copied automatically: copy it from the field.';
       }
     } catch (e) {
-      this.message = `Sharing failed: ${e instanceof ApiError ? e.message : String(e)}`;
+      this.message = `Sharing failed: ${e instanceof Error ? e.message : String(e)}`;
     } finally {
       this.busy = false;
     }
@@ -81,6 +81,7 @@ export class PanelActions extends LitElement {
     if (!this.panel) return;
     let resolved: ResolvedForSheet[] = this.localResolved;
     try {
+      const { evaluateOnServer } = await import('../io/api');
       resolved = (await evaluateOnServer(this.panel)).probes;
       this.message = 'Ordering sheet saved (values from the server).';
     } catch (e) {

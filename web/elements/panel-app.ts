@@ -1,18 +1,19 @@
 /**
- * <qdp-panel-app>: the whole page. Holds the panel, recomputes it locally on every edit (keeping the last good result
- * when an edit is invalid), keeps the state in the URL fragment, and opens shared panels from /p/<id>.
+ * <qdp-panel-app>: the whole page. Holds the panel, checks it with the API's schema and recomputes it locally on every
+ * edit (keeping the last good result when an edit is invalid), keeps the state in the URL fragment, and opens shared
+ * panels from /p/<id>.
  */
 import { LitElement, html } from 'lit';
 import { customElement, query, state } from 'lit/decorators.js';
 import type { ChannelSpec, PanelSpec, ProbeSpec } from '../../spectra/index';
-import { loadSharedPanel } from '../io/api';
 import { appStyles } from './panel-app-styles';
 import type { EdgeDragDetail } from '../chart/types';
 import { computePanel, DETECTORS, MATERIALS, type Computed } from '../state/compute';
 import { demoPanel } from '../state/demo-panel';
 import { placeError, type FieldError } from '../state/error-map';
-import { offendingProbes, type ExcludableClass } from '../state/exclusions';
+import { offendingProbes, type PanelExclusion } from '../state/exclusions';
 import { decodeFragment, encodeFragment } from '../state/fragment';
+import { checksIfLoaded, loadChecks } from '../state/load-checks';
 import {
   addChannel,
   addProbe,
@@ -40,7 +41,7 @@ const HISTORY_STEP_MS = 1000;
 @customElement('qdp-panel-app')
 export class PanelApp extends LitElement {
   @state() private panel: PanelSpec = newPanel();
-  @state() private exclude: ExcludableClass[] = [];
+  @state() private exclude: PanelExclusion[] = [];
   @state() private computed?: Computed;
   @state() private error?: FieldError;
   @state() private sharedId = '';
@@ -48,12 +49,15 @@ export class PanelApp extends LitElement {
   @state() private byBrightness = true;
   @query('qdp-spectrum-chart') private chart?: SpectrumChart;
   private lastPushMs = 0;
+  /** True while a panel waits for the checks to arrive before it is computed. */
+  private awaitingChecks = false;
 
   static override styles = appStyles;
 
   override connectedCallback(): void {
     super.connectedCallback();
     window.addEventListener('popstate', this.onPopState);
+    void this.startChecks();
     const shared = /^\/p\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
     if (shared) void this.openShared(shared[1]);
     else void this.restoreFromFragment();
@@ -68,15 +72,25 @@ export class PanelApp extends LitElement {
     if (!this.sharedId && location.hash) void this.restoreFromFragment();
   };
 
+  /** Loads the checks in the background; a panel set before they arrived is checked and computed then. */
+  private async startChecks(): Promise<void> {
+    try {
+      await loadChecks();
+      if (this.awaitingChecks) this.refresh();
+    } catch {
+      this.notice = 'The page could not load its panel checks, so nothing is computed: reload the page to try again.';
+    }
+  }
+
   /**
-   * Loads the state in the fragment, if any (the schema check loads on demand: zod stays out of the first bundle).
-   * Without a fragment, or with one that cannot be read (a notice says why), the demo panel is shown.
+   * Loads the state in the fragment, if any. Without a fragment, or with one that cannot be read (a notice says why),
+   * the demo panel is shown.
    */
   private async restoreFromFragment(): Promise<void> {
     try {
       const raw = decodeFragment(location.hash);
       if (raw === null) return this.load(demoPanel(), []);
-      const { readPageState } = await import('../state/page-state');
+      const { readPageState } = await loadChecks();
       const r = readPageState(raw);
       if (!r.ok) throw new Error(`The link's panel is not valid (${r.message}).`);
       this.load(r.state.panel, r.state.view.exclude, false);
@@ -90,7 +104,8 @@ export class PanelApp extends LitElement {
     this.sharedId = id;
     this.notice = 'Loading the shared panel…';
     try {
-      const [{ readPanel }, raw] = await Promise.all([import('../state/page-state'), loadSharedPanel(id)]);
+      const fetched = import('../io/api').then((api) => api.loadSharedPanel(id));
+      const [{ readPanel }, raw] = await Promise.all([loadChecks(), fetched]);
       const r = readPanel(raw);
       if (!r.ok) throw new Error(r.message);
       this.notice = '';
@@ -101,23 +116,39 @@ export class PanelApp extends LitElement {
   }
 
   /** Replaces the whole panel (new, demo, import, shared) and recomputes. */
-  private load(panel: PanelSpec, exclude: ExcludableClass[], writeUrl = true): void {
+  private load(panel: PanelSpec, exclude: PanelExclusion[], writeUrl = true): void {
     this.computed = undefined;
     this.exclude = exclude;
     this.apply(panel, writeUrl ? 'push' : 'none');
   }
 
-  /** Sets the panel, recomputes it, and records it in the fragment. */
+  /** Sets the panel, checks and recomputes it, and records it in the fragment. */
   private apply(panel: PanelSpec, history: 'push' | 'replace' | 'none' = 'push'): void {
     this.panel = panel;
-    const r = computePanel(panel, { byBrightness: this.byBrightness });
+    this.refresh();
+    if (history !== 'none' && !this.sharedId) this.writeFragment(history);
+  }
+
+  /**
+   * Checks the panel with the API's schema and computes it only when the API would take it: an invalid edit shows the
+   * API's message under its field and keeps the last good numbers; a model's refusal comes from computing.
+   */
+  private refresh(): void {
+    const checks = checksIfLoaded();
+    this.awaitingChecks = !checks;
+    if (!checks) return;
+    const problem = checks.checkPanel(this.panel);
+    if (problem) {
+      this.error = problem;
+      return;
+    }
+    const r = computePanel(this.panel, { byBrightness: this.byBrightness });
     if (r.ok) {
       this.computed = r.value;
       this.error = undefined;
     } else {
       this.error = r.error;
     }
-    if (history !== 'none' && !this.sharedId) this.writeFragment(history);
   }
 
   private writeFragment(mode: 'push' | 'replace'): void {
@@ -138,7 +169,7 @@ export class PanelApp extends LitElement {
   private async importJson(file: File | undefined): Promise<void> {
     if (!file) return;
     try {
-      const { readPanel } = await import('../state/page-state');
+      const { readPanel } = await loadChecks();
       const r = readPanel(JSON.parse(await file.text()));
       if (!r.ok) throw new Error(r.message);
       this.notice = `Opened ${file.name}.`;
@@ -264,7 +295,7 @@ export class PanelApp extends LitElement {
               .panel=${p}
               .materials=${MATERIALS}
               .exclude=${this.exclude}
-              @exclude-change=${(e: CustomEvent<{ exclude: ExcludableClass[] }>) => {
+              @exclude-change=${(e: CustomEvent<{ exclude: PanelExclusion[] }>) => {
                 this.exclude = e.detail.exclude;
                 this.apply(p, 'replace');
               }}

@@ -6,10 +6,27 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { ProbeSpec, SpectrumPoints } from '../../spectra/index';
+import type { Material, ProbeSpec, SpectrumPoints } from '../../spectra/index';
+import type { ProbePrediction } from '../state/compute';
+import { messagesBesides } from '../state/error-map';
 import './number-field';
 import './spectrum-input';
-import type { ProbeCardMaterial, ProbePrediction } from '../state/probe-types';
+
+/** The part of a material the probe editor needs. */
+export type ProbeCardMaterial = Pick<
+  Material,
+  | 'id'
+  | 'name'
+  | 'emissionRangeNm'
+  | 'diameterRangeNm'
+  | 'typicalQuantumYield'
+  | 'typicalSizeDispersionPct'
+  | 'typicalFwhmNm'
+  | 'toxicity'
+>;
+
+/** The probe's fields the card edits as numbers. */
+type NumberKey = 'emissionPeakNm' | 'diameterNm' | 'sizeDispersionPct' | 'quantumYield' | 'abundance' | 'fwhmNm';
 
 @customElement('qdp-probe-card')
 export class ProbeCard extends LitElement {
@@ -18,7 +35,7 @@ export class ProbeCard extends LitElement {
   @property({ attribute: false }) materials: ProbeCardMaterial[] = [];
   @property({ attribute: false }) channels: { id: string; label?: string }[] = [];
   @property({ attribute: false }) prediction?: ProbePrediction;
-  /** Error from the computation, keyed by the probe's field name ('' for the probe as a whole). */
+  /** Errors keyed by the probe's field name ('' for the probe as a whole); those without a field show together. */
   @property({ attribute: false }) errors: Record<string, string> = {};
   /** Why this probe breaks the panel's material exclusions, if it does. */
   /** Why this probe is excluded (empty when it is not); the border follows it through the reflected `excluded`. */
@@ -108,13 +125,7 @@ export class ProbeCard extends LitElement {
     );
   }
 
-  private num(
-    label: string,
-    key: 'emissionPeakNm' | 'diameterNm' | 'sizeDispersionPct' | 'quantumYield' | 'abundance' | 'fwhmNm',
-    unit: string,
-    optional: boolean,
-    placeholder = '',
-  ) {
+  private num(label: string, key: NumberKey, unit: string, optional: boolean, placeholder = '') {
     return html`<qdp-number-field
       .label=${label}
       .unit=${unit}
@@ -129,9 +140,10 @@ export class ProbeCard extends LitElement {
 
   private setMaterial(id: string): void {
     const m = this.materials.find((x) => x.id === id);
-    const patch: Partial<ProbeSpec> = { material: id as ProbeSpec['material'] };
+    if (!m) return;
+    const patch: Partial<ProbeSpec> = { material: m.id };
     // Keep the emission peak when the new material can reach it; otherwise move it to the middle of its range.
-    if (m?.emissionRangeNm && id !== 'custom') {
+    if (m.emissionRangeNm) {
       const [lo, hi] = m.emissionRangeNm;
       const peak = this.probe.emissionPeakNm;
       if (this.probe.diameterNm === undefined && (peak === undefined || peak < lo || peak > hi))
@@ -149,7 +161,15 @@ export class ProbeCard extends LitElement {
     const p = this.probe;
     const m = this.materials.find((x) => x.id === p.material);
     const byDiameter = p.diameterNm !== undefined;
-    const sized = p.material !== 'custom' && p.material !== 'carbon';
+    // Sized materials have a size law, hence a diameter range; carbon dots and custom probes have none.
+    const sized = !!m?.diameterRangeNm;
+    // A custom probe takes its measured emission, a sized one its peak or diameter, a carbon dot its peak.
+    const sizeKey: NumberKey | null =
+      p.material === 'custom' ? null : byDiameter && sized ? 'diameterNm' : 'emissionPeakNm';
+    const shown: NumberKey[] = ['abundance', 'quantumYield'];
+    if (sizeKey) shown.push(sizeKey);
+    if (sized) shown.push('sizeDispersionPct');
+    if (p.material === 'carbon') shown.push('fwhmNm');
     const pr = this.prediction;
     const fmt = (v: number | null | undefined, d = 0) =>
       v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d);
@@ -207,7 +227,7 @@ export class ProbeCard extends LitElement {
               >`
             : ''
         }
-        ${p.material === 'custom' ? '' : byDiameter && sized ? this.num('Core diameter', 'diameterNm', 'nm', false) : this.num('Emission peak', 'emissionPeakNm', 'nm', false)}
+        ${sizeKey === 'diameterNm' ? this.num('Core diameter', 'diameterNm', 'nm', false) : sizeKey ? this.num('Emission peak', 'emissionPeakNm', 'nm', false) : ''}
         ${sized ? this.num('Size dispersion σ/d', 'sizeDispersionPct', '%', true, String(m?.typicalSizeDispersionPct ?? '')) : ''}
         ${p.material === 'carbon' ? this.num('FWHM', 'fwhmNm', 'nm', true, String(m?.typicalFwhmNm ?? '')) : ''}
         ${this.num('Quantum yield', 'quantumYield', '0–1', true, String(m?.typicalQuantumYield ?? ''))}
@@ -237,7 +257,7 @@ export class ProbeCard extends LitElement {
             </details>`
           : ''
       }
-      ${this.errors[''] ? html`<p class="bad" role="alert">${this.errors['']}</p>` : ''}
+      ${messagesBesides(this.errors, shown).map((message) => html`<p class="bad" role="alert">${message}</p>`)}
       <p class="pred" aria-label="Predicted properties">
         ${
           pr

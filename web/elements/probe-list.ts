@@ -4,9 +4,10 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { PanelSpec } from '../../spectra/index';
+import { LIMITS, type PanelSpec } from '../../spectra/index';
+import type { ProbePrediction } from '../state/compute';
 import './probe-card';
-import type { ProbeCardMaterial, ProbePrediction } from '../state/probe-types';
+import type { ProbeCardMaterial } from './probe-card';
 
 @customElement('qdp-probe-list')
 export class ProbeList extends LitElement {
@@ -17,8 +18,8 @@ export class ProbeList extends LitElement {
   @property({ attribute: false }) errors: Record<number, Record<string, string>> = {};
   /** Exclusion reasons keyed by probe id. */
   @property({ attribute: false }) blocked: Map<string, string> = new Map();
-  /** Most probes a panel may hold (api-v1: 16). */
-  @property({ type: Number }) maxProbes = 16;
+  /** Most probes a panel may hold (the API's limit). */
+  @property({ type: Number }) maxProbes: number = LIMITS.probes;
 
   static override styles = css`
     :host {

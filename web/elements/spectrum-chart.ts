@@ -7,13 +7,8 @@ import { customElement, property, state } from 'lit/decorators.js';
 import { axisBottom, axisLeft, axisRight } from 'd3-axis';
 import { select } from 'd3-selection';
 import { chartGeometry, MARGIN, type ChartGeometry } from '../chart/geometry';
-import {
-  type ChartCurve,
-  type ChartHandle,
-  type ChartPassband,
-  type EdgeDragDetail,
-  type GridCurve,
-} from '../chart/types';
+import type { SampledSpectrum } from '../../spectra/index';
+import type { ChartCurve, ChartHandle, ChartPassband, EdgeDragDetail } from '../chart/types';
 import { isNearInfrared, wavelengthToCss } from '../chart/color';
 import { WidthController } from '../chart/resize-controller';
 import { chartReadout } from '../chart/readout';
@@ -29,7 +24,7 @@ export class SpectrumChart extends LitElement {
   /** Excitation lines, nm. */
   @property({ attribute: false }) excitationNm: number[] = [];
   /** Sample autofluorescence on the emission scale, or undefined when off. */
-  @property({ attribute: false }) background?: GridCurve;
+  @property({ attribute: false }) background?: SampledSpectrum;
   /** Wavelength range shown, nm. */
   @property({ attribute: false }) domainNm: [number, number] = [380, 800];
   /** What the emission axis means, e.g. "relative emission (scaled by brightness)". */

@@ -1,22 +1,12 @@
 /**
- * The page's calls to the qdpanel API (shared/api-v1.md): share a panel, load a shared one, evaluate for export.
- * Every failure becomes an ApiError with the contract's code and message, never an unhandled rejection.
+ * The page's calls to the qdpanel API (docs/api.md): share a panel, load a shared one, evaluate for export. Every
+ * failure becomes the contract's ApiError (the server's code, message and path, or code "network" with status 0 when
+ * there is no answer), never an unhandled rejection. The page imports this module on demand (`import('../io/api')`):
+ * the module that defines ApiError also defines the error body's zod schema, which keeps zod in the first bundle.
  */
+import type { z } from 'zod';
 import type { PanelSpec } from '../../spectra/index';
-
-/** An API error as the contract shapes it ({error: {code, message, path}}), or a network failure (code "network"). */
-export class ApiError extends Error {
-  readonly code: string;
-  readonly status: number;
-  readonly path: (string | number)[];
-  constructor(code: string, message: string, status: number, path: (string | number)[] = []) {
-    super(message);
-    this.name = 'ApiError';
-    this.code = code;
-    this.status = status;
-    this.path = path;
-  }
-}
+import { ApiError, type ApiErrorCode, type ErrorBody, type Evaluation, type ShareCreated } from '../../worker/schemas';
 
 async function call<T>(path: string, init?: RequestInit): Promise<T> {
   let res: Response;
@@ -24,46 +14,32 @@ async function call<T>(path: string, init?: RequestInit): Promise<T> {
     res = await fetch(path, { ...init, headers: { 'content-type': 'application/json', ...(init?.headers ?? {}) } });
   } catch {
     throw new ApiError(
+      0,
       'network',
       'The server could not be reached; your panel is still here and in the page address.',
-      0,
     );
   }
-  const body = (await res.json().catch(() => null)) as {
-    error?: { code?: string; message?: string; path?: (string | number)[] };
-  } | null;
+  const body = (await res.json().catch(() => null)) as Partial<ErrorBody> | null;
   if (!res.ok) {
     const err = body?.error;
-    throw new ApiError(
-      err?.code ?? `http_${res.status}`,
-      err?.message ?? `The server answered ${res.status}.`,
-      res.status,
-      err?.path ?? [],
-    );
+    // An answer without the contract's body (a proxy's error page) still carries its status.
+    const code = (err?.code ?? 'internal_error') as ApiErrorCode;
+    throw new ApiError(res.status, code, err?.message ?? `The server answered ${res.status}.`, err?.path ?? []);
   }
   return body as T;
 }
 
 /** Stores the panel; the answer's `url` is the share path ("/p/<id>"). */
-export function sharePanel(panel: PanelSpec): Promise<{ id: string; url: string }> {
+export function sharePanel(panel: PanelSpec): Promise<z.infer<typeof ShareCreated>> {
   return call('/api/v1/panels', { method: 'POST', body: JSON.stringify(panel) });
 }
 
-/** Loads a shared panel by id. */
+/** Loads a shared panel by id (the caller checks it with the API's Panel schema). */
 export function loadSharedPanel(id: string): Promise<unknown> {
   return call(`/api/v1/panels/${encodeURIComponent(id)}`);
 }
 
-/** The server's evaluation of a panel (the numbers the exported sheet carries). */
-export function evaluateOnServer(
-  panel: PanelSpec,
-): Promise<{
-  probes: {
-    diameterNm?: number | null;
-    emissionPeakNm?: number | null;
-    fwhmNm?: number | null;
-    firstExcitonNm?: number | null;
-  }[];
-}> {
+/** The server's evaluation of a panel (the ordering sheet takes its resolved probes). */
+export function evaluateOnServer(panel: PanelSpec): Promise<Pick<z.infer<typeof Evaluation>, 'probes'>> {
   return call('/api/v1/panels/evaluate', { method: 'POST', body: JSON.stringify(panel) });
 }

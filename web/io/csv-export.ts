@@ -2,16 +2,11 @@
  * The ordering sheet as CSV (RFC 4180 quoting): one row per probe with what a supplier needs (material, core
  * diameter, emission peak, FWHM) and one row per channel with its filters written as ordered ("bandpass 605/20").
  */
-import type { PanelSpec } from '../../spectra/index';
+import type { PanelSpec, ProbeEvaluation } from '../../spectra/index';
 import { describeChannel, describeChannelExcitation } from './filter-text';
 
-/** What the sheet takes from an evaluation for each probe (the API's resolved-dot fields). */
-export interface ResolvedForSheet {
-  diameterNm?: number | null;
-  emissionPeakNm?: number | null;
-  fwhmNm?: number | null;
-  firstExcitonNm?: number | null;
-}
+/** What the sheet takes from an evaluation for each probe (the page's or the API's resolved probe). */
+export type ResolvedForSheet = Pick<ProbeEvaluation, 'diameterNm' | 'emissionPeakNm' | 'fwhmNm' | 'firstExcitonNm'>;
 
 /**
  * One CSV cell. Text starting with =, +, -, @, tab or carriage return is prefixed with ' so a spreadsheet shows it
@@ -47,7 +42,7 @@ export function orderingSheetCsv(panel: PanelSpec, resolved: readonly (ResolvedF
     'spectrum',
   ]);
   panel.probes.forEach((p, i) => {
-    const r = resolved[i] ?? {};
+    const r: Partial<ResolvedForSheet> = resolved[i] ?? {};
     rows.push([
       p.id,
       p.label ?? '',

@@ -2,20 +2,23 @@
  * Reads a measured spectrum (two-column CSV: wavelength nm, value) from a file or pasted text, through the spectral
  * library's parser, and thins it for links. Errors come back as the library's SpectraError message.
  */
-import { parseSpectrumCsv, type SpectrumPoints } from '../../spectra/index';
-import { resamplePoints } from '../state/thin-table';
+import { CSV_LIMITS, parseSpectrumCsv, type SpectrumCsvKind, type SpectrumPoints } from '../../spectra/index';
+import { thinTable } from '../state/thin-table';
 
-/** The parsed table (≤ 200 points) and the parser's warnings, or an error message for the user. */
+/** The parsed table (≤ MAX_LINK_POINTS points) and the parser's warnings, or an error message for the user. */
 export type ImportResult = { ok: true; points: SpectrumPoints; warnings: string[] } | { ok: false; message: string };
 
-/** What the values mean: a relative emission, a 0–1 transmission, or an extinction in M⁻¹ cm⁻¹. */
-export type ImportKind = 'emission' | 'transmission' | 'extinction' | 'background';
+/** What the values mean: a relative emission or background, a 0–1 transmission, or an extinction in M⁻¹ cm⁻¹. */
+export type ImportKind = SpectrumCsvKind;
+
+/** Largest file read, bytes: twice the parser's character limit (CSV_LIMITS.maxChars), refused before reading. */
+const MAX_FILE_BYTES = 2 * CSV_LIMITS.maxChars;
 
 /** Parses CSV text; never throws. */
 export function importSpectrumText(text: string, kind: ImportKind): ImportResult {
   try {
     const { points, warnings } = parseSpectrumCsv(text, { kind });
-    const thin = resamplePoints(points as SpectrumPoints);
+    const thin = thinTable(points);
     const note =
       thin.length < points.length
         ? [`resampled from ${points.length} to ${thin.length} points to keep links short`]
@@ -28,7 +31,9 @@ export function importSpectrumText(text: string, kind: ImportKind): ImportResult
 
 /** Reads a chosen file as text and parses it. */
 export async function importSpectrumFile(file: File, kind: ImportKind): Promise<ImportResult> {
-  if (file.size > 2_000_000)
-    return { ok: false, message: `${file.name} is over 2 MB; a two-column spectrum is far smaller.` };
+  if (file.size > MAX_FILE_BYTES) {
+    const mb = MAX_FILE_BYTES / 1e6;
+    return { ok: false, message: `${file.name} is over ${mb} MB; a two-column spectrum is far smaller.` };
+  }
   return importSpectrumText(await file.text(), kind);
 }

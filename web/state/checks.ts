@@ -1,18 +1,35 @@
 /**
- * Reading untrusted panel JSON (an imported file, a link's fragment, a shared panel) into a PanelSpec through the
- * API's own zod schema, so the page accepts exactly what the server would.
+ * Every check the page makes of a panel or a design request, in one place: the API's own zod schemas, read through
+ * the API's issueToError, so the page refuses exactly what the server would and says so in the same words. Edited
+ * panels, imported files, links' fragments and shared panels all pass through here. The module carries zod: the page
+ * loads it just after it starts (load-checks.ts) so the first bundle stays small.
  */
-import type { PanelSpec } from '../../spectra/index';
-import { Panel } from '../../worker/schemas';
+import type { z } from 'zod';
+import type { DesignRequest as DesignRequestSpec, PanelSpec } from '../../spectra/index';
+import { DesignRequest, issueToError, Panel } from '../../worker/schemas';
+import type { FieldError } from './error-map';
+import { isPanelExclusion } from './exclusions';
 import type { PageState } from './fragment';
-import type { ExcludableClass } from './exclusions';
 
-/** A validated panel, or the first problem as "path: message". */
+/** The first issue of a failed parse in the API's words (the API answers with the first one too). */
+function firstProblem(error: z.ZodError | undefined): FieldError | undefined {
+  return error && issueToError(error.issues[0]);
+}
+
+/** The API's complaint about a panel, or undefined when the API would take it. */
+export function checkPanel(panel: PanelSpec): FieldError | undefined {
+  return firstProblem(Panel.safeParse(panel).error);
+}
+
+/** The API's complaint about a design request, or undefined when the API would take it. */
+export function checkDesignRequest(request: DesignRequestSpec): FieldError | undefined {
+  return firstProblem(DesignRequest.safeParse(request).error);
+}
+
+/** A panel from untrusted JSON (a file, a link, a shared panel), or the API's message about its first problem. */
 export function readPanel(raw: unknown): { ok: true; panel: PanelSpec } | { ok: false; message: string } {
   const r = Panel.safeParse(raw);
-  if (r.success) return { ok: true, panel: r.data as PanelSpec };
-  const issue = r.error.issues[0];
-  return { ok: false, message: `${issue.path.length ? issue.path.join('.') + ': ' : ''}${issue.message}` };
+  return r.success ? { ok: true, panel: r.data } : { ok: false, message: issueToError(r.error.issues[0]).message };
 }
 
 /** A page state from a decoded fragment: a valid panel plus known view options (unknown options are dropped). */
@@ -20,7 +37,7 @@ export function readPageState(raw: unknown): { ok: true; state: PageState } | { 
   const obj = (raw ?? {}) as { panel?: unknown; view?: { exclude?: unknown } };
   const panel = readPanel(obj.panel);
   if (!panel.ok) return panel;
-  const ex = Array.isArray(obj.view?.exclude) ? obj.view!.exclude : [];
-  const exclude = ex.filter((x): x is ExcludableClass => x === 'cadmium' || x === 'lead');
+  const words = obj.view?.exclude;
+  const exclude = Array.isArray(words) ? words.filter(isPanelExclusion) : [];
   return { ok: true, state: { panel: panel.panel, view: { exclude } } };
 }

@@ -1,34 +1,47 @@
 /**
- * The page's local computation: evaluatePanel from the spectral library, turned into what the chart, the crosstalk
- * tables and the probe read-outs show. Runs on every edit; a bad input gives the library's error with its field path.
+ * The page's local computation: evaluatePanel and panelSpectra from the spectral library, turned into what the chart,
+ * the crosstalk tables and the probe read-outs show. Runs on every edit of a panel the API's schema accepts; what the
+ * models themselves refuse comes back as the library's error with its field path.
  */
 import {
-  buildPanelModel,
   DEFAULT_GRID,
+  DESIGN_DEFAULTS,
   evaluatePanel,
   listDetectors,
   listMaterials,
+  panelSpectra,
   predictUnmixingNoise,
   SpectraError,
-  spectrumOnGrid,
   type PanelEvaluation,
   type PanelSpec,
+  type ProbeEvaluation,
+  type SampledSpectrum,
 } from '../../spectra/index';
-import type { ChartCurve, ChartHandle, ChartPassband, GridCurve } from '../chart/types';
+import type { ChartCurve, ChartHandle, ChartPassband } from '../chart/types';
 import type { CrosstalkView, ShotNoiseView } from '../chart/crosstalk-view';
 import type { ResolvedForSheet } from '../io/csv-export';
 import type { FieldError } from './error-map';
-import type { ProbePrediction } from './probe-types';
 
 /** Every material the library knows, loaded once. */
 export const MATERIALS = listMaterials();
 /** Every detector class the library knows. */
 export const DETECTORS = listDetectors();
 
+/** What the model predicts for one probe, for the read-out under its fields. */
+export interface ProbePrediction extends Pick<
+  ProbeEvaluation,
+  'diameterNm' | 'firstExcitonNm' | 'emissionPeakNm' | 'fwhmNm' | 'warnings'
+> {
+  /** Collected-light brightness at the excitation relative to the brightest probe of the panel, 0–1. */
+  relativeBrightness: number;
+  /** True when the emission shape is the probe's measured spectrum. */
+  measured: boolean;
+}
+
 /** What one evaluation gives the page. */
 export interface Computed {
   evaluation: PanelEvaluation;
-  chart: { curves: ChartCurve[]; passbands: ChartPassband[]; background?: GridCurve };
+  chart: { curves: ChartCurve[]; passbands: ChartPassband[]; background?: SampledSpectrum };
   crosstalk: CrosstalkView;
   predictions: ProbePrediction[];
   resolved: ResolvedForSheet[];
@@ -66,9 +79,9 @@ function interferenceOf(ev: PanelEvaluation): (number | null)[][] {
 
 /**
  * Nominal photon budget of the shot-noise reading: detected photons of the brightest target in its own channel
- * (our convention, the same 1,000 as the design response's default; real counts depend on the instrument).
+ * (our convention, the design response's default budget; real counts depend on the instrument).
  */
-export const NOMINAL_PHOTONS = 1000;
+export const NOMINAL_PHOTONS = DESIGN_DEFAULTS.photons;
 
 /**
  * Shot-noise picture at the nominal budget: collected (and background) scaled so the brightest target's own signal
@@ -103,7 +116,7 @@ function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | nul
   }
 }
 
-const maxOf = (values: ArrayLike<number>) => {
+const maxOf = (values: readonly number[]) => {
   let m = 0;
   for (let i = 0; i < values.length; i++) if (values[i] > m) m = values[i];
   return m;
@@ -119,45 +132,37 @@ export function computePanel(
   options: { byBrightness: boolean },
 ): { ok: true; value: Computed } | { ok: false; error: FieldError } {
   let ev: PanelEvaluation;
-  let model: ReturnType<typeof buildPanelModel>;
+  let spectra: ReturnType<typeof panelSpectra>;
   try {
     ev = evaluatePanel(panel, { grid });
-    model = buildPanelModel(panel, grid);
+    spectra = panelSpectra(panel, { grid });
   } catch (e) {
-    if (e instanceof SpectraError) return { ok: false, error: { message: e.message, path: e.path } };
-    return {
-      ok: false,
-      error: { message: `The panel could not be computed: ${e instanceof Error ? e.message : String(e)}`, path: [] },
-    };
+    if (e instanceof SpectraError) return { ok: false, error: { code: e.code, message: e.message, path: e.path } };
+    const message = `The panel could not be computed: ${e instanceof Error ? e.message : String(e)}`;
+    return { ok: false, error: { code: 'internal_error', message, path: [] } };
   }
+  const onGrid = (values: number[]): SampledSpectrum => ({ startNm: grid.startNm, stepNm: grid.stepNm, values });
   const photons = ev.probes.map((d) => d.brightness);
-  // A dot's emission is held only where it is not zero: the chart draws every curve over the whole grid.
-  const emissions = model.dots.map((d) => spectrumOnGrid(d.emission, grid));
-  const signalCurves = emissions.map((values, j) => values.map((v) => v * photons[j]));
+  const signalCurves = spectra.emission.map((e, j) => e.values.map((v) => v * photons[j]));
   const tallest = Math.max(1e-300, ...signalCurves.map(maxOf));
-  const curves: ChartCurve[] = model.dots.map((d, j) => {
+  const curves: ChartCurve[] = spectra.emission.map((e, j) => {
     const values = options.byBrightness
       ? signalCurves[j].map((v) => v / tallest)
-      : emissions[j].map((v) => v / Math.max(1e-300, maxOf(emissions[j])));
+      : e.values.map((v) => v / Math.max(1e-300, maxOf(e.values)));
     return {
       id: panel.probes[j].id,
       label: panel.probes[j].label || panel.probes[j].id,
-      peakNm: d.emissionPeakNm,
-      spectrum: { startNm: grid.startNm, stepNm: grid.stepNm, values },
+      peakNm: ev.probes[j].emissionPeakNm,
+      spectrum: onGrid(values),
     };
   });
   const passbands: ChartPassband[] = panel.channels.map((c, i) => ({
     id: c.id,
     label: c.label || c.id,
     handles: handlesOf(panel, i),
-    transmission: { startNm: grid.startNm, stepNm: grid.stepNm, values: model.transmissions[i] },
+    transmission: onGrid(spectra.channels[i].values),
   }));
-  let background: GridCurve | undefined;
-  if (model.background) {
-    const sum = new Float64Array(grid.count);
-    model.background.forEach((b, l) => b.forEach((v, i) => (sum[i] += (panel.excitation[l].powerRel ?? 1) * v)));
-    background = { startNm: grid.startNm, stepNm: grid.stepNm, values: sum.map((v) => v / tallest) };
-  }
+  const background = spectra.background ? onGrid(spectra.background.map((v) => v / tallest)) : undefined;
   const lot = ev.lotShiftSensitivity;
   const wi = lot?.worstInterference;
   const crosstalk: CrosstalkView = {
@@ -196,14 +201,8 @@ export function computePanel(
     measured: d.measured.emission,
     warnings: d.warnings,
   }));
-  const resolved = ev.probes.map((d) => ({
-    diameterNm: d.diameterNm,
-    emissionPeakNm: d.emissionPeakNm,
-    fwhmNm: d.fwhmNm,
-    firstExcitonNm: d.firstExcitonNm,
-  }));
   return {
     ok: true,
-    value: { evaluation: ev, chart: { curves, passbands, background }, crosstalk, predictions, resolved },
+    value: { evaluation: ev, chart: { curves, passbands, background }, crosstalk, predictions, resolved: ev.probes },
   };
 }

@@ -4,13 +4,20 @@
  * `{type: 'progress', progress}` after each chunk of the search, then `{type: 'result', result}` or
  * `{type: 'error', error: {code, message, path}}`. Cancelling outright is the page's `worker.terminate()`.
  */
-import { runDesignAsync, SpectraError, type DesignRequest } from '../../spectra/index';
+import {
+  runDesignAsync,
+  SpectraError,
+  type DesignRequest,
+  type DesignResult,
+  type SearchProgress,
+} from '../../spectra/index';
+import type { FieldError } from './error-map';
 
 /** What the worker posts back. */
 export type DesignWorkerMessage =
-  | { type: 'progress'; progress: import('../../spectra/index').SearchProgress }
-  | { type: 'result'; result: import('../../spectra/index').DesignResult }
-  | { type: 'error'; error: { code: string; message: string; path: (string | number)[] } };
+  | { type: 'progress'; progress: SearchProgress }
+  | { type: 'result'; result: DesignResult }
+  | { type: 'error'; error: FieldError };
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 let stopRequested = false;
@@ -33,7 +40,7 @@ scope.onmessage = async (event: MessageEvent<{ type: 'run'; request: DesignReque
     });
     post({ type: 'result', result });
   } catch (err) {
-    const error =
+    const error: FieldError =
       err instanceof SpectraError
         ? { code: err.code, message: err.message, path: err.path }
         : { code: 'internal_error', message: 'the design search failed unexpectedly', path: [] };

@@ -1,40 +1,45 @@
 /**
- * Material classes a user can exclude from a panel (cadmium-free, lead-free) and which probes break that choice.
+ * Material classes a user can exclude from a panel (cadmium-free, lead-free) and which probes break that choice. The
+ * classes, their elements and the test of a material come from the spectral library (EXCLUSIONS, exclusionsOf).
  */
-import type { PanelSpec } from '../../spectra/index';
+import { exclusionsOf, type Exclusion, type Material, type PanelSpec } from '../../spectra/index';
 
-/** The part of a material this check needs (the library's Material has these fields). */
-export interface MaterialElements {
-  id: string;
-  name: string;
-  elements: string[];
+/** The classes the panel view offers to exclude (the design form offers every class of EXCLUSION_WORDS). */
+export const PANEL_EXCLUSIONS = ['cadmium', 'lead'] as const satisfies readonly Exclusion[];
+
+/** A class the panel view can exclude. */
+export type PanelExclusion = (typeof PANEL_EXCLUSIONS)[number];
+
+/** The part of a material these checks need. */
+export type MaterialElements = Pick<Material, 'id' | 'elements'>;
+
+/** True for a word the panel view offers (what a link's view options may carry). */
+export function isPanelExclusion(word: unknown): word is PanelExclusion {
+  return PANEL_EXCLUSIONS.includes(word as PanelExclusion);
 }
 
-/** An excludable class and the chemical element that defines it. */
-export const EXCLUDABLE = [
-  { id: 'cadmium', element: 'Cd', label: 'cadmium-free' },
-  { id: 'lead', element: 'Pb', label: 'lead-free' },
-] as const;
+/** The offered classes a probe's material belongs to (none for a material the list does not know). */
+function classesOf(material: string, materials: readonly MaterialElements[]): PanelExclusion[] {
+  const m = materials.find((x) => x.id === material);
+  return m ? exclusionsOf(m).filter(isPanelExclusion) : [];
+}
 
-export type ExcludableClass = (typeof EXCLUDABLE)[number]['id'];
-
-/** Which classes (cadmium, lead) the panel's probes contain, by the materials' element lists. */
-export function containedClasses(panel: PanelSpec, materials: readonly MaterialElements[]): ExcludableClass[] {
-  const elements = new Set(panel.probes.flatMap((p) => materials.find((m) => m.id === p.material)?.elements ?? []));
-  return EXCLUDABLE.filter((c) => elements.has(c.element)).map((c) => c.id);
+/** Which offered classes (cadmium, lead) the panel's probes contain, by the materials' element lists. */
+export function containedClasses(panel: PanelSpec, materials: readonly MaterialElements[]): PanelExclusion[] {
+  const found = new Set(panel.probes.flatMap((p) => classesOf(p.material, materials)));
+  return PANEL_EXCLUSIONS.filter((word) => found.has(word));
 }
 
 /** Probe ids that contain an excluded class, each with the reason as text ("contains cadmium"). */
 export function offendingProbes(
   panel: PanelSpec,
   materials: readonly MaterialElements[],
-  exclude: readonly ExcludableClass[],
+  exclude: readonly PanelExclusion[],
 ): Map<string, string> {
   const out = new Map<string, string>();
   for (const p of panel.probes) {
-    const elements = materials.find((m) => m.id === p.material)?.elements ?? [];
-    const hit = EXCLUDABLE.filter((c) => exclude.includes(c.id) && elements.includes(c.element));
-    if (hit.length) out.set(p.id, `contains ${hit.map((c) => c.id).join(' and ')}, which this panel excludes`);
+    const hit = classesOf(p.material, materials).filter((word) => exclude.includes(word));
+    if (hit.length) out.set(p.id, `contains ${hit.join(' and ')}, which this panel excludes`);
   }
   return out;
 }

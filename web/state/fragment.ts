@@ -4,12 +4,13 @@
  */
 import { deflateSync, inflateSync, strFromU8, strToU8 } from 'fflate';
 import type { PanelSpec } from '../../spectra/index';
-import { resamplePoints } from './thin-table';
+import type { PanelExclusion } from './exclusions';
+import { thinTable } from './thin-table';
 
 /** What the fragment carries besides the panel: view options that are not part of the stored panel. */
 export interface ViewOptions {
   /** Material classes the user excludes: probes containing them are flagged and block share/export. */
-  exclude: ('cadmium' | 'lead')[];
+  exclude: PanelExclusion[];
 }
 
 /** Everything the fragment holds. */
@@ -36,7 +37,7 @@ function fromBase64Url(text: string): Uint8Array {
 
 /** Copy of the panel with every measured table thinned to the link limit (MAX_LINK_POINTS). */
 export function thinPanel(panel: PanelSpec): PanelSpec {
-  const thin = (t?: { points: [number, number][] }) => (t ? { ...t, points: resamplePoints(t.points) } : t);
+  const thin = (t?: { points: [number, number][] }) => (t ? { ...t, points: thinTable(t.points) } : t);
   return {
     ...panel,
     probes: panel.probes.map((p) => {
@@ -47,10 +48,10 @@ export function thinPanel(panel: PanelSpec): PanelSpec {
     }),
     channels: panel.channels.map((c) => ({
       ...c,
-      filters: c.filters.map((f) => (f.type === 'table' ? { ...f, points: resamplePoints(f.points) } : f)),
+      filters: c.filters.map((f) => (f.type === 'table' ? { ...f, points: thinTable(f.points) } : f)),
     })),
     ...(panel.background?.points
-      ? { background: { ...panel.background, points: resamplePoints(panel.background.points) } }
+      ? { background: { ...panel.background, points: thinTable(panel.background.points) } }
       : {}),
   };
 }

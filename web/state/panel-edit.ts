@@ -1,7 +1,7 @@
 /**
  * Immutable edits of a panel: each returns a new PanelSpec, so the app can keep the last good state and compare.
  */
-import type { ChannelSpec, FilterSpec, PanelSpec, ProbeSpec } from '../../spectra/index';
+import { LIMITS, type ChannelSpec, type FilterSpec, type PanelSpec, type ProbeSpec } from '../../spectra/index';
 
 /** A new, empty panel with one 405 nm line. */
 export function newPanel(): PanelSpec {
@@ -90,7 +90,7 @@ export function addSpectralRun(
   startNm: number,
   bins: number,
   binWidthNm: number,
-  maxChannels = 64,
+  maxChannels: number = LIMITS.channels,
 ): PanelSpec {
   const channels = [...panel.channels];
   if (channels.length + bins > maxChannels) return panel;
