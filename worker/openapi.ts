@@ -2,7 +2,6 @@ import { z } from 'zod';
 import packageJson from '../package.json';
 import * as schemas from './schemas/index';
 
-
 type Json = Record<string, unknown>;
 
 // Named component schemas: requests (as clients write them) and responses.

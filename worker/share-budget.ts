@@ -39,7 +39,8 @@ export async function spendShareBudget(c: Context<AppEnv>): Promise<void> {
   throw new ApiError(
     429,
     'rate_limited',
-    `too many new share links from this address; try again in ${SHARE_BUDGET_PERIOD_S} seconds (reading links is not limited)`,
+    `too many new share links from this address; try again in ${SHARE_BUDGET_PERIOD_S} seconds (reading links is not ` +
+      `limited)`,
     [],
     { 'Retry-After': String(SHARE_BUDGET_PERIOD_S) },
   );

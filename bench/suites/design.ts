@@ -107,7 +107,7 @@ function freeRow(targets: number): BenchRow {
     ...stats(runs.map(([, ms]) => ms)),
     extra: {
       worst: r.objective.worstInterference.toExponential(3),
-      gridWorst: Number(r.stats.gridWorst).toExponential(3),
+      gridWorst: 'gridWorst' in r.stats ? r.stats.gridWorst.toExponential(3) : null,
       exact: String(r.exact),
       nodes: r.stats.nodesVisited,
       candidates: `${r.stats.candidateProbes}×${r.stats.candidateChannels}`,

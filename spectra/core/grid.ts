@@ -1,6 +1,7 @@
 /**
  * Uniform wavelength grids and the spectra sampled on them. Every sampled spectrum in the library lives on the points
- * of a grid (point i at startNm + i × stepNm), as plain arrays of numbers. A spectrum that is exactly 0 over most of the
+ * of a grid (point i at startNm + i × stepNm), as plain arrays of numbers. A spectrum that is exactly 0 over most of
+ * the
  * grid (a dot's emission line) is held only where it is not: its own startNm is then a grid point past the grid's.
  */
 
@@ -74,7 +75,10 @@ export function sampleTable(points: Table, grid: WavelengthGrid, outside: number
 }
 
 /** Value of a sampled spectrum at any wavelength: linear between its points, 0 outside them. */
-export function spectrumAtNm(spectrum: { startNm: number; stepNm: number; values: ArrayLike<number> }, nm: number): number {
+export function spectrumAtNm(
+  spectrum: { startNm: number; stepNm: number; values: ArrayLike<number> },
+  nm: number,
+): number {
   const x = (nm - spectrum.startNm) / spectrum.stepNm;
   const n = spectrum.values.length;
   if (!(x >= 0) || x > n - 1) return 0;

@@ -12,7 +12,8 @@ import { asCandidate, candidateMatrix, rememberingResolver } from './matrix';
 import type { ResolvedDesignOptions } from './options';
 import { searchSteps, type SearchProgress } from './search';
 
-/** A channel passes a line when its transmission there is at least this (1 %: our choice, far above any blocking floor). */
+/** A channel passes a line when its transmission there is at least this (1 %: our choice, far above any blocking
+ * floor). */
 export const LINE_PASS_TRANSMISSION = 0.01;
 
 /** Outcome of catalog mode: the chosen probe and channel per target. */

@@ -120,7 +120,11 @@ export function* designSteps(
 
 /**
  * Runs a design synchronously (the API route: bounded by options.nodeBudget).
- * @example runDesign({ targets: [{ name: 'CD4', abundance: 'high' }, { name: 'FOXP3', abundance: 'low' }], excitation: [{ wavelengthNm: 405 }] })
+ * @example
+ * runDesign({
+ *   targets: [{ name: 'membrane marker', abundance: 'high' }, { name: 'rare nuclear marker', abundance: 'low' }],
+ *   excitation: [{ wavelengthNm: 405 }],
+ * });
  */
 export function runDesign(request: DesignRequest, hooks: DesignHooks = {}): DesignResult {
   return runSteps(designSteps(request, hooks.shouldStop), hooks.onProgress);

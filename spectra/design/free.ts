@@ -57,7 +57,8 @@ export function* freeDesignSteps(
   if (catalog.probes.length < n || catalog.channels.length < n) {
     throw new SpectraError(
       'invalid_input',
-      `the window holds ${catalog.probes.length} dots and ${catalog.channels.length} passbands on the grid; ${n} targets need ${n} of each`,
+      `the window holds ${catalog.probes.length} dots and ${catalog.channels.length} passbands on the grid; ${n} ` +
+        `targets need ${n} of each`,
       ['windowNm'],
     );
   }
@@ -74,7 +75,8 @@ export function* freeDesignSteps(
   if (!found.design) {
     throw new SpectraError(
       'invalid_input',
-      'no design on the grid meets the signal floor with non-overlapping passbands; lower options.minSignalFraction or widen the window',
+      'no design on the grid meets the signal floor with non-overlapping passbands; lower options.minSignalFraction ' +
+        'or widen the window',
       ['options', 'minSignalFraction'],
     );
   }

@@ -7,9 +7,11 @@ import { DEFAULT_NODE_BUDGET } from './search';
 
 /** Options of POST /api/v1/panels/design (every field optional). */
 export interface DesignOptions {
-  /** Most search nodes before the best found is returned with exact: false (default DEFAULT_NODE_BUDGET; free mode DEFAULT_FREE_NODE_BUDGET). */
+  /** Most search nodes before the best found is returned with exact: false (default DEFAULT_NODE_BUDGET; free mode
+   * DEFAULT_FREE_NODE_BUDGET). */
   nodeBudget?: number;
-  /** Signal floor as a fraction of the brightest target's own signal (free mode default 0.05; catalog: off unless set). */
+  /** Signal floor as a fraction of the brightest target's own signal (free mode default 0.05; catalog: off unless set).
+   * */
   minSignalFraction?: number;
   /** Catalog mode: drop channels that pass an excitation line (free mode always does). Default false. */
   lineClearance?: boolean;
@@ -40,7 +42,8 @@ export type ResolvedDesignOptions = Required<Omit<DesignOptions, 'minSignalFract
 
 /**
  * Default node budget of free mode. Its grid catalog is large (about 140 dots × 110 bands for a 400 nm window), so
- * one node costs far more than in catalog mode; 5,000 nodes keep a 6-plex near a second in Node (bench/suites/design.ts).
+ * one node costs far more than in catalog mode; 5,000 nodes keep a 6-plex near a second in Node
+ * (bench/suites/design.ts).
  */
 export const DEFAULT_FREE_NODE_BUDGET = 5_000;
 

@@ -28,7 +28,8 @@ export interface DesignRequest {
   options?: DesignOptions;
 }
 
-/** Default emission window of free mode, nm: our choice, the visible range up to the near-infrared edge of common cameras. */
+/** Default emission window of free mode, nm: our choice, the visible range up to the near-infrared edge of common
+ * cameras. */
 export const DEFAULT_WINDOW_NM: readonly [number, number] = Object.freeze([400, 800]) as readonly [number, number];
 
 /** The targets' names and abundances as numbers. */

@@ -36,7 +36,8 @@ function excitonEpsilon(m: Extract<AbsorptionModel, { type: 'exciton' }>, energy
   if (dE < -4 * sigma) return 0; // below the band edge: a dot does not absorb
   let eps = m.firstExcitonEpsilon * Math.exp(-0.5 * (dE / sigma) ** 2);
   if (dE > 0) {
-    // Linear rise to the intrinsic value at 350 nm; 0.5 eV floor keeps the slope finite when E₁ lies near or above 350 nm.
+    // Linear rise to the intrinsic value at 350 nm; 0.5 eV floor keeps the slope finite when E₁ lies near or above 350
+    // nm.
     const rise = (m.epsilonAt350 * dE) / Math.max(E350_EV - m.firstExcitonEv, 0.5);
     const t = Math.min(1, dE / (3 * sigma));
     eps += rise * t * t * (3 - 2 * t);

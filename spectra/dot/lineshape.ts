@@ -7,7 +7,8 @@ import { expNonPositive } from '../kernels/exp';
  * Emission line shape: a Gaussian in photon energy (the natural variable for size and phonon broadening), sampled on a
  * wavelength grid as a photon-count density per nm through the Jacobian |dE/dλ| = hc/λ²:
  * f(λ) = g(E(λ)) · hc/λ². Because of that factor the per-nm peak sits slightly to the blue of hc/E₀; the helpers below
- * place E₀ so that the per-nm peak lands exactly where asked (the emission peak users quote is read off per-nm spectra).
+ * place E₀ so that the per-nm peak lands exactly where asked (the emission peak users quote is read off per-nm
+ * spectra).
  */
 
 const HC = HC_EV_NM;
@@ -156,11 +157,18 @@ function lineValues(grid: WavelengthGrid, from: number, to: number, centerEv: nu
   const values = new Array<number>(Math.max(0, to - from));
   const negHalfInvVariance = -0.5 / (sigma * sigma);
   for (let i = from; i < to; i++) {
-    const nm = grid.startNm + i * grid.stepNm;
-    const d = HC / nm - centerEv;
-    values[i - from] = expNonPositive(d * d * negHalfInvVariance) * (HC / (nm * nm));
+    const energyEv = HC / (grid.startNm + i * grid.stepNm);
+    const d = energyEv - centerEv;
+    // The Jacobian hc/λ² is E²/hc.
+    values[i - from] = expNonPositive(d * d * negHalfInvVariance) * ((energyEv * energyEv) / HC);
   }
   return values;
+}
+
+function sum(values: number[]): number {
+  let total = 0;
+  for (const v of values) total += v;
+  return total;
 }
 
 /**
@@ -176,16 +184,22 @@ export function sampleGaussianLine(grid: WavelengthGrid, centerEv: number, fwhmE
   const blueNm = HC / (centerEv + reach);
   const redNm = centerEv - reach > 0 ? HC / (centerEv - reach) : Infinity;
   let from = Math.min(count, Math.max(0, Math.floor((blueNm - startNm) / stepNm)));
-  let values = lineValues(grid, from, Math.max(from, Math.min(count, Math.ceil((redNm - startNm) / stepNm) + 1)), centerEv, sigma);
-  let sum = values.reduce((a, v) => a + v, 0);
+  let values = lineValues(
+    grid,
+    from,
+    Math.max(from, Math.min(count, Math.ceil((redNm - startNm) / stepNm) + 1)),
+    centerEv,
+    sigma,
+  );
+  let total = sum(values);
   // The sum times the step over σ√2π is the area on the grid of the unit-area line.
-  let areaOnGrid = (sum * stepNm) / (sigma * SQRT_2PI);
+  let areaOnGrid = (total * stepNm) / (sigma * SQRT_2PI);
   if (!(areaOnGrid >= WINDOW_AREA_FLOOR)) {
     from = 0;
     values = lineValues(grid, 0, count, centerEv, sigma);
-    sum = values.reduce((a, v) => a + v, 0);
-    areaOnGrid = (sum * stepNm) / (sigma * SQRT_2PI);
+    total = sum(values);
+    areaOnGrid = (total * stepNm) / (sigma * SQRT_2PI);
   }
-  if (sum > 0) for (let k = 0; k < values.length; k++) values[k] /= sum * stepNm;
+  if (total > 0) for (let k = 0; k < values.length; k++) values[k] /= total * stepNm;
   return { spectrum: { startNm: startNm + from * stepNm, stepNm, values }, from, areaOnGrid };
 }

@@ -4,7 +4,12 @@ import { fwhmEvForFwhmNm } from './lineshape';
 import { evToNm } from '../core/units';
 import type { DotInput } from '../core/panel';
 import { CARBON_EMISSION_RANGE_NM, CARBON_EXCITATION_MODEL, carbonEmissionPeakNm } from './sizing/carbon';
-import { CARBON_ABSORPTION, CUSTOM_NOMINAL_EXTINCTION, FIRST_EXCITON_SHARE, INTRINSIC_350NM_PER_CM } from './materials/intrinsic';
+import {
+  CARBON_ABSORPTION,
+  CUSTOM_NOMINAL_EXTINCTION,
+  FIRST_EXCITON_SHARE,
+  INTRINSIC_350NM_PER_CM,
+} from './materials/intrinsic';
 import { SIZE_LAWS } from './sizing/laws';
 import type { SizedMaterialId } from './materials/params';
 import { RECORDS } from './materials/records';
@@ -68,7 +73,8 @@ export function resolveSized(material: SizedMaterialId, dot: DotInput, measuredP
     },
     absorptionWarning:
       published === null
-        ? `No published extinction law for ${material}: a nominal volume-scaled model is used (from memory, unverified); supply a measured extinction where brightness matters.`
+        ? `No published extinction law for ${material}: a nominal volume-scaled model is used (from memory, ` +
+          `unverified); supply a measured extinction where brightness matters.`
         : null,
   };
 }
@@ -90,7 +96,8 @@ export function resolveCarbon(dot: DotInput, measuredPeakNm: number | undefined)
   }
   const fwhmNm = dot.fwhmNm ?? rec.typicalFwhmNm;
   const warnings = [
-    'Carbon-dot emission usually depends on the excitation wavelength; the emission peak is taken as the peak under near-UV excitation.',
+    'Carbon-dot emission usually depends on the excitation wavelength; the emission peak is taken as the peak under ' +
+      'near-UV excitation.',
   ];
   if (dot.sizeDispersionPct !== undefined) warnings.push('sizeDispersionPct is ignored for carbon dots (no size law).');
   let peakNm = given ?? measuredPeakNm!;
@@ -98,7 +105,8 @@ export function resolveCarbon(dot: DotInput, measuredPeakNm: number | undefined)
     peakNm = carbonEmissionPeakNm(given, excitationNm);
     if (peakNm !== given)
       warnings.push(
-        `Excited at ${excitationNm} nm the emission peak is modelled at ${peakNm.toFixed(1)} nm (shift of ${CARBON_EXCITATION_MODEL.slope} nm per nm beyond ${CARBON_EXCITATION_MODEL.referenceNm} nm; approximate).`,
+        `Excited at ${excitationNm} nm the emission peak is modelled at ${peakNm.toFixed(1)} nm (shift of ` +
+          `${CARBON_EXCITATION_MODEL.slope} nm per nm beyond ${CARBON_EXCITATION_MODEL.referenceNm} nm; approximate).`,
       );
   }
   return {
@@ -111,7 +119,8 @@ export function resolveCarbon(dot: DotInput, measuredPeakNm: number | undefined)
     warnings,
     absorption: { type: 'tail', epsilonAt350: CARBON_ABSORPTION.epsilonAt350, decayNm: CARBON_ABSORPTION.decayNm },
     absorptionWarning:
-      'Carbon-dot extinction is a nominal exponential tail (from memory, unverified); supply a measured extinction where brightness matters.',
+      'Carbon-dot extinction is a nominal exponential tail (from memory, unverified); supply a measured extinction ' +
+      'where brightness matters.',
   };
 }
 
@@ -136,6 +145,8 @@ export function resolveCustom(dot: DotInput, measured: { peakNm: number } | null
     warnings,
     // A custom probe's emission peak is the measured one.
     absorption: { type: 'flat', epsilon: CUSTOM_NOMINAL_EXTINCTION, untilNm: measured.peakNm },
-    absorptionWarning: `No measured extinction: a flat nominal ${CUSTOM_NOMINAL_EXTINCTION.toExponential(0)} M⁻¹ cm⁻¹ below the emission peak is assumed.`,
+    absorptionWarning:
+      `No measured extinction: a flat nominal ${CUSTOM_NOMINAL_EXTINCTION.toExponential(0)} M⁻¹ ` +
+      `cm⁻¹ below the emission peak is assumed.`,
   };
 }

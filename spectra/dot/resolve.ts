@@ -105,7 +105,8 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
     ? { type: 'table', points: measuredExtinction }
     : part.absorption;
   if (!measuredExtinction && part.absorptionWarning) warnings.push(part.absorptionWarning);
-  if (measuredExtinction?.some((p) => p[1] < 0)) warnings.push('Measured extinction has negative values; they are used as given.');
+  if (measuredExtinction?.some((p) => p[1] < 0))
+    warnings.push('Measured extinction has negative values; they are used as given.');
   const { firstExcitonNm, diameterNm } = part;
   return {
     material,

@@ -141,7 +141,9 @@ export const DETECTOR_CLASSES: readonly DetectorClass[] = Object.freeze([
   {
     id: 'emccd',
     name: 'Electron-multiplying CCD camera, back-illuminated',
-    notes: `High QE; the multiplication adds an excess noise factor of about √2 (common practice) that QE does not show. ${APPROX}`,
+    notes:
+      `High QE; the multiplication adds an excess noise factor of about √2 (common practice) that QE does not ` +
+      `show. ${APPROX}`,
     qePoints: [
       [300, 0.35],
       [400, 0.6],
@@ -194,9 +196,11 @@ export const DETECTOR_IDS = DETECTOR_CLASSES.map((d) => d.id);
 export function detectorQe(id: string, grid: WavelengthGrid): number[] {
   const detector = DETECTOR_CLASSES.find((d) => d.id === id);
   if (!detector) {
-    throw new SpectraError('unknown_detector', `unknown detector ${JSON.stringify(id)}; known: ${DETECTOR_IDS.join(', ')}`, [
-      'detector',
-    ]);
+    throw new SpectraError(
+      'unknown_detector',
+      `unknown detector ${JSON.stringify(id)}; known: ${DETECTOR_IDS.join(', ')}`,
+      ['detector'],
+    );
   }
   return sampleTable(detector.qePoints, grid);
 }

@@ -7,6 +7,7 @@
  * Cytometry 2001, 45, 194; both from memory): signal in a channel over the signal in the probe's primary channel.
  */
 import type { ChannelSpec, ExcitationLine } from '../core/panel';
+import { overlaps } from '../kernels/overlap';
 
 /**
  * One emission spectrum of a probe, held from grid index `from` on (0 elsewhere), and its weight in each channel:
@@ -35,30 +36,28 @@ export function linesOn(channel: ChannelSpec, lines: ExcitationLine[]): number[]
   return [...on].sort((a, b) => a - b);
 }
 
-/** Σλ em(λ) T(λ) Δλ over the points where the emission is held (T on every grid point). */
-export function overlap(component: EmissionComponent, transmission: number[], stepNm: number): number {
-  const { emission, from } = component;
-  let sum = 0;
-  for (let k = 0; k < emission.length; k++) sum += emission[k] * transmission[from + k];
-  return sum * stepNm;
-}
-
-/** collected[c][p] for every channel and probe: Σ over the probe's components of weight × overlap. */
-export function collectedMatrix(
-  probes: EmissionComponent[][],
-  transmissions: number[][],
-  stepNm: number,
-): number[][] {
-  return transmissions.map((t, c) =>
-    probes.map((components) => {
+/**
+ * collected[c][p] for every channel and probe: Σ over the probe's components of weight × Σλ em(λ) T(λ) Δλ (the
+ * overlap sums from kernels/overlap.ts; T on every grid point).
+ */
+export function collectedMatrix(probes: EmissionComponent[][], transmissions: number[][], stepNm: number): number[][] {
+  const components = probes.flat();
+  const sums = overlaps(
+    components.map((component) => ({ values: component.emission, from: component.from })),
+    transmissions,
+  );
+  return transmissions.map((_, c) => {
+    let k = 0;
+    return probes.map((list) => {
       let sum = 0;
-      for (const component of components) {
+      for (const component of list) {
         const w = component.weightByChannel[c];
-        if (w !== 0) sum += w * overlap(component, t, stepNm);
+        if (w !== 0) sum += w * (sums[c][k] * stepNm);
+        k++;
       }
       return sum;
-    }),
-  );
+    });
+  });
 }
 
 /** The worst pair: the probe whose light intrudes most, relative to the victim's own signal in its primary channel. */
@@ -110,7 +109,8 @@ export function crosstalkFigures(
     const c = primaryChannel[p];
     warnings.push(
       c === null
-        ? `probe ${probeIds[p]} gives no signal in any channel (is any line absorbed by it?): its spillover is undefined`
+        ? `probe ${probeIds[p]} gives no signal in any channel (is any line absorbed by it?): its spillover is ` +
+            `undefined`
         : `probe ${probeIds[p]} gives no signal in its channel ${channelIds[c]}: its spillover is undefined`,
     );
   }
@@ -155,7 +155,8 @@ export function crosstalkFigures(
   }
   if (probes > 1 && worst.interference !== null && worst.interference < RESOLUTION_THRESHOLD) {
     warnings.push(
-      `the worst interference (${worst.interference.toExponential(1)}) is below the model's resolution (${RESOLUTION_THRESHOLD}): real red tails may be larger`,
+      `the worst interference (${worst.interference.toExponential(1)}) is below the model's resolution ` +
+        `(${RESOLUTION_THRESHOLD}): real red tails may be larger`,
     );
   }
   return { primaryChannel, spillover, purity, belowResolution, worst, warnings };

@@ -40,7 +40,8 @@ export interface NoisePrediction {
   sd: (number | null)[];
   /** abundance / SD, per probe. */
   signalToNoise: (number | null)[];
-  /** Spillover spreading, see spreadingMatrix: [i][j] = extra SD of i per √photon of j, both in primary-channel photons. */
+  /** Spillover spreading, see spreadingMatrix: [i][j] = extra SD of i per √photon of j, both in primary-channel
+   * photons. */
   spreading: (number | null)[][];
   primaryChannel: number[];
   /** Per-channel variance v_c used (photons²). */

@@ -140,7 +140,9 @@ export function modelPanel(panel: PanelSpec, grid: WavelengthGrid, resolve: DotR
     }
   });
   const channelIndex = new Map(panel.channels.map((c, i) => [c.id, i]));
-  const assigned = panel.probes.map((probe) => (probe.channel === undefined ? undefined : channelIndex.get(probe.channel)));
+  const assigned = panel.probes.map((probe) =>
+    probe.channel === undefined ? undefined : channelIndex.get(probe.channel),
+  );
   const spec = panel.background;
   // A measured background does not depend on the line: one spectrum serves every line.
   const measured = spec?.points !== undefined ? backgroundEmission(spec, lines[0].wavelengthNm, grid) : null;

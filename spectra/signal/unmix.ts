@@ -61,7 +61,8 @@ function nullFigures(cols: number, warning: string): UnmixingDiagnostics {
   return { conditionNumber: null, noiseAmplification: new Array<null>(cols).fill(null), warnings: [warning] };
 }
 
-/** unmixingDiagnostics of a panel's own collected matrix (rectangular by construction; non-finite entries give nulls). */
+/** unmixingDiagnostics of a panel's own collected matrix (rectangular by construction; non-finite entries give nulls).
+ * */
 export function diagnoseMixing(m: number[][], probeIds?: string[]): UnmixingDiagnostics {
   const cols = m[0].length;
   if (m.some((row) => row.some((x) => !Number.isFinite(x)))) {
@@ -81,7 +82,8 @@ export function conditionNumber(m: number[][]): number | null {
   return unmixingDiagnostics(m).conditionNumber;
 }
 
-/** Least-squares noise gain per probe, √[(MᵀM)⁻¹]jj · ‖mj‖ (1 for orthogonal signatures); nulls when M cannot be unmixed. */
+/** Least-squares noise gain per probe, √[(MᵀM)⁻¹]jj · ‖mj‖ (1 for orthogonal signatures); nulls when M cannot be
+ * unmixed. */
 export function noiseAmplification(m: number[][]): (number | null)[] {
   return unmixingDiagnostics(m).noiseAmplification;
 }

@@ -92,99 +92,113 @@ function rawExchange(
 }
 
 const head = (port: number, length: number) =>
-  `POST /api/v1/panels/evaluate HTTP/1.1\r\nHost: 127.0.0.1:${port}\r\nContent-Type: application/json\r\nContent-Length: ${length}\r\n\r\n`;
+  `POST /api/v1/panels/evaluate HTTP/1.1\r\nHost: 127.0.0.1:${port}\r\nContent-Type: ` +
+  `application/json\r\nContent-Length: ${length}\r\n\r\n`;
 
 describe('a hard kill during a burst of new shares', () => {
-  it('every POST /api/v1/panels that answered 201 before SIGKILL to the server is still stored after a restart on the same directory', async () => {
-    const persistDir = freshPersistDir();
-    const root = snapshotRoot();
-    const first = await start(persistDir, root);
-    const created = new Map<string, Record<string, unknown>>();
-    let killed = false;
-    const burst = Array.from({ length: 16 }, async (_, conn) => {
-      for (let i = 0; !killed; i++) {
-        const panel = demoPanelTitled(`Fault burst ${conn}-${i}`);
-        try {
-          const res = await postJson(first.baseUrl, '/api/v1/panels', panel);
-          if (res.status === 201) created.set(((await res.json()) as { id: string }).id, panel);
-          else await res.text();
-        } catch {
-          return; // the server is gone
+  it(
+    'every POST /api/v1/panels that answered 201 before SIGKILL to the server is still stored after a restart on ' +
+      'the same directory',
+    async () => {
+      const persistDir = freshPersistDir();
+      const root = snapshotRoot();
+      const first = await start(persistDir, root);
+      const created = new Map<string, Record<string, unknown>>();
+      let killed = false;
+      const burst = Array.from({ length: 16 }, async (_, conn) => {
+        for (let i = 0; !killed; i++) {
+          const panel = demoPanelTitled(`Fault burst ${conn}-${i}`);
+          try {
+            const res = await postJson(first.baseUrl, '/api/v1/panels', panel);
+            if (res.status === 201) created.set(((await res.json()) as { id: string }).id, panel);
+            else await res.text();
+          } catch {
+            return; // the server is gone
+          }
         }
-      }
-    });
-    while (created.size < 150) await new Promise((r) => setTimeout(r, 20));
-    await first.stop('SIGKILL');
-    killed = true;
-    await Promise.all(burst);
-    expect(first.workerdPid()).toBeNull();
+      });
+      while (created.size < 150) await new Promise((r) => setTimeout(r, 20));
+      await first.stop('SIGKILL');
+      killed = true;
+      await Promise.all(burst);
+      expect(first.workerdPid()).toBeNull();
 
-    const second = await start(persistDir, root);
-    const missing: string[] = [];
-    for (const [id, panel] of created) {
-      const res = await fetch(`${second.baseUrl}/api/v1/panels/${id}`);
-      if (res.status !== 200) missing.push(`${id}: ${res.status}`);
-      else expect(await res.json()).toEqual(panel);
-    }
-    expect(created.size).toBeGreaterThanOrEqual(150);
-    expect(missing).toEqual([]);
-    await second.stop();
-  });
+      const second = await start(persistDir, root);
+      const missing: string[] = [];
+      for (const [id, panel] of created) {
+        const res = await fetch(`${second.baseUrl}/api/v1/panels/${id}`);
+        if (res.status !== 200) missing.push(`${id}: ${res.status}`);
+        else expect(await res.json()).toEqual(panel);
+      }
+      expect(created.size).toBeGreaterThanOrEqual(150);
+      expect(missing).toEqual([]);
+      await second.stop();
+    },
+  );
 });
 
 describe('bodies cut off or sent slowly', () => {
   let app: StartedApp;
 
-  it("a body cut off halfway (Content-Length 1000, 500 bytes, then FIN or reset) gets a 4xx or a close (or the local proxy's own 503), the worker raises no unhandled error, and the server still answers promptly", async () => {
-    app = await start(freshPersistDir(), snapshotRoot());
-    const half = JSON.stringify(demoPanelTitled('cut off')).slice(0, 500);
-    for (const finish of ['end', 'destroy'] as const) {
-      const outcome = await rawExchange(app.port, head(app.port, 1000), [half], { finish, waitMs: 15_000 });
-      expect(acceptableForBrokenBody(outcome), `${finish}: ${JSON.stringify(outcome)}`).toBe(true);
-      expect(await healthMs(app.baseUrl)).toBeLessThan(2000);
-    }
-    // A broken body is bad input to the worker (400), never an unexpected error (the 500 path of onApiError). The
-    // runtime's log lines arrive a moment after the exchange.
-    await new Promise((r) => setTimeout(r, 2000));
-    expect(app.log()).not.toContain('unhandled error');
-  });
+  it(
+    'a body cut off halfway (Content-Length 1000, 500 bytes, then FIN or reset) gets a 4xx or a close (or the local ' +
+      "proxy's own 503), the worker raises no unhandled error, and the server still answers promptly",
+    async () => {
+      app = await start(freshPersistDir(), snapshotRoot());
+      const half = JSON.stringify(demoPanelTitled('cut off')).slice(0, 500);
+      for (const finish of ['end', 'destroy'] as const) {
+        const outcome = await rawExchange(app.port, head(app.port, 1000), [half], { finish, waitMs: 15_000 });
+        expect(acceptableForBrokenBody(outcome), `${finish}: ${JSON.stringify(outcome)}`).toBe(true);
+        expect(await healthMs(app.baseUrl)).toBeLessThan(2000);
+      }
+      // A broken body is bad input to the worker (400), never an unexpected error (the 500 path of onApiError). The
+      // runtime's log lines arrive a moment after the exchange.
+      await new Promise((r) => setTimeout(r, 2000));
+      expect(app.log()).not.toContain('unhandled error');
+    },
+  );
 
-  it('twenty connections dripping bodies a few bytes at a time do not stop /api/v1/health from answering, and each drip ends in 200 or a 4xx', async () => {
-    const body = JSON.stringify({
-      version: 1,
-      excitation: [{ wavelengthNm: 405 }],
-      probes: [{ id: 'p1', material: 'cdse', emissionPeakNm: 605 }],
-      channels: [{ id: 'c1', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] }],
-    });
-    const chunks = body.match(/.{1,8}/gs)!;
-    const drips = Array.from({ length: 20 }, (_, k) =>
-      rawExchange(
-        app.port,
-        head(app.port, Buffer.byteLength(body)),
-        k % 2 === 0 ? chunks : chunks.slice(0, chunks.length >> 1),
-        {
-          gapMs: 100,
-          finish: k % 2 === 0 ? 'none' : 'end',
-          waitMs: 60_000,
-        },
-      ),
-    );
-    const healthTimes: number[] = [];
-    const dripping = Promise.all(drips);
-    for (let i = 0; i < 10; i++) {
-      healthTimes.push(await healthMs(app.baseUrl));
-      await new Promise((r) => setTimeout(r, 300));
-    }
-    const outcomes = await dripping;
-    console.log(
-      `health while dripping: ${healthTimes.join(' ')} ms; outcomes ${outcomes.map((o) => ('status' in o ? o.status : Object.keys(o)[0])).join(' ')}`,
-    );
-    expect(Math.max(...healthTimes)).toBeLessThan(2000);
-    outcomes.forEach((o, k) => {
-      if (k % 2 === 0) expect(o, `complete drip ${k}`).toMatchObject({ status: 200 });
-      else expect(acceptableForBrokenBody(o), `cut drip ${k}: ${JSON.stringify(o)}`).toBe(true);
-    });
-    expect(app.log()).not.toContain('unhandled error');
-    await app.stop();
-  });
+  it(
+    'twenty connections dripping bodies a few bytes at a time do not stop /api/v1/health from answering, and each ' +
+      'drip ends in 200 or a 4xx',
+    async () => {
+      const body = JSON.stringify({
+        version: 1,
+        excitation: [{ wavelengthNm: 405 }],
+        probes: [{ id: 'p1', material: 'cdse', emissionPeakNm: 605 }],
+        channels: [{ id: 'c1', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] }],
+      });
+      const chunks = body.match(/.{1,8}/gs)!;
+      const drips = Array.from({ length: 20 }, (_, k) =>
+        rawExchange(
+          app.port,
+          head(app.port, Buffer.byteLength(body)),
+          k % 2 === 0 ? chunks : chunks.slice(0, chunks.length >> 1),
+          {
+            gapMs: 100,
+            finish: k % 2 === 0 ? 'none' : 'end',
+            waitMs: 60_000,
+          },
+        ),
+      );
+      const healthTimes: number[] = [];
+      const dripping = Promise.all(drips);
+      for (let i = 0; i < 10; i++) {
+        healthTimes.push(await healthMs(app.baseUrl));
+        await new Promise((r) => setTimeout(r, 300));
+      }
+      const outcomes = await dripping;
+      console.log(
+        `health while dripping: ${healthTimes.join(' ')} ms; outcomes ` +
+          `${outcomes.map((o) => ('status' in o ? o.status : Object.keys(o)[0])).join(' ')}`,
+      );
+      expect(Math.max(...healthTimes)).toBeLessThan(2000);
+      outcomes.forEach((o, k) => {
+        if (k % 2 === 0) expect(o, `complete drip ${k}`).toMatchObject({ status: 200 });
+        else expect(acceptableForBrokenBody(o), `cut drip ${k}: ${JSON.stringify(o)}`).toBe(true);
+      });
+      expect(app.log()).not.toContain('unhandled error');
+      await app.stop();
+    },
+  );
 });

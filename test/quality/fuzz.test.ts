@@ -198,7 +198,8 @@ describe('fuzz', () => {
               const problem = await problemOf(c);
               if (problem)
                 failures.push(
-                  `batch ${batch}: ${c.method} ${c.path} [${c.contentType}] ${String(c.body).slice(0, 120)} → ${problem}`,
+                  `batch ${batch}: ${c.method} ${c.path} [${c.contentType}] ${String(c.body).slice(0, 120)} → ` +
+                    `${problem}`,
                 );
             } catch (err) {
               failures.push(`batch ${batch}: ${c.method} ${c.path}: ${String((err as Error).cause ?? err)}`);

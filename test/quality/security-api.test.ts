@@ -78,20 +78,24 @@ describe('share ids', () => {
     }
   });
 
-  it('POST /api/v1/panels gives 144-bit base64url ids, the same id for the same panel and a new id for a changed one', async () => {
-    expect(storedId).toMatch(/^[A-Za-z0-9_-]{24}$/);
-    const again = await postJson(app.baseUrl, '/api/v1/panels', stored);
-    expect(again.status).toBe(200);
-    expect(((await again.json()) as { id: string }).id).toBe(storedId);
-    const changed = await postJson(app.baseUrl, '/api/v1/panels', {
-      ...stored,
-      title: 'Stored panel that must never change!',
-    });
-    expect(changed.status).toBe(201);
-    expect(((await changed.json()) as { id: string }).id).not.toBe(storedId);
-  });
+  it(
+    'POST /api/v1/panels gives 144-bit base64url ids, the same id for the same panel and a new id for a changed ' +
+      'one',
+    async () => {
+      expect(storedId).toMatch(/^[A-Za-z0-9_-]{24}$/);
+      const again = await postJson(app.baseUrl, '/api/v1/panels', stored);
+      expect(again.status).toBe(200);
+      expect(((await again.json()) as { id: string }).id).toBe(storedId);
+      const changed = await postJson(app.baseUrl, '/api/v1/panels', {
+        ...stored,
+        title: 'Stored panel that must never change!',
+      });
+      expect(changed.status).toBe(201);
+      expect(((await changed.json()) as { id: string }).id).not.toBe(storedId);
+    },
+  );
 
-  it('PUT, DELETE and PATCH on a stored panel and on /api/v1/panels answer 405, and the stored panel is unchanged', async () => {
+  it('PUT, DELETE and PATCH on a stored panel and on /api/v1/panels answer 405; the panel is unchanged', async () => {
     for (const method of ['PUT', 'DELETE', 'PATCH']) {
       for (const path of [`/api/v1/panels/${storedId}`, '/api/v1/panels']) {
         const res = await fetch(app.baseUrl + path, {
@@ -225,36 +229,40 @@ describe('budget of new share links per client', () => {
   );
   const client = { 'cf-connecting-ip': '203.0.113.77' }; // TEST-NET-3 (RFC 5737): no real client
 
-  it('POST /api/v1/panels from one address gets 429 in the error shape after its budget, while reads, re-shares, other addresses and loopback still work', async () => {
-    expect(limit).toBeGreaterThan(0);
-    // The local limiter counts in fixed 60 s windows aligned to the clock: stay clear of a window's end.
-    const intoWindowMs = Date.now() % 60_000;
-    if (intoWindowMs > 40_000) await new Promise((r) => setTimeout(r, 60_500 - intoWindowMs));
-    const statuses: number[] = [];
-    for (let i = 0; i < limit + 5; i++) {
-      const res = await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled(`Budget test ${i}`), client);
-      statuses.push(res.status);
-      if (res.status === 429) {
-        expect(res.headers.get('retry-after')).toMatch(/^\d+$/);
-        expect((await expectContractError(res, 429)).code).toBe('rate_limited');
-      } else await res.text();
-    }
-    expect(statuses.filter((s) => s === 201)).toHaveLength(limit);
-    expect(statuses.slice(limit)).toEqual([429, 429, 429, 429, 429]);
-    // Reads and re-sharing a stored panel cost nothing.
-    expect((await fetch(`${app.baseUrl}/api/v1/panels/${storedId}`, { headers: client })).status).toBe(200);
-    expect((await postJson(app.baseUrl, '/api/v1/panels', stored, client)).status).toBe(200);
-    expect((await postJson(app.baseUrl, '/api/v1/panels/evaluate', stored, client)).status).toBe(200);
-    // Another address, and loopback (local runs), still create links.
-    expect(
-      (
-        await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled('Budget other client'), {
-          'cf-connecting-ip': '203.0.113.78',
-        })
-      ).status,
-    ).toBe(201);
-    expect((await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled('Budget loopback'))).status).toBe(201);
-  });
+  it(
+    'POST /api/v1/panels from one address gets 429 in the error shape after its budget, while reads, re-shares, ' +
+      'other addresses and loopback still work',
+    async () => {
+      expect(limit).toBeGreaterThan(0);
+      // The local limiter counts in fixed 60 s windows aligned to the clock: stay clear of a window's end.
+      const intoWindowMs = Date.now() % 60_000;
+      if (intoWindowMs > 40_000) await new Promise((r) => setTimeout(r, 60_500 - intoWindowMs));
+      const statuses: number[] = [];
+      for (let i = 0; i < limit + 5; i++) {
+        const res = await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled(`Budget test ${i}`), client);
+        statuses.push(res.status);
+        if (res.status === 429) {
+          expect(res.headers.get('retry-after')).toMatch(/^\d+$/);
+          expect((await expectContractError(res, 429)).code).toBe('rate_limited');
+        } else await res.text();
+      }
+      expect(statuses.filter((s) => s === 201)).toHaveLength(limit);
+      expect(statuses.slice(limit)).toEqual([429, 429, 429, 429, 429]);
+      // Reads and re-sharing a stored panel cost nothing.
+      expect((await fetch(`${app.baseUrl}/api/v1/panels/${storedId}`, { headers: client })).status).toBe(200);
+      expect((await postJson(app.baseUrl, '/api/v1/panels', stored, client)).status).toBe(200);
+      expect((await postJson(app.baseUrl, '/api/v1/panels/evaluate', stored, client)).status).toBe(200);
+      // Another address, and loopback (local runs), still create links.
+      expect(
+        (
+          await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled('Budget other client'), {
+            'cf-connecting-ip': '203.0.113.78',
+          })
+        ).status,
+      ).toBe(201);
+      expect((await postJson(app.baseUrl, '/api/v1/panels', demoPanelTitled('Budget loopback'))).status).toBe(201);
+    },
+  );
 
   it('POST /api/v1/panels from addresses in one IPv6 /64 shares one budget', async () => {
     const intoWindowMs = Date.now() % 60_000;

@@ -98,58 +98,66 @@ function deepEqual(a: unknown, b: unknown): boolean {
 }
 
 describe('soak', () => {
-  it(`mixed evaluate and share traffic for ${SECONDS} s at ${CONNECTIONS} connections gives no 5xx, loses no share and grows in memory no faster per request than plain health requests`, async () => {
-    const baseline = await healthBaseline();
-    const t: Tally = {
-      byStatus: new Map(),
-      serverErrors: [],
-      networkErrors: [],
-      stored: new Map(),
-      fetchMismatches: [],
-      rssKiB: [],
-    };
-    const started = Date.now();
-    const until = started + SECONDS * 1000;
-    const sampler = setInterval(() => {
-      const rss = app.workerdRssKiB();
-      if (rss !== null) t.rssKiB.push(rss);
-    }, 1000);
-    await Promise.all(Array.from({ length: CONNECTIONS }, (_, c) => connectionLoop(c, until, t)));
-    clearInterval(sampler);
-    const elapsedS = (Date.now() - started) / 1000;
-    const total = [...t.byStatus.values()].reduce((a, b) => a + b, 0);
+  it(
+    `mixed evaluate and share traffic for ${SECONDS} s at ${CONNECTIONS} connections gives no 5xx, loses no share ` +
+      `and grows in memory no faster per request than plain health requests`,
+    async () => {
+      const baseline = await healthBaseline();
+      const t: Tally = {
+        byStatus: new Map(),
+        serverErrors: [],
+        networkErrors: [],
+        stored: new Map(),
+        fetchMismatches: [],
+        rssKiB: [],
+      };
+      const started = Date.now();
+      const until = started + SECONDS * 1000;
+      const sampler = setInterval(() => {
+        const rss = app.workerdRssKiB();
+        if (rss !== null) t.rssKiB.push(rss);
+      }, 1000);
+      await Promise.all(Array.from({ length: CONNECTIONS }, (_, c) => connectionLoop(c, until, t)));
+      clearInterval(sampler);
+      const elapsedS = (Date.now() - started) / 1000;
+      const total = [...t.byStatus.values()].reduce((a, b) => a + b, 0);
 
-    // Every share that got a 201 is fetched back, equal to what was sent.
-    const lost: string[] = [];
-    for (const [id, panel] of t.stored) {
-      const res = await fetch(`${app.baseUrl}/api/v1/panels/${id}`);
-      if (res.status !== 200 || !deepEqual(await res.json(), panel)) lost.push(`${id}: ${res.status}`);
-    }
-    const third = Math.floor(t.rssKiB.length / 3);
-    const firstMiB = median(t.rssKiB.slice(0, third)) / 1024;
-    const lastMiB = median(t.rssKiB.slice(-third)) / 1024;
-    // Requests between the middles of the first and last thirds: two thirds of the run.
-    const kibPerRequest = ((lastMiB - firstMiB) * 1024) / ((total * 2) / 3);
-    console.log(
-      `soak: ${total} requests in ${elapsedS.toFixed(1)} s (${(total / elapsedS).toFixed(0)} req/s), statuses ${JSON.stringify(Object.fromEntries(t.byStatus))}, ` +
-        `${t.stored.size} shares stored, workerd RSS median first third ${firstMiB.toFixed(0)} MiB, last third ${lastMiB.toFixed(0)} MiB, max ${(Math.max(...t.rssKiB) / 1024).toFixed(0)} MiB; ` +
-        `growth ${kibPerRequest.toFixed(2)} KiB/request against ${baseline.kibPerRequest.toFixed(2)} KiB/request for ${baseline.requests} health requests; ` +
-        `every 5 s: ${t.rssKiB
-          .filter((_, i) => i % 5 === 0)
-          .map((k) => (k / 1024).toFixed(0))
-          .join(' ')}`,
-    );
+      // Every share that got a 201 is fetched back, equal to what was sent.
+      const lost: string[] = [];
+      for (const [id, panel] of t.stored) {
+        const res = await fetch(`${app.baseUrl}/api/v1/panels/${id}`);
+        if (res.status !== 200 || !deepEqual(await res.json(), panel)) lost.push(`${id}: ${res.status}`);
+      }
+      const third = Math.floor(t.rssKiB.length / 3);
+      const firstMiB = median(t.rssKiB.slice(0, third)) / 1024;
+      const lastMiB = median(t.rssKiB.slice(-third)) / 1024;
+      // Requests between the middles of the first and last thirds: two thirds of the run.
+      const kibPerRequest = ((lastMiB - firstMiB) * 1024) / ((total * 2) / 3);
+      console.log(
+        `soak: ${total} requests in ${elapsedS.toFixed(1)} s (${(total / elapsedS).toFixed(0)} req/s), statuses ` +
+          `${JSON.stringify(Object.fromEntries(t.byStatus))}, ` +
+          `${t.stored.size} shares stored, workerd RSS median first third ${firstMiB.toFixed(0)} MiB, last third ` +
+          `${lastMiB.toFixed(0)} MiB, max ${(Math.max(...t.rssKiB) / 1024).toFixed(0)} MiB; ` +
+          `growth ${kibPerRequest.toFixed(2)} KiB/request against ` +
+          `${baseline.kibPerRequest.toFixed(2)} KiB/request for ` +
+          `${baseline.requests} health requests; ` +
+          `every 5 s: ${t.rssKiB
+            .filter((_, i) => i % 5 === 0)
+            .map((k) => (k / 1024).toFixed(0))
+            .join(' ')}`,
+      );
 
-    if (t.serverErrors.length > 0) console.log(`server output:\n${app.log()}`);
-    expect(t.serverErrors).toEqual([]);
-    expect(t.networkErrors).toEqual([]);
-    expect([...t.byStatus.keys()].every((s) => s === 200 || s === 201)).toBe(true);
-    expect(t.stored.size).toBeGreaterThan(0);
-    expect(t.fetchMismatches).toEqual([]);
-    expect(lost).toEqual([]);
-    expect(t.rssKiB.length).toBeGreaterThanOrEqual(6);
-    expect(kibPerRequest).toBeLessThanOrEqual(
-      Math.max(0, baseline.kibPerRequest) * RSS_GROWTH_RATIO + RSS_GROWTH_SLACK_KIB,
-    );
-  });
+      if (t.serverErrors.length > 0) console.log(`server output:\n${app.log()}`);
+      expect(t.serverErrors).toEqual([]);
+      expect(t.networkErrors).toEqual([]);
+      expect([...t.byStatus.keys()].every((s) => s === 200 || s === 201)).toBe(true);
+      expect(t.stored.size).toBeGreaterThan(0);
+      expect(t.fetchMismatches).toEqual([]);
+      expect(lost).toEqual([]);
+      expect(t.rssKiB.length).toBeGreaterThanOrEqual(6);
+      expect(kibPerRequest).toBeLessThanOrEqual(
+        Math.max(0, baseline.kibPerRequest) * RSS_GROWTH_RATIO + RSS_GROWTH_SLACK_KIB,
+      );
+    },
+  );
 });

@@ -123,19 +123,23 @@ describe('spectrum CSV import bounds', () => {
 });
 
 describe('ordering sheet export', () => {
-  it('orderingSheetCsv writes cells starting with =, +, - or @ with a leading quote so spreadsheets show them as text', () => {
-    const formulas = ['=HYPERLINK("http://example.invalid","x")', '+1+1', '-2+3', '@SUM(A1:A2)'];
-    const panel = demoPanelTitled(formulas[0]) as any;
-    panel.probes[0].label = formulas[1];
-    panel.probes[1].target = formulas[2];
-    panel.channels[0].label = formulas[3];
-    const csv = orderingSheetCsv(panel, []);
-    // Every field of every row, with RFC 4180 quotes removed: none may start with a formula character.
-    const fields = csv
-      .split('\r\n')
-      .flatMap((row) => row.match(/("([^"]|"")*"|[^,]*)(,|$)/g) ?? [])
-      .map((f) => f.replace(/,$/, '').replace(/^"|"$/g, '').replace(/""/g, '"'));
-    for (const formula of formulas) expect(fields).toContain(`'${formula}`);
-    expect(fields.filter((f) => /^[=+@]/.test(f) || /^-[^\d]/.test(f))).toEqual([]);
-  });
+  it(
+    'orderingSheetCsv writes cells starting with =, +, - or @ with a leading quote so spreadsheets show them as ' +
+      'text',
+    () => {
+      const formulas = ['=HYPERLINK("http://example.invalid","x")', '+1+1', '-2+3', '@SUM(A1:A2)'];
+      const panel = demoPanelTitled(formulas[0]) as any;
+      panel.probes[0].label = formulas[1];
+      panel.probes[1].target = formulas[2];
+      panel.channels[0].label = formulas[3];
+      const csv = orderingSheetCsv(panel, []);
+      // Every field of every row, with RFC 4180 quotes removed: none may start with a formula character.
+      const fields = csv
+        .split('\r\n')
+        .flatMap((row) => row.match(/("([^"]|"")*"|[^,]*)(,|$)/g) ?? [])
+        .map((f) => f.replace(/,$/, '').replace(/^"|"$/g, '').replace(/""/g, '"'));
+      for (const formula of formulas) expect(fields).toContain(`'${formula}`);
+      expect(fields.filter((f) => /^[=+@]/.test(f) || /^-[^\d]/.test(f))).toEqual([]);
+    },
+  );
 });

@@ -48,22 +48,31 @@ describe('absorption model', () => {
     },
   );
 
-  it('extinctionAtNm(cdse 4 nm) has its first-exciton maximum near the Yu first exciton and rises again towards the UV', () => {
-    const dot = resolveDot({ material: 'cdse', diameterNm: 4 });
-    const l1 = firstExcitonNmForDiameter('cdse', 4);
-    // A local maximum: the largest value over l1 − 8 … l1 + 25 nm sits within 3 nm of l1.
-    let best = l1 - 8;
-    for (let nm = l1 - 8; nm <= l1 + 25; nm += 0.1) if (extinctionAtNm(dot, nm) > extinctionAtNm(dot, best)) best = nm;
-    expect(Math.abs(best - l1)).toBeLessThan(3);
-    expect(extinctionAtNm(dot, 400)).toBeGreaterThan(2 * dot.extinctionFirstExciton!);
-  });
+  it(
+    'extinctionAtNm(cdse 4 nm) has its first-exciton maximum near the Yu first exciton and rises again towards the ' +
+      'UV',
+    () => {
+      const dot = resolveDot({ material: 'cdse', diameterNm: 4 });
+      const l1 = firstExcitonNmForDiameter('cdse', 4);
+      // A local maximum: the largest value over l1 − 8 … l1 + 25 nm sits within 3 nm of l1.
+      let best = l1 - 8;
+      for (let nm = l1 - 8; nm <= l1 + 25; nm += 0.1)
+        if (extinctionAtNm(dot, nm) > extinctionAtNm(dot, best)) best = nm;
+      expect(Math.abs(best - l1)).toBeLessThan(3);
+      expect(extinctionAtNm(dot, 400)).toBeGreaterThan(2 * dot.extinctionFirstExciton!);
+    },
+  );
 
-  it('extinctionAtNm(cdse) changes smoothly: no step between neighbouring 0.1 nm points exceeds 1 % of the 350 nm value', () => {
-    const dot = resolveDot({ material: 'cdse', diameterNm: 5 });
-    const scale = extinctionAtNm(dot, 350);
-    for (let nm = 340; nm < 700; nm += 0.1)
-      expect(Math.abs(extinctionAtNm(dot, nm + 0.1) - extinctionAtNm(dot, nm))).toBeLessThan(0.01 * scale);
-  });
+  it(
+    'extinctionAtNm(cdse) changes smoothly: no step between neighbouring 0.1 nm points exceeds 1 % of the 350 nm ' +
+      'value',
+    () => {
+      const dot = resolveDot({ material: 'cdse', diameterNm: 5 });
+      const scale = extinctionAtNm(dot, 350);
+      for (let nm = 340; nm < 700; nm += 0.1)
+        expect(Math.abs(extinctionAtNm(dot, nm + 0.1) - extinctionAtNm(dot, nm))).toBeLessThan(0.01 * scale);
+    },
+  );
 
   it('extinctionAtNm works off the grid from the model, which is plain data that survives a JSON round trip', () => {
     const dot = resolveDot({ material: 'cdse', diameterNm: 4 }, { grid: makeGrid(400, 800, 1) });

@@ -44,13 +44,17 @@ describe('brusGapEv', () => {
     expect(Math.abs(brusGapEv('cdse', d) - nmToEv(firstExcitonNmForDiameter('cdse', d)) - excess)).toBeLessThan(0.05);
   });
 
-  it('brusGapEv(cdse) agrees with the empirical curve within 0.25 eV at 5–6 nm and the gap between them shrinks with size', () => {
-    const excess = [2.5, 3, 4, 5, 5.5, 6].map(
-      (d) => brusGapEv('cdse', d) - nmToEv(firstExcitonNmForDiameter('cdse', d)),
-    );
-    expect(Math.max(...excess.slice(3))).toBeLessThan(0.25);
-    for (let i = 1; i < excess.length; i++) expect(excess[i]).toBeLessThan(excess[i - 1]);
-  });
+  it(
+    'brusGapEv(cdse) agrees with the empirical curve within 0.25 eV at 5–6 nm and the gap between them shrinks with ' +
+      'size',
+    () => {
+      const excess = [2.5, 3, 4, 5, 5.5, 6].map(
+        (d) => brusGapEv('cdse', d) - nmToEv(firstExcitonNmForDiameter('cdse', d)),
+      );
+      expect(Math.max(...excess.slice(3))).toBeLessThan(0.25);
+      for (let i = 1; i < excess.length; i++) expect(excess[i]).toBeLessThan(excess[i - 1]);
+    },
+  );
 
   it('brusDiameterNm(m, brusGapEv(m, d)) returns d on the confined branch', () => {
     for (const [m, d] of [

@@ -47,7 +47,8 @@ const GRIDS = [DEFAULT_GRID, makeGrid(300, 1000, 0.25), makeGrid(400, 900, 3), m
 
 describe('cold path: line sampling', () => {
   it.each(LINES)(
-    'sampleGaussianLine(grid, %s eV, %s eV) equals the Math.exp formula at 1e-12 wherever it is above 1e-15 of its largest value on the grid',
+    'sampleGaussianLine(grid, %s eV, %s eV) equals the Math.exp formula at 1e-12 wherever it is above 1e-15 of its ' +
+      'largest value on the grid',
     (c, w) => {
       for (const grid of GRIDS) {
         const fast = spectrumOnGrid(sampleGaussianLine(grid, c, w).spectrum, grid);
@@ -81,27 +82,31 @@ describe('cold path: line sampling', () => {
       if (naive[i] * fast.areaOnGrid > 1e-290) expect(Math.abs(values[i] - naive[i]) / naive[i]).toBeLessThan(1e-9);
   });
 
-  it('fwhmNmOfLine equals the distance between half-maximum wavelengths found by plain bisection, to 1e-10 relative', () => {
-    const density = (nm: number, c: number, s: number) =>
-      (Math.exp(-0.5 * ((HC_EV_NM / nm - c) / s) ** 2) * HC_EV_NM) / (nm * nm);
-    for (const [c, w] of LINES) {
-      const s = w / GAUSSIAN_FWHM_PER_SIGMA;
-      const peakNm = peakNmOfLine(c, w);
-      const half = density(peakNm, c, s) / 2;
-      const cross = (outsideNm: number) => {
-        let inside = peakNm;
-        let outside = outsideNm;
-        for (let k = 0; k < 200; k++) {
-          const mid = 0.5 * (inside + outside);
-          if (density(mid, c, s) > half) inside = mid;
-          else outside = mid;
-        }
-        return 0.5 * (inside + outside);
-      };
-      const reference = cross(HC_EV_NM / Math.max(c - 10 * w, c / 100)) - cross(HC_EV_NM / (c + 10 * w));
-      expect(Math.abs(fwhmNmOfLine(c, w) - reference) / reference).toBeLessThan(1e-10);
-    }
-  });
+  it(
+    'fwhmNmOfLine equals the distance between half-maximum wavelengths found by plain bisection, to 1e-10 ' +
+      'relative',
+    () => {
+      const density = (nm: number, c: number, s: number) =>
+        (Math.exp(-0.5 * ((HC_EV_NM / nm - c) / s) ** 2) * HC_EV_NM) / (nm * nm);
+      for (const [c, w] of LINES) {
+        const s = w / GAUSSIAN_FWHM_PER_SIGMA;
+        const peakNm = peakNmOfLine(c, w);
+        const half = density(peakNm, c, s) / 2;
+        const cross = (outsideNm: number) => {
+          let inside = peakNm;
+          let outside = outsideNm;
+          for (let k = 0; k < 200; k++) {
+            const mid = 0.5 * (inside + outside);
+            if (density(mid, c, s) > half) inside = mid;
+            else outside = mid;
+          }
+          return 0.5 * (inside + outside);
+        };
+        const reference = cross(HC_EV_NM / Math.max(c - 10 * w, c / 100)) - cross(HC_EV_NM / (c + 10 * w));
+        expect(Math.abs(fwhmNmOfLine(c, w) - reference) / reference).toBeLessThan(1e-10);
+      }
+    },
+  );
 });
 
 describe('cold path: sizing inversion', () => {
@@ -121,7 +126,7 @@ describe('cold path: sizing inversion', () => {
     },
   );
 
-  it('firstExcitonNmForDiameter(cdte, d) agrees with a plain 200-step bisection of the published D(λ) to 1e-9 nm', () => {
+  it('firstExcitonNmForDiameter(cdte, d) agrees with a 200-step bisection of the published D(λ) to 1e-9 nm', () => {
     for (let d = 2; d <= 7; d += 0.05) {
       let [lo, hi] = YU_2003.cdte.bracketNm as readonly number[];
       for (let k = 0; k < 200; k++) {
@@ -137,7 +142,8 @@ describe('cold path: sizing inversion', () => {
 describe('cold path: filter edges', () => {
   const logistic = (x: number) => 1 / (1 + Math.exp(-x));
   it.each([2, 6, 12])(
-    'filterTransmission(longpass, shortpass at OD %s) equals the plain logistic formula at 1e-11 relative on every grid point',
+    'filterTransmission(longpass, shortpass at OD %s) equals the plain logistic formula at 1e-11 relative on every ' +
+      'grid point',
     (od) => {
       for (const grid of [DEFAULT_GRID, makeGrid(300, 1000, 0.2)]) {
         for (const edgeWidthNm of [0.5, 2, 10]) {
@@ -180,30 +186,38 @@ describe('cold path: a whole evaluation', () => {
     })),
   };
 
-  it('evaluatePanel collected at OD 12 equals a naive full-grid sum of panelSpectra arrays × ε × QY to 1e-12 relative', () => {
-    const ev = evaluatePanel(panel, { sensitivity: false });
-    const spectra = panelSpectra(panel);
-    ev.probes.forEach((probe, p) => {
-      const weight = probe.extinctionAtLines.reduce(
-        (s, eps, l) => s + (panel.excitation[l].powerRel ?? 1) * eps * probe.quantumYield,
-        0,
-      );
-      spectra.channels.forEach((channel, c) => {
-        let naive = 0;
-        for (let i = 0; i < spectra.count; i++) naive += spectra.emission[p].values[i] * channel.values[i];
-        naive *= weight * spectra.stepNm;
-        expect(Math.abs(ev.collected[c][p] - naive) / naive).toBeLessThan(1e-12);
+  it(
+    'evaluatePanel collected at OD 12 equals a naive full-grid sum of panelSpectra arrays × ε × QY to 1e-12 ' +
+      'relative',
+    () => {
+      const ev = evaluatePanel(panel, { sensitivity: false });
+      const spectra = panelSpectra(panel);
+      ev.probes.forEach((probe, p) => {
+        const weight = probe.extinctionAtLines.reduce(
+          (s, eps, l) => s + (panel.excitation[l].powerRel ?? 1) * eps * probe.quantumYield,
+          0,
+        );
+        spectra.channels.forEach((channel, c) => {
+          let naive = 0;
+          for (let i = 0; i < spectra.count; i++) naive += spectra.emission[p].values[i] * channel.values[i];
+          naive *= weight * spectra.stepNm;
+          expect(Math.abs(ev.collected[c][p] - naive) / naive).toBeLessThan(1e-12);
+        });
       });
-    });
-  });
+    },
+  );
 
-  it('resolveDot(cdse 605 nm) puts its per-nm emission peak at 605 nm to 0.5 nm on the grid (centre placed from the peak)', () => {
-    const dot = resolveDot({ material: 'cdse', emissionPeakNm: 605 });
-    let k = 0;
-    dot.emission.values.forEach((v, i) => {
-      if (v > dot.emission.values[k]) k = i;
-    });
-    expect(Math.abs(dot.emission.startNm + k * dot.emission.stepNm - 605)).toBeLessThanOrEqual(0.5);
-    expect(peakNmOfLine(centerEvForPeakNm(605, 0.1), 0.1)).toBeCloseTo(605, 9);
-  });
+  it(
+    'resolveDot(cdse 605 nm) puts its per-nm emission peak at 605 nm to 0.5 nm on the grid (centre placed from the ' +
+      'peak)',
+    () => {
+      const dot = resolveDot({ material: 'cdse', emissionPeakNm: 605 });
+      let k = 0;
+      dot.emission.values.forEach((v, i) => {
+        if (v > dot.emission.values[k]) k = i;
+      });
+      expect(Math.abs(dot.emission.startNm + k * dot.emission.stepNm - 605)).toBeLessThanOrEqual(0.5);
+      expect(peakNmOfLine(centerEvForPeakNm(605, 0.1), 0.1)).toBeCloseTo(605, 9);
+    },
+  );
 });

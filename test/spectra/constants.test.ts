@@ -51,12 +51,18 @@ describe('constants (CODATA 2018 via mathjs)', () => {
     expect(HC_EV_NM).toBeCloseTo(1239.841984, 5);
   });
 
-  it('CONFINEMENT_EV_NM2 and COULOMB_EV_NM match ħ²π²/2mₑ = 0.376030 eV nm² and e²/4πε0 = 1.439965 eV nm (science notes, C)', () => {
-    const hbar = h / (2 * Math.PI);
-    expect(Math.abs(CONFINEMENT_EV_NM2 / (((hbar ** 2 * Math.PI ** 2) / (2 * me) / e) * 1e18) - 1)).toBeLessThan(1e-12);
-    expect(CONFINEMENT_EV_NM2).toBeCloseTo(0.37603, 5);
-    expect(COULOMB_EV_NM).toBeCloseTo(1.439965, 5);
-  });
+  it(
+    'CONFINEMENT_EV_NM2 and COULOMB_EV_NM match ħ²π²/2mₑ = 0.376030 eV nm² and e²/4πε0 = 1.439965 eV nm (science ' +
+      'notes, C)',
+    () => {
+      const hbar = h / (2 * Math.PI);
+      expect(Math.abs(CONFINEMENT_EV_NM2 / (((hbar ** 2 * Math.PI ** 2) / (2 * me) / e) * 1e18) - 1)).toBeLessThan(
+        1e-12,
+      );
+      expect(CONFINEMENT_EV_NM2).toBeCloseTo(0.37603, 5);
+      expect(COULOMB_EV_NM).toBeCloseTo(1.439965, 5);
+    },
+  );
 
   it('GAUSSIAN_FWHM_PER_SIGMA is 2√(2 ln 2) ≈ 2.3548 (exact mathematics)', () => {
     expect(GAUSSIAN_FWHM_PER_SIGMA).toBeCloseTo(2.354820045, 8);

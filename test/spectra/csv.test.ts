@@ -60,7 +60,7 @@ describe('parseSpectrumCsv', () => {
     expect(out.warnings).toHaveLength(1);
   });
 
-  it('parseSpectrumCsv resamples more than 1,000 rows to 1,000 evenly spaced points, exactly for a linear table', () => {
+  it('parseSpectrumCsv resamples over 1,000 rows to 1,000 evenly spaced points, exactly for a linear table', () => {
     const text = Array.from({ length: 2001 }, (_, i) => `${400 + i * 0.2},${0.1 + i * 0.0004}`).join('\n');
     const out = parseSpectrumCsv(text);
     expect(out.points).toHaveLength(1000);
@@ -70,7 +70,7 @@ describe('parseSpectrumCsv', () => {
     expect(out.warnings.join(' ')).toMatch(/resampled from 2001 to 1000/);
   });
 
-  it('parseSpectrumCsv rejects an empty table, a ragged row, a row out of order and a bad number, naming the line', () => {
+  it('parseSpectrumCsv rejects an empty table, a ragged row, a row out of order, a bad number, naming the line', () => {
     expect(errorOf(() => parseSpectrumCsv('')).code).toBe('invalid_table');
     expect(errorOf(() => parseSpectrumCsv('nm,T\n500,0.5')).message).toMatch(/at least 2 data rows/);
     const ragged = errorOf(() => parseSpectrumCsv('nm,T\n500,0.5\n510,0.6,7\n520,0.7'));
@@ -80,7 +80,7 @@ describe('parseSpectrumCsv', () => {
     expect(order.path).toEqual(['line', 3]);
     expect(order.message).toMatch(/out of order/);
     expect(errorOf(() => parseSpectrumCsv('500,0.5\n510,0.6\n520,0.7\n530,abc')).path).toEqual(['line', 4]);
-    expect(errorOf(() => parseSpectrumCsv('500,0.5\n510,' + '1'.repeat(300))).path).toEqual(['line', 2]);
+    expect(errorOf(() => parseSpectrumCsv('500,0.5\n510,1'.repeat(300))).path).toEqual(['line', 2]);
     expect(errorOf(() => parseSpectrumCsv('500,5e4\n510,-1', { kind: 'extinction' })).path).toEqual(['line', 2]);
   });
 });

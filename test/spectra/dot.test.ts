@@ -62,15 +62,19 @@ describe('resolveDot: model spectra', () => {
     expect(dot.model).toContain('Yu–Qu–Guo–Peng 2003');
   });
 
-  it('resolveDot(cdte) FWHM is smooth and finite across 2–7 nm, without a spike where the published curve is flat (~3.3–3.8 nm)', () => {
-    const widths: number[] = [];
-    for (let d = 2; d <= 7 + 1e-9; d += 0.02) widths.push(resolveDot({ material: 'cdte', diameterNm: d }).fwhmNm);
-    expect(widths.every(Number.isFinite)).toBe(true);
-    for (let i = 1; i < widths.length; i++)
-      expect(Math.abs(widths[i] - widths[i - 1])).toBeLessThan(0.01 * widths[i - 1]);
-    for (let i = 1; i < widths.length - 1; i++)
-      expect(Math.abs(widths[i + 1] - 2 * widths[i] + widths[i - 1])).toBeLessThan(0.02);
-  });
+  it(
+    'resolveDot(cdte) FWHM is smooth and finite across 2–7 nm, without a spike where the published curve is flat ' +
+      '(~3.3–3.8 nm)',
+    () => {
+      const widths: number[] = [];
+      for (let d = 2; d <= 7 + 1e-9; d += 0.02) widths.push(resolveDot({ material: 'cdte', diameterNm: d }).fwhmNm);
+      expect(widths.every(Number.isFinite)).toBe(true);
+      for (let i = 1; i < widths.length; i++)
+        expect(Math.abs(widths[i] - widths[i - 1])).toBeLessThan(0.01 * widths[i - 1]);
+      for (let i = 1; i < widths.length - 1; i++)
+        expect(Math.abs(widths[i + 1] - 2 * widths[i] + widths[i - 1])).toBeLessThan(0.02);
+    },
+  );
 
   it('resolveDot(cdse) FWHM grows with sizeDispersionPct and equals the homogeneous width alone at 0 %', () => {
     const w = [0, 5, 10, 15].map((p) => resolveDot({ material: 'cdse', diameterNm: 4, sizeDispersionPct: p }).fwhmNm);
@@ -85,7 +89,8 @@ describe('resolveDot: model spectra', () => {
     ['inp', 45],
     ['cspbbr3', 20],
   ] as const)(
-    'resolveDot(%s) mid-range at typical dispersion has a FWHM within 35 percent of the typical %s nm (science notes, mostly from memory)',
+    'resolveDot(%s) mid-range at typical dispersion has a FWHM within 35 percent of the typical %s nm (science ' +
+      'notes, mostly from memory)',
     (m, typical) => {
       const mat = listMaterials().find((x) => x.id === m)!;
       const [lo, hi] = mat.emissionRangeNm!;
@@ -154,11 +159,15 @@ describe('resolveDot: measured data first', () => {
     expect(dot.model.startsWith('measured emission')).toBe(true);
   });
 
-  it('resolveDot(cdse, 620 nm) with a measured emission at 560 nm keeps the measured shape and warns about the mismatch', () => {
-    const dot = resolveDot({ material: 'cdse', emissionPeakNm: 620, measuredEmission: { points } });
-    expect(dot.emissionPeakNm).toBeCloseTo(560, 1);
-    expect(dot.warnings.join(' ')).toMatch(/measured emission peaks at/);
-  });
+  it(
+    'resolveDot(cdse, 620 nm) with a measured emission at 560 nm keeps the measured shape and warns about the ' +
+      'mismatch',
+    () => {
+      const dot = resolveDot({ material: 'cdse', emissionPeakNm: 620, measuredEmission: { points } });
+      expect(dot.emissionPeakNm).toBeCloseTo(560, 1);
+      expect(dot.warnings.join(' ')).toMatch(/measured emission peaks at/);
+    },
+  );
 });
 
 // Input the API's schema refuses (both sizes, negative or NaN numbers, unknown materials, bad tables) never reaches

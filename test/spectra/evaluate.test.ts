@@ -12,7 +12,8 @@ import {
 } from '../../spectra/index';
 import type { ChannelSpec, PanelSpec, ProbeSpec } from '../../spectra/index';
 
-/** A made-up probe with a measured Gaussian emission (σ in nm) and a flat measured extinction, so no size law is involved. */
+/** A made-up probe with a measured Gaussian emission (σ in nm) and a flat measured extinction, so no size law is
+ * involved. */
 function gaussianProbe(id: string, peakNm: number, sigmaNm: number, extra: Partial<ProbeSpec> = {}): ProbeSpec {
   const points: [number, number][] = [];
   for (let nm = Math.max(301, peakNm - 8 * sigmaNm); nm <= Math.min(999, peakNm + 8 * sigmaNm); nm += 1) {
@@ -76,7 +77,7 @@ const fourProbePanel = (): PanelSpec => ({
 
 describe('evaluatePanel: the signal model', () => {
   // Closed form: ∫ N(μ, σ²) over [a, b] = ½[erf((b−μ)/σ√2) − erf((a−μ)/σ√2)], erf from @stdlib/math-base-special-erf.
-  it('evaluatePanel(one Gaussian probe, ideal 605/20) collects powerRel × ε × QY × abundance × the erf closed form', () => {
+  it('evaluatePanel(one Gaussian probe, ideal 605/20) collects powerRel × ε × QY × abundance × erf closed form', () => {
     const grid = makeGrid(480, 730, 0.0625);
     const panel: PanelSpec = {
       version: 1,
@@ -200,7 +201,7 @@ describe('evaluatePanel: crosstalk figures', () => {
     expectJsonSafe(ev);
   });
 
-  it('evaluatePanel counts both of two lines 0.3 nm apart when a channel names both (each name is its own line)', () => {
+  it('evaluatePanel counts both of two lines 0.3 nm apart when a channel names both (each is its own line)', () => {
     const probe = gaussianProbe('g', 560, 12);
     const panelWith = (excitationNm: number[]): PanelSpec => ({
       excitation: [{ wavelengthNm: 494.5 }, { wavelengthNm: 494.2, powerRel: 2 }],
@@ -223,7 +224,7 @@ describe('evaluatePanel: crosstalk figures', () => {
     expect(ev.spillover[0][0]!).toBeGreaterThan(1);
   });
 
-  it('evaluatePanel gives null, not NaN, for the figures of two identical probes and of a probe no line excites', () => {
+  it('evaluatePanel gives null, not NaN, for figures of two identical probes and of a probe no line excites', () => {
     const panel: PanelSpec = {
       version: 1,
       excitation: [{ wavelengthNm: 405 }],

@@ -42,25 +42,29 @@ describe('filterTransmission', () => {
     }
   });
 
-  it('filterTransmission(bandpass) peaks at peakTransmission and is half of it at centre ± width/2 (common practice: width = FWHM)', () => {
-    const grid = makeGrid(560, 640, 0.02);
-    for (const [widthNm, edgeWidthNm] of [
-      [20, 2],
-      [10, 2],
-      [3, 3],
-      [40, 8],
-    ]) {
-      const t = filterTransmission(
-        { type: 'bandpass', centerNm: 600, widthNm, edgeWidthNm, peakTransmission: 0.9 },
-        grid,
-      );
-      expect(at(t, grid, 600)).toBeCloseTo(0.9, 9);
-      expect(Math.max(...t)).toBeCloseTo(0.9, 9);
-      const floor = 1e-6;
-      expect(at(t, grid, 600 - widthNm / 2)).toBeCloseTo(floor + (0.9 - floor) / 2, 9);
-      expect(at(t, grid, 600 + widthNm / 2)).toBeCloseTo(floor + (0.9 - floor) / 2, 9);
-    }
-  });
+  it(
+    'filterTransmission(bandpass) peaks at peakTransmission and is half of it at centre ± width/2 (common practice: ' +
+      'width = FWHM)',
+    () => {
+      const grid = makeGrid(560, 640, 0.02);
+      for (const [widthNm, edgeWidthNm] of [
+        [20, 2],
+        [10, 2],
+        [3, 3],
+        [40, 8],
+      ]) {
+        const t = filterTransmission(
+          { type: 'bandpass', centerNm: 600, widthNm, edgeWidthNm, peakTransmission: 0.9 },
+          grid,
+        );
+        expect(at(t, grid, 600)).toBeCloseTo(0.9, 9);
+        expect(Math.max(...t)).toBeCloseTo(0.9, 9);
+        const floor = 1e-6;
+        expect(at(t, grid, 600 - widthNm / 2)).toBeCloseTo(floor + (0.9 - floor) / 2, 9);
+        expect(at(t, grid, 600 + widthNm / 2)).toBeCloseTo(floor + (0.9 - floor) / 2, 9);
+      }
+    },
+  );
 
   it('filterTransmission(longpass) rises from 10 % to 90 % over exactly edgeWidthNm, centred on edgeNm', () => {
     const grid = makeGrid(580, 620, 0.01);
@@ -84,18 +88,22 @@ describe('filterTransmission', () => {
     expect(t.every((v) => v >= 1e-6 && v <= 0.93 + 1e-15)).toBe(true);
   });
 
-  it('filterTransmission(shortpass) mirrors a longpass about its edge, and a dichroic passing above matches a longpass', () => {
-    const grid = makeGrid(500, 700, 0.5);
-    const options = { edgeWidthNm: 3, peakTransmission: 0.9, blockingOD: 4 };
-    const lp = filterTransmission({ type: 'longpass', edgeNm: 600, ...options }, grid);
-    const sp = filterTransmission({ type: 'shortpass', edgeNm: 600, ...options }, grid);
-    for (let k = 0; k <= 200; k++) expect(sp[200 - k]).toBeCloseTo(lp[200 + k], 12);
-    const di = filterTransmission({ type: 'dichroic', edgeNm: 600, passes: 'above', ...options }, grid);
-    expect(Array.from(di)).toEqual(Array.from(lp));
-    const diDefault = filterTransmission({ type: 'dichroic', edgeNm: 600, passes: 'below' }, grid);
-    expect(at(diDefault, grid, 500)).toBeCloseTo(0.95, 12);
-    expect(at(diDefault, grid, 700)).toBeCloseTo(0.01, 12); // dichroic default OD 2
-  });
+  it(
+    'filterTransmission(shortpass) mirrors a longpass about its edge, and a dichroic passing above matches a ' +
+      'longpass',
+    () => {
+      const grid = makeGrid(500, 700, 0.5);
+      const options = { edgeWidthNm: 3, peakTransmission: 0.9, blockingOD: 4 };
+      const lp = filterTransmission({ type: 'longpass', edgeNm: 600, ...options }, grid);
+      const sp = filterTransmission({ type: 'shortpass', edgeNm: 600, ...options }, grid);
+      for (let k = 0; k <= 200; k++) expect(sp[200 - k]).toBeCloseTo(lp[200 + k], 12);
+      const di = filterTransmission({ type: 'dichroic', edgeNm: 600, passes: 'above', ...options }, grid);
+      expect(Array.from(di)).toEqual(Array.from(lp));
+      const diDefault = filterTransmission({ type: 'dichroic', edgeNm: 600, passes: 'below' }, grid);
+      expect(at(diDefault, grid, 500)).toBeCloseTo(0.95, 12);
+      expect(at(diDefault, grid, 700)).toBeCloseTo(0.01, 12); // dichroic default OD 2
+    },
+  );
 
   it('filterTransmission(table) interpolates linearly and holds the end values beyond the table', () => {
     const grid = makeGrid(400, 800, 1);

@@ -48,7 +48,8 @@ describe('gaussianDensityPerNm (Gaussian in energy with the hc/λ² Jacobian)', 
   );
 
   it.each(lines)(
-    'gaussianDensityPerNm(%s eV, %s eV) over a wavelength band equals the erf closed form over the matching energy band (@stdlib erf)',
+    'gaussianDensityPerNm(%s eV, %s eV) over a wavelength band equals the erf closed form over the matching energy ' +
+      'band (@stdlib erf)',
     (c, w) => {
       const sigma = w / GAUSSIAN_FWHM_PER_SIGMA;
       const [aNm, bNm] = [HC_EV_NM / (c + 0.7 * w), HC_EV_NM / (c - 0.2 * w)];
@@ -117,12 +118,16 @@ describe('gaussianDensityPerNm (Gaussian in energy with the hc/λ² Jacobian)', 
 });
 
 describe('sampleGaussianLine', () => {
-  it('sampleGaussianLine(default grid) has sum × step = 1 and its raw Riemann area is 1 within 1e-6 before renormalising', () => {
-    const grid = makeGrid(300, 1000, 1);
-    const { spectrum, areaOnGrid } = sampleGaussianLine(grid, 2.05, 0.09);
-    expect(spectrum.values.reduce((a, b) => a + b, 0) * spectrum.stepNm).toBeCloseTo(1, 12);
-    expect(areaOnGrid).toBeCloseTo(1, 6);
-  });
+  it(
+    'sampleGaussianLine(default grid) has sum × step = 1 and its raw Riemann area is 1 within 1e-6 before ' +
+      'renormalising',
+    () => {
+      const grid = makeGrid(300, 1000, 1);
+      const { spectrum, areaOnGrid } = sampleGaussianLine(grid, 2.05, 0.09);
+      expect(spectrum.values.reduce((a, b) => a + b, 0) * spectrum.stepNm).toBeCloseTo(1, 12);
+      expect(areaOnGrid).toBeCloseTo(1, 6);
+    },
+  );
 
   it('sampleGaussianLine on a grid that cuts the line reports the fraction kept', () => {
     const c = centerEvForPeakNm(605, 0.09);

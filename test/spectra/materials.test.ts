@@ -4,7 +4,8 @@ import { MATERIAL_IDS, emissionRangeForMaterialNm, listMaterials } from '../../s
 const material = (id: string) => listMaterials().find((m) => m.id === id)!;
 const text = (m: ReturnType<typeof material>) => [...m.toxicity.notes, ...m.toxicity.cautions, ...m.warnings].join(' ');
 
-// IUPAC standard atomic weights (abridged, 2021; values from memory, unverified): mass fractions of the hazardous metal.
+// IUPAC standard atomic weights (abridged, 2021; values from memory, unverified): mass fractions of the hazardous
+// metal.
 const W = { Cd: 112.414, Se: 78.971, Te: 127.6, S: 32.06, Cs: 132.905, Pb: 207.2, Br: 79.904 };
 
 describe('listMaterials', () => {
@@ -30,7 +31,7 @@ describe('listMaterials', () => {
     }
   });
 
-  it('listMaterials() gives sources for every material but custom, and names the sizing model of every sized one', () => {
+  it('listMaterials() gives sources for every material but custom, and the sizing model of every sized one', () => {
     for (const m of listMaterials()) {
       if (m.id !== 'custom') expect(m.sources.length).toBeGreaterThan(0);
       if (m.diameterRangeNm) expect(m.sizingModel).toMatch(/Yu–Qu–Guo–Peng 2003|Almeida et al\. 2023|Brus 1984/);
@@ -75,12 +76,16 @@ describe('listMaterials', () => {
     expect(material('custom').toxicity.cautions.join(' ')).toMatch(/supplier's safety data sheet/);
   });
 
-  it('listMaterials() cautions all defer to local regulations, institutional rules and licensed practice, and nothing is called safe', () => {
-    for (const m of listMaterials()) {
-      expect(m.toxicity.cautions.join(' ')).toMatch(/local regulations.*institution.*licensed practice/);
-      expect(text(m)).not.toMatch(/\bsafe\b/i);
-    }
-  });
+  it(
+    'listMaterials() cautions all defer to local regulations, institutional rules and licensed practice, and ' +
+      'nothing is called safe',
+    () => {
+      for (const m of listMaterials()) {
+        expect(m.toxicity.cautions.join(' ')).toMatch(/local regulations.*institution.*licensed practice/);
+        expect(text(m)).not.toMatch(/\bsafe\b/i);
+      }
+    },
+  );
 
   it.each([
     ['cdse', 'Cd', W.Cd / (W.Cd + W.Se)],

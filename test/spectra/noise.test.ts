@@ -53,20 +53,24 @@ describe('unmixing noise prediction', () => {
     reference.forEach((row, i) => row.forEach((x, j) => expect(predicted[i][j]!).toBeCloseTo(x, 12)));
   });
 
-  it('predictUnmixingNoise agrees with simulateUnmixing (40,000 seeded draws) within 4.5 standard errors of each sample covariance', () => {
-    const predicted = predictUnmixingNoise(design).covariance;
-    const mc = simulateUnmixing(design, { draws: 40_000, seed: 12345 });
-    // Standard error of a sample covariance from the same draws: √((m₂₂ − s²)/N) (large-sample theory of moments).
-    mc.covariance!.forEach((row, i) =>
-      row.forEach((s, j) =>
-        expect(Math.abs(s - predicted[i][j]!)).toBeLessThan(4.5 * mc.covarianceStandardError![i][j]),
-      ),
-    );
-    // The unmixed mean is unbiased: within 4.5 standard errors of the true abundance.
-    mc.mean!.forEach((x, i) =>
-      expect(Math.abs(x - design.abundance[i])).toBeLessThan(4.5 * Math.sqrt(predicted[i][i]! / 40_000)),
-    );
-  });
+  it(
+    'predictUnmixingNoise agrees with simulateUnmixing (40,000 seeded draws) within 4.5 standard errors of each ' +
+      'sample covariance',
+    () => {
+      const predicted = predictUnmixingNoise(design).covariance;
+      const mc = simulateUnmixing(design, { draws: 40_000, seed: 12345 });
+      // Standard error of a sample covariance from the same draws: √((m₂₂ − s²)/N) (large-sample theory of moments).
+      mc.covariance!.forEach((row, i) =>
+        row.forEach((s, j) =>
+          expect(Math.abs(s - predicted[i][j]!)).toBeLessThan(4.5 * mc.covarianceStandardError![i][j]),
+        ),
+      );
+      // The unmixed mean is unbiased: within 4.5 standard errors of the true abundance.
+      mc.mean!.forEach((x, i) =>
+        expect(Math.abs(x - design.abundance[i])).toBeLessThan(4.5 * Math.sqrt(predicted[i][i]! / 40_000)),
+      );
+    },
+  );
 
   it('simulateUnmixing with the same seed gives the same figures, and a different seed different ones', () => {
     const a = simulateUnmixing(design, { draws: 500, seed: 3 });
@@ -82,19 +86,23 @@ describe('unmixing noise prediction', () => {
     one.sd.forEach((s, i) => expect(two.sd[i]!).toBeCloseTo(Math.SQRT2 * s!, 10));
   });
 
-  it('predictUnmixingNoise spreading is 1 on the diagonal and 0 off it for perfectly separated probes (ideal detector)', () => {
-    const separated = predictUnmixingNoise({
-      mixingPhotons: [
-        [500, 0],
-        [0, 80],
-        [0, 0],
-      ],
-      abundance: [1, 1],
-    });
-    expect(separated.spreading[0][0]).toBeCloseTo(1, 12);
-    expect(separated.spreading[1][1]).toBeCloseTo(1, 12);
-    expect(separated.spreading[0][1]).toBeCloseTo(0, 12);
-  });
+  it(
+    'predictUnmixingNoise spreading is 1 on the diagonal and 0 off it for perfectly separated probes (ideal ' +
+      'detector)',
+    () => {
+      const separated = predictUnmixingNoise({
+        mixingPhotons: [
+          [500, 0],
+          [0, 80],
+          [0, 0],
+        ],
+        abundance: [1, 1],
+      });
+      expect(separated.spreading[0][0]).toBeCloseTo(1, 12);
+      expect(separated.spreading[1][1]).toBeCloseTo(1, 12);
+      expect(separated.spreading[0][1]).toBeCloseTo(0, 12);
+    },
+  );
 
   it('predictUnmixingNoise spreading predicts the extra SD that adding target j brings to target i', () => {
     const without = predictUnmixingNoise({ ...design, abundance: [1, 0, 0.6] });

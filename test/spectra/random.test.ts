@@ -31,7 +31,8 @@ describe('seeded random source', () => {
     const { mean, variance } = moments(xs);
     expect(xs.reduce((m, x) => Math.min(m, x), 1)).toBeGreaterThan(0);
     expect(xs.reduce((m, x) => Math.max(m, x), 0)).toBeLessThan(1);
-    // Uniform(0,1): SD of the mean √(1/12/n); SD of the sample variance √((1/80 − 1/144)/n) (fourth central moment 1/80).
+    // Uniform(0,1): SD of the mean √(1/12/n); SD of the sample variance √((1/80 − 1/144)/n) (fourth central moment
+    // 1/80).
     expect(Math.abs(mean - 0.5)).toBeLessThan(5 * Math.sqrt(1 / 12 / n));
     expect(Math.abs(variance - 1 / 12)).toBeLessThan(5 * Math.sqrt((1 / 80 - 1 / 144) / n));
   });

@@ -49,9 +49,13 @@ describe('Yu–Qu–Guo–Peng 2003 curves', () => {
     );
   }
 
-  it('firstExcitonNmForDiameter(cdte) jumps by over 40 nm between 3.3 and 3.8 nm, where the published curve is nearly flat in D', () => {
-    expect(firstExcitonNmForDiameter('cdte', 3.8) - firstExcitonNmForDiameter('cdte', 3.3)).toBeGreaterThan(40);
-  });
+  it(
+    'firstExcitonNmForDiameter(cdte) jumps by over 40 nm between 3.3 and 3.8 nm, where the published curve is ' +
+      'nearly flat in D',
+    () => {
+      expect(firstExcitonNmForDiameter('cdte', 3.8) - firstExcitonNmForDiameter('cdte', 3.3)).toBeGreaterThan(40);
+    },
+  );
 });
 
 describe('size ↔ emission peak', () => {
@@ -73,39 +77,62 @@ describe('size ↔ emission peak', () => {
     }
   });
 
-  it('emissionPeakForDiameterNm(cdse, d) − firstExcitonNmForDiameter lies in 10–25 nm and shrinks with size (Stokes shift, from memory)', () => {
-    const shifts = [2, 3, 4, 5, 6, 7, 8].map(
-      (d) => emissionPeakForDiameterNm('cdse', d) - firstExcitonNmForDiameter('cdse', d),
-    );
-    for (const s of shifts) (expect(s).toBeGreaterThanOrEqual(10), expect(s).toBeLessThanOrEqual(25));
-    expect(shifts[0]).toBeGreaterThan(shifts[shifts.length - 1]);
-  });
+  it(
+    'emissionPeakForDiameterNm(cdse, d) − firstExcitonNmForDiameter lies in 10–25 nm and shrinks with size (Stokes ' +
+      'shift, from memory)',
+    () => {
+      const shifts = [2, 3, 4, 5, 6, 7, 8].map(
+        (d) => emissionPeakForDiameterNm('cdse', d) - firstExcitonNmForDiameter('cdse', d),
+      );
+      for (const s of shifts) {
+        expect(s).toBeGreaterThanOrEqual(10);
+        expect(s).toBeLessThanOrEqual(25);
+      }
+      expect(shifts[0]).toBeGreaterThan(shifts[shifts.length - 1]);
+    },
+  );
 
-  it('emissionPeakForDiameterNm(cdse, 4 nm) lies between 590 and 610 nm (Yu curve: first exciton ≈ 585 nm, plus the Stokes shift)', () => {
-    const p = emissionPeakForDiameterNm('cdse', 4);
-    expect(p).toBeGreaterThan(590);
-    expect(p).toBeLessThan(610);
-  });
+  it(
+    'emissionPeakForDiameterNm(cdse, 4 nm) lies between 590 and 610 nm (Yu curve: first exciton ≈ 585 nm, plus the ' +
+      'Stokes shift)',
+    () => {
+      const p = emissionPeakForDiameterNm('cdse', 4);
+      expect(p).toBeGreaterThan(590);
+      expect(p).toBeLessThan(610);
+    },
+  );
 
-  it('diameter ranges lie within about 1–16 nm and each overlaps 2–10 nm (common practice: colloidal dots span about 2–10 nm)', () => {
-    for (const m of listMaterials().filter((x) => x.diameterRangeNm)) {
-      const [lo, hi] = m.diameterRangeNm!;
-      expect(lo).toBeGreaterThanOrEqual(1);
-      expect(hi).toBeLessThanOrEqual(16);
-      expect(Math.min(hi, 10) - Math.max(lo, 2)).toBeGreaterThan(0);
-    }
-  });
+  it(
+    'diameter ranges lie within about 1–16 nm and each overlaps 2–10 nm (common practice: colloidal dots span about ' +
+      '2–10 nm)',
+    () => {
+      for (const m of listMaterials().filter((x) => x.diameterRangeNm)) {
+        const [lo, hi] = m.diameterRangeNm!;
+        expect(lo).toBeGreaterThanOrEqual(1);
+        expect(hi).toBeLessThanOrEqual(16);
+        expect(Math.min(hi, 10) - Math.max(lo, 2)).toBeGreaterThan(0);
+      }
+    },
+  );
 
-  it('emissionRangeForMaterialNm over CdSe, CdTe, CdS and InP together covers 450–650 nm (common practice: they cover the visible)', () => {
-    const ranges = (['cdse', 'cdte', 'cds', 'inp'] as const).map((m) => emissionRangeForMaterialNm(m));
-    for (let nm = 450; nm <= 650; nm += 5) expect(ranges.some(([lo, hi]) => lo <= nm && nm <= hi)).toBe(true);
-  });
+  it(
+    'emissionRangeForMaterialNm over CdSe, CdTe, CdS and InP together covers 450–650 nm (common practice: they ' +
+      'cover the visible)',
+    () => {
+      const ranges = (['cdse', 'cdte', 'cds', 'inp'] as const).map((m) => emissionRangeForMaterialNm(m));
+      for (let nm = 450; nm <= 650; nm += 5) expect(ranges.some(([lo, hi]) => lo <= nm && nm <= hi)).toBe(true);
+    },
+  );
 
-  it('emissionRangeForMaterialNm(cspbbr3) sits in the blue-green, within 460–540 nm (common practice; Protesescu et al. 2015)', () => {
-    const [lo, hi] = emissionRangeForMaterialNm('cspbbr3');
-    expect(lo).toBeGreaterThanOrEqual(460);
-    expect(hi).toBeLessThanOrEqual(540);
-  });
+  it(
+    'emissionRangeForMaterialNm(cspbbr3) sits in the blue-green, within 460–540 nm (common practice; Protesescu et ' +
+      'al. 2015)',
+    () => {
+      const [lo, hi] = emissionRangeForMaterialNm('cspbbr3');
+      expect(lo).toBeGreaterThanOrEqual(460);
+      expect(hi).toBeLessThanOrEqual(540);
+    },
+  );
 });
 
 describe('sizing errors', () => {

@@ -43,7 +43,7 @@ describe('conditionNumber and noiseAmplification', () => {
   });
 
   // Derived by hand: unit columns at cosine c give NᵀN = [[1, c], [c, 1]], eigenvalues 1 ± c, (NᵀN)⁻¹jj = 1/(1 − c²).
-  it('conditionNumber and noiseAmplification of two unit signatures at cosine c are √((1+c)/(1−c)) and 1/√(1−c²)', () => {
+  it('conditionNumber, noiseAmplification of two unit signatures at cosine c: √((1+c)/(1−c)) and 1/√(1−c²)', () => {
     for (const c of [0, 0.3, 0.9, 0.999]) {
       const m = [
         [1, c],
@@ -71,13 +71,17 @@ describe('conditionNumber and noiseAmplification', () => {
     }
   });
 
-  it('conditionNumber is null (never NaN or Infinity) for a rank-deficient M, a zero column, or more probes than channels', () => {
-    const base = randomMatrix(6, 3, 5, true);
-    expect(conditionNumber(base.map((row) => [row[0], row[1], row[0] * 3]))).toBeNull();
-    expect(conditionNumber(base.map((row) => [row[0], 0, row[2]]))).toBeNull();
-    expect(conditionNumber(randomMatrix(3, 4, 6, true))).toBeNull();
-    expect(noiseAmplification(randomMatrix(3, 4, 6, true))).toEqual([null, null, null, null]);
-  });
+  it(
+    'conditionNumber is null (never NaN or Infinity) for a rank-deficient M, a zero column, or more probes than ' +
+      'channels',
+    () => {
+      const base = randomMatrix(6, 3, 5, true);
+      expect(conditionNumber(base.map((row) => [row[0], row[1], row[0] * 3]))).toBeNull();
+      expect(conditionNumber(base.map((row) => [row[0], 0, row[2]]))).toBeNull();
+      expect(conditionNumber(randomMatrix(3, 4, 6, true))).toBeNull();
+      expect(noiseAmplification(randomMatrix(3, 4, 6, true))).toEqual([null, null, null, null]);
+    },
+  );
 });
 
 describe('unmixLeastSquares', () => {

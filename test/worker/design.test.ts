@@ -50,7 +50,7 @@ describe('POST /api/v1/panels/design', () => {
     expect(body.noise.sd.every((x: number | null) => typeof x === 'number' && x > 0)).toBe(true);
   });
 
-  it('POST /panels/design with nodeBudget 1 answers exact false with a bound no higher than the exact objective', async () => {
+  it('POST /panels/design with nodeBudget 1: exact false and a bound no higher than the exact objective', async () => {
     const exact = (await (await design(catalogRequest())).json()) as any;
     const cut = (await (await design({ ...catalogRequest(), options: { nodeBudget: 1 } })).json()) as any;
     expect(cut.exact).toBe(false);

@@ -80,7 +80,7 @@ describe('POST /api/v1/panels/evaluate', () => {
     expect(Array.isArray(body.warnings)).toBe(true);
   });
 
-  it('POST /api/v1/panels/evaluate of two identical probes gives a null condition number with a warning, never NaN', async () => {
+  it('POST /panels/evaluate of two identical probes: a null condition number with a warning, never NaN', async () => {
     const res = await postJson(worker, '/api/v1/panels/evaluate', twinPanel());
     expect(res.status).toBe(200);
     const text = await res.text();

@@ -36,8 +36,10 @@ function edited(pathIndex: number, edit: Edit): unknown {
   for (const key of path.slice(0, -1)) parent = parent[key];
   const last = path[path.length - 1];
   if (edit.kind === 'set') parent[last] = edit.value;
-  else if (edit.kind === 'delete') Array.isArray(parent) ? parent.splice(Number(last), 1) : delete parent[last];
-  else if (typeof parent[last] === 'object' && parent[last] !== null && !Array.isArray(parent[last]))
+  else if (edit.kind === 'delete') {
+    if (Array.isArray(parent)) parent.splice(Number(last), 1);
+    else delete parent[last];
+  } else if (typeof parent[last] === 'object' && parent[last] !== null && !Array.isArray(parent[last]))
     parent[last][edit.key] = edit.value;
   else parent[last] = { [edit.key]: edit.value };
   return panel;

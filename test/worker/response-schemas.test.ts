@@ -100,32 +100,36 @@ describe('POST /api/v1/panels/evaluate', () => {
     expect(body.worst).toEqual({ from: null, into: null, interference: null });
   });
 
-  it('POST /panels/evaluate of a panel whose channel sees nothing answers null primary channels and condition number', async () => {
-    const dark = {
-      id: 'c1',
-      filters: [
-        {
-          type: 'table',
-          points: [
-            [300, 0],
-            [1000, 0],
-          ],
-        },
-      ],
-    };
-    const probes = [
-      { id: 'p1', material: 'cdse', emissionPeakNm: 605 },
-      { id: 'p2', material: 'cdse', emissionPeakNm: 650 },
-    ];
-    const body = expectValid(
-      Evaluation,
-      await evaluate({ version: 1, excitation: line405, probes, channels: [dark] }),
-      'dark',
-    );
-    expect(body.primaryChannel).toEqual([null, null]);
-    expect(body.conditionNumber).toBeNull();
-    expect(body.noiseAmplification).toEqual([null, null]);
-  });
+  it(
+    'POST /panels/evaluate of a panel whose channel sees nothing answers null primary channels and condition ' +
+      'number',
+    async () => {
+      const dark = {
+        id: 'c1',
+        filters: [
+          {
+            type: 'table',
+            points: [
+              [300, 0],
+              [1000, 0],
+            ],
+          },
+        ],
+      };
+      const probes = [
+        { id: 'p1', material: 'cdse', emissionPeakNm: 605 },
+        { id: 'p2', material: 'cdse', emissionPeakNm: 650 },
+      ];
+      const body = expectValid(
+        Evaluation,
+        await evaluate({ version: 1, excitation: line405, probes, channels: [dark] }),
+        'dark',
+      );
+      expect(body.primaryChannel).toEqual([null, null]);
+      expect(body.conditionNumber).toBeNull();
+      expect(body.noiseAmplification).toEqual([null, null]);
+    },
+  );
 
   it('POST /panels/evaluate of a carbon dot under two lines answers one ε and one peak per line', async () => {
     const panel = {
@@ -172,7 +176,7 @@ describe('share links and errors', () => {
 });
 
 describe('POST /api/v1/panels/design', () => {
-  it('POST /panels/design in catalog mode answers a body DesignResponse accepts, with a panel Panel accepts', async () => {
+  it('POST /panels/design (catalog mode) answers a body DesignResponse accepts, holding a valid Panel', async () => {
     const peaks = [520, 565, 605, 655];
     const request = {
       targets: [

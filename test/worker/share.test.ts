@@ -37,7 +37,7 @@ describe('POST /api/v1/panels', () => {
     expect(b.id).toBe(a.id);
   });
 
-  it('POST /api/v1/panels accepts a panel without version (api-v1: version defaults to 1) and returns it as sent', async () => {
+  it('POST /api/v1/panels accepts a panel without version (it defaults to 1) and returns it as sent', async () => {
     const unversioned: Record<string, unknown> = { ...examplePanel(), title: 'no version field' };
     delete unversioned.version;
     const res = await postJson(worker, '/api/v1/panels', unversioned);

@@ -13,9 +13,15 @@ export function wrongMethod(app: Hono<AppEnv>) {
     app,
     onMethodNotAllowed: (c: Context, methods: string[]) => {
       const named = methods.filter((m) => m !== 'HEAD');
-      return errorResponse(405, 'method_not_allowed', `${c.req.method} is not allowed here; use ${named.join(' or ')}`, [], {
-        Allow: [...methods, 'OPTIONS'].join(', '),
-      });
+      return errorResponse(
+        405,
+        'method_not_allowed',
+        `${c.req.method} is not allowed here; use ${named.join(' or ')}`,
+        [],
+        {
+          Allow: [...methods, 'OPTIONS'].join(', '),
+        },
+      );
     },
   });
 }

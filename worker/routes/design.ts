@@ -11,5 +11,6 @@ import { validJson } from '../validation';
  * under a node budget, since the Workers runtime's clock does not advance during synchronous work; when the budget
  * ends first the answer is the best found, with `exact: false` and the bound in `stats.bound`.
  */
-export const design = new Hono<AppEnv>()
-  .post('/', jsonBody(), validJson(DesignRequest), (c) => finiteJsonResponse(runDesign(c.req.valid('json'))));
+export const design = new Hono<AppEnv>().post('/', jsonBody(), validJson(DesignRequest), (c) =>
+  finiteJsonResponse(runDesign(c.req.valid('json'))),
+);

@@ -24,12 +24,11 @@ export function notFoundPage(): Response {
  * /p/:id, the page route of a share link: the front end's index.html when the panel exists (the page reads the id
  * from its path and fetches /api/v1/panels/<id> itself), else the not-found page.
  */
-export const pages = new Hono<AppEnv>()
-  .get('/:id', async (c) => {
-    const text = await loadPanelText(c.env.PANELS, c.req.param('id'));
-    if (text === null) return notFoundPage();
-    // The asset layer answers /index.html with a redirect to /, so ask for / itself.
-    const index = await c.env.ASSETS.fetch(new Request(new URL('/', c.req.url)));
-    if (!index.ok) return notFoundPage();
-    return new Response(index.body, { status: 200, headers: { 'content-type': 'text/html; charset=utf-8' } });
-  });
+export const pages = new Hono<AppEnv>().get('/:id', async (c) => {
+  const text = await loadPanelText(c.env.PANELS, c.req.param('id'));
+  if (text === null) return notFoundPage();
+  // The asset layer answers /index.html with a redirect to /, so ask for / itself.
+  const index = await c.env.ASSETS.fetch(new Request(new URL('/', c.req.url)));
+  if (!index.ok) return notFoundPage();
+  return new Response(index.body, { status: 200, headers: { 'content-type': 'text/html; charset=utf-8' } });
+});

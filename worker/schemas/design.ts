@@ -15,7 +15,10 @@ import { LIMITS, RANGES } from './limits';
 import { Channel, ExcitationLine } from './panel';
 import { MaterialIdSchema, Probe } from './probe';
 
-const ABUNDANCE_NAMES = Object.keys(ABUNDANCE_WORDS) as [keyof typeof ABUNDANCE_WORDS, ...(keyof typeof ABUNDANCE_WORDS)[]];
+const ABUNDANCE_NAMES = Object.keys(ABUNDANCE_WORDS) as [
+  keyof typeof ABUNDANCE_WORDS,
+  ...(keyof typeof ABUNDANCE_WORDS)[],
+];
 const wordList = (words: readonly string[]) => `${words.slice(0, -1).join(', ')} or ${words[words.length - 1]}`;
 
 const positive = (max: number, unit = '') => ranged(0, max, unit, true);

@@ -4,7 +4,6 @@ import { LIMITS } from './limits';
 import { ranged, wavelengthNm } from './fields';
 import { checkDotSize, dotFields } from './probe';
 
-
 /** A wavelength grid for a returned spectrum: at most LIMITS.gridPoints samples. */
 export const Grid = z
   .strictObject({
@@ -18,7 +17,9 @@ export const Grid = z
     } else if (gridPointCount(grid.startNm, grid.endNm, grid.stepNm) > LIMITS.gridPoints) {
       ctx.addIssue({
         code: 'custom',
-        message: `gives ${gridPointCount(grid.startNm, grid.endNm, grid.stepNm)} points; at most ${LIMITS.gridPoints} are allowed`,
+        message:
+          `gives ${gridPointCount(grid.startNm, grid.endNm, grid.stepNm)} points; at most ` +
+          `${LIMITS.gridPoints} are allowed`,
         path: ['stepNm'],
         params: { apiCode: 'out_of_range' },
       });

@@ -10,7 +10,8 @@ const nullableMatrix = z.array(z.array(nullableNumber));
 /** The wavelength grid the panel was evaluated on. */
 export const GridJson = z.strictObject({ startNm: z.number(), stepNm: z.number(), count: z.number().int() });
 
-/** One probe of an evaluation: the resolved dot's fields (ε at the first line) plus ε at each panel line and its brightness. */
+/** One probe of an evaluation: the resolved dot's fields (ε at the first line) plus ε at each panel line and its
+ * brightness. */
 export const ProbeEvaluationJson = z.strictObject({
   id: z.string(),
   label: z.string().optional(),

@@ -9,7 +9,11 @@ const edgeOptions = {
   peakTransmission: ranged(0, 1)
     .superRefine((value, ctx) => {
       if (value === 0)
-        ctx.addIssue({ code: 'custom', message: 'must be greater than 0 and at most 1', params: { apiCode: 'invalid_input' } });
+        ctx.addIssue({
+          code: 'custom',
+          message: 'must be greater than 0 and at most 1',
+          params: { apiCode: 'invalid_input' },
+        });
     })
     .optional(),
   edgeWidthNm: ranged(RANGES.edgeWidthNm[0], RANGES.edgeWidthNm[1], 'nm').optional(),

@@ -12,7 +12,6 @@ export const ExcitationLine = z.strictObject({
   powerRel: ranged(RANGES.powerRel[0], RANGES.powerRel[1]).optional(),
 });
 
-
 /** One detection channel: its filters, the lines on while it is read, its detector class. */
 export const Channel = z.strictObject({
   id: identifier(),
@@ -21,10 +20,7 @@ export const Channel = z.strictObject({
     .array(Filter, { error: 'must be an array of filters' })
     .max(LIMITS.filtersPerChannel, { error: `has more than ${LIMITS.filtersPerChannel} filters` }),
   excitationNm: z
-    .union([
-      wavelengthNm(),
-      z.array(wavelengthNm()).min(1, { error: 'must not be empty' }).max(LIMITS.lines),
-    ])
+    .union([wavelengthNm(), z.array(wavelengthNm()).min(1, { error: 'must not be empty' }).max(LIMITS.lines)])
     .optional(),
   detector: z.enum(DETECTOR_IDS, { error: `must be one of ${DETECTOR_IDS.join(', ')}` }).optional(),
 });

@@ -2,7 +2,8 @@
  * Bulk parameters of the sized materials for the Brus effective-mass equation and the Stokes-shift and width models.
  * Provenance (status marks as in the project's science notes: P seen in a paper or its abstract, T independent
  * secondary copies of the paper that agree, M from memory and unverified, C computed):
- * - Masses of CdSe (0.13/0.45), InP (0.08/0.6) and GaAs (0.063/0.51), dielectric constants of InP (12.5) and GaAs (12.9):
+ * - Masses of CdSe (0.13/0.45), InP (0.08/0.6) and GaAs (0.063/0.51), dielectric constants of InP (12.5) and GaAs
+ * (12.9):
  *   P, from secondary tables (e.g. Madelung, Semiconductors: Data Handbook, Springer 2004).
  * - All band gaps at 300 K, the CdTe/CdS/CsPbBr3 masses, the CdSe/CdTe/CdS/CsPbBr3 dielectric constants and the
  *   Bohr radii: M, from memory, unverified (same handbook tradition).

@@ -29,7 +29,8 @@ const BULK =
   'Madelung, Semiconductors: Data Handbook, Springer 2004 (bulk parameters; several from memory, unverified)';
 const ABS = ['Leatherdale, Woo, Mikulec, Bawendi, J. Phys. Chem. B 2002', 'Hens, Moreels, J. Mater. Chem. 2012'];
 const CAD_WARN =
-  'Diameter is the bare core of the model; commercial dots carry shells (e.g. ZnS) that shift the peak, so enter vendor products by emission peak.';
+  'Diameter is the bare core of the model; commercial dots carry shells (e.g. ZnS) that shift the peak, so enter ' +
+  'vendor products by emission peak.';
 
 /** Descriptive records by material id. */
 export const RECORDS: Record<MaterialId, MaterialRecord> = {
@@ -43,7 +44,8 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalHydrodynamicDiameterNm: 15,
     warnings: [
       CAD_WARN,
-      'The Yu 2003 curve is used only over 1.5–8 nm; a later calibration (Jasieniak et al., J. Phys. Chem. C 2009) differs by up to ~66 % in extinction below 4 nm.',
+      'The Yu 2003 curve is used only over 1.5–8 nm; a later calibration (Jasieniak et al., J. Phys. Chem. C 2009) ' +
+        'differs by up to ~66 % in extinction below 4 nm.',
     ],
     sources: [
       YU,
@@ -65,7 +67,8 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalHydrodynamicDiameterNm: 10,
     warnings: [
       CAD_WARN,
-      'The Yu 2003 CdTe curve is nearly flat in diameter for first excitons between about 560 and 610 nm: sizes there are ill-conditioned (0.1 nm moves the peak by ~10 nm).',
+      'The Yu 2003 CdTe curve is nearly flat in diameter for first excitons between about 560 and 610 nm: sizes ' +
+        'there are ill-conditioned (0.1 nm moves the peak by ~10 nm).',
     ],
     sources: [YU, ...BRUS, BULK, ...ABS, 'IARC Monographs Vol. 100C 2012'],
   },
@@ -90,7 +93,8 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalHydrodynamicDiameterNm: 15,
     warnings: [
       'diameterNm is the equivalent-sphere diameter of the tetrahedral core (≈ 0.608 × edge length).',
-      'InP extinction is a nominal model (from memory, unverified): supply a measured extinction where brightness matters.',
+      'InP extinction is a nominal model (from memory, unverified): supply a measured extinction where brightness ' +
+        'matters.',
     ],
     sources: [
       'Almeida et al., Nano Lett. 2023',
@@ -110,7 +114,8 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalSizeDispersionPct: 10,
     typicalHydrodynamicDiameterNm: null,
     warnings: [
-      'No empirical sizing curve: the Brus equation alone, which overestimates the gap of small dots (by +0.43 eV for 4 nm CdSe).',
+      'No empirical sizing curve: the Brus equation alone, which overestimates the gap of small dots (by +0.43 eV ' +
+        'for 4 nm CdSe).',
       'Colloidal GaAs dots are rarely used as probes; QY and width are nominal (from memory, unverified).',
     ],
     sources: [...BRUS, BULK, 'IARC Monographs Vol. 100C 2012'],
@@ -144,7 +149,8 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalSizeDispersionPct: null,
     typicalHydrodynamicDiameterNm: 5,
     warnings: [
-      'Carbon-dot emission usually depends on the excitation wavelength (surface states); the tool models that shift approximately when excitationNm is given.',
+      'Carbon-dot emission usually depends on the excitation wavelength (surface states); the tool models that shift ' +
+        'approximately when excitationNm is given.',
       'No size law: give emissionPeakNm (and fwhmNm if known).',
     ],
     sources: ['Mintz, Zhou, Leblanc, Nanoscale 2019'],
@@ -158,7 +164,8 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalSizeDispersionPct: null,
     typicalHydrodynamicDiameterNm: null,
     warnings: [
-      'Described only by measured data: measuredEmission is required; without a measured extinction a flat nominal 1e5 M⁻¹ cm⁻¹ below the emission peak is assumed.',
+      'Described only by measured data: measuredEmission is required; without a measured extinction a flat nominal ' +
+        '1e5 M⁻¹ cm⁻¹ below the emission peak is assumed.',
       'typicalFwhmNm and typicalQuantumYield are placeholders, not properties of any real probe.',
     ],
     sources: [],

@@ -8,9 +8,11 @@ import type { Toxicity } from './types';
  * regulations, institutional safety rules and licensed practice.
  */
 const DEFER =
-  "Follow local regulations, your institution's safety rules and licensed practice for handling, storage, use in living systems and disposal; they take precedence over anything shown here.";
+  "Follow local regulations, your institution's safety rules and licensed practice for handling, storage, use in " +
+  'living systems and disposal; they take precedence over anything shown here.';
 const NANO =
-  'Handle dispersions and dry powders so as to avoid inhalation, ingestion and skin contact (e.g. gloves and a fume hood or enclosure as your safety office requires).';
+  'Handle dispersions and dry powders so as to avoid inhalation, ingestion and skin contact (e.g. gloves and a fume ' +
+  'hood or enclosure as your safety office requires).';
 const WASTE =
   'Collect waste as hazardous heavy-metal waste where your rules require it; do not pour it down the drain.';
 const NOT_SAFE = 'A low rating is not a finding of safety: toxicity depends on size, surface, coating, dose and route.';
@@ -20,7 +22,8 @@ const cadmium = (massPct: string): Toxicity => ({
   notes: [
     'Cadmium and cadmium compounds: IARC Group 1, carcinogenic to humans (IARC Monographs Vol. 100C, 2012).',
     `Cadmium is about ${massPct} of the core by mass (computed from atomic masses).`,
-    'Oxidation (air, UV, acidic or oxidising media) releases Cd²⁺; ZnS shells and coatings reduce but do not remove this (Derfus, Chan, Bhatia, Nano Lett. 2004, from memory).',
+    'Oxidation (air, UV, acidic or oxidising media) releases Cd²⁺; ZnS shells and coatings reduce but do not remove ' +
+      'this (Derfus, Chan, Bhatia, Nano Lett. 2004, from memory).',
     'Toxicity depends on size, charge, coating and dose (Hardman, Environ. Health Perspect. 2006).',
   ],
   cautions: [DEFER, NANO, WASTE],
@@ -35,7 +38,8 @@ export const TOXICITY: Record<MaterialId, Toxicity> = {
     level: 'moderate',
     notes: [
       'Indium phosphide: IARC Group 2A, probably carcinogenic to humans (IARC Monographs Vol. 86, 2006).',
-      'Generally less toxic than cadmium dots but not non-toxic; core and shell both matter (Allocca et al., Environ. Sci. Technol. 2019).',
+      'Generally less toxic than cadmium dots but not non-toxic; core and shell both matter (Allocca et al., ' +
+        'Environ. Sci. Technol. 2019).',
     ],
     cautions: [DEFER, NANO, NOT_SAFE],
   },
@@ -52,7 +56,8 @@ export const TOXICITY: Record<MaterialId, Toxicity> = {
     notes: [
       'Inorganic lead compounds: IARC Group 2A, probably carcinogenic to humans (IARC Monographs Vol. 87, 2006).',
       'CsPbBr3 is about 35.7 % lead by mass (computed from atomic masses).',
-      'Lead-halide perovskites degrade quickly in water, heat and light, releasing Pb²⁺ unless encapsulated (silica or polymer shells are used to hold it in).',
+      'Lead-halide perovskites degrade quickly in water, heat and light, releasing Pb²⁺ unless encapsulated (silica ' +
+        'or polymer shells are used to hold it in).',
     ],
     cautions: [
       DEFER,
@@ -64,14 +69,16 @@ export const TOXICITY: Record<MaterialId, Toxicity> = {
   carbon: {
     level: 'low',
     notes: [
-      'Carbon dots are generally reported as low toxicity, but the evidence is thin and varies with synthesis and surface chemistry: low, not proven.',
+      'Carbon dots are generally reported as low toxicity, but the evidence is thin and varies with synthesis and ' +
+        'surface chemistry: low, not proven.',
     ],
     cautions: [DEFER, NANO, NOT_SAFE],
   },
   custom: {
     level: 'high',
     notes: [
-      'Unknown material: the tool knows nothing of its hazards, so it is rated high as a precaution, not as an assessment.',
+      'Unknown material: the tool knows nothing of its hazards, so it is rated high as a precaution, not as an ' +
+        'assessment.',
     ],
     cautions: ["Follow the supplier's safety data sheet.", DEFER],
   },

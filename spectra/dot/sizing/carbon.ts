@@ -2,7 +2,8 @@
  * Excitation dependence of carbon-dot emission (approximate, illustrative). Carbon-dot emission usually moves to the
  * red as the excitation moves to the red, through surface and edge states (Mintz, Zhou, Leblanc, Nanoscale 2019, P),
  * though some dots are excitation-independent. Model: the given emission peak holds for near-UV excitation up to
- * `referenceNm`; beyond it the peak moves by `slope` nm per nm of excitation, and stays at least `minStokesNm` above the
+ * `referenceNm`; beyond it the peak moves by `slope` nm per nm of excitation, and stays at least `minStokesNm` above
+ * the
  * excitation. Reported slopes vary widely between preparations; 0.5 and 360 nm are from memory, unverified.
  */
 export const CARBON_EXCITATION_MODEL = { referenceNm: 360, slope: 0.5, minStokesNm: 20 } as const;

@@ -98,7 +98,9 @@ export function diameterForEmissionPeakNm(
   if (!(emissionPeakNm >= minNm - 1e-9 && emissionPeakNm <= maxNm + 1e-9)) {
     throw new SpectraError(
       'out_of_range',
-      `an emission peak of ${emissionPeakNm} nm is out of reach for ${material}: its size law reaches ${Math.ceil(minNm)}–${Math.floor(maxNm)} nm (diameters ${law.diameterRangeNm[0]}–${law.diameterRangeNm[1]} nm)`,
+      `an emission peak of ${emissionPeakNm} nm is out of reach for ${material}: its size law reaches ` +
+        `${Math.ceil(minNm)}–${Math.floor(maxNm)} nm (diameters ${law.diameterRangeNm[0]}–${law.diameterRangeNm[1]} ` +
+        `nm)`,
       path,
     );
   }

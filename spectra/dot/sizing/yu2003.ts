@@ -1,8 +1,10 @@
 /**
  * Empirical sizing curves and first-exciton extinction laws of CdTe, CdSe and CdS nanocrystals:
  * Yu, Qu, Guo, Peng, Chem. Mater. 2003, 15, 2854 (DOI 10.1021/cm034081k), equations 1–6.
- * D = diameter (nm) from λ = first-exciton absorption peak (nm); ε per mole of particles at the first exciton, M⁻¹ cm⁻¹.
- * Coefficients: status T (independent secondary copies of the coefficients agree digit for digit; the paper itself not read here).
+ * D = diameter (nm) from λ = first-exciton absorption peak (nm); ε per mole of particles at the first exciton, M⁻¹
+ * cm⁻¹.
+ * Coefficients: status T (independent secondary copies of the coefficients agree digit for digit; the paper itself not
+ * read here).
  * The paper states roughly ±10–15 % on ε. A later CdSe calibration (Jasieniak, Smith, van Embden, Mulvaney, Califano,
  * J. Phys. Chem. C 2009, 113, 19468) differs by up to ~0.25 nm in D and up to ~66 % in ε below 4 nm: published
  * sources disagree, and the tool follows Yu 2003 for all three materials so they stay mutually consistent.

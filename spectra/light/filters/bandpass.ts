@@ -75,7 +75,8 @@ export function bandpassTransmission(
   }
   const scaleNm = logisticScaleNm(options.edgeWidthNm);
   const h = edgeHalfDistanceNm(widthNm, scaleNm);
-  // The two edges overlap a little at the centre: divide by the shape's own top so the peak is exactly peakTransmission.
+  // The two edges overlap a little at the centre: divide by the shape's own top so the peak is exactly
+  // peakTransmission.
   const top = scaleNm === 0 ? 1 : (1 / (1 + Math.exp(-h / scaleNm))) ** 2;
   const span = (options.peakTransmission - options.floor) / top;
   return passbandTransmission(grid, centerNm - h, centerNm + h, scaleNm, options.floor, span);

@@ -5,15 +5,8 @@
  * (L = 0.1 and 0.9 lie at ∓ s ln 9 from the edge). An edge width of 0 is an ideal step (0.5 exactly on the edge).
  */
 import type { WavelengthGrid } from '../../core/grid';
-import { expNonPositive } from '../../kernels/exp';
+import { logisticSamples } from '../../kernels/logistic';
 import type { FilterDefaults } from './defaults';
-
-/** The logistic L(z) = 1/(1 + e^−z), from an exponential of a non-positive argument on either side. */
-function logistic(z: number): number {
-  if (z >= 0) return 1 / (1 + expNonPositive(-z));
-  const e = expNonPositive(z);
-  return e / (1 + e);
-}
 
 /** Logistic scale s (nm) of an edge whose 10–90 % rise takes `edgeWidthNm`. */
 export function logisticScaleNm(edgeWidthNm: number): number {
@@ -44,7 +37,7 @@ export function passbandTransmission(
   span: number,
 ): number[] {
   const { startNm, stepNm, count } = grid;
-  const out = new Array<number>(count);
+  const out = new Array<number>(count).fill(floor);
   if (scaleNm === 0) {
     for (let i = 0; i < count; i++) {
       const nm = startNm + i * stepNm;
@@ -61,12 +54,20 @@ export function passbandTransmission(
   const fallFromNm = fallNm - OPEN_SIDE_SCALES * scaleNm;
   const first = Math.max(0, Math.ceil((riseNm - blocked * scaleNm - startNm) / stepNm));
   const last = Math.min(count - 1, Math.floor((fallNm + blocked * scaleNm - startNm) / stepNm));
-  out.fill(floor);
+
+  // Each edge's factor over the points within its reach (1 past it), walked along the grid.
+  const riseLast = Math.min(last, Math.floor((riseToNm - startNm) / stepNm));
+  const fallFirst = Math.max(first, Math.ceil((fallFromNm - startNm) / stepNm));
+  const rise = logisticSamples((startNm + first * stepNm - riseNm) / scaleNm, stepNm / scaleNm, riseLast - first + 1);
+  const fall = logisticSamples(
+    (fallNm - startNm - fallFirst * stepNm) / scaleNm,
+    -stepNm / scaleNm,
+    last - fallFirst + 1,
+  );
   for (let i = first; i <= last; i++) {
-    const nm = startNm + i * stepNm;
-    const rise = nm <= riseToNm ? logistic((nm - riseNm) / scaleNm) : 1;
-    const fall = nm >= fallFromNm ? logistic((fallNm - nm) / scaleNm) : 1;
-    out[i] = floor + span * rise * fall;
+    const r = i <= riseLast ? rise[i - first] : 1;
+    const f = i >= fallFirst ? fall[i - fallFirst] : 1;
+    out[i] = floor + span * r * f;
   }
   return out;
 }

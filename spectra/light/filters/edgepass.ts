@@ -12,8 +12,7 @@ import { edgeOptions, logisticScaleNm, passbandTransmission } from './edge';
 
 /** A longpass or shortpass filter, or a dichroic, as the panel carries it. */
 export type SingleEdgeSpec = EdgeFilterOptions & { edgeNm: number } & (
-    | { type: 'longpass' | 'shortpass' }
-    | { type: 'dichroic'; passes: 'above' | 'below' }
+    { type: 'longpass' | 'shortpass' } | { type: 'dichroic'; passes: 'above' | 'below' }
   );
 
 /** Transmission (0–1) of a longpass, shortpass or dichroic on a grid. */

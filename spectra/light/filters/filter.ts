@@ -14,11 +14,7 @@ import { tableTransmission } from './table';
  * `path` names the filter in a model error (a bandpass narrower than its edges).
  * @example filterTransmission({ type: 'bandpass', centerNm: 605, widthNm: 20 }, DEFAULT_GRID)
  */
-export function filterTransmission(
-  filter: FilterSpec,
-  grid: WavelengthGrid,
-  path: (string | number)[] = [],
-): number[] {
+export function filterTransmission(filter: FilterSpec, grid: WavelengthGrid, path: (string | number)[] = []): number[] {
   switch (filter.type) {
     case 'bandpass':
       return bandpassTransmission(filter, grid, path);

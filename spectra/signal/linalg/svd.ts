@@ -17,7 +17,8 @@ const MAX_SWEEPS = 80;
 
 /**
  * One-sided Jacobi on the columns of a (rows ≥ cols); rotates them and, unless null, the columns of V (identity at
- * the start) in place. Column norms are carried through each rotation (‖ap‖² − tγ, ‖aq‖² + tγ; exact for the Jacobi angle) and
+ * the start) in place. Column norms are carried through each rotation (‖ap‖² − tγ, ‖aq‖² + tγ; exact for the Jacobi
+ * angle) and
  * recomputed at every sweep so rounding cannot build up; only the cross product γ is summed per pair.
  */
 export function jacobiColumns(a: Float64Array[], v: Float64Array[] | null, tolerance: number): void {
@@ -43,7 +44,8 @@ export function jacobiColumns(a: Float64Array[], v: Float64Array[] | null, toler
         const beta = norms[q];
         if (gamma === 0 || Math.abs(gamma) <= tolerance * Math.sqrt(alpha * beta)) continue;
         rotated = true;
-        // Rotation that zeroes the (p, q) entry of AᵀA (Golub & Van Loan, Matrix Computations, Jacobi methods; from memory).
+        // Rotation that zeroes the (p, q) entry of AᵀA (Golub & Van Loan, Matrix Computations, Jacobi methods; from
+        // memory).
         const zeta = (beta - alpha) / (2 * gamma);
         const t = (zeta >= 0 ? 1 : -1) / (Math.abs(zeta) + Math.sqrt(1 + zeta * zeta));
         const c = 1 / Math.sqrt(1 + t * t);
@@ -90,7 +92,8 @@ export function svdOfColumns(columns: Float64Array[], tolerance = EPSILON): { s:
 /**
  * Thin SVD of a non-empty finite matrix. Zero singular values get a zero U column. Rotation stops once every pair of
  * columns has |cos angle| ≤ `tolerance` (default ε); the singular values are then accurate to about
- * (cols − 1) × tolerance relative (Demmel & Veselić 1992, from memory), so a diagnostic may pass e.g. 1e-12 to save sweeps.
+ * (cols − 1) × tolerance relative (Demmel & Veselić 1992, from memory), so a diagnostic may pass e.g. 1e-12 to save
+ * sweeps.
  */
 export function svd(matrix: readonly (readonly number[])[], tolerance = EPSILON): Svd {
   const { rows, cols } = checkMatrix(matrix);

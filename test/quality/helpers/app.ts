@@ -141,7 +141,8 @@ async function waitForHealth(
   throw new Error(`no answer on /api/v1/health within ${timeoutMs} ms:\n${log()}`);
 }
 
-/** Starts `bash scripts/start.sh` (of a fresh snapshot unless `root` is given) under setsid with PORT, PERSIST_DIR, LOG_LEVEL=warn and SKIP_BUILD=1. */
+/** Starts `bash scripts/start.sh` (of a fresh snapshot unless `root` is given) under setsid with PORT, PERSIST_DIR,
+ * LOG_LEVEL=warn and SKIP_BUILD=1. */
 export async function startApp(
   options: { persistDir?: string; port?: number; timeoutMs?: number; root?: string } = {},
 ): Promise<StartedApp> {

@@ -109,17 +109,21 @@ describe('catalog branch and bound', () => {
     expect(bright(result.design!.probe[0])).toBe(false);
   });
 
-  it('searchCatalog under a tiny node budget returns exact false, a design no better than the optimum and a bound no higher', () => {
-    const { collected } = syntheticCatalog(7, 12, 12);
-    const abundance = [1, 0.3, 0.1, 1, 0.5, 0.1];
-    const full = searchCatalog({ collected, abundance }, { nodeBudget: 1e7 });
-    const cut = searchCatalog({ collected, abundance }, { nodeBudget: 20 });
-    expect(full.exact).toBe(true);
-    expect(cut.exact).toBe(false);
-    expect(cut.stats.nodesVisited).toBeLessThanOrEqual(20);
-    expect(cut.objective!.worstInterference).toBeGreaterThanOrEqual(full.objective!.worstInterference - 1e-15);
-    expect(cut.stats.bound!).toBeLessThanOrEqual(full.objective!.worstInterference + 1e-15);
-  });
+  it(
+    'searchCatalog under a tiny node budget returns exact false, a design no better than the optimum and a bound no ' +
+      'higher',
+    () => {
+      const { collected } = syntheticCatalog(7, 12, 12);
+      const abundance = [1, 0.3, 0.1, 1, 0.5, 0.1];
+      const full = searchCatalog({ collected, abundance }, { nodeBudget: 1e7 });
+      const cut = searchCatalog({ collected, abundance }, { nodeBudget: 20 });
+      expect(full.exact).toBe(true);
+      expect(cut.exact).toBe(false);
+      expect(cut.stats.nodesVisited).toBeLessThanOrEqual(20);
+      expect(cut.objective!.worstInterference).toBeGreaterThanOrEqual(full.objective!.worstInterference - 1e-15);
+      expect(cut.stats.bound!).toBeLessThanOrEqual(full.objective!.worstInterference + 1e-15);
+    },
+  );
 
   it('searchCatalog reports progress between chunks, stops when asked with exact false, and otherwise finishes', () => {
     const { collected } = syntheticCatalog(11, 12, 12);

@@ -1,0 +1,66 @@
+"""The reference point of qdpanel's spectra benchmark: the same 8-probe x 8-channel evaluation written the way a
+scientist would write it with numpy, timed the way bench/suites/spectra.ts times the library.
+
+One evaluation:
+  - 8 emission lines, each a Gaussian in photon energy (FWHM 0.09 eV) times the Jacobian hc/lambda^2, on a 1 nm grid
+    from 300 to 1000 nm, each scaled to unit area;
+  - 8 bandpass transmissions, 24 nm wide, centred on the peaks, each the product of two logistic edges of scale 1.5 nm;
+  - the collected matrix C[c, p] = sum over the grid of T_c * em_p;
+  - the spillover matrix against each probe's strongest channel;
+  - the 2-norm condition number of C with unit-norm columns.
+
+Prints one line: "numpy evaluate 8x8 median <us> us (min <us>, max <us>)", the median over 15 batches of 200 calls of
+the mean time per call, after 200 calls to warm up. Needs python3 with numpy (Debian: python3-numpy).
+"""
+import time
+
+import numpy as np
+
+HC_EV_NM = 1239.841984  # h c in eV nm (CODATA 2018)
+FWHM_PER_SIGMA = 2.0 * np.sqrt(2.0 * np.log(2.0))
+GRID_NM = np.arange(300.0, 1001.0, 1.0)
+PEAKS_NM = np.array([490.0, 525.0, 565.0, 605.0, 640.0, 680.0, 715.0, 665.0])
+LINE_FWHM_EV = 0.09
+BAND_WIDTH_NM = 24.0
+EDGE_SCALE_NM = 1.5
+
+
+def emission_lines():
+    energy = HC_EV_NM / GRID_NM
+    sigma = LINE_FWHM_EV / FWHM_PER_SIGMA
+    centre = HC_EV_NM / PEAKS_NM
+    shape = np.exp(-0.5 * ((energy[None, :] - centre[:, None]) / sigma) ** 2) * (HC_EV_NM / GRID_NM**2)[None, :]
+    return shape / shape.sum(axis=1, keepdims=True)
+
+
+def bandpasses():
+    rise = PEAKS_NM - BAND_WIDTH_NM / 2
+    fall = PEAKS_NM + BAND_WIDTH_NM / 2
+    up = 1.0 / (1.0 + np.exp(-(GRID_NM[None, :] - rise[:, None]) / EDGE_SCALE_NM))
+    down = 1.0 / (1.0 + np.exp((GRID_NM[None, :] - fall[:, None]) / EDGE_SCALE_NM))
+    return up * down
+
+
+def evaluate():
+    collected = bandpasses() @ emission_lines().T
+    primary = collected.argmax(axis=0)
+    spillover = collected / collected[primary, np.arange(collected.shape[1])]
+    kappa = np.linalg.cond(collected / np.linalg.norm(collected, axis=0))
+    return spillover, kappa
+
+
+def main():
+    for _ in range(200):
+        evaluate()
+    means = []
+    for _ in range(15):
+        start = time.perf_counter()
+        for _ in range(200):
+            evaluate()
+        means.append((time.perf_counter() - start) / 200)
+    us = np.array(means) * 1e6
+    print(f"numpy evaluate 8x8 median {np.median(us):.1f} us (min {us.min():.1f}, max {us.max():.1f})")
+
+
+if __name__ == "__main__":
+    main()
