@@ -64,7 +64,11 @@ export function openApiDocument(): Json {
   cached ??= {
     openapi: '3.1.0',
     jsonSchemaDialect: 'https://json-schema.org/draft/2020-12/schema',
-    info: { title: 'qdpanel API', version: packageJson.version, description: 'See shared/api-v1.md for the contract.' },
+    info: {
+      title: 'qdpanel API',
+      version: packageJson.version,
+      description: 'The reference is docs/api.md in the repository.',
+    },
     paths: {
       '/api/v1/health': get('liveness and version', json(ref('Health'), 'ok')),
       '/api/v1/openapi.json': get('this document', json({ type: 'object' }, 'OpenAPI 3.1')),

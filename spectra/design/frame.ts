@@ -20,8 +20,9 @@ export interface Frame {
   rows: Float64Array;
   /** Bottleneck assignment value of `rows`: a lower bound on every completion of this node. */
   bound: number;
-  /** The assignment that achieves `bound` (exact channels once every probe is placed and there are no side conditions).
-   * */
+  /**
+   * The assignment that achieves `bound` (exact channels once every probe is placed and there are no side conditions).
+   */
   channels: ChannelChoice | null;
 }
 

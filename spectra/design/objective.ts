@@ -1,6 +1,6 @@
 /**
  * The panel design objective. A design assigns each target t a probe p_t and a channel c_t (one-to-one).
- * With collected[c][p] the relative detected light of probe p in channel c at abundance 1 (api-v1, "The signal
+ * With collected[c][p] the relative detected light of probe p in channel c at abundance 1 (docs/api.md, "The signal
  * model"), the interference of target t into target u is
  *   I(t→u) = a_t · collected[c_u][p_t] / (a_u · collected[c_u][p_u]),
  * the light of t's probe in u's channel relative to u's own signal there: the same quantity as `worst` in the

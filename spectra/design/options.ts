@@ -10,8 +10,9 @@ export interface DesignOptions {
   /** Most search nodes before the best found is returned with exact: false (default DEFAULT_NODE_BUDGET; free mode
    * DEFAULT_FREE_NODE_BUDGET). */
   nodeBudget?: number;
-  /** Signal floor as a fraction of the brightest target's own signal (free mode default 0.05; catalog: off unless set).
-   * */
+  /**
+   * Signal floor as a fraction of the brightest target's own signal (free mode default 0.05; catalog: off unless set).
+   */
   minSignalFraction?: number;
   /** Catalog mode: drop channels that pass an excitation line (free mode always does). Default false. */
   lineClearance?: boolean;

@@ -1,5 +1,5 @@
 /**
- * Crosstalk under the signal model of api-v1 ("The signal model"):
+ * Crosstalk under the signal model (docs/api.md, "The signal model"):
  *   collected[c][p] = Σ over lines l on in c of powerRel_l × ε_p(λl) × QY_p × abundance_p × Σλ em_p(λ) T_c(λ) Δλ,
  * with T_c = Π filters × detector QE. A probe's emission may depend on the line (carbon dots), so each probe is a list
  * of components: one emission spectrum and, per channel, the summed weight of the lines that excite that emission.
@@ -7,7 +7,6 @@
  * Cytometry 2001, 45, 194; both from memory): signal in a channel over the signal in the probe's primary channel.
  */
 import type { ChannelSpec, ExcitationLine } from '../core/panel';
-import { overlaps } from '../kernels/overlap';
 
 /**
  * One emission spectrum of a probe, held from grid index `from` on (0 elsewhere), and its weight in each channel:
@@ -36,28 +35,26 @@ export function linesOn(channel: ChannelSpec, lines: ExcitationLine[]): number[]
   return [...on].sort((a, b) => a - b);
 }
 
-/**
- * collected[c][p] for every channel and probe: Σ over the probe's components of weight × Σλ em(λ) T(λ) Δλ (the
- * overlap sums from kernels/overlap.ts; T on every grid point).
- */
+/** Σλ em(λ) T(λ) Δλ over the points where the emission is held (T on every grid point). */
+function overlap(component: EmissionComponent, transmission: number[], stepNm: number): number {
+  const { emission, from } = component;
+  let sum = 0;
+  for (let k = 0; k < emission.length; k++) sum += emission[k] * transmission[from + k];
+  return sum * stepNm;
+}
+
+/** collected[c][p] for every channel and probe: Σ over the probe's components of weight × overlap. */
 export function collectedMatrix(probes: EmissionComponent[][], transmissions: number[][], stepNm: number): number[][] {
-  const components = probes.flat();
-  const sums = overlaps(
-    components.map((component) => ({ values: component.emission, from: component.from })),
-    transmissions,
-  );
-  return transmissions.map((_, c) => {
-    let k = 0;
-    return probes.map((list) => {
+  return transmissions.map((t, c) =>
+    probes.map((components) => {
       let sum = 0;
-      for (const component of list) {
+      for (const component of components) {
         const w = component.weightByChannel[c];
-        if (w !== 0) sum += w * (sums[c][k] * stepNm);
-        k++;
+        if (w !== 0) sum += w * overlap(component, t, stepNm);
       }
       return sum;
-    });
-  });
+    }),
+  );
 }
 
 /** The worst pair: the probe whose light intrudes most, relative to the victim's own signal in its primary channel. */

@@ -61,8 +61,11 @@ function nullFigures(cols: number, warning: string): UnmixingDiagnostics {
   return { conditionNumber: null, noiseAmplification: new Array<null>(cols).fill(null), warnings: [warning] };
 }
 
-/** unmixingDiagnostics of a panel's own collected matrix (rectangular by construction; non-finite entries give nulls).
- * */
+/**
+
+ * unmixingDiagnostics of a panel's own collected matrix (rectangular by construction; non-finite entries give nulls).
+
+ */
 export function diagnoseMixing(m: number[][], probeIds?: string[]): UnmixingDiagnostics {
   const cols = m[0].length;
   if (m.some((row) => row.some((x) => !Number.isFinite(x)))) {

@@ -1,6 +1,7 @@
-// Bad input at scale: at least 10,000 seeded fast-check cases across every route (deep nesting, huge numbers, NaN
-// strings, unicode, wrong content types, enormous arrays) give no 5xx, and every 4xx from /api/ is in the contract's
-// error shape. Cases are generated up front with a fixed seed (a failure prints its case) and sent over keep-alive
+// Bad input at scale, the project's one fuzz suite: at least 10,000 seeded fast-check cases across every route (near-
+// valid panels with one random edit anywhere, deep nesting, huge numbers, NaN strings, unicode, wrong content types,
+// enormous arrays) give no 5xx, every 4xx from /api/ is in the contract's error shape, and no 2xx carries NaN or
+// Infinity. Cases are generated up front with a fixed seed (a failure prints its case) and sent over keep-alive
 // connections a few at a time.
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -102,6 +103,46 @@ const enormous = fc
     else panel[what] = Array.from({ length: n }, (_, i) => ({ ...(panel[what][0] as object), id: `x${i}` }));
     return JSON.stringify(panel);
   });
+type Path = (string | number)[];
+
+/** Every path to a value inside a JSON value (objects' keys, arrays' indices). */
+function allPaths(value: unknown, prefix: Path = []): Path[] {
+  if (value === null || typeof value !== 'object') return [prefix];
+  const entries = Array.isArray(value) ? value.map((v, i) => [i, v] as const) : Object.entries(value);
+  return [prefix, ...entries.flatMap(([k, v]) => allPaths(v, [...prefix, k]))];
+}
+
+type Edit = { kind: 'set'; value: unknown } | { kind: 'delete' } | { kind: 'addKey'; key: string; value: unknown };
+const anyValue = fc.oneof(
+  fc.jsonValue({ maxDepth: 3 }),
+  fc.oneof(fc.double(), fc.integer(), fc.constantFrom(0, -1, 1e308, 5e-324, 405, 605, 4001)),
+  fc.string({ maxLength: 300 }),
+);
+const edit: fc.Arbitrary<Edit> = fc.oneof(
+  fc.record({ kind: fc.constant('set' as const), value: anyValue }),
+  fc.record({ kind: fc.constant('delete' as const) }),
+  fc.record({ kind: fc.constant('addKey' as const), key: fc.string({ maxLength: 12 }), value: anyValue }),
+);
+/** The demo panel with one random edit at one of its paths: set a value, delete it, or add a key beside it. */
+const nearValidPanel = fc.tuple(fc.nat(), edit).map(([pathIndex, change]) => {
+  const panel = demoPanelTitled('fuzz') as Record<string, unknown>;
+  const paths = allPaths(panel).filter((p) => p.length > 0);
+  const path = paths[pathIndex % paths.length];
+  let parent = panel as Record<string | number, unknown>;
+  for (const key of path.slice(0, -1)) parent = parent[key] as Record<string | number, unknown>;
+  const last = path[path.length - 1];
+  if (change.kind === 'set') parent[last] = change.value;
+  else if (change.kind === 'delete') {
+    if (Array.isArray(parent)) parent.splice(Number(last), 1);
+    else delete parent[last];
+  } else {
+    const target = parent[last];
+    if (typeof target === 'object' && target !== null && !Array.isArray(target))
+      (target as Record<string, unknown>)[change.key] = change.value;
+    else parent[last] = { [change.key]: change.value };
+  }
+  return JSON.stringify(panel);
+});
 const deep = fc
   .tuple(fc.integer({ min: 50, max: 20_000 }), fc.constantFrom(['[', ']'], ['{"a":', '}']))
   .map(([depth, [o, c]]) => nested(depth, o, c));
@@ -109,6 +150,7 @@ const bodyText = fc.oneof(
   { weight: 3, arbitrary: fc.jsonValue({ maxDepth: 4 }).map((v) => JSON.stringify(v)) },
   { weight: 3, arbitrary: panelWithLiteral },
   { weight: 3, arbitrary: panelWithText },
+  { weight: 4, arbitrary: nearValidPanel },
   { weight: 1, arbitrary: enormous },
   { weight: 1, arbitrary: deep },
   { weight: 2, arbitrary: fc.string({ unit: 'binary', maxLength: 400 }) },

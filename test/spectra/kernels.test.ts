@@ -1,10 +1,8 @@
 // The few loops kept for speed (spectra/kernels/) against their plain references, written beside them: each must agree
 // to 1e-12 relative over the inputs the library gives it. These are units of the library, imported directly.
 import { describe, expect, it } from 'vitest';
-import { createRandom } from '../../spectra/index';
 import { EXP_TABLE_REACH, expNonPositive } from '../../spectra/kernels/exp';
 import { logisticSamples, logisticSamplesReference } from '../../spectra/kernels/logistic';
-import { overlaps, overlapsReference } from '../../spectra/kernels/overlap';
 
 const relative = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(a), Math.abs(b), Number.MIN_VALUE);
 
@@ -42,34 +40,5 @@ describe('kernels/logistic', () => {
     const fast = logisticSamples(28, -0.5, 170);
     const plain = logisticSamplesReference(28, -0.5, 170);
     fast.forEach((v, k) => expect(relative(v, plain[k])).toBeLessThan(1e-12));
-  });
-});
-
-describe('kernels/overlap', () => {
-  // Random emissions held on parts of a 701-point grid against transmissions with constant ends at a 1e-12 floor,
-  // held-open plateaus, a spike and an all-constant curve: the smallest sums are 1e-12 of the largest.
-  it('overlaps equals the plain double loop to 1e-12 relative, down to sums at a 1e-12 blocking floor', () => {
-    const rng = createRandom(7);
-    const n = 701;
-    const emissions = Array.from({ length: 12 }, () => {
-      const from = Math.floor(rng.uniform() * 500);
-      const length = 1 + Math.floor(rng.uniform() * (n - from - 1));
-      const centre = rng.uniform() * length;
-      const width = 2 + rng.uniform() * 60;
-      return { from, values: Array.from({ length }, (_, k) => Math.exp(-0.5 * ((k - centre) / width) ** 2)) };
-    });
-    const band = (lo: number, hi: number, floor: number) =>
-      Array.from({ length: n }, (_, i) => (i < lo || i >= hi ? floor : 0.9 - (0.3 * (i - lo)) / (hi - lo)));
-    const transmissions = [
-      band(200, 260, 1e-12),
-      band(0, 400, 1e-6),
-      band(350, n, 1e-12),
-      Array.from({ length: n }, (_, i) => (i === 420 ? 1 : 1e-12)),
-      new Array<number>(n).fill(0.5),
-      Array.from({ length: n }, (_, i) => (i < 300 ? 0.95 : 1e-12)),
-    ];
-    const fast = overlaps(emissions, transmissions);
-    const plain = overlapsReference(emissions, transmissions);
-    fast.forEach((row, c) => row.forEach((v, e) => expect(relative(v, plain[c][e])).toBeLessThan(1e-12)));
   });
 });

@@ -5,7 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { examplePanel } from './helpers/panels';
 import { errorOf, freshPersistDir, postJson, ROOT, startWorker, type RunningWorker } from './helpers/worker';
 
-const LIMIT_BYTES = 256 * 1024; // shared/api-v1.md, "Errors"
+const LIMIT_BYTES = 256 * 1024; // the contract's 256 KiB (docs/api.md, "Errors")
 let worker: RunningWorker;
 
 beforeAll(async () => {
@@ -50,7 +50,7 @@ describe('health and description', () => {
     const panel = doc.components.schemas.Panel;
     expect(panel.additionalProperties).toBe(false);
     expect(panel.required).toEqual(expect.arrayContaining(['excitation', 'probes', 'channels']));
-    // api-v1: only type, the wavelength fields and the ids are required; version defaults to 1.
+    // docs/api.md: only type, the wavelength fields and the ids are required; version defaults to 1.
     expect(panel.required).not.toContain('version');
     expect(panel.properties.probes.maxItems).toBe(16);
     expect(panel.properties.channels.maxItems).toBe(64);

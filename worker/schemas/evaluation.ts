@@ -55,7 +55,7 @@ export const LotShiftJson = z.strictObject({
 });
 
 /**
- * POST /api/v1/panels/evaluate (shared/api-v1.md, "The signal model"): collected[c][p]; spillover and purity null
+ * POST /api/v1/panels/evaluate (docs/api.md, "The signal model"): collected[c][p]; spillover and purity null
  * where the reference signal is zero; primaryChannel null for a probe that gives no signal anywhere; the background
  * fields only when the panel has a background.
  */

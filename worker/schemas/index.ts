@@ -50,6 +50,7 @@ export type EvaluationMatchesSpec = Assert<Same<z.infer<typeof Evaluation>, Pane
 export type LotShiftMatchesSpec = Assert<Same<z.infer<typeof LotShiftJson>, LotShiftSensitivity>>;
 /** A material of GET /api/v1/materials is the library's Material. */
 export type MaterialMatchesSpec = Assert<Same<z.infer<typeof Material>, MaterialSpec>>;
-/** What runDesign returns is a valid design answer (the answer may also carry null where a number had no finite value).
- * */
+/**
+ * What runDesign returns is a valid design answer (the answer may also carry null where a number had no finite value).
+ */
 export type DesignResponseMatchesSpec = Assert<DesignResult extends z.infer<typeof DesignResponse> ? true : false>;

@@ -31,7 +31,7 @@ export const Background = z.strictObject({
   points: pointsTable(RANGES.spectralValue[1], 'background').shape.points.optional(),
 });
 
-/** A panel as the API takes it (shared/api-v1.md, "Panels"): the single source of truth for its shape. */
+/** A panel as the API takes it (docs/api.md, "Panels"): the single source of truth for its shape. */
 export const Panel = z
   .strictObject({
     version: z.literal(1, { error: 'must be 1' }).optional(),

@@ -1,7 +1,7 @@
 /** Checks shared by the quality tests: the contract's error shape and the panels the traffic is made of. */
 import { demoPanel } from '../../../web/state/demo-panel';
 
-/** The contract's error body (shared/api-v1.md, "Errors"). */
+/** The contract's error body (docs/api.md, "Errors"). */
 export interface ContractError {
   code: string;
   message: string;
