@@ -39,7 +39,7 @@ const spillover = (page: Page) =>
   page.locator('qdp-crosstalk-table table[aria-label="Spillover by channel"]').innerText();
 
 describe('the panel page', () => {
-  it('opening / shows the demo panel with spectra, crosstalk and material cautions, at 1280 px and 390 px', async () => {
+  it("opening / shows the demo's six curves and cadmium note, fits a 390 px phone, and logs no errors", async () => {
     const { page, problems } = await open(app.baseUrl + '/');
     expect(await page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toContain(
       'Demo: six targets',
@@ -66,7 +66,8 @@ describe('the panel page', () => {
     await expect.poll(() => spillover(page)).not.toBe(before);
     await shot(page, '02-typed-width-1280', page.locator('qdp-spectrum-chart svg'));
     const typed = await spillover(page);
-    // The chart's upper edge of the 605/40 band sits at 625 nm (the red band's lower edge is at 635): drag it 40 px right.
+    // The chart's upper edge of the 605/40 band sits at 625 nm (the red band's lower edge is at 635): drag it 40 px
+    // right.
     const handle = page.locator('qdp-spectrum-chart g.handle[data-channel="c4"][data-edge="high"] line');
     await handle.scrollIntoViewIfNeeded();
     const box = (await handle.boundingBox())!;
@@ -87,18 +88,22 @@ describe('the panel page', () => {
     await page.close();
   });
 
-  it('an out-of-range emission peak is kept as typed, marked invalid with the reachable range, and the last numbers stay', async () => {
-    const { page } = await open(app.baseUrl + '/');
-    const before = await spillover(page);
-    const peak = page.locator('qdp-probe-card').nth(1).locator('qdp-number-field[data-field="emissionPeakNm"]');
-    await peak.locator('input').fill('990');
-    await expect.poll(() => peak.locator('[role="alert"]').count()).toBe(1);
-    expect(await peak.locator('input').inputValue()).toBe('990');
-    expect(await peak.locator('[role="alert"]').innerText()).toMatch(/\d{3}.*\d{3}/);
-    expect(await spillover(page)).toBe(before);
-    await shot(page, '04-invalid-peak-1280', peak);
-    await page.close();
-  });
+  it(
+    'an out-of-range emission peak is kept as typed, marked ' +
+      'invalid with the reachable range, and the last numbers stay',
+    async () => {
+      const { page } = await open(app.baseUrl + '/');
+      const before = await spillover(page);
+      const peak = page.locator('qdp-probe-card').nth(1).locator('qdp-number-field[data-field="emissionPeakNm"]');
+      await peak.locator('input').fill('990');
+      await expect.poll(() => peak.locator('[role="alert"]').count()).toBe(1);
+      expect(await peak.locator('input').inputValue()).toBe('990');
+      expect(await peak.locator('[role="alert"]').innerText()).toMatch(/\d{3}.*\d{3}/);
+      expect(await spillover(page)).toBe(before);
+      await shot(page, '04-invalid-peak-1280', peak);
+      await page.close();
+    },
+  );
 
   it('share stores the panel and the link opens the same panel as a shared copy that can be duplicated', async () => {
     const { page, problems } = await open(app.baseUrl + '/');
@@ -126,7 +131,7 @@ describe('the panel page', () => {
     await page.close();
   });
 
-  it('exporting the ordering sheet downloads a CSV with every probe and each channel written as "bandpass 605/20"', async () => {
+  it('exporting the ordering sheet gives a CSV with every probe and channels as "bandpass 605/20"', async () => {
     const { page } = await open(app.baseUrl + '/');
     const [download] = await Promise.all([
       page.waitForEvent('download'),
@@ -144,28 +149,32 @@ describe('the panel page', () => {
     await page.close();
   });
 
-  it('a title, label and target of <img src=x onerror=alert(1)> are shown as text after a share round trip, with no dialog', async () => {
-    const evil = '<img src=x onerror=alert(1)>';
-    const { page, problems } = await open(app.baseUrl + '/');
-    await page.locator('qdp-panel-app header input[type="text"]').first().fill(evil);
-    await page.locator('qdp-panel-app header input[type="text"]').first().press('Tab');
-    const card = page.locator('qdp-probe-card').first();
-    await card.getByLabel('Label').fill(evil);
-    await card.getByLabel('Label').press('Tab');
-    await card.getByLabel('Target').fill(evil);
-    await card.getByLabel('Target').press('Tab');
-    await page.getByRole('button', { name: /Share: store/ }).click();
-    const url = await page.getByLabel('Share link').inputValue();
-    const other = await open(url);
-    await other.page.getByText('Shared copy (read only)').waitFor();
-    expect(await other.page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toBe(evil);
-    expect(await other.page.locator('qdp-probe-card').first().locator('header strong').innerText()).toBe(evil);
-    expect(await other.page.locator('qdp-crosstalk-table table').first().innerText()).toContain(evil);
-    expect(await other.page.locator('img').count()).toBe(0);
-    await other.page.waitForTimeout(300);
-    await shot(other.page, '07-xss-as-text-1280', other.page.locator('qdp-probe-card').first());
-    expect([...problems, ...other.problems]).toEqual([]);
-    await other.page.close();
-    await page.close();
-  });
+  it(
+    'a title, label and target of <img src=x onerror=alert(1)> ' +
+      'are shown as text after a share round trip, with no dialog',
+    async () => {
+      const evil = '<img src=x onerror=alert(1)>';
+      const { page, problems } = await open(app.baseUrl + '/');
+      await page.locator('qdp-panel-app header input[type="text"]').first().fill(evil);
+      await page.locator('qdp-panel-app header input[type="text"]').first().press('Tab');
+      const card = page.locator('qdp-probe-card').first();
+      await card.getByLabel('Label').fill(evil);
+      await card.getByLabel('Label').press('Tab');
+      await card.getByLabel('Target').fill(evil);
+      await card.getByLabel('Target').press('Tab');
+      await page.getByRole('button', { name: /Share: store/ }).click();
+      const url = await page.getByLabel('Share link').inputValue();
+      const other = await open(url);
+      await other.page.getByText('Shared copy (read only)').waitFor();
+      expect(await other.page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toBe(evil);
+      expect(await other.page.locator('qdp-probe-card').first().locator('header strong').innerText()).toBe(evil);
+      expect(await other.page.locator('qdp-crosstalk-table table').first().innerText()).toContain(evil);
+      expect(await other.page.locator('img').count()).toBe(0);
+      await other.page.waitForTimeout(300);
+      await shot(other.page, '07-xss-as-text-1280', other.page.locator('qdp-probe-card').first());
+      expect([...problems, ...other.problems]).toEqual([]);
+      await other.page.close();
+      await page.close();
+    },
+  );
 });

@@ -59,7 +59,7 @@ async function typeRun(el: Updating, label: string, text: string): Promise<void>
 }
 
 describe('<qdp-channel-list>', () => {
-  it("<qdp-channel-list> renders one card per channel of the demo panel, in order, with the panel's excitation lines", async () => {
+  it("renders one card per channel of the demo panel, in order, with the panel's excitation lines", async () => {
     const panel = demoPanel();
     const el = await mount(panel);
     const shown = cards(el);
@@ -68,7 +68,7 @@ describe('<qdp-channel-list>', () => {
     for (const c of shown) expect(c.lines).toEqual([405]);
   });
 
-  it('<qdp-channel-list> re-renders when given a panel with one channel more, passing detectors and errors by index', async () => {
+  it('re-renders when given a panel with one channel more, passing detectors and errors by index', async () => {
     const el = await mount(panelWithChannels(2));
     expect(cards(el)).toHaveLength(2);
     el.panel = panelWithChannels(3);
@@ -86,7 +86,7 @@ describe('<qdp-channel-list>', () => {
     expect(shown.map((c) => c.errors)).toEqual([{}, {}, { 'filters.0.widthNm': 'widthNm must be positive' }]);
   });
 
-  it('<qdp-channel-list> "Add channel" fires one bubbling, composed channel-add that reaches the document', async () => {
+  it('"Add channel" fires one bubbling, composed channel-add that reaches the document', async () => {
     const el = await mount(panelWithChannels(2));
     const seen: Event[] = [];
     document.addEventListener('channel-add', (e) => seen.push(e), { once: true });
@@ -95,7 +95,7 @@ describe('<qdp-channel-list>', () => {
     expect(seen[0].composed).toBe(true);
   });
 
-  it("<qdp-channel-list> lets a card's channel-remove bubble out with that card's index, read by its keyboard label", async () => {
+  it("lets a card's channel-remove bubble out with that card's index, read by its keyboard label", async () => {
     const el = await mount(panelWithChannels(3));
     const removed: number[] = [];
     el.addEventListener('channel-remove', (e) => removed.push((e as CustomEvent<{ index: number }>).detail.index));
@@ -105,7 +105,7 @@ describe('<qdp-channel-list>', () => {
     expect(removed).toEqual([1]);
   });
 
-  it('<qdp-channel-list> fires spectral-run with the typed start, bin count and bin width, named on its button', async () => {
+  it('fires spectral-run with the typed start, bin count and bin width, named on its button', async () => {
     const el = await mount(panelWithChannels(2));
     const runs: unknown[] = [];
     el.addEventListener('spectral-run', (e) => runs.push((e as CustomEvent).detail));
@@ -117,7 +117,7 @@ describe('<qdp-channel-list>', () => {
     expect(runs).toEqual([{ startNm: 500, bins: 8, binWidthNm: 12.5 }]);
   });
 
-  it("<qdp-channel-list> turns the run off when it would start below 200 nm or end beyond 2000 nm (the API's range)", async () => {
+  it("turns the run off when it would start below 200 nm or end beyond 2000 nm (the API's range)", async () => {
     const el = await mount(panelWithChannels(2));
     await typeRun(el, 'Bins', '16');
     await typeRun(el, 'Bin width', '10');
@@ -156,7 +156,7 @@ describe('<qdp-channel-list>', () => {
     expect(runButton(el).disabled).toBe(true);
   });
 
-  it('<qdp-channel-list> near maxChannels allows a run only up to the room left and says how much room there is', async () => {
+  it('near maxChannels allows a run only up to the room left and says how much room there is', async () => {
     const el = await mount(panelWithChannels(6), (l) => (l.maxChannels = 10));
     expect(el.shadowRoot!.querySelector('.note')!.textContent).toBe('4 more channels allowed (at most 10).');
     await typeRun(el, 'Bins', '5');

@@ -60,7 +60,7 @@ describe('<qdp-crosstalk-table>', () => {
     expect(shadeOf(0.01)).toBeGreaterThan(shadeOf(0.0001));
   });
 
-  it('colours cells by class, never by a style attribute (the page CSP blocks those), darker for more crosstalk', async () => {
+  it('colours cells by class (no style attribute: the CSP blocks those), darker for more crosstalk', async () => {
     const el = await mount(view);
     const cells = [...el.shadowRoot!.querySelectorAll('td')];
     expect(cells.every((c) => !c.hasAttribute('style'))).toBe(true);
@@ -107,42 +107,49 @@ describe('<qdp-crosstalk-table>', () => {
     expect(table.querySelectorAll('tbody tr').length).toBe(16);
   });
 
-  it('computePanel shows a larger shot-noise factor for a dim target whose channel a bright probe bleeds into, as predictUnmixingNoise gives', async () => {
-    // Invented two-dot panel: a bright orange dot whose red tail lands in a dim red dot's channel.
-    const panel: PanelSpec = {
-      version: 1,
-      excitation: [{ wavelengthNm: 405, powerRel: 1 }],
-      probes: [
-        { id: 'b', label: 'Bright dot', material: 'cdse', emissionPeakNm: 605, quantumYield: 0.5, abundance: 1 },
-        { id: 'd', label: 'Dim dot', material: 'cdse', emissionPeakNm: 635, quantumYield: 0.5, abundance: 0.05 },
-      ],
-      channels: [
-        { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] },
-        { id: 'c2', label: 'Red', filters: [{ type: 'bandpass', centerNm: 640, widthNm: 20 }] },
-      ],
-    };
-    const result = computePanel(panel, { byBrightness: false });
-    if (!result.ok) throw new Error(result.error.message);
-    const { evaluation: ev, crosstalk } = result.value;
-    // Independent reading: scale collected so the brightest own signal is 1,000 photons, then the library's Poisson model.
-    const a = [1, 0.05];
-    const prim = ev.primaryChannel as number[];
-    const own = prim.map((c, p) => a[p] * ev.collected[c][p]);
-    const k = 1000 / Math.max(...own);
-    const direct = predictUnmixingNoise({
-      mixingPhotons: ev.collected.map((r) => r.map((x) => x * k)),
-      abundance: a,
-      primaryChannel: prim,
-    });
-    const factor = direct.sd.map((s, p) => s! / a[p] / (Math.sqrt(own[p] * k) / (own[p] * k)));
-    expect(crosstalk.shotNoise!.factor[1]!).toBeCloseTo(factor[1], 9);
-    expect(crosstalk.shotNoise!.relativeSd[0]!).toBeCloseTo(direct.sd[0]!, 9);
-    expect(crosstalk.shotNoise!.factor[1]!).toBeGreaterThan(crosstalk.shotNoise!.factor[0]! * 1.2);
-    const el = await mount(crosstalk);
-    const lines = [...el.shadowRoot!.querySelectorAll('li span.shot')].map((n) => n.textContent!);
-    expect(lines[1]).toContain(
-      `With shot noise (1,000 photons for the brightest target): SD ${Number((direct.sd[1]! / a[1]).toPrecision(2))} of its signal, ${factor[1].toFixed(1)}× the SD it would have alone`,
-    );
-    expect(el.shadowRoot!.querySelector('p.shot-note')!.textContent).toContain('nominal');
-  });
+  it(
+    'computePanel shows a larger shot-noise factor for a dim target whose ' +
+      'channel a bright probe bleeds into, as predictUnmixingNoise gives',
+    async () => {
+      // Invented two-dot panel: a bright orange dot whose red tail lands in a dim red dot's channel.
+      const panel: PanelSpec = {
+        version: 1,
+        excitation: [{ wavelengthNm: 405, powerRel: 1 }],
+        probes: [
+          { id: 'b', label: 'Bright dot', material: 'cdse', emissionPeakNm: 605, quantumYield: 0.5, abundance: 1 },
+          { id: 'd', label: 'Dim dot', material: 'cdse', emissionPeakNm: 635, quantumYield: 0.5, abundance: 0.05 },
+        ],
+        channels: [
+          { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] },
+          { id: 'c2', label: 'Red', filters: [{ type: 'bandpass', centerNm: 640, widthNm: 20 }] },
+        ],
+      };
+      const result = computePanel(panel, { byBrightness: false });
+      if (!result.ok) throw new Error(result.error.message);
+      const { evaluation: ev, crosstalk } = result.value;
+      // Independent reading: scale collected so the brightest own signal is 1,000 photons, then the library's Poisson
+      // model.
+      const a = [1, 0.05];
+      const prim = ev.primaryChannel as number[];
+      const own = prim.map((c, p) => a[p] * ev.collected[c][p]);
+      const k = 1000 / Math.max(...own);
+      const direct = predictUnmixingNoise({
+        mixingPhotons: ev.collected.map((r) => r.map((x) => x * k)),
+        abundance: a,
+        primaryChannel: prim,
+      });
+      const factor = direct.sd.map((s, p) => s! / a[p] / (Math.sqrt(own[p] * k) / (own[p] * k)));
+      expect(crosstalk.shotNoise!.factor[1]!).toBeCloseTo(factor[1], 9);
+      expect(crosstalk.shotNoise!.relativeSd[0]!).toBeCloseTo(direct.sd[0]!, 9);
+      expect(crosstalk.shotNoise!.factor[1]!).toBeGreaterThan(crosstalk.shotNoise!.factor[0]! * 1.2);
+      const el = await mount(crosstalk);
+      const lines = [...el.shadowRoot!.querySelectorAll('li span.shot')].map((n) => n.textContent!);
+      const sd = Number((direct.sd[1]! / a[1]).toPrecision(2));
+      expect(lines[1]).toContain(
+        `With shot noise (1,000 photons for the brightest target): SD ${sd} of its signal, ` +
+          `${factor[1].toFixed(1)}× the SD it would have alone`,
+      );
+      expect(el.shadowRoot!.querySelector('p.shot-note')!.textContent).toContain('nominal');
+    },
+  );
 });

@@ -10,14 +10,25 @@ function parseCsv(text: string): string[][] {
   let quoted = false;
   for (let i = 0; i < text.length; i++) {
     const ch = text[i];
-    if (quoted) {
-      if (ch === '"' && text[i + 1] === '"') ((cell += '"'), i++);
-      else if (ch === '"') quoted = false;
-      else cell += ch;
-    } else if (ch === '"') quoted = true;
-    else if (ch === ',') (row.push(cell), (cell = ''));
-    else if (ch === '\r' && text[i + 1] === '\n') (row.push(cell), rows.push(row), (row = []), (cell = ''), i++);
-    else cell += ch;
+    if (quoted && ch === '"' && text[i + 1] === '"') {
+      cell += '"';
+      i++;
+    } else if (ch === '"') {
+      quoted = !quoted;
+    } else if (quoted) {
+      cell += ch;
+    } else if (ch === ',') {
+      row.push(cell);
+      cell = '';
+    } else if (ch === '\r' && text[i + 1] === '\n') {
+      row.push(cell);
+      rows.push(row);
+      row = [];
+      cell = '';
+      i++;
+    } else {
+      cell += ch;
+    }
   }
   return rows;
 }
@@ -44,7 +55,7 @@ describe('ordering sheet CSV', () => {
     expect(describeFilter({ type: 'shortpass', edgeNm: 550.25 })).toBe('shortpass 550.3');
   });
 
-  it('orderingSheetCsv(panel, resolved) lists each probe with its resolved size and each channel with its filters', () => {
+  it("orderingSheetCsv writes each probe's resolved size, each channel's filters, and escapes formula text", () => {
     const csv = orderingSheetCsv(
       {
         version: 1,

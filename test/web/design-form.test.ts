@@ -78,23 +78,27 @@ describe('<qdp-design-form>', () => {
     expect(button(el, 'Propose').disabled).toBe(false);
   });
 
-  it("Propose after typing 'plenty' as target 1's abundance shows the API's message for that field and starts nothing", async () => {
-    const el = await mount();
-    let proposed = 0;
-    document.body.addEventListener('panel-proposed', () => proposed++);
-    const abundance = page.elementLocator(el).getByLabelText('abundance').first();
-    await userEvent.clear(abundance);
-    await userEvent.type(abundance, 'plenty');
-    await userEvent.click(button(el, 'Propose'));
-    await until(() => el.shadowRoot!.querySelector('.error') !== null);
-    expect(el.shadowRoot!.querySelector('.error')!.textContent).toBe(
-      'targets[0].abundance must be a number greater than 0 or one of high, medium, low',
-    );
-    expect(button(el, 'Cancel').disabled).toBe(true);
-    expect(button(el, 'Propose').disabled).toBe(false);
-    await new Promise((r) => setTimeout(r, 300));
-    expect(proposed).toBe(0);
-  });
+  it(
+    "Propose after typing 'plenty' as target 1's abundance " +
+      "shows the API's message for that field and starts nothing",
+    async () => {
+      const el = await mount();
+      let proposed = 0;
+      document.body.addEventListener('panel-proposed', () => proposed++);
+      const abundance = page.elementLocator(el).getByLabelText('abundance').first();
+      await userEvent.clear(abundance);
+      await userEvent.type(abundance, 'plenty');
+      await userEvent.click(button(el, 'Propose'));
+      await until(() => el.shadowRoot!.querySelector('.error') !== null);
+      expect(el.shadowRoot!.querySelector('.error')!.textContent).toBe(
+        'targets[0].abundance must be a number greater than 0 or one of high, medium, low',
+      );
+      expect(button(el, 'Cancel').disabled).toBe(true);
+      expect(button(el, 'Propose').disabled).toBe(false);
+      await new Promise((r) => setTimeout(r, 300));
+      expect(proposed).toBe(0);
+    },
+  );
 
   it('Propose with an excitation line that is not a number shows an error and starts nothing', async () => {
     const el = await mount();

@@ -14,7 +14,7 @@ function typeInto(input: HTMLInputElement, text: string): void {
 }
 
 describe('editors', () => {
-  it('<qdp-number-field> fires value-change for a number and keeps non-numeric text, marked invalid, without firing', async () => {
+  it('fires value-change for a number and keeps non-numeric text, marked invalid, without firing', async () => {
     const el = document.createElement('qdp-number-field');
     el.label = 'Emission peak';
     el.value = 605;
@@ -74,7 +74,7 @@ describe('editors', () => {
     expect(el.shadowRoot!.textContent).toContain('emission peak 605 nm · FWHM 29 nm');
   });
 
-  it("<qdp-probe-card> shows its material's hazard level, notes and cautions beside the probe, never calling it safe", async () => {
+  it("shows its material's hazard level, notes and cautions beside the probe, never calling it safe", async () => {
     const el = document.createElement('qdp-probe-card');
     el.probe = { id: 'p1', label: 'Orange', material: 'cdse', emissionPeakNm: 605 };
     el.materials = listMaterials();
@@ -122,7 +122,7 @@ describe('editors', () => {
 });
 
 describe('editors: messages without a field of their own', () => {
-  it('<qdp-probe-card> lists a message about its label (a field with no number input) in the card as an alert', async () => {
+  it('lists a message about its label (a field with no number input) in the card as an alert', async () => {
     const el = document.createElement('qdp-probe-card');
     el.probe = { id: 'p1', label: 'Orange', material: 'cdse', emissionPeakNm: 605 };
     el.materials = listMaterials();
@@ -133,7 +133,7 @@ describe('editors: messages without a field of their own', () => {
     expect(alerts).toEqual(['probes[0].label must be at most 200 characters']);
   });
 
-  it('<qdp-probe-card> shows a message about its emission peak under that field only, not again in the card', async () => {
+  it('shows a message about its emission peak under that field only, not again in the card', async () => {
     const el = document.createElement('qdp-probe-card');
     el.probe = { id: 'p1', label: 'Orange', material: 'cdse', emissionPeakNm: 2500 };
     el.materials = listMaterials();

@@ -46,7 +46,7 @@ describe('URL fragment', () => {
     expect(() => decodeFragment('#v9.abc')).toThrow(/another version/);
   });
 
-  it('thinTable(points, 5) interpolates linearly between the original samples at five evenly spaced wavelengths', () => {
+  it('thinTable(points, 5) interpolates linearly between the samples at five evenly spaced wavelengths', () => {
     const line: [number, number][] = Array.from({ length: 11 }, (_, i) => [500 + i * 10, i * 2]);
     const five = thinTable(line, 5);
     expect(five.map((p) => p[0])).toEqual([500, 525, 550, 575, 600]);
@@ -54,25 +54,29 @@ describe('URL fragment', () => {
     five.forEach(([nm, v]) => expect(v).toBeCloseTo((nm - 500) / 5, 9));
   });
 
-  it('thinTable(points, 3) writes wavelengths to 0.01 nm and values to 5 significant digits, and keeps a short table', () => {
-    const table: [number, number][] = [
-      [400.123, 1.234567],
-      [450.5, 2.2222222],
-      [500.001, 3.3333333],
-      [600.4567, 4.4444444],
-    ];
-    // Evenly spaced: 400.123, 500.28985 and 600.4567 nm; 500.28985 nm lies 0.28885 nm past the 500.001 nm row.
-    expect(thinTable(table, 3)).toEqual([
-      [400.12, 1.2346],
-      [500.29, Number((3.3333333 + (4.4444444 - 3.3333333) * (0.28885 / 100.4557)).toPrecision(5))],
-      [600.46, 4.4444],
-    ]);
-    expect(thinTable(table, 4)).toBe(table);
-  });
+  it(
+    'thinTable(points, 3) writes wavelengths to 0.01 nm and ' +
+      'values to 5 significant digits, and keeps a short table',
+    () => {
+      const table: [number, number][] = [
+        [400.123, 1.234567],
+        [450.5, 2.2222222],
+        [500.001, 3.3333333],
+        [600.4567, 4.4444444],
+      ];
+      // Evenly spaced: 400.123, 500.28985 and 600.4567 nm; 500.28985 nm lies 0.28885 nm past the 500.001 nm row.
+      expect(thinTable(table, 3)).toEqual([
+        [400.12, 1.2346],
+        [500.29, Number((3.3333333 + (4.4444444 - 3.3333333) * (0.28885 / 100.4557)).toPrecision(5))],
+        [600.46, 4.4444],
+      ]);
+      expect(thinTable(table, 4)).toBe(table);
+    },
+  );
 
   // Recorded from encodeFragment as the page wrote it before its thinning moved onto the library's resampleTable:
   // the same panel must keep the same link text.
-  it('encodeFragment(a panel with four long measured tables) is byte for byte the link text the page wrote before', async () => {
+  it('encodeFragment(panel with four long tables) is byte for byte the link text the page wrote before', async () => {
     const curve = (n: number, from: number, step: number, f: (i: number) => number): [number, number][] =>
       Array.from({ length: n }, (_, i) => [Number((from + i * step).toFixed(4)), f(i)]);
     const long: PageState = {
@@ -85,7 +89,9 @@ describe('URL fragment', () => {
             id: 'p1',
             material: 'custom',
             measuredEmission: { points: curve(2000, 400.013, 0.1731, (i) => Math.exp(-(((i - 1000) / 310) ** 2))) },
-            extinction: { points: curve(1500, 300.5, 0.2, (i) => 60000 * Math.exp(-(((i - 400) / 200) ** 2)) + i / 7) },
+            extinction: {
+              points: curve(1500, 300.5, 0.2, (i) => 60000 * Math.exp(-(((i - 400) / 200) ** 2)) + i / 7),
+            },
           },
         ],
         channels: [

@@ -131,7 +131,7 @@ describe('<qdp-spectrum-input>', () => {
     expect(el.shadowRoot!.querySelector('[role="status"]')!.textContent).toContain('Loaded 3 points');
   });
 
-  it('<qdp-spectrum-input> shows the parser message naming the line of a bad row, keeps the text and fires nothing', async () => {
+  it('shows the parser message naming the line of a bad row, keeps the text and fires nothing', async () => {
     const { el, loaded } = await mountInput();
     paste(el, '500,0.1\n490,0.5');
     await el.updateComplete;

@@ -16,7 +16,7 @@ async function mount(exclude: ('cadmium' | 'lead')[] = []) {
 }
 
 describe('<qdp-material-notes>', () => {
-  it('says the demo panel contains cadmium and shows each used material with its hazard level and cautions', async () => {
+  it("demo panel: 'contains cadmium', each material's hazard level and cautions, local rules cited", async () => {
     const el = await mount();
     const text = el.shadowRoot!.textContent!;
     expect(text).toContain('This panel contains cadmium.');

@@ -60,7 +60,7 @@ function smallChart(): SVGSVGElement {
 }
 
 describe('<qdp-panel-actions>', () => {
-  it('<qdp-panel-actions> saves the panel as JSON under a file name made from its title, readable back as the same panel', async () => {
+  it('saves the panel as JSON under a file name made from its title, readable back as the same panel', async () => {
     const panel = demoPanel();
     const el = await mount(panel);
     button(el, 'Panel (JSON)').click();
@@ -80,11 +80,12 @@ describe('<qdp-panel-actions>', () => {
     expect(downloads.map((d) => d.filename)).toEqual(['panel.json', 'panel.json']);
   });
 
-  it('<qdp-panel-actions> with a blocked reason disables share, the sheet and the JSON, says why, and saves nothing', async () => {
+  it('with a blocked reason disables share, the sheet and the JSON, says why, and saves nothing', async () => {
     const el = await mount(demoPanel(), (a) => (a.blocked = 'a probe is made of an excluded material.'));
     expect(panelButtons(el).map((b) => b.disabled)).toEqual([true, true, true]);
     expect(el.shadowRoot!.querySelector('p[role="status"]')!.textContent).toBe(
-      'Sharing and the ordering sheet and panel file are off (the chart can still be saved): a probe is made of an excluded material.',
+      'Sharing and the ordering sheet and panel file are off (the chart can still be saved): ' +
+        'a probe is made of an excluded material.',
     );
     for (const b of panelButtons(el)) b.click();
     await new Promise((r) => setTimeout(r, 50));
@@ -100,7 +101,7 @@ describe('<qdp-panel-actions>', () => {
     expect(el.shadowRoot!.textContent).not.toContain('are off');
   });
 
-  it('<qdp-panel-actions> gives every button a visible name and keeps a polite live region for its messages', async () => {
+  it('gives every button a visible name and keeps a polite live region for its messages', async () => {
     const el = await mount(demoPanel());
     const names = [...el.shadowRoot!.querySelectorAll('button')].map((b) => b.textContent!.trim());
     expect(names).toEqual([
@@ -114,7 +115,7 @@ describe('<qdp-panel-actions>', () => {
     expect(el.shadowRoot!.querySelector('p[role="status"][aria-live="polite"]')).not.toBeNull();
   });
 
-  it('<qdp-panel-actions> share with no API reachable disables the buttons while it tries, then says sharing failed and shows no link', async () => {
+  it("share without a reachable API: buttons off while it tries, then 'Sharing failed: …' and no link", async () => {
     const el = await mount(demoPanel());
     button(el, 'Share').click();
     await el.updateComplete;
@@ -125,7 +126,7 @@ describe('<qdp-panel-actions>', () => {
     expect(el.shadowRoot!.querySelector('input')).toBeNull();
   });
 
-  it("<qdp-panel-actions> ordering sheet with no API reachable is saved from the page's own values and says so", async () => {
+  it("ordering sheet with no API reachable is saved from the page's own values and says so", async () => {
     const panel = demoPanel();
     const localResolved = panel.probes.map((_, i) => ({
       diameterNm: 3.25 + i,
@@ -150,7 +151,7 @@ describe('<qdp-panel-actions>', () => {
     );
   });
 
-  it('<qdp-panel-actions> saves the chart as a standalone SVG document without its page style or tab stops', async () => {
+  it('saves the chart as a standalone SVG document without its page style or tab stops', async () => {
     const el = await mount(demoPanel(), (a) => (a.chartSvg = smallChart));
     button(el, 'Chart (SVG)').click();
     expect(downloads.map((d) => d.filename)).toEqual([

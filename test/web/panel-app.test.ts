@@ -53,7 +53,7 @@ const linkedPeak = (index: number) =>
     .emissionPeakNm;
 
 describe('<qdp-panel-app>', () => {
-  it('opens on the demo panel: six emission curves, a worst pair in the crosstalk section, cadmium in the notes', async () => {
+  it('opens on the demo panel: six curves, a worst pair in the crosstalk section, cadmium in the notes', async () => {
     const app = await openPage();
     expect(text(inner(app, 'qdp-crosstalk-table').shadowRoot!.querySelector('p.worst')!)).toMatch(
       /^Worst pair: .+ adds [\d.]+ % of .+'s own signal/,
@@ -63,57 +63,76 @@ describe('<qdp-panel-app>', () => {
     );
   });
 
-  it("typing 990 nm as the green CdSe dot's peak keeps 990 in the field, shows the size law's reach under it, and leaves the numbers as they were, marked stale; the link keeps 990", async () => {
-    const app = await openPage();
-    const before = crosstalkTable(app).textContent;
-    const field = peakField(app, 1);
-    await typePeak(app, 1, '990');
-    // The model's refusal names the peaks the CdSe size law reaches (two wavelengths in nm).
-    await expect
-      .poll(() => fieldMessage(field))
-      .toMatch(/^an emission peak of 990 nm is out of reach .+ \d{3}–\d{3} nm/);
-    expect(field.shadowRoot!.querySelector('input')!.value).toBe('990');
-    expect(headerAlert(app)).toBe(`Not updated: ${fieldMessage(field)}`);
-    expect(staleNote(app)).not.toBeNull();
-    expect(crosstalkTable(app).textContent).toBe(before);
-    expect(linkedPeak(1)).toBe(990);
-  });
+  it(
+    "typing 990 nm as the green CdSe dot's peak keeps 990 in the field and the link, " +
+      "shows the size law's reach under the field and leaves the last numbers, marked stale",
+    async () => {
+      const app = await openPage();
+      const before = crosstalkTable(app).textContent;
+      const field = peakField(app, 1);
+      await typePeak(app, 1, '990');
+      // The model's refusal names the peaks the CdSe size law reaches (two wavelengths in nm).
+      await expect
+        .poll(() => fieldMessage(field))
+        .toMatch(/^an emission peak of 990 nm is out of reach .+ \d{3}–\d{3} nm/);
+      expect(field.shadowRoot!.querySelector('input')!.value).toBe('990');
+      expect(headerAlert(app)).toBe(`Not updated: ${fieldMessage(field)}`);
+      expect(staleNote(app)).not.toBeNull();
+      expect(crosstalkTable(app).textContent).toBe(before);
+      expect(linkedPeak(1)).toBe(990);
+    },
+  );
 
-  it("typing 2500 nm as a peak shows the API's own message under the field, 'probes[1].emissionPeakNm must be between 200 and 2000 nm', and computes nothing", async () => {
-    const app = await openPage();
-    const before = crosstalkTable(app).textContent;
-    const field = peakField(app, 1);
-    await typePeak(app, 1, '2500');
-    await expect.poll(() => fieldMessage(field)).toBe('probes[1].emissionPeakNm must be between 200 and 2000 nm');
-    expect(field.shadowRoot!.querySelector('input')!.value).toBe('2500');
-    expect(headerAlert(app)).toBe('Not updated: probes[1].emissionPeakNm must be between 200 and 2000 nm');
-    expect(staleNote(app)).not.toBeNull();
-    expect(crosstalkTable(app).textContent).toBe(before);
-    expect(linkedPeak(1)).toBe(2500);
-  });
+  it(
+    "typing 2500 nm as a peak shows the API's message 'probes[1].emissionPeakNm must be between 200 and 2000 nm' " +
+      'under the field and in the header, keeps 2500 in the field and the link, ' +
+      'and leaves the last numbers, marked stale',
+    async () => {
+      const app = await openPage();
+      const before = crosstalkTable(app).textContent;
+      const field = peakField(app, 1);
+      await typePeak(app, 1, '2500');
+      await expect.poll(() => fieldMessage(field)).toBe('probes[1].emissionPeakNm must be between 200 and 2000 nm');
+      expect(field.shadowRoot!.querySelector('input')!.value).toBe('2500');
+      expect(headerAlert(app)).toBe('Not updated: probes[1].emissionPeakNm must be between 200 and 2000 nm');
+      expect(staleNote(app)).not.toBeNull();
+      expect(crosstalkTable(app).textContent).toBe(before);
+      expect(linkedPeak(1)).toBe(2500);
+    },
+  );
 
-  it('typing 540 nm after a refused 2500 nm clears both messages and the stale mark and changes the crosstalk numbers', async () => {
-    const app = await openPage();
-    const before = crosstalkTable(app).textContent;
-    const field = peakField(app, 1);
-    await typePeak(app, 1, '2500');
-    await expect.poll(() => staleNote(app)).not.toBeNull();
-    await typePeak(app, 1, '540');
-    await expect.poll(() => staleNote(app)).toBeNull();
-    expect(fieldMessage(field)).toBe('');
-    expect(headerAlert(app)).toBe('');
-    expect(crosstalkTable(app).textContent).not.toBe(before);
-    expect(linkedPeak(1)).toBe(540);
-  });
+  it(
+    'typing 540 nm after a refused 2500 nm clears both messages ' +
+      'and the stale mark and changes the crosstalk numbers',
+    async () => {
+      const app = await openPage();
+      const before = crosstalkTable(app).textContent;
+      const field = peakField(app, 1);
+      await typePeak(app, 1, '2500');
+      await expect.poll(() => staleNote(app)).not.toBeNull();
+      await typePeak(app, 1, '540');
+      await expect.poll(() => staleNote(app)).toBeNull();
+      expect(fieldMessage(field)).toBe('');
+      expect(headerAlert(app)).toBe('');
+      expect(crosstalkTable(app).textContent).not.toBe(before);
+      expect(linkedPeak(1)).toBe(540);
+    },
+  );
 
-  it("clicking 'New panel' shows the API's message that a panel needs a probe and turns sharing and export off", async () => {
-    const app = await openPage();
-    const newPanel = [...app.shadowRoot!.querySelectorAll('header button')].find((b) => b.textContent === 'New panel')!;
-    await userEvent.click(newPanel);
-    await expect.poll(() => headerAlert(app)).toBe('Not updated: probes needs at least one probe');
-    const actions = inner(app, 'qdp-panel-actions');
-    await actions.updateComplete;
-    expect(text(actions)).toContain('Sharing and the ordering sheet and panel file are off');
-    expect(text(actions)).toContain('fix the marked input first.');
-  });
+  it(
+    "clicking 'New panel' shows the API's message 'probes needs at least one probe' " +
+      'and turns sharing and export off',
+    async () => {
+      const app = await openPage();
+      const newPanel = [...app.shadowRoot!.querySelectorAll('header button')].find(
+        (b) => b.textContent === 'New panel',
+      )!;
+      await userEvent.click(newPanel);
+      await expect.poll(() => headerAlert(app)).toBe('Not updated: probes needs at least one probe');
+      const actions = inner(app, 'qdp-panel-actions');
+      await actions.updateComplete;
+      expect(text(actions)).toContain('Sharing and the ordering sheet and panel file are off');
+      expect(text(actions)).toContain('fix the marked input first.');
+    },
+  );
 });

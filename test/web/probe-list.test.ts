@@ -81,7 +81,7 @@ describe('<qdp-probe-list>', () => {
     expect(seen[0].composed).toBe(true);
   });
 
-  it("<qdp-probe-list> lets a card's probe-remove bubble out with that card's index, read by its keyboard label", async () => {
+  it("lets a card's probe-remove bubble out with that card's index, read by its keyboard label", async () => {
     const el = await mount(panelWithProbes(3));
     const removed: number[] = [];
     el.addEventListener('probe-remove', (e) => removed.push((e as CustomEvent<{ index: number }>).detail.index));

@@ -70,18 +70,22 @@ async function mount(): Promise<SpectrumChart> {
 afterEach(() => document.body.replaceChildren());
 
 describe('<qdp-spectrum-chart>', () => {
-  it('draws a 525 nm curve solid in the colour the CIE 1931 table gives 525 nm, and a 760 nm curve dashed in #4a4a4a with an NIR note', async () => {
-    const el = await mount();
-    const paths = el.shadowRoot!.querySelectorAll<SVGPathElement>('path.curve');
-    expect(paths.length).toBe(2);
-    expect(colourDifference(paths[0].getAttribute('stroke')!, referenceColour(525))).toBeLessThan(SAME_COLOUR);
-    expect(paths[0].getAttribute('stroke-dasharray')).toBe('none');
-    expect(paths[0].getAttribute('d')!.length).toBeGreaterThan(50);
-    // Near-infrared curves share one dark grey (the chart's NIR style), told apart by their dashes and the legend.
-    expect(paths[1].getAttribute('stroke')).toBe('#4a4a4a');
-    expect(paths[1].getAttribute('stroke-dasharray')).toBe('6 3');
-    expect(el.shadowRoot!.textContent).toContain('NIR: near-infrared emission');
-  });
+  it(
+    'draws a 525 nm curve solid in the colour the CIE 1931 table gives ' +
+      '525 nm, and a 760 nm curve dashed in #4a4a4a with an NIR note',
+    async () => {
+      const el = await mount();
+      const paths = el.shadowRoot!.querySelectorAll<SVGPathElement>('path.curve');
+      expect(paths.length).toBe(2);
+      expect(colourDifference(paths[0].getAttribute('stroke')!, referenceColour(525))).toBeLessThan(SAME_COLOUR);
+      expect(paths[0].getAttribute('stroke-dasharray')).toBe('none');
+      expect(paths[0].getAttribute('d')!.length).toBeGreaterThan(50);
+      // Near-infrared curves share one dark grey (the chart's NIR style), told apart by their dashes and the legend.
+      expect(paths[1].getAttribute('stroke')).toBe('#4a4a4a');
+      expect(paths[1].getAttribute('stroke-dasharray')).toBe('6 3');
+      expect(el.shadowRoot!.textContent).toContain('NIR: near-infrared emission');
+    },
+  );
 
   it('draws the x axis in nm with d3-axis tick labels and marks the excitation line', async () => {
     const el = await mount();
@@ -91,7 +95,7 @@ describe('<qdp-spectrum-chart>', () => {
     expect(el.shadowRoot!.textContent).toContain('ex 405');
   });
 
-  it('redraws the curve with a new path in the CIE 1931 colour of 545 nm when its peak moves from 525 to 545 nm', async () => {
+  it('moving a peak from 525 to 545 nm redraws its path in the CIE 1931 colour of 545 nm', async () => {
     const el = await mount();
     const before = el.shadowRoot!.querySelector('path.curve')!.getAttribute('d');
     el.curves = [{ id: 'p1', label: 'Green', peakNm: 545, spectrum: gaussian(545, 30) }];

@@ -13,7 +13,8 @@ function lobe(wavelengthNm: number, meanNm: number, sigmaBelowNm: number, sigmaA
 /**
  * CIE 1931 2° colour-matching functions x̄, ȳ, z̄ at one wavelength, from the multi-lobe fit of
  * Wyman, Sloan, Shirley, "Simple Analytic Approximations to the CIE XYZ Color Matching Functions", JCGT 2(2), 2013
- * (coefficients of its 1931 multi-lobe fit, eq. 2; typed in from memory and checked in the tests against the CIE table).
+ * (coefficients of its 1931 multi-lobe fit, eq. 2; typed in from memory and checked in the tests against the CIE
+ * table).
  */
 export function cie1931Cmf(wavelengthNm: number): [number, number, number] {
   const l = wavelengthNm;

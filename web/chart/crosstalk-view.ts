@@ -50,7 +50,9 @@ export interface ShotNoiseView {
   withBackground: boolean;
 }
 
-/** Smallest fraction the tables print as a number (0.1 %): below it the model's own error dominates (common practice). */
+/**
+ * Smallest fraction the tables print as a number (0.1 %): below it the model's own error dominates (common practice).
+ */
 export const SMALLEST_SHOWN = 0.001;
 
 /** A fraction as a percentage with two significant digits, or "< 0.1 %" / "—" (no value). */
@@ -71,7 +73,7 @@ export function cellLightness(value: number | null | undefined): number {
 /** Number of shades in the cell ramp: enough to rank values, few enough to tell apart in greyscale. */
 export const SHADES = 10;
 
-/** Ramp step 0 (palest) … SHADES − 1 (darkest) for a cell; cells carry it as class "s<k>" (no style attribute: CSP). */
+/** Ramp step 0 (palest) … SHADES − 1 (darkest) of a cell, carried as class "s<k>" (CSP: no style attribute). */
 export function shadeOf(value: number | null | undefined): number {
   return Math.round(((98 - cellLightness(value)) / 72) * (SHADES - 1));
 }

@@ -54,7 +54,7 @@ export class ChannelCard extends LitElement {
   /** The panel's excitation lines, nm. */
   @property({ attribute: false }) lines: number[] = [];
   @property({ attribute: false }) detectors: Pick<DetectorClass, 'id' | 'name'>[] = [];
-  /** Errors keyed by the field path inside the channel, e.g. "filters.0.widthNm"; those without a field show together. */
+  /** Errors keyed by the path inside the channel, e.g. "filters.0.widthNm"; those without a field show together. */
   @property({ attribute: false }) errors: Record<string, string> = {};
 
   static override styles = css`
@@ -124,36 +124,79 @@ export class ChannelCard extends LitElement {
   }
 
   private num(j: number, f: FilterSpec, key: 'centerNm' | 'widthNm' | 'edgeNm', label: string) {
+    const typed = (e: CustomEvent<{ value?: number }>) =>
+      e.detail.value !== undefined && this.setFilter(j, { ...f, [key]: e.detail.value } as FilterSpec);
     return html`<qdp-number-field
       .label=${label}
       unit="nm"
       .value=${(f as Record<string, unknown>)[key] as number}
       data-field=${`filters.${j}.${key}`}
       .error=${this.errors[`filters.${j}.${key}`] ?? ''}
-      @value-change=${(e: CustomEvent<{ value?: number }>) => e.detail.value !== undefined && this.setFilter(j, { ...f, [key]: e.detail.value } as FilterSpec)}
+      @value-change=${typed}
     ></qdp-number-field>`;
   }
 
-  private filterRow(f: FilterSpec, j: number) {
+  /** The filter's kind; choosing another puts a new filter of that kind where this one was. */
+  private kindChoice(f: FilterSpec, j: number) {
     const kind = (f.type === 'dichroic' ? 'longpass' : f.type) as FilterKind;
+    const chosen = (e: Event) =>
+      this.setFilter(j, filterOfKind((e.target as HTMLSelectElement).value as FilterKind, centreOf(f)));
+    return html`<label class="text"
+      >Filter ${j + 1}
+      <select @change=${chosen}>
+        ${KINDS.map(
+          (k) => html`<option value=${k} ?selected=${k === kind}>${k === 'table' ? 'measured table' : k}</option>`,
+        )}
+      </select></label
+    >`;
+  }
+
+  /** The numbers that place a filter: a bandpass's centre and width, an edge filter's edge, a table's summary. */
+  private filterFields(f: FilterSpec, j: number) {
+    if (f.type === 'bandpass')
+      return html`${this.num(j, f, 'centerNm', 'Centre')}${this.num(j, f, 'widthNm', 'Width (FWHM)')}`;
+    if (f.type === 'table') return html`<span>${describeFilter(f)}</span>`;
+    return this.num(j, f, 'edgeNm', 'Edge');
+  }
+
+  private filterRow(f: FilterSpec, j: number) {
+    const loaded = (e: CustomEvent<{ points: SpectrumPoints }>) =>
+      this.setFilter(j, { type: 'table', points: e.detail.points });
+    const message = this.errors[`filters.${j}`];
     return html`<div class="filter" aria-label=${`Filter ${j + 1}: ${describeFilter(f)}`}>
       <div class="row">
-        <label class="text"
-          >Filter ${j + 1}
-          <select
-            @change=${(e: Event) => this.setFilter(j, filterOfKind((e.target as HTMLSelectElement).value as FilterKind, centreOf(f)))}
-          >
-            ${KINDS.map((k) => html`<option value=${k} ?selected=${k === kind}>${k === 'table' ? 'measured table' : k}</option>`)}
-          </select></label
-        >
-        ${f.type === 'bandpass' ? html`${this.num(j, f, 'centerNm', 'Centre')}${this.num(j, f, 'widthNm', 'Width (FWHM)')}` : ''}
-        ${f.type === 'longpass' || f.type === 'shortpass' || f.type === 'dichroic' ? this.num(j, f, 'edgeNm', 'Edge') : ''}
-        ${f.type === 'table' ? html`<span>${describeFilter(f)}</span>` : ''}
-        ${this.channel.filters.length > 1 ? html`<button type="button" @click=${() => this.setFilter(j, null)}>Remove filter</button>` : ''}
+        ${this.kindChoice(f, j)} ${this.filterFields(f, j)}
+        ${
+          this.channel.filters.length > 1
+            ? html`<button type="button" @click=${() => this.setFilter(j, null)}>Remove filter</button>`
+            : ''
+        }
       </div>
-      ${f.type === 'table' ? html`<qdp-spectrum-input kind="transmission" label="filter transmission" @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.setFilter(j, { type: 'table', points: e.detail.points })}></qdp-spectrum-input>` : ''}
-      ${this.errors[`filters.${j}`] ? html`<p class="bad" role="alert">${this.errors[`filters.${j}`]}</p>` : ''}
+      ${
+        f.type === 'table'
+          ? html`<qdp-spectrum-input
+              kind="transmission"
+              label="filter transmission"
+              @spectrum-loaded=${loaded}
+            ></qdp-spectrum-input>`
+          : ''
+      }
+      ${message ? html`<p class="bad" role="alert">${message}</p>` : ''}
     </div>`;
+  }
+
+  private fireRemove(): void {
+    this.dispatchEvent(
+      new CustomEvent('channel-remove', { detail: { index: this.index }, bubbles: true, composed: true }),
+    );
+  }
+
+  /** Sets or clears one optional field of the channel: `undefined` removes it. */
+  private setOptional<K extends 'excitationNm' | 'detector'>(key: K, value: ChannelSpec[K] | undefined): void {
+    const next = { ...this.channel };
+    if (value === undefined) delete next[key];
+    else next[key] = value;
+    this.change(next);
   }
 
   /** The error keys this card shows in place: each filter's number fields and the filter as a whole. */
@@ -170,11 +213,7 @@ export class ChannelCard extends LitElement {
       c.excitationNm === undefined ? 'all' : String(Array.isArray(c.excitationNm) ? c.excitationNm[0] : c.excitationNm);
     return html` <header>
         <strong>${c.label || c.id}</strong>
-        <button
-          type="button"
-          aria-label=${`Remove channel ${c.label || c.id}`}
-          @click=${() => this.dispatchEvent(new CustomEvent('channel-remove', { detail: { index: this.index }, bubbles: true, composed: true }))}
-        >
+        <button type="button" aria-label=${`Remove channel ${c.label || c.id}`} @click=${this.fireRemove}>
           Remove
         </button>
       </header>
@@ -191,10 +230,7 @@ export class ChannelCard extends LitElement {
           <select
             @change=${(e: Event) => {
               const v = (e.target as HTMLSelectElement).value;
-              const next = { ...c };
-              if (v === 'all') delete next.excitationNm;
-              else next.excitationNm = Number(v);
-              this.change(next);
+              this.setOptional('excitationNm', v === 'all' ? undefined : Number(v));
             }}
           >
             <option value="all" ?selected=${ex === 'all'}>all lines</option>
@@ -204,16 +240,12 @@ export class ChannelCard extends LitElement {
         <label class="text"
           >Detector
           <select
-            @change=${(e: Event) => {
-              const v = (e.target as HTMLSelectElement).value;
-              const next = { ...c };
-              if (v) next.detector = v;
-              else delete next.detector;
-              this.change(next);
-            }}
+            @change=${(e: Event) => this.setOptional('detector', (e.target as HTMLSelectElement).value || undefined)}
           >
             <option value="" ?selected=${!c.detector}>ideal (QE 1)</option>
-            ${this.detectors.map((d) => html`<option value=${d.id} ?selected=${d.id === c.detector}>${d.name}</option>`)}
+            ${this.detectors.map(
+              (d) => html`<option value=${d.id} ?selected=${d.id === c.detector}>${d.name}</option>`,
+            )}
           </select></label
         >
       </div>
@@ -224,7 +256,7 @@ export class ChannelCard extends LitElement {
       >
         Add filter to this channel
       </button>
-      ${messagesBesides(this.errors, this.shownKeys()).map((message) => html`<p class="bad" role="alert">${message}</p>`)}`;
+      ${messagesBesides(this.errors, this.shownKeys()).map((m) => html`<p class="bad" role="alert">${m}</p>`)}`;
   }
 }
 

@@ -70,7 +70,16 @@ export class ChannelList extends LitElement {
       if (e.detail.value !== undefined) this.run = { ...this.run, [k]: e.detail.value };
     };
     return html`<div class="cards">
-        ${panel.channels.map((c, i) => html`<qdp-channel-card .channel=${c} .index=${i} .lines=${lines} .detectors=${this.detectors} .errors=${this.errors[i] ?? {}}></qdp-channel-card>`)}
+        ${panel.channels.map(
+          (c, i) =>
+            html`<qdp-channel-card
+              .channel=${c}
+              .index=${i}
+              .lines=${lines}
+              .detectors=${this.detectors}
+              .errors=${this.errors[i] ?? {}}
+            ></qdp-channel-card>`,
+        )}
       </div>
       <button type="button" ?disabled=${room < 1} @click=${() => this.fire('channel-add')}>Add channel</button>
       <fieldset>

@@ -22,11 +22,34 @@ function shotLine(v: CrosstalkView, j: number): string {
   const sd = s?.relativeSd[j];
   if (!s || sd === null || sd === undefined) return '';
   const f = s.factor[j];
-  return ` With shot noise (${s.photons.toLocaleString('en-US')} photons for the brightest target): SD ${sig2(sd)} of its signal${f === null || f === undefined ? '' : `, ${times(f)} the SD it would have alone`}.`;
+  const alone = f === null || f === undefined ? '' : `, ${times(f)} the SD it would have alone`;
+  const budget = `${s.photons.toLocaleString('en-US')} photons for the brightest target`;
+  return ` With shot noise (${budget}): SD ${sig2(sd)} of its signal${alone}.`;
 }
+
+/** Said above the numbers while they belong to an earlier, valid version of the panel. */
+const STALE_NOTE = html`<p class="stale" role="status">
+  These numbers are from the last valid panel; fix the marked field to update them.
+</p>`;
 
 const times = (v: number | null) =>
   v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`;
+
+/** The cell of light from probe t into probe u's channel ("own" on the diagonal). */
+function interferenceCell(v: CrosstalkView, t: number, u: number) {
+  if (t === u) return html`<td class="self">own</td>`;
+  const value = v.interference[t]?.[u];
+  return html`<td class=${cellClass(value ?? null)}>${formatFraction(value)}</td>`;
+}
+
+/** Said instead of a condition number when the channels cannot separate the probes. */
+const NO_CONDITION = '— (the channels cannot separate every probe)';
+
+/** The spillover table's last column when the background is on. */
+const SB_HEADER = html`<th scope="col">signal / background</th>`;
+
+/** A factor written without its × ("41", "3.2"): a condition number, a signal-to-background ratio; or a dash. */
+const bareFactor = (value: number | null | undefined) => times(value ?? null).replace('×', '');
 
 @customElement('qdp-crosstalk-table')
 export class CrosstalkTable extends LitElement {
@@ -100,7 +123,7 @@ export class CrosstalkTable extends LitElement {
     const label = (id: string) => v.probes.find((p) => p.id === id)?.label ?? id;
     const many = v.channels.length > 12;
     return html`
-      ${this.stale ? html`<p class="stale" role="status">These numbers are from the last valid panel; fix the marked field to update them.</p>` : ''}
+      ${this.stale ? STALE_NOTE : ''}
       <p class="worst">
         ${
           v.worst?.from && v.worst.into && v.worst.interference !== null
@@ -127,7 +150,7 @@ export class CrosstalkTable extends LitElement {
               (from, t) =>
                 html`<tr>
                   <th scope="row">${from.label}</th>
-                  ${v.probes.map((_, u) => (t === u ? html`<td class="self">own</td>` : html`<td class=${cellClass(v.interference[t]?.[u] ?? null)}>${formatFraction(v.interference[t]?.[u])}</td>`))}
+                  ${v.probes.map((_, u) => interferenceCell(v, t, u))}
                 </tr>`,
             )}
           </tbody>
@@ -159,9 +182,8 @@ export class CrosstalkTable extends LitElement {
           : ''
       }
       <p>
-        Condition number
-        ${v.conditionNumber === null ? '— (the channels cannot separate every probe)' : times(v.conditionNumber).replace('×', '')}:
-        the worst-case bound; a relative error in the measurements can grow by up to this factor in the unmixed amounts.
+        Condition number ${v.conditionNumber === null ? NO_CONDITION : bareFactor(v.conditionNumber)}: the worst-case
+        bound; a relative error in the measurements can grow by up to this factor in the unmixed amounts.
       </p>
       ${
         v.lotShift
@@ -184,7 +206,7 @@ export class CrosstalkTable extends LitElement {
           <thead>
             <tr>
               <th scope="col">channel</th>
-              ${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}${v.signalToBackground ? html`<th scope="col">signal / background</th>` : ''}
+              ${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}${v.signalToBackground ? SB_HEADER : ''}
             </tr>
           </thead>
           <tbody>
@@ -199,7 +221,7 @@ export class CrosstalkTable extends LitElement {
                       ${primary ? '● ' : ''}${below ? '< 0.1 %' : formatFraction(v.spillover[ci]?.[p])}
                     </td>`;
                   })}
-                  ${v.signalToBackground ? html`<td>${times(v.signalToBackground[ci] ?? null).replace('×', '')}</td>` : ''}
+                  ${v.signalToBackground ? html`<td>${bareFactor(v.signalToBackground[ci])}</td>` : ''}
                 </tr>`,
             )}
           </tbody>

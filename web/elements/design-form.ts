@@ -43,6 +43,22 @@ function excitationLines(text: string): { wavelengthNm: number }[] {
 /** A fraction as a percentage with three significant figures. */
 const percent = (x: number) => `${(100 * x).toPrecision(3)} %`;
 
+/** How far the search has got, after its status word: nodes or refinement steps, and the best value so far. */
+function progressText(progress: SearchProgress): string {
+  const steps = progress.stage === 'refine' ? 'refinement steps' : 'nodes visited';
+  const best = progress.incumbent !== null ? ` · best so far ${percent(progress.incumbent)}` : '';
+  return ` · ${progress.nodesVisited.toLocaleString('en')} ${steps}${best}`;
+}
+
+/** A labelled checkbox that reports its new state; the trailing space keeps a row of them apart. */
+function checkbox(checked: boolean, label: string, set: (on: boolean) => void) {
+  const changed = (e: Event) => set((e.target as HTMLInputElement).checked);
+  return html`<label><input type="checkbox" .checked=${checked} @change=${changed} /> ${label}</label> `;
+}
+
+/** The catalog-mode choice. */
+const CANDIDATES_ONLY = "choose only from the current panel's probes and channels";
+
 interface TargetRow {
   name: string;
   abundance: string;
@@ -220,6 +236,17 @@ export class DesignForm extends LitElement {
     );
   }
 
+  private addTarget(): void {
+    this.targets = [...this.targets, { name: `target ${this.targets.length + 1}`, abundance: 'medium' }];
+  }
+
+  /** Sets one end of the free-design window from its typed text. */
+  private setWindow(end: 0 | 1, text: string): void {
+    const next: [number, number] = [...this.windowNm];
+    next[end] = Number(text);
+    this.windowNm = next;
+  }
+
   private setTarget(i: number, field: keyof TargetRow, value: string): void {
     this.targets = this.targets.map((t, k) => (k === i ? { ...t, [field]: value } : t));
   }
@@ -262,11 +289,7 @@ export class DesignForm extends LitElement {
             </div>`,
         )}
         <datalist id="abundance-words">${WORDS.map((w) => html`<option value=${w}></option>`)}</datalist>
-        <button
-          type="button"
-          @click=${() => (this.targets = [...this.targets, { name: `target ${this.targets.length + 1}`, abundance: 'medium' }])}
-          ?disabled=${this.targets.length >= LIMITS.probes}
-        >
+        <button type="button" @click=${this.addTarget} ?disabled=${this.targets.length >= LIMITS.probes}>
           Add target
         </button>
       </fieldset>
@@ -278,13 +301,21 @@ export class DesignForm extends LitElement {
           .value=${this.excitationText}
           @input=${(e: Event) => (this.excitationText = (e.target as HTMLInputElement).value)}
       /></label>
-      ${this.candidates ? html`<label><input type="checkbox" .checked=${this.useCandidates} @change=${(e: Event) => (this.useCandidates = (e.target as HTMLInputElement).checked)} /> choose only from the current panel's probes and channels</label>` : ''}
+      ${this.candidates ? checkbox(this.useCandidates, CANDIDATES_ONLY, (on) => (this.useCandidates = on)) : ''}
       <fieldset ?disabled=${!free}>
         <legend>Free design</legend>
-        ${EXCLUSION_WORDS.map((word) => html`<label><input type="checkbox" .checked=${this.exclude.has(word)} @change=${(e: Event) => (this.exclude = this.toggle(this.exclude, word, (e.target as HTMLInputElement).checked))} /> ${word}-free</label> `)}
+        ${EXCLUSION_WORDS.map((word) =>
+          checkbox(
+            this.exclude.has(word),
+            `${word}-free`,
+            (on) => (this.exclude = this.toggle(this.exclude, word, on)),
+          ),
+        )}
         <div>
           Materials:
-          ${MATERIALS.map((m) => html`<label><input type="checkbox" .checked=${this.allowed.has(m.id)} @change=${(e: Event) => (this.allowed = this.toggle(this.allowed, m.id, (e.target as HTMLInputElement).checked))} /> ${m.name}</label> `)}
+          ${MATERIALS.map((m) =>
+            checkbox(this.allowed.has(m.id), m.name, (on) => (this.allowed = this.toggle(this.allowed, m.id, on))),
+          )}
         </div>
         <label
           >Window, nm
@@ -292,13 +323,13 @@ export class DesignForm extends LitElement {
             type="number"
             aria-label="window start"
             .value=${String(this.windowNm[0])}
-            @change=${(e: Event) => (this.windowNm = [Number((e.target as HTMLInputElement).value), this.windowNm[1]])} />
+            @change=${(e: Event) => this.setWindow(0, (e.target as HTMLInputElement).value)} />
           –
           <input
             type="number"
             aria-label="window end"
             .value=${String(this.windowNm[1])}
-            @change=${(e: Event) => (this.windowNm = [this.windowNm[0], Number((e.target as HTMLInputElement).value)])}
+            @change=${(e: Event) => this.setWindow(1, (e.target as HTMLInputElement).value)}
         /></label>
       </fieldset>
       <div class="row">
@@ -306,7 +337,7 @@ export class DesignForm extends LitElement {
         <button type="button" @click=${() => this.stop()} ?disabled=${!this.running}>Stop and keep best</button>
         <button type="button" @click=${() => this.cancel()} ?disabled=${!this.running}>Cancel</button>
         <output aria-live="polite" class="progress"
-          >${this.status}${this.progress && this.running ? html` · ${this.progress.nodesVisited.toLocaleString('en')} ${this.progress.stage === 'refine' ? 'refinement steps' : 'nodes visited'}${this.progress.incumbent !== null ? ` · best so far ${percent(this.progress.incumbent)}` : ''}` : ''}</output
+          >${this.status}${this.progress && this.running ? progressText(this.progress) : ''}</output
         >
       </div>
       ${this.error ? html`<p class="error" role="alert">${this.error}</p>` : ''}

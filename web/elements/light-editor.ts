@@ -4,7 +4,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { PanelSpec, SpectrumPoints } from '../../spectra/index';
+import type { BackgroundSpec, PanelSpec, SpectrumPoints } from '../../spectra/index';
 import { messagesBesides } from '../state/error-map';
 import './number-field';
 import './spectrum-input';
@@ -49,6 +49,41 @@ export class LightEditor extends LitElement {
     return messagesBesides(mine, [...shown, 'background.level']);
   }
 
+  private removeLine(p: PanelSpec, i: number) {
+    const remove = () => this.edit({ ...p, excitation: p.excitation.filter((_, k) => k !== i) });
+    return html`<button type="button" @click=${remove}>Remove line</button>`;
+  }
+
+  /** The background's level and what its shape comes from (the default model or a measured spectrum). */
+  private backgroundFields(p: PanelSpec, bg: BackgroundSpec) {
+    const level = (e: CustomEvent<{ value?: number }>) =>
+      e.detail.value !== undefined && this.edit({ ...p, background: { ...bg, level: e.detail.value } });
+    const useModel = () => this.edit({ ...p, background: { level: bg.level } });
+    return html`<qdp-number-field
+        label="Background level"
+        .value=${bg.level}
+        .error=${this.errors['background.level'] ?? ''}
+        @value-change=${level}
+      ></qdp-number-field>
+      ${
+        bg.points
+          ? html`<span>measured spectrum, ${bg.points.length} points</span
+              ><button type="button" @click=${useModel}>Use the default model</button>`
+          : html`<span>default model</span>`
+      }`;
+  }
+
+  /** Loading a measured background spectrum. */
+  private backgroundInput(p: PanelSpec, bg: BackgroundSpec) {
+    const loaded = (e: CustomEvent<{ points: SpectrumPoints }>) =>
+      this.edit({ ...p, background: { level: bg.level, points: e.detail.points } });
+    return html`<qdp-spectrum-input
+      kind="background"
+      label="measured background"
+      @spectrum-loaded=${loaded}
+    ></qdp-spectrum-input>`;
+  }
+
   override render() {
     const p = this.panel;
     if (!p) return html``;
@@ -78,7 +113,7 @@ export class LightEditor extends LitElement {
               .error=${this.errors[`excitation.${i}.powerRel`] ?? ''}
               @value-change=${setLine(i, 'powerRel')}
             ></qdp-number-field>
-            ${p.excitation.length > 1 ? html`<button type="button" @click=${() => this.edit({ ...p, excitation: p.excitation.filter((_, k) => k !== i) })}>Remove line</button>` : ''}
+            ${p.excitation.length > 1 ? this.removeLine(p, i) : ''}
           </div>`,
       )}
       <button
@@ -101,19 +136,9 @@ export class LightEditor extends LitElement {
           />
           Sample background (autofluorescence)</label
         >
-        ${
-          bg
-            ? html`<qdp-number-field
-                  label="Background level"
-                  .value=${bg.level}
-                  .error=${this.errors['background.level'] ?? ''}
-                  @value-change=${(e: CustomEvent<{ value?: number }>) => e.detail.value !== undefined && this.edit({ ...p, background: { ...bg, level: e.detail.value } })}
-                ></qdp-number-field>
-                ${bg.points ? html`<span>measured spectrum, ${bg.points.length} points</span><button type="button" @click=${() => this.edit({ ...p, background: { level: bg.level } })}>Use the default model</button>` : html`<span>default model</span>`}`
-            : ''
-        }
+        ${bg ? this.backgroundFields(p, bg) : ''}
       </div>
-      ${bg ? html`<qdp-spectrum-input kind="background" label="measured background" @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.edit({ ...p, background: { level: bg.level, points: e.detail.points } })}></qdp-spectrum-input>` : ''}
+      ${bg ? this.backgroundInput(p, bg) : ''}
       ${this.lightMessages(p).map((message) => html`<p role="alert">${message}</p>`)}`;
   }
 }

@@ -14,7 +14,18 @@ export type MaterialNotesInput = Pick<Material, 'id' | 'name' | 'elements' | 'to
 /** Shown under every panel: the tool summarises hazards, it does not assess them. */
 export const GENERAL_CAUTION =
   'These notes summarise published hazards; they are not a safety assessment and no probe here is described as safe. ' +
-  'Handle nanoparticles and their waste as your local regulations, institutional safety rules and licensed practice require.';
+  'Handle nanoparticles and their waste as your local regulations, institutional safety rules and licensed practice ' +
+  'require.';
+
+/** The summary when no probe is made with an excludable class. */
+const NONE_CONTAINED =
+  `No probe in this panel is made with ${PANEL_EXCLUSIONS.join(' or ')}` + " (by the tool's material list).";
+
+/** Which probes break the exclusions and why, and what that turns off. */
+function blockedText(panel: PanelSpec, offending: Map<string, string>): string {
+  const probes = [...offending].map(([id, why]) => `${panel.probes.find((p) => p.id === id)?.label ?? id} ${why}`);
+  return `Blocked: ${probes.join('; ')}. Share and export stay off until they are replaced or the choice is changed.`;
+}
 
 /** Excitation sources are usually lasers. */
 export const LASER_CAUTION =
@@ -88,9 +99,7 @@ export class MaterialNotes extends LitElement {
     const offending = offendingProbes(panel, this.materials, this.exclude);
     const used = [...new Set(panel.probes.map((p) => p.material))];
     return html`
-      <p class="summary">
-        ${contained.length ? `This panel contains ${contained.join(' and ')}.` : `No probe in this panel is made with ${PANEL_EXCLUSIONS.join(' or ')} (by the tool's material list).`}
-      </p>
+      <p class="summary">${contained.length ? `This panel contains ${contained.join(' and ')}.` : NONE_CONTAINED}</p>
       <fieldset>
         <legend>Exclude material classes</legend>
         ${PANEL_EXCLUSIONS.map(
@@ -105,7 +114,7 @@ export class MaterialNotes extends LitElement {
             > `,
         )}
       </fieldset>
-      ${offending.size ? html`<p class="blocked" role="alert">Blocked: ${[...offending].map(([id, why]) => `${panel.probes.find((p) => p.id === id)?.label ?? id} ${why}`).join('; ')}. Share and export stay off until they are replaced or the choice is changed.</p>` : ''}
+      ${offending.size ? html`<p class="blocked" role="alert">${blockedText(panel, offending)}</p>` : ''}
       ${used.map((id) => {
         const m = this.materials.find((x) => x.id === id);
         const probes = panel.probes

@@ -85,7 +85,8 @@ export class PanelActions extends LitElement {
       resolved = (await evaluateOnServer(this.panel)).probes;
       this.message = 'Ordering sheet saved (values from the server).';
     } catch (e) {
-      this.message = `Ordering sheet saved with values computed in this page (server: ${e instanceof Error ? e.message : String(e)}).`;
+      const why = e instanceof Error ? e.message : String(e);
+      this.message = `Ordering sheet saved with values computed in this page (server: ${why}).`;
     }
     downloadText(orderingSheetCsv(this.panel, resolved), `${fileStem(this.panel)}-order.csv`, 'text/csv;charset=utf-8');
   }
@@ -102,23 +103,31 @@ export class PanelActions extends LitElement {
       );
   }
 
+  private saveJson(): void {
+    if (!this.panel) return;
+    downloadText(JSON.stringify(this.panel, null, 2), `${fileStem(this.panel)}.json`, 'application/json');
+  }
+
+  /** The shared link in a field that selects itself, for copying by hand. */
+  private linkField() {
+    const selectAll = (e: Event) => (e.target as HTMLInputElement).select();
+    return html`<label class="row"
+      >Share link <input type="text" readonly .value=${this.link} @focus=${selectAll}
+    /></label>`;
+  }
+
   override render() {
     const off = !!this.blocked || this.busy;
+    const offNote =
+      'Sharing and the ordering sheet and panel file are off (the chart can still be saved): ' + this.blocked;
     return html`<div class="row">
         <button type="button" ?disabled=${off} @click=${this.share}>Share: store and copy link</button>
         <button type="button" ?disabled=${off} @click=${this.exportCsv}>Ordering sheet (CSV)</button>
-        <button
-          type="button"
-          ?disabled=${off}
-          @click=${() => this.panel && downloadText(JSON.stringify(this.panel, null, 2), `${fileStem(this.panel)}.json`, 'application/json')}
-        >
-          Panel (JSON)
-        </button>
+        <button type="button" ?disabled=${off} @click=${this.saveJson}>Panel (JSON)</button>
         <button type="button" @click=${() => this.exportImage('svg')}>Chart (SVG)</button>
         <button type="button" @click=${() => this.exportImage('png')}>Chart (PNG)</button>
       </div>
-      ${this.blocked ? html`<p class="msg" role="status">Sharing and the ordering sheet and panel file are off (the chart can still be saved): ${this.blocked}</p>` : ''}
-      ${this.link ? html`<label class="row">Share link <input type="text" readonly .value=${this.link} @focus=${(e: Event) => (e.target as HTMLInputElement).select()} /></label>` : ''}
+      ${this.blocked ? html`<p class="msg" role="status">${offNote}</p>` : ''} ${this.link ? this.linkField() : ''}
       <p class="msg" role="status" aria-live="polite">${this.message}</p>`;
   }
 }

@@ -179,6 +179,36 @@ export class PanelApp extends LitElement {
     }
   }
 
+  private onProbeChange(e: CustomEvent<{ index: number; probe: ProbeSpec }>): void {
+    this.apply(setProbe(this.panel, e.detail.index, e.detail.probe));
+  }
+
+  private onChannelChange(e: CustomEvent<{ index: number; channel: ChannelSpec }>): void {
+    this.apply(setChannel(this.panel, e.detail.index, e.detail.channel));
+  }
+
+  private onSpectralRun(e: CustomEvent<{ startNm: number; bins: number; binWidthNm: number }>): void {
+    this.apply(addSpectralRun(this.panel, e.detail.startNm, e.detail.bins, e.detail.binWidthNm));
+  }
+
+  /** A dragged edge moves the filter; the drag's last event is one history step, the ones before it replace it. */
+  private onEdgeDrag(e: CustomEvent<EdgeDragDetail>): void {
+    if (!this.sharedId) this.apply(moveEdge(this.panel, e.detail), e.detail.done ? 'push' : 'replace');
+  }
+
+  /** The panel's probes (without their channel choice) and channels, for a search among them; none when empty. */
+  private candidates() {
+    const p = this.panel;
+    if (p.probes.length === 0 || p.channels.length === 0) return undefined;
+    return { probes: p.probes.map(({ channel: _c, ...probe }) => probe), channels: p.channels };
+  }
+
+  private sharedNote() {
+    return html`<p class="shared" role="note">
+      Shared copy (read only). <button type="button" @click=${this.duplicate}>Duplicate and edit</button>
+    </p>`;
+  }
+
   override render() {
     const p = this.panel;
     const c = this.computed;
@@ -211,7 +241,7 @@ export class PanelApp extends LitElement {
           /></label>
         </div>
         ${this.notice ? html`<p class="notice" role="status">${this.notice}</p>` : ''}
-        ${this.sharedId ? html`<p class="shared" role="note">Shared copy (read only). <button type="button" @click=${this.duplicate}>Duplicate and edit</button></p>` : ''}
+        ${this.sharedId ? this.sharedNote() : ''}
         ${this.error ? html`<p class="error" role="alert">Not updated: ${this.error.message}</p>` : ''}
       </header>
       <main
@@ -223,13 +253,13 @@ export class PanelApp extends LitElement {
         <div
           class="edit"
           ?inert=${!!this.sharedId}
-          @probe-change=${(e: CustomEvent<{ index: number; probe: ProbeSpec }>) => this.apply(setProbe(p, e.detail.index, e.detail.probe))}
+          @probe-change=${this.onProbeChange}
           @probe-remove=${(e: CustomEvent<{ index: number }>) => this.apply(removeProbe(p, e.detail.index))}
           @probe-add=${() => this.apply(addProbe(p))}
-          @channel-change=${(e: CustomEvent<{ index: number; channel: ChannelSpec }>) => this.apply(setChannel(p, e.detail.index, e.detail.channel))}
+          @channel-change=${this.onChannelChange}
           @channel-remove=${(e: CustomEvent<{ index: number }>) => this.apply(removeChannel(p, e.detail.index))}
           @channel-add=${() => this.apply(addChannel(p))}
-          @spectral-run=${(e: CustomEvent<{ startNm: number; bins: number; binWidthNm: number }>) => this.apply(addSpectralRun(p, e.detail.startNm, e.detail.bins, e.detail.binWidthNm))}
+          @spectral-run=${this.onSpectralRun}
           @panel-edit=${(e: CustomEvent<{ panel: PanelSpec }>) => this.apply(e.detail.panel)}
         >
           <section aria-labelledby="h-light">
@@ -257,9 +287,7 @@ export class PanelApp extends LitElement {
               panel's probes and channels) that keep the worst bleed-through low, and loads the proposal here for
               editing.
             </p>
-            <qdp-design-form
-              .candidates=${p.probes.length > 0 && p.channels.length > 0 ? { probes: p.probes.map(({ channel: _c, ...probe }) => probe), channels: p.channels } : undefined}
-            ></qdp-design-form>
+            <qdp-design-form .candidates=${this.candidates()}></qdp-design-form>
           </section>
         </div>
         <div class="results">
@@ -282,7 +310,7 @@ export class PanelApp extends LitElement {
               .background=${c?.chart.background}
               .excitationNm=${p.excitation.map((l) => l.wavelengthNm)}
               .yLabel=${this.byBrightness ? 'relative emission × brightness' : 'emission (peak = 1)'}
-              @edge-drag=${(e: CustomEvent<EdgeDragDetail>) => !this.sharedId && this.apply(moveEdge(p, e.detail), e.detail.done ? 'push' : 'replace')}
+              @edge-drag=${this.onEdgeDrag}
             ></qdp-spectrum-chart>
           </section>
           <section aria-labelledby="h-crosstalk">

@@ -25,6 +25,21 @@ export type ProbeCardMaterial = Pick<
   | 'toxicity'
 >;
 
+/** A number for the read-out: `digits` decimals, or a dash when there is none. */
+const fmt = (v: number | null | undefined, digits = 0) =>
+  v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(digits);
+
+/** The model's prediction for the probe as one line of text. */
+function predictionText(pr: ProbePrediction): string {
+  return [
+    `Predicted: core ${fmt(pr.diameterNm, 2)} nm`,
+    `first exciton ${fmt(pr.firstExcitonNm)} nm`,
+    `emission peak ${fmt(pr.emissionPeakNm)} nm`,
+    `FWHM ${fmt(pr.fwhmNm)} nm`,
+    `relative brightness ${fmt(pr.relativeBrightness * 100)} %${pr.measured ? ' · measured emission' : ''}`,
+  ].join(' · ');
+}
+
 /** The probe's fields the card edits as numbers. */
 type NumberKey = 'emissionPeakNm' | 'diameterNm' | 'sizeDispersionPct' | 'quantumYield' | 'abundance' | 'fwhmNm';
 
@@ -157,6 +172,71 @@ export class ProbeCard extends LitElement {
     this.change(patch);
   }
 
+  private fireRemove(): void {
+    this.dispatchEvent(
+      new CustomEvent('probe-remove', { detail: { index: this.index }, bubbles: true, composed: true }),
+    );
+  }
+
+  /** Switches between giving the size by emission peak and by core diameter, starting from the predicted value. */
+  private sizeBy(choice: string): void {
+    const pr = this.prediction;
+    if (choice === 'diameter')
+      this.change({ diameterNm: Number(fmt(pr?.diameterNm ?? 4, 2)) || 4, emissionPeakNm: undefined });
+    else this.change({ emissionPeakNm: Math.round(pr?.emissionPeakNm ?? 605), diameterNm: undefined });
+  }
+
+  /** The "Size given by" choice of a sized material. */
+  private sizeChoice(byDiameter: boolean) {
+    return html`<label class="text"
+      >Size given by
+      <select @change=${(e: Event) => this.sizeBy((e.target as HTMLSelectElement).value)}>
+        <option value="peak" ?selected=${!byDiameter}>emission peak</option>
+        <option value="diameter" ?selected=${byDiameter}>core diameter</option>
+      </select></label
+    >`;
+  }
+
+  /** The number fields that set the dot's size and shape. */
+  private sizeFields(sizeKey: NumberKey | null, sized: boolean, m: ProbeCardMaterial | undefined) {
+    const hint = (v: number | null | undefined) => String(v ?? '');
+    return html`${sizeKey === 'diameterNm' ? this.num('Core diameter', 'diameterNm', 'nm', false) : ''}
+    ${sizeKey === 'emissionPeakNm' ? this.num('Emission peak', 'emissionPeakNm', 'nm', false) : ''}
+    ${sized ? this.num('Size dispersion σ/d', 'sizeDispersionPct', '%', true, hint(m?.typicalSizeDispersionPct)) : ''}
+    ${this.probe.material === 'carbon' ? this.num('FWHM', 'fwhmNm', 'nm', true, hint(m?.typicalFwhmNm)) : ''}
+    ${this.num('Quantum yield', 'quantumYield', '0–1', true, hint(m?.typicalQuantumYield))}`;
+  }
+
+  /** The channel choice: automatic, or one of the panel's channels. */
+  private channelChoice() {
+    const p = this.probe;
+    return html`<label class="text"
+      >Channel
+      <select @change=${(e: Event) => this.change({ channel: (e.target as HTMLSelectElement).value || undefined })}>
+        <option value="" ?selected=${!p.channel}>automatic (most light)</option>
+        ${this.channels.map(
+          (c) => html`<option value=${c.id} ?selected=${c.id === p.channel}>${c.label || c.id}</option>`,
+        )}
+      </select></label
+    >`;
+  }
+
+  /** Loading a measured emission, and going back to the model's curve once one is loaded. */
+  private measuredEmissionRow() {
+    const loaded = (e: CustomEvent<{ points: SpectrumPoints }>) =>
+      this.change({ measuredEmission: { points: e.detail.points } });
+    return html`<div class="row">
+      <qdp-spectrum-input kind="emission" label="measured emission" @spectrum-loaded=${loaded}></qdp-spectrum-input>
+      ${
+        this.probe.measuredEmission
+          ? html`<button type="button" @click=${() => this.change({ measuredEmission: undefined })}>
+              Use the model's curve again
+            </button>`
+          : ''
+      }
+    </div>`;
+  }
+
   override render() {
     const p = this.probe;
     const m = this.materials.find((x) => x.id === p.material);
@@ -171,17 +251,9 @@ export class ProbeCard extends LitElement {
     if (sized) shown.push('sizeDispersionPct');
     if (p.material === 'carbon') shown.push('fwhmNm');
     const pr = this.prediction;
-    const fmt = (v: number | null | undefined, d = 0) =>
-      v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(d);
     return html` <header>
         <strong>${p.label || p.id}</strong>
-        <button
-          type="button"
-          aria-label=${`Remove probe ${p.label || p.id}`}
-          @click=${() => this.dispatchEvent(new CustomEvent('probe-remove', { detail: { index: this.index }, bubbles: true, composed: true }))}
-        >
-          Remove
-        </button>
+        <button type="button" aria-label=${`Remove probe ${p.label || p.id}`} @click=${this.fireRemove}>Remove</button>
       </header>
       ${this.blocked ? html`<p class="bad" role="alert">Blocked: ${this.blocked}.</p>` : ''}
       <div class="row">
@@ -206,38 +278,12 @@ export class ProbeCard extends LitElement {
         <label class="text"
           >Material
           <select @change=${(e: Event) => this.setMaterial((e.target as HTMLSelectElement).value)}>
-            ${this.materials.map((x) => html`<option value=${x.id} ?selected=${x.id === p.material}>${x.name}</option>`)}
+            ${this.materials.map(
+              (x) => html`<option value=${x.id} ?selected=${x.id === p.material}>${x.name}</option>`,
+            )}
           </select></label
         >
-        ${
-          sized
-            ? html`<label class="text"
-                >Size given by
-                <select
-                  @change=${(e: Event) => {
-                    const v = (e.target as HTMLSelectElement).value;
-                    if (v === 'diameter')
-                      this.change({ diameterNm: Number(fmt(pr?.diameterNm ?? 4, 2)) || 4, emissionPeakNm: undefined });
-                    else this.change({ emissionPeakNm: Math.round(pr?.emissionPeakNm ?? 605), diameterNm: undefined });
-                  }}
-                >
-                  <option value="peak" ?selected=${!byDiameter}>emission peak</option>
-                  <option value="diameter" ?selected=${byDiameter}>core diameter</option>
-                </select></label
-              >`
-            : ''
-        }
-        ${sizeKey === 'diameterNm' ? this.num('Core diameter', 'diameterNm', 'nm', false) : sizeKey ? this.num('Emission peak', 'emissionPeakNm', 'nm', false) : ''}
-        ${sized ? this.num('Size dispersion σ/d', 'sizeDispersionPct', '%', true, String(m?.typicalSizeDispersionPct ?? '')) : ''}
-        ${p.material === 'carbon' ? this.num('FWHM', 'fwhmNm', 'nm', true, String(m?.typicalFwhmNm ?? '')) : ''}
-        ${this.num('Quantum yield', 'quantumYield', '0–1', true, String(m?.typicalQuantumYield ?? ''))}
-        <label class="text"
-          >Channel
-          <select @change=${(e: Event) => this.change({ channel: (e.target as HTMLSelectElement).value || undefined })}>
-            <option value="" ?selected=${!p.channel}>automatic (most light)</option>
-            ${this.channels.map((c) => html`<option value=${c.id} ?selected=${c.id === p.channel}>${c.label || c.id}</option>`)}
-          </select></label
-        >
+        ${sized ? this.sizeChoice(byDiameter) : ''} ${this.sizeFields(sizeKey, sized, m)} ${this.channelChoice()}
       </div>
       ${
         m
@@ -258,13 +304,7 @@ export class ProbeCard extends LitElement {
           : ''
       }
       ${messagesBesides(this.errors, shown).map((message) => html`<p class="bad" role="alert">${message}</p>`)}
-      <p class="pred" aria-label="Predicted properties">
-        ${
-          pr
-            ? `Predicted: core ${fmt(pr.diameterNm, 2)} nm · first exciton ${fmt(pr.firstExcitonNm)} nm · emission peak ${fmt(pr.emissionPeakNm)} nm · FWHM ${fmt(pr.fwhmNm)} nm · relative brightness ${fmt(pr.relativeBrightness * 100)} %${pr.measured ? ' · measured emission' : ''}`
-            : 'No prediction yet.'
-        }
-      </p>
+      <p class="pred" aria-label="Predicted properties">${pr ? predictionText(pr) : 'No prediction yet.'}</p>
       ${
         pr?.warnings.length
           ? html`<ul class="hazard">
@@ -272,14 +312,7 @@ export class ProbeCard extends LitElement {
             </ul>`
           : ''
       }
-      <div class="row">
-        <qdp-spectrum-input
-          kind="emission"
-          label="measured emission"
-          @spectrum-loaded=${(e: CustomEvent<{ points: SpectrumPoints }>) => this.change({ measuredEmission: { points: e.detail.points } })}
-        ></qdp-spectrum-input>
-        ${p.measuredEmission ? html`<button type="button" @click=${() => this.change({ measuredEmission: undefined })}>Use the model's curve again</button>` : ''}
-      </div>`;
+      ${this.measuredEmissionRow()}`;
   }
 }
 

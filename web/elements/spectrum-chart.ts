@@ -14,6 +14,19 @@ import { WidthController } from '../chart/resize-controller';
 import { chartReadout } from '../chart/readout';
 
 const HEIGHT_PX = 300;
+/** Top and bottom of the plot area, px. */
+const TOP = MARGIN.top;
+const BOTTOM = HEIGHT_PX - MARGIN.bottom;
+
+/** The legend's mark for a near-infrared curve, and the note that explains it. */
+const NIR_MARK = html` <strong>NIR</strong>`;
+const NIR_NOTE = html`<p class="readout">
+  NIR: near-infrared emission (700 nm and beyond) is nearly invisible to the eye, so it is drawn as a dashed dark-grey
+  line rather than in a colour.
+</p>`;
+
+/** What a handle's slider is called after its channel's name. */
+const EDGE_NAMES = { edge: 'edge', low: 'lower edge', high: 'upper edge' } as const;
 
 @customElement('qdp-spectrum-chart')
 export class SpectrumChart extends LitElement {
@@ -154,10 +167,77 @@ export class SpectrumChart extends LitElement {
     );
   }
 
+  /** Each channel's passband, shaded, and its name where names fit. */
+  private passbandLayer(g: ChartGeometry, labelBands: boolean) {
+    return this.passbands.map(
+      (p, i) => svg`<path class="passband" data-channel=${p.id} d=${g.passbandPaths[i]} fill="#8a94a6"
+          fill-opacity="0.16" stroke="#5b6475" stroke-width="1" stroke-dasharray="3 2"></path>
+        ${labelBands ? this.bandName(g, p) : ''}`,
+    );
+  }
+
+  /** A channel's name above the middle of its editable edges (none without edges: a measured table). */
+  private bandName(g: ChartGeometry, p: ChartPassband) {
+    if (!p.handles.length) return '';
+    const middleNm = (p.handles[0].wavelengthNm + p.handles[p.handles.length - 1].wavelengthNm) / 2;
+    return svg`<text x=${g.x(middleNm)} y=${TOP + 10} text-anchor="middle" fill="#3b4252" font-size="10"
+      >${p.label}</text>`;
+  }
+
+  /** The sample background, filled, when it is on. */
+  private backgroundLayer(g: ChartGeometry) {
+    if (!this.background) return '';
+    return svg`<path class="background" d=${g.backgroundPath} fill="#b08d57" fill-opacity="0.22" stroke="#8a6a35"
+      stroke-width="1"></path>`;
+  }
+
+  /** Each excitation line in its own colour, labelled. */
+  private excitationLayer(g: ChartGeometry) {
+    return this.excitationNm.map(
+      (nm) => svg`<line class="excitation" x1=${g.x(nm)} x2=${g.x(nm)} y1=${TOP} y2=${BOTTOM}
+          stroke=${wavelengthToCss(nm)} stroke-width="2.5"></line>
+        <text x=${g.x(nm) + 3} y=${BOTTOM - 4} fill="#3b2b6b" font-size="10">ex ${nm}</text>`,
+    );
+  }
+
+  /** Each probe's emission over a dark halo, in its wavelength colour (near-infrared: dashed grey). */
+  private curveLayer(g: ChartGeometry) {
+    return this.curves.map(
+      (c, i) => svg`<path d=${g.curvePaths[i]} fill="none" stroke="#222" stroke-opacity="0.45"
+          stroke-width="3.5"></path>
+        <path class="curve" data-probe=${c.id} d=${g.curvePaths[i]} fill="none" stroke=${wavelengthToCss(c.peakNm)}
+          stroke-width="2" stroke-dasharray=${isNearInfrared(c.peakNm) ? '6 3' : 'none'}></path>`,
+    );
+  }
+
+  /** The dashed line at the readout's wavelength. */
+  private hoverLine(g: ChartGeometry) {
+    if (this.hoverNm === null) return '';
+    const x = g.x(this.hoverNm);
+    return svg`<line x1=${x} x2=${x} y1=${TOP} y2=${BOTTOM} stroke="#111" stroke-width="1"
+      stroke-dasharray="2 2"></line>`;
+  }
+
+  /** The draggable filter edges: sliders for the keyboard, a wide invisible grip for the pointer. */
+  private handleLayer(g: ChartGeometry) {
+    const [minNm, maxNm] = this.domainNm;
+    return this.passbands.flatMap((p) =>
+      p.handles.map((h) => {
+        const x = g.x(h.wavelengthNm);
+        return svg`<g class="handle" tabindex="0" role="slider" aria-label=${`${p.label}: ${EDGE_NAMES[h.edge]}`}
+            aria-valuenow=${h.wavelengthNm} aria-valuemin=${minNm} aria-valuemax=${maxNm} data-channel=${p.id}
+            data-edge=${h.edge} @pointerdown=${(e: PointerEvent) => this.startDrag(e, h)}
+            @keydown=${(e: KeyboardEvent) => this.handleKey(e, h)}>
+          <rect x=${x - 7} y=${TOP} width="14" height=${BOTTOM - TOP} fill="#000" fill-opacity="0"></rect>
+          <line x1=${x} x2=${x} y1=${TOP} y2=${BOTTOM} stroke="#5b6475" stroke-width="1.5"></line>
+          <rect x=${x - 4} y=${TOP + 16} width="8" height="16" rx="2" fill="#5b6475"></rect></g>`;
+      }),
+    );
+  }
+
   override render() {
     const g = this.geometry!;
     const w = this.width.widthPx;
-    const [top, bottom] = [MARGIN.top, HEIGHT_PX - MARGIN.bottom];
     // Band names only where they fit: up to 8 bands on a chart at least 600 px wide.
     const labelBands = this.passbands.length <= 8 && w >= 600;
     return html`
@@ -179,45 +259,15 @@ export class SpectrumChart extends LitElement {
           tabindex="0"
           aria-label="Plot area: arrow keys move the readout"
           x=${MARGIN.left}
-          y=${top}
+          y=${TOP}
           width=${Math.max(0, w - MARGIN.left - MARGIN.right)}
-          height=${bottom - top}
+          height=${BOTTOM - TOP}
           fill="#fafafa"
           @keydown=${this.plotKey}
         ></rect>
-        ${this.passbands.map(
-          (
-            p,
-            i,
-          ) => svg`<path class="passband" data-channel=${p.id} d=${g.passbandPaths[i]} fill="#8a94a6" fill-opacity="0.16" stroke="#5b6475" stroke-width="1" stroke-dasharray="3 2"></path>
-          ${labelBands && p.handles.length ? svg`<text x=${g.x((p.handles[0].wavelengthNm + p.handles[p.handles.length - 1].wavelengthNm) / 2)} y=${top + 10} text-anchor="middle" fill="#3b4252" font-size="10">${p.label}</text>` : ''}`,
-        )}
-        ${this.background ? svg`<path class="background" d=${g.backgroundPath} fill="#b08d57" fill-opacity="0.22" stroke="#8a6a35" stroke-width="1"></path>` : ''}
-        ${this.excitationNm.map(
-          (
-            nm,
-          ) => svg`<line class="excitation" x1=${g.x(nm)} x2=${g.x(nm)} y1=${top} y2=${bottom} stroke=${wavelengthToCss(nm)} stroke-width="2.5"></line>
-          <text x=${g.x(nm) + 3} y=${bottom - 4} fill="#3b2b6b" font-size="10">ex ${nm}</text>`,
-        )}
-        ${this.curves.map((c, i) => {
-          const nir = isNearInfrared(c.peakNm);
-          return svg`<path d=${g.curvePaths[i]} fill="none" stroke="#222" stroke-opacity="0.45" stroke-width="3.5"></path>
-            <path class="curve" data-probe=${c.id} d=${g.curvePaths[i]} fill="none" stroke=${wavelengthToCss(c.peakNm)} stroke-width="2" stroke-dasharray=${nir ? '6 3' : 'none'}></path>`;
-        })}
-        ${this.hoverNm !== null ? svg`<line x1=${g.x(this.hoverNm)} x2=${g.x(this.hoverNm)} y1=${top} y2=${bottom} stroke="#111" stroke-width="1" stroke-dasharray="2 2"></line>` : ''}
-        ${this.passbands.flatMap((p) =>
-          p.handles.map(
-            (
-              h,
-            ) => svg`<g class="handle" tabindex="0" role="slider" aria-label=${`${p.label}: ${h.edge === 'edge' ? 'edge' : h.edge === 'low' ? 'lower edge' : 'upper edge'}`}
-            aria-valuenow=${h.wavelengthNm} aria-valuemin=${this.domainNm[0]} aria-valuemax=${this.domainNm[1]} data-channel=${p.id} data-edge=${h.edge}
-            @pointerdown=${(e: PointerEvent) => this.startDrag(e, h)} @keydown=${(e: KeyboardEvent) => this.handleKey(e, h)}>
-            <rect x=${g.x(h.wavelengthNm) - 7} y=${top} width="14" height=${bottom - top} fill="#000" fill-opacity="0"></rect>
-            <line x1=${g.x(h.wavelengthNm)} x2=${g.x(h.wavelengthNm)} y1=${top} y2=${bottom} stroke="#5b6475" stroke-width="1.5"></line>
-            <rect x=${g.x(h.wavelengthNm) - 4} y=${top + 16} width="8" height="16" rx="2" fill="#5b6475"></rect></g>`,
-          ),
-        )}
-        <g class="x-axis" transform="translate(0,${bottom})"></g>
+        ${this.passbandLayer(g, labelBands)} ${this.backgroundLayer(g)} ${this.excitationLayer(g)} ${this.curveLayer(g)}
+        ${this.hoverLine(g)} ${this.handleLayer(g)}
+        <g class="x-axis" transform="translate(0,${BOTTOM})"></g>
         <g class="y-axis" transform="translate(${MARGIN.left},0)"></g>
         <g class="t-axis" transform="translate(${w - MARGIN.right},0)"></g>
         <text
@@ -230,7 +280,7 @@ export class SpectrumChart extends LitElement {
           wavelength (nm)
         </text>
         <text
-          transform="translate(12,${(top + bottom) / 2}) rotate(-90)"
+          transform="translate(12,${(TOP + BOTTOM) / 2}) rotate(-90)"
           text-anchor="middle"
           fill="#222"
           font-size="11"
@@ -238,7 +288,7 @@ export class SpectrumChart extends LitElement {
           ${this.yLabel}
         </text>
         <text
-          transform="translate(${w - 6},${(top + bottom) / 2}) rotate(90)"
+          transform="translate(${w - 6},${(TOP + BOTTOM) / 2}) rotate(90)"
           text-anchor="middle"
           fill="#222"
           font-size="11"
@@ -264,7 +314,7 @@ export class SpectrumChart extends LitElement {
                   stroke-dasharray=${isNearInfrared(c.peakNm) ? '6 3' : 'none'}
                 ></line>
               </svg>
-              ${c.label} (${Math.round(c.peakNm)} nm)${isNearInfrared(c.peakNm) ? html` <strong>NIR</strong>` : ''}
+              ${c.label} (${Math.round(c.peakNm)} nm)${isNearInfrared(c.peakNm) ? NIR_MARK : ''}
             </li>`,
         )}
         ${
@@ -278,7 +328,7 @@ export class SpectrumChart extends LitElement {
             : ''
         }
       </ul>
-      ${this.curves.some((c) => isNearInfrared(c.peakNm)) ? html`<p class="readout">NIR: near-infrared emission (700 nm and beyond) is nearly invisible to the eye, so it is drawn as a dashed dark-grey line rather than in a colour.</p>` : ''}
+      ${this.curves.some((c) => isNearInfrared(c.peakNm)) ? NIR_NOTE : ''}
     `;
   }
 }

@@ -11,7 +11,7 @@ import { ApiError, type ApiErrorCode, type ErrorBody, type Evaluation, type Shar
 async function call<T>(path: string, init?: RequestInit): Promise<T> {
   let res: Response;
   try {
-    res = await fetch(path, { ...init, headers: { 'content-type': 'application/json', ...(init?.headers ?? {}) } });
+    res = await fetch(path, { ...init, headers: { 'content-type': 'application/json', ...init?.headers } });
   } catch {
     throw new ApiError(
       0,

@@ -5,7 +5,10 @@ import type { ChannelSpec, FilterSpec } from '../../spectra/index';
 
 const nm = (v: number) => String(Math.round(v * 10) / 10);
 
-/** "bandpass 605/20", "longpass 650", "shortpass 550", "dichroic 560 (passes above)", "measured table, 41 points 500–700 nm". */
+/**
+ * "bandpass 605/20", "longpass 650", "shortpass 550", "dichroic 560 (passes above)",
+ * "measured table, 41 points 500–700 nm".
+ */
 export function describeFilter(filter: FilterSpec): string {
   switch (filter.type) {
     case 'bandpass':

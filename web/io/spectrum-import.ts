@@ -8,7 +8,7 @@ import { thinTable } from '../state/thin-table';
 /** The parsed table (≤ MAX_LINK_POINTS points) and the parser's warnings, or an error message for the user. */
 export type ImportResult = { ok: true; points: SpectrumPoints; warnings: string[] } | { ok: false; message: string };
 
-/** What the values mean: a relative emission or background, a 0–1 transmission, or an extinction in M⁻¹ cm⁻¹. */
+/** What the values mean: relative emission or background, 0–1 transmission, or extinction in M⁻¹ cm⁻¹. */
 export type ImportKind = SpectrumCsvKind;
 
 /** Largest file read, bytes: twice the parser's character limit (CSV_LIMITS.maxChars), refused before reading. */

@@ -78,7 +78,10 @@ export function removeChannel(panel: PanelSpec, index: number): PanelSpec {
   };
 }
 
-/** Sharpest edge a detector bin gets, nm (10–90 %): bins of a spectral detector are close to rectangular (common practice). */
+/**
+ * Sharpest edge a detector bin gets, nm (10–90 %): bins of a spectral detector are close to rectangular (common
+ * practice).
+ */
 const BIN_EDGE_NM = 1;
 
 /**

@@ -40,7 +40,10 @@ export async function openBrowser(): Promise<{ context: BrowserContext; close():
   };
 }
 
-/** Saves a screenshot of the viewport as test-output/e2e/<name>.png, first scrolling `focus` (what the step is about) into view. */
+/**
+ * Saves a screenshot of the viewport as test-output/e2e/<name>.png, first scrolling `focus` (what the step is about)
+ * into view.
+ */
 export async function shot(page: Page, name: string, focus?: Locator): Promise<void> {
   mkdirSync(SHOT_DIR, { recursive: true });
   if (focus) await focus.first().scrollIntoViewIfNeeded();
