@@ -16,7 +16,9 @@ export default defineConfig({
   test: {
     projects: [
       // Pure science: spectra/ in Node.
-      { test: { name: 'unit', include: ['test/spectra/**/*.test.ts'], environment: 'node' } },
+      {
+        test: { name: 'unit', include: ['test/spectra/**/*.test.ts', 'test/bench/**/*.test.ts'], environment: 'node' },
+      },
       // The API on the real Workers runtime (workerd via wrangler) with real local KV.
       {
         test: {

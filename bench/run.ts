@@ -1,25 +1,16 @@
 /**
- * `npm run bench`: runs every suite in bench/suites/ (each a module whose default export returns rows), prints one
- * table and writes it as JSON to bench/results/latest.json. Suites are plain async functions so that each can time
- * what it measures in its own way (tinybench for pure functions, a load generator for HTTP, a browser for the page).
+ * `npm run bench` (or `npm run bench -- spectra` for the suites whose file names contain "spectra"): runs the suites in
+ * bench/suites/ (each a module whose default export returns rows), prints one table, writes each suite's rows to
+ * bench/results/<suite>.json and regenerates the results table of docs/benchmarks.md from those files. Suites are plain
+ * async functions so that each can time what it measures in its own way (tinybench for pure functions, a load
+ * generator for HTTP, a browser for the page).
  */
 import { readdirSync, mkdirSync, writeFileSync } from 'node:fs';
 import { cpus, totalmem } from 'node:os';
 import { join, dirname } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-
-export interface BenchRow {
-  suite: string;
-  name: string;
-  /** Median time of one operation, ms (null where the row reports something else, e.g. a rate). */
-  medianMs: number | null;
-  minMs?: number | null;
-  maxMs?: number | null;
-  samples?: number;
-  /** Free-form figures: ratio, req/s, p99, bytes, nodes visited... */
-  extra?: Record<string, number | string | null>;
-  note?: string;
-}
+import { writeResultsTable } from './report';
+import type { BenchRow, Machine, SuiteResult } from './types';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const only = process.argv.slice(2);
@@ -54,15 +45,22 @@ const table = rows.map((r) => ({
   note: r.note ?? '',
 }));
 console.table(table);
-const machine = {
+const machine: Machine = {
   cpus: cpus().length,
   cpuModel: cpus()[0]?.model,
   memGiB: Math.round(totalmem() / 2 ** 30),
   node: process.version,
 };
-mkdirSync(join(here, 'results'), { recursive: true });
-writeFileSync(
-  join(here, 'results', 'latest.json'),
-  JSON.stringify({ date: new Date().toISOString(), machine, rows }, null, 2),
+// One file per suite, so running one suite keeps the others' last results; the table in docs/benchmarks.md is made
+// from all of them.
+const resultsDir = join(here, 'results');
+mkdirSync(resultsDir, { recursive: true });
+const date = new Date().toISOString();
+for (const suite of new Set(rows.map((r) => r.suite))) {
+  const result: SuiteResult = { suite, date, machine, rows: rows.filter((r) => r.suite === suite) };
+  writeFileSync(join(resultsDir, `${suite}.json`), `${JSON.stringify(result, null, 2)}\n`);
+}
+writeResultsTable(join(here, '..'));
+console.log(
+  `machine: ${JSON.stringify(machine)}\nwritten: bench/results/<suite>.json and the table in docs/benchmarks.md`,
 );
-console.log(`machine: ${JSON.stringify(machine)}\nwritten: bench/results/latest.json`);

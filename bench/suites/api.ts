@@ -4,7 +4,7 @@
  * /api/v1/panels/evaluate (the demo's 6×6 panel) and GET /api/v1/panels/<id> (fetching a share link).
  */
 import autocannon from 'autocannon';
-import type { BenchRow } from '../run';
+import type { BenchRow } from '../types';
 import { startApp, type StartedApp } from '../../test/quality/helpers/app';
 import { demoPanelTitled } from '../../test/quality/helpers/contract';
 

@@ -8,7 +8,7 @@
  * Targets: catalog 8-of-16 under 1 s, free 6-plex under 5 s (Node, this machine).
  */
 import erf from '@stdlib/math-base-special-erf';
-import type { BenchRow } from '../run';
+import type { BenchRow } from '../types';
 import { createRandom, runDesign, searchCatalog, type DesignRequest } from '../../spectra/index';
 
 const phi = (x: number) => 0.5 * (1 + erf(x / Math.SQRT2));

@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { chromium } from 'playwright-core';
-import type { BenchRow } from '../run';
+import type { BenchRow } from '../types';
 import { ROOT, startApp } from '../../test/quality/helpers/app';
 
 const CHROMIUM_ARGS = [

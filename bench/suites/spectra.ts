@@ -17,7 +17,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Bench } from 'tinybench';
-import type { BenchRow } from '../run';
+import type { BenchRow } from '../types';
 import {
   DEFAULT_GRID,
   centerEvForPeakNm,
