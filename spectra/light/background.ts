@@ -71,7 +71,7 @@ const FWHM_TO_SIGMA = 1 / (2 * Math.sqrt(2 * Math.LN2));
 /**
  * Default autofluorescence emission (relative photon density per nm) under a line at `excitationNm`: the bands above,
  * each a Gaussian in wavelength with unit area times brightness × excitation weight. Total area is about 1 for a
- * violet line, less towards the red (about 0.03 at 640 nm): red lines excite tissue far less (common practice).
+ * violet line, less towards the red (about 0.006 at 640 nm): red lines excite tissue far less (common practice).
  */
 export function defaultAutofluorescence(excitationNm: number, grid: WavelengthGrid): number[] {
   const out = new Array<number>(grid.count).fill(0);

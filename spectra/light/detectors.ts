@@ -142,8 +142,8 @@ export const DETECTOR_CLASSES: readonly DetectorClass[] = Object.freeze([
     id: 'emccd',
     name: 'Electron-multiplying CCD camera, back-illuminated',
     notes:
-      `High QE; the multiplication adds an excess noise factor of about √2 (common practice) that QE does not ` +
-      `show. ${APPROX}`,
+      'High QE; the multiplication adds an excess noise factor of about √2 on the SD, 2 on the variance (from ' +
+      `memory, unverified), that QE does not show. ${APPROX}`,
     qePoints: [
       [300, 0.35],
       [400, 0.6],

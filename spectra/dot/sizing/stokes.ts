@@ -6,7 +6,7 @@ import { BULK_PARAMS, type SizedMaterialId } from '../materials/params';
  * Basis: for CdSe the ensemble shift is ≈ 10–25 nm (20–80 meV), larger for smaller dots (from memory, unverified);
  * its size dependence comes from the band-edge exciton fine structure (Efros, Rosen, Kuno, Nirmal, Norris, Bawendi,
  * Phys. Rev. B 1996, 54, 4843; from memory) plus size selection in the ensemble. The coefficients are this tool's
- * choice to reproduce that span over the Yu CdSe range (≈ 20 nm at 2.5 nm, ≈ 12 nm at 8 nm) and are applied to the
+ * choice to reproduce that span over the Yu CdSe range (≈ 20 nm at 2.5 nm, ≈ 10 nm at 8 nm) and are applied to the
  * other materials by analogy: an approximation, not a published law.
  */
 export const STOKES_MODEL = { floorEv: 0.01, confinementShare: 0.12 } as const;
