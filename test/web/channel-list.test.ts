@@ -117,16 +117,17 @@ describe('<qdp-channel-list>', () => {
     expect(runs).toEqual([{ startNm: 500, bins: 8, binWidthNm: 12.5 }]);
   });
 
-  it("turns the run off when it would start below 200 nm or end beyond 2000 nm (the API's range)", async () => {
+  it("allows a 16 × 10 nm run from 200 to 1840 nm, and no further (the API's range is 200–2000 nm)", async () => {
     const el = await mount(panelWithChannels(2));
     await typeRun(el, 'Bins', '16');
     await typeRun(el, 'Bin width', '10');
-    await typeRun(el, 'From', '-40');
-    expect(runButton(el).disabled).toBe(true);
-    await typeRun(el, 'From', '1900');
-    expect(runButton(el).disabled).toBe(true); // 1900 + 16 × 10 = 2060 nm
-    await typeRun(el, 'From', '480');
-    expect(runButton(el).disabled).toBe(false);
+    const allowedFrom = async (nm: string) => {
+      await typeRun(el, 'From', nm);
+      return !runButton(el).disabled;
+    };
+    // 16 × 10 nm = 160 nm: the last bin ends at the start + 160 nm.
+    expect([await allowedFrom('199'), await allowedFrom('200')]).toEqual([false, true]);
+    expect([await allowedFrom('1840'), await allowedFrom('1841')]).toEqual([true, false]);
   });
 
   it("<qdp-channel-list> labels the run's fields for keyboard users inside a legend-named group", async () => {
