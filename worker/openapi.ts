@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import packageJson from '../package.json';
 import * as schemas from './schemas/index';
+import { LIMITS } from './schemas/index';
 
 type Json = Record<string, unknown>;
 
@@ -29,16 +30,25 @@ const json = (schema: Json, description: string): Json => ({
   description,
   content: { 'application/json': { schema } },
 });
-const errors: Json = {
-  '400': json(ref('Error'), 'bad input: the error names the field in `path`'),
+// Every route can answer 404 (unknown id), 405 (wrong method) and 500 (never expected); routes with a body also 400,
+// 413 and 415.
+const anyRoute: Json = {
   '404': json(ref('Error'), 'unknown route or id'),
   '405': json(ref('Error'), 'wrong method (see the Allow header)'),
-  '413': json(ref('Error'), 'body over 256 KiB'),
+  '500': json(ref('Error'), 'an unexpected error (the tests show no input reaches it)'),
+};
+const withBody: Json = {
+  '400': json(ref('Error'), 'bad input: the error names the field in `path`'),
+  '413': json(ref('Error'), `body over ${LIMITS.bodyBytes / 1024} KiB`),
   '415': json(ref('Error'), 'body not sent as application/json'),
 };
-const get = (summary: string, ok: Json): Json => ({ get: { summary, responses: { '200': ok, ...errors } } });
+const get = (summary: string, ok: Json): Json => ({ get: { summary, responses: { '200': ok, ...anyRoute } } });
 const post = (summary: string, body: string, responses: Json): Json => ({
-  post: { summary, requestBody: { required: true, ...json(ref(body), body) }, responses: { ...responses, ...errors } },
+  post: {
+    summary,
+    requestBody: { required: true, ...json(ref(body), body) },
+    responses: { ...responses, ...withBody, ...anyRoute },
+  },
 });
 
 function componentSchemas(): Json {
@@ -59,7 +69,7 @@ function componentSchemas(): Json {
 
 let cached: Json | undefined;
 
-/** The OpenAPI 3.1 document of API v1, generated once per isolate from the zod schemas in worker/schemas.ts. */
+/** The OpenAPI 3.1 document of API v1, generated once per isolate from the zod schemas in worker/schemas/. */
 export function openApiDocument(): Json {
   cached ??= {
     openapi: '3.1.0',
@@ -98,7 +108,7 @@ export function openApiDocument(): Json {
           parameters: [
             { name: 'id', in: 'path', required: true, schema: { type: 'string', pattern: '^[A-Za-z0-9_-]{24}$' } },
           ],
-          responses: { '200': json(ref('Panel'), 'ok'), ...errors },
+          responses: { '200': json(ref('Panel'), 'ok'), ...anyRoute },
         },
       },
     },

@@ -32,7 +32,7 @@ export interface SearchOptions {
 
 /**
  * Default node budget of one search. Chosen so that a catalog request of 8 targets from 16 × 16 candidates stays
- * within the CPU limit assumed for the route (see DEVELOPERS.md, "Design engine and noise prediction").
+ * within the CPU limit assumed for the route (docs/architecture.md, "The design engine").
  */
 export const DEFAULT_NODE_BUDGET = 200_000;
 
