@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import { openBrowser, shot } from './helpers/browser';
 import { startApp, type RunningApp } from './helpers/server';
+import { decodeFragment } from '../../web/state/fragment';
 
 let app: RunningApp;
 let browser: { context: BrowserContext; close(): Promise<void> };
@@ -101,6 +102,35 @@ describe('the panel page', () => {
       expect(await peak.locator('[role="alert"]').innerText()).toMatch(/\d{3}.*\d{3}/);
       expect(await spillover(page)).toBe(before);
       await shot(page, '04-invalid-peak-1280', peak);
+      await page.close();
+    },
+  );
+
+  it(
+    'a 2500 nm peak shows, under the field, the very message POST /api/v1/panels/evaluate gives for that panel, ' +
+      'and the last numbers stay',
+    async () => {
+      const { page, problems } = await open(app.baseUrl + '/');
+      const before = await spillover(page);
+      const peak = page.locator('qdp-probe-card').nth(1).locator('qdp-number-field[data-field="emissionPeakNm"]');
+      await peak.locator('input').fill('2500');
+      await expect.poll(() => peak.locator('[role="alert"]').count()).toBe(1);
+      const shown = await peak.locator('[role="alert"]').innerText();
+      expect(shown).toBe('probes[1].emissionPeakNm must be between 200 and 2000 nm');
+      expect(await peak.locator('input').inputValue()).toBe('2500');
+      expect(await spillover(page)).toBe(before);
+      // The panel the page holds (its link carries it) sent to the API as it is: the API refuses it in the same words.
+      const { panel } = decodeFragment(new URL(page.url()).hash) as { panel: unknown };
+      const res = await fetch(`${app.baseUrl}/api/v1/panels/evaluate`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify(panel),
+      });
+      const body = (await res.json()) as { error: { code: string; message: string; path: unknown[] } };
+      expect(res.status).toBe(400);
+      expect(body.error).toMatchObject({ code: 'out_of_range', message: shown, path: ['probes', 1, 'emissionPeakNm'] });
+      expect(problems).toEqual([]);
+      await shot(page, '04b-refused-peak-1280', peak);
       await page.close();
     },
   );
