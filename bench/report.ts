@@ -34,7 +34,8 @@ function extraText(row: BenchRow): string {
 export function resultsTable(results: SuiteResult[]): string {
   return results
     .map((r) => {
-      const head = `**${r.suite}** — ${r.date.slice(0, 10)}, ${r.machine.cpus} × ${r.machine.cpuModel}, Node ${r.machine.node}`;
+      const { cpus, cpuModel, node } = r.machine;
+      const head = `**${r.suite}** — ${r.date.slice(0, 10)}, ${cpus} × ${cpuModel}, Node ${node}`;
       const lines = r.rows.map((row) => `| ${cell(row.name)} | ${ms(row.medianMs)} | ${cell(extraText(row))} |`);
       return [head, '', '| measurement | median ms | figures |', '| --- | ---: | --- |', ...lines].join('\n');
     })

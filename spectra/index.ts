@@ -71,7 +71,14 @@ export { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from './
 export { FILTER_DEFAULTS, MAX_BLOCKING_OD } from './light/filters/defaults';
 export { filterTransmission } from './light/filters/filter';
 export { channelTransmission } from './light/filters/channel';
-export { DETECTOR_CLASSES, DETECTOR_IDS, detectorQe, listDetectors, type DetectorClass } from './light/detectors';
+export {
+  DEFAULT_DETECTOR_ID,
+  DETECTOR_CLASSES,
+  DETECTOR_IDS,
+  detectorQe,
+  listDetectors,
+  type DetectorClass,
+} from './light/detectors';
 export {
   AUTOFLUORESCENCE_BANDS,
   BACKGROUND_REFERENCE_BRIGHTNESS,

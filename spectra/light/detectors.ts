@@ -17,12 +17,15 @@ export interface DetectorClass {
   qePoints: readonly (readonly [number, number])[];
 }
 
+/** The detector a channel that names none is read with: QE 1 at every wavelength. */
+export const DEFAULT_DETECTOR_ID = 'ideal';
+
 const APPROX = 'Approximate curve from memory of typical values for the class, not from a data sheet; real units vary.';
 
 /** The detector classes a channel may name (from memory, approximate: see the file header). */
 export const DETECTOR_CLASSES: readonly DetectorClass[] = Object.freeze([
   {
-    id: 'ideal',
+    id: DEFAULT_DETECTOR_ID,
     name: 'Ideal detector (QE 1)',
     notes: 'Counts every photon: the default when a channel names no detector.',
     qePoints: [

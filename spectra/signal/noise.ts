@@ -4,7 +4,8 @@
  * after subtracting the known background, â = M⁺ (y − b). Each channel's variance is
  *   v_c = F_c · (M a + b)_c + σ_read,c²
  * (Poisson shot noise, scaled by the excess noise factor F of a multiplying detector, plus Gaussian read noise),
- * channels independent, so Cov(â) = M⁺ diag(v) M⁺ᵀ (docs/science.md, unmixing noise: M⁺ diag(M a) M⁺ᵀ for pure Poisson).
+ * channels independent, so Cov(â) = M⁺ diag(v) M⁺ᵀ (docs/science.md, unmixing noise: M⁺ diag(M a) M⁺ᵀ for pure
+ * Poisson).
  *
  * F here multiplies the variance (in the notation where F is an SD factor it is F²): about 2 for an electron-
  * multiplying CCD at high gain (Robbins & Hadwen, IEEE Trans. Electron Devices 2003, 50, 1227), about 1.1–1.5 for

@@ -2,7 +2,7 @@
  * The ordering sheet as CSV (RFC 4180 quoting): one row per probe with what a supplier needs (material, core
  * diameter, emission peak, FWHM) and one row per channel with its filters written as ordered ("bandpass 605/20").
  */
-import type { PanelSpec, ProbeEvaluation } from '../../spectra/index';
+import { DEFAULT_DETECTOR_ID, type PanelSpec, type ProbeEvaluation } from '../../spectra/index';
 import { describeChannel, describeChannelExcitation } from './filter-text';
 
 /** What the sheet takes from an evaluation for each probe (the page's or the API's resolved probe). */
@@ -60,7 +60,13 @@ export function orderingSheetCsv(panel: PanelSpec, resolved: readonly (ResolvedF
   rows.push([]);
   rows.push(['channel', 'label', 'filters', 'excitation on', 'detector']);
   for (const c of panel.channels) {
-    rows.push([c.id, c.label ?? '', describeChannel(c), describeChannelExcitation(c), c.detector ?? 'ideal']);
+    rows.push([
+      c.id,
+      c.label ?? '',
+      describeChannel(c),
+      describeChannelExcitation(c),
+      c.detector ?? DEFAULT_DETECTOR_ID,
+    ]);
   }
   return rows.map((r) => r.map(csvCell).join(',')).join('\r\n') + '\r\n';
 }

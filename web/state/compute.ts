@@ -93,12 +93,14 @@ function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | nul
   const prim = ev.primaryChannel as number[];
   if (!prim.length || prim.some((c) => c === null)) return null;
   const abundance = panel.probes.map((p) => p.abundance ?? 1);
-  const own = prim.map((c, p) => abundance[p] * ev.collected[c][p]);
+  // collected already holds each target's abundance: its own signal is collected[primary][p], and the mixing matrix
+  // per unit abundance is collected divided by it.
+  const own = prim.map((c, p) => ev.collected[c][p]);
   const k = NOMINAL_PHOTONS / Math.max(...own); // photons per collected unit; not finite when nothing is collected
   if (!(k > 0 && Number.isFinite(k))) return null;
   try {
     const noise = predictUnmixingNoise({
-      mixingPhotons: ev.collected.map((row) => row.map((x) => x * k)),
+      mixingPhotons: ev.collected.map((row) => row.map((x, p) => (abundance[p] > 0 ? (x * k) / abundance[p] : 0))),
       abundance,
       primaryChannel: prim,
       backgroundPhotons: ev.backgroundCollected?.map((b) => b * k),

@@ -1,9 +1,9 @@
 /**
  * The contract's one error shape: `{"error": {"code", "message", "path"}}`, with up to eleven validation issues under
- * `issues`. ApiError carries it as a thrown error, on the server (turned into the response in one place) and in the
- * page (an answer of the API, or "network" when the server could not be reached).
+ * `issues` (its schema, ErrorBody, is in responses.ts). ApiError carries it as a thrown error, on the server (turned
+ * into the response in one place) and in the page (an answer of the API, or "network" when the server could not be
+ * reached). No zod here, so the page can import it without loading the schemas.
  */
-import { z } from 'zod';
 import type { SpectraErrorCode } from '../../spectra/index';
 
 /** Every machine code an API error can carry: the spectral library's codes plus the HTTP layer's own. */
@@ -20,19 +20,6 @@ export type ApiErrorCode =
   | 'internal_error'
   /** The page's own: the server could not be reached. */
   | 'network';
-
-const path = z.array(z.union([z.string(), z.number()]));
-
-/** The contract's error body; `issues` lists up to eleven validation issues (the first is `error` itself). */
-export const ErrorBody = z.strictObject({
-  error: z.strictObject({
-    code: z.string(),
-    message: z.string(),
-    path,
-    issues: z.array(z.strictObject({ code: z.string(), message: z.string(), path })).optional(),
-  }),
-});
-export type ErrorBody = z.infer<typeof ErrorBody>;
 
 /** An error in the contract's shape, with its HTTP status (0: no answer) and any headers it must be sent with. */
 export class ApiError extends Error {

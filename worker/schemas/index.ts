@@ -17,14 +17,26 @@ import type { Evaluation, LotShiftJson } from './evaluation';
 import type { Material } from './responses';
 
 export { LIMITS, RANGES } from './limits';
-export { ApiError, ErrorBody, type ApiErrorCode } from './errors';
+export { ApiError, type ApiErrorCode } from './errors';
 export { issueToError, pathText } from './issues';
 export { pointsTable } from './spectrum';
 export { BandpassFilter, EdgeFilter, DichroicFilter, TableFilter, Filter } from './filter';
 export { MaterialIdSchema, Probe } from './probe';
 export { ExcitationLine, Channel, Background, Panel } from './panel';
 export { Grid, DotRequest, SampledSpectrumJson } from './dot';
-export { Health, ShareCreated, Material, MaterialList, Detector, DetectorList, ResolvedDotJson } from './responses';
+export {
+  ErrorBody,
+  Health,
+  ShareCreated,
+  Material,
+  MaterialList,
+  Detector,
+  DetectorList,
+  ResolvedDotJson,
+} from './responses';
+
+/** The contract's error body. */
+export type ErrorBody = z.infer<typeof ErrorBody>;
 export { Evaluation, ProbeEvaluationJson, WorstJson, LotShiftJson, GridJson } from './evaluation';
 export { Abundance, DesignOptions, DesignRequest, DesignTarget } from './design';
 export {

@@ -6,6 +6,18 @@ import { MaterialIdSchema } from './probe';
 // test/worker/response-schemas.test.ts parses real responses with them, so the description cannot drift from the
 // code. Strict objects: a field added to a response must be added here too.
 
+const path = z.array(z.union([z.string(), z.number()]));
+
+/** The contract's error body; `issues` lists up to eleven validation issues (the first is `error` itself). */
+export const ErrorBody = z.strictObject({
+  error: z.strictObject({
+    code: z.string(),
+    message: z.string(),
+    path,
+    issues: z.array(z.strictObject({ code: z.string(), message: z.string(), path })).optional(),
+  }),
+});
+
 /** GET /api/v1/health. */
 export const Health = z.strictObject({ ok: z.literal(true), version: z.string() });
 
