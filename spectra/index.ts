@@ -19,7 +19,6 @@ export {
   type WavelengthGrid,
 } from './core/grid';
 export {
-  DOT_INPUT_FIELDS,
   FILTER_TYPES,
   MATERIAL_IDS,
   type BackgroundSpec,
@@ -49,12 +48,8 @@ export {
   emissionRangeForMaterialNm,
   firstExcitonNmForDiameter,
 } from './dot/sizing/sizing';
-export { YU_2003, yuDiameterNm, yuExtinctionFirstExciton } from './dot/sizing/yu2003';
-export { INP_ALMEIDA_2023 } from './dot/sizing/almeida2023';
+export { YU_2003, yuDiameterNm } from './dot/sizing/yu2003';
 export { brusDiameterNm, brusGapEv } from './dot/sizing/brus';
-export { STOKES_MODEL, stokesShiftEv } from './dot/sizing/stokes';
-export { emissionFwhmEv } from './dot/sizing/width';
-export { CARBON_EMISSION_RANGE_NM, CARBON_EXCITATION_MODEL, carbonEmissionPeakNm } from './dot/sizing/carbon';
 export {
   centerEvForPeakNm,
   fwhmEvForFwhmNm,
@@ -71,24 +66,11 @@ export { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from './
 export { FILTER_DEFAULTS, MAX_BLOCKING_OD } from './light/filters/defaults';
 export { filterTransmission } from './light/filters/filter';
 export { channelTransmission } from './light/filters/channel';
-export {
-  DEFAULT_DETECTOR_ID,
-  DETECTOR_CLASSES,
-  DETECTOR_IDS,
-  detectorQe,
-  listDetectors,
-  type DetectorClass,
-} from './light/detectors';
-export {
-  AUTOFLUORESCENCE_BANDS,
-  BACKGROUND_REFERENCE_BRIGHTNESS,
-  backgroundEmission,
-  defaultAutofluorescence,
-} from './light/background';
+export { DEFAULT_DETECTOR_ID, DETECTOR_IDS, detectorQe, listDetectors, type DetectorClass } from './light/detectors';
+export { AUTOFLUORESCENCE_BANDS, BACKGROUND_REFERENCE_BRIGHTNESS, defaultAutofluorescence } from './light/background';
 
 // Signals: crosstalk, unmixing, noise, lot-to-lot sensitivity, whole-panel evaluation.
 export {
-  RESOLUTION_THRESHOLD,
   collectedMatrix,
   crosstalkFigures,
   type CrosstalkFigures,
@@ -102,14 +84,13 @@ export {
   noiseAmplification,
   unmixLeastSquares,
   unmixNnls,
-  unmixingDiagnostics,
   type UnmixResult,
   type UnmixingDiagnostics,
 } from './signal/unmix';
 export { photonMixing, predictUnmixingNoise, type NoiseInput, type NoisePrediction } from './signal/noise';
 export { simulateUnmixing, type MonteCarloOptions, type MonteCarloResult } from './signal/monte-carlo';
-export { LOT_SHIFT_NM, lotShiftSensitivity, shiftEmission, type LotShiftSensitivity } from './signal/sensitivity';
-export { buildPanelModel, type PanelModel, type ProbeEvaluation } from './signal/panel-model';
+export { lotShiftSensitivity, shiftEmission, type LotShiftSensitivity } from './signal/sensitivity';
+export type { PanelModel, ProbeEvaluation } from './signal/panel-model';
 export { evaluatePanel, type PanelEvaluation } from './signal/evaluate';
 export { panelSpectra, type PanelSpectra } from './signal/panel-spectra';
 
