@@ -152,23 +152,19 @@ export interface SampledLine {
   areaOnGrid: number;
 }
 
-/** The line's per-nm shape, without its 1/(σ√2π) factor, at grid indices [from, to). */
-function lineValues(grid: WavelengthGrid, from: number, to: number, centerEv: number, sigma: number): number[] {
+/** The line's per-nm shape, without its 1/(σ√2π) factor, at grid indices [from, to), and the sum of its values. */
+function lineValues(grid: WavelengthGrid, from: number, to: number, centerEv: number, sigma: number) {
   const values = new Array<number>(Math.max(0, to - from));
   const negHalfInvVariance = -0.5 / (sigma * sigma);
-  for (let i = from; i < to; i++) {
-    const energyEv = HC / (grid.startNm + i * grid.stepNm);
-    const d = energyEv - centerEv;
-    // The Jacobian hc/λ² is E²/hc.
-    values[i - from] = expNonPositive(d * d * negHalfInvVariance) * ((energyEv * energyEv) / HC);
-  }
-  return values;
-}
-
-function sum(values: number[]): number {
   let total = 0;
-  for (const v of values) total += v;
-  return total;
+  for (let i = from; i < to; i++) {
+    const nm = grid.startNm + i * grid.stepNm;
+    const d = HC / nm - centerEv;
+    const v = expNonPositive(d * d * negHalfInvVariance) * (HC / (nm * nm));
+    values[i - from] = v;
+    total += v;
+  }
+  return { values, total };
 }
 
 /**
@@ -184,22 +180,17 @@ export function sampleGaussianLine(grid: WavelengthGrid, centerEv: number, fwhmE
   const blueNm = HC / (centerEv + reach);
   const redNm = centerEv - reach > 0 ? HC / (centerEv - reach) : Infinity;
   let from = Math.min(count, Math.max(0, Math.floor((blueNm - startNm) / stepNm)));
-  let values = lineValues(
-    grid,
-    from,
-    Math.max(from, Math.min(count, Math.ceil((redNm - startNm) / stepNm) + 1)),
-    centerEv,
-    sigma,
-  );
-  let total = sum(values);
+  const to = Math.max(from, Math.min(count, Math.ceil((redNm - startNm) / stepNm) + 1));
+  let { values, total } = lineValues(grid, from, to, centerEv, sigma);
   // The sum times the step over σ√2π is the area on the grid of the unit-area line.
   let areaOnGrid = (total * stepNm) / (sigma * SQRT_2PI);
   if (!(areaOnGrid >= WINDOW_AREA_FLOOR)) {
     from = 0;
-    values = lineValues(grid, 0, count, centerEv, sigma);
-    total = sum(values);
+    ({ values, total } = lineValues(grid, 0, count, centerEv, sigma));
     areaOnGrid = (total * stepNm) / (sigma * SQRT_2PI);
   }
-  if (total > 0) for (let k = 0; k < values.length; k++) values[k] /= total * stepNm;
+  // One division; each product then differs from the quotient by at most an ulp.
+  const scale = total > 0 ? 1 / (total * stepNm) : 0;
+  for (let k = 0; k < values.length; k++) values[k] *= scale;
   return { spectrum: { startNm: startNm + from * stepNm, stepNm, values }, from, areaOnGrid };
 }

@@ -34,12 +34,15 @@ function rankProblem(m: number[][], s: number[] | null, ids?: string[]): string 
 
 /** The columns of m (rows = channels) scaled to unit 2-norm; m has no zero column. */
 function unitColumns(m: number[][]): Float64Array[] {
-  return m[0].map((_, j) => {
-    const col = Float64Array.from(m, (row) => row[j]);
+  const columns: Float64Array[] = [];
+  for (let j = 0; j < m[0].length; j++) {
+    const col = new Float64Array(m.length);
+    for (let i = 0; i < m.length; i++) col[i] = m[i][j];
     const norm = norm2(col);
     for (let i = 0; i < col.length; i++) col[i] /= norm;
-    return col;
-  });
+    columns.push(col);
+  }
+  return columns;
 }
 
 /** σ (descending) and V of M with every column scaled to unit 2-norm (one-sided Jacobi; M has no zero column). */
@@ -68,7 +71,7 @@ function nullFigures(cols: number, warning: string): UnmixingDiagnostics {
  */
 export function diagnoseMixing(m: number[][], probeIds?: string[]): UnmixingDiagnostics {
   const cols = m[0].length;
-  if (m.some((row) => row.some((x) => !Number.isFinite(x)))) {
+  if (!m.every((row) => row.every(Number.isFinite))) {
     return nullFigures(cols, 'the collected light has values with no finite result: the probes cannot be unmixed');
   }
   const early = rankProblem(m, null, probeIds);
@@ -76,7 +79,11 @@ export function diagnoseMixing(m: number[][], probeIds?: string[]): UnmixingDiag
   const { s, v } = normalisedSvd(m);
   const late = rankProblem(m, s);
   if (late) return nullFigures(cols, late);
-  const gains = v.map((row) => Math.sqrt(row.reduce((sum, vjk, k) => sum + (vjk * vjk) / (s[k] * s[k]), 0)));
+  const gains = v.map((row) => {
+    let sum = 0;
+    for (let k = 0; k < row.length; k++) sum += (row[k] * row[k]) / (s[k] * s[k]);
+    return Math.sqrt(sum);
+  });
   return { conditionNumber: s[0] / s[cols - 1], noiseAmplification: gains, warnings: [] };
 }
 

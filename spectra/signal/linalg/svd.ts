@@ -84,7 +84,11 @@ export function svdOfColumns(columns: Float64Array[], tolerance = EPSILON): { s:
     return e;
   });
   jacobiColumns(columns, v, tolerance);
-  const sigma = columns.map((col) => Math.sqrt(col.reduce((sum, x) => sum + x * x, 0)));
+  const sigma = columns.map((col) => {
+    let sum = 0;
+    for (let i = 0; i < col.length; i++) sum += col[i] * col[i];
+    return Math.sqrt(sum);
+  });
   const order = sigma.map((_, j) => j).sort((x, y) => sigma[y] - sigma[x]);
   return { s: order.map((j) => sigma[j]), v: Array.from({ length: n }, (_, i) => order.map((j) => v[j][i])) };
 }
