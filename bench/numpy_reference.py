@@ -10,8 +10,15 @@ One evaluation:
   - the 2-norm condition number of C with unit-norm columns.
 
 Prints one line: "numpy evaluate 8x8 median <us> us (min <us>, max <us>)", the median over 15 batches of 200 calls of
-the mean time per call, after 200 calls to warm up. Needs python3 with numpy (Debian: python3-numpy).
+the mean time per call, after 200 calls to warm up.
+
+With --paired it warms up, prints "ready", then for every line read from stdin runs one batch of 200 calls and prints
+the mean microseconds per call: bench/suites/spectra.ts interleaves these batches with its own, so that both sides of
+each pair run on the same (shared, drifting) machine.
+
+Needs python3 with numpy (Debian: python3-numpy).
 """
+import sys
 import time
 
 import numpy as np
@@ -49,15 +56,26 @@ def evaluate():
     return spillover, kappa
 
 
+def batch_mean_seconds(calls=200):
+    start = time.perf_counter()
+    for _ in range(calls):
+        evaluate()
+    return (time.perf_counter() - start) / calls
+
+
+def serve_batches():
+    print("ready", flush=True)
+    for _ in sys.stdin:
+        print(f"{batch_mean_seconds() * 1e6:.3f}", flush=True)
+
+
 def main():
     for _ in range(200):
         evaluate()
-    means = []
-    for _ in range(15):
-        start = time.perf_counter()
-        for _ in range(200):
-            evaluate()
-        means.append((time.perf_counter() - start) / 200)
+    if "--paired" in sys.argv:
+        serve_batches()
+        return
+    means = [batch_mean_seconds() for _ in range(15)]
     us = np.array(means) * 1e6
     print(f"numpy evaluate 8x8 median {np.median(us):.1f} us (min {us.min():.1f}, max {us.max():.1f})")
 

@@ -7,14 +7,16 @@
  * 8 filter transmissions from scratch, as the script does. What stays warm is per material, not per probe (the smooth
  * size fit and the inverse sizing table, built once per process like the constants the script holds).
  * Then the lot-shift check, 16 × 16, a 32-bin spectral detector, one resolveDot, and the two parts of the headline
- * that the script also does, timed alone (the 8 dots, the 8 filters). The machine is shared, so numpy and the headline
- * run in alternating rounds and the best round of each is compared.
- * Timed as the script times itself: 200 calls to warm up, then 15 batches of 200 calls, the median of the batch means.
- * A batch mean includes the garbage collection the calls cause (Python frees as it goes, inside each call); a
- * per-call median (tinybench's p50, given beside it) leaves the collections out and flatters a JS engine.
+ * that the script also does, timed alone (the 8 dots, the 8 filters).
+ * Timed as the script times itself: batches of 200 calls after 200 calls to warm up, and the mean per call of each
+ * batch. A batch mean includes the garbage collection the calls cause (Python frees as it goes, inside each call); a
+ * per-call median (tinybench's p50, given beside it) leaves the collections out and flatters a JS engine. The machine
+ * is shared, so each of our batches is paired with an adjacent numpy batch (the script kept running in --paired
+ * mode) and the ratio is the median of the pairs' ratios.
  */
-import { execFileSync } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
+import { createInterface } from 'node:readline';
 import { fileURLToPath } from 'node:url';
 import { Bench } from 'tinybench';
 import type { BenchRow } from '../types';
@@ -70,31 +72,60 @@ function numpyPanel(): PanelSpec {
   return panel;
 }
 
-/** Median microseconds per evaluation printed by the numpy script, or the reason it could not run. */
-function runNumpy(): { medianUs: number | null; note: string } {
-  if (!existsSync(NUMPY_SCRIPT)) return { medianUs: null, note: `skipped: ${NUMPY_SCRIPT} not found` };
-  try {
-    const out = execFileSync('python3', [NUMPY_SCRIPT], { encoding: 'utf8', timeout: 300_000 });
-    const match = /median ([\d.]+) us/.exec(out);
-    return match
-      ? { medianUs: Number(match[1]), note: out.trim() }
-      : { medianUs: null, note: `unexpected output: ${out.trim()}` };
-  } catch (err) {
-    return { medianUs: null, note: `skipped: python3/numpy failed (${String((err as Error).message).split('\n')[0]})` };
-  }
+/** numpy's batches on request: the script kept running in --paired mode, one batch of 200 calls per line sent. */
+interface NumpyBatches {
+  /** Mean microseconds per call of one more batch. */
+  next(): Promise<number>;
+  close(): void;
 }
 
-/** Median over 15 batches of 200 calls of the mean ms per call, after 200 warm-up calls: the numpy script's method. */
-function batchMeanMs(fn: () => void): number {
-  for (let i = 0; i < 200; i++) fn();
-  const means: number[] = [];
-  for (let b = 0; b < 15; b++) {
-    const start = performance.now();
-    for (let i = 0; i < 200; i++) fn();
-    means.push((performance.now() - start) / 200);
+/** Starts the numpy script in --paired mode and waits for its warm-up; null (with the reason) if it cannot run. */
+async function startNumpy(): Promise<{ numpy: NumpyBatches | null; note: string }> {
+  if (!existsSync(NUMPY_SCRIPT)) return { numpy: null, note: `skipped: ${NUMPY_SCRIPT} not found` };
+  const child = spawn('python3', [NUMPY_SCRIPT, '--paired'], { stdio: ['pipe', 'pipe', 'pipe'] });
+  const lines = createInterface({ input: child.stdout })[Symbol.asyncIterator]();
+  let stderr = '';
+  child.stderr.on('data', (chunk) => (stderr += String(chunk)));
+  const failed = new Promise<IteratorResult<string>>((resolve) => {
+    child.on('error', (err) => {
+      stderr += err.message;
+      resolve({ done: true, value: undefined });
+    });
+  });
+  const readLine = async () => {
+    const line = await Promise.race([lines.next(), failed]);
+    if (line.done) throw new Error(stderr.trim().split('\n').pop() || 'python3 stopped');
+    return line.value;
+  };
+  try {
+    const first = await readLine();
+    if (first !== 'ready') throw new Error(`unexpected output: ${first}`);
+  } catch (err) {
+    child.kill();
+    return { numpy: null, note: `skipped: python3/numpy failed (${(err as Error).message})` };
   }
-  return means.sort((a, b) => a - b)[7];
+  const numpy: NumpyBatches = {
+    async next() {
+      child.stdin.write('batch\n');
+      return Number(await readLine());
+    },
+    close: () => child.stdin.end(),
+  };
+  return { numpy, note: 'python3 bench/numpy_reference.py --paired' };
 }
+
+/** Mean ms per call of one batch of 200 calls: the numpy script's batch. */
+function batchMeanMs(fn: () => void): number {
+  const start = performance.now();
+  for (let i = 0; i < 200; i++) fn();
+  return (performance.now() - start) / 200;
+}
+
+const median = (values: number[]) => {
+  const sorted = values.toSorted((a, b) => a - b);
+  const mid = sorted.length >> 1;
+  return sorted.length % 2 === 1 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
+};
 
 /** Median ms of each task of a fresh tinybench run. */
 async function medians(tasks: [string, () => void][], timeMs: number): Promise<BenchRow[]> {
@@ -115,9 +146,10 @@ async function medians(tasks: [string, () => void][], timeMs: number): Promise<B
   });
 }
 
-// Alternating rounds of numpy and the headline; the best of each is compared. The machine is shared and its speed
-// drifts over seconds, so more rounds make it likelier that both sides get a quiet one.
-const ROUNDS = 7;
+// The machine is shared and its speed drifts over seconds, so numpy and the headline are timed in adjacent batches
+// (pairs), in alternating order, and the ratio is the median of the pairs' ratios: a pair caught by a change of speed
+// is an outlier that the median leaves out.
+const PAIRS = 101;
 
 export default async function spectraSuite(): Promise<BenchRow[]> {
   const panel8 = numpyPanel();
@@ -138,51 +170,60 @@ export default async function spectraSuite(): Promise<BenchRow[]> {
       () => void evaluatePanel(panel8, { sensitivity: false }),
     ],
   ];
-  // The machine is shared: alternate numpy and our runs, and compare the best round of each (least disturbed).
+  const [, headline] = paired[0];
+  const { numpy, note: numpyNote } = await startNumpy();
+  const oursUs: number[] = [];
   const numpyUs: number[] = [];
-  const ours: BenchRow[][] = [];
-  const oursBatchMs: number[][] = [];
-  let numpyNote = '';
-  for (let round = 0; round < ROUNDS; round++) {
-    const numpy = runNumpy();
-    numpyNote = numpy.note;
-    if (numpy.medianUs !== null) numpyUs.push(numpy.medianUs);
-    oursBatchMs.push(paired.map(([, fn]) => batchMeanMs(fn)));
+  for (let i = 0; i < 200; i++) headline();
+  if (numpy) {
+    for (let pair = 0; pair < PAIRS; pair++) {
+      if (pair % 2 === 0) numpyUs.push(await numpy.next());
+      oursUs.push(batchMeanMs(headline) * 1000);
+      if (pair % 2 === 1) numpyUs.push(await numpy.next());
+    }
+    numpy.close();
+  } else {
+    for (let pair = 0; pair < PAIRS; pair++) oursUs.push(batchMeanMs(headline) * 1000);
   }
-  // tinybench afterwards: it keeps every sample, and that garbage would slow the collections of later batch rounds.
-  for (let round = 0; round < 3; round++) ours.push(await medians(paired, 1000));
-  const bestNumpyUs = numpyUs.length > 0 ? Math.min(...numpyUs) : null;
-  const rows: BenchRow[] = paired.map(([name], k) => {
-    const perRound = ours.map((round) => round[k]);
-    const batchRounds = oursBatchMs.map((round) => round[k]);
-    const bestBatchMs = Math.min(...batchRounds);
-    const bestP50 = perRound.reduce((a, b) => ((b.medianMs ?? Infinity) < (a.medianMs ?? Infinity) ? b : a));
-    const ratio = bestNumpyUs !== null ? (bestBatchMs * 1000) / bestNumpyUs : null;
-    return {
+  const ratios = numpyUs.map((us, k) => oursUs[k] / us);
+  // tinybench afterwards: it keeps every sample, and that garbage would slow the collections of later batches.
+  const [perCall] = await medians(paired, 1000);
+  const quartiles = (values: number[]) => {
+    const sorted = values.toSorted((a, b) => a - b);
+    return [sorted[Math.floor(sorted.length / 4)], sorted[Math.floor((3 * sorted.length) / 4)]];
+  };
+  const rows: BenchRow[] = [
+    {
       suite: 'spectra',
-      name,
-      medianMs: bestBatchMs,
-      minMs: bestP50.minMs,
-      maxMs: bestP50.maxMs,
-      samples: 15 * 200,
+      name: paired[0][0],
+      medianMs: median(oursUs) / 1000,
+      minMs: Math.min(...oursUs) / 1000,
+      maxMs: Math.max(...oursUs) / 1000,
+      samples: PAIRS * 200,
       note:
-        `median of 15 batch means (numpy's method), best of ${ROUNDS} rounds: ` +
-        `${batchRounds.map((ms) => (ms * 1000).toFixed(1)).join(' / ')} us; ` +
-        `per-call p50 (tinybench, no GC): ` +
-        `${perRound.map((r) => (r.medianMs === null ? '—' : (r.medianMs * 1000).toFixed(1))).join(' / ')} us`,
+        `${PAIRS} batches of 200 calls, each paired with a numpy batch; median of the batch means. ` +
+        `Per-call p50 (tinybench, no GC): ${((perCall.medianMs ?? NaN) * 1000).toFixed(1)} us`,
       extra: {
-        ratioToNumpy: ratio === null ? null : Number(ratio.toFixed(3)),
+        ratioToNumpy: ratios.length > 0 ? Number(median(ratios).toFixed(3)) : null,
+        ratioQuartiles:
+          ratios.length > 0
+            ? quartiles(ratios)
+                .map((r) => r.toFixed(3))
+                .join(' – ')
+            : null,
         requirement: '<= 1.0',
       },
-    };
-  });
-  rows.push({
-    suite: 'spectra',
-    name: 'numpy evaluate 8x8 (same run, alternating rounds)',
-    medianMs: bestNumpyUs === null ? null : bestNumpyUs / 1000,
-    extra: { roundsUs: numpyUs.map((u) => u.toFixed(1)).join(' / ') || null },
-    note: bestNumpyUs === null ? numpyNote : 'best of the rounds of python3 bench/numpy_reference.py',
-  });
+    },
+    {
+      suite: 'spectra',
+      name: 'numpy evaluate 8x8 (same run, paired batches)',
+      medianMs: numpyUs.length > 0 ? median(numpyUs) / 1000 : null,
+      minMs: numpyUs.length > 0 ? Math.min(...numpyUs) / 1000 : null,
+      maxMs: numpyUs.length > 0 ? Math.max(...numpyUs) / 1000 : null,
+      samples: numpyUs.length * 200,
+      note: numpyNote,
+    },
+  ];
   rows.push(
     ...(await medians(
       [

@@ -154,11 +154,12 @@ export interface SampledLine {
 
 /** The line's per-nm shape, without its 1/(σ√2π) factor, at grid indices [from, to), and the sum of its values. */
 function lineValues(grid: WavelengthGrid, from: number, to: number, centerEv: number, sigma: number) {
+  const { startNm, stepNm } = grid;
   const values = new Array<number>(Math.max(0, to - from));
   const negHalfInvVariance = -0.5 / (sigma * sigma);
   let total = 0;
   for (let i = from; i < to; i++) {
-    const nm = grid.startNm + i * grid.stepNm;
+    const nm = startNm + i * stepNm;
     const d = HC / nm - centerEv;
     const v = expNonPositive(d * d * negHalfInvVariance) * (HC / (nm * nm));
     values[i - from] = v;

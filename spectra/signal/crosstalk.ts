@@ -7,6 +7,7 @@
  * Cytometry 2001, 45, 194; both from memory): signal in a channel over the signal in the probe's primary channel.
  */
 import type { ChannelSpec, ExcitationLine } from '../core/panel';
+import { dotAt } from '../kernels/dot';
 
 /**
  * One emission spectrum of a probe, held from grid index `from` on (0 elsewhere), and its weight in each channel:
@@ -37,10 +38,7 @@ export function linesOn(channel: ChannelSpec, lines: ExcitationLine[]): number[]
 
 /** Σλ em(λ) T(λ) Δλ over the points where the emission is held (T on every grid point). */
 function overlap(component: EmissionComponent, transmission: number[], stepNm: number): number {
-  const { emission, from } = component;
-  let sum = 0;
-  for (let k = 0; k < emission.length; k++) sum += emission[k] * transmission[from + k];
-  return sum * stepNm;
+  return dotAt(component.emission, transmission, component.from) * stepNm;
 }
 
 /** collected[c][p] for every channel and probe: Σ over the probe's components of weight × overlap. */
