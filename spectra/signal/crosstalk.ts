@@ -26,19 +26,6 @@ export interface EmissionComponent {
  */
 export const RESOLUTION_THRESHOLD = 1e-3;
 
-/**
- * The figures are reproducible to about 1e-12 relative, not to the last bit: the order of a sum or the platform's
- * arithmetic moves them by a few ulps. Where the primary channel or a worst case is chosen among values closer than
- * this (panels with twin probes or twin filters tie exactly in exact arithmetic), the first in panel order keeps the
- * place, so the choice does not hang on rounding (a choice of this tool).
- */
-export const TIE_RELATIVE = 1e-12;
-
-/** True when a exceeds b by more than TIE_RELATIVE of b: a later candidate must do this to replace the best so far. */
-export function clearlyGreater(a: number, b: number): boolean {
-  return a - b > TIE_RELATIVE * Math.abs(b);
-}
-
 /** Indices of the panel's lines that are on while a channel is read (default: all). */
 export function linesOn(channel: ChannelSpec, lines: ExcitationLine[]): number[] {
   if (channel.excitationNm === undefined) return lines.map((_, l) => l);
@@ -106,7 +93,7 @@ export function crosstalkFigures(
     if (assigned[p] !== undefined) c = assigned[p]!;
     else {
       let best = 0;
-      for (let k = 1; k < channels; k++) if (clearlyGreater(collected[k][p], collected[best][p])) best = k;
+      for (let k = 1; k < channels; k++) if (collected[k][p] > collected[best][p]) best = k;
       c = collected[best][p] > 0 ? best : null;
     }
     primaryChannel.push(c);
@@ -154,7 +141,7 @@ export function crosstalkFigures(
     for (let t = 0; t < probes; t++) {
       if (t === u) continue;
       const value = collected[cu][t] / primarySignal[u];
-      if (worst.interference === null || clearlyGreater(value, worst.interference)) {
+      if (worst.interference === null || value > worst.interference) {
         worst.from = probeIds[t];
         worst.into = probeIds[u];
         worst.interference = value;

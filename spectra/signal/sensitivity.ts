@@ -5,7 +5,7 @@
  * unchanged: a first-order model of a lot shift (a real shift also changes the width and the absorption a little).
  */
 import type { SampledSpectrum } from '../core/grid';
-import { clearlyGreater, collectedMatrix, crosstalkFigures, type EmissionComponent } from './crosstalk';
+import { collectedMatrix, crosstalkFigures, type EmissionComponent } from './crosstalk';
 
 /** Default peak shift for the lot-to-lot check, nm (common practice). */
 export const LOT_SHIFT_NM = 5;
@@ -50,7 +50,7 @@ function worstSpillover(
   let best: { value: number; c: number; p: number } | null = null;
   spillover.forEach((row, c) =>
     row.forEach((s, p) => {
-      if (s !== null && c !== primary[p] && (best === null || clearlyGreater(s, best.value))) best = { value: s, c, p };
+      if (s !== null && c !== primary[p] && (best === null || s > best.value)) best = { value: s, c, p };
     }),
   );
   return best;
@@ -93,7 +93,7 @@ export function lotShiftSensitivity(
       const w = figures.worst;
       if (
         w.interference !== null &&
-        (result.worstInterference === null || clearlyGreater(w.interference, result.worstInterference.interference))
+        (result.worstInterference === null || w.interference > result.worstInterference.interference)
       ) {
         result.worstInterference = {
           interference: w.interference,
@@ -104,7 +104,7 @@ export function lotShiftSensitivity(
         };
       }
       const s = worstSpillover(figures.spillover, figures.primaryChannel);
-      if (s && (result.worstSpillover === null || clearlyGreater(s.value, result.worstSpillover.spillover))) {
+      if (s && (result.worstSpillover === null || s.value > result.worstSpillover.spillover)) {
         result.worstSpillover = {
           spillover: s.value,
           probe: probeIds[s.p],

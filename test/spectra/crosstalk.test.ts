@@ -65,35 +65,6 @@ describe('crosstalkFigures', () => {
     expect(f.purity[2]).toBeNull();
     expect(f.warnings[0]).toMatch(/channel z collects no probe signal/);
   });
-
-  // Values closer than 1e-12 relative are one value at the figures' precision: the first in panel order is chosen.
-  it('crosstalkFigures keeps the first channel as primary when a later one is larger by under 1e-12 relative', () => {
-    const ids = { probes: ['a'], channels: ['x', 'y'] };
-    const near = crosstalkFigures([[1], [1 + 4e-16]], [undefined], ids.probes, ids.channels);
-    expect(near.primaryChannel).toEqual([0]);
-    const clear = crosstalkFigures([[1], [1 + 1e-9]], [undefined], ids.probes, ids.channels);
-    expect(clear.primaryChannel).toEqual([1]);
-  });
-
-  it('crosstalkFigures names the first of two worst pairs that differ by under 1e-12 relative', () => {
-    // interference(b → a) = 0.3 and interference(a → b) = 0.3 (1 + 2e-16): a tie at the figures' precision.
-    const collected = [
-      [1, 0.3],
-      [0.3 * (1 + 2e-16), 1],
-    ];
-    const f = crosstalkFigures(collected, [undefined, undefined], ['a', 'b'], ['x', 'y']);
-    expect(f.worst).toEqual({ from: 'b', into: 'a', interference: 0.3 });
-    const clear = crosstalkFigures(
-      [
-        [1, 0.3],
-        [0.3 * (1 + 1e-9), 1],
-      ],
-      [undefined, undefined],
-      ['a', 'b'],
-      ['x', 'y'],
-    );
-    expect(clear.worst.from).toBe('a');
-  });
 });
 
 describe('collectedMatrix', () => {
