@@ -14,7 +14,7 @@
  * is shared, so each of our batches is paired with an adjacent numpy batch (the script kept running in --paired
  * mode) and the ratio is the median of the pairs' ratios.
  */
-import { spawn } from 'node:child_process';
+import { execFileSync, spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { createInterface } from 'node:readline';
 import { fileURLToPath } from 'node:url';
@@ -79,10 +79,34 @@ interface NumpyBatches {
   close(): void;
 }
 
+/**
+ * The core both sides of every pair run on (BENCH_CPU, default 0). The cores of a shared virtual machine can differ in
+ * speed by a third for minutes at a time when a neighbour is busy, so a pair must never compare two different cores.
+ */
+const BENCH_CPU = process.env.BENCH_CPU ?? '0';
+
+/** Pins this process (every thread) to BENCH_CPU with taskset; returns how to undo it, or null without taskset. */
+function pinToBenchCpu(): (() => void) | null {
+  try {
+    const mask = /affinity mask: ([0-9a-f]+)/.exec(
+      execFileSync('taskset', ['-p', String(process.pid)], { encoding: 'utf8' }),
+    );
+    execFileSync('taskset', ['-cp', BENCH_CPU, String(process.pid)], { stdio: 'ignore' });
+    return () => {
+      if (mask) execFileSync('taskset', ['-p', mask[1], String(process.pid)], { stdio: 'ignore' });
+    };
+  } catch {
+    return null;
+  }
+}
+
 /** Starts the numpy script in --paired mode and waits for its warm-up; null (with the reason) if it cannot run. */
-async function startNumpy(): Promise<{ numpy: NumpyBatches | null; note: string }> {
+async function startNumpy(pinned: boolean): Promise<{ numpy: NumpyBatches | null; note: string }> {
   if (!existsSync(NUMPY_SCRIPT)) return { numpy: null, note: `skipped: ${NUMPY_SCRIPT} not found` };
-  const child = spawn('python3', [NUMPY_SCRIPT, '--paired'], { stdio: ['pipe', 'pipe', 'pipe'] });
+  const [command, args] = pinned
+    ? ['taskset', ['-c', BENCH_CPU, 'python3', NUMPY_SCRIPT, '--paired']]
+    : ['python3', [NUMPY_SCRIPT, '--paired']];
+  const child = spawn(command as string, args as string[], { stdio: ['pipe', 'pipe', 'pipe'] });
   const lines = createInterface({ input: child.stdout })[Symbol.asyncIterator]();
   let stderr = '';
   child.stderr.on('data', (chunk) => (stderr += String(chunk)));
@@ -111,7 +135,10 @@ async function startNumpy(): Promise<{ numpy: NumpyBatches | null; note: string 
     },
     close: () => child.stdin.end(),
   };
-  return { numpy, note: 'python3 bench/numpy_reference.py --paired' };
+  return {
+    numpy,
+    note: `python3 bench/numpy_reference.py --paired${pinned ? `, both sides on core ${BENCH_CPU}` : ', not pinned'}`,
+  };
 }
 
 /** Mean ms per call of one batch of 200 calls: the numpy script's batch. */
@@ -171,7 +198,8 @@ export default async function spectraSuite(): Promise<BenchRow[]> {
     ],
   ];
   const [, headline] = paired[0];
-  const { numpy, note: numpyNote } = await startNumpy();
+  const unpin = pinToBenchCpu();
+  const { numpy, note: numpyNote } = await startNumpy(unpin !== null);
   const oursUs: number[] = [];
   const numpyUs: number[] = [];
   for (let i = 0; i < 200; i++) headline();
@@ -185,6 +213,7 @@ export default async function spectraSuite(): Promise<BenchRow[]> {
   } else {
     for (let pair = 0; pair < PAIRS; pair++) oursUs.push(batchMeanMs(headline) * 1000);
   }
+  unpin?.();
   const ratios = numpyUs.map((us, k) => oursUs[k] / us);
   // tinybench afterwards: it keeps every sample, and that garbage would slow the collections of later batches.
   const [perCall] = await medians(paired, 1000);

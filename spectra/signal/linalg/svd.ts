@@ -73,13 +73,12 @@ export function jacobiColumns(a: Float64Array[], v: Float64Array[] | null, toler
 }
 
 /**
- * Singular values (descending) and right singular vectors (V[j][k], column k belonging to s[k]) of a tall matrix
- * given as its columns, which are overwritten. The lean path for diagnostics: no checks, no U.
+ * Rotates the columns (overwritten) until they are orthogonal: their norms σ, the column order by descending σ, and
+ * the columns of V (V[k][i]: column k, row i).
  */
-export function svdOfColumns(columns: Float64Array[], tolerance = EPSILON): { s: number[]; v: number[][] } {
-  const n = columns.length;
+function orthogonalise(columns: Float64Array[], tolerance: number) {
   const v = columns.map((_, j) => {
-    const e = new Float64Array(n);
+    const e = new Float64Array(columns.length);
     e[j] = 1;
     return e;
   });
@@ -90,7 +89,19 @@ export function svdOfColumns(columns: Float64Array[], tolerance = EPSILON): { s:
     return Math.sqrt(sum);
   });
   const order = sigma.map((_, j) => j).sort((x, y) => sigma[y] - sigma[x]);
-  return { s: order.map((j) => sigma[j]), v: Array.from({ length: n }, (_, i) => order.map((j) => v[j][i])) };
+  return { sigma, order, v };
+}
+
+/**
+ * Singular values (descending) and right singular vectors (V[j][k], column k belonging to s[k]) of a tall matrix
+ * given as its columns, which are overwritten. The lean path for diagnostics: no checks, no U.
+ */
+export function svdOfColumns(columns: Float64Array[], tolerance = EPSILON): { s: number[]; v: number[][] } {
+  const { sigma, order, v } = orthogonalise(columns, tolerance);
+  return {
+    s: order.map((j) => sigma[j]),
+    v: Array.from({ length: columns.length }, (_, i) => order.map((j) => v[j][i])),
+  };
 }
 
 /**
@@ -104,19 +115,10 @@ export function svd(matrix: readonly (readonly number[])[], tolerance = EPSILON)
   const transposed = rows < cols;
   const source = transposed ? matrix[0].map((_, j) => matrix.map((row) => row[j])) : matrix;
   const a = columnsOf(source);
-  const v = a.map((_, j) => {
-    const e = new Float64Array(a.length);
-    e[j] = 1;
-    return e;
-  });
-  jacobiColumns(a, v, tolerance);
-  const sigma = a.map((col) => Math.sqrt(col.reduce((sum, x) => sum + x * x, 0)));
-  const order = sigma.map((_, j) => j).sort((x, y) => sigma[y] - sigma[x]);
-  const m = a[0].length;
-  const n = a.length;
+  const { sigma, order, v } = orthogonalise(a, tolerance);
   const s = order.map((j) => sigma[j]);
-  const left = Array.from({ length: m }, (_, i) => order.map((j) => (sigma[j] > 0 ? a[j][i] / sigma[j] : 0)));
-  const right = Array.from({ length: n }, (_, i) => order.map((j) => v[j][i]));
+  const left = Array.from({ length: a[0].length }, (_, i) => order.map((j) => (sigma[j] > 0 ? a[j][i] / sigma[j] : 0)));
+  const right = Array.from({ length: a.length }, (_, i) => order.map((j) => v[j][i]));
   return transposed ? { u: right, s, v: left } : { u: left, s, v: right };
 }
 
