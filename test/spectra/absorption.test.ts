@@ -24,7 +24,7 @@ describe('absorption model', () => {
     },
   );
 
-  it('extinctionAtNm(cdse 4 nm, 350 nm) is about 1.2e6 M⁻¹ cm⁻¹ (science notes, C)', () => {
+  it('extinctionAtNm(cdse 4 nm, 350 nm) is about 1.2e6 M⁻¹ cm⁻¹ (docs/science.md, C)', () => {
     expect(extinctionAtNm(resolveDot({ material: 'cdse', diameterNm: 4 }), 350) / 1.2e6).toBeCloseTo(1, 1);
   });
 

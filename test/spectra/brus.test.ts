@@ -33,7 +33,7 @@ describe('brusGapEv', () => {
     expect(brusGapEv(m, d)).toBeCloseTo(brusSi(p.bandGapEv, p.reducedMassRel, p.dielectricConstant, d), 9);
   });
 
-  // Science notes §3 (C): Brus minus the Yu CdSe curve, +1.5 eV at 2.5 nm … +0.09 eV at 6 nm.
+  // docs/science.md §3 (C): Brus minus the Yu CdSe curve, +1.5 eV at 2.5 nm … +0.09 eV at 6 nm.
   it.each([
     [2.5, 1.5],
     [3, 0.96],

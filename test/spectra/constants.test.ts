@@ -46,7 +46,7 @@ describe('constants (CODATA 2018 via mathjs)', () => {
     expect(Math.abs(RYDBERG_EV / ref - 1)).toBeLessThan(1e-11);
   });
 
-  it('HC_EV_NM equals h·c/e·1e9 from CODATA 2018 and the handy value 1239.841984 eV nm (science notes, C)', () => {
+  it('HC_EV_NM equals h·c/e·1e9 from CODATA 2018 and the handy value 1239.841984 eV nm (docs/science.md, C)', () => {
     expect(Math.abs(HC_EV_NM / (((h * c) / e) * 1e9) - 1)).toBeLessThan(1e-13);
     expect(HC_EV_NM).toBeCloseTo(1239.841984, 5);
   });

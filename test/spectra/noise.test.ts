@@ -16,7 +16,7 @@ const design: NoiseInput = {
   excessNoiseFactor: 2,
 };
 
-/** The formula through ml-matrix: M⁺ diag(F (M a + b) + σ²) M⁺ᵀ. */
+/** The noise formula of docs/science.md through ml-matrix: M⁺ diag(F (M a + b) + σ²) M⁺ᵀ. */
 function referenceCovariance(input: NoiseInput): number[][] {
   const m = new Matrix(input.mixingPhotons);
   const pinv = mlPseudoInverse(m);

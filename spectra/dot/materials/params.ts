@@ -1,6 +1,6 @@
 /**
  * Bulk parameters of the sized materials for the Brus effective-mass equation and the Stokes-shift and width models.
- * Provenance (status marks as in the project's science notes: P seen in a paper or its abstract, T independent
+ * Provenance (status marks as in docs/science.md: P seen in a paper or its abstract, T independent
  * secondary copies of the paper that agree, M from memory and unverified, C computed):
  * - Masses of CdSe (0.13/0.45), InP (0.08/0.6) and GaAs (0.063/0.51), dielectric constants of InP (12.5) and GaAs
  * (12.9):
@@ -8,7 +8,7 @@
  * - All band gaps at 300 K, the CdTe/CdS/CsPbBr3 masses, the CdSe/CdTe/CdS/CsPbBr3 dielectric constants and the
  *   Bohr radii: M, from memory, unverified (same handbook tradition).
  * - CdSe εr = 10.6 is the high end of the quoted 9.5–10.6; with it Brus overestimates the Yu–Qu–Guo–Peng CdSe gap by
- *   +0.43 eV at 4 nm, the figure in the science notes (C).
+ *   +0.43 eV at 4 nm, the figure in docs/science.md (C).
  * - CsPbBr3 reduced mass 0.126 mₑ: measured (Yang et al., ACS Energy Lett. 2017, M: from memory, unverified); the
  *   tabulated masses 0.15/0.14 (M) would give 0.072 and a far too blue gap, so the Brus law uses the measured value.
  * - Homogeneous (single-dot, room-temperature) emission widths: 50–80 meV for CdSe (M); the other values are

@@ -3,7 +3,7 @@ import type { Material } from './types';
 
 /**
  * Descriptive data per material (the computed parts, emission range and size-law fields, are added in catalog.ts).
- * Typical values, with status: FWHM, QY and dispersion figures of the project's science notes (mostly M: from memory,
+ * Typical values, with status: FWHM, QY and dispersion figures of docs/science.md (mostly M: from memory,
  * unverified); Yu et al. 2003 state 5–10 % size dispersion (T); CsPbBr3 FWHM 12–42 nm and QY up to 90 %
  * (Protesescu et al. 2015, P abstract); carbon-dot QY mostly below 15 % (P). Hydrodynamic diameters of water-soluble
  * conjugates are from memory, unverified.

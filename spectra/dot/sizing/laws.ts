@@ -53,7 +53,7 @@ function brusLaw(
 }
 
 /**
- * The size law of every sized material. Ranges: Yu curves, the conservative ranges of the science notes (C); InP, see
+ * The size law of every sized material. Ranges: Yu curves, the conservative ranges of docs/science.md (C); InP, see
  * almeida2023.ts; GaAs 5–12 nm and CsPbBr3 4–15 nm cube edges (Protesescu et al., Nano Lett. 2015, 15, 3692, P
  * abstract) trimmed to 5 nm at the small end, where Brus is far too blue for CsPbBr3 (M); GaAs: no empirical curve is
  * at hand, so the range (M) keeps the Brus energies inside 500–800 nm.

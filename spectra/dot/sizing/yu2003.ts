@@ -15,7 +15,7 @@ export interface YuCurve {
   /** ε = prefactor · D^exponent, M⁻¹ cm⁻¹ with D in nm. */
   extinctionPrefactor: number;
   extinctionExponent: number;
-  /** Conservative validity (science notes, C): outside it the polynomials give nonsense. */
+  /** Conservative validity (docs/science.md, C): outside it the polynomials give nonsense. */
   diameterRangeNm: readonly [number, number];
   /** λ bracket (nm) inside which D(λ) rises monotonically and spans the diameter range (C, checked numerically). */
   bracketNm: readonly [number, number];
