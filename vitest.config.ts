@@ -1,16 +1,6 @@
 import { defineConfig } from 'vitest/config';
 import { playwright } from '@vitest/browser-playwright';
-
-// Chromium flags for a closed network: no background fetches, no sandbox (CI runs as root).
-export const chromiumArgs = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+import { CHROMIUM_LAUNCH } from './test/chromium';
 
 export default defineConfig({
   test: {
@@ -38,7 +28,7 @@ export default defineConfig({
           browser: {
             enabled: true,
             headless: true,
-            provider: playwright({ launchOptions: { executablePath: '/usr/bin/chromium', args: chromiumArgs } }),
+            provider: playwright({ launchOptions: CHROMIUM_LAUNCH }),
             instances: [{ browser: 'chromium' }],
           },
         },

@@ -11,16 +11,8 @@ import { gzipSync } from 'node:zlib';
 import { chromium } from 'playwright-core';
 import type { BenchRow } from '../types';
 import { ROOT, startApp } from '../../test/quality/helpers/app';
+import { CHROMIUM_LAUNCH } from '../../test/chromium';
 
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
 const LOADS = 7;
 /** Budget for the first load, gzipped (our target). */
 const BUDGET_KIB = 80;
@@ -61,9 +53,8 @@ async function chartRow(): Promise<BenchRow> {
   const app = await startApp();
   const profile = mkdtempSync(join(tmpdir(), 'qdpanel-bench-chrome-'));
   const context = await chromium.launchPersistentContext(profile, {
-    executablePath: '/usr/bin/chromium',
+    ...CHROMIUM_LAUNCH,
     headless: true,
-    args: CHROMIUM_ARGS,
     viewport: { width: 1280, height: 900 },
   });
   try {

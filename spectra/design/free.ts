@@ -9,11 +9,11 @@
 import { SpectraError } from '../core/errors';
 import type { ExcitationLine } from '../core/panel';
 import { CatalogSearch } from './catalog';
-import { freeCatalog, type FreeCatalog } from './free-catalog';
+import { freeCatalog } from './free-catalog';
 import { candidateMatrix, rememberingResolver } from './matrix';
-import { resolveOptions, type ResolvedDesignOptions } from './options';
+import type { ResolvedDesignOptions } from './options';
 import { refineFreeDesign, type FreeDesign } from './refine';
-import { allowedMaterials, normalizeWindow, type DesignRequest } from './request';
+import { allowedMaterials, type DesignRequest } from './request';
 import { searchSteps, type SearchProgress } from './search';
 
 /** Outcome of free mode: the design, its objective, and how it was found. */
@@ -114,17 +114,4 @@ export function* freeDesignSteps(
       refineMoves: outcome.moves,
     },
   };
-}
-
-/** The grid catalog free mode searches for a request (what `exact` refers to). */
-export function freeGridCatalog(
-  request: Pick<DesignRequest, 'allowedMaterials' | 'exclude' | 'windowNm' | 'excitation' | 'options'>,
-): FreeCatalog {
-  const windowNm = normalizeWindow(request.windowNm);
-  return freeCatalog(
-    allowedMaterials(request, windowNm),
-    windowNm,
-    request.excitation,
-    resolveOptions(request.options, true),
-  );
 }

@@ -73,12 +73,3 @@ export function worstInterference(
   }
   return worst;
 }
-
-/** Each target's own signal a_u · collected[c_u][p_u], relative units. */
-export function targetSignals(
-  collected: CollectedMatrix,
-  abundance: readonly number[],
-  design: DesignAssignment,
-): number[] {
-  return abundance.map((a, u) => a * collected[design.channel[u]][design.probe[u]]);
-}

@@ -20,6 +20,13 @@ interface Band {
   brightness: number;
 }
 
+// The Soret band and two Q bands, which excite both porphyrin emission bands (from memory).
+const PORPHYRIN_EXCITATION: Band['excitation'] = [
+  [405, 30, 1],
+  [505, 30, 0.1],
+  [630, 20, 0.05],
+];
+
 /** The default autofluorescence bands (approximate, from memory; see the file header). */
 export const AUTOFLUORESCENCE_BANDS: readonly Band[] = Object.freeze([
   { name: 'collagen/elastin', emissionNm: 400, emissionFwhmNm: 80, excitation: [[330, 50, 1]], brightness: 0.8 },
@@ -39,22 +46,14 @@ export const AUTOFLUORESCENCE_BANDS: readonly Band[] = Object.freeze([
     name: 'porphyrins',
     emissionNm: 635,
     emissionFwhmNm: 30,
-    excitation: [
-      [405, 30, 1],
-      [505, 30, 0.1],
-      [630, 20, 0.05],
-    ],
+    excitation: PORPHYRIN_EXCITATION,
     brightness: 0.15,
   },
   {
     name: 'porphyrins (second band)',
     emissionNm: 700,
     emissionFwhmNm: 30,
-    excitation: [
-      [405, 30, 1],
-      [505, 30, 0.1],
-      [630, 20, 0.05],
-    ],
+    excitation: PORPHYRIN_EXCITATION,
     brightness: 0.05,
   },
 ]);

@@ -22,6 +22,21 @@ export const DEFAULT_DETECTOR_ID = 'ideal';
 
 const APPROX = 'Approximate curve from memory of typical values for the class, not from a data sheet; real units vary.';
 
+// A GaAsP photocathode's QE, shared by the photomultiplier and the hybrid detector built on it (from memory).
+const GAASP_QE: DetectorClass['qePoints'] = [
+  [300, 0.02],
+  [350, 0.15],
+  [400, 0.3],
+  [450, 0.4],
+  [500, 0.45],
+  [550, 0.44],
+  [600, 0.38],
+  [650, 0.28],
+  [700, 0.1],
+  [720, 0.03],
+  [750, 0],
+];
+
 /** The detector classes a channel may name (from memory, approximate: see the file header). */
 export const DETECTOR_CLASSES: readonly DetectorClass[] = Object.freeze([
   {
@@ -69,37 +84,13 @@ export const DETECTOR_CLASSES: readonly DetectorClass[] = Object.freeze([
     id: 'pmt-gaasp',
     name: 'Photomultiplier, GaAsP photocathode',
     notes: `High QE across the visible, cut off beyond ~720 nm. ${APPROX}`,
-    qePoints: [
-      [300, 0.02],
-      [350, 0.15],
-      [400, 0.3],
-      [450, 0.4],
-      [500, 0.45],
-      [550, 0.44],
-      [600, 0.38],
-      [650, 0.28],
-      [700, 0.1],
-      [720, 0.03],
-      [750, 0],
-    ],
+    qePoints: GAASP_QE,
   },
   {
     id: 'hybrid-gaasp',
     name: 'Hybrid photodetector, GaAsP photocathode',
     notes: `Same photocathode as a GaAsP photomultiplier (so the same QE shape), with lower excess noise. ${APPROX}`,
-    qePoints: [
-      [300, 0.02],
-      [350, 0.15],
-      [400, 0.3],
-      [450, 0.4],
-      [500, 0.45],
-      [550, 0.44],
-      [600, 0.38],
-      [650, 0.28],
-      [700, 0.1],
-      [720, 0.03],
-      [750, 0],
-    ],
+    qePoints: GAASP_QE,
   },
   {
     id: 'scmos',

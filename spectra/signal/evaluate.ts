@@ -85,7 +85,16 @@ export function evaluatePanel(
     lotShiftSensitivity:
       options.sensitivity === false
         ? null
-        : lotShiftSensitivity(components, transmissions, grid.stepNm, collected, assigned, probeIds, channelIds),
+        : lotShiftSensitivity({
+            components,
+            transmissions,
+            stepNm: grid.stepNm,
+            collected,
+            figures,
+            assigned,
+            probeIds,
+            channelIds,
+          }),
     warnings,
   };
   if (model.background) Object.assign(evaluation, backgroundFigures(model, panel, collected, warnings));

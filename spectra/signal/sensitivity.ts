@@ -5,7 +5,7 @@
  * unchanged: a first-order model of a lot shift (a real shift also changes the width and the absorption a little).
  */
 import type { SampledSpectrum } from '../core/grid';
-import { collectedMatrix, crosstalkFigures, type EmissionComponent } from './crosstalk';
+import { collectedMatrix, crosstalkFigures, type CrosstalkFigures, type EmissionComponent } from './crosstalk';
 
 /** Default peak shift for the lot-to-lot check, nm (common practice). */
 export const LOT_SHIFT_NM = 5;
@@ -65,18 +65,22 @@ function shiftedComponent(component: EmissionComponent, shiftNm: number, stepNm:
   return { emission, from, weightByChannel: component.weightByChannel };
 }
 
+/** What the lot-shift check starts from: an evaluated panel's emissions, light paths, matrix and figures. */
+export interface EvaluatedCrosstalk {
+  components: EmissionComponent[][];
+  transmissions: number[][];
+  stepNm: number;
+  collected: number[][];
+  /** crosstalkFigures of `collected` (the unshifted panel). */
+  figures: CrosstalkFigures;
+  assigned: (number | undefined)[];
+  probeIds: string[];
+  channelIds: string[];
+}
+
 /** Re-evaluates the crosstalk figures with each probe in turn shifted by ±shiftNm; reports the worst cases. */
-export function lotShiftSensitivity(
-  probes: EmissionComponent[][],
-  transmissions: number[][],
-  stepNm: number,
-  collected: number[][],
-  assigned: (number | undefined)[],
-  probeIds: string[],
-  channelIds: string[],
-  shiftNm = LOT_SHIFT_NM,
-): LotShiftSensitivity {
-  const base = crosstalkFigures(collected, assigned, probeIds, channelIds);
+export function lotShiftSensitivity(panel: EvaluatedCrosstalk, shiftNm = LOT_SHIFT_NM): LotShiftSensitivity {
+  const { components: probes, transmissions, stepNm, collected, figures: base, assigned, probeIds, channelIds } = panel;
   const baseSpill = worstSpillover(base.spillover, base.primaryChannel);
   const result: LotShiftSensitivity = {
     shiftNm,

@@ -2,10 +2,10 @@ import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import { openBrowser, shot } from './helpers/browser';
-import { startApp, type RunningApp } from './helpers/server';
+import { startApp, type StartedApp } from '../quality/helpers/app';
 import { decodeFragment } from '../../web/state/fragment';
 
-let app: RunningApp;
+let app: StartedApp;
 let browser: { context: BrowserContext; close(): Promise<void> };
 let shareUrl = '';
 

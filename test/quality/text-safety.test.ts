@@ -10,16 +10,8 @@ import { CSV_LIMITS, parseSpectrumCsv, SpectraError } from '../../spectra/index'
 import { orderingSheetCsv } from '../../web/io/csv-export';
 import { startApp, type StartedApp } from './helpers/app';
 import { demoPanelTitled, postJson } from './helpers/contract';
+import { CHROMIUM_LAUNCH } from '../chromium';
 
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
 // Each payload sets a global and opens a dialog if it ever runs.
 const PAYLOADS = [
   '<img src=x onerror="window.__qdpRan=1;alert(1)">',
@@ -36,9 +28,8 @@ beforeAll(async () => {
   app = await startApp();
   profile = mkdtempSync(join(tmpdir(), 'qdpanel-quality-chrome-'));
   context = await chromium.launchPersistentContext(profile, {
-    executablePath: '/usr/bin/chromium',
+    ...CHROMIUM_LAUNCH,
     headless: true,
-    args: CHROMIUM_ARGS,
     viewport: { width: 1280, height: 900 },
   });
 });

@@ -7,24 +7,11 @@ import {
   filterTransmission,
   shiftEmission,
 } from '../../spectra/index';
-import type { PanelSpec, ProbeSpec } from '../../spectra/index';
+import type { PanelSpec } from '../../spectra/index';
+import { gaussianProbe } from './helpers/probes';
 
-function gaussianProbe(id: string, peakNm: number, sigmaNm: number): ProbeSpec {
-  const points: [number, number][] = [];
-  for (let nm = 301; nm <= 999; nm += 1) points.push([nm, Math.exp(-0.5 * ((nm - peakNm) / sigmaNm) ** 2) + 1e-300]);
-  return {
-    id,
-    material: 'custom',
-    quantumYield: 0.5,
-    measuredEmission: { points },
-    extinction: {
-      points: [
-        [300, 1e5],
-        [1000, 1e5],
-      ],
-    },
-  };
-}
+// Emissions held on the whole grid (a tiny floor everywhere), so a shift moves every point.
+const wholeGrid = { reachSigmas: Infinity, floor: 1e-300 };
 
 const gaussian = (peakNm: number, sigmaNm: number) =>
   Array.from({ length: DEFAULT_GRID.count }, (_, i) =>
@@ -138,7 +125,11 @@ describe('lot-shift sensitivity', () => {
 
   // Independent route: build the shifted panels explicitly (the measured tables moved by ±5 nm) and evaluate them.
   it('evaluatePanel lotShiftSensitivity equals the worst of the explicitly shifted panels', () => {
-    const probes = [gaussianProbe('a', 560, 12), gaussianProbe('b', 600, 12), gaussianProbe('c', 640, 14)];
+    const probes = [
+      gaussianProbe('a', 560, 12, wholeGrid),
+      gaussianProbe('b', 600, 12, wholeGrid),
+      gaussianProbe('c', 640, 14, wholeGrid),
+    ];
     const channels = [560, 600, 640].map((nm, i) => ({
       id: `c${i}`,
       filters: [{ type: 'bandpass' as const, centerNm: nm, widthNm: 20 }],

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { errorOf } from './helpers/errors';
+import { gaussianProbe } from './helpers/probes';
 import erf from '@stdlib/math-base-special-erf';
 import {
   DEFAULT_GRID,
@@ -10,29 +11,7 @@ import {
   noiseAmplification,
   panelSpectra,
 } from '../../spectra/index';
-import type { ChannelSpec, PanelSpec, ProbeSpec } from '../../spectra/index';
-
-/** A made-up probe with a measured Gaussian emission (σ in nm) and a flat measured extinction, so no size law is
- * involved. */
-function gaussianProbe(id: string, peakNm: number, sigmaNm: number, extra: Partial<ProbeSpec> = {}): ProbeSpec {
-  const points: [number, number][] = [];
-  for (let nm = Math.max(301, peakNm - 8 * sigmaNm); nm <= Math.min(999, peakNm + 8 * sigmaNm); nm += 1) {
-    points.push([nm, Math.exp(-0.5 * ((nm - peakNm) / sigmaNm) ** 2)]);
-  }
-  return {
-    id,
-    material: 'custom',
-    quantumYield: 0.5,
-    measuredEmission: { points },
-    extinction: {
-      points: [
-        [300, 1e5],
-        [1000, 1e5],
-      ],
-    },
-    ...extra,
-  };
-}
+import type { ChannelSpec, PanelSpec } from '../../spectra/index';
 
 const bandpass = (id: string, centerNm: number, widthNm = 24, extra: Partial<ChannelSpec> = {}): ChannelSpec => ({
   id,

@@ -5,6 +5,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
+import { cardFrame, fieldRows, focusRing, textFields } from './shared-styles';
 import {
   FILTER_TYPES,
   type ChannelSpec,
@@ -57,57 +58,28 @@ export class ChannelCard extends LitElement {
   /** Errors keyed by the path inside the channel, e.g. "filters.0.widthNm"; those without a field show together. */
   @property({ attribute: false }) errors: Record<string, string> = {};
 
-  static override styles = css`
-    :host {
-      display: block;
-      border: 1px solid #ccd;
-      border-radius: 6px;
-      padding: 0.5rem 0.7rem;
-      background: #fff;
-    }
-    .row {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 0.5rem 0.8rem;
-      align-items: flex-end;
-      margin: 0.3rem 0;
-    }
-    label.text {
-      display: flex;
-      flex-direction: column;
-      font-size: 0.85rem;
-    }
-    input[type='text'],
-    select {
-      font: inherit;
-      padding: 0.2rem 0.3rem;
-      border: 1px solid #889;
-      border-radius: 3px;
-      max-width: 100%;
-    }
-    label.text {
-      min-width: 0;
-      max-width: 100%;
-    }
-    :focus-visible {
-      outline: 3px solid #1a56db;
-      outline-offset: 1px;
-    }
-    header {
-      display: flex;
-      justify-content: space-between;
-      align-items: center;
-      gap: 0.5rem;
-    }
-    .filter {
-      border-left: 3px solid #8a94a6;
-      padding-left: 0.5rem;
-      margin: 0.3rem 0;
-    }
-    .bad {
-      color: #8b1a1a;
-    }
-  `;
+  static override styles = [
+    focusRing,
+    cardFrame,
+    fieldRows,
+    textFields,
+    css`
+      header {
+        display: flex;
+        justify-content: space-between;
+        align-items: center;
+        gap: 0.5rem;
+      }
+      .filter {
+        border-left: 3px solid #8a94a6;
+        padding-left: 0.5rem;
+        margin: 0.3rem 0;
+      }
+      .bad {
+        color: #8b1a1a;
+      }
+    `,
+  ];
 
   private change(channel: ChannelSpec): void {
     this.dispatchEvent(

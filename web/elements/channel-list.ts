@@ -4,6 +4,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
+import { cardList, focusRing } from './shared-styles';
 import { LIMITS, type DetectorClass, type PanelSpec } from '../../spectra/index';
 import { RANGES } from '../../worker/schemas';
 import './channel-card';
@@ -20,32 +21,24 @@ export class ChannelList extends LitElement {
 
   @state() private run = { startNm: 480, bins: 16, binWidthNm: 10 };
 
-  static override styles = css`
-    :host {
-      display: block;
-    }
-    .cards {
-      display: grid;
-      grid-template-columns: minmax(0, 1fr);
-      gap: 0.6rem;
-    }
-    fieldset {
-      border: 1px solid #ccd;
-      border-radius: 6px;
-      margin-top: 0.6rem;
-      display: flex;
-      flex-wrap: wrap;
-      gap: 0.5rem;
-      align-items: flex-end;
-    }
-    :focus-visible {
-      outline: 3px solid #1a56db;
-      outline-offset: 1px;
-    }
-    .note {
-      font-size: 0.85rem;
-    }
-  `;
+  static override styles = [
+    focusRing,
+    cardList,
+    css`
+      fieldset {
+        border: 1px solid #ccd;
+        border-radius: 6px;
+        margin-top: 0.6rem;
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.5rem;
+        align-items: flex-end;
+      }
+      .note {
+        font-size: 0.85rem;
+      }
+    `,
+  ];
 
   private fire(name: string, detail?: unknown): void {
     this.dispatchEvent(new CustomEvent(name, { detail, bubbles: true, composed: true }));

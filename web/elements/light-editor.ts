@@ -4,6 +4,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
+import { fieldRows, focusRing } from './shared-styles';
 import type { BackgroundSpec, PanelSpec, SpectrumPoints } from '../../spectra/index';
 import { messagesBesides } from '../state/error-map';
 import './number-field';
@@ -18,23 +19,16 @@ export class LightEditor extends LitElement {
    */
   @property({ attribute: false }) errors: Record<string, string> = {};
 
-  static override styles = css`
-    :host {
-      display: block;
-      font-size: 0.9rem;
-    }
-    .row {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 0.5rem 0.8rem;
-      align-items: flex-end;
-      margin: 0.3rem 0;
-    }
-    :focus-visible {
-      outline: 3px solid #1a56db;
-      outline-offset: 1px;
-    }
-  `;
+  static override styles = [
+    focusRing,
+    fieldRows,
+    css`
+      :host {
+        display: block;
+        font-size: 0.9rem;
+      }
+    `,
+  ];
 
   private edit(panel: PanelSpec): void {
     this.dispatchEvent(new CustomEvent('panel-edit', { detail: { panel }, bubbles: true, composed: true }));

@@ -6,6 +6,7 @@
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
 import type { Material, PanelSpec } from '../../spectra/index';
+import { hazardNotes } from './hazard-notes';
 import { containedClasses, offendingProbes, PANEL_EXCLUSIONS, type PanelExclusion } from '../state/exclusions';
 
 /** What the notes need of each material. */
@@ -129,17 +130,7 @@ export class MaterialNotes extends LitElement {
         return html`<section data-material=${m.id}>
           <h4>${m.name} <span class="level ${m.toxicity.level}">hazard: ${m.toxicity.level}</span></h4>
           <p>Used by: ${probes}</p>
-          ${
-            m.toxicity.notes.length
-              ? html`<ul>
-                  ${m.toxicity.notes.map((n) => html`<li>${n}</li>`)}
-                </ul>`
-              : ''
-          }
-          <p><strong>Cautions</strong></p>
-          <ul>
-            ${m.toxicity.cautions.map((n) => html`<li>${n}</li>`)}
-          </ul>
+          ${hazardNotes(m.toxicity)}
         </section>`;
       })}
       <p>${LASER_CAUTION}</p>

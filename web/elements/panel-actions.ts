@@ -4,6 +4,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
+import { focusRing } from './shared-styles';
 import type { PanelSpec } from '../../spectra/index';
 import { orderingSheetCsv, type ResolvedForSheet } from '../io/csv-export';
 import { downloadBlob, downloadText, svgDocument, svgToPng } from '../io/download';
@@ -33,29 +34,28 @@ export class PanelActions extends LitElement {
   @state() private message = '';
   @state() private busy = false;
 
-  static override styles = css`
-    :host {
-      display: block;
-    }
-    .row {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 0.4rem;
-      align-items: center;
-    }
-    input {
-      font: inherit;
-      width: min(32rem, 100%);
-      padding: 0.25rem;
-    }
-    :focus-visible {
-      outline: 3px solid #1a56db;
-      outline-offset: 1px;
-    }
-    .msg {
-      font-size: 0.9rem;
-    }
-  `;
+  static override styles = [
+    focusRing,
+    css`
+      :host {
+        display: block;
+      }
+      .row {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.4rem;
+        align-items: center;
+      }
+      input {
+        font: inherit;
+        width: min(32rem, 100%);
+        padding: 0.25rem;
+      }
+      .msg {
+        font-size: 0.9rem;
+      }
+    `,
+  ];
 
   private async share(): Promise<void> {
     if (!this.panel) return;

@@ -6,6 +6,8 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
+import { hazardNotes } from './hazard-notes';
+import { cardFrame, fieldRows, focusRing, textFields } from './shared-styles';
 import type { Material, ProbeSpec, SpectrumPoints } from '../../spectra/index';
 import type { ProbePrediction } from '../state/compute';
 import { messagesBesides } from '../state/error-map';
@@ -52,85 +54,55 @@ export class ProbeCard extends LitElement {
   @property({ attribute: false }) prediction?: ProbePrediction;
   /** Errors keyed by the probe's field name ('' for the probe as a whole); those without a field show together. */
   @property({ attribute: false }) errors: Record<string, string> = {};
-  /** Why this probe breaks the panel's material exclusions, if it does. */
   /** Why this probe is excluded (empty when it is not); the border follows it through the reflected `excluded`. */
   @property({ attribute: false }) blocked = '';
   @property({ type: Boolean, reflect: true }) excluded = false;
 
-  static override styles = css`
-    :host {
-      display: block;
-      border: 1px solid #ccd;
-      border-radius: 6px;
-      padding: 0.5rem 0.7rem;
-      background: #fff;
-    }
-    :host([excluded]) {
-      border: 2px solid #8b1a1a;
-    }
-    .row {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 0.5rem 0.8rem;
-      align-items: flex-end;
-      margin: 0.3rem 0;
-    }
-    label.text {
-      display: flex;
-      flex-direction: column;
-      font-size: 0.85rem;
-    }
-    input[type='text'],
-    select {
-      font: inherit;
-      padding: 0.2rem 0.3rem;
-      border: 1px solid #889;
-      border-radius: 3px;
-      max-width: 100%;
-    }
-    label.text {
-      min-width: 0;
-      max-width: 100%;
-    }
-    :focus-visible {
-      outline: 3px solid #1a56db;
-      outline-offset: 1px;
-    }
-    .pred {
-      font-size: 0.85rem;
-      color: #222;
-      background: #f3f4f8;
-      padding: 0.3rem 0.5rem;
-      border-radius: 4px;
-    }
-    .hazard {
-      font-size: 0.8rem;
-    }
-    details.hazard ul {
-      color: #222;
-      margin: 0.2rem 0;
-      padding-left: 1.2rem;
-    }
-    .high {
-      color: #8b1a1a;
-    }
-    .moderate {
-      color: #7a4a00;
-    }
-    .low {
-      color: #2f4f2f;
-    }
-    .bad {
-      color: #8b1a1a;
-      font-weight: 600;
-    }
-    header {
-      display: flex;
-      justify-content: space-between;
-      align-items: center;
-      gap: 0.5rem;
-    }
-  `;
+  static override styles = [
+    focusRing,
+    cardFrame,
+    fieldRows,
+    textFields,
+    css`
+      :host([excluded]) {
+        border: 2px solid #8b1a1a;
+      }
+      .pred {
+        font-size: 0.85rem;
+        color: #222;
+        background: #f3f4f8;
+        padding: 0.3rem 0.5rem;
+        border-radius: 4px;
+      }
+      .hazard {
+        font-size: 0.8rem;
+      }
+      details.hazard ul {
+        color: #222;
+        margin: 0.2rem 0;
+        padding-left: 1.2rem;
+      }
+      .high {
+        color: #8b1a1a;
+      }
+      .moderate {
+        color: #7a4a00;
+      }
+      .low {
+        color: #2f4f2f;
+      }
+      .bad {
+        color: #8b1a1a;
+        font-weight: 600;
+      }
+      header {
+        display: flex;
+        justify-content: space-between;
+        align-items: center;
+        gap: 0.5rem;
+      }
+    `,
+  ];
 
   private change(patch: Partial<ProbeSpec>): void {
     const probe: ProbeSpec = { ...this.probe, ...patch };
@@ -289,17 +261,7 @@ export class ProbeCard extends LitElement {
         m
           ? html`<details class="hazard ${m.toxicity.level}">
               <summary>${m.name}: hazard ${m.toxicity.level}; notes and cautions</summary>
-              ${
-                m.toxicity.notes.length
-                  ? html`<ul>
-                      ${m.toxicity.notes.map((n) => html`<li>${n}</li>`)}
-                    </ul>`
-                  : ''
-              }
-              <p><strong>Cautions</strong></p>
-              <ul>
-                ${m.toxicity.cautions.map((n) => html`<li>${n}</li>`)}
-              </ul>
+              ${hazardNotes(m.toxicity)}
             </details>`
           : ''
       }

@@ -4,6 +4,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
+import { cardList, focusRing } from './shared-styles';
 import { LIMITS, type PanelSpec } from '../../spectra/index';
 import type { ProbePrediction } from '../state/compute';
 import './probe-card';
@@ -21,23 +22,15 @@ export class ProbeList extends LitElement {
   /** Most probes a panel may hold (the API's limit). */
   @property({ type: Number }) maxProbes: number = LIMITS.probes;
 
-  static override styles = css`
-    :host {
-      display: block;
-    }
-    .cards {
-      display: grid;
-      grid-template-columns: minmax(0, 1fr);
-      gap: 0.6rem;
-    }
-    button {
-      margin-top: 0.5rem;
-    }
-    :focus-visible {
-      outline: 3px solid #1a56db;
-      outline-offset: 1px;
-    }
-  `;
+  static override styles = [
+    focusRing,
+    cardList,
+    css`
+      button {
+        margin-top: 0.5rem;
+      }
+    `,
+  ];
 
   override render() {
     const panel = this.panel;

@@ -6,17 +6,7 @@ import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { chromium, type BrowserContext, type Locator, type Page } from 'playwright-core';
-
-/** Flags for a closed network and a root user (no sandbox). */
-export const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-];
+import { CHROMIUM_LAUNCH } from '../../chromium';
 
 /** Where the flows save their screenshots. */
 export const SHOT_DIR = join(process.cwd(), 'test-output', 'e2e');
@@ -25,9 +15,8 @@ export const SHOT_DIR = join(process.cwd(), 'test-output', 'e2e');
 export async function openBrowser(): Promise<{ context: BrowserContext; close(): Promise<void> }> {
   const profile = mkdtempSync(join(tmpdir(), 'qdp-e2e-'));
   const context = await chromium.launchPersistentContext(profile, {
-    executablePath: '/usr/bin/chromium',
+    ...CHROMIUM_LAUNCH,
     headless: true,
-    args: CHROMIUM_ARGS,
     viewport: { width: 1280, height: 900 },
     acceptDownloads: true,
   });
