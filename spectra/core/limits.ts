@@ -9,6 +9,8 @@ export const LIMITS = Object.freeze({
   channels: 64,
   /** Excitation lines in one panel. */
   lines: 16,
+  /** Shell layers around one core. */
+  shellLayers: 4,
   /** Filters stacked in one channel. */
   filtersPerChannel: 8,
   /** Points of a measured table (filter, emission, extinction, background) in a panel. */

@@ -8,6 +8,20 @@
 export const MATERIAL_IDS = ['cdse', 'cdte', 'cds', 'inp', 'gaas', 'cspbbr3', 'carbon', 'custom'] as const;
 export type MaterialId = (typeof MATERIAL_IDS)[number];
 
+/** Shell materials a core/shell probe's layers may be made of (`silica`: a non-epitaxial encapsulation). */
+export const SHELL_MATERIAL_IDS = ['zns', 'znse', 'cds', 'silica'] as const;
+export type ShellMaterialId = (typeof SHELL_MATERIAL_IDS)[number];
+
+/** One shell layer, innermost first. */
+export interface ShellLayer {
+  material: ShellMaterialId;
+  thicknessNm: number;
+}
+
+/** Sizing curves a probe may choose (`sizingModel`): CdSe has two published calibrations; Yu 2003 is the default. */
+export const SIZING_MODELS = ['yu2003', 'jasieniak2009'] as const;
+export type SizingModelId = (typeof SIZING_MODELS)[number];
+
 /** [wavelength in nm, value] pairs, ascending in wavelength. */
 export type SpectrumPoints = [number, number][];
 
@@ -24,6 +38,10 @@ export interface ProbeSpec {
   /** Exactly one of emissionPeakNm / diameterNm for sized materials; carbon dots take emissionPeakNm. */
   emissionPeakNm?: number;
   diameterNm?: number;
+  /** Shell layers around the core, innermost first; absent or [] is a bare core. */
+  shell?: ShellLayer[];
+  /** CdSe only: which published sizing curve turns size into colour (default yu2003). */
+  sizingModel?: SizingModelId;
   /** Size dispersion σ/d in percent (default: the material's typical value). */
   sizeDispersionPct?: number;
   /** Emission FWHM override in nm (carbon dots; otherwise predicted from size dispersion). */
@@ -46,6 +64,8 @@ export const DOT_INPUT_FIELDS = [
   'material',
   'emissionPeakNm',
   'diameterNm',
+  'shell',
+  'sizingModel',
   'sizeDispersionPct',
   'fwhmNm',
   'quantumYield',

@@ -12,7 +12,6 @@ import { bandChannel } from './free-catalog';
 import { designNoise } from './design-noise';
 import { worstInterference } from './objective';
 import { resolveOptions } from './options';
-import { freeProbes } from './refine';
 import { normalizeWindow, targetsOf, type DesignRequest } from './request';
 import { exclusionsOf } from '../dot/materials/exclusions';
 import { getMaterial } from '../dot/materials/catalog';
@@ -61,7 +60,7 @@ export function* designSteps(
   if (free) {
     const windowNm = normalizeWindow(request.windowNm);
     const out = yield* freeDesignSteps(abundance, request, windowNm, o, shouldStop);
-    probes = freeProbes(out.design);
+    probes = out.probes;
     channels = out.design.bands.map((b, t) => bandChannel(`c${t + 1}`, b, o.edgeWidthNm));
     ({ worst, exact } = out);
     stats = { ...out.stats };

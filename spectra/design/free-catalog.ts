@@ -7,6 +7,7 @@
 import type { Material } from '../dot/materials/types';
 import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../core/panel';
 import type { ResolvedDesignOptions } from './options';
+import { designProbe, designReachNm } from './request';
 
 /** A bandpass filter's centre and width (FWHM), nm. */
 export interface Band {
@@ -39,7 +40,7 @@ export function bandChannel(id: string, band: Band, edgeWidthNm: number): Channe
 
 /** Peaks on the grid (multiples of the step) inside both the material's reach and the window. */
 export function peaksFor(material: Material, windowNm: [number, number], stepNm: number): number[] {
-  const [r0, r1] = material.emissionRangeNm!;
+  const [r0, r1] = designReachNm(material);
   const lo = Math.max(Math.ceil(r0), windowNm[0]);
   const hi = Math.min(Math.floor(r1), windowNm[1]);
   const out: number[] = [];
@@ -56,8 +57,7 @@ export function freeCatalog(
 ): FreeCatalog {
   const probes: ProbeSpec[] = [];
   for (const m of materials) {
-    for (const peak of peaksFor(m, windowNm, o.peakStepNm))
-      probes.push({ id: `${m.id}-${peak}`, material: m.id, emissionPeakNm: peak });
+    for (const peak of peaksFor(m, windowNm, o.peakStepNm)) probes.push(designProbe(`${m.id}-${peak}`, m, peak));
   }
   const bands: Band[] = [];
   for (const widthNm of o.bandwidthsNm) {

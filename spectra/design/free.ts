@@ -7,18 +7,20 @@
  * can only have improved on that optimum). The continuous problem has no proven bound.
  */
 import { SpectraError } from '../core/errors';
-import type { ExcitationLine } from '../core/panel';
+import type { ExcitationLine, ProbeSpec } from '../core/panel';
 import { CatalogSearch } from './catalog';
 import { freeCatalog } from './free-catalog';
 import { candidateMatrix, rememberingResolver } from './matrix';
 import type { ResolvedDesignOptions } from './options';
-import { refineFreeDesign, type FreeDesign } from './refine';
+import { freeProbes, refineFreeDesign, type FreeDesign } from './refine';
 import { allowedMaterials, type DesignRequest } from './request';
 import { searchSteps, type SearchProgress } from './search';
 
 /** Outcome of free mode: the design, its objective, and how it was found. */
 export interface FreeOutcome {
   design: FreeDesign;
+  /** The design's probes (ids p1…pn), with each material's typical shell. */
+  probes: ProbeSpec[];
   worst: number;
   exact: boolean;
   stats: {
@@ -87,12 +89,13 @@ export function* freeDesignSteps(
   };
   const gridWorst = found.objective!.worstInterference;
   let outcome = { design: start, worst: gridWorst, moves: 0 };
+  const byId = new Map(materials.map((m) => [m.id as string, m]));
   if (o.refine && !shouldStop?.()) {
     const ctx = {
       abundance,
       excitation: request.excitation,
       windowNm,
-      materials: new Map(materials.map((m) => [m.id as string, m])),
+      materials: byId,
       options: o,
       resolve,
     };
@@ -100,6 +103,7 @@ export function* freeDesignSteps(
   }
   return {
     design: outcome.design,
+    probes: freeProbes(outcome.design, byId),
     worst: outcome.worst,
     exact: found.exact,
     stats: {

@@ -11,6 +11,7 @@ import { candidateMatrix } from './matrix';
 import { worstInterference } from './objective';
 import type { ResolvedDesignOptions } from './options';
 import type { SearchProgress } from './search';
+import { designProbe, designReachNm } from './request';
 import type { DotResolver } from '../signal/panel-model';
 
 /** A free-mode design: per target a material, an emission peak and a band. */
@@ -32,8 +33,8 @@ export interface RefineContext {
 }
 
 /** Probe specs of a free design (ids p1…pn). */
-export function freeProbes(d: FreeDesign): ProbeSpec[] {
-  return d.materials.map((material, t) => ({ id: `p${t + 1}`, material, emissionPeakNm: d.peaksNm[t] }));
+export function freeProbes(d: FreeDesign, materials: ReadonlyMap<string, Material>): ProbeSpec[] {
+  return d.materials.map((material, t) => designProbe(`p${t + 1}`, materials.get(material)!, d.peaksNm[t]));
 }
 
 /** True when the design keeps every free-mode rule except the signal floor (checked with the light). */
@@ -41,7 +42,7 @@ export function freeDesignAllowed(d: FreeDesign, ctx: RefineContext): boolean {
   const [lo, hi] = ctx.windowNm;
   const [wMin, wMax] = ctx.options.bandwidthRangeNm;
   return d.bands.every((b, t) => {
-    const [r0, r1] = ctx.materials.get(d.materials[t])!.emissionRangeNm!;
+    const [r0, r1] = designReachNm(ctx.materials.get(d.materials[t])!);
     const peak = d.peaksNm[t];
     if (peak < Math.max(Math.ceil(r0), lo) || peak > Math.min(Math.floor(r1), hi)) return false;
     if (b.widthNm < wMin || b.widthNm > wMax || b.centerNm - b.widthNm / 2 < lo || b.centerNm + b.widthNm / 2 > hi)
@@ -55,7 +56,7 @@ export function freeDesignAllowed(d: FreeDesign, ctx: RefineContext): boolean {
 export function freeObjective(d: FreeDesign, ctx: RefineContext): number {
   if (!freeDesignAllowed(d, ctx)) return Infinity;
   const channels = d.bands.map((b, t) => bandChannel(`c${t + 1}`, b, ctx.options.edgeWidthNm));
-  const m = candidateMatrix(freeProbes(d), channels, ctx.excitation, ctx.resolve);
+  const m = candidateMatrix(freeProbes(d, ctx.materials), channels, ctx.excitation, ctx.resolve);
   const own = ctx.abundance.map((a, t) => a * m[t][t]);
   if (!own.every((s) => s > 0) || Math.min(...own) < ctx.options.minSignalFraction * Math.max(...own)) return Infinity;
   const identity = ctx.abundance.map((_, t) => t);

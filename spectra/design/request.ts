@@ -58,8 +58,26 @@ export function normalizeWindow(windowNm: [number, number] | undefined): [number
 }
 
 /**
+ * Emission peaks free mode offers for a material: the reach under its typical shell (designs propose probes as they
+ * are sold), or the accepted range of a material without a size law (carbon dots).
+ */
+export function designReachNm(m: Material): [number, number] {
+  return m.typicalShellEmissionRangeNm ?? m.emissionRangeNm!;
+}
+
+/**
+ * A designed probe of material `m` at `emissionPeakNm`, with the material's typical shell when it has one (no shell
+ * key for a material whose typical shell is empty or that has none).
+ */
+export function designProbe(id: string, m: Material, emissionPeakNm: number): ProbeSpec {
+  const shell = m.typicalShell && m.typicalShell.length > 0 ? { shell: m.typicalShell.map((l) => ({ ...l })) } : {};
+  return { id, material: m.id, emissionPeakNm, ...shell };
+}
+
+/**
  * The materials free mode may use: the allowed list (default: every material with a size law or accepted range, i.e.
- * not `custom`), minus those containing an excluded element, minus those whose emission cannot reach the window.
+ * not `custom`, and not an illustrative one such as GaAs unless the list names it), minus those containing an
+ * excluded element, minus those whose emission cannot reach the window.
  */
 export function allowedMaterials(
   request: Pick<DesignRequest, 'allowedMaterials' | 'exclude'>,
@@ -69,12 +87,12 @@ export function allowedMaterials(
   const wanted = request.allowedMaterials ? new Set<string>(request.allowedMaterials) : null;
   const field = wanted ? 'allowedMaterials' : 'exclude';
   const usable = listMaterials().filter(
-    (m) => m.id !== 'custom' && m.emissionRangeNm !== null && (!wanted || wanted.has(m.id)),
+    (m) => m.emissionRangeNm !== null && (wanted ? wanted.has(m.id) : !m.illustrative),
   );
   const clean = usable.filter((m) => !m.elements.some((e) => excluded.has(e)));
   if (clean.length === 0)
     throw new SpectraError('invalid_input', 'no material is left after the allowed list and the exclusions', [field]);
-  const reach = clean.filter((m) => m.emissionRangeNm![1] >= windowNm[0] && m.emissionRangeNm![0] <= windowNm[1]);
+  const reach = clean.filter((m) => designReachNm(m)[1] >= windowNm[0] && designReachNm(m)[0] <= windowNm[1]);
   if (reach.length === 0) {
     throw new SpectraError(
       'invalid_input',

@@ -14,10 +14,40 @@ import { interpolateTable } from '../core/grid';
  * - 'table' (measured): linear interpolation, zero outside the table.
  */
 export type AbsorptionModel =
-  | { type: 'exciton'; firstExcitonEv: number; firstExcitonEpsilon: number; lineFwhmEv: number; epsilonAt350: number }
+  | {
+      type: 'exciton';
+      firstExcitonEv: number;
+      firstExcitonEpsilon: number;
+      lineFwhmEv: number;
+      epsilonAt350: number;
+      /** Shell layers (core/shell dots), innermost first; absent for a bare core. */
+      shells?: ShellAbsorptionPart[];
+    }
   | { type: 'tail'; epsilonAt350: number; decayNm: number }
   | { type: 'flat'; epsilon: number; untilNm: number }
   | { type: 'table'; points: readonly (readonly [number, number])[] };
+
+/** One shell layer's absorption: its volume and the intrinsic absorption of its material (shells/materials.ts). */
+export interface ShellAbsorptionPart {
+  bandGapEv: number;
+  volumeNm3: number;
+  /** Intrinsic absorption 0.5 eV above the layer's gap, cm⁻¹. */
+  intrinsicHalfEvPerCm: number;
+}
+
+/** Largest energy above a shell's gap its square-root edge rises over, eV (shells/materials.ts). */
+const SHELL_EDGE_CAP_EV = 1.5;
+
+/**
+ * ε (M⁻¹ cm⁻¹) of one shell layer at `energyEv`: zero below its gap, above it its volume of bulk material with
+ * μi(E) = μ½ √((E − Eg)/0.5 eV), capped 1.5 eV above the gap (shells/materials.ts gives the sources).
+ */
+export function shellExtinction(part: ShellAbsorptionPart, energyEv: number): number {
+  const above = energyEv - part.bandGapEv;
+  if (!(above > 0) || part.intrinsicHalfEvPerCm === 0) return 0;
+  const mu = part.intrinsicHalfEvPerCm * Math.sqrt(Math.min(above, SHELL_EDGE_CAP_EV) / 0.5);
+  return intrinsicExtinction(part.volumeNm3, mu);
+}
 
 /** Energy of 350 nm light, eV: the reference wavelength of the intrinsic absorption. */
 const E350_EV = HC_EV_NM / 350;
@@ -49,8 +79,12 @@ function excitonEpsilon(m: Extract<AbsorptionModel, { type: 'exciton' }>, energy
 export function modelExtinctionAtNm(model: AbsorptionModel, wavelengthNm: number): number {
   if (!(wavelengthNm > 0) || !Number.isFinite(wavelengthNm)) return 0;
   switch (model.type) {
-    case 'exciton':
-      return excitonEpsilon(model, HC_EV_NM / wavelengthNm);
+    case 'exciton': {
+      const energyEv = HC_EV_NM / wavelengthNm;
+      let eps = excitonEpsilon(model, energyEv);
+      if (model.shells) for (const part of model.shells) eps += shellExtinction(part, energyEv);
+      return eps;
+    }
     case 'tail':
       return model.epsilonAt350 * Math.exp(-(wavelengthNm - 350) / model.decayNm);
     case 'flat':

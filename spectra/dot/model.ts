@@ -1,8 +1,8 @@
 import { intrinsicExtinction, type AbsorptionModel } from './absorption';
 import { SpectraError } from '../core/errors';
 import { fwhmEvForFwhmNm } from './lineshape';
-import { evToNm } from '../core/units';
-import type { DotInput } from '../core/panel';
+import { evToNm, nmToEv } from '../core/units';
+import type { DotInput, ShellLayer } from '../core/panel';
 import { CARBON_EMISSION_RANGE_NM, CARBON_EXCITATION_MODEL, carbonEmissionPeakNm } from './sizing/carbon';
 import {
   CARBON_ABSORPTION,
@@ -10,15 +10,21 @@ import {
   FIRST_EXCITON_SHARE,
   INTRINSIC_350NM_PER_CM,
 } from './materials/intrinsic';
-import { SIZE_LAWS } from './sizing/laws';
+import { CDSE_JASIENIAK_2009, SIZE_LAWS, sizeLawFor } from './sizing/laws';
 import type { SizedMaterialId } from './materials/params';
 import { RECORDS } from './materials/records';
-import { diameterForEmissionPeakNm, sizedDotPeaks } from './sizing/sizing';
+import { diameterForEmissionPeakNm, sizedDotPeaks, type SizingOptions } from './sizing/sizing';
 import { emissionFwhmEv } from './sizing/width';
+import { carrierReach, shellAbsorptionParts, shellThicknessNm } from './shells/shell';
+import { SHELL_MATERIALS } from './shells/materials';
 
 /** The model's answer for one probe before spectra are sampled (resolve.ts turns it into a ResolvedDot). */
 export interface ModelPart {
   diameterNm: number | null;
+  /** Core plus every shell layer, nm (the core alone for a bare core; null without a size law). */
+  overallDiameterNm: number | null;
+  /** Typical hydrodynamic diameter of a water-soluble conjugate of this material, nm (nominal; null where unknown). */
+  hydrodynamicDiameterNm: number | null;
   firstExcitonNm: number | null;
   /** The model's emission peak, nm (null for custom probes, which only have measured data). */
   peakNm: number | null;
@@ -38,30 +44,44 @@ export interface ModelPart {
  */
 export function resolveSized(material: SizedMaterialId, dot: DotInput, measuredPeakNm: number | undefined): ModelPart {
   const rec = RECORDS[material];
-  const law = SIZE_LAWS[material];
+  const law = sizeLawFor(material, dot.sizingModel);
+  const shell = dot.shell ?? [];
+  const sizing: SizingOptions = { shell, sizingModel: dot.sizingModel };
   const pct = dot.sizeDispersionPct ?? rec.typicalSizeDispersionPct!;
   const fwhmNmIn = dot.fwhmNm;
   let diameterNm: number;
   if (dot.diameterNm !== undefined) diameterNm = dot.diameterNm;
-  else if (dot.emissionPeakNm !== undefined) diameterNm = diameterForEmissionPeakNm(material, dot.emissionPeakNm);
+  else if (dot.emissionPeakNm !== undefined)
+    diameterNm = diameterForEmissionPeakNm(material, dot.emissionPeakNm, ['emissionPeakNm'], sizing);
   else if (measuredPeakNm !== undefined)
-    diameterNm = diameterForEmissionPeakNm(material, measuredPeakNm, ['measuredEmission']);
+    diameterNm = diameterForEmissionPeakNm(material, measuredPeakNm, ['measuredEmission'], sizing);
   else throw new SpectraError('invalid_input', `${material} needs diameterNm or emissionPeakNm`, ['emissionPeakNm']);
-  const { firstExcitonEv: e1, emissionPeakNm: peakNm } = sizedDotPeaks(material, diameterNm); // the law's range
-  const fwhmEv = fwhmNmIn !== undefined ? fwhmEvForFwhmNm(peakNm, fwhmNmIn) : emissionFwhmEv(material, diameterNm, pct);
+  const { firstExcitonEv: e1, emissionPeakNm: peakNm } = sizedDotPeaks(material, diameterNm, sizing); // law's range
+  const fwhmEv =
+    fwhmNmIn !== undefined ? fwhmEvForFwhmNm(peakNm, fwhmNmIn) : emissionFwhmEv(material, law, diameterNm, pct);
   const warnings: string[] = [];
   if (fwhmNmIn !== undefined && dot.sizeDispersionPct !== undefined)
     warnings.push('fwhmNm was given, so sizeDispersionPct does not set the width.');
   if (material === 'cspbbr3' && diameterNm > 10)
     warnings.push('Weak confinement above ~10 nm edge: the emission peak barely depends on size here.');
+  if (law.illustrative)
+    warnings.push(
+      `Illustrative only: ${rec.name} has no published size law here (Brus equation alone); its peak, width and ` +
+        'extinction are not credible enough to order by.',
+    );
+  warnings.push(...shellWarnings(material, diameterNm, shell));
+  if (material === 'cdse') warnings.push(cdseCurveComparison(evToNm(e1)));
   const eps350 = intrinsicExtinction(law.particleVolumeNm3(diameterNm), INTRINSIC_350NM_PER_CM[material]);
   const published = law.publishedExtinction(diameterNm);
+  const overallDiameterNm = diameterNm + 2 * shellThicknessNm(shell);
   return {
     diameterNm,
+    overallDiameterNm,
+    hydrodynamicDiameterNm: rec.typicalHydrodynamicDiameterNm,
     firstExcitonNm: evToNm(e1),
     peakNm,
     fwhmEv,
-    model: law.model,
+    model: shell.length > 0 ? `${law.model}; core/shell shift and shell absorption (approximate)` : law.model,
     typicalQuantumYield: rec.typicalQuantumYield,
     warnings,
     absorption: {
@@ -70,6 +90,7 @@ export function resolveSized(material: SizedMaterialId, dot: DotInput, measuredP
       firstExcitonEpsilon: published ?? FIRST_EXCITON_SHARE * eps350,
       lineFwhmEv: fwhmEv,
       epsilonAt350: eps350,
+      ...(shell.length > 0 ? { shells: shellAbsorptionParts(diameterNm, shell, law.particleVolumeNm3) } : {}),
     },
     absorptionWarning:
       published === null
@@ -77,6 +98,57 @@ export function resolveSized(material: SizedMaterialId, dot: DotInput, measuredP
           `unverified); supply a measured extinction where brightness matters.`
         : null,
   };
+}
+
+/** What a user should know about a shell: thin or unusual layers, carriers spreading into it, the approximation. */
+function shellWarnings(material: SizedMaterialId, coreNm: number, shell: readonly ShellLayer[]): string[] {
+  if (shell.length === 0) return [];
+  const out = [
+    "Core/shell: the shell's red shift and absorption are this tool's approximation (effective-mass leakage and " +
+      'volume-scaled bulk absorption); the emission peak given is that of the core/shell dot.',
+  ];
+  shell.forEach((layer, i) => {
+    const ml = layer.thicknessNm / SHELL_MATERIALS[layer.material].monolayerNm;
+    if (layer.thicknessNm > 0 && ml < 1)
+      out.push(`Shell layer ${i + 1} (${layer.material}) is thinner than one monolayer (${ml.toFixed(2)} ML).`);
+  });
+  if (carrierReach(material, shell).spreads)
+    out.push(
+      'A carrier has no barrier in this shell (quasi type II or type II): it spreads into the shell, the red shift ' +
+        'is large and its model least certain; expect longer lifetimes and broader lines than a type-I shell gives.',
+    );
+  if (shell.some((l) => l.material === 'cds') && material !== 'cdse' && material !== 'cdte' && material !== 'cds')
+    out.push('A CdS shell adds cadmium to a cadmium-free core.');
+  if (coreNm + 2 * shellThicknessNm(shell) > 20)
+    out.push('The particle is over 20 nm across before its coating: check that it still labels the target.');
+  return out;
+}
+
+/**
+ * How the two published CdSe curves disagree at this colour (first exciton `firstExcitonNm`): core size and
+ * first-exciton extinction by Yu 2003 and by Jasieniak 2009, computed from both (each within its own range).
+ */
+export function cdseCurveComparison(firstExcitonNm: number): string {
+  const yu = SIZE_LAWS.cdse;
+  const jas = CDSE_JASIENIAK_2009;
+  const e = nmToEv(firstExcitonNm);
+  const dYu = yu.diameterNm(e);
+  const dJas = jas.diameterNm(e);
+  const inRange = (law: typeof yu, d: number) => d >= law.diameterRangeNm[0] && d <= law.diameterRangeNm[1];
+  if (!inRange(yu, dYu) || !inRange(jas, dJas))
+    return (
+      `The two published CdSe curves (Yu 2003, Jasieniak 2009) do not both cover a first exciton at ` +
+      `${firstExcitonNm.toFixed(0)} nm; size and extinction rest on one curve only.`
+    );
+  const epsYu = yu.publishedExtinction(dYu)!;
+  const epsJas = jas.publishedExtinction(dJas)!;
+  const pct = (100 * (epsJas - epsYu)) / epsYu;
+  return (
+    `Published CdSe curves disagree at a first exciton of ${firstExcitonNm.toFixed(0)} nm: Yu 2003 gives a ` +
+    `${dYu.toFixed(2)} nm core with ε ${epsYu.toExponential(2)}, Jasieniak 2009 a ${dJas.toFixed(2)} nm core with ` +
+    `ε ${epsJas.toExponential(2)} M⁻¹ cm⁻¹ (${pct >= 0 ? '+' : ''}${pct.toFixed(0)} %; its extinction law is from ` +
+    'memory, unverified). Choose with sizingModel.'
+  );
 }
 
 /** Carbon dots: emission peak required (or measured), optional fwhmNm, modelled excitation dependence. */
@@ -111,6 +183,8 @@ export function resolveCarbon(dot: DotInput, measuredPeakNm: number | undefined)
   }
   return {
     diameterNm: null,
+    overallDiameterNm: null,
+    hydrodynamicDiameterNm: rec.typicalHydrodynamicDiameterNm,
     firstExcitonNm: null,
     peakNm,
     fwhmEv: fwhmEvForFwhmNm(peakNm, fwhmNm),
@@ -137,6 +211,8 @@ export function resolveCustom(dot: DotInput, measured: { peakNm: number } | null
     warnings.push(`quantumYield not given: a placeholder of ${RECORDS.custom.typicalQuantumYield} is assumed.`);
   return {
     diameterNm: null,
+    overallDiameterNm: null,
+    hydrodynamicDiameterNm: null,
     firstExcitonNm: null,
     peakNm: null,
     fwhmEv: null,

@@ -8,19 +8,32 @@ import type { DotInput, MaterialId } from '../core/panel';
 import { modelExtinctionAtNm, type AbsorptionModel } from './absorption';
 import { centerEvForPeakNm, fwhmNmOfLine, sampleGaussianLine } from './lineshape';
 import { resampleMeasuredEmission } from './measured';
+import { cutEmissionAtLine } from './line-cut';
 import { resolveCarbon, resolveCustom, resolveSized, type ModelPart } from './model';
 import { isSizedMaterial } from './sizing/sizing';
 
 /** The scalar fields of a resolved probe (what the API reports for one dot, besides its spectra). */
 export interface DotFields {
   material: MaterialId;
+  /** The core's size (its meaning per material: sizeMeaning); null without a size law. */
   diameterNm: number | null;
+  /** The same as diameterNm, named for core/shell dots. */
+  coreDiameterNm: number | null;
+  /** Core plus shell layers, nm; null without a size law. */
+  overallDiameterNm: number | null;
+  /** Typical hydrodynamic diameter of a water-soluble conjugate, nm (nominal); null where unknown. */
+  hydrodynamicDiameterNm: number | null;
   firstExcitonNm: number | null;
   emissionPeakNm: number;
   fwhmNm: number;
   quantumYield: number;
   extinctionFirstExciton: number | null;
   extinctionAtExcitation: number | null;
+  /**
+   * Share of the nominal emission removed because it lay at or below the exciting line (excitationNm given); null
+   * without a line.
+   */
+  emissionCutFraction: number | null;
   /** Which sizing model answered: the law's name, 'measured' for custom probes, 'measured emission; size by …'. */
   model: string;
   measured: { emission: boolean; extinction: boolean };
@@ -100,6 +113,13 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
     fwhmNm = fwhmNmOfLine(centerEv, part.fwhmEv!);
   }
 
+  let emissionCutFraction: number | null = null;
+  if (input.excitationNm !== undefined) {
+    const cut = cutEmissionAtLine(emission, emissionFrom, grid, input.excitationNm);
+    ({ spectrum: emission, from: emissionFrom, cutFraction: emissionCutFraction } = cut);
+    if (emissionCutFraction > 0.001) warnings.push(cutWarning(input.excitationNm, emissionCutFraction));
+  }
+
   const measuredExtinction = input.extinction?.points;
   const absorption: AbsorptionModel = measuredExtinction
     ? { type: 'table', points: measuredExtinction }
@@ -111,6 +131,9 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
   return {
     material,
     diameterNm,
+    coreDiameterNm: diameterNm,
+    overallDiameterNm: part.overallDiameterNm,
+    hydrodynamicDiameterNm: part.hydrodynamicDiameterNm,
     firstExcitonNm,
     emissionPeakNm,
     fwhmNm,
@@ -118,6 +141,7 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
     extinctionFirstExciton: firstExcitonNm === null ? null : modelExtinctionAtNm(absorption, firstExcitonNm),
     extinctionAtExcitation:
       input.excitationNm === undefined ? null : modelExtinctionAtNm(absorption, input.excitationNm),
+    emissionCutFraction,
     model: measuredEm && material !== 'custom' ? `measured emission; size by ${part.model}` : part.model,
     measured: { emission: measuredEm !== null, extinction: measuredExtinction !== undefined },
     warnings,
@@ -126,6 +150,15 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
     emissionFrom,
     absorption,
   };
+}
+
+/** The warning for emission removed at a line (one wording for dots and panels). */
+export function cutWarning(lineNm: number, cutFraction: number): string {
+  return (
+    `${(100 * cutFraction).toFixed(1)} % of the nominal emission lies at or below the ${lineNm} nm line and is ` +
+    'removed (no photon is emitted bluer than the one absorbed); the rest is renormalised. Only the larger dots of ' +
+    'the ensemble absorb this line: expect the measured peak to the red of the nominal one.'
+  );
 }
 
 /** Molar extinction (M⁻¹ cm⁻¹) of a resolved dot at any wavelength (0 where the model has no finite value). */

@@ -5,13 +5,14 @@
 import { SpectraError } from '../core/errors';
 import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
 import { DOT_INPUT_FIELDS, type DotInput, type PanelSpec, type ProbeSpec } from '../core/panel';
-import { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from '../dot/resolve';
+import { cutWarning, extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from '../dot/resolve';
+import { cutEmissionAtLine } from '../dot/line-cut';
 import { backgroundEmission } from '../light/background';
 import { channelTransmission } from '../light/filters/channel';
 import { linesOn, type EmissionComponent } from './crosstalk';
 
 /** One probe of an evaluated panel: the resolved dot's fields plus its extinction at the lines and its brightness. */
-export interface ProbeEvaluation extends Omit<DotFields, 'extinctionAtExcitation'> {
+export interface ProbeEvaluation extends Omit<DotFields, 'extinctionAtExcitation' | 'emissionCutFraction'> {
   id: string;
   label?: string;
   /** ε (M⁻¹ cm⁻¹) at the panel's first line, as for a single dot; every line is in extinctionAtLines. */
@@ -22,6 +23,11 @@ export interface ProbeEvaluation extends Omit<DotFields, 'extinctionAtExcitation
   brightness: number;
   /** The same at abundance 1: the probe's own brightness under these lines, for comparing probes. */
   brightnessPerAbundance: number;
+  /**
+   * Per panel line, the share of the nominal emission removed because it lies at or below that line (no photon is
+   * emitted bluer than the exciting one); the rest is renormalised.
+   */
+  emissionCutAtLines: number[];
   /** Carbon dots only: the modelled emission peak under each line (their emission moves with the excitation). */
   emissionPeakNmByLine?: number[];
 }
@@ -83,6 +89,9 @@ function probeEvaluation(probe: ProbeSpec, dot: ResolvedDot, eps: number[], perA
     ...(probe.label !== undefined ? { label: probe.label } : {}),
     material: dot.material,
     diameterNm: dot.diameterNm,
+    coreDiameterNm: dot.coreDiameterNm,
+    overallDiameterNm: dot.overallDiameterNm,
+    hydrodynamicDiameterNm: dot.hydrodynamicDiameterNm,
     firstExcitonNm: dot.firstExcitonNm,
     emissionPeakNm: dot.emissionPeakNm,
     fwhmNm: dot.fwhmNm,
@@ -94,12 +103,13 @@ function probeEvaluation(probe: ProbeSpec, dot: ResolvedDot, eps: number[], perA
     measured: { ...dot.measured },
     brightness: perAbundance * (probe.abundance ?? 1),
     brightnessPerAbundance: perAbundance,
+    emissionCutAtLines: eps.map(() => 0),
     warnings: dot.warnings.slice(),
   };
 }
 
 /** One emission component of a resolved dot. */
-function component(dot: ResolvedDot, weightByChannel: number[]): EmissionComponent {
+function component(dot: Pick<ResolvedDot, 'emission' | 'emissionFrom'>, weightByChannel: number[]): EmissionComponent {
   return { emission: dot.emission.values, from: dot.emissionFrom, weightByChannel };
 }
 
@@ -134,10 +144,25 @@ export function modelPanel(panel: PanelSpec, grid: WavelengthGrid, resolve: DotR
     if (dot.material === 'carbon' && !dot.measured.emission) {
       const perLine = lines.map((line) => inProbe(p, () => resolve(dotInputOf(probe, line.wavelengthNm), grid)));
       evaluation.emissionPeakNmByLine = perLine.map((d) => d.emissionPeakNm);
+      evaluation.emissionCutAtLines = perLine.map((d) => d.emissionCutFraction ?? 0);
       components.push(perLine.map((d, l) => component(d, channelWeights(linesOnByChannel, lineWeight, l))));
     } else {
-      components.push([component(dot, channelWeights(linesOnByChannel, lineWeight, null))]);
+      // No photon bluer than the exciting one: under a line inside the emission, the emission is cut there.
+      const cuts = lines.map((line) => cutEmissionAtLine(dot.emission, dot.emissionFrom, grid, line.wavelengthNm));
+      evaluation.emissionCutAtLines = cuts.map((c) => c.cutFraction);
+      if (cuts.every((c) => c.cutFraction === 0)) {
+        components.push([component(dot, channelWeights(linesOnByChannel, lineWeight, null))]);
+      } else {
+        components.push(
+          cuts.map((c, l) =>
+            component({ emission: c.spectrum, emissionFrom: c.from }, channelWeights(linesOnByChannel, lineWeight, l)),
+          ),
+        );
+      }
     }
+    evaluation.emissionCutAtLines.forEach((f, l) => {
+      if (f > 0.001) evaluation.warnings.push(cutWarning(lines[l].wavelengthNm, f));
+    });
   });
   const channelIndex = new Map(panel.channels.map((c, i) => [c.id, i]));
   const assigned = panel.probes.map((probe) =>

@@ -187,20 +187,26 @@ describe('cold path: a whole evaluation', () => {
   };
 
   it(
-    'evaluatePanel collected at OD 12 equals a naive full-grid sum of panelSpectra arrays × ε × QY to 1e-12 ' +
-      'relative',
+    'evaluatePanel collected at OD 12 equals a naive full-grid sum of panelSpectra arrays × ε × QY, each line ' +
+      'seeing the emission cut at its wavelength and renormalised, to 1e-12 relative',
     () => {
       const ev = evaluatePanel(panel, { sensitivity: false });
       const spectra = panelSpectra(panel);
       ev.probes.forEach((probe, p) => {
-        const weight = probe.extinctionAtLines.reduce(
-          (s, eps, l) => s + (panel.excitation[l].powerRel ?? 1) * eps * probe.quantumYield,
-          0,
-        );
+        const em = spectra.emission[p].values;
         spectra.channels.forEach((channel, c) => {
           let naive = 0;
-          for (let i = 0; i < spectra.count; i++) naive += spectra.emission[p].values[i] * channel.values[i];
-          naive *= weight * spectra.stepNm;
+          panel.excitation.forEach((line, l) => {
+            let kept = 0;
+            let collected = 0;
+            for (let i = 0; i < spectra.count; i++) {
+              if (spectra.startNm + i * spectra.stepNm <= line.wavelengthNm) continue;
+              kept += em[i];
+              collected += em[i] * channel.values[i];
+            }
+            const weight = (line.powerRel ?? 1) * probe.extinctionAtLines[l] * probe.quantumYield;
+            if (kept > 0) naive += (weight * collected) / kept;
+          });
           expect(Math.abs(ev.collected[c][p] - naive) / naive).toBeLessThan(1e-12);
         });
       });

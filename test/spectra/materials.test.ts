@@ -34,7 +34,8 @@ describe('listMaterials', () => {
   it('listMaterials() gives sources for every material but custom, and the sizing model of every sized one', () => {
     for (const m of listMaterials()) {
       if (m.id !== 'custom') expect(m.sources.length).toBeGreaterThan(0);
-      if (m.diameterRangeNm) expect(m.sizingModel).toMatch(/Yu–Qu–Guo–Peng 2003|Almeida et al\. 2023|Brus 1984/);
+      if (m.diameterRangeNm)
+        expect(m.sizingModel).toMatch(/Yu–Qu–Guo–Peng 2003|Almeida et al\. 2023|Brus 1984|empirical CsPbBr3/);
     }
     expect(material('inp').sizeMeaning).toMatch(/equivalent-sphere diameter/);
     expect(material('cspbbr3').sizeMeaning).toMatch(/cube edge/);

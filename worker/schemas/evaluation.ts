@@ -20,6 +20,7 @@ export const ProbeEvaluationJson = z.strictObject({
   extinctionAtLines: z.array(z.number()),
   brightness: z.number(),
   brightnessPerAbundance: z.number(),
+  emissionCutAtLines: z.array(z.number()),
   emissionPeakNmByLine: z.array(z.number()).optional(),
 });
 

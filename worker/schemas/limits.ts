@@ -22,6 +22,8 @@ export const LIMITS = Object.freeze({
 export const RANGES = Object.freeze({
   wavelengthNm: [200, 2000],
   diameterNm: [0.5, 30],
+  /** One shell layer, nm (giant shells and silica encapsulations stay below this). */
+  shellThicknessNm: [0, 20],
   sizeDispersionPct: [0, 30],
   fwhmNm: [1, 500],
   filterWidthNm: [0.1, 1000],

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { RANGES } from './limits';
-import { MATERIAL_IDS } from '../../spectra/index';
+import { LIMITS } from './limits';
+import { MATERIAL_IDS, SHELL_MATERIAL_IDS, SIZING_MODELS, isSizedMaterial } from '../../spectra/index';
 import { fraction, identifier, ranged, text, wavelengthNm } from './fields';
 import { pointsTable } from './spectrum';
 
@@ -9,11 +10,24 @@ export const MaterialIdSchema = z.enum(MATERIAL_IDS, {
   error: `must be one of ${MATERIAL_IDS.join(', ')}`,
 });
 
+/** One shell layer around a core. */
+export const ShellLayerSchema = z.strictObject({
+  material: z.enum(SHELL_MATERIAL_IDS, {
+    error: `must be one of ${SHELL_MATERIAL_IDS.join(', ')} (shell materials)`,
+  }),
+  thicknessNm: ranged(RANGES.shellThicknessNm[0], RANGES.shellThicknessNm[1], 'nm', true),
+});
+
 /** The fields that describe one dot, shared by a panel's probes and POST /dots/resolve. */
 export const dotFields = {
   material: MaterialIdSchema,
   emissionPeakNm: wavelengthNm().optional(),
   diameterNm: ranged(RANGES.diameterNm[0], RANGES.diameterNm[1], 'nm').optional(),
+  shell: z
+    .array(ShellLayerSchema, { error: 'must be an array of shell layers ({"material", "thicknessNm"})' })
+    .max(LIMITS.shellLayers, { error: `has more than ${LIMITS.shellLayers} layers` })
+    .optional(),
+  sizingModel: z.enum(SIZING_MODELS, { error: `must be one of ${SIZING_MODELS.join(', ')}` }).optional(),
   sizeDispersionPct: ranged(RANGES.sizeDispersionPct[0], RANGES.sizeDispersionPct[1], '%').optional(),
   fwhmNm: ranged(RANGES.fwhmNm[0], RANGES.fwhmNm[1], 'nm').optional(),
   quantumYield: fraction().optional(),
@@ -26,6 +40,8 @@ interface DotLike {
   emissionPeakNm?: number;
   diameterNm?: number;
   measuredEmission?: unknown;
+  shell?: unknown[];
+  sizingModel?: string;
 }
 
 /**
@@ -35,6 +51,10 @@ interface DotLike {
 export function checkDotSize(dot: DotLike, ctx: z.RefinementCtx): void {
   const add = (message: string, field: string) =>
     ctx.addIssue({ code: 'custom', message, path: [field], params: { apiCode: 'invalid_input' } });
+  if (dot.shell !== undefined && dot.shell.length > 0 && !isSizedMaterial(dot.material))
+    add(`must not be given for ${dot.material} probes: only dots with a size law take a shell`, 'shell');
+  if (dot.sizingModel !== undefined && dot.material !== 'cdse')
+    add('is a choice for CdSe only (the other materials have one sizing curve)', 'sizingModel');
   if (dot.material === 'custom') {
     if (dot.measuredEmission === undefined) add("is required for material 'custom'", 'measuredEmission');
     if (dot.diameterNm !== undefined) add('must not be given for custom probes (they have no size law)', 'diameterNm');

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { SampledSpectrumJson } from './dot';
 import { MaterialIdSchema } from './probe';
+import { SHELL_MATERIAL_IDS } from '../../spectra/index';
 
 // Response schemas: they describe, field for field, what the handlers return (the OpenAPI document's responses), and
 // test/worker/response-schemas.test.ts parses real responses with them, so the description cannot drift from the
@@ -26,6 +27,15 @@ export const ShareCreated = z.strictObject({ id: z.string(), url: z.string() });
 
 const range = z.tuple([z.number(), z.number()]);
 
+const ShellMaterialIdSchema = z.enum(SHELL_MATERIAL_IDS);
+
+/** A hazard summary: a coarse level, notes with sources, cautions that defer to local rules. */
+const Toxicity = z.strictObject({
+  level: z.enum(['high', 'moderate', 'low']),
+  notes: z.array(z.string()),
+  cautions: z.array(z.string()),
+});
+
 /** One material of GET /api/v1/materials (null where a material has no such quantity, e.g. carbon dots' size). */
 export const Material = z.strictObject({
   id: MaterialIdSchema,
@@ -45,17 +55,35 @@ export const Material = z.strictObject({
   typicalSizeDispersionPct: z.number().nullable(),
   typicalHydrodynamicDiameterNm: z.number().nullable(),
   sizingModel: z.string(),
-  toxicity: z.strictObject({
-    level: z.enum(['high', 'moderate', 'low']),
-    notes: z.array(z.string()),
-    cautions: z.array(z.string()),
-  }),
+  sizingModels: z.array(z.string()),
+  illustrative: z.boolean(),
+  typicalShell: z.array(z.strictObject({ material: ShellMaterialIdSchema, thicknessNm: z.number() })).nullable(),
+  typicalShellEmissionRangeNm: range.nullable(),
+  toxicity: Toxicity,
   warnings: z.array(z.string()),
   sources: z.array(z.string()),
 });
 
-/** GET /api/v1/materials. */
-export const MaterialList = z.strictObject({ materials: z.array(Material) });
+/** One shell material of GET /api/v1/materials. */
+export const ShellMaterialJson = z.strictObject({
+  id: ShellMaterialIdSchema,
+  name: z.string(),
+  elements: z.array(z.string()),
+  bandGapEv: z.number(),
+  electronMassRel: z.number(),
+  holeMassRel: z.number(),
+  valenceBandEv: z.number(),
+  monolayerNm: z.number(),
+  intrinsicHalfEvPerCm: z.number(),
+  toxicity: Toxicity,
+  sources: z.array(z.string()),
+});
+
+/** GET /api/v1/materials: the core materials and the shell materials. */
+export const MaterialList = z.strictObject({
+  materials: z.array(Material),
+  shellMaterials: z.array(ShellMaterialJson),
+});
 
 /** One detector class of GET /api/v1/detectors. */
 export const Detector = z.strictObject({ id: z.string(), name: z.string(), notes: z.string() });
@@ -70,6 +98,9 @@ export const MeasuredParts = z.strictObject({ emission: z.boolean(), extinction:
 export const resolvedDotFields = {
   material: MaterialIdSchema,
   diameterNm: z.number().nullable(),
+  coreDiameterNm: z.number().nullable(),
+  overallDiameterNm: z.number().nullable(),
+  hydrodynamicDiameterNm: z.number().nullable(),
   firstExcitonNm: z.number().nullable(),
   emissionPeakNm: z.number(),
   fwhmNm: z.number(),
@@ -87,6 +118,7 @@ export const resolvedDotFields = {
 export const ResolvedDotJson = z.strictObject({
   ...resolvedDotFields,
   extinctionAtExcitation: z.number().nullable(),
+  emissionCutFraction: z.number().nullable(),
   spectrum: SampledSpectrumJson,
   absorption: SampledSpectrumJson,
 });

@@ -7,6 +7,8 @@ import { emissionRangeForMaterialNm, isSizedMaterial } from '../sizing/sizing';
 import { TOXICITY } from './toxicity';
 import { CARBON_EMISSION_RANGE_NM } from '../sizing/carbon';
 import type { Material } from './types';
+import { TYPICAL_SHELLS } from '../shells/materials';
+import { SIZING_MODELS } from '../../core/panel';
 
 function build(id: MaterialId): Material {
   const rec = RECORDS[id];
@@ -15,6 +17,8 @@ function build(id: MaterialId): Material {
     const law = SIZE_LAWS[id];
     const p = BULK_PARAMS[id];
     const [lo, hi] = emissionRangeForMaterialNm(id);
+    const shell = TYPICAL_SHELLS[id].map((layer) => ({ ...layer }));
+    const [slo, shi] = emissionRangeForMaterialNm(id, { shell });
     return {
       ...base,
       sizeMeaning: law.sizeMeaning,
@@ -26,6 +30,10 @@ function build(id: MaterialId): Material {
       dielectricConstant: p.dielectricConstant,
       bohrRadiusNm: p.bohrRadiusNm,
       sizingModel: law.model,
+      sizingModels: id === 'cdse' ? [...SIZING_MODELS] : [],
+      illustrative: law.illustrative,
+      typicalShell: shell,
+      typicalShellEmissionRangeNm: [Math.round(slo * 10) / 10, Math.round(shi * 10) / 10],
     };
   }
   return {
@@ -42,6 +50,10 @@ function build(id: MaterialId): Material {
     dielectricConstant: null,
     bohrRadiusNm: null,
     sizingModel: id === 'carbon' ? 'no size law (emission peak given; approximate excitation dependence)' : 'measured',
+    sizingModels: [],
+    illustrative: false,
+    typicalShell: null,
+    typicalShellEmissionRangeNm: null,
   };
 }
 

@@ -1,3 +1,4 @@
+import { BOHR_RADIUS_NM } from '../../core/constants';
 /**
  * Bulk parameters of the sized materials for the Brus effective-mass equation and the Stokes-shift and width models.
  * Provenance (status marks as in docs/science.md: P seen in a paper or its abstract, T independent
@@ -9,8 +10,10 @@
  *   Bohr radii: M, from memory, unverified (same handbook tradition).
  * - CdSe εr = 10.6 is the high end of the quoted 9.5–10.6; with it Brus overestimates the Yu–Qu–Guo–Peng CdSe gap by
  *   +0.43 eV at 4 nm, the figure in docs/science.md (C).
- * - CsPbBr3 reduced mass 0.126 mₑ: measured (Yang et al., ACS Energy Lett. 2017, M: from memory, unverified); the
- *   tabulated masses 0.15/0.14 (M) would give 0.072 and a far too blue gap, so the Brus law uses the measured value.
+ * - CsPbBr3: reduced mass 0.126 mₑ and effective dielectric constant 7.3, both from one source (Yang et al., ACS
+ *   Energy Lett. 2017, 2, 1621; M: from memory, unverified), with equal electron and hole masses (0.252 each, the usual
+ *   assumption for lead-halide perovskites, M); Bohr radius εr a₀/μ = 3.07 nm (C). Its size law is empirical
+ *   (sizing/cspbbr3.ts); these parameters serve the shell model and the listing.
  * - Homogeneous (single-dot, room-temperature) emission widths: 50–80 meV for CdSe (M); the other values are
  *   assumed similar and are from memory, unverified.
  */
@@ -79,11 +82,11 @@ export const BULK_PARAMS = {
   },
   cspbbr3: {
     bandGapEv: 2.36,
-    electronMassRel: 0.15,
-    holeMassRel: 0.14,
-    reducedMassRel: 0.126,
-    dielectricConstant: 4.96,
-    bohrRadiusNm: 3.5,
+    electronMassRel: 0.252,
+    holeMassRel: 0.252,
+    reducedMassRel: reduced(0.252, 0.252),
+    dielectricConstant: 7.3,
+    bohrRadiusNm: Math.round(((7.3 * BOHR_RADIUS_NM) / 0.126) * 100) / 100,
     homogeneousFwhmEv: 0.08,
   },
 } as const satisfies Record<string, BulkParams>;

@@ -14,6 +14,10 @@ export type MaterialRecord = Omit<
   | 'emissionRangeNm'
   | 'diameterRangeNm'
   | 'sizingModel'
+  | 'sizingModels'
+  | 'illustrative'
+  | 'typicalShell'
+  | 'typicalShellEmissionRangeNm'
   | 'sizeMeaning'
   | 'bulkBandGapEv'
   | 'electronMassRel'
@@ -29,8 +33,8 @@ const BULK =
   'Madelung, Semiconductors: Data Handbook, Springer 2004 (bulk parameters; several from memory, unverified)';
 const ABS = ['Leatherdale, Woo, Mikulec, Bawendi, J. Phys. Chem. B 2002', 'Hens, Moreels, J. Mater. Chem. 2012'];
 const CAD_WARN =
-  'Diameter is the bare core of the model; commercial dots carry shells (e.g. ZnS) that shift the peak, so enter ' +
-  'vendor products by emission peak.';
+  'diameterNm is the core; commercial dots carry shells (typicalShell) that red-shift the peak and add absorption: ' +
+  'give the shell, and enter a product by its emission peak so the core is sized under it.';
 
 /** Descriptive records by material id. */
 export const RECORDS: Record<MaterialId, MaterialRecord> = {
@@ -44,8 +48,9 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalHydrodynamicDiameterNm: 15,
     warnings: [
       CAD_WARN,
-      'The Yu 2003 curve is used only over 1.5–8 nm; a later calibration (Jasieniak et al., J. Phys. Chem. C 2009) ' +
-        'differs by up to ~66 % in extinction below 4 nm.',
+      'The Yu 2003 curve is used only over 1.5–8 nm. The Jasieniak et al. 2009 calibration (sizingModel ' +
+        "'jasieniak2009') differs by a few tenths of a nm in size and far more in extinction for small dots; each " +
+        'CdSe result states both figures at its colour.',
     ],
     sources: [
       YU,
@@ -93,6 +98,9 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalHydrodynamicDiameterNm: 15,
     warnings: [
       'diameterNm is the equivalent-sphere diameter of the tetrahedral core (≈ 0.608 × edge length).',
+      'Two transcriptions of the Almeida et al. 2023 law disagree (edge-length exponent −0.684 against −0.753 implied ' +
+        'by the volume form): the tool uses the edge-length form; they differ by up to ~12 nm at the smallest cores ' +
+        'and by under 6 nm above 3 nm.',
       'InP extinction is a nominal model (from memory, unverified): supply a measured extinction where brightness ' +
         'matters.',
     ],
@@ -114,8 +122,9 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalSizeDispersionPct: 10,
     typicalHydrodynamicDiameterNm: null,
     warnings: [
-      'No empirical sizing curve: the Brus equation alone, which overestimates the gap of small dots (by +0.43 eV ' +
-        'for 4 nm CdSe).',
+      'Illustrative only: no empirical sizing curve, the Brus equation alone, which overestimates the gap of small ' +
+        'dots (by +0.43 eV for 4 nm CdSe) and ignores GaAs’s non-parabolic conduction band. Automatic design leaves ' +
+        'GaAs out unless allowedMaterials names it.',
       'Colloidal GaAs dots are rarely used as probes; QY and width are nominal (from memory, unverified).',
     ],
     sources: [...BRUS, BULK, 'IARC Monographs Vol. 100C 2012'],
@@ -130,13 +139,15 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalHydrodynamicDiameterNm: null,
     warnings: [
       'Unstable in water, heat and light unless encapsulated (e.g. silica or polymer shells).',
-      'Weak confinement above ~10 nm edge (Bohr diameter ≈ 7 nm, from memory): emission barely moves with size there.',
-      'Sizing by the Brus equation with the measured reduced mass (approximate; no empirical curve adopted).',
+      'Weak confinement above ~10 nm edge (Bohr diameter ≈ 7 nm, Protesescu et al. 2015): emission barely moves with ' +
+        'size there.',
+      'Sizing by an empirical relation through two published sizes (approximate; the anchor points are from ' +
+        'memory, unverified).',
     ],
     sources: [
       'Protesescu et al., Nano Lett. 2015',
+      'Brennan, Herr, Kuno et al., J. Am. Chem. Soc. 2017',
       'Yang et al., ACS Energy Lett. 2017',
-      ...BRUS,
       'IARC Monographs Vol. 87 2006',
     ],
   },

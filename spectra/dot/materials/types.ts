@@ -1,4 +1,4 @@
-import type { MaterialId } from '../../core/panel';
+import type { MaterialId, ShellLayer } from '../../core/panel';
 
 /** Broad chemical family of a probe material. */
 export type MaterialFamily = 'II-VI' | 'III-V' | 'perovskite' | 'carbon' | 'other';
@@ -42,6 +42,14 @@ export interface Material {
   typicalHydrodynamicDiameterNm: number | null;
   /** Which model turns size into spectrum. */
   sizingModel: string;
+  /** Sizing curves a probe may choose with `sizingModel` (the first is the default); [] without a choice. */
+  sizingModels: string[];
+  /** True where no published size law backs the numbers: results say so and automatic design skips it. */
+  illustrative: boolean;
+  /** The shell probes of this material usually carry (innermost first); null for materials without a size law. */
+  typicalShell: ShellLayer[] | null;
+  /** Emission peaks reached under the typical shell, nm; null without a size law. */
+  typicalShellEmissionRangeNm: [number, number] | null;
   toxicity: Toxicity;
   warnings: string[];
   /** "Author et al., Journal Year" for every number above. */

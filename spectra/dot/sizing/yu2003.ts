@@ -5,20 +5,24 @@
  * cm⁻¹.
  * Coefficients: status T (independent secondary copies of the coefficients agree digit for digit; the paper itself not
  * read here).
- * The paper states roughly ±10–15 % on ε. A later CdSe calibration (Jasieniak, Smith, van Embden, Mulvaney, Califano,
- * J. Phys. Chem. C 2009, 113, 19468) differs by up to ~0.25 nm in D and up to ~66 % in ε below 4 nm: published
- * sources disagree, and the tool follows Yu 2003 for all three materials so they stay mutually consistent.
+ * The paper states roughly ±10–15 % on ε. A later CdSe calibration (jasieniak2009.ts) disagrees; the tool follows
+ * Yu 2003 by default for all three materials so they stay mutually consistent, and offers the other for CdSe.
  */
-export interface YuCurve {
+/** A published sizing polynomial D(λ) with the sizes it is used over (Yu 2003, Jasieniak 2009). */
+export interface PolynomialCurve {
   /** Polynomial coefficients of D(λ), highest power first. */
   sizeCoefficients: readonly number[];
-  /** ε = prefactor · D^exponent, M⁻¹ cm⁻¹ with D in nm. */
-  extinctionPrefactor: number;
-  extinctionExponent: number;
   /** Conservative validity (docs/science.md, C): outside it the polynomials give nonsense. */
   diameterRangeNm: readonly [number, number];
   /** λ bracket (nm) inside which D(λ) rises monotonically and spans the diameter range (C, checked numerically). */
   bracketNm: readonly [number, number];
+}
+
+/** A Yu 2003 curve: the sizing polynomial plus its first-exciton extinction power law. */
+export interface YuCurve extends PolynomialCurve {
+  /** ε = prefactor · D^exponent, M⁻¹ cm⁻¹ with D in nm. */
+  extinctionPrefactor: number;
+  extinctionExponent: number;
 }
 
 /** The three Yu–Qu–Guo–Peng curves. */
@@ -50,7 +54,7 @@ export const YU_2003 = {
 export type YuMaterialId = keyof typeof YU_2003;
 
 /** D(λ) of the published polynomial, nm (Horner's rule). */
-export function yuDiameterNm(curve: YuCurve, firstExcitonNm: number): number {
+export function yuDiameterNm(curve: PolynomialCurve, firstExcitonNm: number): number {
   const c = curve.sizeCoefficients;
   let d = 0;
   // Indexed, not for-of: an iterator object per call where the call is not inlined (this runs in Newton loops).
@@ -59,7 +63,7 @@ export function yuDiameterNm(curve: YuCurve, firstExcitonNm: number): number {
 }
 
 /** dD/dλ of the published polynomial, nm per nm (Horner's rule on the derivative). */
-function yuSlope(curve: YuCurve, firstExcitonNm: number): number {
+function yuSlope(curve: PolynomialCurve, firstExcitonNm: number): number {
   const c = curve.sizeCoefficients;
   const degree = c.length - 1;
   let s = 0;
@@ -70,9 +74,9 @@ function yuSlope(curve: YuCurve, firstExcitonNm: number): number {
 // D(λ) tabulated at every nanometre of each curve's bracket (≤ 350 points), built on first use and kept: resolving a
 // dot inverts the curve once or twice, on every cold panel evaluation.
 const TABLE_STEP_NM = 1;
-const tables = new WeakMap<YuCurve, Float64Array>();
+const tables = new WeakMap<PolynomialCurve, Float64Array>();
 
-function tableOf(curve: YuCurve): Float64Array {
+function tableOf(curve: PolynomialCurve): Float64Array {
   let table = tables.get(curve);
   if (!table) {
     const [lo, hi] = curve.bracketNm;
@@ -91,7 +95,7 @@ function tableOf(curve: YuCurve): Float64Array {
  * kept inside that interval (a bisection step whenever it would leave it) then converges to round-off. Diameters
  * beyond the bracket's ends give the nearer end.
  */
-export function yuFirstExcitonNm(curve: YuCurve, diameterNm: number): number {
+export function yuFirstExcitonNm(curve: PolynomialCurve, diameterNm: number): number {
   const table = tableOf(curve);
   const bracketLo = curve.bracketNm[0];
   const bracketHi = curve.bracketNm[1];
