@@ -67,7 +67,11 @@ describe('GaAs: illustrative only', () => {
     expect(dot.warnings.join(' ')).toMatch(/Illustrative only/);
     expect(dot.model).toMatch(/illustrative/);
     expect(listMaterials().find((m) => m.id === 'gaas')!.illustrative).toBe(true);
-    expect(listMaterials().filter((m) => m.illustrative).map((m) => m.id)).toEqual(['gaas']);
+    expect(
+      listMaterials()
+        .filter((m) => m.illustrative)
+        .map((m) => m.id),
+    ).toEqual(['gaas']);
   });
 
   const request = (allowed?: ('gaas' | 'cdse')[]) => ({
@@ -116,7 +120,11 @@ describe('InP: the Almeida et al. 2023 relation', () => {
       expect(apartNm(1.2)).toBeGreaterThan(10);
       expect(apartNm(1.2)).toBeLessThan(13);
       for (const d of [2, 2.5, 3, 3.5, 4]) expect(apartNm(d)).toBeLessThanOrEqual(6);
-      expect(listMaterials().find((m) => m.id === 'inp')!.warnings.join(' ')).toMatch(/12 nm.*6 nm/);
+      expect(
+        listMaterials()
+          .find((m) => m.id === 'inp')!
+          .warnings.join(' '),
+      ).toMatch(/12 nm.*6 nm/);
     },
   );
 });

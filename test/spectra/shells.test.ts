@@ -137,7 +137,7 @@ describe('core/shell dots: the shell absorbs above its gap', () => {
   const layerEpsilon = (dInNm: number, dOutNm: number, gapEv: number, nm: number) => {
     const above = HC_EV_NM / nm - gapEv;
     if (above <= 0) return 0;
-    const volumeCm3 = ((Math.PI / 6) * (dOutNm ** 3 - dInNm ** 3)) * 1e-21;
+    const volumeCm3 = (Math.PI / 6) * (dOutNm ** 3 - dInNm ** 3) * 1e-21;
     return (AVOGADRO_PER_MOL * volumeCm3 * 6.9e4 * Math.sqrt(Math.min(above, 1.5) / 0.5)) / (1000 * Math.LN10);
   };
 
@@ -182,7 +182,10 @@ describe('core/shell dots: the shell absorbs above its gap', () => {
 
 describe('brightness at the common lines, CdSe, InP and CdTe probes with their typical shells', () => {
   const eps = (material: 'cdse' | 'inp' | 'cdte', peak: number, nm: number) =>
-    extinctionAtNm(resolveDot({ material, emissionPeakNm: peak, shell: TYPICAL_SHELLS[material].map((l) => ({ ...l })) }), nm);
+    extinctionAtNm(
+      resolveDot({ material, emissionPeakNm: peak, shell: TYPICAL_SHELLS[material].map((l) => ({ ...l })) }),
+      nm,
+    );
 
   it(
     'at 405 nm a 650 nm InP/ZnSe/ZnS probe is within 10× of a 655 nm CdSe/ZnS probe (the ZnSe shell absorbs violet ' +
@@ -191,7 +194,9 @@ describe('brightness at the common lines, CdSe, InP and CdTe probes with their t
       const ratio = eps('cdse', 655, 405) / eps('inp', 650, 405);
       expect(ratio).toBeGreaterThan(1);
       expect(ratio).toBeLessThan(10);
-      expect(eps('inp', 650, 405)).toBeGreaterThan(4 * extinctionAtNm(resolveDot({ material: 'inp', emissionPeakNm: 650 }), 405));
+      expect(eps('inp', 650, 405)).toBeGreaterThan(
+        4 * extinctionAtNm(resolveDot({ material: 'inp', emissionPeakNm: 650 }), 405),
+      );
     },
   );
 

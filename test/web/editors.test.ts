@@ -53,6 +53,7 @@ describe('editors', () => {
     el.materials = listMaterials();
     el.prediction = {
       diameterNm: 4.9,
+      overallDiameterNm: 4.9,
       firstExcitonNm: 590,
       emissionPeakNm: 605,
       fwhmNm: 29,

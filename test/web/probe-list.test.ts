@@ -141,6 +141,7 @@ describe('<qdp-probe-list>', () => {
         undefined,
         {
           diameterNm: 5.1,
+          overallDiameterNm: 5.1,
           firstExcitonNm: 528,
           emissionPeakNm: 540,
           fwhmNm: 30,

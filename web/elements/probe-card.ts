@@ -13,6 +13,8 @@ import type { ProbePrediction } from '../state/compute';
 import { messagesBesides } from '../state/error-map';
 import './number-field';
 import './spectrum-input';
+import './shell-editor';
+import { SHELL_MATERIALS, type ShellLayer } from '../../spectra/index';
 
 /** The part of a material the probe editor needs. */
 export type ProbeCardMaterial = Pick<
@@ -24,6 +26,7 @@ export type ProbeCardMaterial = Pick<
   | 'typicalQuantumYield'
   | 'typicalSizeDispersionPct'
   | 'typicalFwhmNm'
+  | 'typicalShell'
   | 'toxicity'
 >;
 
@@ -33,8 +36,12 @@ const fmt = (v: number | null | undefined, digits = 0) =>
 
 /** The model's prediction for the probe as one line of text. */
 function predictionText(pr: ProbePrediction): string {
+  const overall =
+    pr.overallDiameterNm !== null && pr.overallDiameterNm !== pr.diameterNm
+      ? `, with shell ${fmt(pr.overallDiameterNm, 2)} nm`
+      : '';
   return [
-    `Predicted: core ${fmt(pr.diameterNm, 2)} nm`,
+    `Predicted: core ${fmt(pr.diameterNm, 2)} nm${overall}`,
     `first exciton ${fmt(pr.firstExcitonNm)} nm`,
     `emission peak ${fmt(pr.emissionPeakNm)} nm`,
     `FWHM ${fmt(pr.fwhmNm)} nm`,
@@ -128,7 +135,12 @@ export class ProbeCard extends LitElement {
   private setMaterial(id: string): void {
     const m = this.materials.find((x) => x.id === id);
     if (!m) return;
-    const patch: Partial<ProbeSpec> = { material: m.id };
+    // A new material comes with its own usual shell (none for materials without a size law).
+    const patch: Partial<ProbeSpec> = {
+      material: m.id,
+      shell: m.typicalShell && m.typicalShell.length > 0 ? m.typicalShell.map((l) => ({ ...l })) : undefined,
+      sizingModel: undefined,
+    };
     // Keep the emission peak when the new material can reach it; otherwise move it to the middle of its range.
     if (m.emissionRangeNm) {
       const [lo, hi] = m.emissionRangeNm;
@@ -209,6 +221,35 @@ export class ProbeCard extends LitElement {
     </div>`;
   }
 
+  /** The shell editor of a sized dot, with the errors that name a shell layer. */
+  private shellEditor(m: ProbeCardMaterial) {
+    const errors: Record<string, string> = {};
+    for (const [key, message] of Object.entries(this.errors))
+      if (key === 'shell') errors[''] = message;
+      else if (key.startsWith('shell.')) errors[key.slice('shell.'.length)] = message;
+    return html`<qdp-shell-editor
+      .shell=${this.probe.shell ?? []}
+      .typical=${m.typicalShell ?? []}
+      .errors=${errors}
+      @shell-change=${(e: CustomEvent<{ shell: ShellLayer[] }>) => {
+        e.stopPropagation();
+        this.change({ shell: e.detail.shell.length > 0 ? e.detail.shell : undefined });
+      }}
+    ></qdp-shell-editor>`;
+  }
+
+  /** Hazard notes of the shell materials, one collapsed block per material (a shell adds its own hazards). */
+  private shellHazards() {
+    const ids = [...new Set((this.probe.shell ?? []).map((l) => l.material))];
+    return ids.map((id) => {
+      const s = SHELL_MATERIALS[id];
+      return html`<details class="hazard ${s.toxicity.level}">
+        <summary>Shell ${s.name}: hazard ${s.toxicity.level}; notes and cautions</summary>
+        ${hazardNotes(s.toxicity)}
+      </details>`;
+    });
+  }
+
   override render() {
     const p = this.probe;
     const m = this.materials.find((x) => x.id === p.material);
@@ -218,10 +259,11 @@ export class ProbeCard extends LitElement {
     // A custom probe takes its measured emission, a sized one its peak or diameter, a carbon dot its peak.
     const sizeKey: NumberKey | null =
       p.material === 'custom' ? null : byDiameter && sized ? 'diameterNm' : 'emissionPeakNm';
-    const shown: NumberKey[] = ['abundance', 'quantumYield'];
+    const shown: string[] = ['abundance', 'quantumYield'];
     if (sizeKey) shown.push(sizeKey);
     if (sized) shown.push('sizeDispersionPct');
     if (p.material === 'carbon') shown.push('fwhmNm');
+    if (sized) shown.push(...Object.keys(this.errors).filter((k) => k === 'shell' || k.startsWith('shell.')));
     const pr = this.prediction;
     return html` <header>
         <strong>${p.label || p.id}</strong>
@@ -257,6 +299,7 @@ export class ProbeCard extends LitElement {
         >
         ${sized ? this.sizeChoice(byDiameter) : ''} ${this.sizeFields(sizeKey, sized, m)} ${this.channelChoice()}
       </div>
+      ${sized ? this.shellEditor(m!) : ''}
       ${
         m
           ? html`<details class="hazard ${m.toxicity.level}">
@@ -265,6 +308,7 @@ export class ProbeCard extends LitElement {
             </details>`
           : ''
       }
+      ${this.shellHazards()}
       ${messagesBesides(this.errors, shown).map((message) => html`<p class="bad" role="alert">${message}</p>`)}
       <p class="pred" aria-label="Predicted properties">${pr ? predictionText(pr) : 'No prediction yet.'}</p>
       ${

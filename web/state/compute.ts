@@ -30,7 +30,7 @@ export const DETECTORS = listDetectors();
 /** What the model predicts for one probe, for the read-out under its fields. */
 export interface ProbePrediction extends Pick<
   ProbeEvaluation,
-  'diameterNm' | 'firstExcitonNm' | 'emissionPeakNm' | 'fwhmNm' | 'warnings'
+  'diameterNm' | 'overallDiameterNm' | 'firstExcitonNm' | 'emissionPeakNm' | 'fwhmNm' | 'warnings'
 > {
   /** Collected-light brightness at the excitation relative to the brightest probe of the panel, 0–1. */
   relativeBrightness: number;
@@ -196,6 +196,7 @@ export function computePanel(
   const maxBright = Math.max(0, ...ev.probes.map((d) => d.brightnessPerAbundance));
   const predictions: ProbePrediction[] = ev.probes.map((d) => ({
     diameterNm: d.diameterNm,
+    overallDiameterNm: d.overallDiameterNm,
     firstExcitonNm: d.firstExcitonNm,
     emissionPeakNm: d.emissionPeakNm,
     fwhmNm: d.fwhmNm,

@@ -1,7 +1,14 @@
 /**
  * Immutable edits of a panel: each returns a new PanelSpec, so the app can keep the last good state and compare.
  */
-import { LIMITS, type ChannelSpec, type FilterSpec, type PanelSpec, type ProbeSpec } from '../../spectra/index';
+import {
+  LIMITS,
+  TYPICAL_SHELLS,
+  type ChannelSpec,
+  type FilterSpec,
+  type PanelSpec,
+  type ProbeSpec,
+} from '../../spectra/index';
 
 /** A new, empty panel with one 405 nm line. */
 export function newPanel(): PanelSpec {
@@ -39,14 +46,15 @@ export function setFilter(panel: PanelSpec, channelIndex: number, filterIndex: n
   });
 }
 
-/** Adds a CdSe dot at 605 nm (a mid-visible start the user then edits). */
+/** Adds a CdSe/ZnS dot at 605 nm with CdSe's typical shell (a mid-visible start the user then edits). */
 export function addProbe(panel: PanelSpec): PanelSpec {
   const id = nextId('p', panel.probes);
+  const shell = TYPICAL_SHELLS.cdse.map((layer) => ({ ...layer }));
   return {
     ...panel,
     probes: [
       ...panel.probes,
-      { id, label: `Probe ${id.slice(1)}`, material: 'cdse', emissionPeakNm: 605, abundance: 1 },
+      { id, label: `Probe ${id.slice(1)}`, material: 'cdse', emissionPeakNm: 605, shell, abundance: 1 },
     ],
   };
 }
