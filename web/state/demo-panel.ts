@@ -22,7 +22,10 @@ function inventedCurve(
   return out;
 }
 
-/** The demo panel: five dots and one counterstain, six bandpass channels, sample background on. */
+/**
+ * The demo panel: five core/shell dots (as sold: CdSe/ZnS, InP/ZnS, CdTe/CdS) and one counterstain, six bandpass
+ * channels, sample background on.
+ */
 export function demoPanel(): PanelSpec {
   return {
     version: 1,
@@ -44,6 +47,7 @@ export function demoPanel(): PanelSpec {
         label: 'Green dot',
         material: 'cdse',
         emissionPeakNm: 525,
+        shell: [{ material: 'zns', thicknessNm: 0.9 }],
         sizeDispersionPct: 5,
         quantumYield: 0.5,
         target: 'nuclear envelope marker',
@@ -54,6 +58,7 @@ export function demoPanel(): PanelSpec {
         label: 'Yellow dot',
         material: 'inp',
         emissionPeakNm: 570,
+        shell: [{ material: 'zns', thicknessNm: 0.6 }],
         quantumYield: 0.5,
         target: 'mitochondrial marker',
         abundance: 1,
@@ -63,6 +68,7 @@ export function demoPanel(): PanelSpec {
         label: 'Orange dot',
         material: 'cdse',
         emissionPeakNm: 605,
+        shell: [{ material: 'zns', thicknessNm: 0.9 }],
         sizeDispersionPct: 5,
         quantumYield: 0.5,
         target: 'cytoskeleton marker',
@@ -73,6 +79,7 @@ export function demoPanel(): PanelSpec {
         label: 'Red dot',
         material: 'cdse',
         emissionPeakNm: 645,
+        shell: [{ material: 'zns', thicknessNm: 0.9 }],
         sizeDispersionPct: 6,
         quantumYield: 0.5,
         target: 'vessel wall marker (sparse)',
@@ -83,6 +90,7 @@ export function demoPanel(): PanelSpec {
         label: 'Far-red dot',
         material: 'cdte',
         emissionPeakNm: 705,
+        shell: [{ material: 'cds', thicknessNm: 0.7 }],
         quantumYield: 0.4,
         target: 'membrane marker',
         abundance: 1,
