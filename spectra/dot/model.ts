@@ -147,7 +147,7 @@ export function cdseCurveComparison(firstExcitonNm: number): string {
     `Published CdSe curves disagree at a first exciton of ${firstExcitonNm.toFixed(0)} nm: Yu 2003 gives a ` +
     `${dYu.toFixed(2)} nm core with ε ${epsYu.toExponential(2)}, Jasieniak 2009 a ${dJas.toFixed(2)} nm core with ` +
     `ε ${epsJas.toExponential(2)} M⁻¹ cm⁻¹ (${pct >= 0 ? '+' : ''}${pct.toFixed(0)} %; its extinction law is from ` +
-    'memory, unverified). Choose with sizingModel.'
+    'memory, unverified). Either curve can be chosen (sizing curve; API field sizingModel).'
   );
 }
 

@@ -103,3 +103,36 @@ describe('probes get their material’s typical shell', () => {
     expect(el.shadowRoot!.textContent).toMatch(/local regulations/);
   });
 });
+
+describe('the sizing curve of a CdSe probe', () => {
+  it('a CdSe card offers the two published curves; choosing Jasieniak sets sizingModel, the default removes it', async () => {
+    const el = document.createElement('qdp-probe-card');
+    el.probe = { id: 'p1', material: 'cdse', emissionPeakNm: 600 };
+    el.materials = listMaterials();
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const changes: ProbeSpec[] = [];
+    el.addEventListener('probe-change', (e) => changes.push((e as CustomEvent<{ probe: ProbeSpec }>).detail.probe));
+    const label = [...el.shadowRoot!.querySelectorAll('label')].find((l) => l.textContent!.includes('Sizing curve'))!;
+    const select = label.querySelector('select')!;
+    expect([...select.options].map((o) => o.textContent)).toEqual([
+      'Yu et al. 2003 (default)',
+      'Jasieniak et al. 2009',
+    ]);
+    select.value = 'jasieniak2009';
+    select.dispatchEvent(new Event('change'));
+    select.value = 'yu2003';
+    select.dispatchEvent(new Event('change'));
+    expect(changes[0].sizingModel).toBe('jasieniak2009');
+    expect('sizingModel' in changes[1]).toBe(false);
+  });
+
+  it('an InP card has no sizing-curve choice (one published curve)', async () => {
+    const el = document.createElement('qdp-probe-card');
+    el.probe = { id: 'p1', material: 'inp', emissionPeakNm: 620 };
+    el.materials = listMaterials();
+    document.body.appendChild(el);
+    await el.updateComplete;
+    expect(el.shadowRoot!.textContent).not.toContain('Sizing curve');
+  });
+});

@@ -27,8 +27,15 @@ export type ProbeCardMaterial = Pick<
   | 'typicalSizeDispersionPct'
   | 'typicalFwhmNm'
   | 'typicalShell'
+  | 'sizingModels'
   | 'toxicity'
 >;
+
+/** How the page names each published sizing curve a probe may choose. */
+const SIZING_CURVE_NAMES: Record<string, string> = {
+  yu2003: 'Yu et al. 2003 (default)',
+  jasieniak2009: 'Jasieniak et al. 2009',
+};
 
 /** A number for the read-out: `digits` decimals, or a dash when there is none. */
 const fmt = (v: number | null | undefined, digits = 0) =>
@@ -191,6 +198,25 @@ export class ProbeCard extends LitElement {
     ${this.num('Quantum yield', 'quantumYield', '0–1', true, hint(m?.typicalQuantumYield))}`;
   }
 
+  /** The choice of published sizing curve, for materials that have more than one (CdSe). */
+  private sizingCurveChoice(m: ProbeCardMaterial | undefined) {
+    if (!m || m.sizingModels.length < 2) return '';
+    const current = this.probe.sizingModel ?? m.sizingModels[0];
+    return html`<label class="text"
+      >Sizing curve
+      <select
+        @change=${(e: Event) => {
+          const value = (e.target as HTMLSelectElement).value;
+          this.change({ sizingModel: value === m.sizingModels[0] ? undefined : (value as ProbeSpec['sizingModel']) });
+        }}
+      >
+        ${m.sizingModels.map(
+          (id) => html`<option value=${id} ?selected=${id === current}>${SIZING_CURVE_NAMES[id] ?? id}</option>`,
+        )}
+      </select></label
+    >`;
+  }
+
   /** The channel choice: automatic, or one of the panel's channels. */
   private channelChoice() {
     const p = this.probe;
@@ -297,7 +323,8 @@ export class ProbeCard extends LitElement {
             )}
           </select></label
         >
-        ${sized ? this.sizeChoice(byDiameter) : ''} ${this.sizeFields(sizeKey, sized, m)} ${this.channelChoice()}
+        ${sized ? this.sizeChoice(byDiameter) : ''} ${this.sizeFields(sizeKey, sized, m)} ${this.sizingCurveChoice(m)}
+        ${this.channelChoice()}
       </div>
       ${sized ? this.shellEditor(m!) : ''}
       ${
