@@ -72,6 +72,7 @@ export const BACKGROUND_PRESETS: Readonly<Record<BackgroundPresetId, BackgroundP
       'A formalin-fixed, paraffin-embedded section, as cut from routine pathology blocks. Fixation adds a broad ' +
       'green background, strongest under violet and blue light, on top of the light of the tissue itself: collagen, ' +
       'elastin, NAD(P)H, flavins, lipofuscin and porphyrins.',
+    // The fixation band's weight is ours: the sources say fixed tissue glows more, not how much more.
     bands: [...TISSUE_BANDS, weighted(FORMALDEHYDE_FIXATION, 1.5)],
     basis: [
       FORMALDEHYDE_FIXATION.source,
@@ -119,6 +120,7 @@ export const BACKGROUND_PRESETS: Readonly<Record<BackgroundPresetId, BackgroundP
       'A monolayer of cultured cells on glass, live or fixed in cold methanol or acetone: mostly NAD(P)H (blue, ' +
       'excited in the UV) and flavins (green, excited by blue light), a little lipofuscin-like pigment, and no ' +
       'extracellular matrix. Formaldehyde fixation adds background this preset leaves out.',
+    // The tissue weights of NAD(P)H and flavins, and a twentieth of their lipofuscin (ours).
     bands: [weighted(NADPH, 0.8), weighted(FLAVINS, 0.3), weighted(LIPOFUSCIN, 0.05)],
     basis: [
       {
