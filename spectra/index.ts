@@ -19,10 +19,12 @@ export {
   type WavelengthGrid,
 } from './core/grid';
 export {
+  BACKGROUND_PRESET_IDS,
   FILTER_TYPES,
   MATERIAL_IDS,
   SHELL_MATERIAL_IDS,
   SIZING_MODELS,
+  type BackgroundPresetId,
   type ShellLayer,
   type ShellMaterialId,
   type SizingModelId,
@@ -81,6 +83,8 @@ export { filterTransmission } from './light/filters/filter';
 export { channelTransmission } from './light/filters/channel';
 export { DEFAULT_DETECTOR_ID, DETECTOR_IDS, detectorQe, listDetectors, type DetectorClass } from './light/detectors';
 export { AUTOFLUORESCENCE_BANDS, BACKGROUND_REFERENCE_BRIGHTNESS, defaultAutofluorescence } from './light/background';
+export { listBackgroundPresets, presetAutofluorescence, type BackgroundPresetList } from './light/background-presets';
+export { SOURCE_STATUSES, type Citation, type SourceStatus } from './light/autofluorescence-sources';
 
 // Signals: crosstalk, unmixing, noise, lot-to-lot sensitivity, whole-panel evaluation.
 export {

@@ -110,9 +110,17 @@ export interface ChannelSpec {
   detector?: string;
 }
 
-/** Sample autofluorescence: the default model scaled by `level`, or a measured spectrum (times `level`). */
+/** Sample types with an autofluorescence preset (spectra/light/background-presets.ts holds their bands). */
+export const BACKGROUND_PRESET_IDS = ['ffpe-tissue', 'frozen-tissue', 'cultured-cells'] as const;
+export type BackgroundPresetId = (typeof BACKGROUND_PRESET_IDS)[number];
+
+/**
+ * Sample autofluorescence times `level`: the default model, a sample type's preset (`preset`), or a measured spectrum
+ * (`points`); never both a preset and points.
+ */
 export interface BackgroundSpec {
   level: number;
+  preset?: BackgroundPresetId;
   points?: SpectrumPoints;
 }
 

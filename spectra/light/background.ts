@@ -5,30 +5,23 @@
  *   near-UV), lipofuscin (broad, ~590 nm, excited from UV to green), porphyrins (~635 and ~700 nm, Soret band ~405 nm).
  * Band positions are the commonly quoted ones (common practice); every width, excitation band and relative brightness
  * below is FROM MEMORY, unverified and approximate: real tissue varies by type, fixation and age by orders of
- * magnitude. A measured background spectrum replaces the model.
+ * magnitude. A sample type's preset (background-presets.ts) replaces the default bands; a measured background
+ * spectrum replaces the model.
  */
 import type { BackgroundSpec } from '../core/panel';
 import { sampleTable, type WavelengthGrid } from '../core/grid';
-
-interface Band {
-  name: string;
-  emissionNm: number;
-  emissionFwhmNm: number;
-  /** Excitation bands: [peak nm, FWHM nm, relative weight]. */
-  excitation: [number, number, number][];
-  /** Relative total emission when excited at the strongest excitation band (from memory). */
-  brightness: number;
-}
+import { bandsEmission, type AutofluorescenceBand } from './bands';
+import { presetAutofluorescence } from './background-presets';
 
 // The Soret band and two Q bands, which excite both porphyrin emission bands (from memory).
-const PORPHYRIN_EXCITATION: Band['excitation'] = [
+const PORPHYRIN_EXCITATION: AutofluorescenceBand['excitation'] = [
   [405, 30, 1],
   [505, 30, 0.1],
   [630, 20, 0.05],
 ];
 
 /** The default autofluorescence bands (approximate, from memory; see the file header). */
-export const AUTOFLUORESCENCE_BANDS: readonly Band[] = Object.freeze([
+export const AUTOFLUORESCENCE_BANDS: readonly AutofluorescenceBand[] = Object.freeze([
   { name: 'collagen/elastin', emissionNm: 400, emissionFwhmNm: 80, excitation: [[330, 50, 1]], brightness: 0.8 },
   { name: 'NAD(P)H', emissionNm: 460, emissionFwhmNm: 110, excitation: [[340, 60, 1]], brightness: 1 },
   {
@@ -60,12 +53,11 @@ export const AUTOFLUORESCENCE_BANDS: readonly Band[] = Object.freeze([
 
 /**
  * Scale of `level`: level 1 means the sample's autofluorescence emits as many photons as one probe with
- * extinction × quantum yield = 1e5 M⁻¹ cm⁻¹ at abundance 1 under the same line. A convention of this tool, chosen so
- * that background and probe signals share one unit; not a measured value.
+ * extinction × quantum yield = 1e5 M⁻¹ cm⁻¹ at abundance 1 under the same line (for the default model and for
+ * fresh-frozen tissue's preset, under a 405 nm line). A convention of this tool, chosen so that background and probe
+ * signals share one unit; not a measured value.
  */
 export const BACKGROUND_REFERENCE_BRIGHTNESS = 1e5;
-
-const FWHM_TO_SIGMA = 1 / (2 * Math.sqrt(2 * Math.LN2));
 
 /**
  * Default autofluorescence emission (relative photon density per nm) under a line at `excitationNm`: the bands above,
@@ -73,36 +65,23 @@ const FWHM_TO_SIGMA = 1 / (2 * Math.sqrt(2 * Math.LN2));
  * violet line, less towards the red (about 0.006 at 640 nm): red lines excite tissue far less (common practice).
  */
 export function defaultAutofluorescence(excitationNm: number, grid: WavelengthGrid): number[] {
-  const out = new Array<number>(grid.count).fill(0);
-  for (const band of AUTOFLUORESCENCE_BANDS) {
-    let weight = 0;
-    for (const [peakNm, fwhmNm, w] of band.excitation) {
-      const z = (excitationNm - peakNm) / (fwhmNm * FWHM_TO_SIGMA);
-      weight += w * Math.exp(-0.5 * z * z);
-    }
-    const amount = band.brightness * weight;
-    if (amount < 1e-300) continue;
-    const sigma = band.emissionFwhmNm * FWHM_TO_SIGMA;
-    const norm = amount / (sigma * Math.sqrt(2 * Math.PI));
-    for (let i = 0; i < grid.count; i++) {
-      const nm = grid.startNm + i * grid.stepNm;
-      // Nothing is emitted at or below the exciting wavelength (no anti-Stokes emission in this model).
-      if (nm <= excitationNm) continue;
-      const z = (nm - band.emissionNm) / sigma;
-      out[i] += norm * Math.exp(-0.5 * z * z);
-    }
-  }
-  return out;
+  return bandsEmission(AUTOFLUORESCENCE_BANDS, excitationNm, grid);
 }
 
 /**
  * Background emission on the grid in the panel's signal units, per unit line power: level × 1e5 × the default
- * spectrum for that line, or level × 1e5 × a measured spectrum normalised to unit area on the grid (a measured
- * spectrum is taken as it is for every line, its excitation dependence being unknown).
+ * spectrum for that line, or × the preset's spectrum for that line (on the presets' shared scale, see
+ * background-presets.ts), or × a measured spectrum normalised to unit area on the grid (a measured spectrum is taken
+ * as it is for every line, its excitation dependence being unknown).
  */
 export function backgroundEmission(spec: BackgroundSpec, excitationNm: number, grid: WavelengthGrid): number[] {
   const scale = spec.level * BACKGROUND_REFERENCE_BRIGHTNESS;
-  const out = spec.points === undefined ? defaultAutofluorescence(excitationNm, grid) : sampleTable(spec.points, grid);
+  const out =
+    spec.points !== undefined
+      ? sampleTable(spec.points, grid)
+      : spec.preset !== undefined
+        ? presetAutofluorescence(spec.preset, excitationNm, grid)
+        : defaultAutofluorescence(excitationNm, grid);
   let area = 1;
   if (spec.points !== undefined) {
     area = 0;

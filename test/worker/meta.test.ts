@@ -34,6 +34,7 @@ describe('health and description', () => {
       '/api/v1/openapi.json',
       '/api/v1/materials',
       '/api/v1/detectors',
+      '/api/v1/backgrounds',
       '/api/v1/dots/resolve',
       '/api/v1/panels/evaluate',
       '/api/v1/panels',
@@ -76,6 +77,7 @@ describe('routes and methods', () => {
   it.each([
     ['POST', '/api/v1/health', 'GET'],
     ['PUT', '/api/v1/detectors', 'GET'],
+    ['POST', '/api/v1/backgrounds', 'GET'],
     ['GET', '/api/v1/panels', 'POST'],
     ['GET', '/api/v1/panels/evaluate', 'POST'],
     ['DELETE', '/api/v1/dots/resolve', 'POST'],

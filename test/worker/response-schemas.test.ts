@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { z } from 'zod';
 import {
+  BackgroundPresetList,
   DesignResponse,
   DetectorList,
   ErrorBody,
@@ -50,6 +51,15 @@ describe('GET routes', () => {
     expect(materials.materials.find((m) => m.id === 'carbon')?.diameterRangeNm).toBeNull();
     expectValid(DetectorList, await bodyOf(await worker.call('/api/v1/detectors'), 200), 'detectors');
   });
+
+  it('GET /api/v1/backgrounds answers a body BackgroundPresetList accepts', async () => {
+    const list = expectValid(
+      BackgroundPresetList,
+      await bodyOf(await worker.call('/api/v1/backgrounds'), 200),
+      'backgrounds',
+    );
+    expect(list.presets.length).toBeGreaterThan(0);
+  });
 });
 
 describe('POST /api/v1/dots/resolve', () => {
@@ -79,6 +89,15 @@ describe('POST /api/v1/dots/resolve', () => {
 });
 
 describe('POST /api/v1/panels/evaluate', () => {
+  it('POST /panels/evaluate of a panel with a background preset answers a body Evaluation accepts', async () => {
+    const body = expectValid(
+      Evaluation,
+      await evaluate({ ...examplePanel(), background: { level: 0.1, preset: 'frozen-tissue' } }),
+      'evaluate with a preset',
+    );
+    expect(body.backgroundCollected).toHaveLength(2);
+  });
+
   it('POST /panels/evaluate of a two-probe panel with background answers a body Evaluation accepts', async () => {
     const body = expectValid(Evaluation, await evaluate(examplePanel()), 'evaluate');
     expect(body.signalToBackground).toHaveLength(2);

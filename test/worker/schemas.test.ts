@@ -183,6 +183,26 @@ describe('Panel refuses a bad panel with the field that is wrong', () => {
       ['channels', 0, 'filters', 0, 'points', 1, 0],
     ],
     ['a negative background level', (p) => (p.background = { level: -1 }), 'out_of_range', ['background', 'level']],
+    [
+      'a background preset that is not a preset id',
+      (p) => (p.background = { level: 1, preset: 'paraffin' }),
+      'invalid_input',
+      ['background', 'preset'],
+    ],
+    [
+      'a background preset together with measured points',
+      (p) =>
+        (p.background = {
+          level: 1,
+          preset: 'frozen-tissue',
+          points: [
+            [500, 1],
+            [600, 1],
+          ],
+        }),
+      'invalid_input',
+      ['background', 'preset'],
+    ],
   ];
   it.each(cases)('Panel refuses %s with the code and path of the field', (_what, breakIt, code, path) => {
     const panel = base() as P;
@@ -192,6 +212,12 @@ describe('Panel refuses a bad panel with the field that is wrong', () => {
 
   it('Panel accepts the unbroken panel', () => {
     expect(firstError(Panel, base())).toBe('accepted');
+  });
+
+  it('Panel accepts a background with each preset id and no points', () => {
+    for (const preset of ['ffpe-tissue', 'frozen-tissue', 'cultured-cells']) {
+      expect(firstError(Panel, { ...base(), background: { level: 0.5, preset } }), preset).toBe('accepted');
+    }
   });
 });
 

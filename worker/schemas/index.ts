@@ -5,6 +5,7 @@
  */
 import type { z } from 'zod';
 import type {
+  BackgroundPresetList as BackgroundPresetListSpec,
   DesignResult,
   LotShiftSensitivity,
   Material as MaterialSpec,
@@ -14,7 +15,7 @@ import type {
 import { Panel } from './panel';
 import type { DesignResponse } from './design-response';
 import type { Evaluation, LotShiftJson } from './evaluation';
-import type { Material } from './responses';
+import type { BackgroundPresetList, Material } from './responses';
 
 export { LIMITS, RANGES } from './limits';
 export { ApiError, type ApiErrorCode } from './errors';
@@ -32,6 +33,9 @@ export {
   MaterialList,
   Detector,
   DetectorList,
+  CitationJson,
+  BackgroundBandJson,
+  BackgroundPresetList,
   ResolvedDotJson,
 } from './responses';
 
@@ -62,6 +66,10 @@ export type EvaluationMatchesSpec = Assert<Same<z.infer<typeof Evaluation>, Pane
 export type LotShiftMatchesSpec = Assert<Same<z.infer<typeof LotShiftJson>, LotShiftSensitivity>>;
 /** A material of GET /api/v1/materials is the library's Material. */
 export type MaterialMatchesSpec = Assert<Same<z.infer<typeof Material>, MaterialSpec>>;
+/** GET /api/v1/backgrounds answers exactly what listBackgroundPresets returns. */
+export type BackgroundPresetListMatchesSpec = Assert<
+  Same<z.infer<typeof BackgroundPresetList>, BackgroundPresetListSpec>
+>;
 /**
  * What runDesign returns is a valid design answer (the answer may also carry null where a number had no finite value).
  */

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { LIMITS, RANGES } from './limits';
-import { DETECTOR_IDS } from '../../spectra/index';
+import { BACKGROUND_PRESET_IDS, DETECTOR_IDS } from '../../spectra/index';
 import { identifier, ranged, text, wavelengthNm } from './fields';
 import { Filter } from './filter';
 import { Probe } from './probe';
@@ -25,11 +25,29 @@ export const Channel = z.strictObject({
   detector: z.enum(DETECTOR_IDS, { error: `must be one of ${DETECTOR_IDS.join(', ')}` }).optional(),
 });
 
-/** Sample autofluorescence: the default model scaled by `level`, or a measured spectrum times `level`. */
-export const Background = z.strictObject({
-  level: ranged(RANGES.backgroundLevel[0], RANGES.backgroundLevel[1]),
-  points: pointsTable(RANGES.spectralValue[1], 'background').shape.points.optional(),
-});
+const UNKNOWN_PRESET =
+  `must be one of ${BACKGROUND_PRESET_IDS.join(', ')} ` + '(each listed with its bands by GET /api/v1/backgrounds)';
+
+/**
+ * Sample autofluorescence times `level`: the default model, a sample type's preset, or a measured spectrum; a preset
+ * and a measured spectrum exclude each other.
+ */
+export const Background = z
+  .strictObject({
+    level: ranged(RANGES.backgroundLevel[0], RANGES.backgroundLevel[1]),
+    preset: z.enum(BACKGROUND_PRESET_IDS, { error: UNKNOWN_PRESET }).optional(),
+    points: pointsTable(RANGES.spectralValue[1], 'background').shape.points.optional(),
+  })
+  .superRefine((background, ctx) => {
+    if (background.preset !== undefined && background.points !== undefined) {
+      ctx.addIssue({
+        code: 'custom',
+        message: 'must not be given together with points (a measured background replaces any preset)',
+        path: ['preset'],
+        params: { apiCode: 'invalid_input' },
+      });
+    }
+  });
 
 /** A panel as the API takes it (docs/api.md, "Panels"): the single source of truth for its shape. */
 export const Panel = z

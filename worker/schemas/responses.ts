@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { BACKGROUND_PRESET_IDS, SOURCE_STATUSES } from '../../spectra/index';
 import { SampledSpectrumJson } from './dot';
 import { MaterialIdSchema } from './probe';
 import { SHELL_MATERIAL_IDS } from '../../spectra/index';
@@ -90,6 +91,35 @@ export const Detector = z.strictObject({ id: z.string(), name: z.string(), notes
 
 /** GET /api/v1/detectors. */
 export const DetectorList = z.strictObject({ detectors: z.array(Detector) });
+
+/** A source, how sure the tool is of it (P, T or M: see `statusMarks`), and what the tool takes from it. */
+export const CitationJson = z.strictObject({ cite: z.string(), status: z.enum(SOURCE_STATUSES), says: z.string() });
+
+/** One autofluorescence band of a preset: its emission, its excitation bands and the source of its positions. */
+export const BackgroundBandJson = z.strictObject({
+  fluorophore: z.string(),
+  emissionNm: z.number(),
+  emissionFwhmNm: z.number(),
+  excitation: z.array(z.strictObject({ peakNm: z.number(), fwhmNm: z.number(), weight: z.number() })),
+  brightness: z.number(),
+  source: CitationJson,
+});
+
+/** GET /api/v1/backgrounds: the autofluorescence presets by sample type, what `level` means, and the caution. */
+export const BackgroundPresetList = z.strictObject({
+  presets: z.array(
+    z.strictObject({
+      id: z.enum(BACKGROUND_PRESET_IDS),
+      name: z.string(),
+      description: z.string(),
+      bands: z.array(BackgroundBandJson),
+      basis: z.array(CitationJson),
+    }),
+  ),
+  level: z.string(),
+  caution: z.string(),
+  statusMarks: z.strictObject({ P: z.string(), T: z.string(), M: z.string() }),
+});
 
 /** Which parts of a resolved probe come from measured data rather than the model. */
 export const MeasuredParts = z.strictObject({ emission: z.boolean(), extinction: z.boolean() });
