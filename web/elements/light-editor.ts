@@ -1,14 +1,24 @@
 /**
  * <qdp-light-editor>: the excitation lines (wavelength, relative power) and the sample background
- * (autofluorescence: off, the default model at a level, or a measured spectrum). Fires `panel-edit` {panel}.
+ * (autofluorescence: off, the generic model or a sample type's preset at a level, or a measured spectrum). Fires
+ * `panel-edit` {panel}.
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
 import { fieldRows, focusRing } from './shared-styles';
-import type { BackgroundSpec, PanelSpec, SpectrumPoints } from '../../spectra/index';
+import {
+  listBackgroundPresets,
+  type BackgroundPresetId,
+  type BackgroundSpec,
+  type PanelSpec,
+  type SpectrumPoints,
+} from '../../spectra/index';
 import { messagesBesides } from '../state/error-map';
 import './number-field';
 import './spectrum-input';
+
+/** The sample-type presets, read once from the library. */
+const PRESETS = listBackgroundPresets();
 
 @customElement('qdp-light-editor')
 export class LightEditor extends LitElement {
@@ -27,6 +37,21 @@ export class LightEditor extends LitElement {
         display: block;
         font-size: 0.9rem;
       }
+      label.text {
+        display: flex;
+        flex-direction: column;
+        font-size: 0.85rem;
+      }
+      select {
+        font: inherit;
+        max-width: 100%;
+      }
+      .about {
+        font-size: 0.8rem;
+        color: #333;
+        margin: 0.2rem 0;
+        max-width: 60rem;
+      }
     `,
   ];
 
@@ -40,7 +65,7 @@ export class LightEditor extends LitElement {
     const mine = Object.fromEntries(
       Object.entries(this.errors).filter(([key]) => /^(excitation|background)\b/.test(key)),
     );
-    return messagesBesides(mine, [...shown, 'background.level']);
+    return messagesBesides(mine, [...shown, 'background.level', 'background.preset']);
   }
 
   private removeLine(p: PanelSpec, i: number) {
@@ -48,7 +73,7 @@ export class LightEditor extends LitElement {
     return html`<button type="button" @click=${remove}>Remove line</button>`;
   }
 
-  /** The background's level and what its shape comes from (the default model or a measured spectrum). */
+  /** The background's level and what its shape comes from (a sample type, the generic model or a measured spectrum). */
   private backgroundFields(p: PanelSpec, bg: BackgroundSpec) {
     const level = (e: CustomEvent<{ value?: number }>) =>
       e.detail.value !== undefined && this.edit({ ...p, background: { ...bg, level: e.detail.value } });
@@ -62,13 +87,42 @@ export class LightEditor extends LitElement {
       ${
         bg.points
           ? html`<span>measured spectrum, ${bg.points.length} points</span
-              ><button type="button" @click=${useModel}>Use the default model</button>`
-          : html`<span>default model</span>`
+              ><button type="button" @click=${useModel}>Use a modelled background instead</button>`
+          : this.sampleType(p, bg)
       }`;
+  }
+
+  /** The sample type whose usual autofluorescence the background models (the generic model when none is chosen). */
+  private sampleType(p: PanelSpec, bg: BackgroundSpec) {
+    const choose = (e: Event) => {
+      const id = (e.target as HTMLSelectElement).value as BackgroundPresetId | '';
+      this.edit({ ...p, background: id ? { level: bg.level, preset: id } : { level: bg.level } });
+    };
+    const error = this.errors['background.preset'];
+    return html`<label class="text"
+        >Sample type
+        <select @change=${choose}>
+          <option value="" ?selected=${!bg.preset}>generic tissue (default model)</option>
+          ${PRESETS.presets.map(
+            (preset) => html`<option value=${preset.id} ?selected=${preset.id === bg.preset}>${preset.name}</option>`,
+          )}
+        </select></label
+      >${error ? html`<span role="alert">${error}</span>` : ''}`;
+  }
+
+  /** What the chosen sample type contains, and the caution every preset carries. */
+  private presetAbout(bg: BackgroundSpec) {
+    const preset = PRESETS.presets.find((x) => x.id === bg.preset);
+    if (!preset || bg.points) return '';
+    return html`<p class="about">
+        ${preset.description} Bands: ${preset.bands.map((b) => `${b.fluorophore} (≈ ${b.emissionNm} nm)`).join(', ')}.
+      </p>
+      <p class="about">Approximate: ${PRESETS.caution}</p>`;
   }
 
   /** Loading a measured background spectrum. */
   private backgroundInput(p: PanelSpec, bg: BackgroundSpec) {
+    // A measured spectrum replaces any preset (the API refuses the two together).
     const loaded = (e: CustomEvent<{ points: SpectrumPoints }>) =>
       this.edit({ ...p, background: { level: bg.level, points: e.detail.points } });
     return html`<qdp-spectrum-input
@@ -132,7 +186,7 @@ export class LightEditor extends LitElement {
         >
         ${bg ? this.backgroundFields(p, bg) : ''}
       </div>
-      ${bg ? this.backgroundInput(p, bg) : ''}
+      ${bg ? this.presetAbout(bg) : ''} ${bg ? this.backgroundInput(p, bg) : ''}
       ${this.lightMessages(p).map((message) => html`<p role="alert">${message}</p>`)}`;
   }
 }
