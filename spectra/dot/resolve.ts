@@ -117,7 +117,8 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
   if (input.excitationNm !== undefined) {
     const cut = cutEmissionAtLine(emission, emissionFrom, grid, input.excitationNm);
     ({ spectrum: emission, from: emissionFrom, cutFraction: emissionCutFraction } = cut);
-    if (emissionCutFraction > 0.001) warnings.push(cutWarning(input.excitationNm, emissionCutFraction));
+    if (emissionCutFraction > 0.001)
+      warnings.push(cutWarning(input.excitationNm, emissionCutFraction, isSizedMaterial(material)));
   }
 
   const measuredExtinction = input.extinction?.points;
@@ -153,11 +154,13 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
 }
 
 /** The warning for emission removed at a line (one wording for dots and panels). */
-export function cutWarning(lineNm: number, cutFraction: number): string {
+export function cutWarning(lineNm: number, cutFraction: number, sized: boolean): string {
   return (
     `${(100 * cutFraction).toFixed(1)} % of the nominal emission lies at or below the ${lineNm} nm line and is ` +
-    'removed (no photon is emitted bluer than the one absorbed); the rest is renormalised. Only the larger dots of ' +
-    'the ensemble absorb this line: expect the measured peak to the red of the nominal one.'
+    'removed (no photon is emitted bluer than the one absorbed); the rest is renormalised.' +
+    (sized
+      ? ' Only the larger dots of the ensemble absorb this line: expect the measured peak to the red of the nominal one.'
+      : '')
   );
 }
 

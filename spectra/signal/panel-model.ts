@@ -161,7 +161,7 @@ export function modelPanel(panel: PanelSpec, grid: WavelengthGrid, resolve: DotR
       }
     }
     evaluation.emissionCutAtLines.forEach((f, l) => {
-      if (f > 0.001) evaluation.warnings.push(cutWarning(lines[l].wavelengthNm, f));
+      if (f > 0.001) evaluation.warnings.push(cutWarning(lines[l].wavelengthNm, f, dot.diameterNm !== null));
     });
   });
   const channelIndex = new Map(panel.channels.map((c, i) => [c.id, i]));

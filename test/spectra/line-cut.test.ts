@@ -63,4 +63,17 @@ describe('emission cut at the exciting line', () => {
       expect(ev.collected[1][0] / e488).toBeLessThan(1e-3 * (ev.collected[0][0] / e405));
     },
   );
+
+  it('the warning speaks of the larger dots of the ensemble for a dot, not for a probe without a size law', () => {
+    const points: [number, number][] = [
+      [400, 0],
+      [420, 1],
+      [460, 0],
+    ];
+    const custom = resolveDot({ material: 'custom', measuredEmission: { points }, excitationNm: 425 });
+    const dot = resolveDot({ material: 'cdse', emissionPeakNm: 480, excitationNm: 488 });
+    expect(custom.warnings.join(' ')).toMatch(/at or below the 425 nm line/);
+    expect(custom.warnings.join(' ')).not.toMatch(/dots of the ensemble/);
+    expect(dot.warnings.join(' ')).toMatch(/dots of the ensemble/);
+  });
 });
