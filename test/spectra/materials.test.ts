@@ -40,12 +40,14 @@ describe('listMaterials', () => {
     expect(material('cspbbr3').sizeMeaning).toMatch(/cube edge/);
   });
 
-  it('listMaterials() has null size fields for carbon and custom, and null emission range only for custom', () => {
+  it('listMaterials() has null size fields for carbon, custom and dye, and null emission ranges for custom and dye', () => {
     expect([
       material('carbon').diameterRangeNm,
       material('custom').diameterRangeNm,
+      material('dye').diameterRangeNm,
       material('custom').emissionRangeNm,
-    ]).toEqual([null, null, null]);
+      material('dye').emissionRangeNm,
+    ]).toEqual([null, null, null, null, null]);
     expect(material('carbon').emissionRangeNm).not.toBeNull();
   });
 
