@@ -23,6 +23,8 @@ const COMPONENTS: [string, z.ZodType][] = [
   ['DesignResponse', schemas.DesignResponse],
   ['MaterialList', schemas.MaterialList],
   ['DetectorList', schemas.DetectorList],
+  ['Dye', schemas.Dye],
+  ['DyeList', schemas.DyeList],
 ];
 
 const ref = (name: string): Json => ({ $ref: `#/components/schemas/${name}` });
@@ -84,6 +86,10 @@ export function openApiDocument(): Json {
       '/api/v1/openapi.json': get('this document', json({ type: 'object' }, 'OpenAPI 3.1')),
       '/api/v1/materials': get('materials with sizing ranges and cautions', json(ref('MaterialList'), 'ok')),
       '/api/v1/detectors': get('generic detector classes', json(ref('DetectorList'), 'ok')),
+      '/api/v1/dyes': get(
+        'dyes, counterstains and fluorescent proteins, each number with its source and status',
+        json(ref('DyeList'), 'ok'),
+      ),
       '/api/v1/dots/resolve': post('one dot: size, peak, spectrum', 'DotRequest', {
         '200': json(ref('ResolvedDot'), 'ok'),
       }),

@@ -28,7 +28,7 @@ interface Case {
 }
 
 const POST_ROUTES = ['/api/v1/panels/evaluate', '/api/v1/panels', '/api/v1/dots/resolve', '/api/v1/panels/design'];
-const GET_ROUTES = ['/api/v1/health', '/api/v1/materials', '/api/v1/detectors', '/api/v1/openapi.json'];
+const GET_ROUTES = ['/api/v1/health', '/api/v1/materials', '/api/v1/detectors', '/api/v1/dyes', '/api/v1/openapi.json'];
 
 const nested = (depth: number, open: string, close: string, inner = '1') =>
   open.repeat(depth) + inner + close.repeat(depth);

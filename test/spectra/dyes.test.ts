@@ -74,26 +74,29 @@ describe('the dye library against its sources', () => {
     },
   );
 
-  it('listDyes() gives every number a source and a status mark, and every M number says "from memory, unverified"', () => {
-    for (const d of listDyes()) {
-      const numbers = [
-        d.absorptionPeakNm,
-        d.emissionPeakNm,
-        d.extinctionPeak,
-        d.quantumYield,
-        d.absorptionFwhmNm,
-        d.emissionFwhmNm,
-        d.absorptionAsymmetry,
-        d.emissionAsymmetry,
-      ];
-      for (const n of numbers) {
-        expect(VALUE_STATUSES, d.id).toContain(n.status);
-        expect(n.source.length, d.id).toBeGreaterThan(5);
-        if (n.status === 'M') expect(n.source, d.id).toContain('from memory, unverified');
+  it(
+    'listDyes() gives every number a source and a status mark, and every M number says "from memory, ' + 'unverified"',
+    () => {
+      for (const d of listDyes()) {
+        const numbers = [
+          d.absorptionPeakNm,
+          d.emissionPeakNm,
+          d.extinctionPeak,
+          d.quantumYield,
+          d.absorptionFwhmNm,
+          d.emissionFwhmNm,
+          d.absorptionAsymmetry,
+          d.emissionAsymmetry,
+        ];
+        for (const n of numbers) {
+          expect(VALUE_STATUSES, d.id).toContain(n.status);
+          expect(n.source.length, d.id).toBeGreaterThan(5);
+          if (n.status === 'M') expect(n.source, d.id).toContain('from memory, unverified');
+        }
+        expect(d.conditions.length, d.id).toBeGreaterThan(3);
       }
-      expect(d.conditions.length, d.id).toBeGreaterThan(3);
-    }
-  });
+    },
+  );
 
   it('listDyes() is plain data: a JSON round trip returns an equal value, and changing a copy changes nothing', () => {
     const list = listDyes();
@@ -113,12 +116,16 @@ describe('the dye library: hazards', () => {
     },
   );
 
-  it('listDyes() cautions all defer to local regulations, institutional rules and licensed practice; none says safe', () => {
-    for (const d of listDyes()) {
-      expect(d.toxicity.cautions.join(' '), d.id).toMatch(/local regulations.*institution.*licensed practice/);
-      expect(hazardText(d.id), d.id).not.toMatch(/\bsafe\b/i);
-    }
-  });
+  it(
+    'listDyes() cautions all defer to local regulations, institutional rules and licensed practice; none ' +
+      'says safe',
+    () => {
+      for (const d of listDyes()) {
+        expect(d.toxicity.cautions.join(' '), d.id).toMatch(/local regulations.*institution.*licensed practice/);
+        expect(hazardText(d.id), d.id).not.toMatch(/\bsafe\b/i);
+      }
+    },
+  );
 
   it("listMaterials() material 'dye' is rated at the highest level of its dyes and points to GET /api/v1/dyes", () => {
     const order = ['low', 'moderate', 'high'];
@@ -234,22 +241,25 @@ describe('resolveDot: the absorption band of custom probes', () => {
     },
   );
 
-  it('a custom probe absorbs over a band as wide in wavenumber as its emission (the mirror-image rule), within 1 %', () => {
-    const dot = custom({ absorptionPeakNm: 640 });
-    // The emission's half-maximum wavelengths are 670 ± 15 nm, so its width in wavenumber is:
-    const emissionWidthPerCm = 1e7 / 655 - 1e7 / 685;
-    const f = (nm: number) => extinctionAtNm(dot, nm) - 0.5e5;
-    const solve = (a: number, b: number) => {
-      for (let i = 0; i < 100; i++) {
-        const m = 0.5 * (a + b);
-        if (Math.sign(f(m)) === Math.sign(f(a))) a = m;
-        else b = m;
-      }
-      return a;
-    };
-    const absorptionWidthPerCm = 1e7 / solve(560, 640) - 1e7 / solve(640, 720);
-    expect(Math.abs(absorptionWidthPerCm / emissionWidthPerCm - 1)).toBeLessThan(0.01);
-  });
+  it(
+    'a custom probe absorbs over a band as wide in wavenumber as its emission (the mirror-image rule), ' + 'within 1 %',
+    () => {
+      const dot = custom({ absorptionPeakNm: 640 });
+      // The emission's half-maximum wavelengths are 670 ± 15 nm, so its width in wavenumber is:
+      const emissionWidthPerCm = 1e7 / 655 - 1e7 / 685;
+      const f = (nm: number) => extinctionAtNm(dot, nm) - 0.5e5;
+      const solve = (a: number, b: number) => {
+        for (let i = 0; i < 100; i++) {
+          const m = 0.5 * (a + b);
+          if (Math.sign(f(m)) === Math.sign(f(a))) a = m;
+          else b = m;
+        }
+        return a;
+      };
+      const absorptionWidthPerCm = 1e7 / solve(560, 640) - 1e7 / solve(640, 720);
+      expect(Math.abs(absorptionWidthPerCm / emissionWidthPerCm - 1)).toBeLessThan(0.01);
+    },
+  );
 
   it('a custom probe with a measured extinction uses it: ε at 405 nm is the table value', () => {
     const flat = {

@@ -85,15 +85,18 @@ describe('logNormalShape (Siano & Metzler 1969)', () => {
     },
   );
 
-  it('logNormalShape with ρ = 1 is the Gaussian exp(−4 ln 2 (ν̃ − ν̃₀)²/H²), and ρ = 1.0001 is within 1e-3 of it', () => {
-    const gauss = (nu: number) => Math.exp((-4 * Math.LN2 * (nu - 18000) ** 2) / 1000 ** 2);
-    for (let nu = 16000; nu <= 20000; nu += 50) {
-      expect(logNormalShape(nu, { peakPerCm: 18000, fwhmPerCm: 1000, asymmetry: 1 })).toBeCloseTo(gauss(nu), 14);
-      expect(
-        Math.abs(logNormalShape(nu, { peakPerCm: 18000, fwhmPerCm: 1000, asymmetry: 1.0001 }) - gauss(nu)),
-      ).toBeLessThan(1e-3);
-    }
-  });
+  it(
+    'logNormalShape with ρ = 1 is the Gaussian exp(−4 ln 2 (ν̃ − ν̃₀)²/H²), and ρ = 1.0001 is within 1e-3 ' + 'of it',
+    () => {
+      const gauss = (nu: number) => Math.exp((-4 * Math.LN2 * (nu - 18000) ** 2) / 1000 ** 2);
+      for (let nu = 16000; nu <= 20000; nu += 50) {
+        expect(logNormalShape(nu, { peakPerCm: 18000, fwhmPerCm: 1000, asymmetry: 1 })).toBeCloseTo(gauss(nu), 14);
+        expect(
+          Math.abs(logNormalShape(nu, { peakPerCm: 18000, fwhmPerCm: 1000, asymmetry: 1.0001 }) - gauss(nu)),
+        ).toBeLessThan(1e-3);
+      }
+    },
+  );
 });
 
 describe('logNormalBandForNm (absorption, ε(λ) = ε_peak · S(10⁷/λ))', () => {

@@ -6,6 +6,7 @@
 import type { z } from 'zod';
 import type {
   DesignResult,
+  Dye as DyeSpec,
   LotShiftSensitivity,
   Material as MaterialSpec,
   PanelEvaluation,
@@ -15,6 +16,7 @@ import { Panel } from './panel';
 import type { DesignResponse } from './design-response';
 import type { Evaluation, LotShiftJson } from './evaluation';
 import type { Material } from './responses';
+import type { Dye } from './dyes';
 
 export { LIMITS, RANGES } from './limits';
 export { ApiError, type ApiErrorCode } from './errors';
@@ -33,7 +35,9 @@ export {
   Detector,
   DetectorList,
   ResolvedDotJson,
+  ToxicityJson,
 } from './responses';
+export { Dye, DyeList, SourcedValueJson } from './dyes';
 
 /** The contract's error body. */
 export type ErrorBody = z.infer<typeof ErrorBody>;
@@ -62,6 +66,8 @@ export type EvaluationMatchesSpec = Assert<Same<z.infer<typeof Evaluation>, Pane
 export type LotShiftMatchesSpec = Assert<Same<z.infer<typeof LotShiftJson>, LotShiftSensitivity>>;
 /** A material of GET /api/v1/materials is the library's Material. */
 export type MaterialMatchesSpec = Assert<Same<z.infer<typeof Material>, MaterialSpec>>;
+/** A dye of GET /api/v1/dyes is the library's Dye. */
+export type DyeMatchesSpec = Assert<Same<z.infer<typeof Dye>, DyeSpec>>;
 /**
  * What runDesign returns is a valid design answer (the answer may also carry null where a number had no finite value).
  */

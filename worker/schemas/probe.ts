@@ -1,10 +1,13 @@
 import { z } from 'zod';
 import { RANGES } from './limits';
-import { MATERIAL_IDS } from '../../spectra/index';
+import { DYE_IDS, MATERIAL_IDS } from '../../spectra/index';
 import { fraction, identifier, ranged, text, wavelengthNm } from './fields';
 import { pointsTable } from './spectrum';
 
-/** A material id of the contract (`custom` = any other probe, described by measured data only). */
+/**
+ * A material id of the contract (`custom` = any other probe, described by measured data; `dye` = a dye of the dye
+ * library, named by `dye`).
+ */
 export const MaterialIdSchema = z.enum(MATERIAL_IDS, {
   error: `must be one of ${MATERIAL_IDS.join(', ')}`,
 });
@@ -19,13 +22,20 @@ export const dotFields = {
   quantumYield: fraction().optional(),
   measuredEmission: pointsTable(RANGES.spectralValue[1], 'emission').optional(),
   extinction: pointsTable(RANGES.extinction[1], 'extinction (M-1 cm-1)').optional(),
+  dye: identifier().optional(),
+  absorptionPeakNm: wavelengthNm().optional(),
+  extinctionPeak: ranged(RANGES.extinction[0], RANGES.extinction[1], 'M-1 cm-1').optional(),
 };
 
 interface DotLike {
   material: string;
   emissionPeakNm?: number;
   diameterNm?: number;
+  sizeDispersionPct?: number;
   measuredEmission?: unknown;
+  dye?: string;
+  absorptionPeakNm?: number;
+  extinctionPeak?: number;
 }
 
 /**
@@ -48,6 +58,40 @@ export function checkDotSize(dot: DotLike, ctx: z.RefinementCtx): void {
   else if (!hasPeak && !hasDiameter) add('is required (or diameterNm instead)', 'emissionPeakNm');
 }
 
+/** What a dye's record sets, so a dye probe does not take it. */
+const SET_BY_DYE = {
+  diameterNm: 'must not be given for dye probes (no size law)',
+  emissionPeakNm: "must not be given for dye probes: the dye's record gives the peak (measuredEmission replaces it)",
+  sizeDispersionPct: 'must not be given for dye probes (no size law)',
+  absorptionPeakNm: "must not be given for dye probes: the dye's record gives the absorption (extinction replaces it)",
+  extinctionPeak: "must not be given for dye probes: the dye's record gives the absorption (extinction replaces it)",
+} as const;
+
+/**
+ * Which fields a dot takes by its material: a `dye` probe needs `dye`, a dye id of GET /api/v1/dyes, and takes
+ * nothing its record sets; `dye` is for dye probes only, and `absorptionPeakNm` and `extinctionPeak` for custom probes
+ * only. Then the size rules of checkDotSize.
+ */
+export function checkDotFields(dot: DotLike, ctx: z.RefinementCtx): void {
+  const add = (message: string, field: string, apiCode = 'invalid_input') =>
+    ctx.addIssue({ code: 'custom', message, path: [field], params: { apiCode } });
+  if (dot.material === 'dye') {
+    if (dot.dye === undefined) add("is required for material 'dye' (a dye id of GET /api/v1/dyes)", 'dye');
+    else if (!DYE_IDS.includes(dot.dye))
+      add(`'${dot.dye}' is not a dye id; GET /api/v1/dyes lists them: ${DYE_IDS.join(', ')}`, 'dye', 'unknown_dye');
+    for (const [field, message] of Object.entries(SET_BY_DYE))
+      if (dot[field as keyof typeof SET_BY_DYE] !== undefined) add(message, field);
+    return;
+  }
+  if (dot.dye !== undefined) add("is only for material 'dye'", 'dye');
+  if (dot.material !== 'custom') {
+    for (const field of ['absorptionPeakNm', 'extinctionPeak'] as const)
+      if (dot[field] !== undefined)
+        add('is only for custom probes (this material has its own absorption model)', field);
+  }
+  checkDotSize(dot, ctx);
+}
+
 /** One probe of a panel. */
 export const Probe = z
   .strictObject({
@@ -58,4 +102,4 @@ export const Probe = z
     target: text().optional(),
     channel: identifier().optional(),
   })
-  .superRefine(checkDotSize);
+  .superRefine(checkDotFields);

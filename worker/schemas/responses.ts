@@ -26,6 +26,13 @@ export const ShareCreated = z.strictObject({ id: z.string(), url: z.string() });
 
 const range = z.tuple([z.number(), z.number()]);
 
+/** A hazard summary: a coarse level, notes and cautions (a material's, or a dye's). */
+export const ToxicityJson = z.strictObject({
+  level: z.enum(['high', 'moderate', 'low']),
+  notes: z.array(z.string()),
+  cautions: z.array(z.string()),
+});
+
 /** One material of GET /api/v1/materials (null where a material has no such quantity, e.g. carbon dots' size). */
 export const Material = z.strictObject({
   id: MaterialIdSchema,
@@ -45,11 +52,7 @@ export const Material = z.strictObject({
   typicalSizeDispersionPct: z.number().nullable(),
   typicalHydrodynamicDiameterNm: z.number().nullable(),
   sizingModel: z.string(),
-  toxicity: z.strictObject({
-    level: z.enum(['high', 'moderate', 'low']),
-    notes: z.array(z.string()),
-    cautions: z.array(z.string()),
-  }),
+  toxicity: ToxicityJson,
   warnings: z.array(z.string()),
   sources: z.array(z.string()),
 });
