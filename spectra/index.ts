@@ -74,7 +74,23 @@ export {
   peakNmOfLine,
   sampleGaussianLine,
 } from './dot/lineshape';
+export {
+  logNormalBandForNm,
+  logNormalEmissionBand,
+  logNormalShape,
+  sampleLogNormalLine,
+  type LogNormalBand,
+} from './dot/lognormal';
 export { intrinsicExtinction, sampleExtinction, type AbsorptionModel } from './dot/absorption';
+export { DYE_IDS, listDyes } from './dot/dyes/catalog';
+export {
+  DYE_KINDS,
+  VALUE_STATUSES,
+  type Dye,
+  type DyeKind,
+  type SourcedValue,
+  type ValueStatus,
+} from './dot/dyes/types';
 export { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from './dot/resolve';
 
 // The light path: filters, detectors, sample background.

@@ -24,6 +24,8 @@ const COMPONENTS: [string, z.ZodType][] = [
   ['MaterialList', schemas.MaterialList],
   ['DetectorList', schemas.DetectorList],
   ['BackgroundPresetList', schemas.BackgroundPresetList],
+  ['Dye', schemas.Dye],
+  ['DyeList', schemas.DyeList],
 ];
 
 const ref = (name: string): Json => ({ $ref: `#/components/schemas/${name}` });
@@ -88,6 +90,10 @@ export function openApiDocument(): Json {
       '/api/v1/backgrounds': get(
         'autofluorescence presets by sample type: bands, sources, what level means, cautions',
         json(ref('BackgroundPresetList'), 'ok'),
+      ),
+      '/api/v1/dyes': get(
+        'dyes, counterstains and fluorescent proteins, each number with its source and status',
+        json(ref('DyeList'), 'ok'),
       ),
       '/api/v1/dots/resolve': post('one dot: size, peak, spectrum', 'DotRequest', {
         '200': json(ref('ResolvedDot'), 'ok'),

@@ -3,7 +3,13 @@
  * API's error codes; `path` names the offending field (as in the API contract's error shape) where there is one.
  */
 export type SpectraErrorCode =
-  'invalid_input' | 'out_of_range' | 'unknown_material' | 'invalid_table' | 'unknown_detector' | 'unknown_channel';
+  | 'invalid_input'
+  | 'out_of_range'
+  | 'unknown_material'
+  | 'invalid_table'
+  | 'unknown_detector'
+  | 'unknown_channel'
+  | 'unknown_dye';
 
 export class SpectraError extends Error {
   readonly code: SpectraErrorCode;

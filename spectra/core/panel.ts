@@ -4,8 +4,11 @@
  * validates with the same schema; the spectral library takes checked panels and knows nothing of zod or HTTP.
  */
 
-/** Material ids of the API contract. `custom` is any other probe, described only by measured spectra. */
-export const MATERIAL_IDS = ['cdse', 'cdte', 'cds', 'inp', 'gaas', 'cspbbr3', 'carbon', 'custom'] as const;
+/**
+ * Material ids of the API contract. `custom` is any other probe, described by measured spectra; `dye` is a dye,
+ * counterstain or fluorescent protein of the dye library, named by the probe's `dye`.
+ */
+export const MATERIAL_IDS = ['cdse', 'cdte', 'cds', 'inp', 'gaas', 'cspbbr3', 'carbon', 'custom', 'dye'] as const;
 export type MaterialId = (typeof MATERIAL_IDS)[number];
 
 /** Shell materials a core/shell probe's layers may be made of (`silica`: a non-epitaxial encapsulation). */
@@ -57,6 +60,12 @@ export interface ProbeSpec {
   measuredEmission?: { points: SpectrumPoints };
   /** Replaces the model's absorption, in M⁻¹ cm⁻¹. */
   extinction?: { points: SpectrumPoints };
+  /** The id of a dye of the dye library (material `dye` only). */
+  dye?: string;
+  /** Absorption peak of a custom probe's modelled band, nm. */
+  absorptionPeakNm?: number;
+  /** Molar extinction at the peak of a custom probe's modelled band, M⁻¹ cm⁻¹. */
+  extinctionPeak?: number;
 }
 
 /** The fields that describe one dot (a probe's own fields, without its place in a panel). */
@@ -71,6 +80,9 @@ export const DOT_INPUT_FIELDS = [
   'quantumYield',
   'measuredEmission',
   'extinction',
+  'dye',
+  'absorptionPeakNm',
+  'extinctionPeak',
 ] as const satisfies readonly (keyof ProbeSpec)[];
 
 /**

@@ -1,6 +1,7 @@
 import { AVOGADRO_PER_MOL, GAUSSIAN_FWHM_PER_SIGMA, HC_EV_NM } from '../core/constants';
 import type { SampledSpectrum, WavelengthGrid } from '../core/grid';
 import { interpolateTable } from '../core/grid';
+import { logNormalShape, nmToPerCm, type LogNormalBand } from './lognormal';
 
 /**
  * Absorption of one probe as molar extinction ε(λ), M⁻¹ cm⁻¹ per mole of particles. Approximate by design; a measured
@@ -10,7 +11,8 @@ import { interpolateTable } from '../core/grid';
  *   volume-scaled intrinsic value at 350 nm (Hens & Moreels, J. Mater. Chem. 2012; Leatherdale et al., J. Phys. Chem. B
  *   2002), switched on smoothly (smoothstep over 3σ) so that ε at the first exciton equals the first-exciton ε.
  * - 'tail' (carbon dots): ε350 · exp(−(λ − 350)/decay).
- * - 'flat' (custom probes without data): a nominal ε at λ ≤ untilNm, zero above.
+ * - 'lognormal' (dyes, and custom probes without a measured extinction): ε_peak · S(10⁷/λ), the log-normal band of
+ *   Siano & Metzler, J. Chem. Phys. 1969 (lognormal.ts).
  * - 'table' (measured): linear interpolation, zero outside the table.
  */
 export type AbsorptionModel =
@@ -24,7 +26,7 @@ export type AbsorptionModel =
       shells?: ShellAbsorptionPart[];
     }
   | { type: 'tail'; epsilonAt350: number; decayNm: number }
-  | { type: 'flat'; epsilon: number; untilNm: number }
+  | { type: 'lognormal'; band: LogNormalBand; peakEpsilon: number }
   | { type: 'table'; points: readonly (readonly [number, number])[] };
 
 /** One shell layer's absorption: its volume and the intrinsic absorption of its material (shells/materials.ts). */
@@ -87,8 +89,8 @@ export function modelExtinctionAtNm(model: AbsorptionModel, wavelengthNm: number
     }
     case 'tail':
       return model.epsilonAt350 * Math.exp(-(wavelengthNm - 350) / model.decayNm);
-    case 'flat':
-      return wavelengthNm <= model.untilNm ? model.epsilon : 0;
+    case 'lognormal':
+      return model.peakEpsilon * logNormalShape(nmToPerCm(wavelengthNm), model.band);
     case 'table':
       return interpolateTable(model.points, wavelengthNm, 0);
   }

@@ -6,8 +6,16 @@ function crossingIndex(v: number[], half: number, a: number, b: number): number 
   return v[a] === v[b] ? a : a + ((half - v[a]) / (v[b] - v[a])) * (b - a);
 }
 
-/** Peak wavelength (parabolic refinement around the largest sample) and FWHM (linear half-maximum crossings), nm. */
-export function peakAndFwhmNm(s: SampledSpectrum): { peakNm: number; fwhmNm: number; truncated: boolean } {
+/**
+ * Peak wavelength (parabolic refinement around the largest sample), FWHM and the two half-maximum wavelengths (linear
+ * crossings), nm.
+ */
+export function peakAndFwhmNm(s: SampledSpectrum): {
+  peakNm: number;
+  fwhmNm: number;
+  halfMaxNm: [number, number];
+  truncated: boolean;
+} {
   const v = s.values;
   let k = 0;
   for (let i = 1; i < v.length; i++) if (v[i] > v[k]) k = i;
@@ -24,7 +32,12 @@ export function peakAndFwhmNm(s: SampledSpectrum): { peakNm: number; fwhmNm: num
   const truncated = v[left] > half || v[right] > half;
   const leftIdx = v[left] > half ? left : crossingIndex(v, half, left, left + 1);
   const rightIdx = v[right] > half ? right : crossingIndex(v, half, right - 1, right);
-  return { peakNm: s.startNm + (k + offset) * s.stepNm, fwhmNm: (rightIdx - leftIdx) * s.stepNm, truncated };
+  return {
+    peakNm: s.startNm + (k + offset) * s.stepNm,
+    fwhmNm: (rightIdx - leftIdx) * s.stepNm,
+    halfMaxNm: [s.startNm + leftIdx * s.stepNm, s.startNm + rightIdx * s.stepNm],
+    truncated,
+  };
 }
 
 /**
@@ -49,10 +62,10 @@ export function resampleMeasuredEmission(points: Table, grid: WavelengthGrid, pa
     throw new SpectraError('invalid_table', 'measured emission has no positive value on the wavelength grid', path);
   for (let i = 0; i < values.length; i++) values[i] /= sum * grid.stepNm;
   const spectrum: SampledSpectrum = { startNm: grid.startNm, stepNm: grid.stepNm, values };
-  const { peakNm, fwhmNm, truncated } = peakAndFwhmNm(spectrum);
+  const { peakNm, fwhmNm, halfMaxNm, truncated } = peakAndFwhmNm(spectrum);
   if (truncated)
     warnings.push(
       'Measured emission does not fall to half maximum on both sides within the grid: its FWHM is a lower bound.',
     );
-  return { spectrum, peakNm, fwhmNm, warnings };
+  return { spectrum, peakNm, fwhmNm, halfMaxNm, warnings };
 }

@@ -6,10 +6,18 @@ import type { DotInput, ShellLayer } from '../core/panel';
 import { CARBON_EMISSION_RANGE_NM, CARBON_EXCITATION_MODEL, carbonEmissionPeakNm } from './sizing/carbon';
 import {
   CARBON_ABSORPTION,
-  CUSTOM_NOMINAL_EXTINCTION,
+  CUSTOM_ABSORPTION,
   FIRST_EXCITON_SHARE,
   INTRINSIC_350NM_PER_CM,
 } from './materials/intrinsic';
+import { getDye } from './dyes/catalog';
+import {
+  NOMINAL_ABSORPTION_ASYMMETRY,
+  logNormalBandForNm,
+  logNormalEmissionBand,
+  nmToPerCm,
+  type LogNormalBand,
+} from './lognormal';
 import { CDSE_JASIENIAK_2009, SIZE_LAWS, sizeLawFor } from './sizing/laws';
 import type { SizedMaterialId } from './materials/params';
 import { RECORDS } from './materials/records';
@@ -28,8 +36,10 @@ export interface ModelPart {
   firstExcitonNm: number | null;
   /** The model's emission peak, nm (null for custom probes, which only have measured data). */
   peakNm: number | null;
-  /** Emission FWHM in energy, eV (null for custom probes). */
+  /** Emission FWHM in energy, eV, of the Gaussian line (null for custom probes and dyes). */
   fwhmEv: number | null;
+  /** A dye's log-normal emission band and its per-nm FWHM, nm (in place of the Gaussian line). */
+  emissionBand?: { band: LogNormalBand; fwhmNm: number };
   model: string;
   typicalQuantumYield: number;
   warnings: string[];
@@ -198,8 +208,16 @@ export function resolveCarbon(dot: DotInput, measuredPeakNm: number | undefined)
   };
 }
 
-/** Custom probes: measured emission required; nominal flat absorption unless a measured extinction is given. */
-export function resolveCustom(dot: DotInput, measured: { peakNm: number } | null): ModelPart {
+/**
+ * Custom probes: measured emission required. Without a measured extinction the absorption is a log-normal band
+ * (lognormal.ts) at absorptionPeakNm with peak ε extinctionPeak, as wide in energy as the measured emission (the
+ * mirror-image rule, common practice; Lakowicz, Principles of Fluorescence Spectroscopy 2006, M); without those
+ * fields, at the emission peak less a nominal Stokes shift and with a nominal ε (CUSTOM_ABSORPTION), with a warning.
+ */
+export function resolveCustom(
+  dot: DotInput,
+  measured: { peakNm: number; halfMaxNm: [number, number] } | null,
+): ModelPart {
   if (!measured)
     throw new SpectraError('invalid_input', 'custom probes need measuredEmission (points of [nm, value])', [
       'measuredEmission',
@@ -209,6 +227,28 @@ export function resolveCustom(dot: DotInput, measured: { peakNm: number } | null
     warnings.push('emissionPeakNm is ignored for custom probes: the peak is read from the measured emission.');
   if (dot.quantumYield === undefined)
     warnings.push(`quantumYield not given: a placeholder of ${RECORDS.custom.typicalQuantumYield} is assumed.`);
+  if (dot.extinction !== undefined && (dot.absorptionPeakNm !== undefined || dot.extinctionPeak !== undefined))
+    warnings.push('absorptionPeakNm and extinctionPeak are not used: the measured extinction replaces the band.');
+  const { stokesShiftPerCm, extinctionPeak: nominalEpsilon } = CUSTOM_ABSORPTION;
+  const peakNm = dot.absorptionPeakNm ?? nmToPerCm(nmToPerCm(measured.peakNm) + stokesShiftPerCm);
+  const peakEpsilon = dot.extinctionPeak ?? nominalEpsilon;
+  const [blueNm, redNm] = measured.halfMaxNm;
+  const band = {
+    peakPerCm: nmToPerCm(peakNm),
+    fwhmPerCm: nmToPerCm(blueNm) - nmToPerCm(redNm),
+    asymmetry: NOMINAL_ABSORPTION_ASYMMETRY,
+  };
+  if (peakNm >= measured.peakNm)
+    warnings.push(
+      `The absorption band peaks at ${peakNm.toFixed(1)} nm, not below the emission peak ` +
+        `(${measured.peakNm.toFixed(1)} nm); it is used as given.`,
+    );
+  const defaults = [
+    dot.absorptionPeakNm === undefined
+      ? `at ${peakNm.toFixed(1)} nm, the emission peak less a nominal Stokes shift of ${stokesShiftPerCm} cm⁻¹`
+      : null,
+    dot.extinctionPeak === undefined ? `with a nominal peak ε of ${nominalEpsilon.toExponential(0)} M⁻¹ cm⁻¹` : null,
+  ].filter((x) => x !== null);
   return {
     diameterNm: null,
     overallDiameterNm: null,
@@ -219,10 +259,60 @@ export function resolveCustom(dot: DotInput, measured: { peakNm: number } | null
     model: 'measured',
     typicalQuantumYield: RECORDS.custom.typicalQuantumYield,
     warnings,
-    // A custom probe's emission peak is the measured one.
-    absorption: { type: 'flat', epsilon: CUSTOM_NOMINAL_EXTINCTION, untilNm: measured.peakNm },
+    absorption: { type: 'lognormal', band, peakEpsilon },
     absorptionWarning:
-      `No measured extinction: a flat nominal ${CUSTOM_NOMINAL_EXTINCTION.toExponential(0)} M⁻¹ ` +
-      `cm⁻¹ below the emission peak is assumed.`,
+      defaults.length === 0
+        ? null
+        : `No measured extinction: a log-normal absorption band as wide as the emission is modelled ` +
+          `${defaults.join(' and ')} (from memory, unverified); give absorptionPeakNm and extinctionPeak, or a ` +
+          'measured extinction, where brightness matters.',
+  };
+}
+
+/**
+ * Dyes, counterstains and fluorescent proteins of the dye library: log-normal emission and absorption bands from the
+ * dye's record; fwhmNm and quantumYield on the probe override the record (a measured emission or extinction replaces
+ * the bands in resolveDot).
+ */
+export function resolveDye(dot: DotInput): ModelPart {
+  if (dot.dye === undefined)
+    throw new SpectraError('invalid_input', 'dye probes need dye, the id of a dye of the library (GET /api/v1/dyes)', [
+      'dye',
+    ]);
+  const dye = getDye(dot.dye);
+  const peakNm = dye.emissionPeakNm.value;
+  const fwhmNm = dot.fwhmNm ?? dye.emissionFwhmNm.value;
+  const band = logNormalEmissionBand(peakNm, fwhmNm, dye.emissionAsymmetry.value);
+  if (band === null)
+    throw new SpectraError(
+      'out_of_range',
+      `an emission FWHM of ${fwhmNm} nm is out of reach for a band peaked at ${peakNm} nm`,
+      ['fwhmNm'],
+    );
+  const warnings = [`${dye.name}: values for ${dye.conditions}; other conditions move peaks, ε and quantum yield.`];
+  const ignored = (['emissionPeakNm', 'diameterNm', 'sizeDispersionPct'] as const).filter((f) => dot[f] !== undefined);
+  if (ignored.length > 0) warnings.push(`${ignored.join(', ')} ignored for dyes: the dye's record sets the bands.`);
+  const numbers = [dye.absorptionPeakNm, dye.emissionPeakNm, dye.extinctionPeak, dye.quantumYield];
+  if (numbers.some((n) => n.status === 'M'))
+    warnings.push('Some of its numbers are from memory, unverified: GET /api/v1/dyes gives each source and status.');
+  const absorption = logNormalBandForNm(
+    dye.absorptionPeakNm.value,
+    dye.absorptionFwhmNm.value,
+    dye.absorptionAsymmetry.value,
+  );
+  return {
+    diameterNm: null,
+    overallDiameterNm: null,
+    hydrodynamicDiameterNm: null,
+    firstExcitonNm: null,
+    peakNm,
+    fwhmEv: null,
+    emissionBand: { band, fwhmNm },
+    model: `dye library: ${dye.id} (log-normal bands, Siano & Metzler 1969)`,
+    typicalQuantumYield: dye.quantumYield.value,
+    warnings,
+    absorption: { type: 'lognormal', band: absorption, peakEpsilon: dye.extinctionPeak.value },
+    absorptionWarning:
+      'The absorption is one log-normal band: bands further in the UV, which most dyes have, are not modelled.',
   };
 }

@@ -9,7 +9,8 @@ import { modelExtinctionAtNm, type AbsorptionModel } from './absorption';
 import { centerEvForPeakNm, fwhmNmOfLine, sampleGaussianLine } from './lineshape';
 import { resampleMeasuredEmission } from './measured';
 import { cutEmissionAtLine } from './line-cut';
-import { resolveCarbon, resolveCustom, resolveSized, type ModelPart } from './model';
+import { sampleLogNormalLine } from './lognormal';
+import { resolveCarbon, resolveCustom, resolveDye, resolveSized, type ModelPart } from './model';
 import { isSizedMaterial } from './sizing/sizing';
 
 /** The scalar fields of a resolved probe (what the API reports for one dot, besides its spectra). */
@@ -81,7 +82,9 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
     ? resolveSized(material, input, measuredEm?.peakNm)
     : material === 'carbon'
       ? resolveCarbon(input, measuredEm?.peakNm)
-      : resolveCustom(input, measuredEm);
+      : material === 'dye'
+        ? resolveDye(input)
+        : resolveCustom(input, measuredEm);
   const warnings = [...part.warnings, ...(measuredEm?.warnings ?? [])];
 
   let emission: SampledSpectrum;
@@ -99,8 +102,10 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
       );
     }
   } else {
-    const centerEv = centerEvForPeakNm(part.peakNm!, part.fwhmEv!);
-    const line = sampleGaussianLine(grid, centerEv, part.fwhmEv!);
+    // A dye's log-normal band, or the dots' Gaussian line in energy.
+    const band = part.emissionBand;
+    const centerEv = band ? null : centerEvForPeakNm(part.peakNm!, part.fwhmEv!);
+    const line = band ? sampleLogNormalLine(grid, band.band) : sampleGaussianLine(grid, centerEv!, part.fwhmEv!);
     if (line.areaOnGrid < 0.99) {
       warnings.push(
         `Only ${(100 * line.areaOnGrid).toFixed(1)} % of the emission lies on the wavelength grid; the spectrum is ` +
@@ -110,7 +115,7 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
     emission = line.spectrum;
     emissionFrom = line.from;
     emissionPeakNm = part.peakNm!;
-    fwhmNm = fwhmNmOfLine(centerEv, part.fwhmEv!);
+    fwhmNm = band ? band.fwhmNm : fwhmNmOfLine(centerEv!, part.fwhmEv!);
   }
 
   let emissionCutFraction: number | null = null;
@@ -143,7 +148,10 @@ export function resolveDot(input: DotInput, options: { grid?: WavelengthGrid } =
     extinctionAtExcitation:
       input.excitationNm === undefined ? null : modelExtinctionAtNm(absorption, input.excitationNm),
     emissionCutFraction,
-    model: measuredEm && material !== 'custom' ? `measured emission; size by ${part.model}` : part.model,
+    model:
+      !measuredEm || material === 'custom'
+        ? part.model
+        : `measured emission; ${material === 'dye' ? '' : 'size by '}${part.model}`,
     measured: { emission: measuredEm !== null, extinction: measuredExtinction !== undefined },
     warnings,
     grid,

@@ -33,6 +33,7 @@ const GET_ROUTES = [
   '/api/v1/materials',
   '/api/v1/detectors',
   '/api/v1/backgrounds',
+  '/api/v1/dyes',
   '/api/v1/openapi.json',
 ];
 

@@ -147,7 +147,7 @@ describe('resolveDot: measured data first', () => {
     expect(dot.fwhmNm).toBeCloseTo(30, 0);
     expect(area(dot)).toBeCloseTo(1, 10);
     expect([dot.model, dot.measured.emission, dot.measured.extinction]).toEqual(['measured', true, false]);
-    expect(dot.warnings.join(' ')).toMatch(/flat nominal/);
+    expect(dot.warnings.join(' ')).toMatch(/log-normal absorption band .* nominal Stokes shift .* nominal peak ε/);
   });
 
   it('resolveDot(cdse) with a measured emission and no size input sizes the core from the measured peak', () => {

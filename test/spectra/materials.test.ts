@@ -41,14 +41,19 @@ describe('listMaterials', () => {
     expect(material('cspbbr3').sizeMeaning).toMatch(/cube edge/);
   });
 
-  it('listMaterials() has null size fields for carbon and custom, and null emission range only for custom', () => {
-    expect([
-      material('carbon').diameterRangeNm,
-      material('custom').diameterRangeNm,
-      material('custom').emissionRangeNm,
-    ]).toEqual([null, null, null]);
-    expect(material('carbon').emissionRangeNm).not.toBeNull();
-  });
+  it(
+    'listMaterials() has null size fields for carbon, custom and dye, and null emission ranges for custom and ' + 'dye',
+    () => {
+      expect([
+        material('carbon').diameterRangeNm,
+        material('custom').diameterRangeNm,
+        material('dye').diameterRangeNm,
+        material('custom').emissionRangeNm,
+        material('dye').emissionRangeNm,
+      ]).toEqual([null, null, null, null, null]);
+      expect(material('carbon').emissionRangeNm).not.toBeNull();
+    },
+  );
 
   it.each(['cdse', 'cdte', 'cds'])('material(%s) is high, cadmium IARC Group 1', (id) => {
     const m = material(id);

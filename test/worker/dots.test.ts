@@ -38,7 +38,17 @@ describe('GET /api/v1/materials', () => {
     const res = await worker.call('/api/v1/materials');
     expect(res.status).toBe(200);
     const { materials } = (await res.json()) as { materials: any[] };
-    expect(materials.map((m) => m.id)).toEqual(['cdse', 'cdte', 'cds', 'inp', 'gaas', 'cspbbr3', 'carbon', 'custom']);
+    expect(materials.map((m) => m.id)).toEqual([
+      'cdse',
+      'cdte',
+      'cds',
+      'inp',
+      'gaas',
+      'cspbbr3',
+      'carbon',
+      'custom',
+      'dye',
+    ]);
     expect(materials).toEqual(JSON.parse(JSON.stringify(listMaterials())));
   });
 

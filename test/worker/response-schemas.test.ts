@@ -7,6 +7,7 @@ import {
   BackgroundPresetList,
   DesignResponse,
   DetectorList,
+  DyeList,
   ErrorBody,
   Evaluation,
   Health,
@@ -44,12 +45,13 @@ const line405 = [{ wavelengthNm: 405 }];
 const bandpass = (id: string, centerNm: number) => ({ id, filters: [{ type: 'bandpass', centerNm, widthNm: 20 }] });
 
 describe('GET routes', () => {
-  it('GET /api/v1/health, /materials and /detectors answer bodies their schemas accept', async () => {
+  it('GET /api/v1/health, /materials, /detectors and /dyes answer bodies their schemas accept', async () => {
     expectValid(Health, await bodyOf(await worker.call('/api/v1/health'), 200), 'health');
     const materials = expectValid(MaterialList, await bodyOf(await worker.call('/api/v1/materials'), 200), 'materials');
     // Carbon dots have no size law: the nullable range is exercised, not only allowed.
     expect(materials.materials.find((m) => m.id === 'carbon')?.diameterRangeNm).toBeNull();
     expectValid(DetectorList, await bodyOf(await worker.call('/api/v1/detectors'), 200), 'detectors');
+    expectValid(DyeList, await bodyOf(await worker.call('/api/v1/dyes'), 200), 'dyes');
   });
 
   it('GET /api/v1/backgrounds answers a body BackgroundPresetList accepts', async () => {
@@ -70,6 +72,7 @@ describe('POST /api/v1/dots/resolve', () => {
       { material: 'cdse', diameterNm: 4, excitationNm: 405, grid: { startNm: 400, endNm: 800, stepNm: 0.5 } },
     ],
     ['a carbon dot', { material: 'carbon', emissionPeakNm: 480, fwhmNm: 90, excitationNm: 405 }],
+    ['a dye of the library', { material: 'dye', dye: 'mcherry', excitationNm: 561 }],
     [
       'a custom probe from measured emission',
       {

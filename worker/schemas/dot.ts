@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { gridPointCount } from '../../spectra/index';
 import { LIMITS } from './limits';
 import { ranged, wavelengthNm } from './fields';
-import { checkDotSize, dotFields } from './probe';
+import { checkDotFields, dotFields } from './probe';
 
 /** A wavelength grid for a returned spectrum: at most LIMITS.gridPoints samples. */
 export const Grid = z
@@ -33,7 +33,7 @@ export const DotRequest = z
     excitationNm: wavelengthNm().optional(),
     grid: Grid.optional(),
   })
-  .superRefine(checkDotSize);
+  .superRefine(checkDotFields);
 
 /** A sampled spectrum in a response: values at startNm + i × stepNm. */
 export const SampledSpectrumJson = z.strictObject({

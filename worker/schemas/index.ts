@@ -7,6 +7,7 @@ import type { z } from 'zod';
 import type {
   BackgroundPresetList as BackgroundPresetListSpec,
   DesignResult,
+  Dye as DyeSpec,
   LotShiftSensitivity,
   Material as MaterialSpec,
   PanelEvaluation,
@@ -16,6 +17,7 @@ import { Panel } from './panel';
 import type { DesignResponse } from './design-response';
 import type { Evaluation, LotShiftJson } from './evaluation';
 import type { BackgroundPresetList, Material } from './responses';
+import type { Dye } from './dyes';
 
 export { LIMITS, RANGES } from './limits';
 export { ApiError, type ApiErrorCode } from './errors';
@@ -37,7 +39,9 @@ export {
   BackgroundBandJson,
   BackgroundPresetList,
   ResolvedDotJson,
+  ToxicityJson,
 } from './responses';
+export { Dye, DyeList, SourcedValueJson } from './dyes';
 
 /** The contract's error body. */
 export type ErrorBody = z.infer<typeof ErrorBody>;
@@ -70,6 +74,8 @@ export type MaterialMatchesSpec = Assert<Same<z.infer<typeof Material>, Material
 export type BackgroundPresetListMatchesSpec = Assert<
   Same<z.infer<typeof BackgroundPresetList>, BackgroundPresetListSpec>
 >;
+/** A dye of GET /api/v1/dyes is the library's Dye. */
+export type DyeMatchesSpec = Assert<Same<z.infer<typeof Dye>, DyeSpec>>;
 /**
  * What runDesign returns is a valid design answer (the answer may also carry null where a number had no finite value).
  */

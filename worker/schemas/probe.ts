@@ -1,11 +1,14 @@
 import { z } from 'zod';
 import { RANGES } from './limits';
 import { LIMITS } from './limits';
-import { MATERIAL_IDS, SHELL_MATERIAL_IDS, SIZING_MODELS, isSizedMaterial } from '../../spectra/index';
+import { DYE_IDS, MATERIAL_IDS, SHELL_MATERIAL_IDS, SIZING_MODELS, isSizedMaterial } from '../../spectra/index';
 import { fraction, identifier, ranged, text, wavelengthNm } from './fields';
 import { pointsTable } from './spectrum';
 
-/** A material id of the contract (`custom` = any other probe, described by measured data only). */
+/**
+ * A material id of the contract (`custom` = any other probe, described by measured data; `dye` = a dye of the dye
+ * library, named by `dye`).
+ */
 export const MaterialIdSchema = z.enum(MATERIAL_IDS, {
   error: `must be one of ${MATERIAL_IDS.join(', ')}`,
 });
@@ -33,15 +36,22 @@ export const dotFields = {
   quantumYield: fraction().optional(),
   measuredEmission: pointsTable(RANGES.spectralValue[1], 'emission').optional(),
   extinction: pointsTable(RANGES.extinction[1], 'extinction (M-1 cm-1)').optional(),
+  dye: identifier().optional(),
+  absorptionPeakNm: wavelengthNm().optional(),
+  extinctionPeak: ranged(RANGES.extinction[0], RANGES.extinction[1], 'M-1 cm-1').optional(),
 };
 
 interface DotLike {
   material: string;
   emissionPeakNm?: number;
   diameterNm?: number;
+  sizeDispersionPct?: number;
   measuredEmission?: unknown;
   shell?: unknown[];
   sizingModel?: string;
+  dye?: string;
+  absorptionPeakNm?: number;
+  extinctionPeak?: number;
 }
 
 /**
@@ -51,10 +61,6 @@ interface DotLike {
 export function checkDotSize(dot: DotLike, ctx: z.RefinementCtx): void {
   const add = (message: string, field: string) =>
     ctx.addIssue({ code: 'custom', message, path: [field], params: { apiCode: 'invalid_input' } });
-  if (dot.shell !== undefined && dot.shell.length > 0 && !isSizedMaterial(dot.material))
-    add(`must not be given for ${dot.material} probes: only dots with a size law take a shell`, 'shell');
-  if (dot.sizingModel !== undefined && dot.material !== 'cdse')
-    add('is a choice for CdSe only (the other materials have one sizing curve)', 'sizingModel');
   if (dot.material === 'custom') {
     if (dot.measuredEmission === undefined) add("is required for material 'custom'", 'measuredEmission');
     if (dot.diameterNm !== undefined) add('must not be given for custom probes (they have no size law)', 'diameterNm');
@@ -68,6 +74,45 @@ export function checkDotSize(dot: DotLike, ctx: z.RefinementCtx): void {
   else if (!hasPeak && !hasDiameter) add('is required (or diameterNm instead)', 'emissionPeakNm');
 }
 
+/** What a dye's record sets, so a dye probe does not take it. */
+const SET_BY_DYE = {
+  diameterNm: 'must not be given for dye probes (no size law)',
+  emissionPeakNm: "must not be given for dye probes: the dye's record gives the peak (measuredEmission replaces it)",
+  sizeDispersionPct: 'must not be given for dye probes (no size law)',
+  absorptionPeakNm: "must not be given for dye probes: the dye's record gives the absorption (extinction replaces it)",
+  extinctionPeak: "must not be given for dye probes: the dye's record gives the absorption (extinction replaces it)",
+} as const;
+
+/**
+ * Which fields a dot takes by its material: only dots with a size law take `shell`, only CdSe `sizingModel`; a `dye`
+ * probe needs `dye`, a dye id of GET /api/v1/dyes, and takes
+ * nothing its record sets; `dye` is for dye probes only, and `absorptionPeakNm` and `extinctionPeak` for custom probes
+ * only. Then the size rules of checkDotSize.
+ */
+export function checkDotFields(dot: DotLike, ctx: z.RefinementCtx): void {
+  const add = (message: string, field: string, apiCode = 'invalid_input') =>
+    ctx.addIssue({ code: 'custom', message, path: [field], params: { apiCode } });
+  if (dot.shell !== undefined && dot.shell.length > 0 && !isSizedMaterial(dot.material))
+    add(`must not be given for ${dot.material} probes: only dots with a size law take a shell`, 'shell');
+  if (dot.sizingModel !== undefined && dot.material !== 'cdse')
+    add('is a choice for CdSe only (the other materials have one sizing curve)', 'sizingModel');
+  if (dot.material === 'dye') {
+    if (dot.dye === undefined) add("is required for material 'dye' (a dye id of GET /api/v1/dyes)", 'dye');
+    else if (!DYE_IDS.includes(dot.dye))
+      add(`'${dot.dye}' is not a dye id; GET /api/v1/dyes lists them: ${DYE_IDS.join(', ')}`, 'dye', 'unknown_dye');
+    for (const [field, message] of Object.entries(SET_BY_DYE))
+      if (dot[field as keyof typeof SET_BY_DYE] !== undefined) add(message, field);
+    return;
+  }
+  if (dot.dye !== undefined) add("is only for material 'dye'", 'dye');
+  if (dot.material !== 'custom') {
+    for (const field of ['absorptionPeakNm', 'extinctionPeak'] as const)
+      if (dot[field] !== undefined)
+        add('is only for custom probes (this material has its own absorption model)', field);
+  }
+  checkDotSize(dot, ctx);
+}
+
 /** One probe of a panel. */
 export const Probe = z
   .strictObject({
@@ -78,4 +123,4 @@ export const Probe = z
     target: text().optional(),
     channel: identifier().optional(),
   })
-  .superRefine(checkDotSize);
+  .superRefine(checkDotFields);

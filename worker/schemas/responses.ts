@@ -30,8 +30,8 @@ const range = z.tuple([z.number(), z.number()]);
 
 const ShellMaterialIdSchema = z.enum(SHELL_MATERIAL_IDS);
 
-/** A hazard summary: a coarse level, notes with sources, cautions that defer to local rules. */
-const Toxicity = z.strictObject({
+/** A hazard summary: a coarse level, notes and cautions (a material's, a shell's or a dye's). */
+export const ToxicityJson = z.strictObject({
   level: z.enum(['high', 'moderate', 'low']),
   notes: z.array(z.string()),
   cautions: z.array(z.string()),
@@ -60,7 +60,7 @@ export const Material = z.strictObject({
   illustrative: z.boolean(),
   typicalShell: z.array(z.strictObject({ material: ShellMaterialIdSchema, thicknessNm: z.number() })).nullable(),
   typicalShellEmissionRangeNm: range.nullable(),
-  toxicity: Toxicity,
+  toxicity: ToxicityJson,
   warnings: z.array(z.string()),
   sources: z.array(z.string()),
 });
@@ -76,7 +76,7 @@ export const ShellMaterialJson = z.strictObject({
   valenceBandEv: z.number(),
   monolayerNm: z.number(),
   intrinsicHalfEvPerCm: z.number(),
-  toxicity: Toxicity,
+  toxicity: ToxicityJson,
   sources: z.array(z.string()),
 });
 

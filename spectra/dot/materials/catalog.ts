@@ -41,7 +41,9 @@ function build(id: MaterialId): Material {
     sizeMeaning:
       id === 'carbon'
         ? 'no size law: carbon dots are described by their emission peak'
-        : 'no size law: described by measured spectra',
+        : id === 'dye'
+          ? "no size law: a dye of the dye library, named by the probe's dye field"
+          : 'no size law: described by measured spectra',
     diameterRangeNm: null,
     emissionRangeNm: id === 'carbon' ? [...CARBON_EMISSION_RANGE_NM] : null,
     bulkBandGapEv: null,
@@ -49,7 +51,12 @@ function build(id: MaterialId): Material {
     holeMassRel: null,
     dielectricConstant: null,
     bohrRadiusNm: null,
-    sizingModel: id === 'carbon' ? 'no size law (emission peak given; approximate excitation dependence)' : 'measured',
+    sizingModel:
+      id === 'carbon'
+        ? 'no size law (emission peak given; approximate excitation dependence)'
+        : id === 'dye'
+          ? 'dye library: log-normal absorption and emission bands (Siano & Metzler 1969)'
+          : 'measured',
     sizingModels: [],
     illustrative: false,
     typicalShell: null,

@@ -11,7 +11,7 @@ import type { MaterialId } from '../../core/panel';
  * `firstExcitonShare` is the first-exciton ε as a share of ε(350 nm) for materials without a published law:
  * 0.2, from the CdSe figures at 4 nm (5857·4^2.65 ≈ 2.3e5 over ≈ 1.15e6; C, by analogy; unverified for them).
  */
-export const INTRINSIC_350NM_PER_CM: Record<Exclude<MaterialId, 'carbon' | 'custom'>, number> = {
+export const INTRINSIC_350NM_PER_CM: Record<Exclude<MaterialId, 'carbon' | 'custom' | 'dye'>, number> = {
   cdse: 5.501e5 / ((4 * Math.PI) / 3),
   cdte: 1.8e5,
   cds: 1.1e5,
@@ -31,7 +31,10 @@ export const FIRST_EXCITON_SHARE = 0.2;
 export const CARBON_ABSORPTION = { epsilonAt350: 1e5, decayNm: 60 } as const;
 
 /**
- * Custom probes without a measured extinction: flat 1e5 M⁻¹ cm⁻¹ at wavelengths below the measured emission peak and
- * zero above it (the order of magnitude of bright organic dyes, common practice), always with a warning.
+ * Custom probes without a measured extinction get a log-normal absorption band (lognormal.ts). Without
+ * absorptionPeakNm it peaks a nominal Stokes shift of 800 cm⁻¹ above the measured emission peak (about 20–30 nm in
+ * the visible; typical of bright xanthene and cyanine dyes and fluorescent proteins, from memory, unverified; the dye
+ * library's small-molecule dyes and proteins span 460–1,940 cm⁻¹, C); without extinctionPeak its peak ε is a nominal
+ * 1e5 M⁻¹ cm⁻¹ (the order of magnitude of bright organic dyes, common practice). Either default comes with a warning.
  */
-export const CUSTOM_NOMINAL_EXTINCTION = 1e5;
+export const CUSTOM_ABSORPTION = { stokesShiftPerCm: 800, extinctionPeak: 1e5 } as const;

@@ -175,10 +175,26 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalSizeDispersionPct: null,
     typicalHydrodynamicDiameterNm: null,
     warnings: [
-      'Described only by measured data: measuredEmission is required; without a measured extinction a flat nominal ' +
-        '1e5 M⁻¹ cm⁻¹ below the emission peak is assumed.',
+      'Described by measured data: measuredEmission is required. Without a measured extinction, a log-normal ' +
+        'absorption band is modelled at absorptionPeakNm with peak ε extinctionPeak; when they are not given, at ' +
+        'the emission peak less a nominal Stokes shift and with a nominal 1e5 M⁻¹ cm⁻¹, with a warning.',
       'typicalFwhmNm and typicalQuantumYield are placeholders, not properties of any real probe.',
     ],
-    sources: [],
+    sources: ['Siano, Metzler, J. Chem. Phys. 1969'],
+  },
+  dye: {
+    name: 'Dye library (dyes, counterstains, fluorescent proteins)',
+    family: 'other',
+    elements: [],
+    typicalFwhmNm: 40,
+    typicalQuantumYield: 0.5,
+    typicalSizeDispersionPct: null,
+    typicalHydrodynamicDiameterNm: null,
+    warnings: [
+      "A probe of material 'dye' names a dye of GET /api/v1/dyes in its dye field; that record gives its peaks, " +
+        'widths, ε, quantum yield, sources and hazards.',
+      'typicalFwhmNm and typicalQuantumYield are placeholders: each dye has its own.',
+    ],
+    sources: ['Siano, Metzler, J. Chem. Phys. 1969', 'see GET /api/v1/dyes for the sources of each dye'],
   },
 };

@@ -7,7 +7,8 @@ import type { Toxicity } from './types';
  * Group 1 (Vol. 100C, 2012), all P via secondary sources. Nothing here calls a probe safe: the cautions defer to local
  * regulations, institutional safety rules and licensed practice.
  */
-const DEFER =
+/** The caution every hazard note carries: local rules come first. */
+export const DEFER =
   "Follow local regulations, your institution's safety rules and licensed practice for handling, storage, use in " +
   'living systems and disposal; they take precedence over anything shown here.';
 const NANO =
@@ -16,6 +17,8 @@ const NANO =
 const WASTE =
   'Collect waste as hazardous heavy-metal waste where your rules require it; do not pour it down the drain.';
 const NOT_SAFE = 'A low rating is not a finding of safety: toxicity depends on size, surface, coating, dose and route.';
+/** The caution of every probe the tool knows too little about. */
+export const SUPPLIER_SDS = "Follow the supplier's safety data sheet.";
 
 const cadmium = (massPct: string): Toxicity => ({
   level: 'high',
@@ -80,6 +83,14 @@ export const TOXICITY: Record<MaterialId, Toxicity> = {
       'Unknown material: the tool knows nothing of its hazards, so it is rated high as a precaution, not as an ' +
         'assessment.',
     ],
-    cautions: ["Follow the supplier's safety data sheet.", DEFER],
+    cautions: [SUPPLIER_SDS, DEFER],
+  },
+  dye: {
+    level: 'high',
+    notes: [
+      'Hazards differ by dye: each dye of GET /api/v1/dyes carries its own notes. DNA-binding stains among them are ' +
+        'mutagens or suspected mutagens, so the library as a whole is rated high, as a precaution.',
+    ],
+    cautions: [SUPPLIER_SDS, DEFER],
   },
 };
