@@ -14,7 +14,8 @@ import { messagesBesides } from '../state/error-map';
 import './number-field';
 import './spectrum-input';
 import './shell-editor';
-import { SHELL_MATERIALS, type ShellLayer } from '../../spectra/index';
+import { SHELL_MATERIALS, listDyes, type ShellLayer } from '../../spectra/index';
+import './dye-picker';
 
 /** The part of a material the probe editor needs. */
 export type ProbeCardMaterial = Pick<
@@ -57,7 +58,18 @@ function predictionText(pr: ProbePrediction): string {
 }
 
 /** The probe's fields the card edits as numbers. */
-type NumberKey = 'emissionPeakNm' | 'diameterNm' | 'sizeDispersionPct' | 'quantumYield' | 'abundance' | 'fwhmNm';
+type NumberKey =
+  | 'emissionPeakNm'
+  | 'diameterNm'
+  | 'sizeDispersionPct'
+  | 'quantumYield'
+  | 'abundance'
+  | 'fwhmNm'
+  | 'absorptionPeakNm'
+  | 'extinctionPeak';
+
+/** The dye library, read once (a dye probe's hazard is its dye's, not the generic record's). */
+const DYES = listDyes();
 
 @customElement('qdp-probe-card')
 export class ProbeCard extends LitElement {
@@ -142,12 +154,25 @@ export class ProbeCard extends LitElement {
   private setMaterial(id: string): void {
     const m = this.materials.find((x) => x.id === id);
     if (!m) return;
-    // A new material comes with its own usual shell (none for materials without a size law).
+    // A new material comes with its own usual shell (none for materials without a size law); fields that only one
+    // kind of probe takes go when the probe changes kind.
     const patch: Partial<ProbeSpec> = {
       material: m.id,
       shell: m.typicalShell && m.typicalShell.length > 0 ? m.typicalShell.map((l) => ({ ...l })) : undefined,
       sizingModel: undefined,
+      dye: undefined,
     };
+    if (m.id !== 'custom') Object.assign(patch, { absorptionPeakNm: undefined, extinctionPeak: undefined });
+    if (m.id === 'dye') {
+      Object.assign(patch, {
+        dye: this.probe.dye ?? DYES[0].id,
+        emissionPeakNm: undefined,
+        diameterNm: undefined,
+        sizeDispersionPct: undefined,
+      });
+      this.change(patch);
+      return;
+    }
     // Keep the emission peak when the new material can reach it; otherwise move it to the middle of its range.
     if (m.emissionRangeNm) {
       const [lo, hi] = m.emissionRangeNm;
@@ -191,10 +216,14 @@ export class ProbeCard extends LitElement {
   /** The number fields that set the dot's size and shape. */
   private sizeFields(sizeKey: NumberKey | null, sized: boolean, m: ProbeCardMaterial | undefined) {
     const hint = (v: number | null | undefined) => String(v ?? '');
+    const material = this.probe.material;
+    const widthGiven = material === 'carbon' || material === 'dye';
     return html`${sizeKey === 'diameterNm' ? this.num('Core diameter', 'diameterNm', 'nm', false) : ''}
     ${sizeKey === 'emissionPeakNm' ? this.num('Emission peak', 'emissionPeakNm', 'nm', false) : ''}
     ${sized ? this.num('Size dispersion σ/d', 'sizeDispersionPct', '%', true, hint(m?.typicalSizeDispersionPct)) : ''}
-    ${this.probe.material === 'carbon' ? this.num('FWHM', 'fwhmNm', 'nm', true, hint(m?.typicalFwhmNm)) : ''}
+    ${widthGiven ? this.num('FWHM', 'fwhmNm', 'nm', true, hint(m?.typicalFwhmNm)) : ''}
+    ${material === 'custom' ? this.num('Absorption peak', 'absorptionPeakNm', 'nm', true, 'from emission') : ''}
+    ${material === 'custom' ? this.num('Peak ε', 'extinctionPeak', 'M⁻¹ cm⁻¹', true, '1e5') : ''}
     ${this.num('Quantum yield', 'quantumYield', '0–1', true, hint(m?.typicalQuantumYield))}`;
   }
 
@@ -264,6 +293,31 @@ export class ProbeCard extends LitElement {
     ></qdp-shell-editor>`;
   }
 
+  /** The dye of a dye probe, chosen from the library, with any error about it. */
+  private dyeChoice() {
+    const error = this.errors['dye'];
+    return html`<qdp-dye-picker
+        .selected=${this.probe.dye ?? ''}
+        @dye-choose=${(e: CustomEvent<{ id: string }>) => {
+          e.stopPropagation();
+          this.change({ dye: e.detail.id });
+        }}
+      ></qdp-dye-picker
+      >${error ? html`<p class="bad" role="alert">${error}</p>` : ''}`;
+  }
+
+  /** The probe's hazard notes: its dye's for a dye probe, its material's otherwise. */
+  private hazard(m: ProbeCardMaterial | undefined) {
+    const dye = this.probe.material === 'dye' ? DYES.find((d) => d.id === this.probe.dye) : undefined;
+    const name = dye?.name ?? m?.name;
+    const toxicity = dye?.toxicity ?? m?.toxicity;
+    if (!name || !toxicity) return '';
+    return html`<details class="hazard ${toxicity.level}">
+      <summary>${name}: hazard ${toxicity.level}; notes and cautions</summary>
+      ${hazardNotes(toxicity)}
+    </details>`;
+  }
+
   /** Hazard notes of the shell materials, one collapsed block per material (a shell adds its own hazards). */
   private shellHazards() {
     const ids = [...new Set((this.probe.shell ?? []).map((l) => l.material))];
@@ -284,11 +338,13 @@ export class ProbeCard extends LitElement {
     const sized = !!m?.diameterRangeNm;
     // A custom probe takes its measured emission, a sized one its peak or diameter, a carbon dot its peak.
     const sizeKey: NumberKey | null =
-      p.material === 'custom' ? null : byDiameter && sized ? 'diameterNm' : 'emissionPeakNm';
+      p.material === 'custom' || p.material === 'dye' ? null : byDiameter && sized ? 'diameterNm' : 'emissionPeakNm';
     const shown: string[] = ['abundance', 'quantumYield'];
     if (sizeKey) shown.push(sizeKey);
     if (sized) shown.push('sizeDispersionPct');
-    if (p.material === 'carbon') shown.push('fwhmNm');
+    if (p.material === 'carbon' || p.material === 'dye') shown.push('fwhmNm');
+    if (p.material === 'custom') shown.push('absorptionPeakNm', 'extinctionPeak');
+    if (p.material === 'dye') shown.push('dye');
     if (sized) shown.push(...Object.keys(this.errors).filter((k) => k === 'shell' || k.startsWith('shell.')));
     const pr = this.prediction;
     return html` <header>
@@ -326,15 +382,7 @@ export class ProbeCard extends LitElement {
         ${sized ? this.sizeChoice(byDiameter) : ''} ${this.sizeFields(sizeKey, sized, m)} ${this.sizingCurveChoice(m)}
         ${this.channelChoice()}
       </div>
-      ${sized ? this.shellEditor(m!) : ''}
-      ${
-        m
-          ? html`<details class="hazard ${m.toxicity.level}">
-              <summary>${m.name}: hazard ${m.toxicity.level}; notes and cautions</summary>
-              ${hazardNotes(m.toxicity)}
-            </details>`
-          : ''
-      }
+      ${sized ? this.shellEditor(m!) : ''} ${p.material === 'dye' ? this.dyeChoice() : ''} ${this.hazard(m)}
       ${this.shellHazards()}
       ${messagesBesides(this.errors, shown).map((message) => html`<p class="bad" role="alert">${message}</p>`)}
       <p class="pred" aria-label="Predicted properties">${pr ? predictionText(pr) : 'No prediction yet.'}</p>

@@ -1,29 +1,11 @@
 /**
  * The bundled demo: an invented six-target panel for a fixed tissue section under one violet 405 nm line. The targets
- * are generic; the counterstain spectra are smooth made-up curves (no real product), entered as measured data.
+ * are generic; the nuclear counterstain is DAPI from the dye library.
  */
-import type { PanelSpec, SpectrumPoints } from '../../spectra/index';
-
-/** A smooth, skewed invented curve (log-normal in wavelength) sampled every 5 nm: stands in for a measured spectrum. */
-function inventedCurve(
-  peakNm: number,
-  widthNm: number,
-  skew: number,
-  fromNm: number,
-  toNm: number,
-  peakValue: number,
-): SpectrumPoints {
-  const out: SpectrumPoints = [];
-  for (let nm = fromNm; nm <= toNm; nm += 5) {
-    const x = Math.log((nm - fromNm + skew) / (peakNm - fromNm + skew));
-    const v = peakValue * Math.exp(-0.5 * (x / (widthNm / (peakNm - fromNm + skew))) ** 2);
-    out.push([nm, Number(v.toPrecision(4))]);
-  }
-  return out;
-}
+import type { PanelSpec } from '../../spectra/index';
 
 /**
- * The demo panel: five core/shell dots (as sold: CdSe/ZnS, InP/ZnS, CdTe/CdS) and one counterstain, six bandpass
+ * The demo panel: five core/shell dots (as sold: CdSe/ZnS, InP/ZnS, CdTe/CdS) and a DAPI counterstain, six bandpass
  * channels, sample background on.
  */
 export function demoPanel(): PanelSpec {
@@ -35,12 +17,10 @@ export function demoPanel(): PanelSpec {
       {
         id: 'p1',
         label: 'Counterstain',
-        material: 'custom',
+        material: 'dye',
+        dye: 'dapi',
         target: 'nuclear DNA counterstain',
         abundance: 1,
-        quantumYield: 0.4,
-        measuredEmission: { points: inventedCurve(462, 38, 60, 400, 650, 1) },
-        extinction: { points: inventedCurve(395, 45, 80, 300, 480, 60000) },
       },
       {
         id: 'p2',
