@@ -294,7 +294,10 @@ export function resolveDye(dot: DotInput): ModelPart {
   if (ignored.length > 0) warnings.push(`${ignored.join(', ')} ignored for dyes: the dye's record sets the bands.`);
   const numbers = [dye.absorptionPeakNm, dye.emissionPeakNm, dye.extinctionPeak, dye.quantumYield];
   if (numbers.some((n) => n.status === 'M'))
-    warnings.push('Some of its numbers are from memory, unverified: GET /api/v1/dyes gives each source and status.');
+    warnings.push(
+      'Some of its numbers are approximate (from memory, unverified); the dye list (GET /api/v1/dyes) gives each ' +
+        'source and how sure it is.',
+    );
   const absorption = logNormalBandForNm(
     dye.absorptionPeakNm.value,
     dye.absorptionFwhmNm.value,

@@ -42,6 +42,9 @@ const SIZING_CURVE_NAMES: Record<string, string> = {
 const fmt = (v: number | null | undefined, digits = 0) =>
   v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(digits);
 
+/** A share 0–1 as a whole percentage, "< 1 %" for a share that is small but not zero. */
+const percent = (share: number) => (share > 0 && share < 0.005 ? '< 1 %' : `${fmt(share * 100)} %`);
+
 /** The model's prediction for the probe as one line of text. */
 function predictionText(pr: ProbePrediction): string {
   const overall =
@@ -53,7 +56,7 @@ function predictionText(pr: ProbePrediction): string {
     `first exciton ${fmt(pr.firstExcitonNm)} nm`,
     `emission peak ${fmt(pr.emissionPeakNm)} nm`,
     `FWHM ${fmt(pr.fwhmNm)} nm`,
-    `relative brightness ${fmt(pr.relativeBrightness * 100)} %${pr.measured ? ' · measured emission' : ''}`,
+    `relative brightness ${percent(pr.relativeBrightness)}${pr.measured ? ' · measured emission' : ''}`,
   ].join(' · ');
 }
 
@@ -218,13 +221,17 @@ export class ProbeCard extends LitElement {
     const hint = (v: number | null | undefined) => String(v ?? '');
     const material = this.probe.material;
     const widthGiven = material === 'carbon' || material === 'dye';
+    // A dye probe's defaults are its dye's, not the generic record's.
+    const dye = material === 'dye' ? DYES.find((d) => d.id === this.probe.dye) : undefined;
+    const fwhmHint = dye ? dye.emissionFwhmNm.value : m?.typicalFwhmNm;
+    const qyHint = dye ? dye.quantumYield.value : m?.typicalQuantumYield;
     return html`${sizeKey === 'diameterNm' ? this.num('Core diameter', 'diameterNm', 'nm', false) : ''}
     ${sizeKey === 'emissionPeakNm' ? this.num('Emission peak', 'emissionPeakNm', 'nm', false) : ''}
     ${sized ? this.num('Size dispersion σ/d', 'sizeDispersionPct', '%', true, hint(m?.typicalSizeDispersionPct)) : ''}
-    ${widthGiven ? this.num('FWHM', 'fwhmNm', 'nm', true, hint(m?.typicalFwhmNm)) : ''}
+    ${widthGiven ? this.num('FWHM', 'fwhmNm', 'nm', true, hint(fwhmHint)) : ''}
     ${material === 'custom' ? this.num('Absorption peak', 'absorptionPeakNm', 'nm', true, 'from emission') : ''}
     ${material === 'custom' ? this.num('Peak ε', 'extinctionPeak', 'M⁻¹ cm⁻¹', true, '1e5') : ''}
-    ${this.num('Quantum yield', 'quantumYield', '0–1', true, hint(m?.typicalQuantumYield))}`;
+    ${this.num('Quantum yield', 'quantumYield', '0–1', true, hint(qyHint))}`;
   }
 
   /** The choice of published sizing curve, for materials that have more than one (CdSe). */
