@@ -136,13 +136,16 @@ describe('CdSe: the second published curve (Jasieniak et al. 2009)', () => {
   const jasEps = (e: number) => 155507 + 6.67054e13 * Math.exp(-e / 0.10551);
   const yuEps = (d: number) => 5857 * d ** 2.65; // Yu et al. 2003 (T)
 
-  it('sizingModel jasieniak2009 sizes a CdSe dot by the published polynomial (d at its first exciton to 1e-9 nm)', () => {
-    for (const peak of [520, 560, 600, 640]) {
-      const dot = resolveDot({ material: 'cdse', emissionPeakNm: peak, sizingModel: 'jasieniak2009' });
-      expect(dot.diameterNm!).toBeCloseTo(jasD(dot.firstExcitonNm!), 9);
-      expect(dot.extinctionFirstExciton!).toBeCloseTo(jasEps(HC_EV_NM / dot.firstExcitonNm!), 0);
-    }
-  });
+  it(
+    'sizingModel jasieniak2009 sizes a CdSe dot by the published ' + 'polynomial (d at its first exciton to 1e-9 nm)',
+    () => {
+      for (const peak of [520, 560, 600, 640]) {
+        const dot = resolveDot({ material: 'cdse', emissionPeakNm: peak, sizingModel: 'jasieniak2009' });
+        expect(dot.diameterNm!).toBeCloseTo(jasD(dot.firstExcitonNm!), 9);
+        expect(dot.extinctionFirstExciton!).toBeCloseTo(jasEps(HC_EV_NM / dot.firstExcitonNm!), 0);
+      }
+    },
+  );
 
   it('yu2003 stays the default: no sizingModel gives the same dot as sizingModel yu2003', () => {
     const a = resolveDot({ material: 'cdse', emissionPeakNm: 600 });
@@ -151,23 +154,29 @@ describe('CdSe: the second published curve (Jasieniak et al. 2009)', () => {
     expect(b.extinctionFirstExciton).toBe(a.extinctionFirstExciton);
   });
 
-  it('each CdSe result states both curves’ size and extinction at its colour, the percentage computed from both', () => {
-    const dot = resolveDot({ material: 'cdse', emissionPeakNm: 540 });
-    const line = dot.warnings.find((w) => w.startsWith('Published CdSe curves disagree'))!;
-    expect(line).toBeDefined();
-    const lambda = dot.firstExcitonNm!;
-    const dJas = jasD(lambda);
-    const pct = Math.round((100 * (jasEps(HC_EV_NM / lambda) - yuEps(dot.diameterNm!))) / yuEps(dot.diameterNm!));
-    expect(line).toContain(`${dJas.toFixed(2)} nm core`);
-    expect(line).toContain(`${pct >= 0 ? '+' : ''}${pct} %`);
-    expect(pct).toBeGreaterThan(66); // more than the old warning's "up to ~66 %" for a small dot
-  });
+  it(
+    'each CdSe result states both curves’ size and extinction at ' + 'its colour, the percentage computed from both',
+    () => {
+      const dot = resolveDot({ material: 'cdse', emissionPeakNm: 540 });
+      const line = dot.warnings.find((w) => w.startsWith('Published CdSe curves disagree'))!;
+      expect(line).toBeDefined();
+      const lambda = dot.firstExcitonNm!;
+      const dJas = jasD(lambda);
+      const pct = Math.round((100 * (jasEps(HC_EV_NM / lambda) - yuEps(dot.diameterNm!))) / yuEps(dot.diameterNm!));
+      expect(line).toContain(`${dJas.toFixed(2)} nm core`);
+      expect(line).toContain(`${pct >= 0 ? '+' : ''}${pct} %`);
+      expect(pct).toBeGreaterThan(66); // more than the old warning's "up to ~66 %" for a small dot
+    },
+  );
 
-  it('sizingModel on a material other than CdSe is not the library’s to refuse silently: the API schema refuses it', () => {
-    // The library follows the material's only law; the schema test in test/worker checks the 400.
-    const inp = resolveDot({ material: 'inp', emissionPeakNm: 620, sizingModel: 'jasieniak2009' });
-    expect(inp.model).toMatch(/Almeida/);
-  });
+  it(
+    'sizingModel on a material other than CdSe is not the library’s ' + 'to refuse silently: the API schema refuses it',
+    () => {
+      // The library follows the material's only law; the schema test in test/worker checks the 400.
+      const inp = resolveDot({ material: 'inp', emissionPeakNm: 620, sizingModel: 'jasieniak2009' });
+      expect(inp.model).toMatch(/Almeida/);
+    },
+  );
 
   it('a CdSe peak outside the Jasieniak reach is out_of_range naming emissionPeakNm', () => {
     const err = errorOf(() => resolveDot({ material: 'cdse', emissionPeakNm: 470, sizingModel: 'jasieniak2009' }));

@@ -80,41 +80,45 @@ describe('evaluatePanel: the signal model', () => {
     expect(ev.probes[0].brightnessPerAbundance).toBeCloseTo(2 * 1e5 * 0.5, 6);
   });
 
-  it('evaluatePanel collected[c][p] equals an independent naive sum over lines and grid points, with each emission cut at the line and renormalised', () => {
-    const panel = fourProbePanel();
-    const ev = evaluatePanel(panel, { sensitivity: false });
-    const spectra = panelSpectra(panel);
-    const lineOn = (c: number, l: number) => {
-      const on = panel.channels[c].excitationNm;
-      return on === undefined || [on].flat().includes(panel.excitation[l].wavelengthNm);
-    };
-    const nm = (i: number) => DEFAULT_GRID.startNm + i * DEFAULT_GRID.stepNm;
-    panel.channels.forEach((channel, c) => {
-      const t = channelTransmission(channel, DEFAULT_GRID);
-      panel.probes.forEach((probe, p) => {
-        const em = spectra.emission[p].values;
-        let expected = 0;
-        panel.excitation.forEach((line, l) => {
-          if (!lineOn(c, l)) return;
-          // No emission at or below the exciting line; what is left has unit area again.
-          let kept = 0;
-          let collected = 0;
-          for (let i = 0; i < t.length; i++) {
-            if (nm(i) <= line.wavelengthNm) continue;
-            kept += em[i] * DEFAULT_GRID.stepNm;
-            collected += em[i] * t[i] * DEFAULT_GRID.stepNm;
-          }
-          const weight =
-            (line.powerRel ?? 1) *
-            ev.probes[p].extinctionAtLines[l] *
-            ev.probes[p].quantumYield *
-            (probe.abundance ?? 1);
-          if (kept > 0) expected += (weight * collected) / kept;
+  it(
+    'evaluatePanel collected[c][p] equals an independent naive sum over lines and ' +
+      'grid points, with each emission cut at the line and renormalised',
+    () => {
+      const panel = fourProbePanel();
+      const ev = evaluatePanel(panel, { sensitivity: false });
+      const spectra = panelSpectra(panel);
+      const lineOn = (c: number, l: number) => {
+        const on = panel.channels[c].excitationNm;
+        return on === undefined || [on].flat().includes(panel.excitation[l].wavelengthNm);
+      };
+      const nm = (i: number) => DEFAULT_GRID.startNm + i * DEFAULT_GRID.stepNm;
+      panel.channels.forEach((channel, c) => {
+        const t = channelTransmission(channel, DEFAULT_GRID);
+        panel.probes.forEach((probe, p) => {
+          const em = spectra.emission[p].values;
+          let expected = 0;
+          panel.excitation.forEach((line, l) => {
+            if (!lineOn(c, l)) return;
+            // No emission at or below the exciting line; what is left has unit area again.
+            let kept = 0;
+            let collected = 0;
+            for (let i = 0; i < t.length; i++) {
+              if (nm(i) <= line.wavelengthNm) continue;
+              kept += em[i] * DEFAULT_GRID.stepNm;
+              collected += em[i] * t[i] * DEFAULT_GRID.stepNm;
+            }
+            const weight =
+              (line.powerRel ?? 1) *
+              ev.probes[p].extinctionAtLines[l] *
+              ev.probes[p].quantumYield *
+              (probe.abundance ?? 1);
+            if (kept > 0) expected += (weight * collected) / kept;
+          });
+          expect(Math.abs(ev.collected[c][p] - expected) / expected).toBeLessThan(1e-12);
         });
-        expect(Math.abs(ev.collected[c][p] - expected) / expected).toBeLessThan(1e-12);
       });
-    });
-  });
+    },
+  );
 
   it('evaluatePanel with channel-specific lines adds up the single-line panels (sequential excitation)', () => {
     const panel = fourProbePanel();

@@ -4,16 +4,19 @@ import { DEFAULT_GRID, evaluatePanel, resolveDot, spectrumOnGrid } from '../../s
 const nm = (i: number) => DEFAULT_GRID.startNm + i * DEFAULT_GRID.stepNm;
 
 describe('emission cut at the exciting line', () => {
-  it('resolveDot(cdse 480 nm, line 488 nm): nothing at or below 488 nm, unit area left (sum × step = 1 to 1e-12)', () => {
-    const dot = resolveDot({ material: 'cdse', emissionPeakNm: 480, excitationNm: 488 });
-    const values = spectrumOnGrid(dot.emission, DEFAULT_GRID);
-    let area = 0;
-    values.forEach((v, i) => {
-      if (nm(i) <= 488) expect(v).toBe(0);
-      area += v * DEFAULT_GRID.stepNm;
-    });
-    expect(Math.abs(area - 1)).toBeLessThan(1e-12);
-  });
+  it(
+    'resolveDot(cdse 480 nm, line 488 nm): nothing at or below 488 ' + 'nm, unit area left (sum × step = 1 to 1e-12)',
+    () => {
+      const dot = resolveDot({ material: 'cdse', emissionPeakNm: 480, excitationNm: 488 });
+      const values = spectrumOnGrid(dot.emission, DEFAULT_GRID);
+      let area = 0;
+      values.forEach((v, i) => {
+        if (nm(i) <= 488) expect(v).toBe(0);
+        area += v * DEFAULT_GRID.stepNm;
+      });
+      expect(Math.abs(area - 1)).toBeLessThan(1e-12);
+    },
+  );
 
   it(
     'the reported cut share equals the nominal emission’s area at or below the line, summed independently, and is ' +

@@ -42,12 +42,15 @@ describe('core/shell dots: the red shift', () => {
     },
   );
 
-  it('CdSe/ZnS: the shift saturates with thickness (a 2 nm ZnS shell moves a 4 nm core under 1.5× a 0.6 nm one)', () => {
-    const thin = shiftNm('cdse', 4, zns(0.6));
-    const thick = shiftNm('cdse', 4, zns(2));
-    expect(thick).toBeGreaterThan(thin);
-    expect(thick).toBeLessThan(1.5 * thin);
-  });
+  it(
+    'CdSe/ZnS: the shift saturates with thickness (a 2 nm ZnS ' + 'shell moves a 4 nm core under 1.5× a 0.6 nm one)',
+    () => {
+      const thin = shiftNm('cdse', 4, zns(0.6));
+      const thick = shiftNm('cdse', 4, zns(2));
+      expect(thick).toBeGreaterThan(thin);
+      expect(thick).toBeLessThan(1.5 * thin);
+    },
+  );
 
   it(
     'CdSe/CdS (quasi type II): a 2 nm CdS shell moves the emission of a 4 nm core 15–50 nm, several times a ZnS ' +

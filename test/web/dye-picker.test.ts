@@ -14,15 +14,19 @@ describe('<qdp-dye-picker> search', () => {
     expect(expected.length).toBeGreaterThanOrEqual(3);
   });
 
-  it('matchDyes("488") finds the dyes absorbing or emitting within 20 nm of 488 nm, fluorescein and EGFP among them', () => {
-    const found = matchDyes('488');
-    expect(found.map((d) => d.id)).toEqual(expect.arrayContaining(['fluorescein', 'egfp']));
-    for (const d of found)
-      expect(
-        Math.min(Math.abs(d.absorptionPeakNm.value - 488), Math.abs(d.emissionPeakNm.value - 488)),
-      ).toBeLessThanOrEqual(20);
-    expect(found.map((d) => d.id)).not.toContain('dapi');
-  });
+  it(
+    'matchDyes("488") finds the dyes absorbing or emitting within 20 ' +
+      'nm of 488 nm, fluorescein and EGFP among them',
+    () => {
+      const found = matchDyes('488');
+      expect(found.map((d) => d.id)).toEqual(expect.arrayContaining(['fluorescein', 'egfp']));
+      for (const d of found)
+        expect(
+          Math.min(Math.abs(d.absorptionPeakNm.value - 488), Math.abs(d.emissionPeakNm.value - 488)),
+        ).toBeLessThanOrEqual(20);
+      expect(found.map((d) => d.id)).not.toContain('dapi');
+    },
+  );
 
   it('an empty query lists every dye; a query nothing matches lists none', () => {
     expect(matchDyes('  ')).toHaveLength(listDyes().length);
@@ -42,19 +46,22 @@ describe('a dye probe in its card', () => {
     return { el, changes };
   }
 
-  it('choosing the dye material gives the probe a dye and drops the size fields and shell a dye does not take', async () => {
-    const { el, changes } = await card({
-      id: 'p1',
-      material: 'cdse',
-      emissionPeakNm: 605,
-      sizeDispersionPct: 5,
-      shell: [{ material: 'zns', thicknessNm: 0.9 }],
-    });
-    const select = el.shadowRoot!.querySelector('select')!;
-    select.value = 'dye';
-    select.dispatchEvent(new Event('change'));
-    expect(changes[0]).toEqual({ id: 'p1', material: 'dye', dye: listDyes()[0].id });
-  });
+  it(
+    'choosing the dye material gives the probe a dye and drops ' + 'the size fields and shell a dye does not take',
+    async () => {
+      const { el, changes } = await card({
+        id: 'p1',
+        material: 'cdse',
+        emissionPeakNm: 605,
+        sizeDispersionPct: 5,
+        shell: [{ material: 'zns', thicknessNm: 0.9 }],
+      });
+      const select = el.shadowRoot!.querySelector('select')!;
+      select.value = 'dye';
+      select.dispatchEvent(new Event('change'));
+      expect(changes[0]).toEqual({ id: 'p1', material: 'dye', dye: listDyes()[0].id });
+    },
+  );
 
   it('picking fluorescein from the searched list fires probe-change with dye "fluorescein"', async () => {
     const { el, changes } = await card({ id: 'p1', material: 'dye', dye: 'dapi' });
@@ -71,12 +78,15 @@ describe('a dye probe in its card', () => {
     expect(changes.at(-1)!.dye).toBe('fluorescein');
   });
 
-  it('a DAPI probe shows DAPI’s own hazard (a DNA-binding mutagen), deferring to local rules, never "safe"', async () => {
-    const { el } = await card({ id: 'p1', material: 'dye', dye: 'dapi' });
-    const box = el.shadowRoot!.querySelector('details.hazard')!;
-    expect(box.querySelector('summary')!.textContent).toMatch(/^DAPI.*: hazard high/);
-    expect(box.textContent).toMatch(/mutagen/);
-    expect(box.textContent).toMatch(/local regulations/);
-    expect(box.textContent).not.toMatch(/\bsafe\b/i);
-  });
+  it(
+    'a DAPI probe shows DAPI’s own hazard (a DNA-binding ' + 'mutagen), deferring to local rules, never "safe"',
+    async () => {
+      const { el } = await card({ id: 'p1', material: 'dye', dye: 'dapi' });
+      const box = el.shadowRoot!.querySelector('details.hazard')!;
+      expect(box.querySelector('summary')!.textContent).toMatch(/^DAPI.*: hazard high/);
+      expect(box.textContent).toMatch(/mutagen/);
+      expect(box.textContent).toMatch(/local regulations/);
+      expect(box.textContent).not.toMatch(/\bsafe\b/i);
+    },
+  );
 });

@@ -27,22 +27,25 @@ function paste(input: Updating, text: string): void {
 }
 
 describe('<qdp-light-editor>', () => {
-  it('choosing the FFPE sample type sets background.preset, keeps the level and shows the preset’s caution', async () => {
-    const panel = { ...demoPanel(), background: { level: 0.3 } };
-    const { el, edits } = await mountEditor(panel);
-    const label = [...el.shadowRoot!.querySelectorAll('label')].find((l) => l.textContent!.includes('Sample type'))!;
-    const select = label.querySelector('select')!;
-    expect(select.options[0].textContent).toBe('generic tissue (default model)');
-    select.value = 'ffpe-tissue';
-    select.dispatchEvent(new Event('change'));
-    expect(edits.at(-1)!.background).toEqual({ level: 0.3, preset: 'ffpe-tissue' });
-    el.panel = edits.at(-1)!;
-    await el.updateComplete;
-    expect(el.shadowRoot!.textContent).toMatch(/Approximate: .*orders of magnitude/);
-    select.value = '';
-    select.dispatchEvent(new Event('change'));
-    expect(edits.at(-1)!.background).toEqual({ level: 0.3 });
-  });
+  it(
+    'choosing the FFPE sample type sets background.preset, keeps ' + 'the level and shows the preset’s caution',
+    async () => {
+      const panel = { ...demoPanel(), background: { level: 0.3 } };
+      const { el, edits } = await mountEditor(panel);
+      const label = [...el.shadowRoot!.querySelectorAll('label')].find((l) => l.textContent!.includes('Sample type'))!;
+      const select = label.querySelector('select')!;
+      expect(select.options[0].textContent).toBe('generic tissue (default model)');
+      select.value = 'ffpe-tissue';
+      select.dispatchEvent(new Event('change'));
+      expect(edits.at(-1)!.background).toEqual({ level: 0.3, preset: 'ffpe-tissue' });
+      el.panel = edits.at(-1)!;
+      await el.updateComplete;
+      expect(el.shadowRoot!.textContent).toMatch(/Approximate: .*orders of magnitude/);
+      select.value = '';
+      select.dispatchEvent(new Event('change'));
+      expect(edits.at(-1)!.background).toEqual({ level: 0.3 });
+    },
+  );
 
   it('a measured background hides the sample-type choice (the two cannot be combined)', async () => {
     const panel = {

@@ -47,18 +47,21 @@ describe('<qdp-shell-editor>', () => {
     ]);
   });
 
-  it('"Bare core" clears the shell, "Typical shell" restores the material’s usual one, "Add a layer" appends one', async () => {
-    const { seen, button } = await mountEditor([{ material: 'zns', thicknessNm: 0.9 }]);
-    button('Bare core').click();
-    button('Typical shell').click();
-    button('Add a layer').click();
-    expect(seen[0]).toEqual([]);
-    expect(seen[1]).toEqual(TYPICAL_SHELLS.inp);
-    expect(seen[2]).toEqual([
-      { material: 'zns', thicknessNm: 0.9 },
-      { material: 'zns', thicknessNm: 0.6 },
-    ]);
-  });
+  it(
+    '"Bare core" clears the shell, "Typical shell" restores the ' + 'material’s usual one, "Add a layer" appends one',
+    async () => {
+      const { seen, button } = await mountEditor([{ material: 'zns', thicknessNm: 0.9 }]);
+      button('Bare core').click();
+      button('Typical shell').click();
+      button('Add a layer').click();
+      expect(seen[0]).toEqual([]);
+      expect(seen[1]).toEqual(TYPICAL_SHELLS.inp);
+      expect(seen[2]).toEqual([
+        { material: 'zns', thicknessNm: 0.9 },
+        { material: 'zns', thicknessNm: 0.6 },
+      ]);
+    },
+  );
 
   it('shows an error that names a layer’s thickness under that layer’s field', async () => {
     const { el } = await mountEditor([{ material: 'zns', thicknessNm: 0.9 }], {
@@ -75,22 +78,25 @@ describe('probes get their material’s typical shell', () => {
     expect(panel.probes[0].shell).toEqual(TYPICAL_SHELLS.cdse);
   });
 
-  it('choosing InP in a probe card gives the probe InP’s typical ZnSe/ZnS shell; carbon dots get no shell', async () => {
-    const el = document.createElement('qdp-probe-card');
-    el.probe = { id: 'p1', material: 'cdse', emissionPeakNm: 620, shell: [{ material: 'zns', thicknessNm: 0.9 }] };
-    el.materials = listMaterials();
-    document.body.appendChild(el);
-    await el.updateComplete;
-    const changes: ProbeSpec[] = [];
-    el.addEventListener('probe-change', (e) => changes.push((e as CustomEvent<{ probe: ProbeSpec }>).detail.probe));
-    const select = el.shadowRoot!.querySelector('select')!;
-    select.value = 'inp';
-    select.dispatchEvent(new Event('change'));
-    select.value = 'carbon';
-    select.dispatchEvent(new Event('change'));
-    expect(changes[0].shell).toEqual(TYPICAL_SHELLS.inp);
-    expect(changes[1].shell).toBeUndefined();
-  });
+  it(
+    'choosing InP in a probe card gives the probe InP’s typical ' + 'ZnSe/ZnS shell; carbon dots get no shell',
+    async () => {
+      const el = document.createElement('qdp-probe-card');
+      el.probe = { id: 'p1', material: 'cdse', emissionPeakNm: 620, shell: [{ material: 'zns', thicknessNm: 0.9 }] };
+      el.materials = listMaterials();
+      document.body.appendChild(el);
+      await el.updateComplete;
+      const changes: ProbeSpec[] = [];
+      el.addEventListener('probe-change', (e) => changes.push((e as CustomEvent<{ probe: ProbeSpec }>).detail.probe));
+      const select = el.shadowRoot!.querySelector('select')!;
+      select.value = 'inp';
+      select.dispatchEvent(new Event('change'));
+      select.value = 'carbon';
+      select.dispatchEvent(new Event('change'));
+      expect(changes[0].shell).toEqual(TYPICAL_SHELLS.inp);
+      expect(changes[1].shell).toBeUndefined();
+    },
+  );
 
   it('a probe card with a CdS shell shows the shell’s own hazard block, deferring to local rules', async () => {
     const el = document.createElement('qdp-probe-card');
@@ -105,27 +111,30 @@ describe('probes get their material’s typical shell', () => {
 });
 
 describe('the sizing curve of a CdSe probe', () => {
-  it('a CdSe card offers the two published curves; choosing Jasieniak sets sizingModel, the default removes it', async () => {
-    const el = document.createElement('qdp-probe-card');
-    el.probe = { id: 'p1', material: 'cdse', emissionPeakNm: 600 };
-    el.materials = listMaterials();
-    document.body.appendChild(el);
-    await el.updateComplete;
-    const changes: ProbeSpec[] = [];
-    el.addEventListener('probe-change', (e) => changes.push((e as CustomEvent<{ probe: ProbeSpec }>).detail.probe));
-    const label = [...el.shadowRoot!.querySelectorAll('label')].find((l) => l.textContent!.includes('Sizing curve'))!;
-    const select = label.querySelector('select')!;
-    expect([...select.options].map((o) => o.textContent)).toEqual([
-      'Yu et al. 2003 (default)',
-      'Jasieniak et al. 2009',
-    ]);
-    select.value = 'jasieniak2009';
-    select.dispatchEvent(new Event('change'));
-    select.value = 'yu2003';
-    select.dispatchEvent(new Event('change'));
-    expect(changes[0].sizingModel).toBe('jasieniak2009');
-    expect('sizingModel' in changes[1]).toBe(false);
-  });
+  it(
+    'a CdSe card offers the two published curves; choosing ' + 'Jasieniak sets sizingModel, the default removes it',
+    async () => {
+      const el = document.createElement('qdp-probe-card');
+      el.probe = { id: 'p1', material: 'cdse', emissionPeakNm: 600 };
+      el.materials = listMaterials();
+      document.body.appendChild(el);
+      await el.updateComplete;
+      const changes: ProbeSpec[] = [];
+      el.addEventListener('probe-change', (e) => changes.push((e as CustomEvent<{ probe: ProbeSpec }>).detail.probe));
+      const label = [...el.shadowRoot!.querySelectorAll('label')].find((l) => l.textContent!.includes('Sizing curve'))!;
+      const select = label.querySelector('select')!;
+      expect([...select.options].map((o) => o.textContent)).toEqual([
+        'Yu et al. 2003 (default)',
+        'Jasieniak et al. 2009',
+      ]);
+      select.value = 'jasieniak2009';
+      select.dispatchEvent(new Event('change'));
+      select.value = 'yu2003';
+      select.dispatchEvent(new Event('change'));
+      expect(changes[0].sizingModel).toBe('jasieniak2009');
+      expect('sizingModel' in changes[1]).toBe(false);
+    },
+  );
 
   it('an InP card has no sizing-curve choice (one published curve)', async () => {
     const el = document.createElement('qdp-probe-card');

@@ -27,18 +27,22 @@ describe('core/shell probes over HTTP', () => {
     for (const s of body.shellMaterials) expect(s.toxicity.cautions.length, s.id).toBeGreaterThan(0);
   });
 
-  it('POST /dots/resolve with a shell reports coreDiameterNm, overallDiameterNm = core + 2 × shell, and the peak asked', async () => {
-    const res = await resolve({
-      material: 'cdse',
-      emissionPeakNm: 605,
-      shell: [{ material: 'zns', thicknessNm: 0.9 }],
-    });
-    expect(res.status).toBe(200);
-    const dot = (await res.json()) as Record<string, number>;
-    expect(dot.emissionPeakNm).toBeCloseTo(605, 6);
-    expect(dot.overallDiameterNm).toBeCloseTo(dot.coreDiameterNm + 1.8, 9);
-    expect(dot.diameterNm).toBe(dot.coreDiameterNm);
-  });
+  it(
+    'POST /dots/resolve with a shell reports coreDiameterNm, ' +
+      'overallDiameterNm = core + 2 × shell, and the peak asked',
+    async () => {
+      const res = await resolve({
+        material: 'cdse',
+        emissionPeakNm: 605,
+        shell: [{ material: 'zns', thicknessNm: 0.9 }],
+      });
+      expect(res.status).toBe(200);
+      const dot = (await res.json()) as Record<string, number>;
+      expect(dot.emissionPeakNm).toBeCloseTo(605, 6);
+      expect(dot.overallDiameterNm).toBeCloseTo(dot.coreDiameterNm + 1.8, 9);
+      expect(dot.diameterNm).toBe(dot.coreDiameterNm);
+    },
+  );
 
   it('POST /dots/resolve with excitationNm inside the emission reports the cut share and warns', async () => {
     const dot = (await (await resolve({ material: 'cdse', emissionPeakNm: 480, excitationNm: 488 })).json()) as {

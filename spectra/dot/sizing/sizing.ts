@@ -110,7 +110,8 @@ export function emissionRangeForMaterialNm(material: MaterialId, options: Sizing
 /**
  * Core size (nm) of the dot that emits at `emissionPeakNm`: the inverse of emissionPeakForDiameterNm. A bare core uses
  * the closed form of the Stokes step, then the size law's own inverse; under a shell, the core is found by bisection
- * (the core/shell peak moves monotonically with the core). Outside the reach: `out_of_range` naming the reachable range.
+ * (the core/shell peak moves monotonically with the core). Outside the reach: `out_of_range` naming the reachable
+ * range.
  */
 export function diameterForEmissionPeakNm(
   material: MaterialId,
