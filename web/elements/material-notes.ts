@@ -5,7 +5,7 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import type { Material, PanelSpec } from '../../spectra/index';
+import { SHELL_MATERIALS, listDyes, type Material, type PanelSpec, type Toxicity } from '../../spectra/index';
 import { hazardNotes } from './hazard-notes';
 import { containedClasses, offendingProbes, PANEL_EXCLUSIONS, type PanelExclusion } from '../state/exclusions';
 
@@ -31,6 +31,37 @@ function blockedText(panel: PanelSpec, offending: Map<string, string>): string {
 /** Excitation sources are usually lasers. */
 export const LASER_CAUTION =
   "Excitation lasers: follow your institution's laser safety rules (laser class, eyewear, interlocks).";
+
+/** The dye library, read once: a dye probe's notes are its dye's. */
+const DYES = listDyes();
+
+/** One block of notes: a core material, a dye or a shell material, and the probes that use it. */
+interface NotesEntry {
+  key: string;
+  name: string;
+  toxicity: Toxicity | null;
+  probes: string[];
+}
+
+/** The hazard sources of a panel: each core material (each dye for dye probes) and each shell material used. */
+function notesEntries(panel: PanelSpec, materials: readonly MaterialNotesInput[]): NotesEntry[] {
+  const entries = new Map<string, NotesEntry>();
+  const add = (key: string, name: string, toxicity: Toxicity | null, probe: string) => {
+    const entry = entries.get(key) ?? { key, name, toxicity, probes: [] };
+    entry.probes.push(probe);
+    entries.set(key, entry);
+  };
+  for (const p of panel.probes) {
+    const label = p.label ?? p.id;
+    const dye = p.material === 'dye' ? DYES.find((d) => d.id === p.dye) : undefined;
+    const m = materials.find((x) => x.id === p.material);
+    if (dye) add(`dye:${dye.id}`, dye.name, dye.toxicity, label);
+    else add(p.material, m?.name ?? p.material, m?.toxicity ?? null, label);
+    for (const id of new Set((p.shell ?? []).map((l) => l.material)))
+      add(`shell:${id}`, `${SHELL_MATERIALS[id].name} shell`, SHELL_MATERIALS[id].toxicity, label);
+  }
+  return [...entries.values()];
+}
 
 @customElement('qdp-material-notes')
 export class MaterialNotes extends LitElement {
@@ -98,7 +129,6 @@ export class MaterialNotes extends LitElement {
     if (!panel) return html``;
     const contained = containedClasses(panel, this.materials);
     const offending = offendingProbes(panel, this.materials, this.exclude);
-    const used = [...new Set(panel.probes.map((p) => p.material))];
     return html`
       <p class="summary">${contained.length ? `This panel contains ${contained.join(' and ')}.` : NONE_CONTAINED}</p>
       <fieldset>
@@ -116,23 +146,18 @@ export class MaterialNotes extends LitElement {
         )}
       </fieldset>
       ${offending.size ? html`<p class="blocked" role="alert">${blockedText(panel, offending)}</p>` : ''}
-      ${used.map((id) => {
-        const m = this.materials.find((x) => x.id === id);
-        const probes = panel.probes
-          .filter((p) => p.material === id)
-          .map((p) => p.label ?? p.id)
-          .join(', ');
-        if (!m)
-          return html`<section>
-            <h4>${id}</h4>
-            <p>No notes for this material.</p>
-          </section>`;
-        return html`<section data-material=${m.id}>
-          <h4>${m.name} <span class="level ${m.toxicity.level}">hazard: ${m.toxicity.level}</span></h4>
-          <p>Used by: ${probes}</p>
-          ${hazardNotes(m.toxicity)}
-        </section>`;
-      })}
+      ${notesEntries(panel, this.materials).map((entry) =>
+        entry.toxicity
+          ? html`<section data-material=${entry.key}>
+              <h4>${entry.name} <span class="level ${entry.toxicity.level}">hazard: ${entry.toxicity.level}</span></h4>
+              <p>Used by: ${entry.probes.join(', ')}</p>
+              ${hazardNotes(entry.toxicity)}
+            </section>`
+          : html`<section>
+              <h4>${entry.name}</h4>
+              <p>No notes for this material.</p>
+            </section>`,
+      )}
       <p>${LASER_CAUTION}</p>
       <p>${GENERAL_CAUTION}</p>
     `;

@@ -2,7 +2,14 @@
  * Material classes a user can exclude from a panel (cadmium-free, lead-free) and which probes break that choice. The
  * classes, their elements and the test of a material come from the spectral library (EXCLUSIONS, exclusionsOf).
  */
-import { exclusionsOf, type Exclusion, type Material, type PanelSpec } from '../../spectra/index';
+import {
+  SHELL_MATERIALS,
+  exclusionsOf,
+  type Exclusion,
+  type Material,
+  type PanelSpec,
+  type ProbeSpec,
+} from '../../spectra/index';
 
 /** The classes the panel view offers to exclude (the design form offers every class of EXCLUSION_WORDS). */
 export const PANEL_EXCLUSIONS = ['cadmium', 'lead'] as const satisfies readonly Exclusion[];
@@ -18,15 +25,22 @@ export function isPanelExclusion(word: unknown): word is PanelExclusion {
   return PANEL_EXCLUSIONS.includes(word as PanelExclusion);
 }
 
-/** The offered classes a probe's material belongs to (none for a material the list does not know). */
-function classesOf(material: string, materials: readonly MaterialElements[]): PanelExclusion[] {
-  const m = materials.find((x) => x.id === material);
-  return m ? exclusionsOf(m).filter(isPanelExclusion) : [];
+/**
+ * The offered classes a probe belongs to through its core material or any shell layer (a CdS shell makes an InP
+ * probe contain cadmium); none for a material the list does not know.
+ */
+function classesOf(probe: Pick<ProbeSpec, 'material' | 'shell'>, materials: readonly MaterialElements[]) {
+  const m = materials.find((x) => x.id === probe.material);
+  const elements = [
+    ...(m?.elements ?? []),
+    ...(probe.shell ?? []).flatMap((l) => SHELL_MATERIALS[l.material].elements),
+  ];
+  return exclusionsOf({ elements }).filter(isPanelExclusion);
 }
 
-/** Which offered classes (cadmium, lead) the panel's probes contain, by the materials' element lists. */
+/** Which offered classes (cadmium, lead) the panel's probes contain, by the element lists of cores and shells. */
 export function containedClasses(panel: PanelSpec, materials: readonly MaterialElements[]): PanelExclusion[] {
-  const found = new Set(panel.probes.flatMap((p) => classesOf(p.material, materials)));
+  const found = new Set(panel.probes.flatMap((p) => classesOf(p, materials)));
   return PANEL_EXCLUSIONS.filter((word) => found.has(word));
 }
 
@@ -38,7 +52,7 @@ export function offendingProbes(
 ): Map<string, string> {
   const out = new Map<string, string>();
   for (const p of panel.probes) {
-    const hit = classesOf(p.material, materials).filter((word) => exclude.includes(word));
+    const hit = classesOf(p, materials).filter((word) => exclude.includes(word));
     if (hit.length) out.set(p.id, `contains ${hit.join(' and ')}, which this panel excludes`);
   }
   return out;
