@@ -61,7 +61,7 @@ export { JASIENIAK_2009 } from './dot/sizing/jasieniak2009';
 export { CSPBBR3_EMISSION_LAW, cspbbr3EmissionEv } from './dot/sizing/cspbbr3';
 export { INP_ALMEIDA_2023, inpFirstExcitonEv } from './dot/sizing/almeida2023';
 export { SHELL_MATERIALS, TYPICAL_SHELLS, type ShellMaterial } from './dot/shells/materials';
-export { carrierReach, shellShiftEv } from './dot/shells/shell';
+export { LEAK_SCALE, carrierReach, shellShiftEv } from './dot/shells/shell';
 export { cutEmissionAtLine } from './dot/line-cut';
 export { YU_2003, yuDiameterNm } from './dot/sizing/yu2003';
 export { brusDiameterNm, brusGapEv } from './dot/sizing/brus';

@@ -9,8 +9,9 @@
  *   band offsets usually quoted for the common pairs (M, from memory, unverified; review: Reiss, Protière, Li, Small
  *   2009, 5, 154): CdSe/ZnS type I with ≈ 0.9 eV conduction- and ≈ 1 eV valence-band offsets; CdSe/CdS quasi type II
  *   (conduction bands within ≈ 0.1 eV, valence offset ≈ 0.6 eV); CdSe/ZnSe with a small valence offset (≈ 0.15 eV);
- *   CdTe/CdS type II (the electron prefers CdS); InP/ZnSe with a small conduction offset (≈ 0.3 eV, the electron
- *   spreads into ZnSe); GaAs/ZnSe valence offset ≈ 1 eV (a lattice-matched heterojunction). Offsets between other pairs
+ *   CdTe/CdS type II (the electron prefers CdS); InP/ZnSe with a moderate conduction offset (≈ 0.6 eV; quoted values
+ *   range from ≈ 0.3 to ≈ 0.6 eV, and the upper end keeps the ZnSe shift of red InP probes near the 20–40 nm usually
+ *   seen, M); GaAs/ZnSe valence offset ≈ 1 eV (a lattice-matched heterojunction). Offsets between other pairs
  *   follow from the same scale and are rougher still.
  * - One monolayer: half the wurtzite c lattice constant, ZnS 0.31 nm, ZnSe 0.33 nm, CdS 0.34 nm (M).
  * - Intrinsic absorption above the shell's gap: μi(E) = μ½ · √((E − Eg)/0.5 eV), capped 1.5 eV above the gap, with
@@ -32,6 +33,8 @@ export interface ShellMaterial {
   /** Valence-band top on the common scale (CdSe = 0), eV; the conduction band is this plus the gap. */
   valenceBandEv: number;
   monolayerNm: number;
+  /** False for an encapsulation that does not grow on the crystal (silica): carriers do not leak into it. */
+  epitaxial: boolean;
   /** Intrinsic absorption 0.5 eV above the gap, cm⁻¹ (0: transparent in the range the tool models). */
   intrinsicHalfEvPerCm: number;
   toxicity: Toxicity;
@@ -61,6 +64,7 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
     holeMassRel: 0.61,
     valenceBandEv: -0.96,
     monolayerNm: 0.31,
+    epitaxial: true,
     intrinsicHalfEvPerCm: II_VI_MU_HALF,
     toxicity: {
       level: 'moderate',
@@ -82,6 +86,7 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
     holeMassRel: 0.57,
     valenceBandEv: -0.16,
     monolayerNm: 0.33,
+    epitaxial: true,
     intrinsicHalfEvPerCm: II_VI_MU_HALF,
     toxicity: {
       level: 'moderate',
@@ -102,6 +107,7 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
     holeMassRel: 0.7,
     valenceBandEv: -0.58,
     monolayerNm: 0.34,
+    epitaxial: true,
     intrinsicHalfEvPerCm: II_VI_MU_HALF,
     toxicity: {
       level: 'high',
@@ -126,6 +132,7 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
     holeMassRel: 5,
     valenceBandEv: -4.5,
     monolayerNm: 0.5,
+    epitaxial: false,
     intrinsicHalfEvPerCm: 0,
     toxicity: {
       level: 'low',
@@ -142,14 +149,14 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
 /**
  * Valence-band top of each sized core material on the same scale (CdSe = 0), eV, chosen with the shells' values above
  * to reproduce the quoted offsets (M, from memory, unverified): CdS −0.58, CdTe +0.64 (CdTe/CdS valence offset ≈ 1.2
- * eV), InP +0.9 (InP/ZnSe ≈ 1.06 eV), GaAs +0.94 (GaAs/ZnSe ≈ 1.1 eV), CsPbBr3 −0.3 (rough; perovskite dots are
+ * eV), InP +0.6 (InP/ZnSe valence offset ≈ 0.76 eV), GaAs +0.94 (GaAs/ZnSe ≈ 1.1 eV), CsPbBr3 −0.3 (rough; perovskite dots are
  * usually encapsulated rather than epitaxially shelled).
  */
 export const CORE_VALENCE_BAND_EV = {
   cdse: 0,
   cdte: 0.64,
   cds: -0.58,
-  inp: 0.9,
+  inp: 0.6,
   gaas: 0.94,
   cspbbr3: -0.3,
 } as const;
