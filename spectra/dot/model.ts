@@ -87,7 +87,11 @@ export function resolveSized(material: SizedMaterialId, dot: DotInput, measuredP
   return {
     diameterNm,
     overallDiameterNm,
-    hydrodynamicDiameterNm: rec.typicalHydrodynamicDiameterNm,
+    // The typical conjugate's size holds for typical shells; a particle as large or larger has no nominal value.
+    hydrodynamicDiameterNm:
+      rec.typicalHydrodynamicDiameterNm !== null && overallDiameterNm < rec.typicalHydrodynamicDiameterNm
+        ? rec.typicalHydrodynamicDiameterNm
+        : null,
     firstExcitonNm: evToNm(e1),
     peakNm,
     fwhmEv,

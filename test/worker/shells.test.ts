@@ -66,6 +66,16 @@ describe('core/shell probes over HTTP', () => {
     ['a negative thickness', { shell: [{ material: 'zns', thicknessNm: -1 }] }, ['shell', 0, 'thicknessNm']],
     ['a zero thickness', { shell: [{ material: 'zns', thicknessNm: 0 }] }, ['shell', 0, 'thicknessNm']],
     ['an absurd thickness (50 nm)', { shell: [{ material: 'zns', thicknessNm: 50 }] }, ['shell', 0, 'thicknessNm']],
+    [
+      'a ZnS layer over its 3 nm cap (5 nm)',
+      { shell: [{ material: 'zns', thicknessNm: 5 }] },
+      ['shell', 0, 'thicknessNm'],
+    ],
+    [
+      'layers adding up to over 20 nm (four 6 nm silica layers)',
+      { shell: Array.from({ length: 4 }, () => ({ material: 'silica', thicknessNm: 6 })) },
+      ['shell'],
+    ],
     ['a thickness that is a string', { shell: [{ material: 'zns', thicknessNm: '1' }] }, ['shell', 0, 'thicknessNm']],
     ['a layer with an extra field', { shell: [{ material: 'zns', thicknessNm: 1, ml: 3 }] }, ['shell', 0, 'ml']],
     ['five layers', { shell: Array.from({ length: 5 }, () => ({ material: 'zns', thicknessNm: 0.3 })) }, ['shell']],

@@ -22,7 +22,7 @@ export const LIMITS = Object.freeze({
 export const RANGES = Object.freeze({
   wavelengthNm: [200, 2000],
   diameterNm: [0.5, 30],
-  /** One shell layer, nm (giant shells and silica encapsulations stay below this). */
+  /** One shell layer and all layers together, nm (each material also has its own cap: SHELL_MATERIALS). */
   shellThicknessNm: [0, 20],
   sizeDispersionPct: [0, 30],
   fwhmNm: [1, 500],

@@ -1,7 +1,14 @@
 import { z } from 'zod';
 import { RANGES } from './limits';
 import { LIMITS } from './limits';
-import { DYE_IDS, MATERIAL_IDS, SHELL_MATERIAL_IDS, SIZING_MODELS, isSizedMaterial } from '../../spectra/index';
+import {
+  DYE_IDS,
+  MATERIAL_IDS,
+  SHELL_MATERIALS,
+  SHELL_MATERIAL_IDS,
+  SIZING_MODELS,
+  isSizedMaterial,
+} from '../../spectra/index';
 import { fraction, identifier, ranged, text, wavelengthNm } from './fields';
 import { pointsTable } from './spectrum';
 
@@ -13,13 +20,24 @@ export const MaterialIdSchema = z.enum(MATERIAL_IDS, {
   error: `must be one of ${MATERIAL_IDS.join(', ')}`,
 });
 
-/** One shell layer around a core. */
-export const ShellLayerSchema = z.strictObject({
-  material: z.enum(SHELL_MATERIAL_IDS, {
-    error: `must be one of ${SHELL_MATERIAL_IDS.join(', ')} (shell materials)`,
-  }),
-  thicknessNm: ranged(RANGES.shellThicknessNm[0], RANGES.shellThicknessNm[1], 'nm', true),
-});
+/** One shell layer around a core: a layer no thicker than its material allows (SHELL_MATERIALS). */
+export const ShellLayerSchema = z
+  .strictObject({
+    material: z.enum(SHELL_MATERIAL_IDS, {
+      error: `must be one of ${SHELL_MATERIAL_IDS.join(', ')} (shell materials)`,
+    }),
+    thicknessNm: ranged(RANGES.shellThicknessNm[0], RANGES.shellThicknessNm[1], 'nm', true),
+  })
+  .superRefine((layer, ctx) => {
+    const m = SHELL_MATERIALS[layer.material];
+    if (layer.thicknessNm > m.maxThicknessNm)
+      ctx.addIssue({
+        code: 'custom',
+        message: `must be at most ${m.maxThicknessNm} nm for a ${m.name} layer (thicker layers crack or alloy)`,
+        path: ['thicknessNm'],
+        params: { apiCode: 'out_of_range' },
+      });
+  });
 
 /** The fields that describe one dot, shared by a panel's probes and POST /dots/resolve. */
 export const dotFields = {
@@ -29,6 +47,10 @@ export const dotFields = {
   shell: z
     .array(ShellLayerSchema, { error: 'must be an array of shell layers ({"material", "thicknessNm"})' })
     .max(LIMITS.shellLayers, { error: `has more than ${LIMITS.shellLayers} layers` })
+    .refine((layers) => layers.reduce((t, l) => t + l.thicknessNm, 0) <= RANGES.shellThicknessNm[1], {
+      error: `layers must add up to at most ${RANGES.shellThicknessNm[1]} nm`,
+      params: { apiCode: 'out_of_range' },
+    })
     .optional(),
   sizingModel: z.enum(SIZING_MODELS, { error: `must be one of ${SIZING_MODELS.join(', ')}` }).optional(),
   sizeDispersionPct: ranged(RANGES.sizeDispersionPct[0], RANGES.sizeDispersionPct[1], '%').optional(),

@@ -75,6 +75,8 @@ export const ShellMaterialJson = z.strictObject({
   holeMassRel: z.number(),
   valenceBandEv: z.number(),
   monolayerNm: z.number(),
+  epitaxial: z.boolean(),
+  maxThicknessNm: z.number(),
   intrinsicHalfEvPerCm: z.number(),
   toxicity: ToxicityJson,
   sources: z.array(z.string()),

@@ -35,6 +35,12 @@ export interface ShellMaterial {
   monolayerNm: number;
   /** False for an encapsulation that does not grow on the crystal (silica): carriers do not leak into it. */
   epitaxial: boolean;
+  /**
+   * Thickest layer of this material the tool accepts, nm: epitaxial shells grow only so far before strain makes them
+   * crack or alloy (ZnS ≈ 10 monolayers, ZnSe ≈ 6 nm as in thick-shell InP probes, CdS ≈ 10 nm as in giant-shell
+   * dots; from memory, unverified, Reiss, Protière, Li, Small 2009), silica encapsulations up to 20 nm (ours).
+   */
+  maxThicknessNm: number;
   /** Intrinsic absorption 0.5 eV above the gap, cm⁻¹ (0: transparent in the range the tool models). */
   intrinsicHalfEvPerCm: number;
   toxicity: Toxicity;
@@ -65,6 +71,7 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
     valenceBandEv: -0.96,
     monolayerNm: 0.31,
     epitaxial: true,
+    maxThicknessNm: 3,
     intrinsicHalfEvPerCm: II_VI_MU_HALF,
     toxicity: {
       level: 'moderate',
@@ -87,6 +94,7 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
     valenceBandEv: -0.16,
     monolayerNm: 0.33,
     epitaxial: true,
+    maxThicknessNm: 6,
     intrinsicHalfEvPerCm: II_VI_MU_HALF,
     toxicity: {
       level: 'moderate',
@@ -108,6 +116,7 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
     valenceBandEv: -0.58,
     monolayerNm: 0.34,
     epitaxial: true,
+    maxThicknessNm: 10,
     intrinsicHalfEvPerCm: II_VI_MU_HALF,
     toxicity: {
       level: 'high',
@@ -133,6 +142,7 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
     valenceBandEv: -4.5,
     monolayerNm: 0.5,
     epitaxial: false,
+    maxThicknessNm: 20,
     intrinsicHalfEvPerCm: 0,
     toxicity: {
       level: 'low',
