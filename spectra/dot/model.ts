@@ -80,7 +80,8 @@ export function resolveSized(material: SizedMaterialId, dot: DotInput, measuredP
         'extinction are not credible enough to order by.',
     );
   warnings.push(...shellWarnings(material, diameterNm, shell));
-  if (material === 'cdse') warnings.push(cdseCurveComparison(evToNm(e1)));
+  if (material === 'cdse')
+    warnings.push(cdseCurveComparison(evToNm(e1), law === CDSE_JASIENIAK_2009, shell.length > 0));
   const eps350 = intrinsicExtinction(law.particleVolumeNm3(diameterNm), INTRINSIC_350NM_PER_CM[material]);
   const published = law.publishedExtinction(diameterNm);
   const overallDiameterNm = diameterNm + 2 * shellThicknessNm(shell);
@@ -142,7 +143,7 @@ function shellWarnings(material: SizedMaterialId, coreNm: number, shell: readonl
  * How the two published CdSe curves disagree at this colour (first exciton `firstExcitonNm`): core size and
  * first-exciton extinction by Yu 2003 and by Jasieniak 2009, computed from both (each within its own range).
  */
-export function cdseCurveComparison(firstExcitonNm: number): string {
+export function cdseCurveComparison(firstExcitonNm: number, jasieniakInUse = false, shelled = false): string {
   const yu = SIZE_LAWS.cdse;
   const jas = CDSE_JASIENIAK_2009;
   const e = nmToEv(firstExcitonNm);
@@ -158,10 +159,12 @@ export function cdseCurveComparison(firstExcitonNm: number): string {
   const epsJas = jas.publishedExtinction(dJas)!;
   const pct = (100 * (epsJas - epsYu)) / epsYu;
   return (
-    `Published CdSe curves disagree at a first exciton of ${firstExcitonNm.toFixed(0)} nm: Yu 2003 gives a ` +
+    `Published CdSe curves disagree at a first exciton of ${firstExcitonNm.toFixed(0)} nm` +
+    `${shelled ? ' (sizes of the bare core with that first exciton)' : ''}: Yu 2003 gives a ` +
     `${dYu.toFixed(2)} nm core with ε ${epsYu.toExponential(2)}, Jasieniak 2009 a ${dJas.toFixed(2)} nm core with ` +
     `ε ${epsJas.toExponential(2)} M⁻¹ cm⁻¹ (${pct >= 0 ? '+' : ''}${pct.toFixed(0)} %; its extinction law is from ` +
-    'memory, unverified). Either curve can be chosen (sizing curve; API field sizingModel).'
+    `memory, unverified). In use: ${jasieniakInUse ? 'Jasieniak 2009' : 'Yu 2003'}; either curve can be chosen ` +
+    '(sizing curve; API field sizingModel).'
   );
 }
 

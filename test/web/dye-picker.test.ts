@@ -90,3 +90,21 @@ describe('a dye probe in its card', () => {
     },
   );
 });
+
+describe('<qdp-dye-picker> other names, colours and units', () => {
+  it('"FITC" finds fluorescein, "GFP" finds EGFP, "488 nm" is read as 488', () => {
+    expect(matchDyes('FITC').map((d) => d.id)).toContain('fluorescein');
+    expect(matchDyes('GFP').map((d) => d.id)).toContain('egfp');
+    expect(matchDyes('488 nm').map((d) => d.id)).toEqual(matchDyes('488').map((d) => d.id));
+  });
+
+  it('"488" no longer lists a dye that only emits 14 nm away (mTurquoise2 absorbs at 434 nm)', () => {
+    expect(matchDyes('488').map((d) => d.id)).not.toContain('mturquoise2');
+  });
+
+  it('"red" finds the dyes emitting at 600–650 nm, mCherry among them, and no green emitter', () => {
+    const found = matchDyes('red');
+    expect(found.map((d) => d.id)).toContain('mcherry');
+    expect(found.map((d) => d.id)).not.toContain('fluorescein');
+  });
+});

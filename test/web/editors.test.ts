@@ -52,6 +52,8 @@ describe('editors', () => {
     el.probe = probe;
     el.materials = listMaterials();
     el.prediction = {
+      material: 'cdse',
+      dye: null,
       diameterNm: 4.9,
       overallDiameterNm: 4.9,
       firstExcitonNm: 590,

@@ -134,12 +134,14 @@ describe('<qdp-probe-list>', () => {
     expect(card.shadowRoot!.querySelector('[role="alert"]')?.textContent).toContain('cadmium is excluded in this lab');
   });
 
-  it('<qdp-probe-list> hands each card its own errors and prediction by probe index', async () => {
+  it('<qdp-probe-list> hands each card its own errors and prediction by probe index; a card with an error marks its prediction not updated', async () => {
     const el = await mount(panelWithProbes(2), (l) => {
       l.errors = { 1: { emissionPeakNm: 'emissionPeakNm 990 nm is out of range' } };
       l.predictions = [
         undefined,
         {
+          material: 'cdse',
+          dye: null,
           diameterNm: 5.1,
           overallDiameterNm: 5.1,
           firstExcitonNm: 528,
@@ -158,6 +160,11 @@ describe('<qdp-probe-list>', () => {
     expect(first.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain(
       'No prediction yet.',
     );
+    const secondText = second.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent;
+    expect(secondText).toContain('Not updated');
+    expect(secondText).not.toContain('emission peak 540 nm');
+    second.errors = {};
+    await second.updateComplete;
     expect(second.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain(
       'emission peak 540 nm',
     );

@@ -48,7 +48,8 @@ describe('<qdp-shell-editor>', () => {
   });
 
   it(
-    '"Bare core" clears the shell, "Typical shell" restores the ' + 'material’s usual one, "Add a layer" appends one',
+    '"Bare core" clears the shell, "Typical shell" restores the material’s usual one, "Add a layer" appends ' +
+      'silica over ZnS',
     async () => {
       const { seen, button } = await mountEditor([{ material: 'zns', thicknessNm: 0.9 }]);
       button('Bare core').click();
@@ -58,10 +59,15 @@ describe('<qdp-shell-editor>', () => {
       expect(seen[1]).toEqual(TYPICAL_SHELLS.inp);
       expect(seen[2]).toEqual([
         { material: 'zns', thicknessNm: 0.9 },
-        { material: 'zns', thicknessNm: 0.6 },
+        { material: 'silica', thicknessNm: 5 },
       ]);
     },
   );
+
+  it('shows no monolayer count for a thickness the material refuses (−1 nm ZnS)', async () => {
+    const { el } = await mountEditor([{ material: 'zns', thicknessNm: -1 }]);
+    expect(el.shadowRoot!.textContent).not.toContain('monolayers');
+  });
 
   it('shows an error that names a layer’s thickness under that layer’s field', async () => {
     const { el } = await mountEditor([{ material: 'zns', thicknessNm: 0.9 }], {

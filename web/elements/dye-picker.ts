@@ -18,20 +18,65 @@ const KIND_NAMES: Record<DyeKind, string> = {
   'fluorescent-protein': 'fluorescent protein',
 };
 
-/** How far (nm) a typed wavelength may lie from a dye's absorption or emission peak for the dye to match. */
-const NEAR_NM = 20;
+/**
+ * How far (nm) a typed wavelength may lie from a dye's absorption peak (a laser line excites it) or its emission peak
+ * (a filter collects it) for the dye to match.
+ */
+const NEAR_ABSORPTION_NM = 25;
+const NEAR_EMISSION_NM = 10;
 
-/** The dyes a query matches: by name, kind or conditions, or by a wavelength near one of the peaks. */
+/**
+ * Other names scientists search by: generic abbreviations of the same chemistry (the isothiocyanate conjugates of
+ * fluorescein and tetramethylrhodamine) and plain descriptions. Never a brand or catalogue name.
+ */
+const ALSO_KNOWN_AS: Record<string, string[]> = {
+  fluorescein: ['FITC', 'fluorescein isothiocyanate'],
+  tetramethylrhodamine: ['TRITC', 'TAMRA', 'rhodamine'],
+  'rhodamine-6g': ['rhodamine'],
+  'ethoxyphenyl-bisbenzimide': ['bisbenzimide', 'bis-benzimide', 'benzimidazole'],
+  indodicarbocyanine: ['cyanine', 'far red'],
+  dapi: ['diamidino-phenylindole'],
+  'propidium-iodide': ['PI', 'dead cell'],
+  egfp: ['GFP', 'green fluorescent protein'],
+  mcherry: ['RFP', 'red fluorescent protein'],
+  tagrfp: ['RFP', 'red fluorescent protein'],
+  mkate2: ['far-red fluorescent protein', 'far red'],
+  venus: ['YFP', 'yellow fluorescent protein'],
+  mturquoise2: ['CFP', 'cyan fluorescent protein'],
+};
+
+/** Colour words and the emission peaks (nm) they mean (common practice, approximate). */
+const COLOURS: Record<string, [number, number]> = {
+  blue: [420, 490],
+  cyan: [470, 500],
+  green: [495, 540],
+  yellow: [540, 580],
+  orange: [580, 610],
+  red: [600, 650],
+  'far red': [640, 720],
+  'far-red': [640, 720],
+};
+
+/** The dyes a query matches: by name, other name, kind, conditions or colour, or by a wavelength ("488", "488 nm"). */
 export function matchDyes(query: string, dyes: readonly Dye[] = DYES): Dye[] {
   const q = query.trim().toLowerCase();
   if (!q) return [...dyes];
-  const nm = Number(q);
-  if (Number.isFinite(nm) && nm > 0)
+  const number = /^(\d+(?:\.\d+)?)\s*(?:nm)?$/.exec(q);
+  if (number) {
+    const nm = Number(number[1]);
     return dyes.filter(
-      (d) => Math.abs(d.absorptionPeakNm.value - nm) <= NEAR_NM || Math.abs(d.emissionPeakNm.value - nm) <= NEAR_NM,
+      (d) =>
+        Math.abs(d.absorptionPeakNm.value - nm) <= NEAR_ABSORPTION_NM ||
+        Math.abs(d.emissionPeakNm.value - nm) <= NEAR_EMISSION_NM,
     );
-  return dyes.filter((d) =>
-    [d.name, d.id, KIND_NAMES[d.kind], d.conditions].some((text) => text.toLowerCase().includes(q)),
+  }
+  const colour = COLOURS[q];
+  return dyes.filter(
+    (d) =>
+      (colour !== undefined && d.emissionPeakNm.value >= colour[0] && d.emissionPeakNm.value <= colour[1]) ||
+      [d.name, d.id, KIND_NAMES[d.kind], d.conditions, ...(ALSO_KNOWN_AS[d.id] ?? [])].some((text) =>
+        text.toLowerCase().includes(q),
+      ),
   );
 }
 
@@ -120,11 +165,11 @@ export class DyePicker extends LitElement {
     const found = matchDyes(this.query);
     const chosen = DYES.find((d) => d.id === this.selected);
     return html`<label class="text"
-        >Find a dye (name, kind or wavelength)
+        >Find a dye (name, kind, colour or wavelength)
         <input
           type="search"
           .value=${this.query}
-          placeholder="e.g. nuclear, fluorescein, 488"
+          placeholder="e.g. nuclear, FITC, green, 488 nm"
           @input=${(e: Event) => (this.query = (e.target as HTMLInputElement).value)}
       /></label>
       <ul aria-label="Dyes in the library">

@@ -28,6 +28,7 @@ export type ProbeCardMaterial = Pick<
   | 'typicalSizeDispersionPct'
   | 'typicalFwhmNm'
   | 'typicalShell'
+  | 'typicalShellEmissionRangeNm'
   | 'sizingModels'
   | 'toxicity'
 >;
@@ -51,14 +52,18 @@ function predictionText(pr: ProbePrediction): string {
     pr.overallDiameterNm !== null && pr.overallDiameterNm !== pr.diameterNm
       ? `, with shell ${fmt(pr.overallDiameterNm, 2)} nm`
       : '';
-  return [
-    `Predicted: core ${fmt(pr.diameterNm, 2)} nm${overall}`,
-    `first exciton ${fmt(pr.firstExcitonNm)} nm`,
+  const parts = [
+    ...(pr.diameterNm === null ? [] : [`core ${fmt(pr.diameterNm, 2)} nm${overall}`]),
+    ...(pr.firstExcitonNm === null ? [] : [`first exciton ${fmt(pr.firstExcitonNm)} nm`]),
     `emission peak ${fmt(pr.emissionPeakNm)} nm`,
     `FWHM ${fmt(pr.fwhmNm)} nm`,
     `relative brightness ${percent(pr.relativeBrightness)}${pr.measured ? ' · measured emission' : ''}`,
-  ].join(' · ');
+  ];
+  return `Predicted: ${parts.join(' · ')}`;
 }
+
+/** Shown instead of the prediction while it belongs to an earlier state of the probe. */
+const NOT_UPDATED = 'Not updated: the prediction returns once the fields above are valid.';
 
 /** The probe's fields the card edits as numbers. */
 type NumberKey =
@@ -159,13 +164,19 @@ export class ProbeCard extends LitElement {
     if (!m) return;
     // A new material comes with its own usual shell (none for materials without a size law); fields that only one
     // kind of probe takes go when the probe changes kind.
+    // The quantum yield, width and size dispersion were the old material's: the new one starts from its own typical
+    // values.
     const patch: Partial<ProbeSpec> = {
       material: m.id,
       shell: m.typicalShell && m.typicalShell.length > 0 ? m.typicalShell.map((l) => ({ ...l })) : undefined,
       sizingModel: undefined,
       dye: undefined,
+      quantumYield: undefined,
+      fwhmNm: undefined,
+      sizeDispersionPct: undefined,
     };
     if (m.id !== 'custom') Object.assign(patch, { absorptionPeakNm: undefined, extinctionPeak: undefined });
+    if (m.id === 'custom') Object.assign(patch, { emissionPeakNm: undefined, diameterNm: undefined });
     if (m.id === 'dye') {
       Object.assign(patch, {
         dye: this.probe.dye ?? DYES[0].id,
@@ -176,9 +187,11 @@ export class ProbeCard extends LitElement {
       this.change(patch);
       return;
     }
-    // Keep the emission peak when the new material can reach it; otherwise move it to the middle of its range.
-    if (m.emissionRangeNm) {
-      const [lo, hi] = m.emissionRangeNm;
+    // Keep the emission peak when the new material can reach it under its typical shell; otherwise move it to the
+    // middle of that range.
+    const reach = m.typicalShellEmissionRangeNm ?? m.emissionRangeNm;
+    if (reach && m.id !== 'custom') {
+      const [lo, hi] = reach;
       const peak = this.probe.emissionPeakNm;
       if (this.probe.diameterNm === undefined && (peak === undefined || peak < lo || peak > hi))
         patch.emissionPeakNm = Math.round((lo + hi) / 2);
@@ -354,6 +367,9 @@ export class ProbeCard extends LitElement {
     if (p.material === 'dye') shown.push('dye');
     if (sized) shown.push(...Object.keys(this.errors).filter((k) => k === 'shell' || k.startsWith('shell.')));
     const pr = this.prediction;
+    // A prediction made for another material or dye, or while a field of this probe is refused, is out of date.
+    const stale =
+      !pr || pr.material !== p.material || (pr.dye ?? null) !== (p.dye ?? null) || Object.keys(this.errors).length > 0;
     return html` <header>
         <strong>${p.label || p.id}</strong>
         <button type="button" aria-label=${`Remove probe ${p.label || p.id}`} @click=${this.fireRemove}>Remove</button>
@@ -392,9 +408,11 @@ export class ProbeCard extends LitElement {
       ${sized ? this.shellEditor(m!) : ''} ${p.material === 'dye' ? this.dyeChoice() : ''} ${this.hazard(m)}
       ${this.shellHazards()}
       ${messagesBesides(this.errors, shown).map((message) => html`<p class="bad" role="alert">${message}</p>`)}
-      <p class="pred" aria-label="Predicted properties">${pr ? predictionText(pr) : 'No prediction yet.'}</p>
+      <p class="pred" aria-label="Predicted properties">
+        ${!pr ? 'No prediction yet.' : stale ? NOT_UPDATED : predictionText(pr)}
+      </p>
       ${
-        pr?.warnings.length
+        pr?.warnings.length && !stale
           ? html`<ul class="hazard">
               ${pr.warnings.map((w) => html`<li>${w}</li>`)}
             </ul>`

@@ -9,6 +9,12 @@ import { LIMITS, SHELL_MATERIALS, type ShellLayer, type ShellMaterialId } from '
 import { fieldRows, focusRing, textFields } from './shared-styles';
 import './number-field';
 
+/**
+ * Thickness of a newly added layer, nm: about two monolayers of ZnS (0.31 nm each, see shells/materials.ts), a thin
+ * silica encapsulation of 5 nm as in the typical CsPbBr3 shell, about two monolayers otherwise (ours).
+ */
+const NEW_LAYER_NM: Record<ShellMaterialId, number> = { zns: 0.6, znse: 0.7, cds: 0.7, silica: 5 };
+
 @customElement('qdp-shell-editor')
 export class ShellEditor extends LitElement {
   @property({ attribute: false }) shell: ShellLayer[] = [];
@@ -61,7 +67,10 @@ export class ShellEditor extends LitElement {
   }
 
   private layerRow(layer: ShellLayer, i: number) {
-    const monolayers = layer.thicknessNm / SHELL_MATERIALS[layer.material].monolayerNm;
+    const material = SHELL_MATERIALS[layer.material];
+    const monolayers = layer.thicknessNm / material.monolayerNm;
+    // Only a thickness the material takes gets a monolayer count (a refused one shows its error instead).
+    const valid = layer.thicknessNm > 0 && layer.thicknessNm <= material.maxThicknessNm;
     const name = `Layer ${i + 1}`;
     return html`<div class="row" role="group" aria-label=${name}>
       <label class="text"
@@ -83,7 +92,7 @@ export class ShellEditor extends LitElement {
         @value-change=${(e: CustomEvent<{ value?: number }>) =>
           e.detail.value !== undefined && this.setLayer(i, { thicknessNm: e.detail.value })}
       ></qdp-number-field>
-      <span class="ml">${Number.isFinite(monolayers) ? `≈ ${monolayers.toFixed(1)} monolayers` : ''}</span>
+      <span class="ml">${valid ? `≈ ${monolayers.toFixed(1)} monolayers` : ''}</span>
       <button
         type="button"
         aria-label=${`Remove shell layer ${i + 1}`}
@@ -96,7 +105,10 @@ export class ShellEditor extends LitElement {
 
   override render() {
     const listError = this.errors[''];
-    const outer = this.shell.length > 0 ? this.shell[this.shell.length - 1].material : 'zns';
+    // A new outer layer is ZnS, the usual outermost shell, unless the outer layer already is: then silica.
+    const outer = this.shell.length > 0 ? this.shell[this.shell.length - 1].material : null;
+    const next: ShellMaterialId = outer === 'zns' ? 'silica' : 'zns';
+    const full = this.shell.length >= LIMITS.shellLayers;
     return html`<fieldset>
       <legend>Shell (innermost first)</legend>
       ${this.shell.length === 0 ? html`<p class="none">Bare core: no shell.</p>` : ''}
@@ -105,11 +117,13 @@ export class ShellEditor extends LitElement {
       <div class="row">
         <button
           type="button"
-          ?disabled=${this.shell.length >= LIMITS.shellLayers}
-          @click=${() => this.fire([...this.shell, { material: outer, thicknessNm: 0.6 }])}
+          ?disabled=${full}
+          title=${full ? `At most ${LIMITS.shellLayers} layers` : ''}
+          @click=${() => this.fire([...this.shell, { material: next, thicknessNm: NEW_LAYER_NM[next] }])}
         >
           Add a layer
         </button>
+        ${full ? html`<span class="ml">At most ${LIMITS.shellLayers} layers.</span>` : ''}
         <button
           type="button"
           ?disabled=${this.typical.length === 0}

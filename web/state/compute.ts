@@ -30,8 +30,10 @@ export const DETECTORS = listDetectors();
 /** What the model predicts for one probe, for the read-out under its fields. */
 export interface ProbePrediction extends Pick<
   ProbeEvaluation,
-  'diameterNm' | 'overallDiameterNm' | 'firstExcitonNm' | 'emissionPeakNm' | 'fwhmNm' | 'warnings'
+  'material' | 'diameterNm' | 'overallDiameterNm' | 'firstExcitonNm' | 'emissionPeakNm' | 'fwhmNm' | 'warnings'
 > {
+  /** The dye the prediction was made for (dye probes), so a card can tell an out-of-date prediction. */
+  dye: string | null;
   /** Collected-light brightness at the excitation relative to the brightest probe of the panel, 0–1. */
   relativeBrightness: number;
   /** True when the emission shape is the probe's measured spectrum. */
@@ -194,7 +196,9 @@ export function computePanel(
     warnings: ev.warnings,
   };
   const maxBright = Math.max(0, ...ev.probes.map((d) => d.brightnessPerAbundance));
-  const predictions: ProbePrediction[] = ev.probes.map((d) => ({
+  const predictions: ProbePrediction[] = ev.probes.map((d, p) => ({
+    material: d.material,
+    dye: panel.probes[p].dye ?? null,
     diameterNm: d.diameterNm,
     overallDiameterNm: d.overallDiameterNm,
     firstExcitonNm: d.firstExcitonNm,

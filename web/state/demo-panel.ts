@@ -38,7 +38,7 @@ export function demoPanel(): PanelSpec {
         label: 'Yellow dot',
         material: 'inp',
         emissionPeakNm: 570,
-        shell: [{ material: 'zns', thicknessNm: 0.6 }],
+        shell: [{ material: 'zns', thicknessNm: 0.4 }],
         quantumYield: 0.5,
         target: 'mitochondrial marker',
         abundance: 1,
