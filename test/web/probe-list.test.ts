@@ -134,39 +134,43 @@ describe('<qdp-probe-list>', () => {
     expect(card.shadowRoot!.querySelector('[role="alert"]')?.textContent).toContain('cadmium is excluded in this lab');
   });
 
-  it('<qdp-probe-list> hands each card its own errors and prediction by probe index; a card with an error marks its prediction not updated', async () => {
-    const el = await mount(panelWithProbes(2), (l) => {
-      l.errors = { 1: { emissionPeakNm: 'emissionPeakNm 990 nm is out of range' } };
-      l.predictions = [
-        undefined,
-        {
-          material: 'cdse',
-          dye: null,
-          diameterNm: 5.1,
-          overallDiameterNm: 5.1,
-          firstExcitonNm: 528,
-          emissionPeakNm: 540,
-          fwhmNm: 30,
-          relativeBrightness: 0.8,
-          measured: false,
-          warnings: [],
-        },
-      ];
-    });
-    const [first, second] = cards(el);
-    expect(first.errors).toEqual({});
-    expect(second.errors).toEqual({ emissionPeakNm: 'emissionPeakNm 990 nm is out of range' });
-    await Promise.all([first.updateComplete, second.updateComplete]);
-    expect(first.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain(
-      'No prediction yet.',
-    );
-    const secondText = second.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent;
-    expect(secondText).toContain('Not updated');
-    expect(secondText).not.toContain('emission peak 540 nm');
-    second.errors = {};
-    await second.updateComplete;
-    expect(second.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain(
-      'emission peak 540 nm',
-    );
-  });
+  it(
+    '<qdp-probe-list> hands each card its own errors and prediction by probe index; a card with an error marks its ' +
+      'prediction not updated',
+    async () => {
+      const el = await mount(panelWithProbes(2), (l) => {
+        l.errors = { 1: { emissionPeakNm: 'emissionPeakNm 990 nm is out of range' } };
+        l.predictions = [
+          undefined,
+          {
+            material: 'cdse',
+            dye: null,
+            diameterNm: 5.1,
+            overallDiameterNm: 5.1,
+            firstExcitonNm: 528,
+            emissionPeakNm: 540,
+            fwhmNm: 30,
+            relativeBrightness: 0.8,
+            measured: false,
+            warnings: [],
+          },
+        ];
+      });
+      const [first, second] = cards(el);
+      expect(first.errors).toEqual({});
+      expect(second.errors).toEqual({ emissionPeakNm: 'emissionPeakNm 990 nm is out of range' });
+      await Promise.all([first.updateComplete, second.updateComplete]);
+      expect(first.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain(
+        'No prediction yet.',
+      );
+      const secondText = second.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent;
+      expect(secondText).toContain('Not updated');
+      expect(secondText).not.toContain('emission peak 540 nm');
+      second.errors = {};
+      await second.updateComplete;
+      expect(second.shadowRoot!.querySelector('[aria-label="Predicted properties"]')!.textContent).toContain(
+        'emission peak 540 nm',
+      );
+    },
+  );
 });

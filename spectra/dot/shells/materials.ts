@@ -159,7 +159,8 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
 /**
  * Valence-band top of each sized core material on the same scale (CdSe = 0), eV, chosen with the shells' values above
  * to reproduce the quoted offsets (M, from memory, unverified): CdS −0.58, CdTe +0.64 (CdTe/CdS valence offset ≈ 1.2
- * eV), InP +0.6 (InP/ZnSe valence offset ≈ 0.76 eV), GaAs +0.94 (GaAs/ZnSe ≈ 1.1 eV), CsPbBr3 −0.3 (rough; perovskite dots are
+ * eV), InP +0.6 (InP/ZnSe valence offset ≈ 0.76 eV), GaAs +0.94 (GaAs/ZnSe ≈ 1.1 eV), CsPbBr3 −0.3 (rough;
+ * perovskite dots are
  * usually encapsulated rather than epitaxially shelled).
  */
 export const CORE_VALENCE_BAND_EV = {
