@@ -167,9 +167,8 @@ export function cutWarning(lineNm: number, cutFraction: number, sized: boolean):
     `${(100 * cutFraction).toFixed(1)} % of the nominal emission lies at or below the ${lineNm} nm line and is ` +
     'removed (no photon is emitted bluer than the one absorbed); the rest is renormalised.' +
     (sized
-      ? ' Only the larger dots of the ensemble ' +
-        'absorb this line: expect ' +
-        'the measured peak to the red of the nominal one.'
+      ? ' Only the larger dots of the ensemble absorb this line: expect the measured peak to the red of the nominal ' +
+        'one.'
       : '')
   );
 }

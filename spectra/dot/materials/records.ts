@@ -98,11 +98,9 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     typicalHydrodynamicDiameterNm: 15,
     warnings: [
       'diameterNm is the equivalent-sphere diameter of the tetrahedral core (≈ 0.608 × edge length).',
-      'Two transcriptions of the Almeida et ' +
-        'al. 2023 law disagree ' +
-        '(edge-length exponent −0.684 against −0.753 implied ' +
-        'by the volume form): the tool uses the edge-length form; they differ by up to ~12 nm at the smallest cores ' +
-        'and by at most 6 nm for cores of 2 nm and more.',
+      'The edge-length and volume fits of Almeida et al. 2023, as quoted, disagree (exponent −0.684 against −0.753 ' +
+        'implied by the volume fit): the tool uses the edge-length fit; they differ by up to ~12 nm at the smallest ' +
+        'cores and by at most 6 nm for cores of 2 nm and more.',
       'InP extinction is a nominal model (from memory, unverified): supply a measured extinction where brightness ' +
         'matters.',
     ],

@@ -99,8 +99,9 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
     toxicity: {
       level: 'moderate',
       notes: [
-        'Selenium compounds are toxic in excess; zinc selenide is not classified as a carcinogen (not listed by ' +
-          'IARC). ZnSe absorbs violet light strongly, which is why InP/ZnSe probes are bright under a 405 nm line.',
+        'Selenium compounds are toxic in excess (WHO, Environmental Health Criteria 58: Selenium, 1987; from ' +
+          'memory, unverified); zinc selenide has no IARC classification of its own (selenium and selenium ' +
+          'compounds: Group 3, IARC Monographs Vol. 9 and Suppl. 7; from memory, unverified).',
       ],
       cautions: [DEFER, NANO],
     },
@@ -148,11 +149,13 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
       level: 'low',
       notes: [
         'Amorphous silica encapsulation is used to hold core ions in (e.g. Pb²⁺ of perovskite dots); it slows but ' +
-          'does not guarantee containment, and crystalline silica dust is a recognised inhalation hazard.',
+          'does not guarantee containment.',
+        'Crystalline silica dust (quartz, cristobalite): IARC Group 1, carcinogenic to humans by inhalation (IARC ' +
+          'Monographs Vol. 100C, 2012); amorphous silica is not classified as such, but avoid inhaling any dust.',
       ],
       cautions: [DEFER, NANO],
     },
-    sources: [HANDBOOK],
+    sources: [HANDBOOK, 'IARC Monographs Vol. 100C 2012'],
   },
 };
 
@@ -160,8 +163,7 @@ export const SHELL_MATERIALS: Record<ShellMaterialId, ShellMaterial> = {
  * Valence-band top of each sized core material on the same scale (CdSe = 0), eV, chosen with the shells' values above
  * to reproduce the quoted offsets (M, from memory, unverified): CdS −0.58, CdTe +0.64 (CdTe/CdS valence offset ≈ 1.2
  * eV), InP +0.6 (InP/ZnSe valence offset ≈ 0.76 eV), GaAs +0.94 (GaAs/ZnSe ≈ 1.1 eV), CsPbBr3 −0.3 (rough;
- * perovskite dots are
- * usually encapsulated rather than epitaxially shelled).
+ * perovskite dots are usually encapsulated rather than epitaxially shelled).
  */
 export const CORE_VALENCE_BAND_EV = {
   cdse: 0,
