@@ -12,7 +12,7 @@ import { logNormalShape, nmToPerCm, type LogNormalBand } from './lognormal';
  *   2002), switched on smoothly (smoothstep over 3σ) so that ε at the first exciton equals the first-exciton ε.
  * - 'tail' (carbon dots): ε350 · exp(−(λ − 350)/decay).
  * - 'lognormal' (dyes, and custom probes without a measured extinction): ε_peak · S(10⁷/λ), the log-normal band of
- *   Siano & Metzler, J. Chem. Phys. 1969 (lognormal.ts).
+ *   Siano & Metzler, J. Chem. Phys. 1969 (lognormal.ts); on its blue side never below BLUE_FLOOR_SHARE of the peak.
  * - 'table' (measured): linear interpolation, zero outside the table.
  */
 export type AbsorptionModel =
@@ -50,6 +50,14 @@ export function shellExtinction(part: ShellAbsorptionPart, energyEv: number): nu
   const mu = part.intrinsicHalfEvPerCm * Math.sqrt(Math.min(above, SHELL_EDGE_CAP_EV) / 0.5);
   return intrinsicExtinction(part.volumeNm3, mu);
 }
+
+/**
+ * On the blue side of a dye's main absorption band, ε rarely falls below a few percent of its peak: vibronic shoulders
+ * and higher singlet bands follow (common practice, M; e.g. fluorescein, the fluorescent proteins and cyanines are
+ * all weakly excited by a 405 nm line). A single log-normal band falls to 1e-4 and less there, so the modelled band
+ * keeps a floor of 5 % of its peak on its blue side (ours, approximate); a measured extinction replaces it.
+ */
+export const BLUE_FLOOR_SHARE = 0.05;
 
 /** Energy of 350 nm light, eV: the reference wavelength of the intrinsic absorption. */
 const E350_EV = HC_EV_NM / 350;
@@ -89,8 +97,11 @@ export function modelExtinctionAtNm(model: AbsorptionModel, wavelengthNm: number
     }
     case 'tail':
       return model.epsilonAt350 * Math.exp(-(wavelengthNm - 350) / model.decayNm);
-    case 'lognormal':
-      return model.peakEpsilon * logNormalShape(nmToPerCm(wavelengthNm), model.band);
+    case 'lognormal': {
+      const perCm = nmToPerCm(wavelengthNm);
+      const shape = logNormalShape(perCm, model.band);
+      return model.peakEpsilon * (perCm > model.band.peakPerCm ? Math.max(shape, BLUE_FLOOR_SHARE) : shape);
+    }
     case 'table':
       return interpolateTable(model.points, wavelengthNm, 0);
   }
