@@ -54,6 +54,20 @@ const dye = (id: string) => listDyes().find((d) => d.id === id)!;
 const hazardText = (id: string) => [...dye(id).toxicity.notes, ...dye(id).toxicity.cautions].join(' ');
 
 describe('the dye library against its sources', () => {
+  it(
+    'the sulfonated indodicarbocyanine lies inside the ranges the Markova et al. 2013 abstract gives (P): absorption ' +
+      '649–653 nm, emission 668–672 nm, ε 240,000–256,000, QY 0.28–0.32',
+    () => {
+      const d = dye('indodicarbocyanine');
+      const inside = (v: number, lo: number, hi: number) =>
+        expect(v >= lo && v <= hi, `${v} in ${lo}–${hi}`).toBe(true);
+      inside(d.absorptionPeakNm.value, 649, 653);
+      inside(d.emissionPeakNm.value, 668, 672);
+      inside(d.extinctionPeak.value, 240000, 256000);
+      inside(d.quantumYield.value, 0.28, 0.32);
+    },
+  );
+
   it('listDyes() holds at least 12 dyes, every one of them in the table of published values', () => {
     expect(DYE_IDS.length).toBeGreaterThanOrEqual(12);
     expect([...DYE_IDS].sort()).toEqual(PUBLISHED.map((row) => row[0]).sort());
