@@ -183,7 +183,7 @@ export const RECORDS: Record<MaterialId, MaterialRecord> = {
     sources: ['Siano, Metzler, J. Chem. Phys. 1969'],
   },
   dye: {
-    name: 'Dye library (dyes, counterstains, fluorescent proteins)',
+    name: 'Dye, stain or fluorescent protein',
     family: 'other',
     elements: [],
     typicalFwhmNm: 40,
