@@ -55,13 +55,16 @@ describe('POST /api/v1/dots/resolve with dye and custom probes', () => {
     (api.spectrum.values as number[]).forEach((v, i) => expectClose(v, values[i], `spectrum[${i}]`, floor));
   });
 
-  it('POST /api/v1/dots/resolve for a custom probe absorbing at 650 nm: ε at 405 nm under a tenth of ε at 640 nm', async () => {
-    const dot = { material: 'custom', measuredEmission: { points: emission(670, 12) }, absorptionPeakNm: 650 };
-    const at = async (nm: number) =>
-      ((await (await postJson(worker, '/api/v1/dots/resolve', { ...dot, excitationNm: nm })).json()) as any)
-        .extinctionAtExcitation as number;
-    expect((await at(405)) / (await at(640))).toBeLessThan(0.1);
-  });
+  it(
+    'POST /api/v1/dots/resolve for a custom probe absorbing at 650 nm: ε at 405 nm under a tenth of ε at ' + '640 nm',
+    async () => {
+      const dot = { material: 'custom', measuredEmission: { points: emission(670, 12) }, absorptionPeakNm: 650 };
+      const at = async (nm: number) =>
+        ((await (await postJson(worker, '/api/v1/dots/resolve', { ...dot, excitationNm: nm })).json()) as any)
+          .extinctionAtExcitation as number;
+      expect((await at(405)) / (await at(640))).toBeLessThan(0.1);
+    },
+  );
 });
 
 describe('POST /api/v1/panels/evaluate with dye probes', () => {
