@@ -96,6 +96,7 @@ export { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from './
 // The light path: filters, detectors, sample background.
 export { FILTER_DEFAULTS, MAX_BLOCKING_OD } from './light/filters/defaults';
 export { filterTransmission } from './light/filters/filter';
+export { DEFAULT_MIN_BLOCKING_OD, lineBlocking, type LineBlocking } from './light/line-blocking';
 export { channelTransmission } from './light/filters/channel';
 export { DEFAULT_DETECTOR_ID, DETECTOR_IDS, detectorQe, listDetectors, type DetectorClass } from './light/detectors';
 export { AUTOFLUORESCENCE_BANDS, BACKGROUND_REFERENCE_BRIGHTNESS, defaultAutofluorescence } from './light/background';

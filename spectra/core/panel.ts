@@ -144,6 +144,8 @@ export interface PanelSpec {
   probes: ProbeSpec[];
   channels: ChannelSpec[];
   background?: BackgroundSpec;
+  /** OD every channel should block the lines it is read under by (default 6); less gets a warning. */
+  minBlockingOD?: number;
 }
 
 // FILTER_TYPES must list exactly the kinds of FilterSpec (a compile error otherwise).

@@ -7,6 +7,7 @@ import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
 import type { PanelSpec } from '../core/panel';
 import { collectedMatrix, crosstalkFigures, type WorstInterference } from './crosstalk';
 import { makeJsonSafe } from './json-safe';
+import { DEFAULT_MIN_BLOCKING_OD, lineBlocking } from '../light/line-blocking';
 import { buildPanelModel, type PanelModel, type ProbeEvaluation } from './panel-model';
 import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
 import { diagnoseMixing } from './unmix';
@@ -70,7 +71,8 @@ export function evaluatePanel(
   const collected = collectedMatrix(components, transmissions, grid.stepNm);
   const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
   const diagnostics = diagnoseMixing(collected, probeIds);
-  const warnings = [...figures.warnings, ...diagnostics.warnings];
+  const leaks = lineBlocking(panel, model.linesOnByChannel, panel.minBlockingOD ?? DEFAULT_MIN_BLOCKING_OD);
+  const warnings = [...figures.warnings, ...diagnostics.warnings, ...leaks.warnings];
   const evaluation: PanelEvaluation = {
     grid: { ...grid },
     probes: model.probeEvaluations,

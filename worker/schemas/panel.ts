@@ -67,6 +67,7 @@ export const Panel = z
       .min(1, { error: 'needs at least one channel' })
       .max(LIMITS.channels, { error: `has more than ${LIMITS.channels} channels` }),
     background: Background.optional(),
+    minBlockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
   })
   .superRefine(checkReferences);
 
