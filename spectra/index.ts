@@ -97,6 +97,13 @@ export { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from './
 export { FILTER_DEFAULTS, MAX_BLOCKING_OD } from './light/filters/defaults';
 export { filterTransmission } from './light/filters/filter';
 export { DEFAULT_MIN_BLOCKING_OD, lineBlocking, type LineBlocking } from './light/line-blocking';
+export {
+  STOCK_BANDPASS_RULE,
+  isStockBandpass,
+  listStockBandpasses,
+  nearestStockBandpass,
+  type StockBandpass,
+} from './light/filters/stock';
 export { channelTransmission } from './light/filters/channel';
 export { DEFAULT_DETECTOR_ID, DETECTOR_IDS, detectorQe, listDetectors, type DetectorClass } from './light/detectors';
 export { AUTOFLUORESCENCE_BANDS, BACKGROUND_REFERENCE_BRIGHTNESS, defaultAutofluorescence } from './light/background';

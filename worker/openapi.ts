@@ -26,6 +26,7 @@ const COMPONENTS: [string, z.ZodType][] = [
   ['BackgroundPresetList', schemas.BackgroundPresetList],
   ['Dye', schemas.Dye],
   ['DyeList', schemas.DyeList],
+  ['StockFilterList', schemas.StockFilterList],
 ];
 
 const ref = (name: string): Json => ({ $ref: `#/components/schemas/${name}` });
@@ -94,6 +95,10 @@ export function openApiDocument(): Json {
       '/api/v1/dyes': get(
         'dyes, counterstains and fluorescent proteins, each number with its source and status',
         json(ref('DyeList'), 'ok'),
+      ),
+      '/api/v1/filters/stock': get(
+        'stock bandpass sizes (centre/width pairs) and their rule',
+        json(ref('StockFilterList'), 'ok'),
       ),
       '/api/v1/dots/resolve': post('one dot: size, peak, spectrum', 'DotRequest', {
         '200': json(ref('ResolvedDot'), 'ok'),

@@ -191,6 +191,7 @@ describe('security headers', () => {
       ['/api/v1/detectors'],
       ['/api/v1/backgrounds'],
       ['/api/v1/dyes'],
+      ['/api/v1/filters/stock'],
       ['/api/v1/openapi.json'],
       [`/api/v1/panels/${storedId}`],
       ['/api/v1/nothing'],

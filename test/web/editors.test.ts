@@ -164,3 +164,31 @@ describe('editors: messages without a field of their own', () => {
     expect(alerts).toEqual(["405 nm is not one of the panel's excitation lines"]);
   });
 });
+
+describe('stock filter sizes in the channel card', () => {
+  it('a 589/34 bandpass reads "custom size" and its button sets the nearest stock size 590/30', async () => {
+    const el = document.createElement('qdp-channel-card');
+    el.channel = { id: 'c1', filters: [{ type: 'bandpass', centerNm: 589, widthNm: 34 }] };
+    el.lines = [405];
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const changes: ChannelSpec[] = [];
+    el.addEventListener('channel-change', (e) =>
+      changes.push((e as CustomEvent<{ channel: ChannelSpec }>).detail.channel),
+    );
+    expect(el.shadowRoot!.textContent).toContain('custom size');
+    const button = [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.includes('590/30'))!;
+    button.click();
+    expect(changes[0].filters[0]).toEqual({ type: 'bandpass', centerNm: 590, widthNm: 30 });
+  });
+
+  it('a 605/20 bandpass reads "stock size" with no button to change it', async () => {
+    const el = document.createElement('qdp-channel-card');
+    el.channel = { id: 'c1', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] };
+    el.lines = [405];
+    document.body.appendChild(el);
+    await el.updateComplete;
+    expect(el.shadowRoot!.textContent).toContain('stock size');
+    expect(el.shadowRoot!.textContent).not.toContain('Use stock');
+  });
+});

@@ -36,6 +36,7 @@ describe('health and description', () => {
       '/api/v1/detectors',
       '/api/v1/backgrounds',
       '/api/v1/dyes',
+      '/api/v1/filters/stock',
       '/api/v1/dots/resolve',
       '/api/v1/panels/evaluate',
       '/api/v1/panels',

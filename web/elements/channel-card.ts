@@ -8,6 +8,8 @@ import { customElement, property } from 'lit/decorators.js';
 import { cardFrame, fieldRows, focusRing, textFields } from './shared-styles';
 import {
   FILTER_TYPES,
+  isStockBandpass,
+  nearestStockBandpass,
   type ChannelSpec,
   type DetectorClass,
   type FilterSpec,
@@ -64,6 +66,11 @@ export class ChannelCard extends LitElement {
     fieldRows,
     textFields,
     css`
+      .stock {
+        font-size: 0.8rem;
+        color: #333;
+        align-self: center;
+      }
       header {
         display: flex;
         justify-content: space-between;
@@ -123,10 +130,23 @@ export class ChannelCard extends LitElement {
     >`;
   }
 
+  /** Whether a bandpass is a stock size, and the nearest stock size when it is not. */
+  private stockSize(f: Extract<FilterSpec, { type: 'bandpass' }>, j: number) {
+    if (isStockBandpass(f.centerNm, f.widthNm)) return html`<span class="stock">stock size</span>`;
+    const near = nearestStockBandpass(f.centerNm, f.widthNm);
+    return html`<span class="stock"
+      >custom size
+      <button type="button" @click=${() => this.setFilter(j, { ...f, ...near })}>
+        Use stock ${near.centerNm}/${near.widthNm}
+      </button></span
+    >`;
+  }
+
   /** The numbers that place a filter: a bandpass's centre and width, an edge filter's edge, a table's summary. */
   private filterFields(f: FilterSpec, j: number) {
     if (f.type === 'bandpass')
-      return html`${this.num(j, f, 'centerNm', 'Centre')}${this.num(j, f, 'widthNm', 'Width (FWHM)')}`;
+      return html`${this.num(j, f, 'centerNm', 'Centre')}${this.num(j, f, 'widthNm', 'Width (FWHM)')}
+      ${this.stockSize(f, j)}`;
     if (f.type === 'table') return html`<span>${describeFilter(f)}</span>`;
     return this.num(j, f, 'edgeNm', 'Edge');
   }

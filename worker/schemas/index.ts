@@ -38,6 +38,7 @@ export {
   CitationJson,
   BackgroundBandJson,
   BackgroundPresetList,
+  StockFilterList,
   ResolvedDotJson,
   ToxicityJson,
 } from './responses';

@@ -154,3 +154,14 @@ export const ResolvedDotJson = z.strictObject({
   spectrum: SampledSpectrumJson,
   absorption: SampledSpectrumJson,
 });
+
+/** GET /api/v1/filters/stock: the stock bandpass rule, every stock size and what the list is. */
+export const StockFilterList = z.strictObject({
+  rule: z.strictObject({
+    centerStepNm: z.number(),
+    centerRangeNm: z.tuple([z.number(), z.number()]),
+    widthsNm: z.array(z.number()),
+  }),
+  bandpasses: z.array(z.strictObject({ centerNm: z.number(), widthNm: z.number() })),
+  note: z.string(),
+});
