@@ -96,7 +96,13 @@ export { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from './
 // The light path: filters, detectors, sample background.
 export { FILTER_DEFAULTS, MAX_BLOCKING_OD } from './light/filters/defaults';
 export { filterTransmission } from './light/filters/filter';
-export { DEFAULT_MIN_BLOCKING_OD, lineBlocking, type LineBlocking } from './light/line-blocking';
+export {
+  DEFAULT_MIN_BLOCKING_OD,
+  DEFAULT_SCATTER_LEVEL,
+  lineBlocking,
+  lineLeak,
+  type LineBlocking,
+} from './light/line-blocking';
 export {
   STOCK_BANDPASS_RULE,
   isStockBandpass,

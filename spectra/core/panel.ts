@@ -146,6 +146,8 @@ export interface PanelSpec {
   background?: BackgroundSpec;
   /** OD every channel should block the lines it is read under by (default 6); less gets a warning. */
   minBlockingOD?: number;
+  /** Scattered excitation light reaching the detector unfiltered, in the units of `collected` (default 1e10). */
+  scatterLevel?: number;
 }
 
 // FILTER_TYPES must list exactly the kinds of FilterSpec (a compile error otherwise).

@@ -6,6 +6,7 @@
  */
 import type { PanelSpec } from '../core/panel';
 import { filterTransmission } from './filters/filter';
+import { detectorQe } from './detectors';
 
 /** OD a channel's filters should reach at every line it is read under (common practice), unless a panel says else. */
 export const DEFAULT_MIN_BLOCKING_OD = 6;
@@ -53,4 +54,31 @@ export function lineBlocking(
     }
   });
   return { blocking, warnings };
+}
+
+/**
+ * Scattered excitation light reaching the detector before any filter, in the units of `collected`: a sample property
+ * (`scatterLevel` of a panel). Default 1e10, this tool's convention (ours, M): a tissue section scatters about 1e5
+ * times the light of a bright probe (ε × QY = 1e5 M⁻¹ cm⁻¹ at abundance 1, the background's reference) towards the
+ * detector, so a filter at OD 6 lets through a tenth of such a probe's light: the reason emission filters are
+ * specified at OD ≥ 6 at the laser lines (common practice). Real samples differ by orders of magnitude (clear cells
+ * scatter far less, thick or fatty tissue more).
+ */
+export const DEFAULT_SCATTER_LEVEL = 1e10;
+
+/**
+ * Excitation light leaking into each channel, lineLeak[c][l] = powerRel × scatterLevel × T_c(λ_l) for every line l the
+ * channel is read under (0 for the others), with T_c the channel's filters times its detector's QE at the line.
+ */
+export function lineLeak(panel: PanelSpec, linesOnByChannel: number[][], scatterLevel: number): number[][] {
+  return panel.channels.map((channel, c) => {
+    const row = new Array<number>(panel.excitation.length).fill(0);
+    for (const l of linesOnByChannel[c]) {
+      const line = panel.excitation[l];
+      const grid = { startNm: line.wavelengthNm, stepNm: 1, count: 1 };
+      const qe = channel.detector === undefined ? 1 : detectorQe(channel.detector, grid)[0];
+      row[l] = (line.powerRel ?? 1) * scatterLevel * filtersTransmissionAtNm(channel, line.wavelengthNm) * qe;
+    }
+    return row;
+  });
 }

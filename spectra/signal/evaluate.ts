@@ -7,7 +7,7 @@ import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
 import type { PanelSpec } from '../core/panel';
 import { collectedMatrix, crosstalkFigures, type WorstInterference } from './crosstalk';
 import { makeJsonSafe } from './json-safe';
-import { DEFAULT_MIN_BLOCKING_OD, lineBlocking } from '../light/line-blocking';
+import { DEFAULT_MIN_BLOCKING_OD, DEFAULT_SCATTER_LEVEL, lineBlocking, lineLeak } from '../light/line-blocking';
 import { buildPanelModel, type PanelModel, type ProbeEvaluation } from './panel-model';
 import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
 import { diagnoseMixing } from './unmix';
@@ -28,14 +28,28 @@ export interface PanelEvaluation {
   /** Present when the panel has a background: autofluorescence collected per channel, same units as collected. */
   backgroundCollected?: number[];
   signalToBackground?: (number | null)[];
+  /**
+   * Scattered excitation light collected per channel and line, [c][l] = powerRel × scatterLevel × T_c(λ_l) (0 for a
+   * line the channel is not read under).
+   */
+  lineLeak: number[][];
   worst: WorstInterference;
   /** Null when options.sensitivity is false. */
   lotShiftSensitivity: LotShiftSensitivity | null;
   warnings: string[];
 }
 
-/** The background collected per channel (lines on in it, times their power) and each channel's signal-to-background. */
-function backgroundFigures(model: PanelModel, panel: PanelSpec, collected: number[][], warnings: string[]) {
+/**
+ * The background collected per channel (lines on in it, times their power) and each channel's signal-to-background,
+ * the background being the sample's autofluorescence plus the excitation light leaking in (`leak`, per channel).
+ */
+function backgroundFigures(
+  model: PanelModel,
+  panel: PanelSpec,
+  collected: number[][],
+  leak: number[],
+  warnings: string[],
+) {
   const { grid, transmissions, linesOnByChannel } = model;
   const background = model.background!;
   const backgroundCollected = transmissions.map((t, c) => {
@@ -47,7 +61,8 @@ function backgroundFigures(model: PanelModel, panel: PanelSpec, collected: numbe
     }
     return sum;
   });
-  const signalToBackground = backgroundCollected.map((b, c) => {
+  const signalToBackground = backgroundCollected.map((autofluorescence, c) => {
+    const b = autofluorescence + leak[c];
     if (b > 0) return collected[c].reduce((a, v) => a + v, 0) / b;
     warnings.push(`channel ${panel.channels[c].id} collects no background: its signal-to-background is undefined`);
     return null;
@@ -97,9 +112,11 @@ export function evaluatePanel(
             probeIds,
             channelIds,
           }),
+    lineLeak: lineLeak(panel, model.linesOnByChannel, panel.scatterLevel ?? DEFAULT_SCATTER_LEVEL),
     warnings,
   };
-  if (model.background) Object.assign(evaluation, backgroundFigures(model, panel, collected, warnings));
+  const leakByChannel = evaluation.lineLeak.map((row) => row.reduce((a, v) => a + v, 0));
+  if (model.background) Object.assign(evaluation, backgroundFigures(model, panel, collected, leakByChannel, warnings));
   makeJsonSafe(evaluation, [], warnings);
   return evaluation;
 }

@@ -73,12 +73,13 @@ describe('defaultAutofluorescence', () => {
 });
 
 describe('evaluatePanel with a background', () => {
-  it('evaluatePanel reports signal-to-background = total probe signal / background collected, per channel', () => {
+  it('evaluatePanel reports signal-to-background = total probe signal / (background collected + excitation leak)', () => {
     const ev = evaluatePanel(onePanel({ level: 0.2 }), { sensitivity: false });
     expect(ev.backgroundCollected).toHaveLength(2);
-    ev.signalToBackground!.forEach((sb, c) =>
-      expect(sb).toBeCloseTo(ev.collected[c][0] / ev.backgroundCollected![c], 12),
-    );
+    ev.signalToBackground!.forEach((sb, c) => {
+      const leak = ev.lineLeak[c].reduce((a, v) => a + v, 0);
+      expect(sb).toBeCloseTo(ev.collected[c][0] / (ev.backgroundCollected![c] + leak), 12);
+    });
     const double = evaluatePanel(onePanel({ level: 0.4 }), { sensitivity: false });
     expect(double.backgroundCollected![0] / ev.backgroundCollected![0]).toBeCloseTo(2, 12);
     expect(evaluatePanel(onePanel(undefined), { sensitivity: false }).signalToBackground).toBeUndefined();
@@ -100,8 +101,8 @@ describe('evaluatePanel with a background', () => {
     expect(ev.backgroundCollected![0]).toBeCloseTo((BACKGROUND_REFERENCE_BRIGHTNESS * 20) / 201, 6);
   });
 
-  it('evaluatePanel gives a null signal-to-background with a warning when no background reaches a channel', () => {
-    const ev = evaluatePanel(onePanel({ level: 0 }), { sensitivity: false });
+  it('evaluatePanel gives a null signal-to-background with a warning when no background and no leak reach a channel', () => {
+    const ev = evaluatePanel({ ...onePanel({ level: 0 }), scatterLevel: 0 }, { sensitivity: false });
     expect(ev.signalToBackground).toEqual([null, null]);
     expect(ev.warnings.join('\n')).toMatch(/collects no background/);
   });

@@ -50,4 +50,21 @@ describe('blocking of the excitation lines (common practice: emission filters bl
       expect(ev.warnings.join('\n')).not.toMatch(/405 nm line/);
     },
   );
+
+  it('a bandpass blocking at OD 6 leaks 1e-6 × scatterLevel × powerRel (closed form), 0 for a line not read', () => {
+    const panel = {
+      ...panelWith([bandpass('far', 605, 20), { ...bandpass('red', 605, 20), excitationNm: 640 }], {
+        excitation: [{ wavelengthNm: 405, powerRel: 2 }, { wavelengthNm: 640 }],
+      }),
+      scatterLevel: 3e9,
+    };
+    const ev = evaluatePanel(panel, { sensitivity: false });
+    expect(Math.abs(ev.lineLeak[0][0] / (1e-6 * 3e9 * 2) - 1)).toBeLessThan(1e-12);
+    expect(ev.lineLeak[1][0]).toBe(0);
+  });
+
+  it('without scatterLevel the leak uses the documented default of 1e10 (OD 6: 1e4 per unit power)', () => {
+    const ev = evaluatePanel(panelWith([bandpass('far', 605, 20)]), { sensitivity: false });
+    expect(Math.abs(ev.lineLeak[0][0] / 1e4 - 1)).toBeLessThan(1e-12);
+  });
 });

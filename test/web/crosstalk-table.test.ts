@@ -123,6 +123,8 @@ describe('<qdp-crosstalk-table>', () => {
           { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] },
           { id: 'c2', label: 'Red', filters: [{ type: 'bandpass', centerNm: 640, widthNm: 20 }] },
         ],
+        // No scattered excitation light: the hand-worked covariance below has shot noise only.
+        scatterLevel: 0,
       };
       const result = computePanel(panel, { byBrightness: false });
       if (!result.ok) throw new Error(result.error.message);
@@ -170,6 +172,8 @@ describe('<qdp-crosstalk-table>', () => {
         { id: 'c1', filters: [{ type: 'bandpass', centerNm: 525, widthNm: 20 }] },
         { id: 'c2', filters: [{ type: 'bandpass', centerNm: 645, widthNm: 20 }] },
       ],
+      // Shot noise alone (no scattered excitation light), so the SD scales as 1/√abundance exactly.
+      scatterLevel: 0,
     });
     const sdAt = (abundance: number) => {
       const result = computePanel(panelWith(abundance), { byBrightness: false });

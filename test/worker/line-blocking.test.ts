@@ -36,4 +36,16 @@ describe('line blocking over HTTP', () => {
     expect(res.status).toBe(400);
     expect((await errorOf(res))!.path).toEqual(['minBlockingOD']);
   });
+
+  it('POST /panels/evaluate reports lineLeak per channel and line: the 605/20 channel leaks 1e-6 × 1e10', async () => {
+    const ev = (await (await postJson(worker, '/api/v1/panels/evaluate', panel())).json()) as { lineLeak: number[][] };
+    expect(ev.lineLeak).toHaveLength(2);
+    expect(Math.abs(ev.lineLeak[1][0] / 1e4 - 1)).toBeLessThan(1e-9);
+  });
+
+  it.each([-1, 1e16, 'a lot'])('scatterLevel %s is a 400 naming scatterLevel', async (level) => {
+    const res = await postJson(worker, '/api/v1/panels/evaluate', panel({ scatterLevel: level }));
+    expect(res.status).toBe(400);
+    expect((await errorOf(res))!.path).toEqual(['scatterLevel']);
+  });
 });

@@ -88,7 +88,8 @@ export const NOMINAL_PHOTONS = DESIGN_DEFAULTS.photons;
 /**
  * Shot-noise picture at the nominal budget: collected (and background) scaled so the brightest target's own signal
  * is NOMINAL_PHOTONS, unmixed by least squares (predictUnmixingNoise, ideal counting detector, no read noise).
- * "Alone" is the same target with no other probe, read in its own channel: √(own + background)/own.
+ * "Alone" is the same target with no other probe, read in its own channel: √(own + background)/own. The background
+ * is the sample's autofluorescence plus the excitation light leaking into the channel.
  * Null when some probe has no primary channel or no signal; a null entry when its estimate is undefined.
  */
 function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | null {
@@ -100,20 +101,23 @@ function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | nul
   const own = prim.map((c, p) => ev.collected[c][p]);
   const k = NOMINAL_PHOTONS / Math.max(...own); // photons per collected unit; not finite when nothing is collected
   if (!(k > 0 && Number.isFinite(k))) return null;
+  // The background of each channel: the sample's autofluorescence (with a background) plus the excitation light
+  // leaking through its filters.
+  const background = ev.lineLeak.map((row, c) => (ev.backgroundCollected?.[c] ?? 0) + row.reduce((a, v) => a + v, 0));
   try {
     const noise = predictUnmixingNoise({
       mixingPhotons: ev.collected.map((row) => row.map((x, p) => (abundance[p] > 0 ? (x * k) / abundance[p] : 0))),
       abundance,
       primaryChannel: prim,
-      backgroundPhotons: ev.backgroundCollected?.map((b) => b * k),
+      backgroundPhotons: background.map((b) => b * k),
     });
     const relativeSd = noise.sd.map((s, p) => (s !== null && abundance[p] > 0 ? s / abundance[p] : null));
     const factor = relativeSd.map((r, p) => {
       const n = own[p] * k;
-      const alone = Math.sqrt(n + (ev.backgroundCollected?.[prim[p]] ?? 0) * k) / n;
+      const alone = Math.sqrt(n + background[prim[p]] * k) / n;
       return r !== null && n > 0 && Number.isFinite(r / alone) ? r / alone : null;
     });
-    return { photons: NOMINAL_PHOTONS, relativeSd, factor, withBackground: ev.backgroundCollected !== undefined };
+    return { photons: NOMINAL_PHOTONS, relativeSd, factor, withBackground: background.some((b) => b > 0) };
   } catch (e) {
     if (e instanceof SpectraError) return null; // e.g. a probe with no light in its primary channel
     throw e;

@@ -72,6 +72,7 @@ export const Evaluation = z.strictObject({
   noiseAmplification: z.array(nullableNumber),
   backgroundCollected: z.array(z.number()).optional(),
   signalToBackground: z.array(nullableNumber).optional(),
+  lineLeak: matrix,
   worst: WorstJson,
   lotShiftSensitivity: LotShiftJson.nullable(),
   warnings: z.array(z.string()),

@@ -68,6 +68,7 @@ export const Panel = z
       .max(LIMITS.channels, { error: `has more than ${LIMITS.channels} channels` }),
     background: Background.optional(),
     minBlockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
+    scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
   })
   .superRefine(checkReferences);
 
