@@ -73,7 +73,7 @@ describe('defaultAutofluorescence', () => {
 });
 
 describe('evaluatePanel with a background', () => {
-  it('evaluatePanel reports signal-to-background = total probe signal / (background collected + excitation leak)', () => {
+  it('evaluatePanel reports signal-to-background = probe signal / (background collected + excitation leak)', () => {
     const ev = evaluatePanel(onePanel({ level: 0.2 }), { sensitivity: false });
     expect(ev.backgroundCollected).toHaveLength(2);
     ev.signalToBackground!.forEach((sb, c) => {
@@ -101,7 +101,7 @@ describe('evaluatePanel with a background', () => {
     expect(ev.backgroundCollected![0]).toBeCloseTo((BACKGROUND_REFERENCE_BRIGHTNESS * 20) / 201, 6);
   });
 
-  it('evaluatePanel gives a null signal-to-background with a warning when no background and no leak reach a channel', () => {
+  it('evaluatePanel gives a null signal-to-background, warned, when no background and no leak reach a channel', () => {
     const ev = evaluatePanel({ ...onePanel({ level: 0 }), scatterLevel: 0 }, { sensitivity: false });
     expect(ev.signalToBackground).toEqual([null, null]);
     expect(ev.warnings.join('\n')).toMatch(/collects no background/);

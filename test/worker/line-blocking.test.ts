@@ -22,7 +22,7 @@ describe('line blocking over HTTP', () => {
     ...extra,
   });
 
-  it('POST /panels/evaluate warns that 420/20 blocks the 405 nm line by only OD 4.8, and not about 605/20', async () => {
+  it('POST /panels/evaluate warns that 420/20 blocks the 405 nm line by only OD 4.8, not about 605/20', async () => {
     const ev = (await (await postJson(worker, '/api/v1/panels/evaluate', panel())).json()) as { warnings: string[] };
     const blocking = ev.warnings.filter((w) => w.includes('blocks the'));
     expect(blocking).toEqual([

@@ -31,7 +31,7 @@ export function isStockBandpass(centerNm: number, widthNm: number): boolean {
   return Math.abs(near.centerNm - centerNm) < 0.01 && Math.abs(near.widthNm - widthNm) < 0.01;
 }
 
-/** The stock size nearest to a centre and width: the centre rounded to the step, the width to the nearest in the series. */
+/** The stock size nearest a centre and width: the centre rounded to the step, the width the nearest in the series. */
 export function nearestStockBandpass(centerNm: number, widthNm: number): StockBandpass {
   const { centerStepNm, centerRangeNm, widthsNm } = STOCK_BANDPASS_RULE;
   const c = Math.min(centerRangeNm[1], Math.max(centerRangeNm[0], Math.round(centerNm / centerStepNm) * centerStepNm));
