@@ -127,6 +127,15 @@ export const BACKGROUND_PRESET_IDS = ['ffpe-tissue', 'frozen-tissue', 'cultured-
 export type BackgroundPresetId = (typeof BACKGROUND_PRESET_IDS)[number];
 
 /**
+ * The light path every channel shares: filters in front of every detector (e.g. the main dichroic as the detectors
+ * see it) and filters every excitation line passes (clean-up filters).
+ */
+export interface LightPathSpec {
+  emissionFilters?: FilterSpec[];
+  excitationFilters?: FilterSpec[];
+}
+
+/**
  * Sample autofluorescence times `level`: the default model, a sample type's preset (`preset`), or a measured spectrum
  * (`points`); never both a preset and points.
  */
@@ -148,6 +157,8 @@ export interface PanelSpec {
   minBlockingOD?: number;
   /** Scattered excitation light reaching the detector unfiltered, in the units of `collected` (default 1e10). */
   scatterLevel?: number;
+  /** Filters every channel and every line share (applied in addition to each channel's own). */
+  lightPath?: LightPathSpec;
 }
 
 // FILTER_TYPES must list exactly the kinds of FilterSpec (a compile error otherwise).

@@ -8,6 +8,7 @@ import type { PanelSpec } from '../core/panel';
 import { collectedMatrix, crosstalkFigures, type WorstInterference } from './crosstalk';
 import { makeJsonSafe } from './json-safe';
 import { DEFAULT_MIN_BLOCKING_OD, DEFAULT_SCATTER_LEVEL, lineBlocking, lineLeak } from '../light/line-blocking';
+import { foldLightPath } from '../light/light-path';
 import { buildPanelModel, type PanelModel, type ProbeEvaluation } from './panel-model';
 import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
 import { diagnoseMixing } from './unmix';
@@ -76,9 +77,11 @@ function backgroundFigures(
  * naming the field, e.g. ['probes', 1, 'emissionPeakNm'].
  */
 export function evaluatePanel(
-  panel: PanelSpec,
+  input: PanelSpec,
   options: { grid?: WavelengthGrid; sensitivity?: boolean } = {},
 ): PanelEvaluation {
+  // A shared light path is evaluated as the panel with its parts written out.
+  const panel = foldLightPath(input);
   const model = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
   const { grid, components, transmissions, assigned } = model;
   const probeIds = panel.probes.map((p) => p.id);

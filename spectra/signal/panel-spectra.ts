@@ -4,6 +4,7 @@
 import type { PanelSpec } from '../core/panel';
 import { DEFAULT_GRID, spectrumOnGrid, type WavelengthGrid } from '../core/grid';
 import { buildPanelModel } from './panel-model';
+import { foldLightPath } from '../light/light-path';
 
 /** Spectra for charting, as plain arrays on the grid (index i ↔ startNm + i × stepNm). */
 export interface PanelSpectra {
@@ -19,7 +20,9 @@ export interface PanelSpectra {
 }
 
 /** The resolved emission spectra, channel transmissions and background of a panel, for charts. */
-export function panelSpectra(panel: PanelSpec, options: { grid?: WavelengthGrid } = {}): PanelSpectra {
+export function panelSpectra(input: PanelSpec, options: { grid?: WavelengthGrid } = {}): PanelSpectra {
+  const panel = foldLightPath(input);
+  // Channels include the shared light path; the chart draws each channel as its detector sees it.
   const model = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
   const { grid } = model;
   let background: number[] | null = null;

@@ -1,5 +1,6 @@
 // Line blocking (how well each channel blocks the lines it is read under) through the HTTP API on the real runtime.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { evaluatePanel, type PanelSpec } from '../../spectra/index';
 import { errorOf, freshPersistDir, postJson, startWorker, type RunningWorker } from './helpers/worker';
 
 let worker: RunningWorker;
@@ -47,5 +48,20 @@ describe('line blocking over HTTP', () => {
     const res = await postJson(worker, '/api/v1/panels/evaluate', panel({ scatterLevel: level }));
     expect(res.status).toBe(400);
     expect((await errorOf(res))!.path).toEqual(['scatterLevel']);
+  });
+
+  it('a panel with a shared light path evaluates as the library does; a bad shared filter is a 400', async () => {
+    const withPath = panel({
+      lightPath: { emissionFilters: [{ type: 'dichroic', edgeNm: 500, passes: 'above' }] },
+    });
+    const ok = await postJson(worker, '/api/v1/panels/evaluate', withPath);
+    expect(ok.status).toBe(200);
+    const ev = (await ok.json()) as { collected: number[][] };
+    const lib = evaluatePanel(withPath as unknown as PanelSpec, { sensitivity: false });
+    expect(Math.abs(ev.collected[1][0] / lib.collected[1][0] - 1)).toBeLessThan(1e-9);
+    const bad = panel({ lightPath: { emissionFilters: [{ type: 'notch', edgeNm: 500 }] } });
+    const res = await postJson(worker, '/api/v1/panels/evaluate', bad);
+    expect(res.status).toBe(400);
+    expect((await errorOf(res))!.path.slice(0, 3)).toEqual(['lightPath', 'emissionFilters', 0]);
   });
 });

@@ -28,6 +28,16 @@ export const Channel = z.strictObject({
 const UNKNOWN_PRESET =
   `must be one of ${BACKGROUND_PRESET_IDS.join(', ')} ` + '(each listed with its bands by GET /api/v1/backgrounds)';
 
+const sharedFilters = z
+  .array(Filter, { error: 'must be an array of filters' })
+  .max(LIMITS.filtersPerChannel, { error: `has more than ${LIMITS.filtersPerChannel} filters` });
+
+/** The shared light path: filters in front of every detector, and filters on every excitation line. */
+export const LightPath = z.strictObject({
+  emissionFilters: sharedFilters.optional(),
+  excitationFilters: sharedFilters.optional(),
+});
+
 /**
  * Sample autofluorescence times `level`: the default model, a sample type's preset, or a measured spectrum; a preset
  * and a measured spectrum exclude each other.
@@ -69,6 +79,7 @@ export const Panel = z
     background: Background.optional(),
     minBlockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
     scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
+    lightPath: LightPath.optional(),
   })
   .superRefine(checkReferences);
 
