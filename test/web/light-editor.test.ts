@@ -27,6 +27,22 @@ function paste(input: Updating, text: string): void {
 }
 
 describe('<qdp-light-editor>', () => {
+  it('typing 1e8 as the scattered excitation light sets scatterLevel; emptying it restores the default', async () => {
+    const { el, edits } = await mountEditor(demoPanel());
+    const field = [...el.shadowRoot!.querySelectorAll('qdp-number-field')].find(
+      (f) => (f as unknown as { label: string }).label === 'Scattered excitation light',
+    ) as Updating;
+    await field.updateComplete;
+    const input = field.shadowRoot!.querySelector('input')!;
+    expect(input.placeholder).toBe('10000000000');
+    input.value = '1e8';
+    input.dispatchEvent(new Event('input', { bubbles: true, composed: true }));
+    expect(edits.at(-1)!.scatterLevel).toBe(1e8);
+    input.value = '';
+    input.dispatchEvent(new Event('input', { bubbles: true, composed: true }));
+    expect(edits.at(-1)).not.toHaveProperty('scatterLevel');
+  });
+
   it(
     'choosing the FFPE sample type sets background.preset, keeps ' + 'the level and shows the preset’s caution',
     async () => {

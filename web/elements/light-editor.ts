@@ -7,6 +7,8 @@ import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
 import { fieldRows, focusRing } from './shared-styles';
 import {
+  DEFAULT_MIN_BLOCKING_OD,
+  DEFAULT_SCATTER_LEVEL,
   listBackgroundPresets,
   type BackgroundPresetId,
   type BackgroundSpec,
@@ -92,6 +94,37 @@ export class LightEditor extends LitElement {
       }`;
   }
 
+  /**
+   * How much excitation light the sample scatters towards the detectors, and the blocking (OD) below which a channel
+   * is warned about (both optional: empty means the documented defaults, 1e10 and OD 6).
+   */
+  private leakFields(p: PanelSpec) {
+    const set = (key: 'scatterLevel' | 'minBlockingOD') => (e: CustomEvent<{ value?: number }>) => {
+      const next = { ...p, [key]: e.detail.value };
+      if (e.detail.value === undefined) delete next[key];
+      this.edit(next);
+    };
+    return html`<div class="row">
+      <qdp-number-field
+        label="Scattered excitation light"
+        .value=${p.scatterLevel}
+        optional
+        placeholder=${String(DEFAULT_SCATTER_LEVEL)}
+        .error=${this.errors['scatterLevel'] ?? ''}
+        @value-change=${set('scatterLevel')}
+      ></qdp-number-field>
+      <qdp-number-field
+        label="Warn when a channel blocks a line by less than"
+        unit="OD"
+        .value=${p.minBlockingOD}
+        optional
+        placeholder=${String(DEFAULT_MIN_BLOCKING_OD)}
+        .error=${this.errors['minBlockingOD'] ?? ''}
+        @value-change=${set('minBlockingOD')}
+      ></qdp-number-field>
+    </div>`;
+  }
+
   /** The sample type whose usual autofluorescence the background models (the generic model when none is chosen). */
   private sampleType(p: PanelSpec, bg: BackgroundSpec) {
     const choose = (e: Event) => {
@@ -170,6 +203,7 @@ export class LightEditor extends LitElement {
       >
         Add excitation line
       </button>
+      ${this.leakFields(p)}
       <div class="row">
         <label
           ><input
