@@ -10,7 +10,7 @@ import type { FilterSpec, PanelSpec } from '../core/panel';
 import { filterTransmission } from './filters/filter';
 
 /** Transmission of a list of filters in series at one wavelength; model errors name `path` and the filter index. */
-function seriesAtNm(filters: readonly FilterSpec[], wavelengthNm: number, path: (string | number)[]): number {
+export function seriesAtNm(filters: readonly FilterSpec[], wavelengthNm: number, path: (string | number)[]): number {
   const grid = { startNm: wavelengthNm, stepNm: 1, count: 1 };
   let t = 1;
   filters.forEach((filter, f) => (t *= filterTransmission(filter, grid, [...path, f])[0]));

@@ -5,7 +5,7 @@
  * threshold gets a warning naming the channel and the line.
  */
 import type { PanelSpec } from '../core/panel';
-import { filterTransmission } from './filters/filter';
+import { seriesAtNm } from './light-path';
 import { detectorQe } from './detectors';
 
 /** OD a channel's filters should reach at every line it is read under (common practice), unless a panel says else. */
@@ -13,10 +13,7 @@ export const DEFAULT_MIN_BLOCKING_OD = 6;
 
 /** Transmission of a channel's filters (all in series; the detector's QE aside) at one wavelength. */
 export function filtersTransmissionAtNm(channel: PanelSpec['channels'][number], wavelengthNm: number): number {
-  const grid = { startNm: wavelengthNm, stepNm: 1, count: 1 };
-  let t = 1;
-  channel.filters.forEach((filter, f) => (t *= filterTransmission(filter, grid, ['filters', f])[0]));
-  return t;
+  return seriesAtNm(channel.filters, wavelengthNm, ['filters']);
 }
 
 /** One channel's blocking of one line it sees: the optical density −log10 T of its filters at the line. */
