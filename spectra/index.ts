@@ -99,6 +99,19 @@ export { FILTER_DEFAULTS, MAX_BLOCKING_OD } from './light/filters/defaults';
 export { filterTransmission } from './light/filters/filter';
 export { foldLightPath } from './light/light-path';
 export {
+  instrumentChannels,
+  instrumentLightPath,
+  instrumentLines,
+  resolveOnInstrument,
+  type ChannelPresetSpec,
+  type InstrumentDetector,
+  type InstrumentLaser,
+  type InstrumentSpec,
+  type NamedFilterSpec,
+  type PanelOnInstrumentSpec,
+} from './light/instrument';
+export { EXAMPLE_INSTRUMENTS } from './light/example-instruments';
+export {
   DEFAULT_MIN_BLOCKING_OD,
   DEFAULT_SCATTER_LEVEL,
   lineBlocking,

@@ -1,6 +1,6 @@
 /**
- * The qdpanel worker: API v1 (docs/api.md) and the share-link page route on the Workers runtime. Everything
- * else (the built front end in dist/) is served by the asset layer; wrangler.toml sends /api/* and /p/* here first.
+ * The qdpanel worker: API v1 (docs/api.md) and the page routes of links on the Workers runtime. Everything else
+ * (the built front end in dist/) is served by the asset layer; wrangler.toml sends /api/*, /p/* and /i/* here first.
  */
 import { Hono } from 'hono';
 import { cors } from 'hono/cors';
@@ -17,7 +17,8 @@ import { filters } from './routes/filters';
 import { health } from './routes/health';
 import { materials } from './routes/materials';
 import { openapi } from './routes/openapi';
-import { notFoundPage, pages } from './routes/pages';
+import { instrumentPages, notFoundPage, pages } from './routes/pages';
+import { instruments } from './routes/instruments';
 import { panels } from './routes/panels';
 
 const app = new Hono<AppEnv>();
@@ -40,7 +41,9 @@ app.route('/api/v1/dyes', dyes);
 app.route('/api/v1/filters', filters);
 app.route('/api/v1/panels/design', design);
 app.route('/api/v1/panels', panels);
+app.route('/api/v1/instruments', instruments);
 app.route('/p', pages);
+app.route('/i', instrumentPages);
 
 app.notFound((c) =>
   c.req.path.startsWith('/api/')

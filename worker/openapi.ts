@@ -8,6 +8,10 @@ type Json = Record<string, unknown>;
 // Named component schemas: requests (as clients write them) and responses.
 const COMPONENTS: [string, z.ZodType][] = [
   ['Panel', schemas.Panel],
+  ['PanelRequest', schemas.PanelRequest],
+  ['Instrument', schemas.Instrument],
+  ['InstrumentCreated', schemas.InstrumentCreated],
+  ['InstrumentList', schemas.InstrumentList],
   ['Filter', schemas.Filter],
   ['Probe', schemas.Probe],
   ['Channel', schemas.Channel],
@@ -103,10 +107,10 @@ export function openApiDocument(): Json {
       '/api/v1/dots/resolve': post('one dot: size, peak, spectrum', 'DotRequest', {
         '200': json(ref('ResolvedDot'), 'ok'),
       }),
-      '/api/v1/panels/evaluate': post('collected light, spillover, unmixing noise', 'Panel', {
+      '/api/v1/panels/evaluate': post('collected light, spillover, unmixing noise', 'PanelRequest', {
         '200': json(ref('Evaluation'), 'ok'),
       }),
-      '/api/v1/panels': post('store a panel behind a share link', 'Panel', {
+      '/api/v1/panels': post('store a panel behind a share link', 'PanelRequest', {
         '201': json(ref('ShareCreated'), 'stored'),
         '200': json(ref('ShareCreated'), 'already stored'),
         '429': json(ref('Error'), 'too many new links from this client (see Retry-After)'),
@@ -124,7 +128,24 @@ export function openApiDocument(): Json {
           parameters: [
             { name: 'id', in: 'path', required: true, schema: { type: 'string', pattern: '^[A-Za-z0-9_-]{24}$' } },
           ],
-          responses: { '200': json(ref('Panel'), 'ok'), ...anyRoute },
+          responses: { '200': json(ref('PanelRequest'), 'ok'), ...anyRoute },
+        },
+      },
+      '/api/v1/instruments': {
+        ...get('the example instrument profiles, with their ids and links', json(ref('InstrumentList'), 'ok')),
+        ...post('store an instrument profile behind a link (/i/<id>)', 'Instrument', {
+          '201': json(ref('InstrumentCreated'), 'stored'),
+          '200': json(ref('InstrumentCreated'), 'already stored'),
+          '429': json(ref('Error'), 'too many new links from this client (see Retry-After)'),
+        }),
+      },
+      '/api/v1/instruments/{id}': {
+        get: {
+          summary: 'a stored (or example) instrument profile, exactly as it was sent',
+          parameters: [
+            { name: 'id', in: 'path', required: true, schema: { type: 'string', pattern: '^[A-Za-z0-9_-]{24}$' } },
+          ],
+          responses: { '200': json(ref('Instrument'), 'ok'), ...anyRoute },
         },
       },
     },

@@ -6,6 +6,7 @@
  * change (test/worker/share-id.test.ts pins them).
  */
 import canonicalize from 'canonicalize';
+import { SHARE_ID_PATTERN } from './schemas/fields';
 
 /** The canonical JSON text of a validated value (finite numbers only: the schema guarantees it). */
 export function canonicalJson(value: unknown): string {
@@ -15,8 +16,13 @@ export function canonicalJson(value: unknown): string {
 /** Bytes of SHA-256 kept in a share id: 18 bytes = 144 bits, 24 base64url characters (no padding). */
 export const SHARE_ID_BYTES = 18;
 
-/** A share id: exactly 24 base64url characters. */
-export const SHARE_ID_PATTERN = /^[A-Za-z0-9_-]{24}$/;
+export { SHARE_ID_PATTERN };
+
+/**
+ * The route pattern of an id path segment: only well-formed ids reach an id route, so a malformed id is a plain 404
+ * that never reads KV, and fixed sub-paths such as /panels/evaluate are never taken for an id.
+ */
+export const ID_PATH = `/:id{${SHARE_ID_PATTERN.source.slice(1, -1)}}`;
 
 /** True if `id` has the form of a share id (length and alphabet); says nothing about whether it is stored. */
 export function isShareId(id: string): boolean {

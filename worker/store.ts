@@ -1,34 +1,38 @@
 import { canonicalJson, isShareId, shareIdOf } from './share-id';
 
-const KEY_PREFIX = 'panel:';
+/** What the store keeps behind share links: panels (/p/<id>) and instrument profiles (/i/<id>). */
+export type SharedKind = 'panel' | 'instrument';
 
-/** What storing a panel did: `created` is false when the same panel was already stored (nothing was written). */
-export interface StoredPanel {
+const KEY_PREFIX: Record<SharedKind, string> = { panel: 'panel:', instrument: 'instrument:' };
+
+/** What storing did: `created` is false when the same value was already stored (nothing was written). */
+export interface StoredValue {
   id: string;
   created: boolean;
 }
 
 /**
- * Stores a validated panel under the id of its canonical text. Stored panels are immutable: the key is read first
+ * Stores a validated value under the id of its canonical text. Stored values are immutable: the key is read first
  * and an existing value is never overwritten (the same text always maps to the same key anyway). `beforeWrite` runs
  * only when a new value is about to be written (the per-client budget of new links); it may throw to refuse.
  */
-export async function savePanel(
+export async function saveShared(
   kv: KVNamespace,
-  panel: unknown,
+  kind: SharedKind,
+  value: unknown,
   beforeWrite?: () => Promise<void>,
-): Promise<StoredPanel> {
-  const canonical = canonicalJson(panel);
+): Promise<StoredValue> {
+  const canonical = canonicalJson(value);
   const id = await shareIdOf(canonical);
-  const existing = await kv.get(KEY_PREFIX + id);
+  const existing = await kv.get(KEY_PREFIX[kind] + id);
   if (existing !== null) return { id, created: false };
   await beforeWrite?.();
-  await kv.put(KEY_PREFIX + id, canonical);
+  await kv.put(KEY_PREFIX[kind] + id, canonical);
   return { id, created: true };
 }
 
-/** The stored canonical JSON text of a panel, or null when the id is malformed (KV is then not read) or unknown. */
-export async function loadPanelText(kv: KVNamespace, id: string): Promise<string | null> {
+/** The stored canonical JSON text under an id, or null when the id is malformed (KV is then not read) or unknown. */
+export async function loadSharedText(kv: KVNamespace, kind: SharedKind, id: string): Promise<string | null> {
   if (!isShareId(id)) return null;
-  return kv.get(KEY_PREFIX + id);
+  return kv.get(KEY_PREFIX[kind] + id);
 }

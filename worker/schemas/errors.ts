@@ -14,6 +14,7 @@ export type ApiErrorCode =
   | 'payload_too_large'
   | 'unknown_filter_type'
   | 'duplicate_id'
+  | 'unknown_instrument'
   | 'not_found'
   | 'method_not_allowed'
   | 'rate_limited'

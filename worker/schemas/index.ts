@@ -11,9 +11,12 @@ import type {
   LotShiftSensitivity,
   Material as MaterialSpec,
   PanelEvaluation,
+  InstrumentSpec,
+  PanelOnInstrumentSpec,
   PanelSpec,
 } from '../../spectra/index';
-import { Panel } from './panel';
+import { Panel, PanelRequest } from './panel';
+import { Instrument } from './instrument';
 import type { DesignResponse } from './design-response';
 import type { Evaluation, LotShiftJson } from './evaluation';
 import type { BackgroundPresetList, Material } from './responses';
@@ -25,7 +28,16 @@ export { issueToError, pathText } from './issues';
 export { pointsTable } from './spectrum';
 export { BandpassFilter, EdgeFilter, DichroicFilter, TableFilter, Filter } from './filter';
 export { MaterialIdSchema, Probe } from './probe';
-export { ExcitationLine, Channel, Background, Panel } from './panel';
+export { ExcitationLine, Channel, Background, LightPath, Panel, PanelRequest } from './panel';
+export {
+  ChannelPreset,
+  Instrument,
+  InstrumentCreated,
+  InstrumentDetector,
+  InstrumentLaser,
+  InstrumentList,
+  NamedFilter,
+} from './instrument';
 export { Grid, DotRequest, SampledSpectrumJson } from './dot';
 export {
   ErrorBody,
@@ -58,6 +70,10 @@ export {
 
 /** A validated panel. */
 export type Panel = z.infer<typeof Panel>;
+/** A validated panel request (written out, or naming an instrument). */
+export type PanelRequest = z.infer<typeof PanelRequest>;
+/** A validated instrument profile. */
+export type Instrument = z.infer<typeof Instrument>;
 
 // spectra/ cannot import zod, so its types are written by hand. These lines stop compiling when a schema and the
 // spectral library's type drift apart (in both directions where both describe the same data).
@@ -65,6 +81,10 @@ type Same<A, B> = [A] extends [B] ? ([B] extends [A] ? true : false) : false;
 type Assert<T extends true> = T;
 /** The zod Panel and spectra's PanelSpec describe the same shape. */
 export type PanelMatchesSpec = Assert<Same<Panel, PanelSpec>>;
+/** A valid instrument profile is what spectra's resolveOnInstrument takes (the schema narrows detector types). */
+export type InstrumentFitsSpec = Assert<Instrument extends InstrumentSpec ? true : false>;
+/** A panel request is what spectra's resolveOnInstrument takes. */
+export type PanelRequestFitsSpec = Assert<PanelRequest extends PanelOnInstrumentSpec ? true : false>;
 /** An evaluation as the API sends it is exactly what evaluatePanel returns. */
 export type EvaluationMatchesSpec = Assert<Same<z.infer<typeof Evaluation>, PanelEvaluation>>;
 /** The lot-shift figures likewise. */

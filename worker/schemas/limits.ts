@@ -14,6 +14,8 @@ export const LIMITS = Object.freeze({
   idLength: 64,
   /** Characters of a title, label or target name. */
   textLength: 200,
+  /** Named filters of one instrument profile (emission filters; dichroics and clean-up filters count per list). */
+  instrumentFilters: 48,
   /** Bytes of a request body (256 KiB). */
   bodyBytes: 256 * 1024,
 });
@@ -30,6 +32,8 @@ export const RANGES = Object.freeze({
   edgeWidthNm: [0, 200],
   blockingOD: [0, MAX_BLOCKING_OD],
   powerRel: [0, 1e6],
+  /** A laser's power at the sample, mW (microscope lines run from well under 1 mW to a few W: common practice). */
+  laserPowerMw: [0, 1e4],
   abundance: [0, 1e6],
   backgroundLevel: [0, 1e6],
   /** Scattered excitation light reaching the detector unfiltered, in the units of `collected`. */

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { LIMITS, RANGES } from './limits';
 import { BACKGROUND_PRESET_IDS, DETECTOR_IDS } from '../../spectra/index';
-import { identifier, ranged, text, wavelengthNm } from './fields';
+import { identifier, ranged, SHARE_ID_PATTERN, text, wavelengthNm } from './fields';
 import { Filter } from './filter';
 import { Probe } from './probe';
 import { pointsTable } from './spectrum';
@@ -59,29 +59,60 @@ export const Background = z
     }
   });
 
-/** A panel as the API takes it (docs/api.md, "Panels"): the single source of truth for its shape. */
-export const Panel = z
+/** The fields of a panel; `Panel` takes them written out, `PanelRequest` also takes an instrument reference. */
+const panelFields = {
+  version: z.literal(1, { error: 'must be 1' }).optional(),
+  title: text().optional(),
+  excitation: z
+    .array(ExcitationLine, { error: 'must be an array of excitation lines' })
+    .min(1, { error: 'needs at least one excitation line' })
+    .max(LIMITS.lines, { error: `has more than ${LIMITS.lines} lines` }),
+  probes: z
+    .array(Probe, { error: 'must be an array of probes' })
+    .min(1, { error: 'needs at least one probe' })
+    .max(LIMITS.probes, { error: `has more than ${LIMITS.probes} probes` }),
+  channels: z
+    .array(Channel, { error: 'must be an array of channels' })
+    .min(1, { error: 'needs at least one channel' })
+    .max(LIMITS.channels, { error: `has more than ${LIMITS.channels} channels` }),
+  background: Background.optional(),
+  minBlockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
+  scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
+  lightPath: LightPath.optional(),
+};
+
+/** A panel with every part written out (docs/api.md, "Panels"): what the models evaluate. */
+export const Panel = z.strictObject(panelFields).superRefine(checkReferences);
+
+/**
+ * A panel as the API takes it (docs/api.md, "Panels"): written out, or naming an instrument profile by its id, from
+ * which omitted lines and channels and the whole shared light path are taken (spectra's resolveOnInstrument).
+ */
+export const PanelRequest = z
   .strictObject({
-    version: z.literal(1, { error: 'must be 1' }).optional(),
-    title: text().optional(),
-    excitation: z
-      .array(ExcitationLine, { error: 'must be an array of excitation lines' })
-      .min(1, { error: 'needs at least one excitation line' })
-      .max(LIMITS.lines, { error: `has more than ${LIMITS.lines} lines` }),
-    probes: z
-      .array(Probe, { error: 'must be an array of probes' })
-      .min(1, { error: 'needs at least one probe' })
-      .max(LIMITS.probes, { error: `has more than ${LIMITS.probes} probes` }),
-    channels: z
-      .array(Channel, { error: 'must be an array of channels' })
-      .min(1, { error: 'needs at least one channel' })
-      .max(LIMITS.channels, { error: `has more than ${LIMITS.channels} channels` }),
-    background: Background.optional(),
-    minBlockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
-    scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
-    lightPath: LightPath.optional(),
+    ...panelFields,
+    excitation: panelFields.excitation.optional(),
+    channels: panelFields.channels.optional(),
+    instrument: z
+      .string({ error: 'must be a string (an instrument id)' })
+      .regex(SHARE_ID_PATTERN, { error: 'must be an instrument id: 24 letters, digits, - or _' })
+      .optional(),
   })
-  .superRefine(checkReferences);
+  .superRefine((panel, ctx) => {
+    const issue = (message: string, path: string[]) =>
+      ctx.addIssue({ code: 'custom', message, path, params: { apiCode: 'invalid_input' } });
+    if (panel.instrument === undefined) {
+      if (panel.excitation === undefined)
+        issue('needs at least one excitation line (or an instrument)', ['excitation']);
+      if (panel.channels === undefined) issue('needs at least one channel (or an instrument)', ['channels']);
+    } else if (panel.lightPath !== undefined) {
+      issue('must not be given with instrument: the shared light path comes from the instrument', ['lightPath']);
+    }
+    checkReferences({ ...panel, excitation: panel.excitation ?? [], channels: panel.channels ?? [] }, ctx, {
+      lines: panel.excitation !== undefined,
+      channels: panel.channels !== undefined,
+    });
+  });
 
 type PanelShape = {
   excitation: { wavelengthNm: number }[];
@@ -89,8 +120,15 @@ type PanelShape = {
   channels: { id: string; excitationNm?: number | number[] }[];
 };
 
-/** Ids unique; a probe's `channel` names a channel; a channel's `excitationNm` names lines of the panel. */
-function checkReferences(panel: PanelShape, ctx: z.RefinementCtx): void {
+/**
+ * Ids unique; a probe's `channel` names a channel; a channel's `excitationNm` names lines of the panel. `known` says
+ * which lists the panel gave (an omitted one comes from an instrument and is checked once written out).
+ */
+function checkReferences(
+  panel: PanelShape,
+  ctx: z.RefinementCtx,
+  known: { lines: boolean; channels: boolean } = { lines: true, channels: true },
+): void {
   const issue = (apiCode: string, message: string, path: (string | number)[]) =>
     ctx.addIssue({ code: 'custom', message, path, params: { apiCode } });
   for (const list of ['probes', 'channels'] as const) {
@@ -101,11 +139,13 @@ function checkReferences(panel: PanelShape, ctx: z.RefinementCtx): void {
     });
   }
   const channelIds = new Set(panel.channels.map((ch) => ch.id));
+  if (!known.channels) return;
   panel.probes.forEach((probe, i) => {
     if (probe.channel !== undefined && !channelIds.has(probe.channel)) {
       issue('unknown_channel', `names channel '${probe.channel}', which is not in channels`, ['probes', i, 'channel']);
     }
   });
+  if (!known.lines) return;
   const lines = new Set(panel.excitation.map((line) => line.wavelengthNm));
   panel.channels.forEach((channel, c) => {
     const wanted = channel.excitationNm;

@@ -1,0 +1,61 @@
+/**
+ * Instrument profiles on the server: the example profiles every installation serves (under the ids their content
+ * gives, like any stored profile) and the resolution of a panel that names a profile.
+ */
+import { EXAMPLE_INSTRUMENTS, resolveOnInstrument, type InstrumentSpec } from '../spectra/index';
+import { ApiError, issueToError, Panel } from './schemas/index';
+import type { PanelRequest } from './schemas/index';
+import { canonicalJson, shareIdOf } from './share-id';
+import { loadSharedText } from './store';
+
+/** An example profile with its id and canonical text. */
+export interface ExampleInstrument {
+  id: string;
+  text: string;
+  spec: InstrumentSpec;
+}
+
+let examples: Promise<ExampleInstrument[]> | undefined;
+
+/** The example profiles with their ids (computed once per isolate). */
+export function exampleInstruments(): Promise<ExampleInstrument[]> {
+  examples ??= Promise.all(
+    EXAMPLE_INSTRUMENTS.map(async (spec) => {
+      const text = canonicalJson(spec);
+      return { id: await shareIdOf(text), text, spec };
+    }),
+  );
+  return examples;
+}
+
+/** A profile's canonical text: an example's, or the stored one (one storage read), or null when there is none. */
+export async function loadInstrumentText(kv: KVNamespace, id: string): Promise<string | null> {
+  const example = (await exampleInstruments()).find((e) => e.id === id);
+  return example ? example.text : loadSharedText(kv, 'instrument', id);
+}
+
+/**
+ * The panel with every part written out: a panel that names an instrument reads the profile (one storage read) and
+ * takes its parts from it; an unknown id is a 400 naming `instrument`. The written-out panel is checked like any
+ * panel, so a probe naming a channel the instrument lacks is refused with the probe's path.
+ */
+export async function resolvePanelRequest(kv: KVNamespace, panel: PanelRequest): Promise<Panel> {
+  if (panel.instrument === undefined) return resolveOnInstrument(panel, undefined) as Panel;
+  const text = await loadInstrumentText(kv, panel.instrument);
+  if (text === null) {
+    throw new ApiError(
+      400,
+      'unknown_instrument',
+      `no instrument profile is stored under '${panel.instrument}' (check the link, or store the profile with ` +
+        'POST /api/v1/instruments)',
+      ['instrument'],
+    );
+  }
+  const written = resolveOnInstrument(panel, JSON.parse(text) as InstrumentSpec);
+  const checked = Panel.safeParse(written);
+  if (!checked.success) {
+    const first = issueToError(checked.error.issues[0]);
+    throw new ApiError(400, first.code, first.message, first.path);
+  }
+  return checked.data;
+}

@@ -1,0 +1,39 @@
+import { Hono } from 'hono';
+import type { AppEnv } from '../env';
+import { exampleInstruments, loadInstrumentText } from '../instruments';
+import { jsonBody } from '../middleware/json-body';
+import { ApiError, Instrument } from '../schemas/index';
+import { ID_PATH } from '../share-id';
+import { spendShareBudget } from '../share-budget';
+import { saveShared } from '../store';
+import { validJson } from '../validation';
+
+/**
+ * Instrument profiles: POST /api/v1/instruments stores a profile behind a link (/i/<id>) exactly as panels are
+ * stored; GET /api/v1/instruments/:id returns it as it was sent; GET /api/v1/instruments lists the example profiles.
+ */
+export const instruments = new Hono<AppEnv>()
+  .get('/', async (c) => {
+    const list = (await exampleInstruments()).map(({ id, spec }) => ({
+      id,
+      name: spec.name,
+      description: spec.description ?? '',
+      url: `/i/${id}`,
+    }));
+    return c.json({ instruments: list }, 200, { 'cache-control': 'public, max-age=3600' });
+  })
+  .post('/', jsonBody(), validJson(Instrument), async (c) => {
+    const { id, created } = await saveShared(c.env.PANELS, 'instrument', c.req.valid('json'), () =>
+      spendShareBudget(c),
+    );
+    return c.json({ id, url: `/i/${id}` }, created ? 201 : 200);
+  })
+  .get(ID_PATH, async (c) => {
+    const text = await loadInstrumentText(c.env.PANELS, c.req.param('id') ?? '');
+    if (text === null) throw new ApiError(404, 'not_found', 'no instrument profile is stored under this id', ['id']);
+    // A stored profile never changes, so any cache may keep it.
+    return c.body(text, 200, {
+      'content-type': 'application/json; charset=utf-8',
+      'cache-control': 'public, max-age=31536000, immutable',
+    });
+  });
