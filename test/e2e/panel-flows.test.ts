@@ -208,3 +208,67 @@ describe('the panel page', () => {
     },
   );
 });
+
+describe('instrument profiles in the page', () => {
+  it(
+    'switching the demo to the four-line confocal shows what changed, survives a reload, shares by reference, ' +
+      'and undo restores the panel',
+    async () => {
+      const { page, problems } = await open(app.baseUrl + '/');
+      const picker = page.locator('qdp-instrument-picker');
+      await picker.getByRole('button', { name: /Core confocal, four lines/ }).click();
+      await picker.getByRole('button', { name: 'Undo the switch' }).waitFor();
+      expect(await picker.locator('.changes').innerText()).toContain('Lines: 405 nm → 405, 488, 561, 640 nm');
+      expect(await page.locator('qdp-channel-card').count()).toBe(4);
+      await shot(page, '08-instrument-switch-1280', page.locator('section[aria-labelledby="h-instrument"]'));
+
+      // A reload keeps the panel on its profile.
+      await page.reload();
+      await page.locator('qdp-crosstalk-table p.worst').waitFor();
+      await picker.getByText('On the instrument').waitFor();
+      expect(await picker.locator('p.current strong').innerText()).toBe('Core confocal, four lines');
+
+      // Sharing stores a panel that names the profile rather than carrying its dichroic.
+      await page.getByRole('button', { name: /Share: store/ }).click();
+      const url = await page.getByLabel('Share link').inputValue();
+      const id = url.split('/p/')[1];
+      const stored = (await (await fetch(`${app.baseUrl}/api/v1/panels/${id}`)).json()) as Record<string, unknown>;
+      expect(typeof stored.instrument).toBe('string');
+      expect(stored.lightPath).toBeUndefined();
+      const other = await open(url);
+      await other.page.locator('qdp-instrument-picker').getByText('On the instrument').waitFor();
+      expect(await other.page.locator('qdp-channel-card').count()).toBe(4);
+      await other.page.close();
+
+      // Switching again and undoing returns to the confocal panel.
+      await picker.getByRole('button', { name: /Teaching widefield/ }).click();
+      await picker.getByRole('button', { name: 'Undo the switch' }).click();
+      expect(await picker.locator('p.current strong').innerText()).toBe('Core confocal, four lines');
+      expect(await page.locator('qdp-channel-card').count()).toBe(4);
+      expect(problems).toEqual([]);
+      await page.close();
+    },
+  );
+
+  it('a profile made from the demo is stored, its /i/ link starts a new panel with its six channels', async () => {
+    const { page, problems } = await open(app.baseUrl + '/');
+    await page.getByText('Make an instrument profile of this set-up').click();
+    const maker = page.locator('qdp-instrument-maker');
+    await maker.getByRole('button', { name: 'Store the profile and show its link' }).click();
+    // No name yet: refused in the user's words, nothing stored.
+    expect(await maker.locator('p.err').innerText()).toContain('Name:');
+    await maker.getByLabel('Instrument name').fill('Room 4 widefield');
+    await maker.getByRole('button', { name: 'Store the profile and show its link' }).click();
+    const link = await maker.getByLabel('Instrument link').inputValue();
+    expect(link).toMatch(/\/i\/[A-Za-z0-9_-]{24}$/);
+    await shot(page, '09-instrument-maker-1280', page.locator('section[aria-labelledby="h-instrument"]'));
+    const started = await browser.context.newPage();
+    await started.goto(link);
+    await started.locator('qdp-instrument-picker').getByText('Room 4 widefield').waitFor();
+    expect(await started.locator('qdp-channel-card').count()).toBe(6);
+    expect(new URL(started.url()).pathname).toBe('/');
+    expect(problems).toEqual([]);
+    await started.close();
+    await page.close();
+  });
+});

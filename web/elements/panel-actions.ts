@@ -5,7 +5,7 @@
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { focusRing } from './shared-styles';
-import type { PanelSpec } from '../../spectra/index';
+import type { PanelOnInstrumentSpec, PanelSpec } from '../../spectra/index';
 import { orderingSheetCsv, type ResolvedForSheet } from '../io/csv-export';
 import { downloadBlob, downloadText, svgDocument, svgToPng } from '../io/download';
 
@@ -23,6 +23,8 @@ export function fileStem(panel: PanelSpec): string {
 @customElement('qdp-panel-actions')
 export class PanelActions extends LitElement {
   @property({ attribute: false }) panel?: PanelSpec;
+  /** What is shared, evaluated on the server and saved as JSON: the panel, naming its instrument profile if on one. */
+  @property({ attribute: false }) request?: PanelOnInstrumentSpec;
   /** Why share and export are off (an excluded material, an input error), or '' when they are on. */
   @property() blocked = '';
   /** The page's own resolved dots, used for the sheet only if the server cannot be reached. */
@@ -62,7 +64,7 @@ export class PanelActions extends LitElement {
     this.busy = true;
     try {
       const { sharePanel } = await import('../io/api');
-      const { url } = await sharePanel(this.panel);
+      const { url } = await sharePanel(this.request ?? this.panel);
       this.link = new URL(url, location.origin).href;
       try {
         await navigator.clipboard.writeText(this.link);
@@ -82,7 +84,7 @@ export class PanelActions extends LitElement {
     let resolved: ResolvedForSheet[] = this.localResolved;
     try {
       const { evaluateOnServer } = await import('../io/api');
-      resolved = (await evaluateOnServer(this.panel)).probes;
+      resolved = (await evaluateOnServer(this.request ?? this.panel)).probes;
       this.message = 'Ordering sheet saved (values from the server).';
     } catch (e) {
       const why = e instanceof Error ? e.message : String(e);
@@ -105,7 +107,11 @@ export class PanelActions extends LitElement {
 
   private saveJson(): void {
     if (!this.panel) return;
-    downloadText(JSON.stringify(this.panel, null, 2), `${fileStem(this.panel)}.json`, 'application/json');
+    downloadText(
+      JSON.stringify(this.request ?? this.panel, null, 2),
+      `${fileStem(this.panel)}.json`,
+      'application/json',
+    );
   }
 
   /** The shared link in a field that selects itself, for copying by hand. */

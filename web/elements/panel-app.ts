@@ -1,11 +1,17 @@
 /**
  * <qdp-panel-app>: the whole page. Holds the panel, checks it with the API's schema and recomputes it locally on every
- * edit (keeping the last good result when an edit is invalid), keeps the state in the URL fragment, and opens shared
- * panels from /p/<id>.
+ * edit (keeping the last good result when an edit is invalid), keeps the state in the URL fragment, opens shared
+ * panels from /p/<id>, and starts panels on instrument profiles from /i/<id>.
  */
 import { LitElement, html } from 'lit';
 import { customElement, query, state } from 'lit/decorators.js';
-import type { ChannelSpec, PanelSpec, ProbeSpec } from '../../spectra/index';
+import {
+  resolveOnInstrument,
+  SpectraError,
+  type ChannelSpec,
+  type PanelSpec,
+  type ProbeSpec,
+} from '../../spectra/index';
 import { appStyles } from './panel-app-styles';
 import type { EdgeDragDetail } from '../chart/types';
 import { computePanel, DETECTORS, MATERIALS, type Computed } from '../state/compute';
@@ -25,9 +31,18 @@ import {
   setProbe,
 } from '../state/panel-edit';
 import { moveEdge } from '../state/edge-drag';
+import {
+  instrumentChanges,
+  switchInstrument,
+  toRequest,
+  type AttachedInstrument,
+  type InstrumentChanges,
+} from '../state/instrument';
 import './channel-list';
 import './crosstalk-table';
 import './design-form';
+import './instrument-maker';
+import './instrument-picker';
 import './light-editor';
 import './material-notes';
 import './panel-actions';
@@ -47,6 +62,13 @@ export class PanelApp extends LitElement {
   @state() private sharedId = '';
   @state() private notice = '';
   @state() private byBrightness = true;
+  /** The instrument profile the panel is on, if any (the panel holds its parts written out). */
+  @state() private instrument?: AttachedInstrument;
+  /** What the last switch of instrument changed, until the next edit of the panel's set-up. */
+  @state() private changes?: InstrumentChanges;
+  @state() private instrumentBusy = false;
+  /** The panel and instrument before the last switch, for its undo. */
+  private beforeSwitch?: { panel: PanelSpec; instrument?: AttachedInstrument };
   @query('qdp-spectrum-chart') private chart?: SpectrumChart;
   private lastPushMs = 0;
   /** True while a panel waits for the checks to arrive before it is computed. */
@@ -59,7 +81,9 @@ export class PanelApp extends LitElement {
     window.addEventListener('popstate', this.onPopState);
     void this.startChecks();
     const shared = /^\/p\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
+    const profile = /^\/i\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
     if (shared) void this.openShared(shared[1]);
+    else if (profile && !location.hash) void this.startOnInstrument(profile[1]);
     else void this.restoreFromFragment();
   }
 
@@ -94,6 +118,7 @@ export class PanelApp extends LitElement {
       const r = readPageState(raw);
       if (!r.ok) throw new Error(`The link's panel is not valid (${r.message}).`);
       this.load(r.state.panel, r.state.view.exclude, false);
+      if (r.state.view.instrument) await this.reattach(r.state.view.instrument);
     } catch (e) {
       this.notice = `${e instanceof Error ? e.message : String(e)} The demo panel is shown instead.`;
       this.load(demoPanel(), []);
@@ -104,15 +129,110 @@ export class PanelApp extends LitElement {
     this.sharedId = id;
     this.notice = 'Loading the shared panel…';
     try {
-      const fetched = import('../io/api').then((api) => api.loadSharedPanel(id));
-      const [{ readPanel }, raw] = await Promise.all([loadChecks(), fetched]);
-      const r = readPanel(raw);
-      if (!r.ok) throw new Error(r.message);
+      const raw = await import('../io/api').then((api) => api.loadSharedPanel(id));
+      const { panel, instrument } = await this.readRequest(raw);
       this.notice = '';
-      this.load(r.panel, [], false);
+      this.instrument = instrument;
+      this.load(panel, [], false);
     } catch (e) {
       this.notice = `This shared panel could not be opened: ${e instanceof Error ? e.message : String(e)}`;
     }
+  }
+
+  /** A profile by id, checked with the API's schema; throws an Error with the reason. */
+  private async fetchInstrument(id: string): Promise<AttachedInstrument> {
+    const [{ readInstrument }, raw] = await Promise.all([
+      loadChecks(),
+      import('../io/api').then((api) => api.loadInstrument(id)),
+    ]);
+    const r = readInstrument(raw);
+    if (!r.ok) throw new Error(`the instrument profile is not valid (${r.error.message})`);
+    return { id, spec: r.spec };
+  }
+
+  /**
+   * A panel from untrusted JSON (a shared panel, a file): written out, or naming a profile, which is loaded and whose
+   * parts are written out. Throws an Error with the API's words.
+   */
+  private async readRequest(raw: unknown): Promise<{ panel: PanelSpec; instrument?: AttachedInstrument }> {
+    const { readPanelRequest, readPanel } = await loadChecks();
+    const r = readPanelRequest(raw);
+    if (!r.ok) throw new Error(r.message);
+    const instrument = r.request.instrument ? await this.fetchInstrument(r.request.instrument) : undefined;
+    const written = readPanel(resolveOnInstrument(r.request, instrument?.spec));
+    if (!written.ok) throw new Error(written.message);
+    return { panel: written.panel, instrument };
+  }
+
+  /** /i/<id>: a new panel on the profile (its lines, shared path and channels; no probes yet). */
+  private async startOnInstrument(id: string): Promise<void> {
+    this.notice = 'Loading the instrument profile…';
+    try {
+      const instrument = await this.fetchInstrument(id);
+      this.instrument = instrument;
+      this.notice =
+        `New panel on the instrument “${instrument.spec.name}”: its lines, shared light path and channels are set; ` +
+        'add your probes.';
+      history.replaceState(null, '', '/');
+      this.load({ ...switchInstrument(newPanel(), instrument.spec), title: `Panel on ${instrument.spec.name}` }, []);
+    } catch (e) {
+      this.notice = `This instrument profile could not be opened: ${e instanceof Error ? e.message : String(e)}`;
+      this.load(newPanel(), []);
+    }
+  }
+
+  /** After a reload: ties the restored panel to its profile again (the panel already holds the parts). */
+  private async reattach(id: string): Promise<void> {
+    try {
+      this.instrument = await this.fetchInstrument(id);
+      this.refresh();
+    } catch (e) {
+      this.notice =
+        `The instrument profile of this panel could not be loaded (${e instanceof Error ? e.message : String(e)}); ` +
+        'the panel is shown with its parts written out.';
+    }
+  }
+
+  /** Moves the panel onto another profile, keeping what it was for an undo and showing what changed. */
+  private async switchTo(id: string): Promise<void> {
+    this.instrumentBusy = true;
+    try {
+      const next = await this.fetchInstrument(id);
+      const before = this.computed && !this.error ? this.computed.evaluation : undefined;
+      const from = this.instrument?.spec.name ?? 'the panel’s own set-up';
+      this.beforeSwitch = { panel: this.panel, instrument: this.instrument };
+      const oldPanel = this.panel;
+      this.instrument = next;
+      this.apply(switchInstrument(this.panel, next.spec));
+      this.changes =
+        before && this.computed && !this.error
+          ? instrumentChanges(
+              { name: from, panel: oldPanel, evaluation: before },
+              { name: next.spec.name, panel: this.panel, evaluation: this.computed.evaluation },
+            )
+          : undefined;
+      this.notice = '';
+    } catch (e) {
+      this.notice = `The instrument could not be used: ${e instanceof Error ? e.message : String(e)}`;
+    } finally {
+      this.instrumentBusy = false;
+    }
+  }
+
+  private undoSwitch(): void {
+    const back = this.beforeSwitch;
+    if (!back) return;
+    this.instrument = back.instrument;
+    this.beforeSwitch = undefined;
+    this.changes = undefined;
+    this.apply(back.panel);
+  }
+
+  /** Replaces the whole panel by one with its own set-up (no instrument profile). */
+  private loadOwn(panel: PanelSpec): void {
+    this.instrument = undefined;
+    this.changes = undefined;
+    this.load(panel, []);
   }
 
   /** Replaces the whole panel (new, demo, import, shared) and recomputes. */
@@ -137,7 +257,7 @@ export class PanelApp extends LitElement {
     const checks = checksIfLoaded();
     this.awaitingChecks = !checks;
     if (!checks) return;
-    const problem = checks.checkPanel(this.panel);
+    const problem = checks.checkPanel(this.panel) ?? this.instrumentProblem();
     if (problem) {
       this.error = problem;
       return;
@@ -151,8 +271,24 @@ export class PanelApp extends LitElement {
     }
   }
 
+  /** What the API would refuse in the panel as a request naming its profile (a line the instrument lacks). */
+  private instrumentProblem(): FieldError | undefined {
+    if (!this.instrument) return undefined;
+    try {
+      resolveOnInstrument(toRequest(this.panel, this.instrument), this.instrument.spec);
+      return undefined;
+    } catch (e) {
+      if (e instanceof SpectraError) return { code: e.code, message: e.message, path: e.path };
+      throw e;
+    }
+  }
+
+  private view() {
+    return { exclude: this.exclude, ...(this.instrument ? { instrument: this.instrument.id } : {}) };
+  }
+
   private writeFragment(mode: 'push' | 'replace'): void {
-    const url = `${location.pathname}#${encodeFragment({ panel: this.panel, view: { exclude: this.exclude } })}`;
+    const url = `${location.pathname}#${encodeFragment({ panel: this.panel, view: this.view() })}`;
     const now = Date.now();
     if (mode === 'push' && now - this.lastPushMs > HISTORY_STEP_MS) history.pushState(null, '', url);
     else history.replaceState(null, '', url);
@@ -162,18 +298,17 @@ export class PanelApp extends LitElement {
   private duplicate(): void {
     this.sharedId = '';
     this.panel = { ...this.panel, title: `${this.panel.title ?? 'Panel'} (copy)` };
-    history.pushState(null, '', `/#${encodeFragment({ panel: this.panel, view: { exclude: this.exclude } })}`);
+    history.pushState(null, '', `/#${encodeFragment({ panel: this.panel, view: this.view() })}`);
     this.apply(this.panel, 'replace');
   }
 
   private async importJson(file: File | undefined): Promise<void> {
     if (!file) return;
     try {
-      const { readPanel } = await loadChecks();
-      const r = readPanel(JSON.parse(await file.text()));
-      if (!r.ok) throw new Error(r.message);
+      const { panel, instrument } = await this.readRequest(JSON.parse(await file.text()));
       this.notice = `Opened ${file.name}.`;
-      this.load(r.panel, this.exclude);
+      this.instrument = instrument;
+      this.load(panel, this.exclude);
     } catch (e) {
       this.notice = `${file.name} is not a panel: ${e instanceof Error ? e.message : String(e)}`;
     }
@@ -230,8 +365,8 @@ export class PanelApp extends LitElement {
               ?disabled=${!!this.sharedId}
               @change=${(e: Event) => this.apply({ ...p, title: (e.target as HTMLInputElement).value })}
           /></label>
-          <button type="button" @click=${() => this.load(newPanel(), [])}>New panel</button>
-          <button type="button" @click=${() => this.load(demoPanel(), [])}>Open the demo panel</button>
+          <button type="button" @click=${() => this.loadOwn(newPanel())}>New panel</button>
+          <button type="button" @click=${() => this.loadOwn(demoPanel())}>Open the demo panel</button>
           <label class="file"
             >Open panel JSON
             <input
@@ -262,6 +397,27 @@ export class PanelApp extends LitElement {
           @spectral-run=${this.onSpectralRun}
           @panel-edit=${(e: CustomEvent<{ panel: PanelSpec }>) => this.apply(e.detail.panel)}
         >
+          <section
+            aria-labelledby="h-instrument"
+            @instrument-switch=${(e: CustomEvent<{ id: string }>) => this.switchTo(e.detail.id)}
+            @instrument-detach=${() => {
+              this.instrument = undefined;
+              this.changes = undefined;
+              this.apply(this.panel);
+            }}
+            @instrument-undo=${this.undoSwitch}
+          >
+            <h2 id="h-instrument">Microscope</h2>
+            <qdp-instrument-picker
+              .attached=${this.instrument}
+              .changes=${this.changes}
+              ?busy=${this.instrumentBusy}
+            ></qdp-instrument-picker>
+            <details>
+              <summary>Make an instrument profile of this set-up (for facility staff)</summary>
+              <qdp-instrument-maker .panel=${p}></qdp-instrument-maker>
+            </details>
+          </section>
           <section aria-labelledby="h-light">
             <h2 id="h-light">Excitation and sample background</h2>
             <qdp-light-editor .panel=${p} .errors=${errors.other}></qdp-light-editor>
@@ -333,6 +489,7 @@ export class PanelApp extends LitElement {
             <h2 id="h-share">Share and export</h2>
             <qdp-panel-actions
               .panel=${p}
+              .request=${toRequest(p, this.instrument)}
               .blocked=${blocked}
               .localResolved=${c?.resolved ?? []}
               .chartSvg=${() => this.chart?.shadowRoot?.querySelector('svg') ?? null}

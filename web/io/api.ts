@@ -1,12 +1,20 @@
 /**
- * The page's calls to the qdpanel API (docs/api.md): share a panel, load a shared one, evaluate for export. Every
- * failure becomes the contract's ApiError (the server's code, message and path, or code "network" with status 0 when
- * there is no answer), never an unhandled rejection. The page imports this module on demand (`import('../io/api')`):
+ * The page's calls to the qdpanel API (docs/api.md): share a panel, load a shared one, evaluate for export, list,
+ * load and store instrument profiles. Every failure becomes the contract's ApiError (the server's code, message and
+ * path, or code "network" with status 0 when there is no answer), never an unhandled rejection. The page imports this module on demand (`import('../io/api')`):
  * the module that defines ApiError also defines the error body's zod schema, which keeps zod in the first bundle.
  */
 import type { z } from 'zod';
-import type { PanelSpec } from '../../spectra/index';
-import { ApiError, type ApiErrorCode, type ErrorBody, type Evaluation, type ShareCreated } from '../../worker/schemas';
+import type { InstrumentSpec, PanelOnInstrumentSpec } from '../../spectra/index';
+import {
+  ApiError,
+  type ApiErrorCode,
+  type ErrorBody,
+  type Evaluation,
+  type InstrumentCreated,
+  type InstrumentList,
+  type ShareCreated,
+} from '../../worker/schemas';
 
 async function call<T>(path: string, init?: RequestInit): Promise<T> {
   let res: Response;
@@ -30,7 +38,7 @@ async function call<T>(path: string, init?: RequestInit): Promise<T> {
 }
 
 /** Stores the panel; the answer's `url` is the share path ("/p/<id>"). */
-export function sharePanel(panel: PanelSpec): Promise<z.infer<typeof ShareCreated>> {
+export function sharePanel(panel: PanelOnInstrumentSpec): Promise<z.infer<typeof ShareCreated>> {
   return call('/api/v1/panels', { method: 'POST', body: JSON.stringify(panel) });
 }
 
@@ -40,6 +48,21 @@ export function loadSharedPanel(id: string): Promise<unknown> {
 }
 
 /** The server's evaluation of a panel (the ordering sheet takes its resolved probes). */
-export function evaluateOnServer(panel: PanelSpec): Promise<Pick<z.infer<typeof Evaluation>, 'probes'>> {
+export function evaluateOnServer(panel: PanelOnInstrumentSpec): Promise<Pick<z.infer<typeof Evaluation>, 'probes'>> {
   return call('/api/v1/panels/evaluate', { method: 'POST', body: JSON.stringify(panel) });
+}
+
+/** The example instrument profiles the server lists. */
+export function listExampleInstruments(): Promise<z.infer<typeof InstrumentList>> {
+  return call('/api/v1/instruments');
+}
+
+/** Loads an instrument profile by id (the caller checks it with the API's Instrument schema). */
+export function loadInstrument(id: string): Promise<unknown> {
+  return call(`/api/v1/instruments/${encodeURIComponent(id)}`);
+}
+
+/** Stores an instrument profile; the answer's `url` is its page link ("/i/<id>"). */
+export function shareInstrument(profile: InstrumentSpec): Promise<z.infer<typeof InstrumentCreated>> {
+  return call('/api/v1/instruments', { method: 'POST', body: JSON.stringify(profile) });
 }

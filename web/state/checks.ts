@@ -5,8 +5,14 @@
  * loads it just after it starts (load-checks.ts) so the first bundle stays small.
  */
 import type { z } from 'zod';
-import type { DesignRequest as DesignRequestSpec, PanelSpec } from '../../spectra/index';
-import { DesignRequest, issueToError, Panel } from '../../worker/schemas';
+import type {
+  DesignRequest as DesignRequestSpec,
+  InstrumentSpec,
+  PanelOnInstrumentSpec,
+  PanelSpec,
+} from '../../spectra/index';
+import { DesignRequest, Instrument, issueToError, Panel, PanelRequest } from '../../worker/schemas';
+import { SHARE_ID_PATTERN } from '../../worker/schemas/fields';
 import type { FieldError } from './error-map';
 import { isPanelExclusion } from './exclusions';
 import type { PageState } from './fragment';
@@ -32,12 +38,31 @@ export function readPanel(raw: unknown): { ok: true; panel: PanelSpec } | { ok: 
   return r.success ? { ok: true, panel: r.data } : { ok: false, message: issueToError(r.error.issues[0]).message };
 }
 
+/**
+ * A panel request from untrusted JSON (a file, a shared panel): written out, or naming an instrument profile that the
+ * caller then loads; or the API's message about its first problem.
+ */
+export function readPanelRequest(
+  raw: unknown,
+): { ok: true; request: PanelOnInstrumentSpec } | { ok: false; message: string } {
+  const r = PanelRequest.safeParse(raw);
+  return r.success ? { ok: true, request: r.data } : { ok: false, message: issueToError(r.error.issues[0]).message };
+}
+
+/** An instrument profile from untrusted JSON, or the API's complaint about it (with the field's path). */
+export function readInstrument(raw: unknown): { ok: true; spec: InstrumentSpec } | { ok: false; error: FieldError } {
+  const r = Instrument.safeParse(raw);
+  return r.success ? { ok: true, spec: r.data } : { ok: false, error: issueToError(r.error.issues[0]) };
+}
+
 /** A page state from a decoded fragment: a valid panel plus known view options (unknown options are dropped). */
 export function readPageState(raw: unknown): { ok: true; state: PageState } | { ok: false; message: string } {
-  const obj = (raw ?? {}) as { panel?: unknown; view?: { exclude?: unknown } };
+  const obj = (raw ?? {}) as { panel?: unknown; view?: { exclude?: unknown; instrument?: unknown } };
   const panel = readPanel(obj.panel);
   if (!panel.ok) return panel;
   const words = obj.view?.exclude;
   const exclude = Array.isArray(words) ? words.filter(isPanelExclusion) : [];
-  return { ok: true, state: { panel: panel.panel, view: { exclude } } };
+  const instrument = obj.view?.instrument;
+  const id = typeof instrument === 'string' && SHARE_ID_PATTERN.test(instrument) ? { instrument } : {};
+  return { ok: true, state: { panel: panel.panel, view: { exclude, ...id } } };
 }

@@ -11,6 +11,8 @@ import { thinTable } from './thin-table';
 export interface ViewOptions {
   /** Material classes the user excludes: probes containing them are flagged and block share/export. */
   exclude: PanelExclusion[];
+  /** The id of the instrument profile the panel is on (the panel itself holds the profile's parts written out). */
+  instrument?: string;
 }
 
 /** Everything the fragment holds. */

@@ -46,7 +46,10 @@ export const Instrument = z
   .strictObject({
     version: z.literal(1, { error: 'must be 1' }),
     name: partName(),
-    description: text().optional(),
+    description: z
+      .string({ error: 'must be a string' })
+      .max(LIMITS.descriptionLength, { error: `must be at most ${LIMITS.descriptionLength} characters` })
+      .optional(),
     lasers: z
       .array(InstrumentLaser, { error: 'must be an array of lasers' })
       .min(1, { error: 'needs at least one laser' })

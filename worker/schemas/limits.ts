@@ -14,6 +14,8 @@ export const LIMITS = Object.freeze({
   idLength: 64,
   /** Characters of a title, label or target name. */
   textLength: 200,
+  /** Characters of an instrument profile's description. */
+  descriptionLength: 1000,
   /** Named filters of one instrument profile (emission filters; dichroics and clean-up filters count per list). */
   instrumentFilters: 48,
   /** Bytes of a request body (256 KiB). */
