@@ -1,8 +1,9 @@
 /**
  * The page's calls to the qdpanel API (docs/api.md): share a panel, load a shared one, evaluate for export, list,
  * load and store instrument profiles. Every failure becomes the contract's ApiError (the server's code, message and
- * path, or code "network" with status 0 when there is no answer), never an unhandled rejection. The page imports this module on demand (`import('../io/api')`):
- * the module that defines ApiError also defines the error body's zod schema, which keeps zod in the first bundle.
+ * path, or code "network" with status 0 when there is no answer), never an unhandled rejection. The page imports this
+ * module on demand (`import('../io/api')`): the module that defines ApiError also defines the error body's zod
+ * schema, which keeps zod in the first bundle.
  */
 import type { z } from 'zod';
 import type { InstrumentSpec, PanelOnInstrumentSpec } from '../../spectra/index';
