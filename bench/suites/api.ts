@@ -1,12 +1,15 @@
 /**
  * The API under load on loopback: the app started as `npm start` does (scripts/start.sh, workerd + local KV in a
  * temporary directory, log level warn), autocannon for 5 s per row at 1, 8 and 32 connections on POST
- * /api/v1/panels/evaluate (the demo's 6×6 panel) and GET /api/v1/panels/<id> (fetching a share link).
+ * /api/v1/panels/evaluate (the demo's 6×6 panel) and GET /api/v1/panels/<id> (fetching a share link); and, at 8
+ * connections, the demo's probes on a stored instrument profile evaluated by reference (one KV read) and with the
+ * profile's parts written out (none).
  */
 import autocannon from 'autocannon';
 import type { BenchRow } from '../types';
 import { startApp, type StartedApp } from '../../test/quality/helpers/app';
 import { demoPanelTitled } from '../../test/quality/helpers/contract';
+import { EXAMPLE_INSTRUMENTS, resolveOnInstrument, type PanelOnInstrumentSpec } from '../../spectra/index';
 
 const SECONDS = Number(process.env.BENCH_API_SECONDS ?? 5);
 const CONNECTIONS = [1, 8, 32];
@@ -66,8 +69,39 @@ export default async function apiSuite(): Promise<BenchRow[]> {
         }),
       );
     }
+    rows.push(...(await byReference(app)));
     return rows;
   } finally {
     await app.stop();
   }
+}
+
+/** The cost of naming an instrument: the same panel by reference to a stored profile and written out, 8 connections. */
+async function byReference(app: StartedApp): Promise<BenchRow[]> {
+  const profile = { ...EXAMPLE_INSTRUMENTS[0], name: 'Benchmark widefield (stored)' };
+  const stored = await fetch(`${app.baseUrl}/api/v1/instruments`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify(profile),
+  });
+  const { id } = (await stored.json()) as { id: string };
+  const { probes } = demoPanelTitled('Benchmark panel') as { probes: PanelOnInstrumentSpec['probes'] };
+  const request: PanelOnInstrumentSpec = { version: 1, instrument: id, probes };
+  const written = resolveOnInstrument(request, profile);
+  const rows: BenchRow[] = [];
+  for (const [name, body] of [
+    ['POST /panels/evaluate demo probes on a stored instrument, by reference, 8 conn', request],
+    ['POST /panels/evaluate the same panel written out, 8 conn', written],
+  ] as const) {
+    rows.push(
+      await load(app, name, {
+        url: `${app.baseUrl}/api/v1/panels/evaluate`,
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify(body),
+        connections: 8,
+      }),
+    );
+  }
+  return rows;
 }
