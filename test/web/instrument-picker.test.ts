@@ -29,7 +29,7 @@ describe('instrumentIdOf', () => {
 });
 
 describe('<qdp-instrument-picker>', () => {
-  it('a pasted link fires instrument-switch with its id; a bad one says what a link is and keeps the text', async () => {
+  it('a pasted link fires instrument-switch with its id; a bad one explains a link and keeps the text', async () => {
     const el = await mount();
     const seen: string[] = [];
     el.addEventListener('instrument-switch', (e) => seen.push((e as CustomEvent<{ id: string }>).detail.id));
