@@ -71,7 +71,7 @@ describe('the shared light path', () => {
     expect((error as SpectraError).path.slice(0, 3)).toEqual(['lightPath', 'emissionFilters', 0]);
   });
 
-  it('seriesTransmission([dichroic 500, shortpass 450]) is each filter\'s transmission multiplied, point by point', () => {
+  it("seriesTransmission([dichroic 500, shortpass 450]) multiplies each filter's transmission point by point", () => {
     const t = seriesTransmission([dichroic, cleanup], DEFAULT_GRID);
     const a = filterTransmission(dichroic, DEFAULT_GRID);
     const b = filterTransmission(cleanup, DEFAULT_GRID);

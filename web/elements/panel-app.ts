@@ -12,7 +12,7 @@ import { computePanel, DETECTORS, MATERIALS, type Computed } from '../state/comp
 import { demoPanel } from '../state/demo-panel';
 import { placeError, type FieldError } from '../state/error-map';
 import { offendingProbes, type PanelExclusion } from '../state/exclusions';
-import { decodeFragment, encodeFragment } from '../state/fragment';
+import { decodeFragment, encodeFragment, type ViewOptions } from '../state/fragment';
 import { checksIfLoaded, loadChecks } from '../state/load-checks';
 import {
   addChannel,
@@ -47,6 +47,8 @@ export class PanelApp extends LitElement {
   @state() private sharedId = '';
   @state() private notice = '';
   @state() private byBrightness = true;
+  /** Bandpass sizes dragged or typed land on the nearest stock size (kept in the fragment). */
+  @state() private snapStock = false;
   @query('qdp-spectrum-chart') private chart?: SpectrumChart;
   private lastPushMs = 0;
   /** True while a panel waits for the checks to arrive before it is computed. */
@@ -93,6 +95,7 @@ export class PanelApp extends LitElement {
       const { readPageState } = await loadChecks();
       const r = readPageState(raw);
       if (!r.ok) throw new Error(`The link's panel is not valid (${r.message}).`);
+      this.snapStock = r.state.view.snapStock ?? false;
       this.load(r.state.panel, r.state.view.exclude, false);
     } catch (e) {
       this.notice = `${e instanceof Error ? e.message : String(e)} The demo panel is shown instead.`;
@@ -152,17 +155,22 @@ export class PanelApp extends LitElement {
   }
 
   private writeFragment(mode: 'push' | 'replace'): void {
-    const url = `${location.pathname}#${encodeFragment({ panel: this.panel, view: { exclude: this.exclude } })}`;
+    const url = `${location.pathname}#${encodeFragment({ panel: this.panel, view: this.view() })}`;
     const now = Date.now();
     if (mode === 'push' && now - this.lastPushMs > HISTORY_STEP_MS) history.pushState(null, '', url);
     else history.replaceState(null, '', url);
     this.lastPushMs = now;
   }
 
+  /** The view options the fragment keeps besides the panel. */
+  private view(): ViewOptions {
+    return { exclude: this.exclude, ...(this.snapStock ? { snapStock: true } : {}) };
+  }
+
   private duplicate(): void {
     this.sharedId = '';
     this.panel = { ...this.panel, title: `${this.panel.title ?? 'Panel'} (copy)` };
-    history.pushState(null, '', `/#${encodeFragment({ panel: this.panel, view: { exclude: this.exclude } })}`);
+    history.pushState(null, '', `/#${encodeFragment({ panel: this.panel, view: this.view() })}`);
     this.apply(this.panel, 'replace');
   }
 
@@ -193,7 +201,8 @@ export class PanelApp extends LitElement {
 
   /** A dragged edge moves the filter; the drag's last event is one history step, the ones before it replace it. */
   private onEdgeDrag(e: CustomEvent<EdgeDragDetail>): void {
-    if (!this.sharedId) this.apply(moveEdge(this.panel, e.detail), e.detail.done ? 'push' : 'replace');
+    if (this.sharedId) return;
+    this.apply(moveEdge(this.panel, e.detail, { snapStock: this.snapStock }), e.detail.done ? 'push' : 'replace');
   }
 
   /** The panel's probes (without their channel choice) and channels, for a search among them; none when empty. */
@@ -278,7 +287,16 @@ export class PanelApp extends LitElement {
           </section>
           <section aria-labelledby="h-channels">
             <h2 id="h-channels">Detection channels</h2>
-            <qdp-channel-list .panel=${p} .detectors=${DETECTORS} .errors=${errors.channels}></qdp-channel-list>
+            <qdp-channel-list
+              .panel=${p}
+              .detectors=${DETECTORS}
+              .errors=${errors.channels}
+              ?snapStock=${this.snapStock}
+              @snap-stock-change=${(e: CustomEvent<{ snapStock: boolean }>) => {
+                this.snapStock = e.detail.snapStock;
+                this.apply(p, 'replace');
+              }}
+            ></qdp-channel-list>
           </section>
           <section aria-labelledby="h-propose">
             <h2 id="h-propose">Propose a panel</h2>
@@ -307,6 +325,7 @@ export class PanelApp extends LitElement {
             <qdp-spectrum-chart
               .curves=${c?.chart.curves ?? []}
               .passbands=${c?.chart.passbands ?? []}
+              .shared=${c?.chart.shared ?? []}
               .background=${c?.chart.background}
               .excitationNm=${p.excitation.map((l) => l.wavelengthNm)}
               .yLabel=${this.byBrightness ? 'relative emission × brightness' : 'emission (peak = 1)'}

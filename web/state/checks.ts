@@ -34,10 +34,11 @@ export function readPanel(raw: unknown): { ok: true; panel: PanelSpec } | { ok: 
 
 /** A page state from a decoded fragment: a valid panel plus known view options (unknown options are dropped). */
 export function readPageState(raw: unknown): { ok: true; state: PageState } | { ok: false; message: string } {
-  const obj = (raw ?? {}) as { panel?: unknown; view?: { exclude?: unknown } };
+  const obj = (raw ?? {}) as { panel?: unknown; view?: { exclude?: unknown; snapStock?: unknown } };
   const panel = readPanel(obj.panel);
   if (!panel.ok) return panel;
   const words = obj.view?.exclude;
   const exclude = Array.isArray(words) ? words.filter(isPanelExclusion) : [];
-  return { ok: true, state: { panel: panel.panel, view: { exclude } } };
+  const snap = obj.view?.snapStock === true ? { snapStock: true } : {};
+  return { ok: true, state: { panel: panel.panel, view: { exclude, ...snap } } };
 }

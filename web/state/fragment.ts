@@ -11,6 +11,8 @@ import { thinTable } from './thin-table';
 export interface ViewOptions {
   /** Material classes the user excludes: probes containing them are flagged and block share/export. */
   exclude: PanelExclusion[];
+  /** True when bandpass sizes dragged or typed land on the nearest stock size (absent: off). */
+  snapStock?: boolean;
 }
 
 /** Everything the fragment holds. */
