@@ -97,7 +97,7 @@ export { extinctionAtNm, resolveDot, type DotFields, type ResolvedDot } from './
 // The light path: filters, detectors, sample background.
 export { FILTER_DEFAULTS, MAX_BLOCKING_OD } from './light/filters/defaults';
 export { filterTransmission } from './light/filters/filter';
-export { foldLightPath } from './light/light-path';
+export { foldLightPath, seriesTransmission } from './light/light-path';
 export {
   instrumentChannels,
   instrumentLightPath,

@@ -7,14 +7,29 @@
  */
 
 import type { FilterSpec, PanelSpec } from '../core/panel';
+import type { WavelengthGrid } from '../core/grid';
 import { filterTransmission } from './filters/filter';
+
+/**
+ * Transmission (0–1) of a list of filters in series at each grid wavelength (1 everywhere for an empty list); model
+ * errors name `path` and the filter index, e.g. ['lightPath', 'emissionFilters', 0].
+ */
+export function seriesTransmission(
+  filters: readonly FilterSpec[],
+  grid: WavelengthGrid,
+  path: (string | number)[] = [],
+): number[] {
+  const out = new Array<number>(grid.count).fill(1);
+  filters.forEach((filter, f) => {
+    const t = filterTransmission(filter, grid, [...path, f]);
+    for (let i = 0; i < out.length; i++) out[i] *= t[i];
+  });
+  return out;
+}
 
 /** Transmission of a list of filters in series at one wavelength; model errors name `path` and the filter index. */
 export function seriesAtNm(filters: readonly FilterSpec[], wavelengthNm: number, path: (string | number)[]): number {
-  const grid = { startNm: wavelengthNm, stepNm: 1, count: 1 };
-  let t = 1;
-  filters.forEach((filter, f) => (t *= filterTransmission(filter, grid, [...path, f])[0]));
-  return t;
+  return seriesTransmission(filters, { startNm: wavelengthNm, stepNm: 1, count: 1 }, path)[0];
 }
 
 /**

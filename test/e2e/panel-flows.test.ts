@@ -3,7 +3,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
 import { openBrowser, shot } from './helpers/browser';
 import { startApp, type StartedApp } from '../quality/helpers/app';
-import { decodeFragment } from '../../web/state/fragment';
+import { decodeFragment, encodeFragment } from '../../web/state/fragment';
+import type { PanelSpec } from '../../spectra/index';
 
 let app: StartedApp;
 let browser: { context: BrowserContext; close(): Promise<void> };
@@ -204,6 +205,58 @@ describe('the panel page', () => {
       await shot(other.page, '07-xss-as-text-1280', other.page.locator('qdp-probe-card').first());
       expect([...problems, ...other.problems]).toEqual([]);
       await other.page.close();
+      await page.close();
+    },
+  );
+
+  it(
+    'a link with an 800 nm probe and a shared dichroic: the chart reaches 850 nm, draws the shared path, ' +
+      'reads log tails with a curve hidden, and a dragged edge snaps to a stock size',
+    async () => {
+      // Invented panel: four dots, a shared dichroic passing above 480 nm, snapping on in the link's view.
+      const panel: PanelSpec = {
+        version: 1,
+        title: 'NIR probe and a shared dichroic',
+        excitation: [{ wavelengthNm: 405, powerRel: 1 }],
+        probes: [
+          { id: 'p1', label: 'Green dot', material: 'cdse', emissionPeakNm: 525 },
+          { id: 'p2', label: 'Orange dot', material: 'cdse', emissionPeakNm: 605 },
+          { id: 'p3', label: 'NIR dot', material: 'gaas', emissionPeakNm: 800 },
+        ],
+        channels: [
+          { id: 'c1', label: 'Green', filters: [{ type: 'bandpass', centerNm: 525, widthNm: 30 }] },
+          { id: 'c2', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] },
+          { id: 'c3', label: 'NIR', filters: [{ type: 'longpass', edgeNm: 770 }] },
+        ],
+        lightPath: { emissionFilters: [{ type: 'dichroic', edgeNm: 480, passes: 'above' }] },
+      };
+      const fragment = encodeFragment({ panel, view: { exclude: [], snapStock: true } });
+      const { page, problems } = await open(`${app.baseUrl}/#${fragment}`);
+      const chart = page.locator('qdp-spectrum-chart');
+      const ticks = await chart.locator('g.x-axis .tick text').allTextContents();
+      expect(ticks).toContain('850');
+      expect(await chart.locator('path.shared[data-part="emission"]').count()).toBe(1);
+      await chart.getByLabel(/Log scale/).check();
+      await chart.getByLabel(/Green dot/).uncheck();
+      await expect.poll(() => chart.locator('path.curve').count()).toBe(2);
+      await shot(page, '08-log-hidden-shared-1280', chart);
+      // Drag the Orange band's upper edge 30 px right: with snapping on it lands on a stock size.
+      const handle = chart.locator('g.handle[data-channel="c2"][data-edge="high"] line');
+      const box = (await handle.boundingBox())!;
+      await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+      await page.mouse.down();
+      await page.mouse.move(box.x + box.width / 2 + 30, box.y + box.height / 2, { steps: 5 });
+      await page.mouse.up();
+      const orange = page.locator('qdp-channel-card').nth(1);
+      await expect
+        .poll(() => orange.locator('qdp-number-field[data-field="filters.0.widthNm"] input').inputValue())
+        .not.toBe('20');
+      expect(await orange.locator('.stock').innerText()).toBe('stock size');
+      await page.setViewportSize({ width: 390, height: 844 });
+      await page.waitForTimeout(200);
+      await shot(page, '08-log-hidden-shared-390', chart);
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(400);
+      expect(problems).toEqual([]);
       await page.close();
     },
   );

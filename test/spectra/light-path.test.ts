@@ -1,5 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { SpectraError, evaluatePanel, filterTransmission, panelSpectra, type PanelSpec } from '../../spectra/index';
+import {
+  DEFAULT_GRID,
+  SpectraError,
+  evaluatePanel,
+  filterTransmission,
+  panelSpectra,
+  seriesTransmission,
+  type PanelSpec,
+} from '../../spectra/index';
 
 const base: PanelSpec = {
   excitation: [{ wavelengthNm: 405 }, { wavelengthNm: 488, powerRel: 0.5 }],
@@ -61,5 +69,29 @@ describe('the shared light path', () => {
     }
     expect(error).toBeInstanceOf(SpectraError);
     expect((error as SpectraError).path.slice(0, 3)).toEqual(['lightPath', 'emissionFilters', 0]);
+  });
+
+  it("seriesTransmission([dichroic 500, shortpass 450]) multiplies each filter's transmission point by point", () => {
+    const t = seriesTransmission([dichroic, cleanup], DEFAULT_GRID);
+    const a = filterTransmission(dichroic, DEFAULT_GRID);
+    const b = filterTransmission(cleanup, DEFAULT_GRID);
+    expect(t).toHaveLength(DEFAULT_GRID.count);
+    for (const nm of [400, 470, 500, 525, 800]) expect(t[nm - 300]).toBeCloseTo(a[nm - 300] * b[nm - 300], 12);
+    // At 600 nm the dichroic passes and the shortpass blocks (OD 6): the series blocks.
+    expect(a[300]).toBeGreaterThan(0.9);
+    expect(t[300]).toBeLessThan(1e-5);
+  });
+
+  it('seriesTransmission([]) is 1 at every grid point; an error in filter 1 names that index after the path', () => {
+    expect(seriesTransmission([], DEFAULT_GRID).every((v) => v === 1)).toBe(true);
+    const bad = { type: 'bandpass' as const, centerNm: 600, widthNm: 2, edgeWidthNm: 10 };
+    let error: unknown;
+    try {
+      seriesTransmission([dichroic, bad], DEFAULT_GRID, ['lightPath', 'emissionFilters']);
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toBeInstanceOf(SpectraError);
+    expect((error as SpectraError).path.slice(0, 3)).toEqual(['lightPath', 'emissionFilters', 1]);
   });
 });

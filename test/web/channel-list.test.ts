@@ -179,4 +179,21 @@ describe('<qdp-channel-list>', () => {
     expect(button(el, 'Add channel').disabled).toBe(false);
     expect(el.shadowRoot!.querySelector('.note')!.textContent).toBe('1 more channel allowed (at most 64).');
   });
+
+  it('ticking "Snap bandpass sizes to stock sizes" fires snap-stock-change true; cards get snapStock', async () => {
+    const el = await mount(panelWithChannels(2), (l) => (l.snapStock = false));
+    const seen: boolean[] = [];
+    el.addEventListener('snap-stock-change', (e) =>
+      seen.push((e as CustomEvent<{ snapStock: boolean }>).detail.snapStock),
+    );
+    const box = [...el.shadowRoot!.querySelectorAll('label')]
+      .find((l) => l.textContent!.includes('Snap bandpass sizes to stock sizes'))!
+      .querySelector('input')!;
+    box.click();
+    expect(seen).toEqual([true]);
+    expect(cards(el).map((c) => (c as Card & { snapStock: boolean }).snapStock)).toEqual([false, false]);
+    el.snapStock = true;
+    await el.updateComplete;
+    expect(cards(el).map((c) => (c as Card & { snapStock: boolean }).snapStock)).toEqual([true, true]);
+  });
 });

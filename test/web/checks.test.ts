@@ -54,6 +54,15 @@ describe('the page checks (state/checks.ts)', () => {
     expect(r.ok && r.state.view.exclude).toEqual(['lead', 'cadmium']);
   });
 
+  it('readPageState keeps view.snapStock true and leaves it out when it is "yes" or missing', () => {
+    const on = readPageState({ panel: demoPanel(), view: { exclude: [], snapStock: true } });
+    expect(on.ok && on.state.view).toEqual({ exclude: [], snapStock: true });
+    const odd = readPageState({ panel: demoPanel(), view: { exclude: [], snapStock: 'yes' } });
+    expect(odd.ok && odd.state.view).toEqual({ exclude: [] });
+    const none = readPageState({ panel: demoPanel() });
+    expect(none.ok && none.state.view).toEqual({ exclude: [] });
+  });
+
   it("checkDesignRequest(an abundance of 'plenty') gives the API's message naming targets[0].abundance", () => {
     const problem = checkDesignRequest({
       targets: [{ name: 'target 1', abundance: Number('plenty') }],

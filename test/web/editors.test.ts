@@ -4,6 +4,7 @@ import '../../web/elements/number-field';
 import '../../web/elements/probe-card';
 import '../../web/elements/channel-card';
 import { moveEdge } from '../../web/state/edge-drag';
+import { snapToStock } from '../../web/state/stock-snap';
 import { demoPanel } from '../../web/state/demo-panel';
 
 afterEach(() => document.body.replaceChildren());
@@ -115,12 +116,71 @@ describe('editors', () => {
     expect(changes[0].filters[0]).toEqual({ type: 'bandpass', centerNm: 605, widthNm: 30 });
   });
 
+  it('with snapStock, a bandpass centre typed as 603 lands on stock 605/20 when the typing is done', async () => {
+    for (const snapStock of [true, false]) {
+      const el = document.createElement('qdp-channel-card');
+      el.channel = { id: 'c1', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 610, widthNm: 20 }] };
+      el.lines = [405];
+      el.snapStock = snapStock;
+      document.body.appendChild(el);
+      await el.updateComplete;
+      const changes: ChannelSpec[] = [];
+      el.addEventListener('channel-change', (e) =>
+        changes.push((e as CustomEvent<{ channel: ChannelSpec }>).detail.channel),
+      );
+      const field = el.shadowRoot!.querySelector('qdp-number-field[data-field="filters.0.centerNm"]') as HTMLElement & {
+        updateComplete: Promise<unknown>;
+      };
+      await field.updateComplete;
+      const input = field.shadowRoot!.querySelector('input')!;
+      typeInto(input, '603');
+      input.dispatchEvent(new Event('change', { bubbles: true }));
+      // While typing, the typed number is kept; once done, snapping moves it to the nearest stock size.
+      expect(changes[0].filters[0]).toEqual({ type: 'bandpass', centerNm: 603, widthNm: 20 });
+      expect(changes.at(-1)!.filters[0]).toEqual({ type: 'bandpass', centerNm: snapStock ? 605 : 603, widthNm: 20 });
+      expect(changes.length).toBe(snapStock ? 2 : 1);
+      el.remove();
+    }
+  });
+
   it('moveEdge(panel, low edge at 590) keeps the upper edge of a 605/20 bandpass and widens it to 25 nm', () => {
     const panel = demoPanel();
     const i = panel.channels.findIndex((c) => c.filters[0].type === 'bandpass' && c.filters[0].centerNm === 605);
     const moved = moveEdge(panel, { channelIndex: i, filterIndex: 0, edge: 'low', wavelengthNm: 590 });
     expect(moved.channels[i].filters[0]).toMatchObject({ centerNm: 602.5, widthNm: 25 });
     expect(panel.channels[i].filters[0]).toMatchObject({ centerNm: 605, widthNm: 20 });
+  });
+
+  // Stock sizes (spectra's rule, docs/api.md): centres every 5 nm, widths 10, 20, 25, 30, 40, 50, 60, 75, 100 nm.
+  it('snapToStock(bandpass 603/22) is 605/20; a longpass at 563 nm is left as it is', () => {
+    expect(snapToStock({ type: 'bandpass', centerNm: 603, widthNm: 22 })).toEqual({
+      type: 'bandpass',
+      centerNm: 605,
+      widthNm: 20,
+    });
+    expect(snapToStock({ type: 'longpass', edgeNm: 563 })).toEqual({ type: 'longpass', edgeNm: 563 });
+  });
+
+  it('moveEdge(605/20, upper edge to 636, snapping) lands on stock 615/40 (custom 615.5/41 without snapping)', () => {
+    const panel = demoPanel();
+    const i = panel.channels.findIndex((c) => c.filters[0].type === 'bandpass' && c.filters[0].centerNm === 605);
+    const h = { channelIndex: i, filterIndex: 0, edge: 'high' as const, wavelengthNm: 636 };
+    expect(moveEdge(panel, h, { snapStock: true }).channels[i].filters[0]).toMatchObject({
+      centerNm: 615,
+      widthNm: 40,
+    });
+    expect(moveEdge(panel, h).channels[i].filters[0]).toMatchObject({ centerNm: 615.5, widthNm: 41 });
+  });
+
+  it('moveEdge(605/20, upper edge +1 nm by key, snapping) steps on to 605/25; by pointer it stays at 605/20', () => {
+    const panel = demoPanel();
+    const i = panel.channels.findIndex((c) => c.filters[0].type === 'bandpass' && c.filters[0].centerNm === 605);
+    const h = { channelIndex: i, filterIndex: 0, edge: 'high' as const, wavelengthNm: 616 };
+    // 616 → 605.5/21 snaps back to 605/20; the key step looks on: 618 → 606.5/23 is nearest 605/25.
+    const byKey = moveEdge(panel, { ...h, byKey: true }, { snapStock: true }).channels[i].filters[0];
+    expect(byKey).toMatchObject({ centerNm: 605, widthNm: 25 });
+    const byPointer = moveEdge(panel, h, { snapStock: true }).channels[i].filters[0];
+    expect(byPointer).toMatchObject({ centerNm: 605, widthNm: 20 });
   });
 });
 

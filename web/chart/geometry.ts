@@ -1,22 +1,42 @@
 /**
- * Scales and path strings of the spectra chart (d3-scale, d3-shape), built once per change of data or size.
+ * Scales and path strings of the spectra chart (d3-scale, d3-shape), built once per change of data, scale or size.
+ * On the log scale a value below the floor (a fraction of the axis top) is drawn at the floor, so spillover tails
+ * decades below a peak stay readable without the curve running off the plot.
  */
-import { scaleLinear, type ScaleLinear } from 'd3-scale';
+import { scaleLinear, scaleLog, type ScaleContinuousNumeric } from 'd3-scale';
 import { area, line } from 'd3-shape';
 import type { SampledSpectrum } from '../../spectra/index';
-import type { ChartCurve, ChartPassband } from './types';
 
 /** Plot margins in px: room for the axes' tick labels and titles. */
 export const MARGIN = { top: 14, right: 46, bottom: 40, left: 52 };
 
+/**
+ * Bottom of the log axes as a fraction of their top: four decades, i.e. a passband blocking to OD 4, which covers the
+ * spillover fractions the crosstalk tables print (from 0.1 %) with a decade to spare (our convention).
+ */
+export const LOG_FLOOR_FRACTION = 1e-4;
+
+/** A numeric scale from value to px: linear or log. */
+export type ValueScale = ScaleContinuousNumeric<number, number>;
+
 /** Everything the chart's template needs, in px. */
 export interface ChartGeometry {
-  x: ScaleLinear<number, number>;
-  yEmission: ScaleLinear<number, number>;
-  yTransmission: ScaleLinear<number, number>;
+  x: ScaleContinuousNumeric<number, number>;
+  yEmission: ValueScale;
+  yTransmission: ValueScale;
   curvePaths: string[];
   passbandPaths: string[];
+  /** Lines (not areas) on the transmission axis: the shared light path's parts. */
+  sharedPaths: string[];
   backgroundPath: string;
+}
+
+/** What the chart draws, before scaling. */
+export interface ChartLayers {
+  curves: readonly SampledSpectrum[];
+  passbands: readonly SampledSpectrum[];
+  shared: readonly SampledSpectrum[];
+  background?: SampledSpectrum;
 }
 
 /** Points of a grid curve inside [loNm, hiNm], every `stride`-th sample (enough for a few px per point). */
@@ -29,51 +49,63 @@ function pointsOf(c: SampledSpectrum, loNm: number, hiNm: number, stride: number
   return out;
 }
 
-/** Builds scales and paths for a plot of `widthPx` × `heightPx` over `domainNm`. */
+/**
+ * A value axis from 0 (linear) or from LOG_FLOOR_FRACTION × top (log) up to `top`, onto [bottomPx, topPx], with
+ * values below the log floor clamped to it.
+ */
+export function valueScale(top: number, log: boolean, bottomPx: number, topPx: number): ValueScale {
+  if (!log) return scaleLinear().domain([0, top]).range([bottomPx, topPx]);
+  return scaleLog()
+    .domain([top * LOG_FLOOR_FRACTION, top])
+    .range([bottomPx, topPx])
+    .clamp(true);
+}
+
+/** Builds scales and paths for a plot of `widthPx` × `heightPx` over `domainNm`, on linear or log value axes. */
 export function chartGeometry(
-  curves: readonly ChartCurve[],
-  passbands: readonly ChartPassband[],
-  background: SampledSpectrum | undefined,
+  layers: ChartLayers,
   domainNm: [number, number],
   widthPx: number,
   heightPx: number,
+  log = false,
 ): ChartGeometry {
   const x = scaleLinear()
     .domain(domainNm)
     .range([MARGIN.left, Math.max(MARGIN.left + 10, widthPx - MARGIN.right)]);
   let maxValue = 0;
-  for (const c of [...curves.map((c) => c.spectrum), ...(background ? [background] : [])]) {
+  for (const c of [...layers.curves, ...(layers.background ? [layers.background] : [])]) {
     for (let i = 0; i < c.values.length; i++) if (c.values[i] > maxValue) maxValue = c.values[i];
   }
-  const yEmission = scaleLinear()
-    .domain([0, maxValue > 0 ? maxValue * 1.05 : 1])
-    .range([heightPx - MARGIN.bottom, MARGIN.top]);
-  const yTransmission = scaleLinear()
-    .domain([0, 1])
-    .range([heightPx - MARGIN.bottom, MARGIN.top]);
+  const bottomPx = heightPx - MARGIN.bottom;
+  // The linear axis leaves 5 % headroom over the tallest curve; the log axis ends at it.
+  const top = maxValue > 0 ? maxValue * (log ? 1 : 1.05) : 1;
+  const yEmission = valueScale(top, log, bottomPx, MARGIN.top);
+  const yTransmission = valueScale(1, log, bottomPx, MARGIN.top);
   // Sample a 1 nm grid at most once per px: keeps paths short on a phone.
   const stride = (c: SampledSpectrum) => Math.max(1, Math.floor((domainNm[1] - domainNm[0]) / c.stepNm / widthPx));
+  const along = (c: SampledSpectrum) => pointsOf(c, domainNm[0], domainNm[1], stride(c));
+  // On the log scale the clamp puts 0 (and any value below the floor) on the bottom of the plot.
   const curveLine = line<[number, number]>()
     .x((d) => x(d[0]))
     .y((d) => yEmission(d[1]));
+  const sharedLine = line<[number, number]>()
+    .x((d) => x(d[0]))
+    .y((d) => yTransmission(d[1]));
   const bandArea = area<[number, number]>()
     .x((d) => x(d[0]))
-    .y0(yTransmission(0))
+    .y0(bottomPx)
     .y1((d) => yTransmission(d[1]));
   const bgArea = area<[number, number]>()
     .x((d) => x(d[0]))
-    .y0(yEmission(0))
+    .y0(bottomPx)
     .y1((d) => yEmission(d[1]));
   return {
     x,
     yEmission,
     yTransmission,
-    curvePaths: curves.map((c) => curveLine(pointsOf(c.spectrum, domainNm[0], domainNm[1], stride(c.spectrum))) ?? ''),
-    passbandPaths: passbands.map(
-      (p) => bandArea(pointsOf(p.transmission, domainNm[0], domainNm[1], stride(p.transmission))) ?? '',
-    ),
-    backgroundPath: background
-      ? (bgArea(pointsOf(background, domainNm[0], domainNm[1], stride(background))) ?? '')
-      : '',
+    curvePaths: layers.curves.map((c) => curveLine(along(c)) ?? ''),
+    passbandPaths: layers.passbands.map((p) => bandArea(along(p)) ?? ''),
+    sharedPaths: layers.shared.map((s) => sharedLine(along(s)) ?? ''),
+    backgroundPath: layers.background ? (bgArea(along(layers.background)) ?? '') : '',
   };
 }

@@ -29,8 +29,20 @@ export interface ChartPassband {
   handles: ChartHandle[];
 }
 
+/**
+ * One part of the light path every channel shares, on its own: the emission-side filters in front of every detector
+ * (already included in each channel's passband) or the excitation clean-up filters every line passes.
+ */
+export interface ChartSharedPath {
+  id: 'emission' | 'excitation';
+  label: string;
+  transmission: SampledSpectrum;
+}
+
 /** Detail of the `edge-drag` event the chart fires while a handle moves (by pointer or arrow keys). */
 export interface EdgeDragDetail extends ChartHandle {
   /** True on the last event of a drag (pointer released), so the app can record a history step. */
   done: boolean;
+  /** True for a step by an arrow key rather than a pointer position. */
+  byKey?: boolean;
 }

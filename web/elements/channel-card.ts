@@ -18,6 +18,7 @@ import {
 } from '../../spectra/index';
 import { describeFilter } from '../io/filter-text';
 import { messagesBesides } from '../state/error-map';
+import { snapToStock } from '../state/stock-snap';
 import './number-field';
 import './spectrum-input';
 
@@ -59,6 +60,8 @@ export class ChannelCard extends LitElement {
   @property({ attribute: false }) detectors: Pick<DetectorClass, 'id' | 'name'>[] = [];
   /** Errors keyed by the path inside the channel, e.g. "filters.0.widthNm"; those without a field show together. */
   @property({ attribute: false }) errors: Record<string, string> = {};
+  /** When on, a bandpass centre or width typed in lands on the nearest stock size once the typing is done. */
+  @property({ type: Boolean }) snapStock = false;
 
   static override styles = [
     focusRing,
@@ -105,6 +108,9 @@ export class ChannelCard extends LitElement {
   private num(j: number, f: FilterSpec, key: 'centerNm' | 'widthNm' | 'edgeNm', label: string) {
     const typed = (e: CustomEvent<{ value?: number }>) =>
       e.detail.value !== undefined && this.setFilter(j, { ...f, [key]: e.detail.value } as FilterSpec);
+    const done = (e: CustomEvent<{ value: number }>) => {
+      if (this.snapStock && f.type === 'bandpass') this.setFilter(j, snapToStock({ ...f, [key]: e.detail.value }));
+    };
     return html`<qdp-number-field
       .label=${label}
       unit="nm"
@@ -112,6 +118,7 @@ export class ChannelCard extends LitElement {
       data-field=${`filters.${j}.${key}`}
       .error=${this.errors[`filters.${j}.${key}`] ?? ''}
       @value-change=${typed}
+      @value-commit=${done}
     ></qdp-number-field>`;
   }
 

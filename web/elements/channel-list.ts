@@ -1,6 +1,7 @@
 /**
  * <qdp-channel-list>: the panel's detection channels as editable cards, "Add channel", and "Add a spectral detector
- * run" (N contiguous narrow bins). Fires `channel-add` and `spectral-run` {startNm, bins, binWidthNm}.
+ * run" (N contiguous narrow bins), and the "snap to stock sizes" setting. Fires `channel-add`, `spectral-run`
+ * {startNm, bins, binWidthNm} and `snap-stock-change` {snapStock}.
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
@@ -16,6 +17,8 @@ export class ChannelList extends LitElement {
   @property({ attribute: false }) detectors: Pick<DetectorClass, 'id' | 'name'>[] = [];
   /** Errors keyed by channel index, then by field path inside the channel. */
   @property({ attribute: false }) errors: Record<number, Record<string, string>> = {};
+  /** When on, bandpass sizes dragged on the chart or typed in land on the nearest stock size. */
+  @property({ type: Boolean }) snapStock = false;
   /** Most channels a panel may hold (the API's limit). */
   @property({ type: Number }) maxChannels: number = LIMITS.channels;
 
@@ -36,6 +39,11 @@ export class ChannelList extends LitElement {
       }
       .note {
         font-size: 0.85rem;
+      }
+      .snap {
+        display: block;
+        font-size: 0.85rem;
+        margin-bottom: 0.4rem;
       }
     `,
   ];
@@ -62,7 +70,12 @@ export class ChannelList extends LitElement {
     const set = (k: keyof typeof this.run) => (e: CustomEvent<{ value?: number }>) => {
       if (e.detail.value !== undefined) this.run = { ...this.run, [k]: e.detail.value };
     };
-    return html`<div class="cards">
+    const snap = (e: Event) => this.fire('snap-stock-change', { snapStock: (e.target as HTMLInputElement).checked });
+    return html`<label class="snap"
+        ><input type="checkbox" .checked=${this.snapStock} @change=${snap} /> Snap bandpass sizes to stock sizes (when
+        dragging an edge on the chart or typing a centre or width)</label
+      >
+      <div class="cards">
         ${panel.channels.map(
           (c, i) =>
             html`<qdp-channel-card
@@ -71,6 +84,7 @@ export class ChannelList extends LitElement {
               .lines=${lines}
               .detectors=${this.detectors}
               .errors=${this.errors[i] ?? {}}
+              ?snapStock=${this.snapStock}
             ></qdp-channel-card>`,
         )}
       </div>

@@ -1,6 +1,7 @@
 /**
  * <qdp-number-field>: a labelled number input that keeps whatever was typed. It fires `value-change` only for a
- * finite number (or undefined when an optional field is emptied); anything else is marked invalid in place, and an
+ * finite number (or undefined when an optional field is emptied) on every keystroke, and `value-commit` {value} with a
+ * finite number when the typing is done (Enter or leaving the field); anything else is marked invalid in place, and an
  * `error` from the computation (e.g. an out-of-range peak naming the reachable range) is shown under it.
  */
 import { LitElement, css, html, type PropertyValues } from 'lit';
@@ -78,6 +79,12 @@ export class NumberField extends LitElement {
     this.fire(n);
   }
 
+  private onCommit(): void {
+    const n = Number(this.raw.trim().replace(',', '.'));
+    if (this.raw.trim() === '' || !Number.isFinite(n)) return;
+    this.dispatchEvent(new CustomEvent('value-commit', { detail: { value: n }, bubbles: true, composed: true }));
+  }
+
   private fire(value: number | undefined): void {
     this.dispatchEvent(new CustomEvent('value-change', { detail: { value }, bubbles: true, composed: true }));
   }
@@ -93,6 +100,7 @@ export class NumberField extends LitElement {
           placeholder=${this.placeholder}
           aria-invalid=${msg ? 'true' : 'false'}
           @input=${this.onInput}
+          @change=${this.onCommit}
       /></label>
       ${msg ? html`<div class="msg" role="alert">${msg}</div>` : ''}`;
   }

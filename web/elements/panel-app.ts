@@ -18,7 +18,7 @@ import { computePanel, DETECTORS, MATERIALS, type Computed } from '../state/comp
 import { demoPanel } from '../state/demo-panel';
 import { placeError, type FieldError } from '../state/error-map';
 import { offendingProbes, type PanelExclusion } from '../state/exclusions';
-import { decodeFragment, encodeFragment } from '../state/fragment';
+import { decodeFragment, encodeFragment, type ViewOptions } from '../state/fragment';
 import { checksIfLoaded, loadChecks } from '../state/load-checks';
 import {
   addChannel,
@@ -69,6 +69,8 @@ export class PanelApp extends LitElement {
   @state() private instrumentBusy = false;
   /** The panel and instrument before the last switch, for its undo. */
   private beforeSwitch?: { panel: PanelSpec; instrument?: AttachedInstrument };
+  /** Bandpass sizes dragged or typed land on the nearest stock size (kept in the fragment). */
+  @state() private snapStock = false;
   @query('qdp-spectrum-chart') private chart?: SpectrumChart;
   private lastPushMs = 0;
   /** True while a panel waits for the checks to arrive before it is computed. */
@@ -117,6 +119,7 @@ export class PanelApp extends LitElement {
       const { readPageState } = await loadChecks();
       const r = readPageState(raw);
       if (!r.ok) throw new Error(`The link's panel is not valid (${r.message}).`);
+      this.snapStock = r.state.view.snapStock ?? false;
       this.load(r.state.panel, r.state.view.exclude, false);
       if (r.state.view.instrument) await this.reattach(r.state.view.instrument);
     } catch (e) {
@@ -283,16 +286,21 @@ export class PanelApp extends LitElement {
     }
   }
 
-  private view() {
-    return { exclude: this.exclude, ...(this.instrument ? { instrument: this.instrument.id } : {}) };
-  }
-
   private writeFragment(mode: 'push' | 'replace'): void {
     const url = `${location.pathname}#${encodeFragment({ panel: this.panel, view: this.view() })}`;
     const now = Date.now();
     if (mode === 'push' && now - this.lastPushMs > HISTORY_STEP_MS) history.pushState(null, '', url);
     else history.replaceState(null, '', url);
     this.lastPushMs = now;
+  }
+
+  /** The view options the fragment keeps besides the panel. */
+  private view(): ViewOptions {
+    return {
+      exclude: this.exclude,
+      ...(this.instrument ? { instrument: this.instrument.id } : {}),
+      ...(this.snapStock ? { snapStock: true } : {}),
+    };
   }
 
   private duplicate(): void {
@@ -328,7 +336,8 @@ export class PanelApp extends LitElement {
 
   /** A dragged edge moves the filter; the drag's last event is one history step, the ones before it replace it. */
   private onEdgeDrag(e: CustomEvent<EdgeDragDetail>): void {
-    if (!this.sharedId) this.apply(moveEdge(this.panel, e.detail), e.detail.done ? 'push' : 'replace');
+    if (this.sharedId) return;
+    this.apply(moveEdge(this.panel, e.detail, { snapStock: this.snapStock }), e.detail.done ? 'push' : 'replace');
   }
 
   /** The panel's probes (without their channel choice) and channels, for a search among them; none when empty. */
@@ -434,7 +443,16 @@ export class PanelApp extends LitElement {
           </section>
           <section aria-labelledby="h-channels">
             <h2 id="h-channels">Detection channels</h2>
-            <qdp-channel-list .panel=${p} .detectors=${DETECTORS} .errors=${errors.channels}></qdp-channel-list>
+            <qdp-channel-list
+              .panel=${p}
+              .detectors=${DETECTORS}
+              .errors=${errors.channels}
+              ?snapStock=${this.snapStock}
+              @snap-stock-change=${(e: CustomEvent<{ snapStock: boolean }>) => {
+                this.snapStock = e.detail.snapStock;
+                this.apply(p, 'replace');
+              }}
+            ></qdp-channel-list>
           </section>
           <section aria-labelledby="h-propose">
             <h2 id="h-propose">Propose a panel</h2>
@@ -463,6 +481,7 @@ export class PanelApp extends LitElement {
             <qdp-spectrum-chart
               .curves=${c?.chart.curves ?? []}
               .passbands=${c?.chart.passbands ?? []}
+              .shared=${c?.chart.shared ?? []}
               .background=${c?.chart.background}
               .excitationNm=${p.excitation.map((l) => l.wavelengthNm)}
               .yLabel=${this.byBrightness ? 'relative emission × brightness' : 'emission (peak = 1)'}

@@ -1,6 +1,8 @@
 /**
- * <qdp-spectrum-chart>: every probe's emission in its wavelength colour, channel passbands shaded, excitation lines
- * marked, sample background filled, filter edges draggable, and a readout of every value under the pointer.
+ * <qdp-spectrum-chart>: every probe's emission in its wavelength colour, channel passbands shaded, the shared light
+ * path as its own lines, excitation lines marked, sample background filled, filter edges draggable, and a readout of
+ * every value under the pointer. The reader picks a linear or log scale and a range (following the panel by default),
+ * and hides or shows each layer; those choices are kept by layer id across recomputations of the panel.
  */
 import { LitElement, css, html, svg, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
@@ -8,21 +10,29 @@ import { axisBottom, axisLeft, axisRight } from 'd3-axis';
 import { select } from 'd3-selection';
 import { chartGeometry, MARGIN, type ChartGeometry } from '../chart/geometry';
 import type { SampledSpectrum } from '../../spectra/index';
-import type { ChartCurve, ChartHandle, ChartPassband, EdgeDragDetail } from '../chart/types';
+import type { ChartCurve, ChartHandle, ChartPassband, ChartSharedPath, EdgeDragDetail } from '../chart/types';
 import { isNearInfrared, wavelengthToCss } from '../chart/color';
 import { WidthController } from '../chart/resize-controller';
 import { chartReadout } from '../chart/readout';
+import { autoRangeNm } from '../chart/auto-range';
+import { BACKGROUND_LOOK, BAND_LOOK, layerKey, SHARED_LOOK, type LegendEntry } from '../chart/looks';
+import './chart-controls';
+import './chart-legend';
 
 const HEIGHT_PX = 300;
 /** Top and bottom of the plot area, px. */
 const TOP = MARGIN.top;
 const BOTTOM = HEIGHT_PX - MARGIN.bottom;
 
-/** The legend's mark for a near-infrared curve, and the note that explains it. */
-const NIR_MARK = html` <strong>NIR</strong>`;
+/** The note that explains the legend's NIR mark. */
 const NIR_NOTE = html`<p class="readout">
   NIR: near-infrared emission (700 nm and beyond) is nearly invisible to the eye, so it is drawn as a dashed dark-grey
   line rather than in a colour.
+</p>`;
+
+/** Said once under the legend when the panel has a shared emission path. */
+const SHARED_NOTE = html`<p class="readout">
+  Each channel's shading already includes the shared emission path; its own line shows which cuts come from it.
 </p>`;
 
 /** What a handle's slider is called after its channel's name. */
@@ -34,16 +44,23 @@ export class SpectrumChart extends LitElement {
   @property({ attribute: false }) curves: ChartCurve[] = [];
   /** Channel transmissions (0–1) with their draggable edges. */
   @property({ attribute: false }) passbands: ChartPassband[] = [];
+  /** The shared light path's parts on their own (transmission 0–1); empty without a light path. */
+  @property({ attribute: false }) shared: ChartSharedPath[] = [];
   /** Excitation lines, nm. */
   @property({ attribute: false }) excitationNm: number[] = [];
   /** Sample autofluorescence on the emission scale, or undefined when off. */
   @property({ attribute: false }) background?: SampledSpectrum;
-  /** Wavelength range shown, nm. */
-  @property({ attribute: false }) domainNm: [number, number] = [380, 800];
   /** What the emission axis means, e.g. "relative emission (scaled by brightness)". */
   @property() yLabel = 'relative emission';
 
   @state() private hoverNm: number | null = null;
+  /** A range set by hand, nm, or null while the range follows the panel. */
+  @state() private rangeNm: [number, number] | null = null;
+  @state() private log = false;
+  /** Keys (looks.ts layerKey) of the layers the reader hid. */
+  @state() private hiddenKeys: ReadonlySet<string> = new Set();
+  /** The range shown, nm. */
+  private domainNm: [number, number] = [380, 800];
   private geometry?: ChartGeometry;
   private readonly width = new WidthController(this, 800);
   private drag?: ChartHandle;
@@ -79,36 +96,45 @@ export class SpectrumChart extends LitElement {
       color: #222;
       margin: 0.3rem 0 0;
     }
-    .legend {
-      display: flex;
-      flex-wrap: wrap;
-      gap: 0.25rem 1rem;
-      list-style: none;
-      padding: 0;
-      margin: 0.4rem 0 0;
-      font-size: 0.85rem;
-    }
-    .legend svg {
-      display: inline-block;
-      width: 28px;
-      height: 10px;
-      vertical-align: middle;
-    }
   `;
 
+  /** The layers the reader has not hidden. */
+  private shown<T extends { id: string }>(items: readonly T[], key: (id: string) => string): T[] {
+    return items.filter((item) => !this.hiddenKeys.has(key(item.id)));
+  }
+
+  private get visible() {
+    return {
+      curves: this.shown(this.curves, layerKey.probe),
+      passbands: this.shown(this.passbands, layerKey.channel),
+      shared: this.shown(this.shared, layerKey.shared),
+      background: this.hiddenKeys.has(layerKey.background) ? undefined : this.background,
+    };
+  }
+
   protected override willUpdate(changed: PropertyValues<this>): void {
-    // Paths are rebuilt only when the data or the size changed, not on every pointer move.
+    // Paths are rebuilt only when the data, the view or the size changed, not on every pointer move.
     const w = this.width.widthPx;
-    if (
-      !this.geometry ||
-      changed.has('curves') ||
-      changed.has('passbands') ||
-      changed.has('background') ||
-      changed.has('domainNm') ||
-      this.geometry.x.range()[1] !== Math.max(MARGIN.left + 10, w - MARGIN.right)
-    ) {
-      this.geometry = chartGeometry(this.curves, this.passbands, this.background, this.domainNm, w, HEIGHT_PX);
+    const dataChanged = ['curves', 'passbands', 'shared', 'background', 'excitationNm'].some((k) =>
+      changed.has(k as keyof SpectrumChart),
+    );
+    const viewChanged = ['rangeNm', 'log', 'hiddenKeys'].some((k) => changed.has(k as keyof SpectrumChart));
+    if (!this.geometry || dataChanged || viewChanged || this.geometry.x.range()[1] !== this.plotRightPx(w)) {
+      // The automatic range follows every layer, hidden or not, so hiding one does not move the axis.
+      this.domainNm = this.rangeNm ?? autoRangeNm(this.curves, this.passbands, this.excitationNm);
+      const v = this.visible;
+      const layers = {
+        curves: v.curves.map((c) => c.spectrum),
+        passbands: v.passbands.map((p) => p.transmission),
+        shared: v.shared.map((p) => p.transmission),
+        background: v.background,
+      };
+      this.geometry = chartGeometry(layers, this.domainNm, w, HEIGHT_PX, this.log);
     }
+  }
+
+  private plotRightPx(w: number): number {
+    return Math.max(MARGIN.left + 10, w - MARGIN.right);
   }
 
   protected override updated(): void {
@@ -117,7 +143,9 @@ export class SpectrumChart extends LitElement {
     const narrow = this.width.widthPx < 500;
     select(root.querySelector('g.x-axis') as SVGGElement).call(axisBottom(g.x).ticks(narrow ? 5 : 10));
     select(root.querySelector('g.y-axis') as SVGGElement).call(axisLeft(g.yEmission).ticks(5, '~g'));
-    select(root.querySelector('g.t-axis') as SVGGElement).call(axisRight(g.yTransmission).ticks(5, '.0%'));
+    select(root.querySelector('g.t-axis') as SVGGElement).call(
+      axisRight(g.yTransmission).ticks(5, this.log ? '~%' : '.0%'),
+    );
   }
 
   private pointerNm(e: PointerEvent): number {
@@ -154,7 +182,13 @@ export class SpectrumChart extends LitElement {
     const step = e.shiftKey ? 5 : 1;
     if (e.key !== 'ArrowLeft' && e.key !== 'ArrowRight') return;
     e.preventDefault();
-    this.emitDrag(h, h.wavelengthNm + (e.key === 'ArrowRight' ? step : -step), true);
+    const detail: EdgeDragDetail = {
+      ...h,
+      wavelengthNm: h.wavelengthNm + (e.key === 'ArrowRight' ? step : -step),
+      done: true,
+      byKey: true,
+    };
+    this.dispatchEvent(new CustomEvent('edge-drag', { detail, bubbles: true, composed: true }));
   }
 
   private plotKey(e: KeyboardEvent): void {
@@ -168,12 +202,22 @@ export class SpectrumChart extends LitElement {
   }
 
   /** Each channel's passband, shaded, and its name where names fit. */
-  private passbandLayer(g: ChartGeometry, labelBands: boolean) {
-    return this.passbands.map(
-      (p, i) => svg`<path class="passband" data-channel=${p.id} d=${g.passbandPaths[i]} fill="#8a94a6"
-          fill-opacity="0.16" stroke="#5b6475" stroke-width="1" stroke-dasharray="3 2"></path>
+  private passbandLayer(g: ChartGeometry, passbands: ChartPassband[], labelBands: boolean) {
+    return passbands.map(
+      (p, i) => svg`<path class="passband" data-channel=${p.id} d=${g.passbandPaths[i]} fill=${BAND_LOOK.fill}
+          fill-opacity=${BAND_LOOK.fillOpacity} stroke=${BAND_LOOK.stroke} stroke-width="1"
+          stroke-dasharray=${BAND_LOOK.dash}></path>
         ${labelBands ? this.bandName(g, p) : ''}`,
     );
+  }
+
+  /** Each part of the shared light path, a line on the transmission axis. */
+  private sharedLayer(g: ChartGeometry, shared: ChartSharedPath[]) {
+    return shared.map((s, i) => {
+      const look = SHARED_LOOK[s.id];
+      return svg`<path class="shared" data-part=${s.id} d=${g.sharedPaths[i]} fill="none" stroke=${look.stroke}
+        stroke-width=${look.width} stroke-dasharray=${look.dash} stroke-linecap="round"></path>`;
+    });
   }
 
   /** A channel's name above the middle of its editable edges (none without edges: a measured table). */
@@ -185,10 +229,10 @@ export class SpectrumChart extends LitElement {
   }
 
   /** The sample background, filled, when it is on. */
-  private backgroundLayer(g: ChartGeometry) {
-    if (!this.background) return '';
-    return svg`<path class="background" d=${g.backgroundPath} fill="#b08d57" fill-opacity="0.22" stroke="#8a6a35"
-      stroke-width="1"></path>`;
+  private backgroundLayer(g: ChartGeometry, background: SampledSpectrum | undefined) {
+    if (!background) return '';
+    return svg`<path class="background" d=${g.backgroundPath} fill=${BACKGROUND_LOOK.fill}
+      fill-opacity=${BACKGROUND_LOOK.fillOpacity} stroke=${BACKGROUND_LOOK.stroke} stroke-width="1"></path>`;
   }
 
   /** Each excitation line in its own colour, labelled. */
@@ -201,8 +245,8 @@ export class SpectrumChart extends LitElement {
   }
 
   /** Each probe's emission over a dark halo, in its wavelength colour (near-infrared: dashed grey). */
-  private curveLayer(g: ChartGeometry) {
-    return this.curves.map(
+  private curveLayer(g: ChartGeometry, curves: ChartCurve[]) {
+    return curves.map(
       (c, i) => svg`<path d=${g.curvePaths[i]} fill="none" stroke="#222" stroke-opacity="0.45"
           stroke-width="3.5"></path>
         <path class="curve" data-probe=${c.id} d=${g.curvePaths[i]} fill="none" stroke=${wavelengthToCss(c.peakNm)}
@@ -219,9 +263,9 @@ export class SpectrumChart extends LitElement {
   }
 
   /** The draggable filter edges: sliders for the keyboard, a wide invisible grip for the pointer. */
-  private handleLayer(g: ChartGeometry) {
+  private handleLayer(g: ChartGeometry, passbands: ChartPassband[]) {
     const [minNm, maxNm] = this.domainNm;
-    return this.passbands.flatMap((p) =>
+    return passbands.flatMap((p) =>
       p.handles.map((h) => {
         const x = g.x(h.wavelengthNm);
         return svg`<g class="handle" tabindex="0" role="slider" aria-label=${`${p.label}: ${EDGE_NAMES[h.edge]}`}
@@ -235,12 +279,75 @@ export class SpectrumChart extends LitElement {
     );
   }
 
+  /** The legend's lines: every layer, shown or hidden. */
+  private legendEntries(): LegendEntry[] {
+    const hidden = (key: string) => this.hiddenKeys.has(key);
+    return [
+      ...this.curves.map((c) => ({
+        key: layerKey.probe(c.id),
+        label: `${c.label} (${Math.round(c.peakNm)} nm)`,
+        mark: 'curve' as const,
+        stroke: wavelengthToCss(c.peakNm),
+        dash: isNearInfrared(c.peakNm) ? '6 3' : 'none',
+        nir: isNearInfrared(c.peakNm),
+        hidden: hidden(layerKey.probe(c.id)),
+      })),
+      ...this.passbands.map((p) => ({
+        key: layerKey.channel(p.id),
+        label: `${p.label} channel`,
+        mark: 'band' as const,
+        stroke: BAND_LOOK.stroke,
+        dash: BAND_LOOK.dash,
+        hidden: hidden(layerKey.channel(p.id)),
+      })),
+      ...this.shared.map((s) => ({
+        key: layerKey.shared(s.id),
+        label: s.label,
+        mark: 'shared' as const,
+        stroke: SHARED_LOOK[s.id].stroke,
+        dash: SHARED_LOOK[s.id].dash,
+        hidden: hidden(layerKey.shared(s.id)),
+      })),
+      ...(this.background
+        ? [
+            {
+              key: layerKey.background,
+              label: 'sample background',
+              mark: 'background' as const,
+              stroke: BACKGROUND_LOOK.stroke,
+              dash: 'none',
+              hidden: hidden(layerKey.background),
+            },
+          ]
+        : []),
+    ];
+  }
+
+  private onView(e: CustomEvent<{ log: boolean } | { rangeNm: [number, number] | null }>): void {
+    if ('log' in e.detail) this.log = e.detail.log;
+    else this.rangeNm = e.detail.rangeNm;
+  }
+
+  private onVisibility(e: CustomEvent<{ key: string; shown: boolean }>): void {
+    const next = new Set(this.hiddenKeys);
+    if (e.detail.shown) next.delete(e.detail.key);
+    else next.add(e.detail.key);
+    this.hiddenKeys = next;
+  }
+
   override render() {
     const g = this.geometry!;
     const w = this.width.widthPx;
+    const v = this.visible;
     // Band names only where they fit: up to 8 bands on a chart at least 600 px wide.
-    const labelBands = this.passbands.length <= 8 && w >= 600;
+    const labelBands = v.passbands.length <= 8 && w >= 600;
     return html`
+      <qdp-chart-controls
+        .rangeNm=${this.domainNm}
+        ?follow=${this.rangeNm === null}
+        ?log=${this.log}
+        @chart-view=${this.onView}
+      ></qdp-chart-controls>
       <svg
         xmlns="http://www.w3.org/2000/svg"
         viewBox="0 0 ${w} ${HEIGHT_PX}"
@@ -265,8 +372,9 @@ export class SpectrumChart extends LitElement {
           fill="#fafafa"
           @keydown=${this.plotKey}
         ></rect>
-        ${this.passbandLayer(g, labelBands)} ${this.backgroundLayer(g)} ${this.excitationLayer(g)} ${this.curveLayer(g)}
-        ${this.hoverLine(g)} ${this.handleLayer(g)}
+        ${this.passbandLayer(g, v.passbands, labelBands)} ${this.backgroundLayer(g, v.background)}
+        ${this.sharedLayer(g, v.shared)} ${this.excitationLayer(g)} ${this.curveLayer(g, v.curves)} ${this.hoverLine(g)}
+        ${this.handleLayer(g, v.passbands)}
         <g class="x-axis" transform="translate(0,${BOTTOM})"></g>
         <g class="y-axis" transform="translate(${MARGIN.left},0)"></g>
         <g class="t-axis" transform="translate(${w - MARGIN.right},0)"></g>
@@ -297,38 +405,11 @@ export class SpectrumChart extends LitElement {
         </text>
       </svg>
       <p class="readout" role="status" aria-live="polite">
-        ${chartReadout(this.hoverNm, this.curves, this.passbands, this.background)}
+        ${chartReadout(this.hoverNm, v.curves, v.passbands, v.background, v.shared)}
       </p>
-      <ul class="legend" aria-label="Legend">
-        ${this.curves.map(
-          (c) =>
-            html`<li>
-              <svg viewBox="0 0 28 10" aria-hidden="true">
-                <line
-                  x1="0"
-                  x2="28"
-                  y1="5"
-                  y2="5"
-                  stroke=${wavelengthToCss(c.peakNm)}
-                  stroke-width="3"
-                  stroke-dasharray=${isNearInfrared(c.peakNm) ? '6 3' : 'none'}
-                ></line>
-              </svg>
-              ${c.label} (${Math.round(c.peakNm)} nm)${isNearInfrared(c.peakNm) ? NIR_MARK : ''}
-            </li>`,
-        )}
-        ${
-          this.background
-            ? html`<li>
-                <svg viewBox="0 0 28 10" aria-hidden="true">
-                  <rect width="28" height="10" fill="#b08d57" fill-opacity="0.4"></rect>
-                </svg>
-                sample background
-              </li>`
-            : ''
-        }
-      </ul>
+      <qdp-chart-legend .entries=${this.legendEntries()} @layer-visibility=${this.onVisibility}></qdp-chart-legend>
       ${this.curves.some((c) => isNearInfrared(c.peakNm)) ? NIR_NOTE : ''}
+      ${this.shared.some((s) => s.id === 'emission') ? SHARED_NOTE : ''}
     `;
   }
 }

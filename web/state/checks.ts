@@ -57,12 +57,16 @@ export function readInstrument(raw: unknown): { ok: true; spec: InstrumentSpec }
 
 /** A page state from a decoded fragment: a valid panel plus known view options (unknown options are dropped). */
 export function readPageState(raw: unknown): { ok: true; state: PageState } | { ok: false; message: string } {
-  const obj = (raw ?? {}) as { panel?: unknown; view?: { exclude?: unknown; instrument?: unknown } };
+  const obj = (raw ?? {}) as {
+    panel?: unknown;
+    view?: { exclude?: unknown; instrument?: unknown; snapStock?: unknown };
+  };
   const panel = readPanel(obj.panel);
   if (!panel.ok) return panel;
   const words = obj.view?.exclude;
   const exclude = Array.isArray(words) ? words.filter(isPanelExclusion) : [];
   const instrument = obj.view?.instrument;
   const id = typeof instrument === 'string' && SHARE_ID_PATTERN.test(instrument) ? { instrument } : {};
-  return { ok: true, state: { panel: panel.panel, view: { exclude, ...id } } };
+  const snap = obj.view?.snapStock === true ? { snapStock: true } : {};
+  return { ok: true, state: { panel: panel.panel, view: { exclude, ...id, ...snap } } };
 }

@@ -11,13 +11,14 @@ import {
   listMaterials,
   panelSpectra,
   predictUnmixingNoise,
+  seriesTransmission,
   SpectraError,
   type PanelEvaluation,
   type PanelSpec,
   type ProbeEvaluation,
   type SampledSpectrum,
 } from '../../spectra/index';
-import type { ChartCurve, ChartHandle, ChartPassband } from '../chart/types';
+import type { ChartCurve, ChartHandle, ChartPassband, ChartSharedPath } from '../chart/types';
 import type { CrosstalkView, ShotNoiseView } from '../chart/crosstalk-view';
 import type { ResolvedForSheet } from '../io/csv-export';
 import type { FieldError } from './error-map';
@@ -43,7 +44,7 @@ export interface ProbePrediction extends Pick<
 /** What one evaluation gives the page. */
 export interface Computed {
   evaluation: PanelEvaluation;
-  chart: { curves: ChartCurve[]; passbands: ChartPassband[]; background?: SampledSpectrum };
+  chart: { curves: ChartCurve[]; passbands: ChartPassband[]; shared: ChartSharedPath[]; background?: SampledSpectrum };
   crosstalk: CrosstalkView;
   predictions: ProbePrediction[];
   resolved: ResolvedForSheet[];
@@ -124,6 +125,32 @@ function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | nul
   }
 }
 
+/** What the chart calls each part of the shared light path. */
+export const SHARED_PATH_LABELS = {
+  emission: 'shared emission path (in every channel)',
+  excitation: 'excitation clean-up (on every line)',
+} as const;
+
+/** The panel's shared light path, part by part (none without one), as transmission on the grid. */
+function sharedPathsOf(panel: PanelSpec): ChartSharedPath[] {
+  const path = panel.lightPath;
+  const parts = [
+    { id: 'emission' as const, filters: path?.emissionFilters ?? [] },
+    { id: 'excitation' as const, filters: path?.excitationFilters ?? [] },
+  ];
+  return parts
+    .filter((part) => part.filters.length > 0)
+    .map((part) => ({
+      id: part.id,
+      label: SHARED_PATH_LABELS[part.id],
+      transmission: {
+        startNm: grid.startNm,
+        stepNm: grid.stepNm,
+        values: seriesTransmission(part.filters, grid, ['lightPath', `${part.id}Filters`]),
+      },
+    }));
+}
+
 const maxOf = (values: readonly number[]) => {
   let m = 0;
   for (let i = 0; i < values.length; i++) if (values[i] > m) m = values[i];
@@ -141,9 +168,11 @@ export function computePanel(
 ): { ok: true; value: Computed } | { ok: false; error: FieldError } {
   let ev: PanelEvaluation;
   let spectra: ReturnType<typeof panelSpectra>;
+  let shared: ChartSharedPath[];
   try {
     ev = evaluatePanel(panel, { grid });
     spectra = panelSpectra(panel, { grid });
+    shared = sharedPathsOf(panel);
   } catch (e) {
     if (e instanceof SpectraError) return { ok: false, error: { code: e.code, message: e.message, path: e.path } };
     const message = `The panel could not be computed: ${e instanceof Error ? e.message : String(e)}`;
@@ -214,6 +243,12 @@ export function computePanel(
   }));
   return {
     ok: true,
-    value: { evaluation: ev, chart: { curves, passbands, background }, crosstalk, predictions, resolved: ev.probes },
+    value: {
+      evaluation: ev,
+      chart: { curves, passbands, shared, background },
+      crosstalk,
+      predictions,
+      resolved: ev.probes,
+    },
   };
 }

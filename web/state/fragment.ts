@@ -13,6 +13,8 @@ export interface ViewOptions {
   exclude: PanelExclusion[];
   /** The id of the instrument profile the panel is on (the panel itself holds the profile's parts written out). */
   instrument?: string;
+  /** True when bandpass sizes dragged or typed land on the nearest stock size (absent: off). */
+  snapStock?: boolean;
 }
 
 /** Everything the fragment holds. */
