@@ -25,7 +25,7 @@ export { issueToError, pathText } from './issues';
 export { pointsTable } from './spectrum';
 export { BandpassFilter, EdgeFilter, DichroicFilter, TableFilter, Filter } from './filter';
 export { MaterialIdSchema, Probe } from './probe';
-export { ExcitationLine, Channel, Background, Panel } from './panel';
+export { ExcitationLine, Channel, Background, LightPath, Panel, WaterRaman } from './panel';
 export { Grid, DotRequest, SampledSpectrumJson } from './dot';
 export {
   ErrorBody,

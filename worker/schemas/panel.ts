@@ -59,6 +59,11 @@ export const Background = z
     }
   });
 
+/** The water Raman band under every line, at `level` (docs/api.md, "The signal model"). */
+export const WaterRaman = z.strictObject({
+  level: ranged(RANGES.waterRamanLevel[0], RANGES.waterRamanLevel[1]),
+});
+
 /** A panel as the API takes it (docs/api.md, "Panels"): the single source of truth for its shape. */
 export const Panel = z
   .strictObject({
@@ -80,6 +85,7 @@ export const Panel = z
     minBlockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
     scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
     lightPath: LightPath.optional(),
+    waterRaman: WaterRaman.optional(),
   })
   .superRefine(checkReferences);
 
