@@ -33,7 +33,7 @@ export interface PanelEvaluation {
   backgroundCollected?: number[];
   /** With backgroundCollected: Σ collected / (backgroundCollected + the channel's line leak). */
   signalToBackground?: (number | null)[];
-  /** Present with `waterRaman`: the water Raman of line l collected in channel c, [c][l] (part of backgroundCollected). */
+  /** With `waterRaman`: the water Raman of line l collected in channel c, [c][l] (part of backgroundCollected). */
   waterRamanCollected?: number[][];
   /**
    * Scattered excitation light collected per channel and line, [c][l] = powerRel × scatterLevel × T_c(λ_l) (0 for a

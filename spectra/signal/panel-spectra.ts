@@ -44,7 +44,9 @@ export function panelSpectra(input: PanelSpec, options: { grid?: WavelengthGrid 
   const autofluorescence = allLinesOn(panel, model.background, grid.count);
   const waterRaman = allLinesOn(panel, model.waterRaman, grid.count);
   const background =
-    autofluorescence && waterRaman ? autofluorescence.map((v, i) => v + waterRaman[i]) : (autofluorescence ?? waterRaman);
+    autofluorescence && waterRaman
+      ? autofluorescence.map((v, i) => v + waterRaman[i])
+      : (autofluorescence ?? waterRaman);
   return {
     startNm: grid.startNm,
     stepNm: grid.stepNm,

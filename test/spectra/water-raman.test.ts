@@ -66,7 +66,7 @@ const panel = (extra: Partial<PanelSpec>, lines = [488]): PanelSpec => ({
 });
 
 describe('evaluatePanel with waterRaman', () => {
-  it('a 565–605 nm channel under 488 nm collects level × 1e5 × 0.4153 (convention × ν⁴ law, by hand) within 1 %', () => {
+  it('a 565–605 nm channel under 488 nm collects level × 1e5 × 0.4153 (convention × ν⁴ law) within 1 %', () => {
     const ev = evaluatePanel(panel({ waterRaman: { level: 0.2 } }), { sensitivity: false });
     // The band (578–592 nm at half maximum) lies inside the ideal 565–605 nm passband: all of it is collected.
     const expected = 0.2 * 1e5 * 0.41528;
@@ -76,7 +76,7 @@ describe('evaluatePanel with waterRaman', () => {
     expect(ev.waterRamanCollected![1][0]).toBeLessThan(1e-6 * expected);
   });
 
-  it('without a background, water Raman alone gives signalToBackground = Σ collected / Raman collected (scatter 0)', () => {
+  it('without a background, water Raman alone gives signalToBackground = Σ collected / Raman (scatter 0)', () => {
     const ev = evaluatePanel(panel({ waterRaman: { level: 1 } }), { sensitivity: false });
     expect(ev.signalToBackground).toHaveLength(2);
     const total = ev.collected[0].reduce((a, v) => a + v, 0);

@@ -30,7 +30,7 @@ const design = (extra: Record<string, unknown> = {}) => ({
 });
 
 describe('water Raman over HTTP', () => {
-  it('POST /panels/evaluate with waterRaman and no background reports waterRamanCollected as the library does', async () => {
+  it('POST /panels/evaluate with waterRaman alone reports waterRamanCollected as the library does', async () => {
     const body = panel({ waterRaman: { level: 0.5 } });
     const res = await postJson(worker, '/api/v1/panels/evaluate', body);
     expect(res.status).toBe(200);

@@ -12,7 +12,19 @@ const request = (extra: Partial<DesignRequest>): DesignRequest => ({
   targets: [{ name: 'membrane marker', abundance: 'high' }],
   excitation: [{ wavelengthNm: 405 }],
   candidates: {
-    probes: [{ id: 'q430', material: 'custom', measuredEmission: { points: [[410, 0], [430, 1], [450, 0]] } }],
+    probes: [
+      {
+        id: 'q430',
+        material: 'custom',
+        measuredEmission: {
+          points: [
+            [410, 0],
+            [430, 1],
+            [450, 0],
+          ],
+        },
+      },
+    ],
     channels: [{ id: 'c420', filters: [{ type: 'bandpass', centerNm: 420, widthNm: 30 }] }],
   },
   options: { photons: 1000 },
@@ -25,7 +37,7 @@ describe('design noise with the excitation leak', () => {
     expect(result.noise.sd[0]).toBeCloseTo(Math.sqrt(1000) / 1000, 6);
   });
 
-  it('a channel next to the line has higher predicted noise with scatterLevel 1e6 than without (SD² = (N + b)/N²)', () => {
+  it('a channel next to the line has a higher SD with scatterLevel 1e6 than without (SD² = (N + b)/N²)', () => {
     const quiet = runDesign(request({ scatterLevel: 0 }));
     const leaky = runDesign(request({ scatterLevel: 1e6 }));
     // Closed form for one probe in one channel: Var(â) = (N·a + b)/N², with b the background photons, b > 0 here.
