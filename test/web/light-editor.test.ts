@@ -166,7 +166,7 @@ describe('<qdp-light-editor> water Raman and the shared light path', () => {
     input.dispatchEvent(new Event('input', { bubbles: true, composed: true }));
   };
 
-  it('the Water Raman checkbox sets waterRaman {level: 1}, shows 488 → ≈ 585 nm, and takes a typed 0.3', async () => {
+  it('the Water Raman checkbox sets waterRaman {level: 0.1}, shows 488 → ≈ 585 nm, and takes a typed 0.3', async () => {
     // 1e7/488 − 3400 = 17091.8 cm⁻¹ → 585.1 nm by hand (docs/science.md, section 12).
     const panel = { ...demoPanel(), excitation: [{ wavelengthNm: 488 }] };
     const { el, edits } = await mountEditor(panel);
@@ -174,10 +174,10 @@ describe('<qdp-light-editor> water Raman and the shared light path', () => {
       .find((l) => l.textContent!.trim() === 'Water Raman')!
       .querySelector('input')!;
     box.click();
-    expect(edits.at(-1)!.waterRaman).toEqual({ level: 1 });
+    expect(edits.at(-1)!.waterRaman).toEqual({ level: 0.1 });
     el.panel = edits.at(-1)!;
     await el.updateComplete;
-    expect(el.shadowRoot!.textContent).toMatch(/Approximate: .*3400 cm⁻¹.*488 → ≈ 585 nm.*Lakowicz/s);
+    expect(el.shadowRoot!.textContent).toMatch(/Approximate: .*3400 cm⁻¹.*488\s→\s≈\s585\snm.*Lakowicz/s);
     const level = fieldByLabel(el.shadowRoot!, 'Water Raman level')!;
     await level.updateComplete;
     typeInto(level, '0.3');

@@ -137,13 +137,15 @@ export class LightEditor extends LitElement {
     const raman = p.waterRaman;
     const toggle = (e: Event) => {
       const next = { ...p };
-      if ((e.target as HTMLInputElement).checked) next.waterRaman = { level: 1 };
+      if ((e.target as HTMLInputElement).checked) next.waterRaman = { level: 0.1 };
       else delete next.waterRaman;
       this.edit(next);
     };
     const level = (e: CustomEvent<{ value?: number }>) =>
       e.detail.value !== undefined && this.edit({ ...p, waterRaman: { level: e.detail.value } });
-    const peaks = p.excitation.map((l) => `${l.wavelengthNm} → ≈ ${Math.round(ramanPeakNm(l.wavelengthNm))} nm`);
+    const peaks = p.excitation.map(
+      (l) => `${l.wavelengthNm}\u00a0→\u00a0≈\u00a0${Math.round(ramanPeakNm(l.wavelengthNm))}\u00a0nm`,
+    );
     return html`<div class="row">
         <label><input type="checkbox" .checked=${!!raman} @change=${toggle} /> Water Raman</label>
         ${

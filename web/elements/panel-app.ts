@@ -263,7 +263,7 @@ export class PanelApp extends LitElement {
           @panel-edit=${(e: CustomEvent<{ panel: PanelSpec }>) => this.apply(e.detail.panel)}
         >
           <section aria-labelledby="h-light">
-            <h2 id="h-light">Excitation and sample background</h2>
+            <h2 id="h-light">Excitation, sample background and shared light path</h2>
             <qdp-light-editor .panel=${p} .errors=${errors.other}></qdp-light-editor>
           </section>
           <section aria-labelledby="h-probes">
