@@ -40,6 +40,7 @@ export {
   type PanelSpec,
   type ProbeSpec,
   type SpectrumPoints,
+  type WaterRamanSpec,
 } from './core/panel';
 export { LIMITS } from './core/limits';
 export { CSV_LIMITS, parseSpectrumCsv, resampleTable, type SpectrumCsvKind } from './core/tables';
@@ -130,6 +131,15 @@ export { DEFAULT_DETECTOR_ID, DETECTOR_IDS, detectorQe, listDetectors, type Dete
 export { AUTOFLUORESCENCE_BANDS, BACKGROUND_REFERENCE_BRIGHTNESS, defaultAutofluorescence } from './light/background';
 export { listBackgroundPresets, presetAutofluorescence, type BackgroundPresetList } from './light/background-presets';
 export { SOURCE_STATUSES, type Citation, type SourceStatus } from './light/autofluorescence-sources';
+export {
+  WATER_RAMAN_FWHM_CM1,
+  WATER_RAMAN_REFERENCE_NM,
+  WATER_RAMAN_SHIFT_CM1,
+  ramanPeakNm,
+  ramanRelativeStrength,
+  waterRamanBand,
+  waterRamanEmission,
+} from './light/water-raman';
 
 // Signals: crosstalk, unmixing, noise, lot-to-lot sensitivity, whole-panel evaluation.
 export {

@@ -145,6 +145,14 @@ export interface BackgroundSpec {
   points?: SpectrumPoints;
 }
 
+/**
+ * Water Raman under every line (spectra/light/water-raman.ts): `level` 1 means the O–H band carries, under a 405 nm
+ * line, as many photons as one probe with ε × QY = 1e5 M⁻¹ cm⁻¹ at abundance 1 (a convention of this tool).
+ */
+export interface WaterRamanSpec {
+  level: number;
+}
+
 export interface PanelSpec {
   /** Panel format version; 1 when absent (the only version so far). */
   version?: 1;
@@ -159,6 +167,8 @@ export interface PanelSpec {
   scatterLevel?: number;
   /** Filters every channel and every line share (applied in addition to each channel's own). */
   lightPath?: LightPathSpec;
+  /** The water Raman band under every line, part of the background (absent: not modelled). */
+  waterRaman?: WaterRamanSpec;
 }
 
 // FILTER_TYPES must list exactly the kinds of FilterSpec (a compile error otherwise).

@@ -81,6 +81,9 @@ export function* designSteps(
       channel: channels[t].id,
     })),
     channels,
+    // The sample's own light, so that the proposal's evaluation and noise include it.
+    ...(request.scatterLevel !== undefined ? { scatterLevel: request.scatterLevel } : {}),
+    ...(request.waterRaman !== undefined ? { waterRaman: { ...request.waterRaman } } : {}),
   };
   const evaluation = evaluatePanel(panel);
   // The pair that sets the objective, read from the evaluation (abundances are inside its collected matrix).

@@ -7,7 +7,7 @@ import { DEFAULT_GRID, gridEndNm } from '../core/grid';
 import { listMaterials } from '../dot/materials/catalog';
 import type { Material } from '../dot/materials/types';
 import { EXCLUSIONS, type Exclusion } from '../dot/materials/exclusions';
-import type { ChannelSpec, ExcitationLine, MaterialId, ProbeSpec } from '../core/panel';
+import type { ChannelSpec, ExcitationLine, MaterialId, ProbeSpec, WaterRamanSpec } from '../core/panel';
 import { abundanceValue, type AbundanceInput } from './objective';
 import type { DesignOptions } from './options';
 
@@ -26,6 +26,10 @@ export interface DesignRequest {
   windowNm?: [number, number];
   candidates?: { probes: ProbeSpec[]; channels: ChannelSpec[] };
   options?: DesignOptions;
+  /** The sample's scattered excitation light, as a panel's (default DEFAULT_SCATTER_LEVEL); joins the noise figures. */
+  scatterLevel?: number;
+  /** The sample's water Raman, as a panel's; joins the noise figures. */
+  waterRaman?: WaterRamanSpec;
 }
 
 /** Default emission window of free mode, nm: our choice, the visible range up to the near-infrared edge of common

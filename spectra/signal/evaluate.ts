@@ -26,9 +26,15 @@ export interface PanelEvaluation {
   belowResolution: boolean[][];
   conditionNumber: number | null;
   noiseAmplification: (number | null)[];
-  /** Present when the panel has a background: autofluorescence collected per channel, same units as collected. */
+  /**
+   * Present when the panel has a background or water Raman: the sample's autofluorescence plus its water Raman
+   * collected per channel, same units as collected.
+   */
   backgroundCollected?: number[];
+  /** With backgroundCollected: Σ collected / (backgroundCollected + the channel's line leak). */
   signalToBackground?: (number | null)[];
+  /** With `waterRaman`: the water Raman of line l collected in channel c, [c][l] (part of backgroundCollected). */
+  waterRamanCollected?: number[][];
   /**
    * Scattered excitation light collected per channel and line, [c][l] = powerRel × scatterLevel × T_c(λ_l) (0 for a
    * line the channel is not read under).
@@ -40,9 +46,26 @@ export interface PanelEvaluation {
   warnings: string[];
 }
 
+/** Per channel and line, a background's light collected: powerRel × Σ_λ emission_l(λ) · T_c(λ) · Δλ (0: line off). */
+function collectedByLine(model: PanelModel, panel: PanelSpec, emission: number[][]): number[][] {
+  const { grid, transmissions, linesOnByChannel } = model;
+  return transmissions.map((t, c) => {
+    const row = new Array<number>(panel.excitation.length).fill(0);
+    for (const l of linesOnByChannel[c]) {
+      let overlap = 0;
+      for (let i = 0; i < t.length; i++) overlap += emission[l][i] * t[i];
+      row[l] = (panel.excitation[l].powerRel ?? 1) * overlap * grid.stepNm;
+    }
+    return row;
+  });
+}
+
+const sum = (row: number[]) => row.reduce((a, v) => a + v, 0);
+
 /**
- * The background collected per channel (lines on in it, times their power) and each channel's signal-to-background,
- * the background being the sample's autofluorescence plus the excitation light leaking in (`leak`, per channel).
+ * The background collected per channel (the sample's autofluorescence and water Raman, lines on in it, times their
+ * power), the water Raman part per channel and line, and each channel's signal-to-background, the background being
+ * those plus the excitation light leaking in (`leak`, per channel).
  */
 function backgroundFigures(
   model: PanelModel,
@@ -50,25 +73,19 @@ function backgroundFigures(
   collected: number[][],
   leak: number[],
   warnings: string[],
-) {
-  const { grid, transmissions, linesOnByChannel } = model;
-  const background = model.background!;
-  const backgroundCollected = transmissions.map((t, c) => {
-    let sum = 0;
-    for (const l of linesOnByChannel[c]) {
-      let overlap = 0;
-      for (let i = 0; i < t.length; i++) overlap += background[l][i] * t[i];
-      sum += (panel.excitation[l].powerRel ?? 1) * overlap * grid.stepNm;
-    }
-    return sum;
-  });
-  const signalToBackground = backgroundCollected.map((autofluorescence, c) => {
-    const b = autofluorescence + leak[c];
-    if (b > 0) return collected[c].reduce((a, v) => a + v, 0) / b;
+): Pick<PanelEvaluation, 'backgroundCollected' | 'signalToBackground' | 'waterRamanCollected'> {
+  const autofluorescence = model.background ? collectedByLine(model, panel, model.background).map(sum) : null;
+  const waterRamanCollected = model.waterRaman ? collectedByLine(model, panel, model.waterRaman) : undefined;
+  const backgroundCollected = panel.channels.map(
+    (_, c) => (autofluorescence?.[c] ?? 0) + (waterRamanCollected ? sum(waterRamanCollected[c]) : 0),
+  );
+  const signalToBackground = backgroundCollected.map((sample, c) => {
+    const b = sample + leak[c];
+    if (b > 0) return sum(collected[c]) / b;
     warnings.push(`channel ${panel.channels[c].id} collects no background: its signal-to-background is undefined`);
     return null;
   });
-  return { backgroundCollected, signalToBackground };
+  return { backgroundCollected, signalToBackground, ...(waterRamanCollected ? { waterRamanCollected } : {}) };
 }
 
 /**
@@ -118,8 +135,9 @@ export function evaluatePanel(
     lineLeak: lineLeak(panel, model.linesOnByChannel, panel.scatterLevel ?? DEFAULT_SCATTER_LEVEL),
     warnings,
   };
-  const leakByChannel = evaluation.lineLeak.map((row) => row.reduce((a, v) => a + v, 0));
-  if (model.background) Object.assign(evaluation, backgroundFigures(model, panel, collected, leakByChannel, warnings));
+  const leakByChannel = evaluation.lineLeak.map(sum);
+  if (model.background || model.waterRaman)
+    Object.assign(evaluation, backgroundFigures(model, panel, collected, leakByChannel, warnings));
   makeJsonSafe(evaluation, [], warnings);
   return evaluation;
 }

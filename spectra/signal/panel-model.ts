@@ -1,6 +1,7 @@
 /**
  * A panel reduced to what its figures need: every probe resolved on the grid with its weight per channel under the
- * signal model (docs/api.md, "The signal model"), every channel's light path, and the background per line.
+ * signal model (docs/api.md, "The signal model"), every channel's light path, and the background (autofluorescence,
+ * water Raman) per line.
  */
 import { SpectraError } from '../core/errors';
 import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
@@ -9,6 +10,7 @@ import { cutWarning, extinctionAtNm, resolveDot, type DotFields, type ResolvedDo
 import { cutEmissionAtLine } from '../dot/line-cut';
 import { backgroundEmission } from '../light/background';
 import { channelTransmission } from '../light/filters/channel';
+import { waterRamanEmission } from '../light/water-raman';
 import { linesOn, type EmissionComponent } from './crosstalk';
 
 /** One probe of an evaluated panel: the resolved dot's fields plus its extinction at the lines and its brightness. */
@@ -43,8 +45,10 @@ export interface PanelModel {
   transmissions: number[][];
   /** Per channel, the indices of the lines on while it is read. */
   linesOnByChannel: number[][];
-  /** Background emission per line (per unit powerRel), or null without a background. */
+  /** Autofluorescence per line (per unit powerRel), or null without a background. */
   background: number[][] | null;
+  /** Water Raman per line (per unit powerRel), or null without `waterRaman`. */
+  waterRaman: number[][] | null;
   probeEvaluations: ProbeEvaluation[];
   /** Per probe, the index of its assigned channel (undefined: none assigned). */
   assigned: (number | undefined)[];
@@ -173,5 +177,17 @@ export function modelPanel(panel: PanelSpec, grid: WavelengthGrid, resolve: DotR
   const measured = spec?.points !== undefined ? backgroundEmission(spec, lines[0].wavelengthNm, grid) : null;
   const background =
     spec === undefined ? null : lines.map((l) => measured ?? backgroundEmission(spec, l.wavelengthNm, grid));
-  return { grid, dots, components, transmissions, linesOnByChannel, background, probeEvaluations, assigned };
+  const raman = panel.waterRaman;
+  const waterRaman = raman === undefined ? null : lines.map((l) => waterRamanEmission(raman, l.wavelengthNm, grid));
+  return {
+    grid,
+    dots,
+    components,
+    transmissions,
+    linesOnByChannel,
+    background,
+    waterRaman,
+    probeEvaluations,
+    assigned,
+  };
 }

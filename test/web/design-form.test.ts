@@ -59,6 +59,18 @@ describe('<qdp-design-form>', () => {
     expect(el.shadowRoot!.querySelectorAll('.result tr')).toHaveLength(3);
   });
 
+  it('a sample (scatterLevel 1e8, waterRaman 0.2) goes with the request and stays in the proposed panel', async () => {
+    const el = await mount({ nodeBudget: 3000 });
+    el.sample = { scatterLevel: 1e8, waterRaman: { level: 0.2 } };
+    const events: CustomEvent[] = [];
+    document.body.addEventListener('panel-proposed', (e) => events.push(e as CustomEvent));
+    button(el, 'Propose').click();
+    await until(() => events.length === 1);
+    expect(events[0].detail.panel.scatterLevel).toBe(1e8);
+    expect(events[0].detail.panel.waterRaman).toEqual({ level: 0.2 });
+    expect(events[0].detail.evaluation.waterRamanCollected).toHaveLength(2);
+  });
+
   it('Cancel terminates a long search: no panel-proposed event and the status says cancelled', async () => {
     const el = await mount({ nodeBudget: 5_000_000, peakStepNm: 5, bandStepNm: 5 });
     for (let i = 0; i < 6; i++) button(el, 'Add target').click();

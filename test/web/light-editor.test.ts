@@ -156,6 +156,95 @@ describe('<qdp-light-editor>', () => {
   });
 });
 
+describe('<qdp-light-editor> water Raman and the shared light path', () => {
+  const fieldByLabel = (root: ShadowRoot, label: string) =>
+    [...root.querySelectorAll('qdp-number-field')].find((f) => (f as unknown as { label: string }).label === label) as
+      Updating | undefined;
+  const typeInto = (field: Updating, text: string) => {
+    const input = field.shadowRoot!.querySelector('input')!;
+    input.value = text;
+    input.dispatchEvent(new Event('input', { bubbles: true, composed: true }));
+  };
+
+  it('the Water Raman checkbox sets waterRaman {level: 0.1}, shows 488 → ≈ 585 nm, and takes a typed 0.3', async () => {
+    // 1e7/488 − 3400 = 17091.8 cm⁻¹ → 585.1 nm by hand (docs/science.md, section 12).
+    const panel = { ...demoPanel(), excitation: [{ wavelengthNm: 488 }] };
+    const { el, edits } = await mountEditor(panel);
+    const box = [...el.shadowRoot!.querySelectorAll('label')]
+      .find((l) => l.textContent!.trim() === 'Water Raman')!
+      .querySelector('input')!;
+    box.click();
+    expect(edits.at(-1)!.waterRaman).toEqual({ level: 0.1 });
+    el.panel = edits.at(-1)!;
+    await el.updateComplete;
+    expect(el.shadowRoot!.textContent).toMatch(/Approximate: .*3400 cm⁻¹.*488\s→\s≈\s585\snm.*Lakowicz/s);
+    const level = fieldByLabel(el.shadowRoot!, 'Water Raman level')!;
+    await level.updateComplete;
+    typeInto(level, '0.3');
+    expect(edits.at(-1)!.waterRaman).toEqual({ level: 0.3 });
+  });
+
+  it('shows a waterRaman.level message under the level field and keeps the typed text', async () => {
+    const el = document.createElement('qdp-light-editor');
+    el.panel = { ...demoPanel(), waterRaman: { level: -1 } };
+    el.errors = { 'waterRaman.level': 'waterRaman.level must be between 0 and 1000000' };
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const level = fieldByLabel(el.shadowRoot!, 'Water Raman level')!;
+    await level.updateComplete;
+    expect(level.shadowRoot!.querySelector('[role="alert"]')!.textContent).toBe(
+      'waterRaman.level must be between 0 and 1000000',
+    );
+    expect(level.shadowRoot!.querySelector('input')!.value).toBe('-1');
+    expect(el.shadowRoot!.querySelectorAll('p[role="alert"]')).toHaveLength(0);
+  });
+
+  it('adds a shared dichroic above the reddest line, edits its edge, and removing it drops lightPath', async () => {
+    const { lightPath: _lp, ...start } = { ...demoPanel(), excitation: [{ wavelengthNm: 405 }, { wavelengthNm: 488 }] };
+    const { el, edits } = await mountEditor(start);
+    const pathEditor = el.shadowRoot!.querySelector('qdp-light-path-editor') as Updating;
+    await pathEditor.updateComplete;
+    const button = (text: string) =>
+      [...pathEditor.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.trim() === text)!;
+    button('Add a shared emission filter').click();
+    expect(edits.at(-1)!.lightPath).toEqual({
+      emissionFilters: [{ type: 'dichroic', edgeNm: 498, passes: 'above' }],
+    });
+    el.panel = edits.at(-1)!;
+    await el.updateComplete;
+    await pathEditor.updateComplete;
+    const edge = pathEditor.shadowRoot!.querySelector(
+      'qdp-number-field[data-field="lightPath.emissionFilters.0.edgeNm"]',
+    ) as Updating;
+    await edge.updateComplete;
+    typeInto(edge, '505');
+    expect(edits.at(-1)!.lightPath!.emissionFilters).toEqual([{ type: 'dichroic', edgeNm: 505, passes: 'above' }]);
+    button('Remove filter').click();
+    expect(edits.at(-1)).not.toHaveProperty('lightPath');
+  });
+
+  it("shows a shared filter's error under its edge field and a message about the whole path below it", async () => {
+    const el = document.createElement('qdp-light-editor');
+    el.panel = { ...demoPanel(), lightPath: { excitationFilters: [{ type: 'longpass', edgeNm: 150 }] } };
+    el.errors = {
+      'lightPath.excitationFilters.0.edgeNm': 'lightPath.excitationFilters[0].edgeNm must be at least 200 nm',
+      'lightPath.emissionFilters': 'lightPath.emissionFilters has more than 8 filters',
+    };
+    document.body.appendChild(el);
+    await el.updateComplete;
+    const pathEditor = el.shadowRoot!.querySelector('qdp-light-path-editor') as Updating;
+    await pathEditor.updateComplete;
+    const edge = pathEditor.shadowRoot!.querySelector(
+      'qdp-number-field[data-field="lightPath.excitationFilters.0.edgeNm"]',
+    ) as Updating;
+    await edge.updateComplete;
+    expect(edge.shadowRoot!.querySelector('[role="alert"]')!.textContent).toContain('must be at least 200 nm');
+    const listed = [...pathEditor.shadowRoot!.querySelectorAll('p[role="alert"]')].map((p) => p.textContent);
+    expect(listed).toEqual(['lightPath.emissionFilters has more than 8 filters']);
+    expect(el.shadowRoot!.querySelectorAll('p[role="alert"]')).toHaveLength(0);
+  });
+});
+
 describe('<qdp-spectrum-input>', () => {
   async function mountInput() {
     const el = document.createElement('qdp-spectrum-input');

@@ -71,6 +71,8 @@ const MATERIALS = listMaterials().filter((m) => m.emissionRangeNm !== null);
 export class DesignForm extends LitElement {
   /** Probes and channels to choose from (catalog mode); absent: free mode only. */
   @property({ attribute: false }) candidates?: DesignRequest['candidates'];
+  /** The sample's own light (the panel's scatterLevel, waterRaman): sent with every request, kept in the proposal. */
+  @property({ attribute: false }) sample: Pick<DesignRequest, 'scatterLevel' | 'waterRaman'> = {};
   /** Extra search options passed with every request (e.g. a node budget). */
   @property({ attribute: false }) options: DesignOptions = {};
 
@@ -148,6 +150,7 @@ export class DesignForm extends LitElement {
       targets: this.targets.map((t) => ({ name: t.name.trim(), abundance: abundanceInput(t.abundance) })),
       excitation: excitationLines(this.excitationText),
       options: { ...this.options },
+      ...this.sample,
     };
     if (this.candidates && this.useCandidates) return { ...request, candidates: this.candidates };
     return {

@@ -1,7 +1,7 @@
 /**
- * <qdp-light-editor>: the excitation lines (wavelength, relative power) and the sample background
- * (autofluorescence: off, the generic model or a sample type's preset at a level, or a measured spectrum). Fires
- * `panel-edit` {panel}.
+ * <qdp-light-editor>: the excitation lines (wavelength, relative power), the sample background (autofluorescence: off,
+ * the generic model or a sample type's preset at a level, or a measured spectrum; water Raman: off or at a level), the
+ * scattered excitation light, and the shared light path (<qdp-light-path-editor>). Fires `panel-edit` {panel}.
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
@@ -9,13 +9,17 @@ import { fieldRows, focusRing } from './shared-styles';
 import {
   DEFAULT_MIN_BLOCKING_OD,
   DEFAULT_SCATTER_LEVEL,
+  WATER_RAMAN_FWHM_CM1,
+  WATER_RAMAN_SHIFT_CM1,
   listBackgroundPresets,
+  ramanPeakNm,
   type BackgroundPresetId,
   type BackgroundSpec,
   type PanelSpec,
   type SpectrumPoints,
 } from '../../spectra/index';
 import { messagesBesides } from '../state/error-map';
+import './light-path-editor';
 import './number-field';
 import './spectrum-input';
 
@@ -30,6 +34,8 @@ export class LightEditor extends LitElement {
    * background without a field here show together under the editor.
    */
   @property({ attribute: false }) errors: Record<string, string> = {};
+  /** The name of the instrument profile the panel is on (its shared light path is then read only). */
+  @property() fromInstrument = '';
 
   static override styles = [
     focusRing,
@@ -65,9 +71,9 @@ export class LightEditor extends LitElement {
   private lightMessages(panel: PanelSpec): string[] {
     const shown = panel.excitation.flatMap((_, i) => [`excitation.${i}.wavelengthNm`, `excitation.${i}.powerRel`]);
     const mine = Object.fromEntries(
-      Object.entries(this.errors).filter(([key]) => /^(excitation|background)\b/.test(key)),
+      Object.entries(this.errors).filter(([key]) => /^(excitation|background|waterRaman)\b/.test(key)),
     );
-    return messagesBesides(mine, [...shown, 'background.level', 'background.preset']);
+    return messagesBesides(mine, [...shown, 'background.level', 'background.preset', 'waterRaman.level']);
   }
 
   private removeLine(p: PanelSpec, i: number) {
@@ -123,6 +129,48 @@ export class LightEditor extends LitElement {
         @value-change=${set('minBlockingOD')}
       ></qdp-number-field>
     </div>`;
+  }
+
+  /**
+   * Water Raman under every line: a checkbox, its level when on, and where the band lies under each line (approximate,
+   * with its sources).
+   */
+  private waterRamanFields(p: PanelSpec) {
+    const raman = p.waterRaman;
+    const toggle = (e: Event) => {
+      const next = { ...p };
+      if ((e.target as HTMLInputElement).checked) next.waterRaman = { level: 0.1 };
+      else delete next.waterRaman;
+      this.edit(next);
+    };
+    const level = (e: CustomEvent<{ value?: number }>) =>
+      e.detail.value !== undefined && this.edit({ ...p, waterRaman: { level: e.detail.value } });
+    const peaks = p.excitation.map(
+      (l) => `${l.wavelengthNm}\u00a0→\u00a0≈\u00a0${Math.round(ramanPeakNm(l.wavelengthNm))}\u00a0nm`,
+    );
+    return html`<div class="row">
+        <label><input type="checkbox" .checked=${!!raman} @change=${toggle} /> Water Raman</label>
+        ${
+          raman
+            ? html`<qdp-number-field
+                label="Water Raman level"
+                .value=${raman.level}
+                .error=${this.errors['waterRaman.level'] ?? ''}
+                @value-change=${level}
+              ></qdp-number-field>`
+            : ''
+        }
+      </div>
+      ${
+        raman
+          ? html`<p class="about">
+              Approximate: the O–H band of water, about ${WATER_RAMAN_SHIFT_CM1} cm⁻¹ below each line
+              (${peaks.join(', ')}), about ${WATER_RAMAN_FWHM_CM1} cm⁻¹ wide, stronger towards the blue by the ν⁴ law
+              (Lakowicz, Principles of Fluorescence Spectroscopy, 2006; Walrafen, J. Chem. Phys. 1967). Level 1: as many
+              photons under 405 nm as the background's reference probe at abundance 1.
+            </p>`
+          : ''
+      }`;
   }
 
   /** The sample type whose usual autofluorescence the background models (the generic model when none is chosen). */
@@ -220,8 +268,13 @@ export class LightEditor extends LitElement {
         >
         ${bg ? this.backgroundFields(p, bg) : ''}
       </div>
-      ${bg ? this.presetAbout(bg) : ''} ${bg ? this.backgroundInput(p, bg) : ''}
-      ${this.lightMessages(p).map((message) => html`<p role="alert">${message}</p>`)}`;
+      ${bg ? this.presetAbout(bg) : ''} ${bg ? this.backgroundInput(p, bg) : ''} ${this.waterRamanFields(p)}
+      ${this.lightMessages(p).map((message) => html`<p role="alert">${message}</p>`)}
+      <qdp-light-path-editor
+        .panel=${p}
+        .errors=${this.errors}
+        .fromInstrument=${this.fromInstrument}
+      ></qdp-light-path-editor>`;
   }
 }
 

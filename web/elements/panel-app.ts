@@ -53,6 +53,14 @@ import type { SpectrumChart } from './spectrum-chart';
 /** Edits closer together than this share one back-button step (ms): typing a number is one step, not five. */
 const HISTORY_STEP_MS = 1000;
 
+/** The panel's sample light that a design request carries: its scatterLevel and waterRaman, when set. */
+function sampleOf(p: PanelSpec): Pick<PanelSpec, 'scatterLevel' | 'waterRaman'> {
+  return {
+    ...(p.scatterLevel !== undefined ? { scatterLevel: p.scatterLevel } : {}),
+    ...(p.waterRaman ? { waterRaman: { ...p.waterRaman } } : {}),
+  };
+}
+
 @customElement('qdp-panel-app')
 export class PanelApp extends LitElement {
   @state() private panel: PanelSpec = newPanel();
@@ -428,8 +436,12 @@ export class PanelApp extends LitElement {
             </details>
           </section>
           <section aria-labelledby="h-light">
-            <h2 id="h-light">Excitation and sample background</h2>
-            <qdp-light-editor .panel=${p} .errors=${errors.other}></qdp-light-editor>
+            <h2 id="h-light">Excitation, sample background and shared light path</h2>
+            <qdp-light-editor
+              .panel=${p}
+              .errors=${errors.other}
+              .fromInstrument=${this.instrument?.spec.name ?? ''}
+            ></qdp-light-editor>
           </section>
           <section aria-labelledby="h-probes">
             <h2 id="h-probes">Probes</h2>
@@ -461,7 +473,7 @@ export class PanelApp extends LitElement {
               panel's probes and channels) that keep the worst bleed-through low, and loads the proposal here for
               editing.
             </p>
-            <qdp-design-form .candidates=${this.candidates()}></qdp-design-form>
+            <qdp-design-form .candidates=${this.candidates()} .sample=${sampleOf(p)}></qdp-design-form>
           </section>
         </div>
         <div class="results">

@@ -90,7 +90,7 @@ export const NOMINAL_PHOTONS = DESIGN_DEFAULTS.photons;
  * Shot-noise picture at the nominal budget: collected (and background) scaled so the brightest target's own signal
  * is NOMINAL_PHOTONS, unmixed by least squares (predictUnmixingNoise, ideal counting detector, no read noise).
  * "Alone" is the same target with no other probe, read in its own channel: √(own + background)/own. The background
- * is the sample's autofluorescence plus the excitation light leaking into the channel.
+ * is the sample's autofluorescence and water Raman plus the excitation light leaking into the channel.
  * Null when some probe has no primary channel or no signal; a null entry when its estimate is undefined.
  */
 function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | null {
@@ -102,8 +102,8 @@ function shotNoiseOf(ev: PanelEvaluation, panel: PanelSpec): ShotNoiseView | nul
   const own = prim.map((c, p) => ev.collected[c][p]);
   const k = NOMINAL_PHOTONS / Math.max(...own); // photons per collected unit; not finite when nothing is collected
   if (!(k > 0 && Number.isFinite(k))) return null;
-  // The background of each channel: the sample's autofluorescence (with a background) plus the excitation light
-  // leaking through its filters.
+  // The background of each channel: the sample's autofluorescence and water Raman (backgroundCollected, with either)
+  // plus the excitation light leaking through its filters.
   const background = ev.lineLeak.map((row, c) => (ev.backgroundCollected?.[c] ?? 0) + row.reduce((a, v) => a + v, 0));
   try {
     const noise = predictUnmixingNoise({

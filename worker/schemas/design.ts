@@ -12,7 +12,7 @@ import {
 } from '../../spectra/index';
 import { ranged, text, wavelengthNm } from './fields';
 import { LIMITS, RANGES } from './limits';
-import { Channel, ExcitationLine } from './panel';
+import { Channel, ExcitationLine, WaterRaman } from './panel';
 import { MaterialIdSchema, Probe } from './probe';
 
 const ABUNDANCE_NAMES = Object.keys(ABUNDANCE_WORDS) as [
@@ -91,6 +91,8 @@ export const DesignRequest = z
       })
       .optional(),
     options: DesignOptions.optional(),
+    scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
+    waterRaman: WaterRaman.optional(),
   })
   .superRefine((request, ctx) => {
     const issue = (message: string, path: (string | number)[]) =>

@@ -58,7 +58,7 @@ export const LotShiftJson = z.strictObject({
 /**
  * POST /api/v1/panels/evaluate (docs/api.md, "The signal model"): collected[c][p]; spillover and purity null
  * where the reference signal is zero; primaryChannel null for a probe that gives no signal anywhere; the background
- * fields only when the panel has a background.
+ * fields only when the panel has a background or water Raman.
  */
 export const Evaluation = z.strictObject({
   grid: GridJson,
@@ -72,6 +72,7 @@ export const Evaluation = z.strictObject({
   noiseAmplification: z.array(nullableNumber),
   backgroundCollected: z.array(z.number()).optional(),
   signalToBackground: z.array(nullableNumber).optional(),
+  waterRamanCollected: matrix.optional(),
   lineLeak: matrix,
   worst: WorstJson,
   lotShiftSensitivity: LotShiftJson.nullable(),

@@ -38,6 +38,8 @@ export const RANGES = Object.freeze({
   laserPowerMw: [0, 1e4],
   abundance: [0, 1e6],
   backgroundLevel: [0, 1e6],
+  /** Water Raman `level` (1: the background's reference brightness under a 405 nm line). */
+  waterRamanLevel: [0, 1e6],
   /** Scattered excitation light reaching the detector unfiltered, in the units of `collected`. */
   scatterLevel: [0, 1e15],
   /** Largest value of a measured emission or background table. */

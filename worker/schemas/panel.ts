@@ -59,6 +59,11 @@ export const Background = z
     }
   });
 
+/** The water Raman band under every line, at `level` (docs/api.md, "The signal model"). */
+export const WaterRaman = z.strictObject({
+  level: ranged(RANGES.waterRamanLevel[0], RANGES.waterRamanLevel[1]),
+});
+
 /** The fields of a panel; `Panel` takes them written out, `PanelRequest` also takes an instrument reference. */
 const panelFields = {
   version: z.literal(1, { error: 'must be 1' }).optional(),
@@ -79,6 +84,7 @@ const panelFields = {
   minBlockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
   scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
   lightPath: LightPath.optional(),
+  waterRaman: WaterRaman.optional(),
 };
 
 /** A panel with every part written out (docs/api.md, "Panels"): what the models evaluate. */
