@@ -7,7 +7,10 @@ One evaluation:
   - 8 bandpass transmissions, 24 nm wide, centred on the peaks, each the product of two logistic edges of scale 1.5 nm;
   - the collected matrix C[c, p] = sum over the grid of T_c * em_p;
   - the spillover matrix against each probe's strongest channel;
-  - the 2-norm condition number of C with unit-norm columns.
+  - the 2-norm condition number of C with unit-norm columns;
+  - the sample's light per channel: the 405 nm line leaking through each filter (scatter level x T_c(405 nm)) and the
+    water Raman band under the line (a Gaussian in wavenumber, 3400 cm^-1 below the line, FWHM 400 cm^-1, scaled by
+    (nu_s / nu_ref)^4 and to unit area) collected by each filter, and each probe's signal-to-background.
 
 Prints one line: "numpy evaluate 8x8 median <us> us (min <us>, max <us>)", the median over 15 batches of 200 calls of
 the mean time per call, after 200 calls to warm up.
@@ -30,6 +33,11 @@ PEAKS_NM = np.array([490.0, 525.0, 565.0, 605.0, 640.0, 680.0, 715.0, 665.0])
 LINE_FWHM_EV = 0.09
 BAND_WIDTH_NM = 24.0
 EDGE_SCALE_NM = 1.5
+LINE_NM = 405.0
+SCATTER_LEVEL = 1e10
+RAMAN_SHIFT_CM1 = 3400.0  # O-H stretch of liquid water (approximate; see docs/science.md)
+RAMAN_FWHM_CM1 = 400.0
+RAMAN_LEVEL = 0.1
 
 
 def emission_lines():
@@ -48,12 +56,26 @@ def bandpasses():
     return up * down
 
 
+def water_raman():
+    nu_line = 1e7 / LINE_NM
+    nu = 1e7 / GRID_NM
+    sigma = RAMAN_FWHM_CM1 / FWHM_PER_SIGMA
+    band = np.exp(-0.5 * ((nu - (nu_line - RAMAN_SHIFT_CM1)) / sigma) ** 2) * (1e7 / GRID_NM**2)
+    scale = ((nu_line - RAMAN_SHIFT_CM1) / (1e7 / LINE_NM - RAMAN_SHIFT_CM1)) ** 4
+    return RAMAN_LEVEL * scale * band / band.sum()
+
+
 def evaluate():
-    collected = bandpasses() @ emission_lines().T
+    filters = bandpasses()
+    collected = filters @ emission_lines().T
     primary = collected.argmax(axis=0)
-    spillover = collected / collected[primary, np.arange(collected.shape[1])]
+    own = collected[primary, np.arange(collected.shape[1])]
+    spillover = collected / own
     kappa = np.linalg.cond(collected / np.linalg.norm(collected, axis=0))
-    return spillover, kappa
+    line_index = int(LINE_NM - GRID_NM[0])
+    background = SCATTER_LEVEL * filters[:, line_index] + filters @ water_raman()
+    signal_to_background = own / background[primary]
+    return spillover, kappa, signal_to_background
 
 
 def batch_mean_seconds(calls=200):

@@ -6,7 +6,7 @@
  * change (test/worker/share-id.test.ts pins them).
  */
 import canonicalize from 'canonicalize';
-import { SHARE_ID_PATTERN } from './schemas/fields';
+import { SHARE_ID_PATTERN } from './schemas/limits';
 
 /** The canonical JSON text of a validated value (finite numbers only: the schema guarantees it). */
 export function canonicalJson(value: unknown): string {

@@ -16,6 +16,18 @@ export function filtersTransmissionAtNm(channel: PanelSpec['channels'][number], 
   return seriesAtNm(channel.filters, wavelengthNm, ['filters']);
 }
 
+/**
+ * The transmission of each channel's filters at each line it is read under, [c][l] (0 for a line it is not read
+ * under): what the blocking check and the leak both read, computed once.
+ */
+export function filtersAtLines(panel: PanelSpec, linesOnByChannel: number[][]): number[][] {
+  return panel.channels.map((channel, c) => {
+    const row = new Array<number>(panel.excitation.length).fill(0);
+    for (const l of linesOnByChannel[c]) row[l] = filtersTransmissionAtNm(channel, panel.excitation[l].wavelengthNm);
+    return row;
+  });
+}
+
 /** One channel's blocking of one line it sees: the optical density −log10 T of its filters at the line. */
 export interface LineBlocking {
   channel: number;
@@ -31,13 +43,14 @@ export function lineBlocking(
   panel: PanelSpec,
   linesOnByChannel: number[][],
   minOD = DEFAULT_MIN_BLOCKING_OD,
+  atLines = filtersAtLines(panel, linesOnByChannel),
 ): { blocking: LineBlocking[]; warnings: string[] } {
   const blocking: LineBlocking[] = [];
   const warnings: string[] = [];
   panel.channels.forEach((channel, c) => {
     for (const l of linesOnByChannel[c]) {
       const lineNm = panel.excitation[l].wavelengthNm;
-      const t = filtersTransmissionAtNm(channel, lineNm);
+      const t = atLines[c][l];
       const od = t > 0 ? -Math.log10(t) : Infinity;
       blocking.push({ channel: c, line: l, od });
       // A hair of tolerance: a filter whose floor is exactly the threshold meets it.
@@ -67,14 +80,19 @@ export const DEFAULT_SCATTER_LEVEL = 1e10;
  * Excitation light leaking into each channel, lineLeak[c][l] = powerRel × scatterLevel × T_c(λ_l) for every line l the
  * channel is read under (0 for the others), with T_c the channel's filters times its detector's QE at the line.
  */
-export function lineLeak(panel: PanelSpec, linesOnByChannel: number[][], scatterLevel: number): number[][] {
+export function lineLeak(
+  panel: PanelSpec,
+  linesOnByChannel: number[][],
+  scatterLevel: number,
+  atLines = filtersAtLines(panel, linesOnByChannel),
+): number[][] {
   return panel.channels.map((channel, c) => {
     const row = new Array<number>(panel.excitation.length).fill(0);
     for (const l of linesOnByChannel[c]) {
       const line = panel.excitation[l];
       const grid = { startNm: line.wavelengthNm, stepNm: 1, count: 1 };
       const qe = channel.detector === undefined ? 1 : detectorQe(channel.detector, grid)[0];
-      row[l] = (line.powerRel ?? 1) * scatterLevel * filtersTransmissionAtNm(channel, line.wavelengthNm) * qe;
+      row[l] = (line.powerRel ?? 1) * scatterLevel * atLines[c][l] * qe;
     }
     return row;
   });

@@ -28,6 +28,8 @@ export const WATER_RAMAN_REFERENCE_NM = 405;
 const FWHM_TO_SIGMA = 1 / (2 * Math.sqrt(2 * Math.LN2));
 /** nm → cm⁻¹: 1 cm = 1e7 nm. */
 const NM_PER_CM = 1e7;
+/** How far from its centre the band is computed, in standard deviations (a numerical cut of ours). */
+const BAND_REACH_SIGMAS = 8;
 
 /**
  * Wavelength of the Raman band of a line, nm: 1/λ_R = 1/λ_ex − shift (the shift in cm⁻¹, 1 cm = 1e7 nm).
@@ -49,14 +51,20 @@ export function ramanRelativeStrength(excitationNm: number): number {
 
 /**
  * The O–H band under a line as a photon density per nm on the grid with unit area (when the band lies on the grid): a
- * Gaussian in wavenumber centred at ν_ex − shift with FWHM WATER_RAMAN_FWHM_CM1, times |dν/dλ| = 1e7/λ².
+ * Gaussian in wavenumber centred at ν_ex − shift with FWHM WATER_RAMAN_FWHM_CM1, times |dν/dλ| = 1e7/λ², times
+ * `scale`; 0 further than 8 standard deviations from the centre.
  */
-export function waterRamanBand(excitationNm: number, grid: WavelengthGrid): number[] {
+export function waterRamanBand(excitationNm: number, grid: WavelengthGrid, scale = 1): number[] {
   const centreCm1 = NM_PER_CM / excitationNm - WATER_RAMAN_SHIFT_CM1;
   const sigma = WATER_RAMAN_FWHM_CM1 * FWHM_TO_SIGMA;
-  const norm = 1 / (sigma * Math.sqrt(2 * Math.PI));
-  const out = new Array<number>(grid.count);
-  for (let i = 0; i < grid.count; i++) {
+  const norm = scale / (sigma * Math.sqrt(2 * Math.PI));
+  const out = new Array<number>(grid.count).fill(0);
+  // Only within BAND_REACH_SIGMAS of the centre: beyond it the Gaussian is below e^-32 ≈ 1e-14 of its peak.
+  const fromNm = NM_PER_CM / (centreCm1 + BAND_REACH_SIGMAS * sigma);
+  const toNm = centreCm1 > BAND_REACH_SIGMAS * sigma ? NM_PER_CM / (centreCm1 - BAND_REACH_SIGMAS * sigma) : Infinity;
+  const first = Math.max(0, Math.floor((fromNm - grid.startNm) / grid.stepNm));
+  const last = Math.min(grid.count - 1, Math.ceil((toNm - grid.startNm) / grid.stepNm));
+  for (let i = first; i <= last; i++) {
     const nm = grid.startNm + i * grid.stepNm;
     const z = (NM_PER_CM / nm - centreCm1) / sigma;
     out[i] = norm * Math.exp(-0.5 * z * z) * (NM_PER_CM / (nm * nm));
@@ -71,5 +79,5 @@ export function waterRamanBand(excitationNm: number, grid: WavelengthGrid): numb
  */
 export function waterRamanEmission(spec: WaterRamanSpec, excitationNm: number, grid: WavelengthGrid): number[] {
   const scale = spec.level * BACKGROUND_REFERENCE_BRIGHTNESS * ramanRelativeStrength(excitationNm);
-  return waterRamanBand(excitationNm, grid).map((v) => v * scale);
+  return waterRamanBand(excitationNm, grid, scale);
 }

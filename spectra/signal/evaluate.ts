@@ -7,7 +7,13 @@ import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
 import type { PanelSpec } from '../core/panel';
 import { collectedMatrix, crosstalkFigures, type WorstInterference } from './crosstalk';
 import { makeJsonSafe } from './json-safe';
-import { DEFAULT_MIN_BLOCKING_OD, DEFAULT_SCATTER_LEVEL, lineBlocking, lineLeak } from '../light/line-blocking';
+import {
+  DEFAULT_MIN_BLOCKING_OD,
+  DEFAULT_SCATTER_LEVEL,
+  filtersAtLines,
+  lineBlocking,
+  lineLeak,
+} from '../light/line-blocking';
 import { foldLightPath } from '../light/light-path';
 import { buildPanelModel, type PanelModel, type ProbeEvaluation } from './panel-model';
 import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
@@ -49,15 +55,27 @@ export interface PanelEvaluation {
 /** Per channel and line, a background's light collected: powerRel × Σ_λ emission_l(λ) · T_c(λ) · Δλ (0: line off). */
 function collectedByLine(model: PanelModel, panel: PanelSpec, emission: number[][]): number[][] {
   const { grid, transmissions, linesOnByChannel } = model;
+  // Each line's non-zero stretch, found once: a narrow band (water Raman) then costs its width, not the grid's.
+  const stretch = emission.map(nonZeroStretch);
   return transmissions.map((t, c) => {
     const row = new Array<number>(panel.excitation.length).fill(0);
     for (const l of linesOnByChannel[c]) {
       let overlap = 0;
-      for (let i = 0; i < t.length; i++) overlap += emission[l][i] * t[i];
+      const [from, to] = stretch[l];
+      for (let i = from; i <= to; i++) overlap += emission[l][i] * t[i];
       row[l] = (panel.excitation[l].powerRel ?? 1) * overlap * grid.stepNm;
     }
     return row;
   });
+}
+
+/** First and last index of the non-zero values ([0, -1] when all are zero). */
+function nonZeroStretch(values: number[]): [number, number] {
+  let from = 0;
+  while (from < values.length && values[from] === 0) from++;
+  let to = values.length - 1;
+  while (to >= from && values[to] === 0) to--;
+  return from > to ? [0, -1] : [from, to];
 }
 
 const sum = (row: number[]) => row.reduce((a, v) => a + v, 0);
@@ -106,7 +124,8 @@ export function evaluatePanel(
   const collected = collectedMatrix(components, transmissions, grid.stepNm);
   const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
   const diagnostics = diagnoseMixing(collected, probeIds);
-  const leaks = lineBlocking(panel, model.linesOnByChannel, panel.minBlockingOD ?? DEFAULT_MIN_BLOCKING_OD);
+  const atLines = filtersAtLines(panel, model.linesOnByChannel);
+  const leaks = lineBlocking(panel, model.linesOnByChannel, panel.minBlockingOD ?? DEFAULT_MIN_BLOCKING_OD, atLines);
   const warnings = [...figures.warnings, ...diagnostics.warnings, ...leaks.warnings];
   const evaluation: PanelEvaluation = {
     grid: { ...grid },
@@ -132,7 +151,7 @@ export function evaluatePanel(
             probeIds,
             channelIds,
           }),
-    lineLeak: lineLeak(panel, model.linesOnByChannel, panel.scatterLevel ?? DEFAULT_SCATTER_LEVEL),
+    lineLeak: lineLeak(panel, model.linesOnByChannel, panel.scatterLevel ?? DEFAULT_SCATTER_LEVEL, atLines),
     warnings,
   };
   const leakByChannel = evaluation.lineLeak.map(sum);

@@ -143,3 +143,30 @@ describe('channelTransmission', () => {
     for (let i = 0; i < t.length; i += 7) expect(t[i]).toBeCloseTo(a[i] * b[i], 15);
   });
 });
+
+describe('a bandpass read at one wavelength', () => {
+  it('gives the full grid value there: the floor exactly far from the band, to 1e-12 near it', () => {
+    const grid = { startNm: 300, stepNm: 1, count: 701 };
+    const filters = [
+      { type: 'bandpass' as const, centerNm: 605, widthNm: 20 },
+      { type: 'bandpass' as const, centerNm: 605, widthNm: 24, edgeWidthNm: 6.6 },
+      { type: 'bandpass' as const, centerNm: 420, widthNm: 20, blockingOD: 12, peakTransmission: 0.5 },
+      { type: 'bandpass' as const, centerNm: 700, widthNm: 5, edgeWidthNm: 5, blockingOD: 2 },
+      { type: 'bandpass' as const, centerNm: 500, widthNm: 30, edgeWidthNm: 0 },
+    ];
+    for (const filter of filters) {
+      const full = filterTransmission(filter, grid);
+      for (let nm = 300; nm <= 1000; nm++) {
+        const one = filterTransmission(filter, { startNm: nm, stepNm: 1, count: 1 })[0];
+        const expected = full[nm - 300];
+        const floor = Math.min(10 ** -(filter.blockingOD ?? FILTER_DEFAULTS.bandpass.blockingOD), 1);
+        // A point beyond the band's reach is the floor itself; near the band the two walk the edge differently.
+        if (expected === floor) expect(one, `${JSON.stringify(filter)} at ${nm} nm`).toBe(floor);
+        else
+          expect(Math.abs(one - expected), `${JSON.stringify(filter)} at ${nm} nm`).toBeLessThanOrEqual(
+            1e-12 * expected,
+          );
+      }
+    }
+  });
+});

@@ -7,7 +7,7 @@ import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { fieldRows, focusRing } from './shared-styles';
 import type { AttachedInstrument, InstrumentChanges } from '../state/instrument';
-import { SHARE_ID_PATTERN } from '../../worker/schemas/fields';
+import { SHARE_ID_PATTERN } from '../../worker/schemas';
 
 /** An example profile as GET /api/v1/instruments lists it. */
 interface ExampleEntry {

@@ -11,8 +11,7 @@ import type {
   PanelOnInstrumentSpec,
   PanelSpec,
 } from '../../spectra/index';
-import { DesignRequest, Instrument, issueToError, Panel, PanelRequest } from '../../worker/schemas';
-import { SHARE_ID_PATTERN } from '../../worker/schemas/fields';
+import { DesignRequest, Instrument, issueToError, Panel, PanelRequest, SHARE_ID_PATTERN } from '../../worker/schemas';
 import type { FieldError } from './error-map';
 import { isPanelExclusion } from './exclusions';
 import type { PageState } from './fragment';

@@ -35,6 +35,3 @@ export const identifier = () =>
     .string({ error: (issue) => (issue.input === undefined ? 'is required (a string id)' : 'must be a string') })
     .min(1, { error: 'must not be empty' })
     .max(LIMITS.idLength, { error: `must be at most ${LIMITS.idLength} characters` });
-
-/** A share id (of a stored panel or instrument): exactly 24 base64url characters (worker/share-id.ts makes them). */
-export const SHARE_ID_PATTERN = /^[A-Za-z0-9_-]{24}$/;

@@ -22,7 +22,7 @@ import type { Evaluation, LotShiftJson } from './evaluation';
 import type { BackgroundPresetList, Material } from './responses';
 import type { Dye } from './dyes';
 
-export { LIMITS, RANGES } from './limits';
+export { LIMITS, RANGES, SHARE_ID_PATTERN } from './limits';
 export { ApiError, type ApiErrorCode } from './errors';
 export { issueToError, pathText } from './issues';
 export { pointsTable } from './spectrum';

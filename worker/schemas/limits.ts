@@ -47,3 +47,6 @@ export const RANGES = Object.freeze({
   /** Largest molar extinction of a measured table, M⁻¹ cm⁻¹. */
   extinction: [0, 1e9],
 } as const);
+
+/** A share id (of a stored panel or instrument): exactly 24 base64url characters (worker/share-id.ts makes them). */
+export const SHARE_ID_PATTERN = /^[A-Za-z0-9_-]{24}$/;

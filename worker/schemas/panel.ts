@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { LIMITS, RANGES } from './limits';
+import { LIMITS, RANGES, SHARE_ID_PATTERN } from './limits';
 import { BACKGROUND_PRESET_IDS, DETECTOR_IDS } from '../../spectra/index';
-import { identifier, ranged, SHARE_ID_PATTERN, text, wavelengthNm } from './fields';
+import { identifier, ranged, text, wavelengthNm } from './fields';
 import { Filter } from './filter';
 import { Probe } from './probe';
 import { pointsTable } from './spectrum';

@@ -7,7 +7,7 @@ import type { WavelengthGrid } from '../../core/grid';
 import { SpectraError } from '../../core/errors';
 import type { EdgeFilterOptions } from '../../core/panel';
 import { FILTER_DEFAULTS } from './defaults';
-import { edgeOptions, logisticScaleNm, passbandTransmission } from './edge';
+import { edgeOptions, gridBeyondPassband, logisticScaleNm, passbandTransmission } from './edge';
 
 /** A bandpass filter as the panel carries it. */
 export interface BandpassSpec extends EdgeFilterOptions {
@@ -74,6 +74,12 @@ export function bandpassTransmission(
     );
   }
   const scaleNm = logisticScaleNm(options.edgeWidthNm);
+  // The edges sit within ±w/2 of the centre (h ≤ w/2) and the span is at most 4 × (peak − floor) (top > 1/4): a grid
+  // beyond that reach is all floor, with no need to place the edges.
+  const spanMax = 4 * (options.peakTransmission - options.floor);
+  if (gridBeyondPassband(grid, centerNm - widthNm / 2, centerNm + widthNm / 2, scaleNm, options.floor, spanMax)) {
+    return new Array<number>(grid.count).fill(options.floor);
+  }
   const h = edgeHalfDistanceNm(widthNm, scaleNm);
   // The two edges overlap a little at the centre: divide by the shape's own top so the peak is exactly
   // peakTransmission.

@@ -24,6 +24,24 @@ function blockedSideScales(floor: number, span: number): number {
 }
 
 /**
+ * True when every point of the grid lies beyond the blocked-side reach of a passband whose edges lie within
+ * [innerLoNm, innerHiNm] and whose span is at most `spanMax`: passbandTransmission is then exactly the floor on it
+ * (a line far from a band, read without placing the band's edges).
+ */
+export function gridBeyondPassband(
+  grid: WavelengthGrid,
+  innerLoNm: number,
+  innerHiNm: number,
+  scaleNm: number,
+  floor: number,
+  spanMax: number,
+): boolean {
+  const reachNm = blockedSideScales(floor, spanMax) * scaleNm;
+  const lastNm = grid.startNm + (grid.count - 1) * grid.stepNm;
+  return lastNm < innerLoNm - reachNm || grid.startNm > innerHiNm + reachNm;
+}
+
+/**
  * floor + span × L(λ − riseNm) × L(fallNm − λ) on the grid: a passband between a rising edge at riseNm (−Infinity:
  * none) and a falling edge at fallNm (+Infinity: none), both of logistic scale `scaleNm`. Each edge's factor is
  * computed within its reach (see blockedSideScales) and is exactly 0 before it or 1 past it.
