@@ -9,6 +9,8 @@ import { channelTransmission } from '../light/filters/channel';
 import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../core/panel';
 import { CatalogSearch, type CatalogSearchStats } from './catalog';
 import { asCandidate, candidateMatrix, rememberingResolver } from './matrix';
+import { blocksItsLines, clearOfLines, readablePairs } from './practice';
+import { dotInputOf } from '../signal/panel-model';
 import type { ResolvedDesignOptions } from './options';
 import { searchSteps, type SearchProgress } from './search';
 
@@ -22,7 +24,12 @@ export interface CatalogOutcome {
   channels: ChannelSpec[];
   worst: number;
   exact: boolean;
-  stats: CatalogSearchStats & { candidateProbes: number; candidateChannels: number; channelsDropped: string[] };
+  stats: CatalogSearchStats & {
+    candidateProbes: number;
+    candidateChannels: number;
+    channelsDropped: string[];
+    probesDropped: string[];
+  };
 }
 
 /** Runs catalog mode as steps (see search.ts for the drivers). */
@@ -33,34 +40,64 @@ export function* catalogDesignSteps(
   shouldStop?: () => boolean,
 ): Generator<SearchProgress, CatalogOutcome> {
   const n = abundance.length;
-  const { probes, channels: offered } = request.candidates ?? { probes: [], channels: [] };
+  const { probes: offeredProbes, channels: offered } = request.candidates ?? { probes: [], channels: [] };
   const dropped: string[] = [];
   const channels = offered.filter((ch, c) => {
-    if (!o.lineClearance) return true;
-    const t = channelTransmission(ch, DEFAULT_GRID, ['candidates', 'channels', c]);
-    const passes = request.excitation.some(
-      (l) => t[Math.round(l.wavelengthNm - DEFAULT_GRID.startNm)] >= LINE_PASS_TRANSMISSION,
-    );
+    let passes = !blocksItsLines(ch, request.excitation, o.minBlockingOD);
+    if (!passes && o.lineClearance) {
+      const t = channelTransmission(ch, DEFAULT_GRID, ['candidates', 'channels', c]);
+      passes = request.excitation.some(
+        (l) => t[Math.round(l.wavelengthNm - DEFAULT_GRID.startNm)] >= LINE_PASS_TRANSMISSION,
+      );
+    }
     if (passes) dropped.push(ch.id);
     return !passes;
   });
   if (channels.length < n) {
     throw new SpectraError(
       'invalid_input',
-      `only ${channels.length} candidate channels block every excitation line; ${n} targets need ${n}`,
+      `only ${channels.length} candidate channels block every line they are read under by OD ${o.minBlockingOD} ` +
+        `or more (${dropped.join(', ')} do not); ${n} targets need ${n}`,
       ['candidates', 'channels'],
     );
   }
+  const resolve = rememberingResolver();
+  const dotOf = (p: ProbeSpec, i: number) => {
+    try {
+      return resolve(dotInputOf(asCandidate(p)), DEFAULT_GRID);
+    } catch (err) {
+      if (err instanceof SpectraError)
+        throw new SpectraError(err.code, err.message, ['candidates', 'probes', i, ...err.path]);
+      throw err;
+    }
+  };
+  const probesDropped: string[] = [];
+  const probes = offeredProbes.filter((p, i) => {
+    const clear = clearOfLines(dotOf(p, i).emissionPeakNm, request.excitation, o.lineClearanceNm);
+    if (!clear) probesDropped.push(p.id);
+    return clear;
+  });
+  if (probes.length < n) {
+    throw new SpectraError(
+      'invalid_input',
+      `only ${probes.length} candidate probes emit at least ${o.lineClearanceNm} nm from every line ` +
+        `(${probesDropped.join(', ')} do not); ${n} targets need ${n}`,
+      ['candidates', 'probes'],
+    );
+  }
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
-  const collected = candidateMatrix(probes, channels, request.excitation, rememberingResolver(), {
+  const collected = candidateMatrix(probes, channels, request.excitation, resolve, {
     pathPrefix: ['candidates'],
   });
-  const search = new CatalogSearch({ collected, abundance, minSignalFraction: o.minSignalFraction });
+  const dots = probes.map((p) => dotOf(p, offeredProbes.indexOf(p)));
+  const pairAllowed = readablePairs(dots, channels, DEFAULT_GRID, o.minChannelShare);
+  const search = new CatalogSearch({ collected, abundance, minSignalFraction: o.minSignalFraction, pairAllowed });
   const found = yield* searchSteps(search, o.nodeBudget, 2000, shouldStop);
   if (!found.design) {
     throw new SpectraError(
       'invalid_input',
-      'no assignment of the candidates gives every target a signal and meets the signal floor',
+      'no assignment of the candidates gives every target a channel that contains its peak and passes ' +
+        `${Math.round(o.minChannelShare * 100)} % of its light, and meets the signal floor`,
       ['candidates'],
     );
   }
@@ -74,6 +111,7 @@ export function* catalogDesignSteps(
       candidateProbes: probes.length,
       candidateChannels: offered.length,
       channelsDropped: dropped,
+      probesDropped,
     },
   };
 }

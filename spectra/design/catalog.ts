@@ -77,7 +77,8 @@ export class CatalogSearch {
     this.sideConditions = f.minSignalFraction > 0 || f.conflict !== null;
     this.brightness = new Float64Array(f.probes);
     for (let c = 0; c < f.channels; c++)
-      for (let q = 0; q < f.probes; q++) this.brightness[q] = Math.max(this.brightness[q], f.light[c * f.probes + q]);
+      for (let q = 0; q < f.probes; q++)
+        this.brightness[q] = Math.max(this.brightness[q], f.ownLight[c * f.probes + q]);
     const greedy = greedyDesign(f);
     this.greedyWorst = greedy ? greedy.worst : null;
     if (greedy) this.offer(this.toDesign(greedy.values));
@@ -86,7 +87,7 @@ export class CatalogSearch {
     for (let u = 0; u < n; u++) {
       for (let q = 0; q < f.probes; q++) {
         for (let c = 0; c < f.channels; c++)
-          root.m[(u * f.probes + q) * f.channels + c] = f.light[c * f.probes + q] > 0 ? 0 : Infinity;
+          root.m[(u * f.probes + q) * f.channels + c] = f.ownLight[c * f.probes + q] > 0 ? 0 : Infinity;
       }
     }
     this.prepareChildren(0);
@@ -172,7 +173,7 @@ export class CatalogSearch {
       const signal = new Float64Array(f.targets * f.channels);
       for (let u = 0; u < f.targets; u++) {
         for (let c = 0; c < f.channels; c++)
-          signal[u * f.channels + c] = f.abundance[u] * f.light[c * f.probes + frame.probeOf[u]];
+          signal[u * f.channels + c] = f.abundance[u] * f.ownLight[c * f.probes + frame.probeOf[u]];
       }
       const table = { cost: frame.rows, rows: f.targets, cols: f.channels };
       const side = { signal, minSignalFraction: f.minSignalFraction, conflict: f.conflict };

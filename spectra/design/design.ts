@@ -12,7 +12,7 @@ import { bandChannel } from './free-catalog';
 import { designNoise } from './design-noise';
 import { worstInterference } from './objective';
 import { resolveOptions } from './options';
-import { normalizeWindow, targetsOf, type DesignRequest } from './request';
+import { defaultLeftOut, normalizeWindow, targetsOf, type DesignRequest } from './request';
 import { exclusionsOf } from '../dot/materials/exclusions';
 import { getMaterial } from '../dot/materials/catalog';
 import { runSteps, runStepsAsync, type SearchProgress } from './search';
@@ -101,7 +101,7 @@ export function* designSteps(
     intoTarget: pair.into >= 0 ? names[pair.into] : null,
   };
   const noise = designNoise(evaluation, abundance, o);
-  const warnings = [...noise.warnings];
+  const warnings = [...noise.warnings, ...(free ? defaultLeftOut(request) : [])];
   for (const id of new Set(panel.probes.map((p) => p.material))) {
     const m = getMaterial(id);
     const hazards = exclusionsOf(m);

@@ -47,7 +47,7 @@ export function extendFrame(f: FlatProblem, parent: Frame, child: Frame, d: numb
     const au = f.abundance[u];
     for (let c = 0; c < K; c++) {
       let x = parent.g[u * K + c];
-      const own = au * f.light[c * P + pu];
+      const own = au * f.ownLight[c * P + pu];
       if (own > 0) {
         const y = (at * f.light[c * P + q]) / own;
         if (y > x) x = y;
@@ -69,7 +69,7 @@ export function extendFrame(f: FlatProblem, parent: Frame, child: Frame, d: numb
       if (child.probeUsed[p]) continue;
       const base = (u * P + p) * K;
       for (let c = 0; c < K; c++) {
-        const own = au * f.light[c * P + p];
+        const own = au * f.ownLight[c * P + p];
         let x = parent.m[base + c];
         if (!(own > 0)) x = Infinity;
         else {
@@ -106,7 +106,7 @@ export function childKey(f: FlatProblem, frame: Frame, d: number, q: number): nu
     const au = f.abundance[u];
     let least = Infinity;
     for (let c = 0; c < K; c++) {
-      const own = au * f.light[c * P + pu];
+      const own = au * f.ownLight[c * P + pu];
       if (!(own > 0)) continue;
       const y = (at * f.light[c * P + q]) / own;
       const x = frame.g[u * K + c] > y ? frame.g[u * K + c] : y;

@@ -8,6 +8,8 @@ import type { Material } from '../dot/materials/types';
 import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../core/panel';
 import type { ResolvedDesignOptions } from './options';
 import { designProbe, designReachNm } from './request';
+import { isStockBandpass } from '../light/filters/stock';
+import { blocksItsLines, clearOfLines } from './practice';
 
 /** A bandpass filter's centre and width (FWHM), nm. */
 export interface Band {
@@ -57,14 +59,17 @@ export function freeCatalog(
 ): FreeCatalog {
   const probes: ProbeSpec[] = [];
   for (const m of materials) {
-    for (const peak of peaksFor(m, windowNm, o.peakStepNm)) probes.push(designProbe(`${m.id}-${peak}`, m, peak));
+    for (const peak of peaksFor(m, windowNm, o.peakStepNm)) {
+      if (clearOfLines(peak, excitation, o.lineClearanceNm)) probes.push(designProbe(`${m.id}-${peak}`, m, peak));
+    }
   }
   const bands: Band[] = [];
   for (const widthNm of o.bandwidthsNm) {
     const first = Math.ceil((windowNm[0] + widthNm / 2) / o.bandStepNm) * o.bandStepNm;
     for (let centerNm = first; centerNm + widthNm / 2 <= windowNm[1]; centerNm += o.bandStepNm) {
       const band = { centerNm, widthNm };
-      if (!bandPassesLine(band, excitation, o.edgeWidthNm)) bands.push(band);
+      if (bandPassesLine(band, excitation, o.edgeWidthNm) || !isStockBandpass(centerNm, widthNm)) continue;
+      if (blocksItsLines(bandChannel('c', band, o.edgeWidthNm), excitation, o.minBlockingOD)) bands.push(band);
     }
   }
   const channels = bands.map((b) => bandChannel(`bp-${b.centerNm}-${b.widthNm}`, b, o.edgeWidthNm));

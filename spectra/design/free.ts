@@ -15,6 +15,9 @@ import type { ResolvedDesignOptions } from './options';
 import { freeProbes, refineFreeDesign, type FreeDesign } from './refine';
 import { allowedMaterials, type DesignRequest } from './request';
 import { searchSteps, type SearchProgress } from './search';
+import { readablePairs } from './practice';
+import { DEFAULT_GRID } from '../core/grid';
+import { dotInputOf } from '../signal/panel-model';
 
 /** Outcome of free mode: the design, its objective, and how it was found. */
 export interface FreeOutcome {
@@ -67,18 +70,21 @@ export function* freeDesignSteps(
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
   const resolve = rememberingResolver();
   const collected = candidateMatrix(catalog.probes, catalog.channels, request.excitation, resolve);
+  const dots = catalog.probes.map((p) => resolve(dotInputOf(p), DEFAULT_GRID));
   const search = new CatalogSearch({
     collected,
     abundance,
     minSignalFraction: o.minSignalFraction,
     channelConflict: catalog.conflict,
+    pairAllowed: readablePairs(dots, catalog.channels, DEFAULT_GRID, o.minChannelShare),
   });
   const found = yield* searchSteps(search, o.nodeBudget, 500, shouldStop);
   if (!found.design) {
     throw new SpectraError(
       'invalid_input',
-      'no design on the grid meets the signal floor with non-overlapping passbands; lower options.minSignalFraction ' +
-        'or widen the window',
+      'no design on the grid meets the signal floor with non-overlapping stock passbands, each containing its ' +
+        "probe's peak and passing its share of the light and blocking the lines; lower options.minSignalFraction " +
+        'or options.minChannelShare, or widen the window',
       ['options', 'minSignalFraction'],
     );
   }

@@ -4,6 +4,7 @@
 import { FILTER_DEFAULTS } from '../light/filters/defaults';
 import { DEFAULT_MIN_SIGNAL_FRACTION } from './objective';
 import { DEFAULT_NODE_BUDGET } from './search';
+import { PRACTICE_DEFAULTS } from './practice';
 
 /** Options of POST /api/v1/panels/design (every field optional). */
 export interface DesignOptions {
@@ -36,6 +37,12 @@ export interface DesignOptions {
   readNoiseElectrons?: number;
   /** Excess noise factor on the variance (≈ 2 EMCCD at high gain, 1.1–1.5 photomultipliers; from memory). Default 1. */
   excessNoiseFactor?: number;
+  /** Least OD every channel must block each line it is read under by (default 6, common practice; 0: no check). */
+  minBlockingOD?: number;
+  /** Least share of a probe's emitted photons its channel must pass (default 0.3; 0: only the peak check). */
+  minChannelShare?: number;
+  /** Least distance of a probe's emission peak from every line, nm (default 15; 0: no check). */
+  lineClearanceNm?: number;
 }
 
 /** Options with every default filled in. */
@@ -84,5 +91,8 @@ export function resolveOptions(options: DesignOptions = {}, free: boolean): Reso
     backgroundPhotons: options.backgroundPhotons ?? d.backgroundPhotons,
     readNoiseElectrons: options.readNoiseElectrons ?? d.readNoiseElectrons,
     excessNoiseFactor: options.excessNoiseFactor ?? d.excessNoiseFactor,
+    minBlockingOD: options.minBlockingOD ?? PRACTICE_DEFAULTS.minBlockingOD,
+    minChannelShare: options.minChannelShare ?? PRACTICE_DEFAULTS.minChannelShare,
+    lineClearanceNm: options.lineClearanceNm ?? PRACTICE_DEFAULTS.lineClearanceNm,
   };
 }

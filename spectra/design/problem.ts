@@ -15,6 +15,11 @@ export interface CatalogProblem {
   minSignalFraction?: number;
   /** channelConflict(c1, c2) true when two channels cannot both be used (e.g. overlapping passbands). */
   channelConflict?: (c1: number, c2: number) => boolean;
+  /**
+   * pairAllowed(c, p) false when probe p may not be read in channel c (e.g. the channel misses its peak): such a
+   * pair gives no own signal, while p's light still spills into c when another target is read there.
+   */
+  pairAllowed?: (c: number, p: number) => boolean;
 }
 
 /** The flattened problem; built once per search. */
@@ -26,6 +31,8 @@ export interface FlatProblem {
   abundance: Float64Array;
   /** collected[c][p] at index c · probes + p. */
   light: Float64Array;
+  /** The same where probe p may be read in channel c, else 0: what a target's own signal is made of. */
+  ownLight: Float64Array;
   probeOf: Int32Array;
   channelOf: Int32Array;
   /** Own signal a_t · collected[c_v][p_v] at index t · values + v. */
@@ -67,6 +74,9 @@ export function flattenProblem(problem: CatalogProblem): FlatProblem {
       light[c * probes + p] = x;
     }
   }
+  const ownLight = problem.pairAllowed
+    ? light.map((x, i) => (problem.pairAllowed!(Math.floor(i / probes), i % probes) ? x : 0))
+    : light;
   const values = probes * channels;
   const probeOf = new Int32Array(values);
   const channelOf = new Int32Array(values);
@@ -78,7 +88,7 @@ export function flattenProblem(problem: CatalogProblem): FlatProblem {
   abundance.forEach((a, t) => {
     if (!Number.isFinite(a) || a <= 0)
       throw new SpectraError('invalid_input', 'abundance must be a finite number > 0', ['targets', t, 'abundance']);
-    for (let v = 0; v < values; v++) own[t * values + v] = a * light[channelOf[v] * probes + probeOf[v]];
+    for (let v = 0; v < values; v++) own[t * values + v] = a * ownLight[channelOf[v] * probes + probeOf[v]];
   });
   let conflict: Uint8Array | null = null;
   if (problem.channelConflict) {
@@ -100,6 +110,7 @@ export function flattenProblem(problem: CatalogProblem): FlatProblem {
     values,
     abundance: Float64Array.from(abundance),
     light,
+    ownLight,
     probeOf,
     channelOf,
     own,

@@ -1,8 +1,10 @@
 /**
- * Local refinement of a free-mode design on the 1 nm grid: pattern search by coordinates (each target's emission
- * peak, passband centre and passband width, moved by ±4, then ±2, then ±1 nm), keeping a move only when it lowers
- * the worst interference and keeps every rule: peaks within the material's reach and the window, widths within the
- * manufacturable range, bands inside the window, non-overlapping and clear of the excitation lines, the signal floor.
+ * Local refinement of a free-mode design: pattern search by coordinates (each target's emission peak moved by ±4,
+ * then ±2, then ±1 nm; its passband moved to the neighbouring stock centre or stock width), keeping a move only when
+ * it lowers the worst interference and keeps every rule: peaks within the material's reach and the window and clear
+ * of the lines, stock filter sizes within the width range, bands inside the window, non-overlapping, blocking every
+ * line by the required OD, each probe's channel containing its peak and passing its share of its light, the signal
+ * floor.
  */
 import type { Material } from '../dot/materials/types';
 import type { ExcitationLine, MaterialId, ProbeSpec } from '../core/panel';
@@ -12,7 +14,10 @@ import { worstInterference } from './objective';
 import type { ResolvedDesignOptions } from './options';
 import type { SearchProgress } from './search';
 import { designProbe, designReachNm } from './request';
-import type { DotResolver } from '../signal/panel-model';
+import { dotInputOf, type DotResolver } from '../signal/panel-model';
+import { DEFAULT_GRID } from '../core/grid';
+import { isStockBandpass, STOCK_BANDPASS_RULE } from '../light/filters/stock';
+import { blocksItsLines, clearOfLines, readablePairs } from './practice';
 
 /** A free-mode design: per target a material, an emission peak and a band. */
 export interface FreeDesign {
@@ -48,6 +53,10 @@ export function freeDesignAllowed(d: FreeDesign, ctx: RefineContext): boolean {
     if (b.widthNm < wMin || b.widthNm > wMax || b.centerNm - b.widthNm / 2 < lo || b.centerNm + b.widthNm / 2 > hi)
       return false;
     if (bandPassesLine(b, ctx.excitation, ctx.options.edgeWidthNm)) return false;
+    if (!isStockBandpass(b.centerNm, b.widthNm) || !clearOfLines(peak, ctx.excitation, ctx.options.lineClearanceNm))
+      return false;
+    if (!blocksItsLines(bandChannel('c', b, ctx.options.edgeWidthNm), ctx.excitation, ctx.options.minBlockingOD))
+      return false;
     return d.bands.every((other, u) => u === t || !bandsOverlap(b, other));
   });
 }
@@ -56,7 +65,11 @@ export function freeDesignAllowed(d: FreeDesign, ctx: RefineContext): boolean {
 export function freeObjective(d: FreeDesign, ctx: RefineContext): number {
   if (!freeDesignAllowed(d, ctx)) return Infinity;
   const channels = d.bands.map((b, t) => bandChannel(`c${t + 1}`, b, ctx.options.edgeWidthNm));
-  const m = candidateMatrix(freeProbes(d, ctx.materials), channels, ctx.excitation, ctx.resolve);
+  const probes = freeProbes(d, ctx.materials);
+  const m = candidateMatrix(probes, channels, ctx.excitation, ctx.resolve);
+  const dots = probes.map((p) => ctx.resolve(dotInputOf(p), DEFAULT_GRID));
+  const readable = readablePairs(dots, channels, DEFAULT_GRID, ctx.options.minChannelShare);
+  if (!dots.every((_, t) => readable(t, t))) return Infinity;
   const own = ctx.abundance.map((a, t) => a * m[t][t]);
   if (!own.every((s) => s > 0) || Math.min(...own) < ctx.options.minSignalFraction * Math.max(...own)) return Infinity;
   const identity = ctx.abundance.map((_, t) => t);
@@ -81,13 +94,15 @@ export function* refineFreeDesign(
     for (let improved = true; improved && evaluations < MAX_EVALUATIONS;) {
       improved = false;
       for (let t = 0; t < design.peaksNm.length; t++) {
+        // Bands move by stock steps: the next stock centre, the next stock width.
+        const centreStep = STOCK_BANDPASS_RULE.centerStepNm;
         for (const [field, delta] of [
           ['peak', step],
           ['peak', -step],
-          ['center', step],
-          ['center', -step],
-          ['width', step],
-          ['width', -step],
+          ['center', centreStep],
+          ['center', -centreStep],
+          ['width', 1],
+          ['width', -1],
         ] as const) {
           const next = {
             materials: design.materials,
@@ -96,7 +111,12 @@ export function* refineFreeDesign(
           };
           if (field === 'peak') next.peaksNm[t] += delta;
           else if (field === 'center') next.bands[t].centerNm += delta;
-          else next.bands[t].widthNm += delta; // centre and width both stay on the 1 nm grid
+          else {
+            const widths: readonly number[] = STOCK_BANDPASS_RULE.widthsNm;
+            const k = widths.indexOf(next.bands[t].widthNm) + delta;
+            if (k < 0 || k >= widths.length) continue;
+            next.bands[t].widthNm = widths[k];
+          }
           evaluations++;
           const score = freeObjective(next, ctx);
           if (score < worst) {

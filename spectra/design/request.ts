@@ -79,9 +79,33 @@ export function designProbe(id: string, m: Material, emissionPeakNm: number): Pr
 }
 
 /**
+ * Materials a design leaves out unless the request's allowedMaterials names them, with the reason (said in the
+ * design's warnings): probes unsuitable for aqueous stains on fixed cells and tissue, the usual sample.
+ */
+export const LEFT_OUT_BY_DEFAULT: Readonly<Partial<Record<MaterialId, string>>> = Object.freeze({
+  // Lead-halide perovskite nanocrystals degrade in water unless encapsulated (Protesescu et al., Nano Lett. 2015,
+  // 15, 3692, who made them in non-polar solvent; water instability: common practice, from memory).
+  cspbbr3:
+    'CsPbBr3 nanocrystals degrade in water without encapsulation (and contain lead); name it in allowedMaterials ' +
+    'for an encapsulated product',
+  carbon:
+    'carbon dots emit broadly and change colour with the line, which spreads light into every channel; name it in ' +
+    'allowedMaterials to include it',
+});
+
+/** The reasons for the materials a request leaves out by default (none when it names its materials). */
+export function defaultLeftOut(request: Pick<DesignRequest, 'allowedMaterials'>): string[] {
+  if (request.allowedMaterials) return [];
+  const illustrative = listMaterials()
+    .filter((m) => m.illustrative)
+    .map((m) => `${m.name} is left out: its model is illustrative, not fitted to published sizes`);
+  return [...Object.entries(LEFT_OUT_BY_DEFAULT).map(([id, why]) => `${id} is left out: ${why}`), ...illustrative];
+}
+
+/**
  * The materials free mode may use: the allowed list (default: every material with a size law or accepted range, i.e.
- * not `custom`, and not an illustrative one such as GaAs unless the list names it), minus those containing an
- * excluded element, minus those whose emission cannot reach the window.
+ * not `custom`, not an illustrative one such as GaAs and none of LEFT_OUT_BY_DEFAULT, unless the list names it),
+ * minus those containing an excluded element, minus those whose emission cannot reach the window.
  */
 export function allowedMaterials(
   request: Pick<DesignRequest, 'allowedMaterials' | 'exclude'>,
@@ -91,7 +115,9 @@ export function allowedMaterials(
   const wanted = request.allowedMaterials ? new Set<string>(request.allowedMaterials) : null;
   const field = wanted ? 'allowedMaterials' : 'exclude';
   const usable = listMaterials().filter(
-    (m) => m.emissionRangeNm !== null && (wanted ? wanted.has(m.id) : !m.illustrative),
+    (m) =>
+      m.emissionRangeNm !== null &&
+      (wanted ? wanted.has(m.id) : !m.illustrative && LEFT_OUT_BY_DEFAULT[m.id as MaterialId] === undefined),
   );
   const clean = usable.filter((m) => !m.elements.some((e) => excluded.has(e)));
   if (clean.length === 0)

@@ -26,7 +26,11 @@ const searchStats = {
 };
 
 /** Catalog mode's search figures: the channels dropped by the line-clearance floor are listed by id. */
-export const CatalogStatsJson = z.strictObject({ ...searchStats, channelsDropped: z.array(z.string()) });
+export const CatalogStatsJson = z.strictObject({
+  ...searchStats,
+  channelsDropped: z.array(z.string()),
+  probesDropped: z.array(z.string()),
+});
 
 /** Free mode's search figures: the grid catalog searched, its best before refinement, the refinement moves. */
 export const FreeStatsJson = z.strictObject({

@@ -62,6 +62,9 @@ export const DesignOptions = z.strictObject({
   backgroundPhotons: perItem(1e12).optional(),
   readNoiseElectrons: ranged(0, 1e6).optional(),
   excessNoiseFactor: ranged(1, 10).optional(),
+  minBlockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
+  minChannelShare: ranged(0, 1).optional(),
+  lineClearanceNm: ranged(0, 100, 'nm').optional(),
 });
 
 /** The design request. Exclusions name material classes in words (EXCLUSIONS: cadmium, lead, arsenic). */

@@ -11,6 +11,7 @@ function enumerateOptimum(
   a: number[],
   floor = 0,
   conflict: (x: number, y: number) => boolean = () => false,
+  readable: (c: number, p: number) => boolean = () => true,
 ): number {
   const n = a.length;
   const probes: number[] = new Array(n);
@@ -27,6 +28,7 @@ function enumerateOptimum(
       hi = Math.max(hi, s);
     }
     if (lo < floor * hi) return Infinity;
+    for (let u = 0; u < n; u++) if (!readable(channels[u], probes[u])) return Infinity;
     for (let x = 0; x < n; x++) for (let y = x + 1; y < n; y++) if (conflict(channels[x], channels[y])) return Infinity;
     let worst = 0;
     for (let u = 0; u < n; u++)
@@ -93,6 +95,23 @@ describe('catalog branch and bound', () => {
         const { channel } = result.design!;
         for (let x = 0; x < channel.length; x++)
           for (let y = x + 1; y < channel.length; y++) expect(overlap(channel[x], channel[y])).toBe(false);
+      }
+    },
+  );
+
+  it.each(instances.slice(0, 16))(
+    'searchCatalog(seed $seed) reading probes only in allowed channels equals the enumeration under the same rule',
+    ({ seed, targets, probes, channels }) => {
+      const { collected } = syntheticCatalog(seed, probes, channels);
+      const abundance = syntheticAbundances(seed + 1, targets);
+      // A probe may be read only where it is among the two brightest probes of the channel (a stand-in rule).
+      const readable = (c: number, p: number) => collected[c].filter((x) => x > collected[c][p]).length < 2;
+      const result = searchCatalog({ collected, abundance, pairAllowed: readable });
+      const optimum = enumerateOptimum(collected, abundance, 0, () => false, readable);
+      if (optimum === Infinity) expect(result.design).toBeNull();
+      else {
+        expect(result.objective!.worstInterference).toBeCloseTo(optimum, 12);
+        result.design!.channel.forEach((c, t) => expect(readable(c, result.design!.probe[t])).toBe(true));
       }
     },
   );

@@ -27,7 +27,8 @@ const request = (extra: Partial<DesignRequest>): DesignRequest => ({
     ],
     channels: [{ id: 'c420', filters: [{ type: 'bandpass', centerNm: 420, widthNm: 30 }] }],
   },
-  options: { photons: 1000 },
+  // The channel sits on the line on purpose, so the design's OD check (minBlockingOD, default 6) is off here.
+  options: { photons: 1000, minBlockingOD: 0 },
   ...extra,
 });
 

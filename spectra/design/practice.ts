@@ -1,0 +1,78 @@
+/**
+ * The checks a microscopist makes of a proposed panel before anything else, as constraints of the design search:
+ * - every channel blocks every line it is read under by at least OD 6 (common practice for emission filters next to
+ *   a laser line; the same threshold as the evaluation's warning, DEFAULT_MIN_BLOCKING_OD);
+ * - a probe is read only in a channel that contains its emission peak (transmission there at least half the
+ *   channel's best) and collects at least 30 % of its emitted photons (our choice of threshold);
+ * - no probe emits within 15 nm of an excitation line (its emission would be cut by the line's blocking filter and
+ *   its channel would sit next to the line; our choice of threshold).
+ * Each threshold is a design option (0 turns a check off).
+ */
+import type { WavelengthGrid } from '../core/grid';
+import type { ChannelSpec, ExcitationLine } from '../core/panel';
+import type { ResolvedDot } from '../dot/resolve';
+import { seriesTransmission } from '../light/light-path';
+import { DEFAULT_MIN_BLOCKING_OD, filtersAtLines } from '../light/line-blocking';
+
+/** Defaults of the practice checks (see the file header for their basis). */
+export const PRACTICE_DEFAULTS = Object.freeze({
+  minBlockingOD: DEFAULT_MIN_BLOCKING_OD,
+  minChannelShare: 0.3,
+  lineClearanceNm: 15,
+});
+
+/** The lines a channel is read under (all of them when it names none). */
+function linesOf(channel: ChannelSpec, excitation: readonly ExcitationLine[]): number[] {
+  const wanted = channel.excitationNm;
+  if (wanted === undefined) return excitation.map((_, l) => l);
+  const list = Array.isArray(wanted) ? wanted : [wanted];
+  return excitation.flatMap((line, l) => (list.includes(line.wavelengthNm) ? [l] : []));
+}
+
+/** True when the channel's filters block every line it is read under by at least `minOD`. */
+export function blocksItsLines(channel: ChannelSpec, excitation: readonly ExcitationLine[], minOD: number): boolean {
+  if (minOD <= 0) return true;
+  const panel = { excitation: [...excitation], probes: [], channels: [channel] };
+  const on = [linesOf(channel, excitation)];
+  const [row] = filtersAtLines(panel, on);
+  // A hair of tolerance, as in the evaluation's warning: a filter whose floor is exactly the threshold meets it.
+  return on[0].every((l) => !(row[l] > 10 ** -(minOD - 1e-9)));
+}
+
+/** True when an emission peak lies at least `clearanceNm` from every line. */
+export function clearOfLines(peakNm: number, excitation: readonly ExcitationLine[], clearanceNm: number): boolean {
+  return excitation.every((line) => Math.abs(line.wavelengthNm - peakNm) >= clearanceNm);
+}
+
+/**
+ * pairAllowed(c, p) of a candidate matrix: channel c contains dot p's emission peak (its filters pass at least half
+ * their best transmission there) and passes at least `minShare` of its emitted photons (on the grid).
+ */
+export function readablePairs(
+  dots: readonly Pick<ResolvedDot, 'emission' | 'emissionFrom' | 'emissionPeakNm'>[],
+  channels: readonly ChannelSpec[],
+  grid: WavelengthGrid,
+  minShare: number,
+): (c: number, p: number) => boolean {
+  const transmissions = channels.map((ch) => seriesTransmission(ch.filters, grid));
+  const best = transmissions.map((t) => t.reduce((a, v) => (v > a ? v : a), 0));
+  const allowed = channels.map((_, c) =>
+    dots.map((dot) => {
+      const t = transmissions[c];
+      const at = Math.round((dot.emissionPeakNm - grid.startNm) / grid.stepNm);
+      if (!(at >= 0 && at < t.length && t[at] >= best[c] / 2)) return false;
+      if (minShare <= 0) return true;
+      let total = 0;
+      let passed = 0;
+      const values = dot.emission.values;
+      for (let k = 0; k < values.length; k++) {
+        const i = dot.emissionFrom + k;
+        if (i < 0 || i >= t.length) continue;
+        total += values[k];
+        passed += values[k] * t[i];
+      }
+      return total > 0 && passed >= minShare * total;
+    }),
+  );
+  return (c, p) => allowed[c][p];
+}
