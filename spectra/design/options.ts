@@ -29,7 +29,10 @@ export interface DesignOptions {
   edgeWidthNm?: number;
   /** Free mode: refine the grid optimum on a 1 nm grid (default true). */
   refine?: boolean;
-  /** Detected photons in each target's primary channel at abundance 1 (one number: every target). Default 1000. */
+  /**
+   * Detected photons for the noise figures. One number (default 1000): the brightest target's own signal at its
+   * abundance, one photon scale for every probe. One per target: each target's own channel at abundance 1.
+   */
   photons?: number | number[];
   /** Mean background photons per channel (one number: every channel). Default 0. */
   backgroundPhotons?: number | number[];
