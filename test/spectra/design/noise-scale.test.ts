@@ -34,7 +34,7 @@ describe('design noise on one photon scale', () => {
     own.forEach((x, t) => expect(result.noise.photons[t]).toBeCloseTo((x * k) / abundance[t], 6));
   });
 
-  it('each target SD matches a plain Poisson Monte Carlo of the same panel within 5 standard errors (20,000 draws)', () => {
+  it('each target SD matches a plain Poisson Monte Carlo of the panel within 5 standard errors (20,000 draws)', () => {
     const mean = collected.map((row) => row.reduce((a, x) => a + x * k, 0) + 0); // expected photons per channel
     const bg = background.map((b) => b * k);
     // M[c][p] photons per unit abundance; unmixing subtracts the known background first.
