@@ -86,9 +86,9 @@ function catalogRows(): BenchRow[] {
       name: 'catalog runDesign 8 of 16×16 real dots',
       ...stats(pipeline.map(([, ms]) => ms)),
       extra: {
-        nodes: last.stats.nodesVisited,
+        nodes: last.stats!.nodesVisited,
         exact: String(last.exact),
-        worst: last.objective.worstInterference.toExponential(3),
+        worst: last.objective!.worstInterference.toExponential(3),
       },
     },
   ];
@@ -106,11 +106,11 @@ function freeRow(targets: number): BenchRow {
     name: `free mode ${targets} targets, 400–800 nm`,
     ...stats(runs.map(([, ms]) => ms)),
     extra: {
-      worst: r.objective.worstInterference.toExponential(3),
-      gridWorst: 'gridWorst' in r.stats ? r.stats.gridWorst.toExponential(3) : null,
+      worst: r.objective!.worstInterference.toExponential(3),
+      gridWorst: 'gridWorst' in r.stats! ? r.stats.gridWorst.toExponential(3) : null,
       exact: String(r.exact),
-      nodes: r.stats.nodesVisited,
-      candidates: `${r.stats.candidateProbes}×${r.stats.candidateChannels}`,
+      nodes: r.stats!.nodesVisited,
+      candidates: `${r.stats!.candidateProbes}×${r.stats!.candidateChannels}`,
     },
   };
 }

@@ -9,7 +9,7 @@ import { channelTransmission } from '../light/filters/channel';
 import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../core/panel';
 import { CatalogSearch, type CatalogSearchStats } from './catalog';
 import { asCandidate, candidateMatrix, rememberingResolver } from './matrix';
-import { blocksItsLines, clearOfLines, readablePairs } from './practice';
+import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
 import { dotInputOf } from '../signal/panel-model';
 import type { ResolvedDesignOptions } from './options';
 import { searchSteps, type SearchProgress } from './search';
@@ -94,11 +94,11 @@ export function* catalogDesignSteps(
   const search = new CatalogSearch({ collected, abundance, minSignalFraction: o.minSignalFraction, pairAllowed });
   const found = yield* searchSteps(search, o.nodeBudget, 2000, shouldStop);
   if (!found.design) {
-    throw new SpectraError(
-      'invalid_input',
+    throw new NoDesignFound(
       'no assignment of the candidates gives every target a channel that contains its peak and passes ' +
         `${Math.round(o.minChannelShare * 100)} % of its light, and meets the signal floor`,
       ['candidates'],
+      found.exact,
     );
   }
   return {

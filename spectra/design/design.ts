@@ -16,6 +16,8 @@ import { defaultLeftOut, normalizeWindow, targetsOf, type DesignRequest } from '
 import { exclusionsOf } from '../dot/materials/exclusions';
 import { getMaterial } from '../dot/materials/catalog';
 import { runSteps, runStepsAsync, type SearchProgress } from './search';
+import { SpectraError } from '../core/errors';
+import { NoDesignFound, verdictOf, type DesignVerdict } from './practice';
 
 /** The design objective as the API reports it: probe ids and target names of the pair that sets it. */
 export interface DesignObjectiveReport {
@@ -26,15 +28,31 @@ export interface DesignObjectiveReport {
   intoTarget: string | null;
 }
 
-/** What the design route returns. `stats` holds the search figures of the mode that ran. */
+/**
+ * What the design route returns. `stats` holds the search figures of the mode that ran. When the search finds no
+ * design that meets the constraints, the verdict is no_usable_panel and panel, evaluation, objective, stats and
+ * noise are null (`exact` then says whether that is proven).
+ */
 export interface DesignResult {
   mode: 'catalog' | 'free';
-  panel: PanelSpec;
-  evaluation: PanelEvaluation;
-  objective: DesignObjectiveReport;
+  panel: PanelSpec | null;
+  evaluation: PanelEvaluation | null;
+  objective: DesignObjectiveReport | null;
   exact: boolean;
-  stats: CatalogOutcome['stats'] | FreeOutcome['stats'];
-  noise: NoisePrediction & { photons: number[] };
+  stats: CatalogOutcome['stats'] | FreeOutcome['stats'] | null;
+  noise: (NoisePrediction & { photons: number[] }) | null;
+  /**
+   * `usable` when every target's signal-to-noise after unmixing reaches options.minSignalToNoise and the worst
+   * interference stays within options.maxInterference; else `no_usable_panel`.
+   */
+  verdict: DesignVerdict['verdict'];
+  /** Why the proposal is not usable (the binding figure), or '' when it is. */
+  verdictReason: string;
+  /**
+   * With no_usable_panel: the most targets (the most abundant first) for which a usable panel was found under the
+   * same constraints, 0 when none; null when the proposal is usable or the search for it was not run.
+   */
+  largestUsableTargets: number | null;
   warnings: string[];
 }
 
@@ -48,6 +66,7 @@ export interface DesignHooks {
 export function* designSteps(
   request: DesignRequest,
   shouldStop?: () => boolean,
+  lookForFewer = true,
 ): Generator<SearchProgress, DesignResult> {
   const { names, abundance } = targetsOf(request.targets);
   const free = request.candidates === undefined;
@@ -56,18 +75,35 @@ export function* designSteps(
   let channels: ChannelSpec[];
   let worst: number;
   let exact: boolean;
-  let stats: DesignResult['stats'];
-  if (free) {
-    const windowNm = normalizeWindow(request.windowNm);
-    const out = yield* freeDesignSteps(abundance, request, windowNm, o, shouldStop);
-    probes = out.probes;
-    channels = out.design.bands.map((b, t) => bandChannel(`c${t + 1}`, b, o.edgeWidthNm));
-    ({ worst, exact } = out);
-    stats = { ...out.stats };
-  } else {
-    const out = yield* catalogDesignSteps(abundance, request, o, shouldStop);
-    ({ probes, channels, worst, exact } = out);
-    stats = { ...out.stats };
+  let stats: NonNullable<DesignResult['stats']>;
+  try {
+    if (free) {
+      const windowNm = normalizeWindow(request.windowNm);
+      const out = yield* freeDesignSteps(abundance, request, windowNm, o, shouldStop);
+      probes = out.probes;
+      channels = out.design.bands.map((b, t) => bandChannel(`c${t + 1}`, b, o.edgeWidthNm));
+      ({ worst, exact } = out);
+      stats = { ...out.stats };
+    } else {
+      const out = yield* catalogDesignSteps(abundance, request, o, shouldStop);
+      ({ probes, channels, worst, exact } = out);
+      stats = { ...out.stats };
+    }
+  } catch (err) {
+    if (!(err instanceof NoDesignFound)) throw err;
+    return {
+      mode: free ? 'free' : 'catalog',
+      panel: null,
+      evaluation: null,
+      objective: null,
+      exact: err.exhausted,
+      stats: null,
+      noise: null,
+      verdict: 'no_usable_panel',
+      verdictReason: err.message,
+      largestUsableTargets: lookForFewer ? yield* largestUsable(request, shouldStop) : null,
+      warnings: free ? defaultLeftOut(request) : [],
+    };
   }
   const panel: PanelSpec = {
     version: 1,
@@ -117,7 +153,61 @@ export function* designSteps(
     warnings.push(
       'the search stopped at its node budget: the design is the best found, not proven optimal (see stats.bound)',
     );
-  return { mode: free ? 'free' : 'catalog', panel, evaluation, objective, exact, stats, noise, warnings };
+  const judged = verdictOf(
+    names,
+    noise.signalToNoise,
+    { value: worst, from: objective.fromTarget, into: objective.intoTarget },
+    o,
+  );
+  const largestUsableTargets =
+    judged.verdict === 'usable' || !lookForFewer ? null : yield* largestUsable(request, shouldStop);
+  return {
+    mode: free ? 'free' : 'catalog',
+    panel,
+    evaluation,
+    objective,
+    exact,
+    stats,
+    noise,
+    verdict: judged.verdict,
+    verdictReason: judged.reason,
+    largestUsableTargets,
+    warnings,
+  };
+}
+
+/**
+ * The most targets, the most abundant first, for which the same request gives a usable panel: a bisection over the
+ * count (assuming fewer targets are never harder), each trial at a quarter of the node budget without refinement.
+ */
+function* largestUsable(request: DesignRequest, shouldStop?: () => boolean): Generator<SearchProgress, number> {
+  const order = request.targets
+    .map((t, i) => ({ i, a: targetsOf([t]).abundance[0] }))
+    .sort((x, y) => y.a - x.a || x.i - y.i)
+    .map((x) => x.i);
+  const budget = Math.max(1, Math.floor(resolveOptions(request.options, !request.candidates).nodeBudget / 4));
+  const usable = function* (k: number): Generator<SearchProgress, boolean> {
+    const keep = order.slice(0, k).sort((x, y) => x - y);
+    const sub: DesignRequest = {
+      ...request,
+      targets: keep.map((i) => request.targets[i]),
+      options: { ...request.options, nodeBudget: budget, refine: false },
+    };
+    try {
+      return (yield* designSteps(sub, shouldStop, false)).verdict === 'usable';
+    } catch (err) {
+      if (err instanceof SpectraError) return false;
+      throw err;
+    }
+  };
+  let lo = 0; // usable (vacuously)
+  let hi = request.targets.length; // not usable
+  while (hi - lo > 1 && !shouldStop?.()) {
+    const mid = Math.floor((lo + hi) / 2);
+    if (yield* usable(mid)) lo = mid;
+    else hi = mid;
+  }
+  return lo;
 }
 
 /**

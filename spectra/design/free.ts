@@ -15,7 +15,7 @@ import type { ResolvedDesignOptions } from './options';
 import { freeProbes, refineFreeDesign, type FreeDesign } from './refine';
 import { allowedMaterials, type DesignRequest } from './request';
 import { searchSteps, type SearchProgress } from './search';
-import { readablePairs } from './practice';
+import { NoDesignFound, readablePairs } from './practice';
 import { DEFAULT_GRID } from '../core/grid';
 import { dotInputOf } from '../signal/panel-model';
 
@@ -80,12 +80,13 @@ export function* freeDesignSteps(
   });
   const found = yield* searchSteps(search, o.nodeBudget, 500, shouldStop);
   if (!found.design) {
-    throw new SpectraError(
-      'invalid_input',
-      'no design on the grid meets the signal floor with non-overlapping stock passbands, each containing its ' +
-        "probe's peak and passing its share of the light and blocking the lines; lower options.minSignalFraction " +
-        'or options.minChannelShare, or widen the window',
+    throw new NoDesignFound(
+      `${found.exact ? 'no' : 'within its node budget the search found no'} design of ${n} targets on the grid ` +
+        'that meets the signal floor with non-overlapping stock passbands, each containing its probe’s peak, passing ' +
+        'its share of the light and blocking the lines; lower options.minSignalFraction or options.minChannelShare, ' +
+        'widen the window, or ask for fewer targets',
       ['options', 'minSignalFraction'],
+      found.exact,
     );
   }
   const start: FreeDesign = {

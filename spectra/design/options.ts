@@ -46,6 +46,10 @@ export interface DesignOptions {
   minChannelShare?: number;
   /** Least distance of a probe's emission peak from every line, nm (default 15; 0: no check). */
   lineClearanceNm?: number;
+  /** Least signal-to-noise after unmixing of every target for a usable verdict (default 5, the Rose criterion). */
+  minSignalToNoise?: number;
+  /** Largest worst interference for a usable verdict (default 1: no probe's light above a target's own). */
+  maxInterference?: number;
 }
 
 /** Options with every default filled in. */
@@ -97,5 +101,7 @@ export function resolveOptions(options: DesignOptions = {}, free: boolean): Reso
     minBlockingOD: options.minBlockingOD ?? PRACTICE_DEFAULTS.minBlockingOD,
     minChannelShare: options.minChannelShare ?? PRACTICE_DEFAULTS.minChannelShare,
     lineClearanceNm: options.lineClearanceNm ?? PRACTICE_DEFAULTS.lineClearanceNm,
+    minSignalToNoise: options.minSignalToNoise ?? PRACTICE_DEFAULTS.minSignalToNoise,
+    maxInterference: options.maxInterference ?? PRACTICE_DEFAULTS.maxInterference,
   };
 }

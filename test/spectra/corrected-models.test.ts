@@ -87,12 +87,12 @@ describe('GaAs: illustrative only', () => {
 
   it('automatic design without allowedMaterials never proposes GaAs, even in a window GaAs reaches', () => {
     const result = runDesign(request());
-    expect(result.panel.probes.map((p) => p.material)).not.toContain('gaas');
+    expect(result.panel!.probes.map((p) => p.material)).not.toContain('gaas');
   });
 
   it('automatic design proposes GaAs when allowedMaterials names it', () => {
     const result = runDesign(request(['gaas']));
-    expect(result.panel.probes.every((p) => p.material === 'gaas')).toBe(true);
+    expect(result.panel!.probes.every((p) => p.material === 'gaas')).toBe(true);
   });
 });
 

@@ -16,12 +16,12 @@ describe('design noise and the page noise reading', () => {
       ],
       excitation: [{ wavelengthNm: 405 }],
     });
-    const page = computePanel(result.panel, { byBrightness: true });
+    const page = computePanel(result.panel!, { byBrightness: true });
     if (!page.ok) throw new Error(page.error.message);
     const relative = page.value.crosstalk.shotNoise!.relativeSd;
-    result.panel.probes.forEach((p, t) => {
+    result.panel!.probes.forEach((p, t) => {
       expect(relative[t]).not.toBeNull();
-      expect(relative[t]!).toBeCloseTo(result.noise.sd[t]! / p.abundance!, 9);
+      expect(relative[t]!).toBeCloseTo(result.noise!.sd[t]! / p.abundance!, 9);
     });
   });
 });

@@ -230,6 +230,7 @@ export class DesignForm extends LitElement {
     const { panel, evaluation, objective, exact, stats } = message.result;
     this.result = message.result;
     this.finish('done');
+    if (panel === null) return; // no usable panel: the verdict says why, and the user's panel stays
     this.dispatchEvent(
       new CustomEvent('panel-proposed', {
         detail: { panel, evaluation, objective, exact, stats },
@@ -355,21 +356,40 @@ export class DesignForm extends LitElement {
 
   private renderResult(r: DesignResult) {
     const o = r.objective;
+    if (r.panel === null || o === null || r.stats === null || r.noise === null) {
+      const fewer =
+        r.largestUsableTargets === null
+          ? ''
+          : r.largestUsableTargets > 0
+            ? ` A usable panel was found for the ${r.largestUsableTargets} most abundant targets.`
+            : ' No usable panel was found even for one target.';
+      return html`<section class="result">
+        <p class="objective" role="status">No usable panel: ${r.verdictReason}.${fewer}</p>
+      </section>`;
+    }
+    const noise = r.noise;
+    const stats = r.stats;
+    const verdict =
+      r.verdict === 'usable'
+        ? 'Usable: every target is above the signal-to-noise and interference thresholds.'
+        : `Not usable: ${r.verdictReason}.`;
     const pair = o.fromTarget ? ` (${o.fromTarget} into ${o.intoTarget})` : '';
     const proof = r.exact
       ? r.mode === 'free'
         ? 'optimal over the stated grid catalog'
         : 'proven optimal over the candidates'
-      : `best found; lower bound ${r.stats.bound === null ? 'none yet' : percent(r.stats.bound)}`;
+      : `best found; lower bound ${stats.bound === null ? 'none yet' : percent(stats.bound)}`;
     return html`<section class="result">
+      <p class="objective" role="status">${verdict}</p>
       <p class="objective">
-        Worst interference ${percent(o.worstInterference)}${pair}: ${proof}.
-        ${r.stats.nodesVisited.toLocaleString('en')} nodes visited of ${r.stats.fullEnumeration.toExponential(1)}
-        complete assignments.
+        Worst interference ${percent(o.worstInterference)}${pair}: ${proof}. ${stats.nodesVisited.toLocaleString('en')}
+        nodes visited of ${stats.fullEnumeration.toExponential(1)} complete assignments.
       </p>
       <table>
         <caption>
-          Predicted unmixing noise (${r.noise.photons[0]} photons per target at abundance 1)
+          Predicted unmixing noise (the brightest target
+          ${Math.round(Math.max(...noise.photons.map((x, i) => x * (r.panel!.probes[i].abundance ?? 1))))} photons in
+          its channel, every probe on that scale)
         </caption>
         <tr>
           <th>target</th>
@@ -382,8 +402,8 @@ export class DesignForm extends LitElement {
             html`<tr>
               <td>${p.target}</td>
               <td>${p.abundance}</td>
-              <td>${r.noise.sd[i]?.toPrecision(3) ?? '—'}</td>
-              <td>${r.noise.signalToNoise[i]?.toPrecision(3) ?? '—'}</td>
+              <td>${noise.sd[i]?.toPrecision(3) ?? '—'}</td>
+              <td>${noise.signalToNoise[i]?.toPrecision(3) ?? '—'}</td>
             </tr>`,
         )}
       </table>

@@ -60,11 +60,14 @@ export const NoisePredictionJson = z.strictObject({
 /** POST /api/v1/panels/design: the proposal as a panel (valid input to evaluate and share), its figures and search. */
 export const DesignResponse = z.strictObject({
   mode: z.enum(['catalog', 'free']),
-  panel: Panel,
-  evaluation: Evaluation,
-  objective: DesignObjectiveJson,
+  panel: Panel.nullable(),
+  evaluation: Evaluation.nullable(),
+  objective: DesignObjectiveJson.nullable(),
   exact: z.boolean(),
-  stats: z.union([CatalogStatsJson, FreeStatsJson]),
-  noise: NoisePredictionJson,
+  stats: z.union([CatalogStatsJson, FreeStatsJson]).nullable(),
+  noise: NoisePredictionJson.nullable(),
+  verdict: z.enum(['usable', 'no_usable_panel']),
+  verdictReason: z.string(),
+  largestUsableTargets: z.number().int().nullable(),
   warnings: z.array(z.string()),
 });

@@ -65,6 +65,8 @@ export const DesignOptions = z.strictObject({
   minBlockingOD: ranged(RANGES.blockingOD[0], RANGES.blockingOD[1]).optional(),
   minChannelShare: ranged(0, 1).optional(),
   lineClearanceNm: ranged(0, 100, 'nm').optional(),
+  minSignalToNoise: ranged(0, 1e6).optional(),
+  maxInterference: ranged(0, 1e6).optional(),
 });
 
 /** The design request. Exclusions name material classes in words (EXCLUSIONS: cadmium, lead, arsenic). */

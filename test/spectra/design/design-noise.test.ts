@@ -35,7 +35,7 @@ const request = (extra: Partial<DesignRequest>): DesignRequest => ({
 describe('design noise with the excitation leak', () => {
   it('without scatter, one probe in one channel has SD √(a·N)/N = √1000/1000 (Poisson closed form)', () => {
     const result = runDesign(request({ scatterLevel: 0 }));
-    expect(result.noise.sd[0]).toBeCloseTo(Math.sqrt(1000) / 1000, 6);
+    expect(result.noise!.sd[0]).toBeCloseTo(Math.sqrt(1000) / 1000, 6);
   });
 
   it('a channel next to the line has a higher SD with scatterLevel 1e6 than without (SD² = (N + b)/N²)', () => {
@@ -43,16 +43,16 @@ describe('design noise with the excitation leak', () => {
     const leaky = runDesign(request({ scatterLevel: 1e6 }));
     // Closed form for one probe in one channel: Var(â) = (N·a + b)/N², with b the background photons, b > 0 here.
     // b = N × leak / own signal, leak = 1e6 × 0.93/2 at the line (scatterLevel × T(405 nm)).
-    const own = leaky.evaluation.collected[0][0];
+    const own = leaky.evaluation!.collected[0][0];
     const b = (1000 * 1e6 * 0.465) / own;
-    expect(leaky.noise.sd[0]!).toBeGreaterThan(quiet.noise.sd[0]!);
-    expect(leaky.noise.sd[0]!).toBeCloseTo(Math.sqrt(1000 + b) / 1000, 4);
+    expect(leaky.noise!.sd[0]!).toBeGreaterThan(quiet.noise!.sd[0]!);
+    expect(leaky.noise!.sd[0]!).toBeCloseTo(Math.sqrt(1000 + b) / 1000, 4);
   });
 
   it('water Raman adds background photons to the proposal: its SD is higher with waterRaman than without', () => {
     const quiet = runDesign(request({ scatterLevel: 0 }));
     const raman = runDesign(request({ scatterLevel: 0, waterRaman: { level: 1000 } }));
-    expect(raman.panel.waterRaman).toEqual({ level: 1000 });
-    expect(raman.noise.sd[0]!).toBeGreaterThan(quiet.noise.sd[0]!);
+    expect(raman.panel!.waterRaman).toEqual({ level: 1000 });
+    expect(raman.noise!.sd[0]!).toBeGreaterThan(quiet.noise!.sd[0]!);
   });
 });

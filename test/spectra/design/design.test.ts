@@ -80,7 +80,7 @@ describe('runDesign', () => {
     expect(result.warnings.join(' ')).toMatch(
       /contains cadmium.*local regulations, institutional safety rules and licensed practice/,
     );
-    const byTarget = Object.fromEntries(result.panel.probes.map((p) => [p.target, p]));
+    const byTarget = Object.fromEntries(result.panel!.probes.map((p) => [p.target, p]));
     expect(byTarget.rare.quantumYield).toBe(0.8);
     expect(byTarget.common.quantumYield).toBe(0.2);
     expect(result.exact).toBe(true);
@@ -96,10 +96,10 @@ describe('runDesign', () => {
       excitation: line405,
       windowNm: [480, 720],
     });
-    const evaluation = evaluatePanel(result.panel);
-    expect(evaluation.worst.interference).toBeCloseTo(result.objective.worstInterference, 14);
-    expect('gridWorst' in result.stats && result.objective.worstInterference <= result.stats.gridWorst).toBe(true);
-    expect(result.panel.probes.every((p) => p.channel !== undefined && p.abundance !== undefined)).toBe(true);
+    const evaluation = evaluatePanel(result.panel!);
+    expect(evaluation.worst.interference).toBeCloseTo(result.objective!.worstInterference, 14);
+    expect('gridWorst' in result.stats! && result.objective!.worstInterference <= result.stats.gridWorst).toBe(true);
+    expect(result.panel!.probes.every((p) => p.channel !== undefined && p.abundance !== undefined)).toBe(true);
   });
 
   const freeCases: [string, Partial<DesignRequest>][] = [
@@ -122,7 +122,7 @@ describe('runDesign', () => {
     const result = runDesign(request);
     const [lo, hi] = request.windowNm ?? [400, 800];
     const excluded = new Set<string>((request.exclude ?? []).map((w) => EXCLUSIONS[w]));
-    for (const probe of result.panel.probes) {
+    for (const probe of result.panel!.probes) {
       const material = getMaterial(probe.material);
       if (request.allowedMaterials) expect(request.allowedMaterials).toContain(probe.material);
       expect(material.elements.some((e) => excluded.has(e))).toBe(false);
@@ -134,7 +134,7 @@ describe('runDesign', () => {
       expect(probe.emissionPeakNm!).toBeGreaterThanOrEqual(lo);
       expect(probe.emissionPeakNm!).toBeLessThanOrEqual(hi);
     }
-    const bands = result.panel.channels.map((c) => c.filters[0] as { centerNm: number; widthNm: number });
+    const bands = result.panel!.channels.map((c) => c.filters[0] as { centerNm: number; widthNm: number });
     bands.forEach((b, i) => {
       expect(b.centerNm - b.widthNm / 2).toBeGreaterThanOrEqual(lo);
       expect(b.centerNm + b.widthNm / 2).toBeLessThanOrEqual(hi);
@@ -178,7 +178,7 @@ describe('runDesign', () => {
       });
       const free = runDesign(base);
       expect(free.exact).toBe(true);
-      expect(free.objective.worstInterference).toBeLessThanOrEqual(catalog.objective.worstInterference * (1 + 1e-12));
+      expect(free.objective!.worstInterference).toBeLessThanOrEqual(catalog.objective!.worstInterference * (1 + 1e-12));
     },
   );
 
@@ -197,6 +197,6 @@ describe('runDesign', () => {
     const result = await runDesignAsync(request, { onProgress: (p) => seen.push(p.stage), pause });
     expect(seen[0]).toBe('candidates');
     expect(seen).toContain('done');
-    expect(result.objective.worstInterference).toBe(runDesign(request).objective.worstInterference);
+    expect(result.objective!.worstInterference).toBe(runDesign(request).objective!.worstInterference);
   });
 });

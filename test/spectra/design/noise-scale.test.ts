@@ -20,18 +20,18 @@ const request: DesignRequest = {
 describe('design noise on one photon scale', () => {
   const result = runDesign(request);
   const n = request.targets.length;
-  const collected = result.evaluation.collected; // abundances inside, as in the signal model
-  const abundance = result.panel.probes.map((p) => p.abundance!);
+  const collected = result.evaluation!.collected; // abundances inside, as in the signal model
+  const abundance = result.panel!.probes.map((p) => p.abundance!);
   const own = abundance.map((_, t) => collected[t][t]);
   const k = 1000 / Math.max(...own); // photons per collected unit: the brightest target's own signal is 1,000
-  const background = result.evaluation.lineLeak.map(
-    (row, c) => (result.evaluation.backgroundCollected?.[c] ?? 0) + row.reduce((a, v) => a + v, 0),
+  const background = result.evaluation!.lineLeak.map(
+    (row, c) => (result.evaluation!.backgroundCollected?.[c] ?? 0) + row.reduce((a, v) => a + v, 0),
   );
 
   it('the brightest target gets the 1,000 photons and the others their share on the same scale', () => {
     const brightest = own.indexOf(Math.max(...own));
-    expect(result.noise.photons[brightest]).toBeCloseTo(1000 / abundance[brightest], 6);
-    own.forEach((x, t) => expect(result.noise.photons[t]).toBeCloseTo((x * k) / abundance[t], 6));
+    expect(result.noise!.photons[brightest]).toBeCloseTo(1000 / abundance[brightest], 6);
+    own.forEach((x, t) => expect(result.noise!.photons[t]).toBeCloseTo((x * k) / abundance[t], 6));
   });
 
   it('each target SD matches a plain Poisson Monte Carlo of the panel within 5 standard errors (20,000 draws)', () => {
@@ -55,7 +55,7 @@ describe('design noise on one photon scale', () => {
     for (let t = 0; t < n; t++) {
       const m = sum[t] / draws;
       const sd = Math.sqrt(sumSq[t] / draws - m * m);
-      const predicted = result.noise.sd[t]!;
+      const predicted = result.noise!.sd[t]!;
       // The SD of a sample SD is about sd/√(2·draws).
       expect(Math.abs(sd - predicted), request.targets[t].name).toBeLessThan((5 * predicted) / Math.sqrt(2 * draws));
     }

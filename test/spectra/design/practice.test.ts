@@ -56,7 +56,7 @@ describe('free-mode proposals keep the practice checks', () => {
     ['405 and 488 nm', [{ wavelengthNm: 405 }, { wavelengthNm: 488 }]],
   ])('a 6-target proposal under %s passes every check, recomputed from its panel', (_, excitation) => {
     const result = runDesign({ targets: targets(6), excitation });
-    checkPractice(result.panel);
+    checkPractice(result.panel!);
     expect(result.warnings.some((w) => w.startsWith('cspbbr3 is left out'))).toBe(true);
   });
 
@@ -67,6 +67,6 @@ describe('free-mode proposals keep the practice checks', () => {
       allowedMaterials: ['carbon'],
       options: { minSignalFraction: 0 },
     });
-    expect(result.panel.probes.every((p) => p.material === 'carbon')).toBe(true);
+    expect(result.panel!.probes.every((p) => p.material === 'carbon')).toBe(true);
   });
 });
