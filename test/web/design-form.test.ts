@@ -42,7 +42,7 @@ describe('<qdp-design-form>', () => {
     expect(text).not.toMatch(/\bsafe\b/i);
   });
 
-  it('Propose runs the search in a worker, shows progress, then shows the proposal; Load fires panel-proposed', async () => {
+  it('Propose runs the search in a worker, shows progress, then the proposal; Load fires panel-proposed', async () => {
     const el = await mount({ nodeBudget: 3000 });
     const stages: string[] = [];
     const events: CustomEvent[] = [];
