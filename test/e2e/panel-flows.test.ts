@@ -163,7 +163,7 @@ describe('the panel page', () => {
     await page.close();
   });
 
-  it('Back after "Duplicate and edit" on a shared copy shows the shared copy again; Forward the duplicate', async () => {
+  it('Back after "Duplicate and edit" on a shared copy shows the shared copy again, Forward the copy', async () => {
     const { page, problems } = await open(shareUrl);
     await page.getByText('Shared copy (read only)').waitFor();
     await page.getByRole('button', { name: 'Duplicate and edit' }).click();
