@@ -26,8 +26,8 @@ export const percent = (x: number) => `${(100 * x).toPrecision(3)} %`;
 /** A figure with three significant figures, or a dash when the answer has none. */
 const figure = (x: number | null | undefined) => (typeof x === 'number' && Number.isFinite(x) ? x.toPrecision(3) : '—');
 
-/** "CdTe · emission peak 694 nm · shell CdS 0.7 nm" (a dye by its name; a bare core says so). */
-function probeText(probe: ProbeSpec, peakNm: number | undefined): string {
+/** The parts of a probe's description: "CdTe", "emission peak 694 nm", "shell CdS 0.7 nm" (a dye by its name). */
+function probeParts(probe: ProbeSpec, peakNm: number | undefined): string[] {
   const name = probe.dye
     ? (DYE_NAMES.get(probe.dye) ?? probe.dye)
     : (MATERIAL_NAMES.get(probe.material) ?? probe.material);
@@ -38,7 +38,12 @@ function probeText(probe: ProbeSpec, peakNm: number | undefined): string {
     const layers = shell.map((l) => `${SHELL_MATERIALS[l.material]?.name ?? l.material} ${l.thicknessNm} nm`);
     parts.push(`shell ${layers.join(', ')}`);
   }
-  return parts.join(' · ');
+  return parts;
+}
+
+/** A probe's parts, each kept on one line, wrapping only between them. */
+function probeCell(parts: string[]) {
+  return parts.map((part, i) => html`<span class="part">${part}${i < parts.length - 1 ? ' ·' : ''}</span> `);
 }
 
 /** The proposed channel of a probe in the trade's notation, with the lines it is read under when it names them. */
@@ -95,9 +100,35 @@ export class ProposalSummary extends LitElement {
         border-collapse: collapse;
         margin: 0.3rem 0;
       }
-      caption {
-        text-align: left;
+      .caption {
         font-weight: 600;
+        margin: 0.5rem 0 0;
+      }
+      .part,
+      .assignment td:first-child,
+      .assignment td:last-child {
+        white-space: nowrap;
+      }
+      /* A phone stacks each target's row: the target, its probe, then its channel. */
+      @media (max-width: 560px) {
+        .assignment,
+        .assignment tbody,
+        .assignment tr,
+        .assignment td {
+          display: block;
+        }
+        .assignment tr:first-child {
+          display: none;
+        }
+        .assignment tr {
+          margin-bottom: 0.4rem;
+        }
+        .assignment td {
+          padding: 0;
+        }
+        .assignment td:first-child {
+          font-weight: 600;
+        }
       }
       td,
       th {
@@ -141,10 +172,8 @@ export class ProposalSummary extends LitElement {
       <p class="objective">Worst interference ${percent(o.worstInterference)}${pair}: ${proofText(r)}.</p>
       ${r.stats ? html`<p class="search">${searchText(r.stats)}</p>` : ''}
       <div class="scroll">
-        <table class="assignment">
-          <caption>
-            Probe and channel for each target
-          </caption>
+        <p class="caption" id="cap-assignment">Probe and channel for each target</p>
+        <table class="assignment" aria-labelledby="cap-assignment">
           <tr>
             <th>target</th>
             <th>probe</th>
@@ -154,17 +183,17 @@ export class ProposalSummary extends LitElement {
             (p, i) =>
               html`<tr>
                 <td>${p.target ?? p.label ?? p.id}</td>
-                <td>${probeText(p, r.evaluation?.probes[i]?.emissionPeakNm)}</td>
+                <td>${probeCell(probeParts(p, r.evaluation?.probes[i]?.emissionPeakNm))}</td>
                 <td>${channelText(r.panel, p)}</td>
               </tr>`,
           )}
         </table>
       </div>
       <div class="scroll">
-        <table class="noise">
-          <caption>
-            Predicted unmixing noise (${r.noise.photons[0]} photons per target at abundance 1)
-          </caption>
+        <p class="caption" id="cap-noise">
+          Predicted unmixing noise (${r.noise.photons[0]} photons per target at abundance 1)
+        </p>
+        <table class="noise" aria-labelledby="cap-noise">
           <tr>
             <th>target</th>
             <th>abundance</th>
@@ -184,9 +213,10 @@ export class ProposalSummary extends LitElement {
       </div>
       ${
         r.warnings.length
-          ? html`<ul class="warnings" aria-label="Warnings">
-              ${r.warnings.map((w) => html`<li>${w}</li>`)}
-            </ul>`
+          ? html`<p class="caption" id="cap-warnings">Warnings</p>
+              <ul class="warnings" aria-labelledby="cap-warnings">
+                ${r.warnings.map((w) => html`<li>${w}</li>`)}
+              </ul>`
           : ''
       }
       <div class="actions">
