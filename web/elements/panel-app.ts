@@ -487,8 +487,8 @@ export class PanelApp extends LitElement {
             <h2 id="h-propose">Propose a panel</h2>
             <p>
               Name the targets and how abundant each is; the search proposes dots and filters (or picks from this
-              panel's probes and channels) that keep the worst bleed-through low. The proposal is shown beside your
-              panel, which stays as it is until you load the proposal for editing.
+              panel's probes and channels) that keep the worst bleed-through low, and shows the proposal beside your
+              panel, to load for editing or discard.
             </p>
             <qdp-design-form .candidates=${this.candidates()} .sample=${sampleOf(p)}></qdp-design-form>
           </section>
