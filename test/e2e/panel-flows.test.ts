@@ -37,6 +37,7 @@ async function open(url: string): Promise<{ page: Page; problems: string[] }> {
 
 const orangeWidth = (page: Page) =>
   page.locator('qdp-channel-card').nth(3).locator('qdp-number-field[data-field="filters.0.widthNm"] input');
+const titleInput = (page: Page) => page.locator('qdp-panel-app header input[type="text"]').first();
 const spillover = (page: Page) =>
   page.locator('qdp-crosstalk-table table[aria-label="Spillover by channel"]').innerText();
 
@@ -161,6 +162,57 @@ describe('the panel page', () => {
     await other.page.close();
     await page.close();
   });
+
+  it('Back after "Duplicate and edit" on a shared copy shows the shared copy again, Forward the copy', async () => {
+    const { page, problems } = await open(shareUrl);
+    await page.getByText('Shared copy (read only)').waitFor();
+    await page.getByRole('button', { name: 'Duplicate and edit' }).click();
+    await expect.poll(() => page.url()).toMatch(/\/#v1\./);
+    await page.goBack();
+    await page.getByText('Shared copy (read only)').waitFor();
+    expect(new URL(page.url()).pathname).toMatch(/^\/p\//);
+    expect(await titleInput(page).inputValue()).not.toContain('(copy)');
+    await page.goForward();
+    await expect.poll(() => titleInput(page).inputValue()).toContain('(copy)');
+    expect(await page.getByText('Shared copy (read only)').count()).toBe(0);
+    expect(problems).toEqual([]);
+    await page.close();
+  });
+
+  it(
+    'a free design for 4 targets is shown beside the edited panel without changing it, loads only on ' +
+      '"Load this proposal", and Back brings the edited panel back',
+    async () => {
+      const { page, problems } = await open(app.baseUrl + '/');
+      await titleInput(page).fill('My six-colour panel');
+      await titleInput(page).press('Tab');
+      const form = page.locator('qdp-design-form');
+      await form.getByText("choose only from the current panel's probes and channels").click();
+      await form.getByRole('button', { name: 'Add target' }).click();
+      await form.getByRole('button', { name: 'Add target' }).click();
+      await form.getByRole('button', { name: 'Propose', exact: true }).click();
+      const summary = page.locator('qdp-proposal-summary');
+      await summary.waitFor({ timeout: 60_000 });
+      expect(await summary.locator('table.assignment tr').count()).toBe(5);
+      expect(await summary.locator('table.assignment').innerText()).toMatch(/bandpass \d+\/\d+/);
+      // The panel being edited is untouched, and stays editable while the proposal is shown.
+      expect(await titleInput(page).inputValue()).toBe('My six-colour panel');
+      expect(await page.locator('qdp-spectrum-chart path.curve').count()).toBe(6);
+      await shot(page, '07-proposal-shown-1280', summary);
+      await titleInput(page).fill('My six-colour panel, renamed');
+      // Clicking Load commits the title (change on blur) a moment before the proposal replaces the panel.
+      await summary.getByRole('button', { name: 'Load this proposal' }).click();
+      await expect.poll(() => titleInput(page).inputValue()).toBe('Proposed panel (free design)');
+      await expect.poll(() => page.locator('qdp-spectrum-chart path.curve').count()).toBe(4);
+      expect(await summary.count()).toBe(0);
+      await shot(page, '07b-proposal-loaded-1280');
+      await page.goBack();
+      await expect.poll(() => titleInput(page).inputValue()).toBe('My six-colour panel, renamed');
+      await expect.poll(() => page.locator('qdp-spectrum-chart path.curve').count()).toBe(6);
+      expect(problems).toEqual([]);
+      await page.close();
+    },
+  );
 
   it('exporting the ordering sheet gives a CSV with every probe and channels as "bandpass 605/20"', async () => {
     const { page } = await open(app.baseUrl + '/');

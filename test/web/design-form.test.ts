@@ -17,6 +17,11 @@ async function mount(options: Record<string, unknown> = {}): Promise<DesignForm>
 const button = (el: DesignForm, label: string) =>
   [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.trim() === label)!;
 
+const summary = (el: DesignForm) => el.shadowRoot!.querySelector('qdp-proposal-summary');
+
+const summaryButton = (el: DesignForm, label: string) =>
+  [...summary(el)!.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.trim() === label)!;
+
 /** Waits until `check` holds, polling (the worker answers asynchronously). */
 async function until(check: () => boolean, timeoutMs = 30_000): Promise<void> {
   const start = performance.now();
@@ -37,7 +42,7 @@ describe('<qdp-design-form>', () => {
     expect(text).not.toMatch(/\bsafe\b/i);
   });
 
-  it('Propose runs the search in a worker, shows progress, then fires panel-proposed with the result', async () => {
+  it('Propose runs the search in a worker, shows progress, then the proposal; Load fires panel-proposed', async () => {
     const el = await mount({ nodeBudget: 3000 });
     const stages: string[] = [];
     const events: CustomEvent[] = [];
@@ -45,31 +50,138 @@ describe('<qdp-design-form>', () => {
     const output = el.shadowRoot!.querySelector('output')!;
     const watch = setInterval(() => stages.push(output.textContent!), 5);
     button(el, 'Propose').click();
-    await until(() => events.length === 1);
+    await until(() => summary(el) !== null);
     clearInterval(watch);
+    expect(stages.some((s) => /candidates|search|refine/.test(s))).toBe(true);
+    await summary(el)!.updateComplete;
+    expect(summary(el)!.shadowRoot!.querySelector('.objective')!.textContent).toContain('Worst interference');
+    expect(summary(el)!.shadowRoot!.querySelectorAll('table.noise tr')).toHaveLength(3);
+    expect(events).toHaveLength(0);
+    summaryButton(el, 'Load this proposal').click();
+    await until(() => events.length === 1);
     const { panel, evaluation, objective, exact, stats } = events[0].detail;
     expect(events[0].bubbles && events[0].composed).toBe(true);
     expect(panel.probes).toHaveLength(2);
     expect(evaluation.worst.interference).toBeCloseTo(objective.worstInterference, 12);
     expect(typeof exact).toBe('boolean');
     expect(stats.nodesVisited).toBeGreaterThan(0);
-    expect(stages.some((s) => /candidates|search|refine/.test(s))).toBe(true);
     await el.updateComplete;
-    expect(el.shadowRoot!.querySelector('.objective')!.textContent).toContain('Worst interference');
-    expect(el.shadowRoot!.querySelectorAll('.result tr')).toHaveLength(3);
+    expect(summary(el)).toBeNull();
   });
 
-  it('a sample (scatterLevel 1e8, waterRaman 0.2) goes with the request and stays in the proposed panel', async () => {
+  it('a finished search shows its summary and fires no panel-proposed until Load; Discard removes it', async () => {
+    const el = await mount({ nodeBudget: 3000 });
+    let proposed = 0;
+    document.body.addEventListener('panel-proposed', () => proposed++);
+    button(el, 'Propose').click();
+    await until(() => summary(el) !== null && !button(el, 'Propose').disabled);
+    await new Promise((r) => setTimeout(r, 300));
+    expect(proposed).toBe(0);
+    await summary(el)!.updateComplete;
+    expect(summaryButton(el, 'Load this proposal')).toBeDefined();
+    expect(summary(el)!.shadowRoot!.textContent).toContain("your browser's Back button brings it back");
+    summaryButton(el, 'Discard').click();
+    await el.updateComplete;
+    expect(summary(el)).toBeNull();
+    await new Promise((r) => setTimeout(r, 100));
+    expect(proposed).toBe(0);
+  });
+
+  it(
+    'a catalog search over probes at 525 and 605 nm shows each target with its probe, shell and matching ' +
+      'bandpass, the proof and the hazard warning',
+    async () => {
+      const el = await mount();
+      el.candidates = {
+        probes: [
+          { id: 'a', material: 'cdse', emissionPeakNm: 605, shell: [{ material: 'zns', thicknessNm: 1 }] },
+          { id: 'b', material: 'cdse', emissionPeakNm: 525 },
+        ],
+        channels: [
+          { id: 'orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] },
+          { id: 'green', filters: [{ type: 'bandpass', centerNm: 525, widthNm: 30 }] },
+        ],
+      };
+      await el.updateComplete;
+      button(el, 'Propose').click();
+      await until(() => summary(el) !== null);
+      await summary(el)!.updateComplete;
+      const root = summary(el)!.shadowRoot!;
+      const rows = [...root.querySelectorAll('table.assignment tr')].slice(1).map((tr) => tr.textContent!);
+      expect(rows).toHaveLength(2);
+      const orange = rows.find((r) => r.includes('emission peak 605 nm'))!;
+      const green = rows.find((r) => r.includes('emission peak 525 nm'))!;
+      expect(orange).toMatch(/target [12]/);
+      expect(orange).toContain('CdSe');
+      expect(orange).toContain('shell ZnS 1 nm');
+      expect(orange).toContain('bandpass 605/20');
+      expect(green).toContain('bandpass 525/30');
+      expect(green).not.toContain('shell');
+      expect(root.querySelector('.objective')!.textContent).toContain('proven optimal over the candidates');
+      const warnings = root.querySelector('ul.warnings')!.textContent!;
+      expect(warnings).toContain('cadmium');
+      expect(warnings).toContain('local regulations, institutional safety rules and licensed practice');
+      expect(root.textContent).not.toMatch(/\bsafe\b/i);
+    },
+  );
+
+  it('a second Propose while a proposal is shown removes it and shows the new search in its place', async () => {
+    const el = await mount({ nodeBudget: 3000 });
+    let proposed = 0;
+    document.body.addEventListener('panel-proposed', () => proposed++);
+    button(el, 'Propose').click();
+    await until(() => summary(el) !== null && !button(el, 'Propose').disabled);
+    button(el, 'Add target').click();
+    await el.updateComplete;
+    button(el, 'Propose').click();
+    await el.updateComplete;
+    expect(summary(el)).toBeNull();
+    await until(() => summary(el) !== null);
+    await summary(el)!.updateComplete;
+    expect(summary(el)!.shadowRoot!.querySelectorAll('table.assignment tr')).toHaveLength(4);
+    expect(proposed).toBe(0);
+  });
+
+  it('a sample (scatterLevel 1e8, waterRaman 0.2) goes with the request and stays in the loaded panel', async () => {
     const el = await mount({ nodeBudget: 3000 });
     el.sample = { scatterLevel: 1e8, waterRaman: { level: 0.2 } };
     const events: CustomEvent[] = [];
     document.body.addEventListener('panel-proposed', (e) => events.push(e as CustomEvent));
     button(el, 'Propose').click();
+    await until(() => summary(el) !== null);
+    await summary(el)!.updateComplete;
+    summaryButton(el, 'Load this proposal').click();
     await until(() => events.length === 1);
     expect(events[0].detail.panel.scatterLevel).toBe(1e8);
     expect(events[0].detail.panel.waterRaman).toEqual({ level: 0.2 });
     expect(events[0].detail.evaluation.waterRamanCollected).toHaveLength(2);
   });
+
+  it(
+    'a window of 600–615 nm, too narrow for two passbands, shows the refusal naming "Window, nm" ' +
+      'and proposes nothing',
+    async () => {
+      const el = await mount({ nodeBudget: 3000 });
+      let proposed = 0;
+      document.body.addEventListener('panel-proposed', () => proposed++);
+      for (const [label, value] of [
+        ['window start', '600'],
+        ['window end', '615'],
+      ]) {
+        const field = el.shadowRoot!.querySelector<HTMLInputElement>(`input[aria-label="${label}"]`)!;
+        field.value = value;
+        field.dispatchEvent(new Event('change'));
+      }
+      button(el, 'Propose').click();
+      await until(() => el.shadowRoot!.querySelector('.error') !== null);
+      const text = el.shadowRoot!.querySelector('.error')!.textContent!;
+      expect(text).toMatch(/^No proposal: .*600–615 nm/);
+      expect(text).toMatch(/\(Window, nm\)$/);
+      expect(summary(el)).toBeNull();
+      expect(el.shadowRoot!.querySelector('output')!.textContent).toContain('failed');
+      expect(proposed).toBe(0);
+    },
+  );
 
   it('Cancel terminates a long search: no panel-proposed event and the status says cancelled', async () => {
     const el = await mount({ nodeBudget: 5_000_000, peakStepNm: 5, bandStepNm: 5 });

@@ -1,8 +1,10 @@
 /**
  * <qdp-design-form>: asks for targets (with abundances), excitation lines, material limits and a window, runs the
- * design search in a Web Worker (progress, stop, cancel), shows the objective and the predicted unmixing noise, and
- * fires a bubbling, composed `panel-proposed` event with {panel, evaluation, objective, exact, stats} so the app
- * loads the proposal as an editable panel. With `candidates` set it can search only those (catalog mode, exact).
+ * design search in a Web Worker (progress, stop, cancel) and shows the proposal beside the panel being edited
+ * (<qdp-proposal-summary>), leaving the panel alone. Only "Load this proposal" fires a bubbling, composed
+ * `panel-proposed` event with {panel, evaluation, objective, exact, stats}, on which the app loads the proposal as an
+ * editable panel; "Discard" drops it, and a new search replaces it. With `candidates` set it can search only those
+ * (catalog mode, exact).
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
@@ -19,9 +21,10 @@ import {
   type Exclusion,
   type SearchProgress,
 } from '../../spectra/index';
-import { pathText } from '../../worker/schemas';
+import { designErrorText, FORM_WORDS } from '../state/design-error';
 import type { DesignWorkerMessage } from '../state/design-worker';
 import { loadChecks } from '../state/load-checks';
+import { percent } from './proposal-summary';
 
 /** The abundance words a target may take instead of a number (high, medium, low). */
 const WORDS = Object.keys(ABUNDANCE_WORDS) as (keyof typeof ABUNDANCE_WORDS)[];
@@ -40,9 +43,6 @@ function excitationLines(text: string): { wavelengthNm: number }[] {
   return parts.map((p) => ({ wavelengthNm: Number(p) }));
 }
 
-/** A fraction as a percentage with three significant figures. */
-const percent = (x: number) => `${(100 * x).toPrecision(3)} %`;
-
 /** How far the search has got, after its status word: nodes or refinement steps, and the best value so far. */
 function progressText(progress: SearchProgress): string {
   const steps = progress.stage === 'refine' ? 'refinement steps' : 'nodes visited';
@@ -57,7 +57,7 @@ function checkbox(checked: boolean, label: string, set: (on: boolean) => void) {
 }
 
 /** The catalog-mode choice. */
-const CANDIDATES_ONLY = "choose only from the current panel's probes and channels";
+const CANDIDATES_ONLY = `choose only from ${FORM_WORDS.candidates}`;
 
 interface TargetRow {
   name: string;
@@ -89,6 +89,7 @@ export class DesignForm extends LitElement {
   @state() private progress: SearchProgress | null = null;
   @state() private status = '';
   @state() private error = '';
+  /** The last search's proposal, shown until it is loaded, discarded or replaced by a new search. */
   @state() private result: DesignResult | null = null;
   private worker: Worker | null = null;
   /** Counts proposals, so a check that returns after a newer proposal or a cancel starts nothing. */
@@ -121,18 +122,6 @@ export class DesignForm extends LitElement {
     .error {
       color: #8b1a1a;
       font-weight: 600;
-    }
-    table {
-      border-collapse: collapse;
-    }
-    td,
-    th {
-      padding: 0.1rem 0.5rem;
-      text-align: right;
-    }
-    th:first-child,
-    td:first-child {
-      text-align: left;
     }
     button:focus-visible,
     input:focus-visible {
@@ -223,14 +212,22 @@ export class DesignForm extends LitElement {
       return;
     }
     if (message.type === 'error') {
-      const where = message.error.path.length ? ` (${pathText(message.error.path)})` : '';
-      this.finish('failed', `${message.error.message}${where}`);
+      const names = this.targets.map((t) => t.name);
+      this.finish('failed', designErrorText(message.error, names));
       return;
     }
-    const { panel, evaluation, objective, exact, stats } = message.result;
     this.result = message.result;
     this.finish('done');
-    if (panel === null) return; // no usable panel: the verdict says why, and the user's panel stays
+  }
+
+  /** Hands the shown proposal to the app (which loads it as the panel) and stops showing it. */
+  private loadProposal(): void {
+    const r = this.result;
+    if (!r) return;
+    const { panel, evaluation, objective, exact, stats } = r;
+    if (panel === null) return; // no usable panel: nothing to load
+    this.result = null;
+    this.status = 'proposal loaded';
     this.dispatchEvent(
       new CustomEvent('panel-proposed', {
         detail: { panel, evaluation, objective, exact, stats },
@@ -238,6 +235,11 @@ export class DesignForm extends LitElement {
         composed: true,
       }),
     );
+  }
+
+  private discardProposal(): void {
+    this.result = null;
+    this.status = 'proposal discarded';
   }
 
   private addTarget(): void {
@@ -298,7 +300,7 @@ export class DesignForm extends LitElement {
         </button>
       </fieldset>
       <label
-        >Excitation lines, nm
+        >${FORM_WORDS.excitation}
         <input
           type="text"
           aria-label="excitation lines"
@@ -316,13 +318,13 @@ export class DesignForm extends LitElement {
           ),
         )}
         <div>
-          Materials:
+          ${FORM_WORDS.materials}:
           ${MATERIALS.map((m) =>
             checkbox(this.allowed.has(m.id), m.name, (on) => (this.allowed = this.toggle(this.allowed, m.id, on))),
           )}
         </div>
         <label
-          >Window, nm
+          >${FORM_WORDS.window}
           <input
             type="number"
             aria-label="window start"
@@ -345,69 +347,21 @@ export class DesignForm extends LitElement {
         >
       </div>
       ${this.error ? html`<p class="error" role="alert">${this.error}</p>` : ''}
-      ${this.result ? this.renderResult(this.result) : ''}
+      ${
+        this.result
+          ? html`<qdp-proposal-summary
+              .result=${this.result}
+              @proposal-load=${this.loadProposal}
+              @proposal-discard=${this.discardProposal}
+            ></qdp-proposal-summary>`
+          : ''
+      }
       <p>
         Proposals can include cadmium- or lead-containing dots unless excluded: read the material notes. Handle
         nanoparticles and excitation lasers as your local regulations, institutional safety rules and licensed practice
         require.
       </p>
     `;
-  }
-
-  private renderResult(r: DesignResult) {
-    const o = r.objective;
-    if (r.panel === null || o === null || r.stats === null || r.noise === null) {
-      const fewer =
-        r.largestUsableTargets === null
-          ? ''
-          : r.largestUsableTargets > 0
-            ? ` A usable panel was found for the ${r.largestUsableTargets} most abundant targets.`
-            : ' No usable panel was found even for one target.';
-      return html`<section class="result">
-        <p class="objective" role="status">No usable panel: ${r.verdictReason}.${fewer}</p>
-      </section>`;
-    }
-    const noise = r.noise;
-    const stats = r.stats;
-    const verdict =
-      r.verdict === 'usable'
-        ? 'Usable: every target is above the signal-to-noise and interference thresholds.'
-        : `Not usable: ${r.verdictReason}.`;
-    const pair = o.fromTarget ? ` (${o.fromTarget} into ${o.intoTarget})` : '';
-    const proof = r.exact
-      ? r.mode === 'free'
-        ? 'optimal over the stated grid catalog'
-        : 'proven optimal over the candidates'
-      : `best found; lower bound ${stats.bound === null ? 'none yet' : percent(stats.bound)}`;
-    return html`<section class="result">
-      <p class="objective" role="status">${verdict}</p>
-      <p class="objective">
-        Worst interference ${percent(o.worstInterference)}${pair}: ${proof}. ${stats.nodesVisited.toLocaleString('en')}
-        nodes visited of ${stats.fullEnumeration.toExponential(1)} complete assignments.
-      </p>
-      <table>
-        <caption>
-          Predicted unmixing noise (the brightest target
-          ${Math.round(Math.max(...noise.photons.map((x, i) => x * (r.panel!.probes[i].abundance ?? 1))))} photons in
-          its channel, every probe on that scale)
-        </caption>
-        <tr>
-          <th>target</th>
-          <th>abundance</th>
-          <th>SD</th>
-          <th>S/N</th>
-        </tr>
-        ${r.panel.probes.map(
-          (p, i) =>
-            html`<tr>
-              <td>${p.target}</td>
-              <td>${p.abundance}</td>
-              <td>${noise.sd[i]?.toPrecision(3) ?? '—'}</td>
-              <td>${noise.signalToNoise[i]?.toPrecision(3) ?? '—'}</td>
-            </tr>`,
-        )}
-      </table>
-    </section>`;
   }
 }
 

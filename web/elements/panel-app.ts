@@ -53,6 +53,9 @@ import type { SpectrumChart } from './spectrum-chart';
 /** Edits closer together than this share one back-button step (ms): typing a number is one step, not five. */
 const HISTORY_STEP_MS = 1000;
 
+/** The path of a shared copy, /p/<id>. */
+const SHARED_PATH = /^\/p\/([A-Za-z0-9_-]+)$/;
+
 /** The panel's sample light that a design request carries: its scatterLevel and waterRaman, when set. */
 function sampleOf(p: PanelSpec): Pick<PanelSpec, 'scatterLevel' | 'waterRaman'> {
   return {
@@ -90,7 +93,7 @@ export class PanelApp extends LitElement {
     super.connectedCallback();
     window.addEventListener('popstate', this.onPopState);
     void this.startChecks();
-    const shared = /^\/p\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
+    const shared = SHARED_PATH.exec(location.pathname);
     const profile = /^\/i\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
     if (shared) void this.openShared(shared[1]);
     else if (profile && !location.hash) void this.startOnInstrument(profile[1]);
@@ -102,8 +105,15 @@ export class PanelApp extends LitElement {
     super.disconnectedCallback();
   }
 
+  /** Back and Forward: a shared copy's /p/<id> opens it again; a fragment elsewhere is the panel it holds. */
   private onPopState = () => {
-    if (!this.sharedId && location.hash) void this.restoreFromFragment();
+    const shared = SHARED_PATH.exec(location.pathname);
+    if (shared && !location.hash) {
+      void this.openShared(shared[1]);
+    } else if (location.hash && !(shared && this.sharedId)) {
+      this.sharedId = '';
+      void this.restoreFromFragment();
+    }
   };
 
   /** Loads the checks in the background; a panel set before they arrived is checked and computed then. */
@@ -246,6 +256,16 @@ export class PanelApp extends LitElement {
     this.load(panel, []);
   }
 
+  /**
+   * Replaces the panel by a loaded design proposal, always as a new history step so that Back returns to the panel
+   * before it (even one edited a moment ago, or a shared copy at /p/<id>, which the proposal leaves for /).
+   */
+  private loadProposal(panel: PanelSpec): void {
+    this.sharedId = '';
+    this.lastPushMs = 0;
+    this.load(panel, this.exclude);
+  }
+
   /** Replaces the whole panel (new, demo, import, shared) and recomputes. */
   private load(panel: PanelSpec, exclude: PanelExclusion[], writeUrl = true): void {
     this.computed = undefined;
@@ -295,7 +315,9 @@ export class PanelApp extends LitElement {
   }
 
   private writeFragment(mode: 'push' | 'replace'): void {
-    const url = `${location.pathname}#${encodeFragment({ panel: this.panel, view: this.view() })}`;
+    // A shared copy's /p/<id> opens the stored panel whatever the fragment: an edited panel lives at /.
+    const path = SHARED_PATH.test(location.pathname) ? '/' : location.pathname;
+    const url = `${path}#${encodeFragment({ panel: this.panel, view: this.view() })}`;
     const now = Date.now();
     if (mode === 'push' && now - this.lastPushMs > HISTORY_STEP_MS) history.pushState(null, '', url);
     else history.replaceState(null, '', url);
@@ -396,12 +418,7 @@ export class PanelApp extends LitElement {
         ${this.sharedId ? this.sharedNote() : ''}
         ${this.error ? html`<p class="error" role="alert">Not updated: ${this.error.message}</p>` : ''}
       </header>
-      <main
-        @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => {
-          this.sharedId = '';
-          this.load(e.detail.panel, this.exclude);
-        }}
-      >
+      <main @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => this.loadProposal(e.detail.panel)}>
         <div
           class="edit"
           ?inert=${!!this.sharedId}
@@ -470,8 +487,8 @@ export class PanelApp extends LitElement {
             <h2 id="h-propose">Propose a panel</h2>
             <p>
               Name the targets and how abundant each is; the search proposes dots and filters (or picks from this
-              panel's probes and channels) that keep the worst bleed-through low, and loads the proposal here for
-              editing.
+              panel's probes and channels) that keep the worst bleed-through low, and shows the proposal beside your
+              panel, to load for editing or discard.
             </p>
             <qdp-design-form .candidates=${this.candidates()} .sample=${sampleOf(p)}></qdp-design-form>
           </section>

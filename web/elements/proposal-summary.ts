@@ -1,0 +1,268 @@
+/**
+ * <qdp-proposal-summary>: a finished design shown beside the panel being edited, without loading it: each target with
+ * its proposed probe and channel, the objective (worst interference, which target into which, proven optimal or best
+ * found with its bound), the predicted unmixing noise and the answer's warnings. Its two buttons fire
+ * `proposal-load` and `proposal-discard` (not bubbling); the design form decides what follows.
+ */
+import { LitElement, css, html } from 'lit';
+import { customElement, property } from 'lit/decorators.js';
+import {
+  SHELL_MATERIALS,
+  listDyes,
+  listMaterials,
+  type DesignResult,
+  type PanelSpec,
+  type ProbeSpec,
+} from '../../spectra/index';
+import { describeChannel, describeChannelExcitation } from '../io/filter-text';
+import { focusRing } from './shared-styles';
+
+const MATERIAL_NAMES = new Map(listMaterials().map((m) => [m.id, m.name]));
+const DYE_NAMES = new Map(listDyes().map((d) => [d.id, d.name]));
+
+/** A fraction as a percentage with three significant figures. */
+export const percent = (x: number) => `${(100 * x).toPrecision(3)} %`;
+
+/** A figure with three significant figures, or a dash when the answer has none. */
+const figure = (x: number | null | undefined) => (typeof x === 'number' && Number.isFinite(x) ? x.toPrecision(3) : '—');
+
+/** The parts of a probe's description: "CdTe", "emission peak 694 nm", "shell CdS 0.7 nm" (a dye by its name). */
+function probeParts(probe: ProbeSpec, peakNm: number | undefined): string[] {
+  const name = probe.dye
+    ? (DYE_NAMES.get(probe.dye) ?? probe.dye)
+    : (MATERIAL_NAMES.get(probe.material) ?? probe.material);
+  const peak = peakNm ?? probe.emissionPeakNm;
+  const parts = [name, ...(peak === undefined ? [] : [`emission peak ${Math.round(peak)} nm`])];
+  const shell = probe.shell ?? [];
+  if (shell.length > 0) {
+    const layers = shell.map((l) => `${SHELL_MATERIALS[l.material]?.name ?? l.material} ${l.thicknessNm} nm`);
+    parts.push(`shell ${layers.join(', ')}`);
+  }
+  return parts;
+}
+
+/** A probe's parts, each kept on one line, wrapping only between them. */
+function probeCell(parts: string[]) {
+  return parts.map((part, i) => html`<span class="part">${part}${i < parts.length - 1 ? ' ·' : ''}</span> `);
+}
+
+/** The proposed channel of a probe in the trade's notation, with the lines it is read under when it names them. */
+function channelText(panel: PanelSpec, probe: ProbeSpec): string {
+  const channel = panel.channels.find((c) => c.id === probe.channel);
+  if (!channel) return '—';
+  const lines = channel.excitationNm === undefined ? '' : ` · read under ${describeChannelExcitation(channel)}`;
+  return `${describeChannel(channel)}${lines}`;
+}
+
+/** Whether the answer is proven optimal or the best found, with the search's bound when it gives one. */
+function proofText(r: DesignResult): string {
+  if (r.exact) return r.mode === 'free' ? 'optimal over the stated grid catalog' : 'proven optimal over the candidates';
+  const bound = r.stats?.bound;
+  return `best found; lower bound ${typeof bound === 'number' ? percent(bound) : 'none yet'}`;
+}
+
+/** How much of the search space the search visited. */
+function searchText(stats: DesignResult['stats']): string {
+  return (
+    `${stats.nodesVisited.toLocaleString('en')} nodes visited of ${stats.fullEnumeration.toExponential(1)} ` +
+    'complete assignments.'
+  );
+}
+
+@customElement('qdp-proposal-summary')
+export class ProposalSummary extends LitElement {
+  /** The design answer to show (extra fields are ignored). */
+  @property({ attribute: false }) result?: DesignResult;
+
+  static override styles = [
+    focusRing,
+    css`
+      :host {
+        display: block;
+        border: 2px dashed #5a6b8c;
+        border-radius: 6px;
+        padding: 0.4rem 0.7rem;
+        margin: 0.6rem 0;
+        background: #f7f8fc;
+      }
+      .verdict {
+        font-weight: 600;
+      }
+      .verdict.bad {
+        color: #8b1a1a;
+      }
+      .search {
+        font-size: 0.85rem;
+        color: #444;
+      }
+      h3 {
+        margin: 0.2rem 0;
+        font-size: 1rem;
+      }
+      .scroll {
+        overflow-x: auto;
+      }
+      table {
+        border-collapse: collapse;
+        margin: 0.3rem 0;
+      }
+      .caption {
+        font-weight: 600;
+        margin: 0.5rem 0 0;
+      }
+      .part,
+      .assignment td:first-child,
+      .assignment td:last-child {
+        white-space: nowrap;
+      }
+      /* A phone stacks each target's row: the target, its probe, then its channel. */
+      @media (max-width: 560px) {
+        .assignment,
+        .assignment tbody,
+        .assignment tr,
+        .assignment td {
+          display: block;
+        }
+        .assignment tr:first-child {
+          display: none;
+        }
+        .assignment tr {
+          margin-bottom: 0.4rem;
+        }
+        .assignment td {
+          padding: 0;
+        }
+        .assignment td:first-child {
+          font-weight: 600;
+        }
+      }
+      td,
+      th {
+        padding: 0.1rem 0.5rem;
+        text-align: left;
+        vertical-align: top;
+      }
+      .noise td:not(:first-child),
+      .noise th:not(:first-child) {
+        text-align: right;
+      }
+      .warnings {
+        margin: 0.3rem 0;
+        padding-left: 1.2rem;
+      }
+      .actions {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.5rem;
+        align-items: center;
+      }
+      .actions p {
+        margin: 0;
+        flex: 1 1 14rem;
+      }
+    `,
+  ];
+
+  private fire(type: 'proposal-load' | 'proposal-discard'): void {
+    this.dispatchEvent(new CustomEvent(type));
+  }
+
+  /** The answer when the search found no panel that meets the constraints: why, and how many targets would work. */
+  private noPanel(r: DesignResult) {
+    const fewer =
+      r.largestUsableTargets === null
+        ? ''
+        : r.largestUsableTargets > 0
+          ? ` A usable panel was found for the ${r.largestUsableTargets} most abundant targets: try with fewer.`
+          : ' No usable panel was found even for one target.';
+    return html`<section aria-labelledby="h-proposal">
+      <h3 id="h-proposal">No usable panel: your panel is unchanged</h3>
+      <p class="verdict bad" role="status">${r.verdictReason}.${fewer}</p>
+      <div class="actions">
+        <button type="button" @click=${() => this.fire('proposal-discard')}>Discard</button>
+      </div>
+    </section>`;
+  }
+
+  override render() {
+    const r = this.result;
+    if (!r) return '';
+    const o = r.objective;
+    const noise = r.noise;
+    if (r.panel === null || o === null || noise === null) return this.noPanel(r);
+    const pair = o.fromTarget ? ` (${o.fromTarget} into ${o.intoTarget})` : '';
+    const probes = r.panel.probes;
+    const panel = r.panel;
+    const brightest = Math.max(...noise.photons.map((x, i) => x * (probes[i].abundance ?? 1)));
+    const verdict =
+      r.verdict === 'usable'
+        ? 'Usable: every target reaches the signal-to-noise threshold and no light intrudes above the limit.'
+        : `Not usable: ${r.verdictReason}.`;
+    return html`<section aria-labelledby="h-proposal">
+      <h3 id="h-proposal">Proposal, not loaded: your panel is unchanged</h3>
+      <p class="verdict ${r.verdict === 'usable' ? '' : 'bad'}" role="status">${verdict}</p>
+      <p class="objective">Worst interference ${percent(o.worstInterference)}${pair}: ${proofText(r)}.</p>
+      ${r.stats ? html`<p class="search">${searchText(r.stats)}</p>` : ''}
+      <div class="scroll">
+        <p class="caption" id="cap-assignment">Probe and channel for each target</p>
+        <table class="assignment" aria-labelledby="cap-assignment">
+          <tr>
+            <th>target</th>
+            <th>probe</th>
+            <th>channel</th>
+          </tr>
+          ${probes.map(
+            (p, i) =>
+              html`<tr>
+                <td>${p.target ?? p.label ?? p.id}</td>
+                <td>${probeCell(probeParts(p, r.evaluation?.probes[i]?.emissionPeakNm))}</td>
+                <td>${channelText(panel, p)}</td>
+              </tr>`,
+          )}
+        </table>
+      </div>
+      <div class="scroll">
+        <p class="caption" id="cap-noise">
+          Predicted unmixing noise (the brightest target ${Math.round(brightest)} photons in its channel, every probe on
+          that one scale)
+        </p>
+        <table class="noise" aria-labelledby="cap-noise">
+          <tr>
+            <th>target</th>
+            <th>abundance</th>
+            <th>SD</th>
+            <th>S/N</th>
+          </tr>
+          ${probes.map(
+            (p, i) =>
+              html`<tr>
+                <td>${p.target ?? p.label ?? p.id}</td>
+                <td>${p.abundance ?? 1}</td>
+                <td>${figure(noise.sd[i])}</td>
+                <td>${figure(noise.signalToNoise[i])}</td>
+              </tr>`,
+          )}
+        </table>
+      </div>
+      ${
+        r.warnings.length
+          ? html`<p class="caption" id="cap-warnings">Warnings</p>
+              <ul class="warnings" aria-labelledby="cap-warnings">
+                ${r.warnings.map((w) => html`<li>${w}</li>`)}
+              </ul>`
+          : ''
+      }
+      <div class="actions">
+        <button type="button" @click=${() => this.fire('proposal-load')}>Load this proposal</button>
+        <button type="button" @click=${() => this.fire('proposal-discard')}>Discard</button>
+        <p>Loading replaces the panel you are editing; your browser's Back button brings it back.</p>
+      </div>
+    </section>`;
+  }
+}
+
+declare global {
+  interface HTMLElementTagNameMap {
+    'qdp-proposal-summary': ProposalSummary;
+  }
+}
