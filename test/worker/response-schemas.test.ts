@@ -236,4 +236,20 @@ describe('POST /api/v1/panels/design', () => {
     );
     expect(body.mode).toBe('free');
   });
+
+  it('POST /panels/design for 16 targets answers 200 with the no_usable_panel verdict in a valid body', async () => {
+    const request = {
+      targets: Array.from({ length: 16 }, (_, i) => ({ name: `target ${i + 1}`, abundance: 'high' })),
+      excitation: line405,
+    };
+    const body = expectValid(
+      DesignResponse,
+      await bodyOf(await postJson(worker, '/api/v1/panels/design', request), 200),
+      'sixteen',
+    );
+    expect(body.verdict).toBe('no_usable_panel');
+    expect(body.panel).toBeNull();
+    expect(body.verdictReason).toContain('16 targets');
+    expect(body.largestUsableTargets).toBeGreaterThanOrEqual(1);
+  });
 });

@@ -62,7 +62,7 @@ function proofText(r: DesignResult): string {
 }
 
 /** How much of the search space the search visited. */
-function searchText(stats: DesignResult['stats']): string {
+function searchText(stats: NonNullable<DesignResult['stats']>): string {
   return (
     `${stats.nodesVisited.toLocaleString('en')} nodes visited of ${stats.fullEnumeration.toExponential(1)} ` +
     'complete assignments.'
