@@ -31,7 +31,7 @@ const targets = (n: number): DesignRequest['targets'] =>
   Array.from({ length: n }, (_, i) => ({ name: `target ${i + 1}`, abundance: i % 3 === 2 ? 'low' : 'high' }));
 
 describe('the verdict of free-mode designs', () => {
-  it('12 targets under 405 nm: no_usable_panel with a reason, no panel, and a usable design for the largest count', () => {
+  it('12 targets under 405 nm: no_usable_panel with a reason, and a usable design for the largest count', () => {
     const request: DesignRequest = { targets: targets(12), excitation: [{ wavelengthNm: 405 }] };
     const result = runDesign(request);
     expect(result.verdict).toBe('no_usable_panel');
