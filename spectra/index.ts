@@ -179,7 +179,8 @@ export type { CatalogResult } from './design/catalog';
 export type { CatalogProblem } from './design/problem';
 export { searchCatalog, type SearchOptions, type SearchProgress } from './design/search';
 export { DESIGN_DEFAULTS, type DesignOptions } from './design/options';
-export { DEFAULT_WINDOW_NM, type DesignRequest, type DesignTarget } from './design/request';
+export { DEFAULT_WINDOW_NM, LEFT_OUT_BY_DEFAULT, type DesignRequest, type DesignTarget } from './design/request';
+export { PRACTICE_DEFAULTS } from './design/practice';
 export {
   runDesign,
   runDesignAsync,

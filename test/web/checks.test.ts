@@ -49,9 +49,9 @@ describe('the page checks (state/checks.ts)', () => {
     expect(readPanel(JSON.parse(JSON.stringify(demoPanel())))).toEqual({ ok: true, panel: demoPanel() });
   });
 
-  it("readPageState keeps the view's cadmium and lead exclusions and drops words the page does not offer", () => {
+  it("readPageState keeps the view's cadmium, lead and arsenic exclusions and drops words it does not offer", () => {
     const r = readPageState({ panel: demoPanel(), view: { exclude: ['lead', 'arsenic', 'tin', 'cadmium'] } });
-    expect(r.ok && r.state.view.exclude).toEqual(['lead', 'cadmium']);
+    expect(r.ok && r.state.view.exclude).toEqual(['lead', 'arsenic', 'cadmium']);
   });
 
   it('readPageState keeps view.snapStock true and leaves it out when it is "yes" or missing', () => {

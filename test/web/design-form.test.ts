@@ -32,9 +32,23 @@ async function until(check: () => boolean, timeoutMs = 30_000): Promise<void> {
 }
 
 describe('<qdp-design-form>', () => {
+  it('offers the five checks with their defaults as placeholders and leaves CsPbBr3, carbon and GaAs unticked', async () => {
+    const el = await mount();
+    const fields = [...el.shadowRoot!.querySelectorAll('fieldset qdp-number-field')];
+    // Defaults of the design options (docs/api.md): OD 6 (common practice), 0.3, 15 nm, S/N 5, interference 1.
+    expect(fields.map((f) => f.getAttribute('placeholder'))).toEqual(['6', '0.3', '15', '5', '1']);
+    const ticked = (name: string) =>
+      [...el.shadowRoot!.querySelectorAll('label')]
+        .find((l) => l.textContent!.trim().startsWith(name))!
+        .querySelector('input')!.checked;
+    expect(ticked('CsPbBr3')).toBe(false);
+    expect(ticked('Carbon')).toBe(false);
+    expect(ticked('CdSe')).toBe(true);
+  });
+
   it('renders targets, excitation, exclusions, materials and the window', async () => {
     const el = await mount();
-    const text = el.shadowRoot!.textContent!;
+    const text = el.shadowRoot!.textContent!.replace(/\s+/g, ' ');
     expect(el.shadowRoot!.querySelectorAll('input[aria-label="target name"]')).toHaveLength(2);
     for (const label of ['cadmium-free', 'lead-free', 'arsenic-free', 'Window, nm', 'Excitation lines'])
       expect(text).toContain(label);

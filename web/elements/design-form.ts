@@ -12,8 +12,10 @@ import {
   ABUNDANCE_WORDS,
   DEFAULT_WINDOW_NM,
   EXCLUSION_WORDS,
+  LEFT_OUT_BY_DEFAULT,
   LIMITS,
   listMaterials,
+  PRACTICE_DEFAULTS,
   type AbundanceInput,
   type DesignOptions,
   type DesignRequest,
@@ -56,6 +58,16 @@ function checkbox(checked: boolean, label: string, set: (on: boolean) => void) {
   return html`<label><input type="checkbox" .checked=${checked} @change=${changed} /> ${label}</label> `;
 }
 
+/** The practice checks and verdict thresholds the form lets the user set: option key, label, unit. */
+type CheckKey = keyof typeof PRACTICE_DEFAULTS;
+const CHECKS: readonly [CheckKey, string, string][] = [
+  ['minBlockingOD', 'Each channel blocks its lines by at least (OD)', ''],
+  ['minChannelShare', "Share of a probe's light its channel passes, at least (0–1)", ''],
+  ['lineClearanceNm', 'Emission peak at least this far from every line', 'nm'],
+  ['minSignalToNoise', 'Signal-to-noise after unmixing, at least', ''],
+  ['maxInterference', "Another probe's light in a channel, at most (× the target's own)", ''],
+];
+
 /** The catalog-mode choice. */
 const CANDIDATES_ONLY = `choose only from ${FORM_WORDS.candidates}`;
 
@@ -82,7 +94,12 @@ export class DesignForm extends LitElement {
   ];
   @state() private excitationText = '405';
   @state() private exclude = new Set<Exclusion>();
-  @state() private allowed = new Set(MATERIALS.map((m) => m.id));
+  /** Materials ticked for free design: all but those unsuitable by default (illustrative, LEFT_OUT_BY_DEFAULT). */
+  @state() private allowed = new Set(
+    MATERIALS.filter((m) => !m.illustrative && LEFT_OUT_BY_DEFAULT[m.id] === undefined).map((m) => m.id),
+  );
+  /** The practice checks and verdict thresholds as typed (absent: the documented default). */
+  @state() private checks: Partial<Record<CheckKey, number>> = {};
   @state() private windowNm: [number, number] = [DEFAULT_WINDOW_NM[0], DEFAULT_WINDOW_NM[1]];
   @state() private useCandidates = true;
   @state() private running = false;
@@ -138,7 +155,7 @@ export class DesignForm extends LitElement {
     const request: DesignRequest = {
       targets: this.targets.map((t) => ({ name: t.name.trim(), abundance: abundanceInput(t.abundance) })),
       excitation: excitationLines(this.excitationText),
-      options: { ...this.options },
+      options: { ...this.options, ...this.checks },
       ...this.sample,
     };
     if (this.candidates && this.useCandidates) return { ...request, candidates: this.candidates };
@@ -338,6 +355,23 @@ export class DesignForm extends LitElement {
             @change=${(e: Event) => this.setWindow(1, (e.target as HTMLInputElement).value)}
         /></label>
       </fieldset>
+      <fieldset>
+        <legend>Checks every proposal must pass (empty: the default shown)</legend>
+        ${CHECKS.map(
+          ([key, label, unit]) =>
+            html`<qdp-number-field
+              .label=${label}
+              unit=${unit}
+              optional
+              placeholder=${String(PRACTICE_DEFAULTS[key])}
+              .value=${this.checks[key]}
+              @value-change=${(e: CustomEvent<{ value: number | undefined }>) => {
+                const { [key]: _old, ...rest } = this.checks;
+                this.checks = e.detail.value === undefined ? rest : { ...rest, [key]: e.detail.value };
+              }}
+            ></qdp-number-field>`,
+        )}
+      </fieldset>
       <div class="row">
         <button type="button" @click=${() => this.propose()} ?disabled=${this.running}>Propose</button>
         <button type="button" @click=${() => this.stop()} ?disabled=${!this.running}>Stop and keep best</button>
@@ -357,9 +391,9 @@ export class DesignForm extends LitElement {
           : ''
       }
       <p>
-        Proposals can include cadmium- or lead-containing dots unless excluded: read the material notes. Handle
-        nanoparticles and excitation lasers as your local regulations, institutional safety rules and licensed practice
-        require.
+        Proposals can include cadmium-, lead- or arsenic-containing dots unless excluded: read the material notes.
+        Handle nanoparticles and excitation lasers as your local regulations, institutional safety rules and licensed
+        practice require.
       </p>
     `;
   }

@@ -20,7 +20,8 @@ export const GENERAL_CAUTION =
 
 /** The summary when no probe is made with an excludable class. */
 const NONE_CONTAINED =
-  `No probe in this panel is made with ${PANEL_EXCLUSIONS.join(' or ')}` + " (by the tool's material list).";
+  `No probe in this panel is made with ${PANEL_EXCLUSIONS.slice(0, -1).join(', ')} or ${PANEL_EXCLUSIONS.at(-1)}` +
+  " (by the tool's material list).";
 
 /** Which probes break the exclusions and why, and what that turns off. */
 function blockedText(panel: PanelSpec, offending: Map<string, string>): string {

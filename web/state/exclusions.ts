@@ -1,5 +1,5 @@
 /**
- * Material classes a user can exclude from a panel (cadmium-free, lead-free) and which probes break that choice. The
+ * Material classes a user can exclude from a panel (cadmium-free, lead-free, arsenic-free) and which probes break that choice. The
  * classes, their elements and the test of a material come from the spectral library (EXCLUSIONS, exclusionsOf).
  */
 import {
@@ -12,7 +12,7 @@ import {
 } from '../../spectra/index';
 
 /** The classes the panel view offers to exclude (the design form offers every class of EXCLUSION_WORDS). */
-export const PANEL_EXCLUSIONS = ['cadmium', 'lead'] as const satisfies readonly Exclusion[];
+export const PANEL_EXCLUSIONS = ['cadmium', 'lead', 'arsenic'] as const satisfies readonly Exclusion[];
 
 /** A class the panel view can exclude. */
 export type PanelExclusion = (typeof PANEL_EXCLUSIONS)[number];
