@@ -32,7 +32,7 @@ async function until(check: () => boolean, timeoutMs = 30_000): Promise<void> {
 }
 
 describe('<qdp-design-form>', () => {
-  it('offers the five checks with their defaults as placeholders and leaves CsPbBr3, carbon and GaAs unticked', async () => {
+  it('offers the five checks with their defaults as placeholders and leaves CsPbBr3 and carbon unticked', async () => {
     const el = await mount();
     const fields = [...el.shadowRoot!.querySelectorAll('fieldset qdp-number-field')];
     // Defaults of the design options (docs/api.md): OD 6 (common practice), 0.3, 15 nm, S/N 5, interference 1.

@@ -1,6 +1,7 @@
 /**
- * Material classes a user can exclude from a panel (cadmium-free, lead-free, arsenic-free) and which probes break that choice. The
- * classes, their elements and the test of a material come from the spectral library (EXCLUSIONS, exclusionsOf).
+ * Material classes a user can exclude from a panel (cadmium-free, lead-free, arsenic-free) and which probes break
+ * that choice. The classes, their elements and the test of a material come from the spectral library (EXCLUSIONS,
+ * exclusionsOf).
  */
 import {
   SHELL_MATERIALS,
