@@ -57,13 +57,20 @@ function catalogRows(): BenchRow[] {
     exact += result.exact ? 1 : 0;
   }
   const medianNodes = [...nodes].sort((a, b) => a - b)[4];
-  const peaks = Array.from({ length: 16 }, (_, i) => 500 + 14 * i);
+  // 24 core/shell dots every 11 nm from 490 nm, and 24 stock 20 nm bandpasses every 10 nm from 500 nm.
+  const peaks = Array.from({ length: 24 }, (_, i) => 490 + 11 * i);
+  const centres = Array.from({ length: 24 }, (_, i) => 500 + 10 * i);
   const request: DesignRequest = {
     targets: WORDS.map((abundance, i) => ({ name: `T${i + 1}`, abundance })),
     excitation: [{ wavelengthNm: 405 }],
     candidates: {
-      probes: peaks.map((nm, i) => ({ id: `d${i}`, material: nm <= 650 ? 'cdse' : 'cdte', emissionPeakNm: nm })),
-      channels: peaks.map((nm, i) => ({ id: `c${i}`, filters: [{ type: 'bandpass', centerNm: nm, widthNm: 12 }] })),
+      probes: peaks.map((nm, i) => ({
+        id: `d${i}`,
+        material: nm <= 640 ? 'cdse' : 'cdte',
+        emissionPeakNm: nm,
+        shell: [{ material: nm <= 640 ? 'zns' : 'cds', thicknessNm: 0.6 }],
+      })),
+      channels: centres.map((nm, i) => ({ id: `c${i}`, filters: [{ type: 'bandpass', centerNm: nm, widthNm: 20 }] })),
     },
     options: { nodeBudget: 5_000_000 },
   };
@@ -83,39 +90,51 @@ function catalogRows(): BenchRow[] {
     },
     {
       suite: 'design',
-      name: 'catalog runDesign 8 of 16×16 real dots',
+      name: 'catalog runDesign 8 of 24×24 core/shell dots and stock bandpasses',
       ...stats(pipeline.map(([, ms]) => ms)),
       extra: {
-        nodes: last.stats!.nodesVisited,
+        verdict: last.verdict,
+        nodes: last.stats?.nodesVisited ?? null,
         exact: String(last.exact),
-        worst: last.objective!.worstInterference.toExponential(3),
+        worst: last.objective ? last.objective.worstInterference.toExponential(3) : null,
       },
     },
   ];
 }
 
-function freeRow(targets: number): BenchRow {
+function freeRow(targets: number, linesNm: number[] = [405]): BenchRow {
   const request: DesignRequest = {
-    targets: WORDS.slice(0, targets).map((abundance, i) => ({ name: `T${i + 1}`, abundance })),
-    excitation: [{ wavelengthNm: 405 }],
+    targets: Array.from({ length: targets }, (_, i) => ({ name: `T${i + 1}`, abundance: WORDS[i % WORDS.length] })),
+    excitation: linesNm.map((wavelengthNm) => ({ wavelengthNm })),
   };
   const runs = [1, 2].map(() => timed(() => runDesign(request)));
   const r = runs[1][0];
+  const sn = r.noise?.signalToNoise.filter((x): x is number => x !== null) ?? [];
   return {
     suite: 'design',
-    name: `free mode ${targets} targets, 400–800 nm`,
+    name: `free mode ${targets} targets, ${linesNm.join(' + ')} nm, 400–800 nm`,
     ...stats(runs.map(([, ms]) => ms)),
     extra: {
-      worst: r.objective!.worstInterference.toExponential(3),
-      gridWorst: 'gridWorst' in r.stats! ? r.stats.gridWorst.toExponential(3) : null,
+      verdict: r.verdict,
+      largestUsable: r.largestUsableTargets,
+      worst: r.objective ? r.objective.worstInterference.toExponential(3) : null,
+      minSignalToNoise: sn.length ? Math.min(...sn).toFixed(1) : null,
+      bound: r.stats?.bound ?? null,
       exact: String(r.exact),
-      nodes: r.stats!.nodesVisited,
-      candidates: `${r.stats!.candidateProbes}×${r.stats!.candidateChannels}`,
+      nodes: r.stats?.nodesVisited ?? null,
     },
   };
 }
 
 /** The suite's rows. */
 export default async function designSuite(): Promise<BenchRow[]> {
-  return [...catalogRows(), freeRow(6), freeRow(8)];
+  return [
+    ...catalogRows(),
+    freeRow(6),
+    freeRow(6, [405, 488]),
+    freeRow(8),
+    freeRow(12),
+    freeRow(12, [405, 488]),
+    freeRow(16),
+  ];
 }
