@@ -9,7 +9,8 @@
 import { SpectraError } from '../core/errors';
 import type { ExcitationLine, ProbeSpec } from '../core/panel';
 import { CatalogSearch } from './catalog';
-import { freeCatalog } from './free-catalog';
+import { bandsOverlap, freeCatalog, type Band } from './free-catalog';
+import type { DesignAssignment } from './objective';
 import { candidateMatrix, rememberingResolver } from './matrix';
 import type { ResolvedDesignOptions } from './options';
 import { freeProbes, refineFreeDesign, type FreeDesign } from './refine';
@@ -39,6 +40,65 @@ export interface FreeOutcome {
     grid: { peakStepNm: number; bandStepNm: number; bandwidthsNm: number[]; windowNm: [number, number] };
     refineMoves: number;
   };
+}
+
+/**
+ * A first feasible design for large panels, which the branch and bound then improves: n passbands of the narrowest
+ * width that read some probe, spread evenly across the window, and for each (bluest first) an unused probe it reads
+ * about as brightly as the dimmest band can read any, the most abundant target taking the dimmest pairing. Null when
+ * that construction leaves a target without a readable probe.
+ */
+export function spreadDesign(
+  bands: readonly Band[],
+  collected: number[][],
+  readable: (c: number, p: number) => boolean,
+  abundance: readonly number[],
+): DesignAssignment | null {
+  const n = abundance.length;
+  const narrowest = Math.min(...bands.map((b) => b.widthNm));
+  const candidates = bands
+    .map((b, c) => ({ b, c }))
+    .filter(({ b, c }) => b.widthNm === narrowest && collected[c].some((_, p) => readable(c, p)))
+    .sort((x, y) => x.b.centerNm - y.b.centerNm);
+  // Evenly spaced picks, skipping any that would overlap the previous pick.
+  const picked: number[] = [];
+  for (let k = 0; k < n; k++) {
+    const want = Math.round((k * (candidates.length - 1)) / Math.max(1, n - 1));
+    const next = candidates.slice(want).find(({ b }) => {
+      const last = picked.length ? bands[picked[picked.length - 1]] : null;
+      return !last || !bandsOverlap(last, b);
+    });
+    if (!next) return null;
+    picked.push(next.c);
+  }
+  // Each band takes the dimmest unused probe it reads at least as brightly as the dimmest band's best can be read,
+  // so that the targets' own signals come out even (the signal floor compares them).
+  const bestOf = (c: number) => Math.max(...collected[c].map((x, p) => (readable(c, p) ? x : 0)));
+  const level = Math.min(...picked.map(bestOf));
+  const used = new Set<number>();
+  const own = picked.map((c) => {
+    let best = -1;
+    collected[c].forEach((x, p) => {
+      if (used.has(p) || !readable(c, p)) return;
+      const better =
+        best < 0 ||
+        (x >= level && (collected[c][best] < level || x < collected[c][best])) ||
+        (x < level && collected[c][best] < level && x > collected[c][best]);
+      if (better) best = p;
+    });
+    if (best >= 0) used.add(best);
+    return { c, p: best, light: best >= 0 ? collected[c][best] : 0 };
+  });
+  if (own.some((x) => x.p < 0)) return null;
+  // The most abundant targets take the dimmest pairings, evening out the targets' own signals.
+  const byAbundance = abundance.map((a, t) => ({ a, t })).sort((x, y) => y.a - x.a);
+  const byLight = [...own].sort((x, y) => x.light - y.light);
+  const design: DesignAssignment = { probe: new Array<number>(n), channel: new Array<number>(n) };
+  byAbundance.forEach(({ t }, k) => {
+    design.probe[t] = byLight[k].p;
+    design.channel[t] = byLight[k].c;
+  });
+  return design;
 }
 
 /** Runs free mode as steps (see search.ts for the drivers). */
@@ -71,13 +131,17 @@ export function* freeDesignSteps(
   const resolve = rememberingResolver();
   const collected = candidateMatrix(catalog.probes, catalog.channels, request.excitation, resolve);
   const dots = catalog.probes.map((p) => resolve(dotInputOf(p), DEFAULT_GRID));
-  const search = new CatalogSearch({
-    collected,
-    abundance,
-    minSignalFraction: o.minSignalFraction,
-    channelConflict: catalog.conflict,
-    pairAllowed: readablePairs(dots, catalog.channels, DEFAULT_GRID, o.minChannelShare),
-  });
+  const pairAllowed = readablePairs(dots, catalog.channels, DEFAULT_GRID, o.minChannelShare);
+  const search = new CatalogSearch(
+    {
+      collected,
+      abundance,
+      minSignalFraction: o.minSignalFraction,
+      channelConflict: catalog.conflict,
+      pairAllowed,
+    },
+    spreadDesign(catalog.bands, collected, pairAllowed, abundance) ?? undefined,
+  );
   const found = yield* searchSteps(search, o.nodeBudget, 500, shouldStop);
   if (!found.design) {
     throw new NoDesignFound(

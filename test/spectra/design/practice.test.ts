@@ -60,6 +60,12 @@ describe('free-mode proposals keep the practice checks', () => {
     expect(result.warnings.some((w) => w.startsWith('cspbbr3 is left out'))).toBe(true);
   });
 
+  it('a 12-target proposal under 405 nm exists and passes every check, whatever its verdict', () => {
+    const result = runDesign({ targets: targets(12), excitation: [{ wavelengthNm: 405 }] });
+    expect(result.panel).not.toBeNull();
+    checkPractice(result.panel!);
+  });
+
   it('asking for carbon dots by name brings them back as candidates', () => {
     const result = runDesign({
       targets: targets(2),
