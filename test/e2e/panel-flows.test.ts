@@ -171,7 +171,8 @@ describe('the panel page', () => {
     await page.goBack();
     await page.getByText('Shared copy (read only)').waitFor();
     expect(new URL(page.url()).pathname).toMatch(/^\/p\//);
-    expect(await titleInput(page).inputValue()).not.toContain('(copy)');
+    // The shared panel is fetched again after Back: wait for it rather than read the title at once.
+    await expect.poll(() => titleInput(page).inputValue()).not.toContain('(copy)');
     await page.goForward();
     await expect.poll(() => titleInput(page).inputValue()).toContain('(copy)');
     expect(await page.getByText('Shared copy (read only)').count()).toBe(0);
