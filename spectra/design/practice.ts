@@ -15,6 +15,7 @@ import type { ChannelSpec, ExcitationLine } from '../core/panel';
 import type { ResolvedDot } from '../dot/resolve';
 import { seriesTransmission } from '../light/light-path';
 import { DEFAULT_MIN_BLOCKING_OD, filtersAtLines } from '../light/line-blocking';
+import { linesOn } from '../signal/crosstalk';
 
 /** Defaults of the practice checks (see the file header for their basis). */
 export const PRACTICE_DEFAULTS = Object.freeze({
@@ -28,19 +29,11 @@ export const PRACTICE_DEFAULTS = Object.freeze({
   maxInterference: 1,
 });
 
-/** The lines a channel is read under (all of them when it names none). */
-function linesOf(channel: ChannelSpec, excitation: readonly ExcitationLine[]): number[] {
-  const wanted = channel.excitationNm;
-  if (wanted === undefined) return excitation.map((_, l) => l);
-  const list = Array.isArray(wanted) ? wanted : [wanted];
-  return excitation.flatMap((line, l) => (list.includes(line.wavelengthNm) ? [l] : []));
-}
-
 /** True when the channel's filters block every line it is read under by at least `minOD`. */
 export function blocksItsLines(channel: ChannelSpec, excitation: readonly ExcitationLine[], minOD: number): boolean {
   if (minOD <= 0) return true;
   const panel = { excitation: [...excitation], probes: [], channels: [channel] };
-  const on = [linesOf(channel, excitation)];
+  const on = [linesOn(channel, [...excitation])];
   const [row] = filtersAtLines(panel, on);
   // A hair of tolerance, as in the evaluation's warning: a filter whose floor is exactly the threshold meets it.
   return on[0].every((l) => !(row[l] > 10 ** -(minOD - 1e-9)));

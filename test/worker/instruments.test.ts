@@ -1,10 +1,9 @@
 // Instrument profiles on the real local runtime and KV: POST/GET /api/v1/instruments, /i/:id, and panels that name
 // an instrument (POST /api/v1/panels/evaluate and POST /api/v1/panels).
 import { spawn } from 'node:child_process';
-import { createServer } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { reverseKeys } from './helpers/panels';
-import { errorOf, freshPersistDir, postJson, ROOT, startWorker, type RunningWorker } from './helpers/worker';
+import { errorOf, freePort, freshPersistDir, postJson, ROOT, startWorker, type RunningWorker } from './helpers/worker';
 
 const persistDir = freshPersistDir();
 let worker: RunningWorker;
@@ -296,18 +295,6 @@ describe('panels that name an instrument', () => {
     expect(await (await worker.call(`/api/v1/panels/${panelId}`)).json()).toStrictEqual(panel);
   });
 });
-
-/** A TCP port that was free a moment ago. */
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.once('error', reject);
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as { port: number };
-      server.close(() => resolve(port));
-    });
-  });
-}
 
 /** Starts `wrangler dev` in its own process group on `port` with local KV under `dir`; resolves once it answers. */
 async function startDev(port: number, dir: string): Promise<number> {

@@ -1,21 +1,8 @@
 // `npm start` (scripts/start.sh): builds, serves on PORT on the real runtime, and stops with its process group.
 import { spawn } from 'node:child_process';
-import { createServer } from 'node:net';
 import { join } from 'node:path';
 import { expect, it } from 'vitest';
-import { ROOT } from './helpers/worker';
-
-/** A TCP port that was free a moment ago (the OS picks it). */
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.once('error', reject);
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as { port: number };
-      server.close(() => resolve(port));
-    });
-  });
-}
+import { freePort, ROOT } from './helpers/worker';
 
 async function healthAt(port: number): Promise<number | null> {
   try {

@@ -2,6 +2,7 @@
  * Starts the worker on the real local Workers runtime (workerd via wrangler's unstable_startWorker) with real local
  * KV persisted to a directory, and serves the built front end from dist/ exactly as `npm start` does.
  */
+import { createServer } from 'node:net';
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -75,4 +76,16 @@ export async function errorOf(
   } catch {
     return null;
   }
+}
+
+/** A TCP port that was free a moment ago (the OS picks it). */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = createServer();
+    server.once('error', reject);
+    server.listen(0, '127.0.0.1', () => {
+      const { port } = server.address() as { port: number };
+      server.close(() => resolve(port));
+    });
+  });
 }
