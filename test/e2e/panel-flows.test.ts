@@ -30,6 +30,9 @@ async function open(url: string): Promise<{ page: Page; problems: string[] }> {
     await d.dismiss();
   });
   page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
+  // A new visitor: nothing kept from earlier flows in this browser (the page restores its last state on a bare /).
+  await page.goto(app.baseUrl + '/api/v1/health');
+  await page.evaluate(() => localStorage.clear());
   await page.goto(url);
   await page.locator('qdp-crosstalk-table p.worst').waitFor();
   return { page, problems };
@@ -313,6 +316,26 @@ describe('the panel page', () => {
       await page.close();
     },
   );
+});
+
+describe('keeping typed work', () => {
+  it('a 5000 nm centre is refused in place and, after a reload of the bare address, is still there', async () => {
+    const { page, problems } = await open(app.baseUrl + '/');
+    const centre = () =>
+      page.locator('qdp-channel-card').nth(3).locator('qdp-number-field[data-field="filters.0.centerNm"] input');
+    await centre().fill('5000');
+    await centre().press('Tab');
+    await page.getByRole('button', { name: 'Add probe' }).click();
+    // The API's own range, as POST /api/v1/panels/evaluate words it.
+    await expect.poll(() => page.locator('p.error').first().innerText()).toContain('must be between 200 and 2000 nm');
+    await page.goto(app.baseUrl + '/');
+    await page.locator('p.notice').getByText('Your last panel in this browser is back').waitFor();
+    expect(await centre().inputValue()).toBe('5000');
+    expect(await page.locator('qdp-probe-card').count()).toBe(7);
+    expect(await page.locator('p.error').first().innerText()).toContain('must be between 200 and 2000 nm');
+    expect(problems).toEqual([]);
+    await page.close();
+  });
 });
 
 describe('instrument profiles in the page', () => {

@@ -10,6 +10,8 @@ type Host = HTMLElement & { updateComplete: Promise<unknown> };
 afterEach(() => {
   document.body.replaceChildren();
   history.replaceState(null, '', location.pathname + location.search);
+  // Each test is a new visitor: the page would restore the last state kept in this browser on a bare address.
+  localStorage.clear();
 });
 
 /** The first element matching `selector` inside `root`'s shadow root. */

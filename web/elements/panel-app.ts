@@ -50,6 +50,26 @@ import './probe-list';
 import './spectrum-chart';
 import type { SpectrumChart } from './spectrum-chart';
 
+/** Where the page keeps the last state (its fragment) in this browser, for a reload of the bare address. */
+const LAST_STATE_KEY = 'qdpanel.lastState';
+
+/** The last state's fragment, or '' when there is none or storage is off. */
+function readLastState(): string {
+  try {
+    return localStorage.getItem(LAST_STATE_KEY) ?? '';
+  } catch {
+    return '';
+  }
+}
+
+function writeLastState(fragment: string): void {
+  try {
+    localStorage.setItem(LAST_STATE_KEY, fragment);
+  } catch {
+    // Storage off or full: the address still holds the state.
+  }
+}
+
 /** Edits closer together than this share one back-button step (ms): typing a number is one step, not five. */
 const HISTORY_STEP_MS = 1000;
 
@@ -132,8 +152,13 @@ export class PanelApp extends LitElement {
    */
   private async restoreFromFragment(): Promise<void> {
     try {
-      const raw = decodeFragment(location.hash);
+      // A bare address opens the last state of this browser, so a reload never loses the work.
+      const last = location.hash ? '' : readLastState();
+      const raw = decodeFragment(location.hash || last);
       if (raw === null) return this.load(demoPanel(), []);
+      if (last) {
+        this.notice = 'Your last panel in this browser is back. "New panel" or "Open the demo panel" starts afresh.';
+      }
       const { readPageState } = await loadChecks();
       const r = readPageState(raw);
       if (!r.ok) throw new Error(`The link's panel is not valid (${r.message}).`);
@@ -317,7 +342,9 @@ export class PanelApp extends LitElement {
   private writeFragment(mode: 'push' | 'replace'): void {
     // A shared copy's /p/<id> opens the stored panel whatever the fragment: an edited panel lives at /.
     const path = SHARED_PATH.test(location.pathname) ? '/' : location.pathname;
-    const url = `${path}#${encodeFragment({ panel: this.panel, view: this.view() })}`;
+    const fragment = encodeFragment({ panel: this.panel, view: this.view() });
+    const url = `${path}#${fragment}`;
+    writeLastState(fragment);
     const now = Date.now();
     if (mode === 'push' && now - this.lastPushMs > HISTORY_STEP_MS) history.pushState(null, '', url);
     else history.replaceState(null, '', url);

@@ -54,18 +54,40 @@ export function readInstrument(raw: unknown): { ok: true; spec: InstrumentSpec }
   return r.success ? { ok: true, spec: r.data } : { ok: false, error: issueToError(r.error.issues[0]) };
 }
 
-/** A page state from a decoded fragment: a valid panel plus known view options (unknown options are dropped). */
-export function readPageState(raw: unknown): { ok: true; state: PageState } | { ok: false; message: string } {
+/**
+ * True for the shape the page's editors can hold: an object whose lines, probes and channels are lists of objects
+ * (the page keeps a panel with a refused value, so that typed work survives a reload; the checks then mark it).
+ */
+function editablePanel(raw: unknown): raw is PanelSpec {
+  const p = raw as Record<string, unknown> | null;
+  const listOfObjects = (x: unknown) => Array.isArray(x) && x.every((i) => typeof i === 'object' && i !== null);
+  return (
+    typeof p === 'object' &&
+    p !== null &&
+    ['excitation', 'probes', 'channels'].every((k) => listOfObjects(p[k])) &&
+    (p.channels as { filters?: unknown }[]).every((c) => listOfObjects(c.filters))
+  );
+}
+
+/**
+ * A page state from a decoded fragment: the panel plus known view options (unknown options are dropped). A panel the
+ * API would refuse is still kept when the editors can hold it (`problem` says why); anything else is refused.
+ */
+export function readPageState(
+  raw: unknown,
+): { ok: true; state: PageState; problem?: string } | { ok: false; message: string } {
   const obj = (raw ?? {}) as {
     panel?: unknown;
     view?: { exclude?: unknown; instrument?: unknown; snapStock?: unknown };
   };
-  const panel = readPanel(obj.panel);
-  if (!panel.ok) return panel;
+  const checked = readPanel(obj.panel);
+  if (!checked.ok && !editablePanel(obj.panel)) return checked;
+  const panel = checked.ok ? checked.panel : (obj.panel as PanelSpec);
+  const problem = checked.ok ? {} : { problem: checked.message };
   const words = obj.view?.exclude;
   const exclude = Array.isArray(words) ? words.filter(isPanelExclusion) : [];
   const instrument = obj.view?.instrument;
   const id = typeof instrument === 'string' && SHARE_ID_PATTERN.test(instrument) ? { instrument } : {};
   const snap = obj.view?.snapStock === true ? { snapStock: true } : {};
-  return { ok: true, state: { panel: panel.panel, view: { exclude, ...id, ...snap } } };
+  return { ok: true, state: { panel, view: { exclude, ...id, ...snap } }, ...problem };
 }
