@@ -11,10 +11,20 @@ import type { ChannelSpec, ExcitationLine, MaterialId, ProbeSpec, WaterRamanSpec
 import { abundanceValue, type AbundanceInput } from './objective';
 import type { DesignOptions } from './options';
 
-/** One target to label: a name and its relative abundance (number > 0 or high / medium / low). */
+/**
+ * What a user already owns for one target: the id of a probe and/or a channel the design must use for it. In catalog
+ * mode the ids name candidates (or `owned` items); in free mode they name `owned` items.
+ */
+export interface DesignLock {
+  probe?: string;
+  channel?: string;
+}
+
+/** One target to label: a name, its relative abundance (number > 0 or high / medium / low), and any lock. */
 export interface DesignTarget {
   name: string;
   abundance: AbundanceInput;
+  lock?: DesignLock;
 }
 
 /** What POST /api/v1/panels/design takes. With `candidates` the search is exact over them (catalog mode). */
@@ -30,6 +40,16 @@ export interface DesignRequest {
   scatterLevel?: number;
   /** The sample's water Raman, as a panel's; joins the noise figures. */
   waterRaman?: WaterRamanSpec;
+  /**
+   * Probes and channels the user already has. They join the candidates (catalog mode) or the generated grid (free
+   * mode), and targets' locks name them; the rest of the panel is designed around them.
+   */
+  owned?: { probes?: ProbeSpec[]; channels?: ChannelSpec[] };
+  /**
+   * Free mode: the channels to choose from instead of stock bandpass sizes, e.g. an instrument profile's channels.
+   * Not with `candidates` (catalog mode has its own channels).
+   */
+  channelChoices?: ChannelSpec[];
 }
 
 /** Default emission window of free mode, nm: our choice, the visible range up to the near-infrared edge of common
