@@ -159,7 +159,8 @@ export function* freeDesignSteps(
   if (probes.length < n || channels.length < n) {
     throw new SpectraError(
       'invalid_input',
-      `the window holds ${probes.length} dots and ${channels.length} ${choices ? 'usable channel choices' : 'passbands on the grid'}; ` +
+      `the window holds ${probes.length} dots and ${channels.length} ` +
+        `${choices ? 'usable channel choices' : 'passbands on the grid'}; ` +
         `${n} targets need ${n} of each`,
       [choices ? 'channelChoices' : 'windowNm'],
     );
