@@ -149,7 +149,7 @@ export function* freeDesignSteps(
   });
   const leftOutChannels = new Map<string, string>();
   const extraChannels = [...(choices ?? []), ...(request.owned?.channels ?? [])].filter((ch) => {
-    const fails = blocksItsLines(ch, request.excitation, o.minBlockingOD);
+    const fails = !blocksItsLines(ch, request.excitation, o.minBlockingOD);
     if (fails) leftOutChannels.set(ch.id, `does not block every line it is read under by OD ${o.minBlockingOD}`);
     return !fails;
   });
