@@ -235,10 +235,19 @@ function* largestUsable(request: DesignRequest, shouldStop?: () => boolean): Gen
   );
   const usable = function* (k: number): Generator<SearchProgress, boolean> {
     const keep = order.slice(0, k).sort((x, y) => x - y);
+    const photons = request.options?.photons;
+    const background = request.options?.backgroundPhotons;
     const sub: DesignRequest = {
       ...request,
       targets: keep.map((i) => request.targets[i]),
-      options: { ...request.options, nodeBudget: budget, refine: false },
+      options: {
+        ...request.options,
+        nodeBudget: budget,
+        refine: false,
+        // Per-target noise settings follow their targets.
+        ...(Array.isArray(photons) ? { photons: keep.map((i) => photons[i]) } : {}),
+        ...(Array.isArray(background) ? { backgroundPhotons: keep.map((i) => background[i]) } : {}),
+      },
     };
     try {
       return (yield* designSteps(sub, shouldStop, false)).verdict === 'usable';

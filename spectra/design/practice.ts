@@ -14,7 +14,7 @@ import type { WavelengthGrid } from '../core/grid';
 import type { ChannelSpec, ExcitationLine } from '../core/panel';
 import type { ResolvedDot } from '../dot/resolve';
 import { seriesTransmission } from '../light/light-path';
-import { DEFAULT_MIN_BLOCKING_OD, filtersAtLines } from '../light/line-blocking';
+import { BLOCKING_OD_TOLERANCE, DEFAULT_MIN_BLOCKING_OD, filtersAtLines } from '../light/line-blocking';
 import { linesOn } from '../signal/crosstalk';
 
 /** Defaults of the practice checks (see the file header for their basis). */
@@ -35,8 +35,8 @@ export function blocksItsLines(channel: ChannelSpec, excitation: readonly Excita
   const panel = { excitation: [...excitation], probes: [], channels: [channel] };
   const on = [linesOn(channel, [...excitation])];
   const [row] = filtersAtLines(panel, on);
-  // A hair of tolerance, as in the evaluation's warning: a filter whose floor is exactly the threshold meets it.
-  return on[0].every((l) => !(row[l] > 10 ** -(minOD - 1e-9)));
+  // The evaluation warning's tolerance: a filter whose floor is the threshold meets it.
+  return on[0].every((l) => !(row[l] > 10 ** -(minOD - BLOCKING_OD_TOLERANCE)));
 }
 
 /** True when an emission peak lies at least `clearanceNm` from every line. */
