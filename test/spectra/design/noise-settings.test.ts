@@ -8,7 +8,7 @@ const bandpass = (id: string, centerNm: number, widthNm: number): ChannelSpec =>
 });
 
 describe('design requests', () => {
-  it('per-target photons and background on a request with no usable panel: the smaller trials keep their targets’ values', () => {
+  it('per-target photons and background with no usable panel: the smaller trials keep their targets’ values', () => {
     const result = runDesign({
       targets: Array.from({ length: 6 }, (_, i) => ({ name: `t${i + 1}`, abundance: i % 2 ? 'low' : 'high' })),
       excitation: [{ wavelengthNm: 405 }],
