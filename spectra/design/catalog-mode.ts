@@ -6,13 +6,18 @@
 import { SpectraError } from '../core/errors';
 import { DEFAULT_GRID } from '../core/grid';
 import { channelTransmission } from '../light/filters/channel';
-import type { ChannelSpec, ExcitationLine, ProbeSpec } from '../core/panel';
-import { CatalogSearch, type CatalogSearchStats } from './catalog';
-import { asCandidate, candidateMatrix, rememberingResolver } from './matrix';
+import type { ChannelSpec, ProbeSpec } from '../core/panel';
+import { asCandidate, candidateMatrix, rememberingResolver, sampleLight } from './matrix';
 import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
 import { dotInputOf } from '../signal/panel-model';
 import type { ResolvedDesignOptions } from './options';
-import { searchSteps, type SearchProgress } from './search';
+import type { SearchProgress } from './search';
+import { snrSearchSteps, type SnrRun } from './snr-run';
+import type { SnrScore } from './snr';
+import { lockIndices } from './locks';
+import { targetsOf, type DesignRequest } from './request';
+import { worstInterference } from './objective';
+import { fullEnumerationSize } from './problem';
 
 /** A channel passes a line when its transmission there is at least this (1 %: our choice, far above any blocking
  * floor). */
@@ -23,8 +28,9 @@ export interface CatalogOutcome {
   probes: ProbeSpec[];
   channels: ChannelSpec[];
   worst: number;
+  score: SnrScore;
   exact: boolean;
-  stats: CatalogSearchStats & {
+  stats: DesignSearchStats & {
     candidateProbes: number;
     candidateChannels: number;
     channelsDropped: string[];
@@ -32,15 +38,47 @@ export interface CatalogOutcome {
   };
 }
 
+/** Search figures both modes report. */
+export interface DesignSearchStats {
+  nodesVisited: number;
+  fullEnumeration: number;
+  /** Lower bound on the worst interference of any design of the candidates (the interference stage; null: none). */
+  bound: number | null;
+  greedyWorst: number | null;
+  /** Proven upper bound on the worst signal-to-noise of any design of the candidates (null: none proven). */
+  signalToNoiseBound: number | null;
+  /** (signalToNoiseBound − found) / signalToNoiseBound: 0 when proven optimal. */
+  gap: number | null;
+}
+
+/** The figures of a finished two-stage search. */
+export function searchStats(run: SnrRun, fullEnumeration: number): DesignSearchStats {
+  return {
+    nodesVisited: run.result.stats.nodesVisited + (run.seed?.stats.nodesVisited ?? 0),
+    fullEnumeration,
+    bound: run.seed?.stats.bound ?? null,
+    greedyWorst: run.seed?.stats.greedyWorst ?? null,
+    signalToNoiseBound: run.result.stats.bound,
+    gap: run.result.stats.gap,
+  };
+}
+
+/** The words of each practice check, for the reasons a locked item is left out. */
+const LEFT_OUT_WORDS = {
+  blocking: (od: number) => `does not block every line it is read under by OD ${od}`,
+  clearance: (nm: number) => `emits within ${nm} nm of an excitation line`,
+};
+
 /** Runs catalog mode as steps (see search.ts for the drivers). */
 export function* catalogDesignSteps(
-  abundance: number[],
-  request: { excitation: ExcitationLine[]; candidates?: { probes: ProbeSpec[]; channels: ChannelSpec[] } },
+  request: Pick<DesignRequest, 'targets' | 'excitation' | 'candidates' | 'owned' | 'scatterLevel' | 'waterRaman'>,
   o: ResolvedDesignOptions,
   shouldStop?: () => boolean,
 ): Generator<SearchProgress, CatalogOutcome> {
+  const { abundance } = targetsOf(request.targets);
   const n = abundance.length;
-  const { probes: offeredProbes, channels: offered } = request.candidates ?? { probes: [], channels: [] };
+  const offeredProbes = [...(request.candidates?.probes ?? []), ...(request.owned?.probes ?? [])];
+  const offered = [...(request.candidates?.channels ?? []), ...(request.owned?.channels ?? [])];
   const dropped: string[] = [];
   const channels = offered.filter((ch, c) => {
     let passes = !blocksItsLines(ch, request.excitation, o.minBlockingOD);
@@ -53,14 +91,6 @@ export function* catalogDesignSteps(
     if (passes) dropped.push(ch.id);
     return !passes;
   });
-  if (channels.length < n) {
-    throw new SpectraError(
-      'invalid_input',
-      `only ${channels.length} candidate channels block every line they are read under by OD ${o.minBlockingOD} ` +
-        `or more (${dropped.join(', ')} do not); ${n} targets need ${n}`,
-      ['candidates', 'channels'],
-    );
-  }
   const resolve = rememberingResolver();
   const dotOf = (p: ProbeSpec, i: number) => {
     try {
@@ -77,6 +107,25 @@ export function* catalogDesignSteps(
     if (!clear) probesDropped.push(p.id);
     return clear;
   });
+  const locks = lockIndices(
+    request.targets,
+    {
+      kept: probes.map((p) => p.id),
+      leftOut: new Map(probesDropped.map((id) => [id, LEFT_OUT_WORDS.clearance(o.lineClearanceNm)])),
+    },
+    {
+      kept: channels.map((c) => c.id),
+      leftOut: new Map(dropped.map((id) => [id, LEFT_OUT_WORDS.blocking(o.minBlockingOD)])),
+    },
+  );
+  if (channels.length < n) {
+    throw new SpectraError(
+      'invalid_input',
+      `only ${channels.length} candidate channels block every line they are read under by OD ${o.minBlockingOD} ` +
+        `or more (${dropped.join(', ')} do not); ${n} targets need ${n}`,
+      ['candidates', 'channels'],
+    );
+  }
   if (probes.length < n) {
     throw new SpectraError(
       'invalid_input',
@@ -91,27 +140,46 @@ export function* catalogDesignSteps(
   });
   const dots = probes.map((p) => dotOf(p, offeredProbes.indexOf(p)));
   const pairAllowed = readablePairs(dots, channels, DEFAULT_GRID, o.minChannelShare);
-  const search = new CatalogSearch({ collected, abundance, minSignalFraction: o.minSignalFraction, pairAllowed });
-  const found = yield* searchSteps(search, o.nodeBudget, 2000, shouldStop);
+  const problem = {
+    collected,
+    abundance,
+    minSignalFraction: o.minSignalFraction,
+    pairAllowed,
+    sample: sampleLight(channels, request.excitation, request, probes[0]),
+    settings: o,
+    ceiling: o.maxInterference,
+    locks,
+  };
+  const run = yield* snrSearchSteps(problem, o.nodeBudget, 2000, [], shouldStop);
+  const found = run.result;
   if (!found.design) {
     throw new NoDesignFound(
-      'no assignment of the candidates gives every target a channel that contains its peak and passes ' +
-        `${Math.round(o.minChannelShare * 100)} % of its light, and meets the signal floor`,
+      `${found.exact ? 'no' : 'within its node budget the search found no'} assignment of the candidates that ` +
+        'gives every target a channel that contains its peak and passes ' +
+        `${Math.round(o.minChannelShare * 100)} % of its light, keeps every interference at or below ` +
+        `${interferenceWords(o.maxInterference)} and meets the signal floor${locks.some(Boolean) ? ' and the locks' : ''}`,
       ['candidates'],
       found.exact,
     );
   }
+  const design = found.design;
   return {
-    probes: found.design.probe.map((p) => asCandidate(probes[p])),
-    channels: found.design.channel.map((c) => channels[c]),
-    worst: found.objective!.worstInterference,
+    probes: design.probe.map((p) => asCandidate(probes[p])),
+    channels: design.channel.map((c) => channels[c]),
+    worst: worstInterference(collected, abundance, design).worstInterference,
+    score: found.score!,
     exact: found.exact,
     stats: {
-      ...found.stats,
+      ...searchStats(run, fullEnumerationSize(n, probes.length, channels.length)),
       candidateProbes: probes.length,
       candidateChannels: offered.length,
       channelsDropped: dropped,
       probesDropped,
     },
   };
+}
+
+/** An interference ceiling in words: "100 %". */
+export function interferenceWords(ceiling: number): string {
+  return `${Number((ceiling * 100).toPrecision(3))} %`;
 }

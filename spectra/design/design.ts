@@ -8,7 +8,6 @@ import { evaluatePanel, type PanelEvaluation } from '../signal/evaluate';
 import type { NoisePrediction } from '../signal/noise';
 import { catalogDesignSteps, type CatalogOutcome } from './catalog-mode';
 import { freeDesignSteps, type FreeOutcome } from './free';
-import { bandChannel } from './free-catalog';
 import { designNoise } from './design-noise';
 import { worstInterference } from './objective';
 import { resolveOptions } from './options';
@@ -19,13 +18,23 @@ import { runSteps, runStepsAsync, type SearchProgress } from './search';
 import { SpectraError } from '../core/errors';
 import { NoDesignFound, verdictOf, type DesignVerdict } from './practice';
 
-/** The design objective as the API reports it: probe ids and target names of the pair that sets it. */
+/**
+ * The design objective as the API reports it. The search maximises worstSignalToNoise (the weakest target's predicted
+ * signal-to-noise after unmixing, on one photon scale) with every interference at most interferenceCeiling, ties
+ * broken by the smaller totalSpreading; `statement` says so in words with the figures. The worst interference and
+ * its pair (probe ids, target names) are reported beside it.
+ */
 export interface DesignObjectiveReport {
   worstInterference: number;
   from: string | null;
   into: string | null;
   fromTarget: string | null;
   intoTarget: string | null;
+  worstSignalToNoise: number;
+  weakestTarget: string;
+  totalSpreading: number;
+  interferenceCeiling: number;
+  statement: string;
 }
 
 /**
@@ -56,6 +65,23 @@ export interface DesignResult {
   warnings: string[];
 }
 
+/** The objective in words, with the figures of the proposal. */
+export function objectiveStatement(
+  worstSignalToNoise: number,
+  weakestTarget: string,
+  totalSpreading: number,
+  worstInterference: number,
+  ceiling: number,
+): string {
+  const pct = (x: number) => `${Number((x * 100).toPrecision(3))} %`;
+  return (
+    `maximise the weakest target's predicted signal-to-noise after unmixing (one photon scale for every probe), ` +
+    `keeping every interference at or below ${pct(ceiling)}, ties broken by the smaller total spillover spreading: ` +
+    `here ${worstSignalToNoise.toPrecision(3)} for '${weakestTarget}', worst interference ` +
+    `${pct(worstInterference)}, total spreading ${totalSpreading.toPrecision(3)}`
+  );
+}
+
 /** Hooks of a running design: progress reports and a stop check (between search chunks). */
 export interface DesignHooks {
   onProgress?: (progress: SearchProgress) => void;
@@ -71,6 +97,13 @@ export function* designSteps(
   const { names, abundance } = targetsOf(request.targets);
   const free = request.candidates === undefined;
   const o = resolveOptions(request.options, free);
+  if (!free && request.channelChoices) {
+    throw new SpectraError(
+      'invalid_input',
+      'channel choices are for free mode; in catalog mode list the channels among the candidates',
+      ['channelChoices'],
+    );
+  }
   let probes: ProbeSpec[];
   let channels: ChannelSpec[];
   let worst: number;
@@ -79,13 +112,11 @@ export function* designSteps(
   try {
     if (free) {
       const windowNm = normalizeWindow(request.windowNm);
-      const out = yield* freeDesignSteps(abundance, request, windowNm, o, shouldStop);
-      probes = out.probes;
-      channels = out.design.bands.map((b, t) => bandChannel(`c${t + 1}`, b, o.edgeWidthNm));
-      ({ worst, exact } = out);
+      const out = yield* freeDesignSteps(request, windowNm, o, shouldStop);
+      ({ probes, channels, worst, exact } = out);
       stats = { ...out.stats };
     } else {
-      const out = yield* catalogDesignSteps(abundance, request, o, shouldStop);
+      const out = yield* catalogDesignSteps(request, o, shouldStop);
       ({ probes, channels, worst, exact } = out);
       stats = { ...out.stats };
     }
@@ -129,14 +160,27 @@ export function* designSteps(
     names.map(() => 1),
     { probe: identity, channel: identity },
   );
-  const objective: DesignObjectiveReport = {
+  const objective = {
     worstInterference: worst,
     from: pair.from >= 0 ? panel.probes[pair.from].id : null,
     into: pair.into >= 0 ? panel.probes[pair.into].id : null,
     fromTarget: pair.from >= 0 ? names[pair.from] : null,
     intoTarget: pair.into >= 0 ? names[pair.into] : null,
-  };
+  } as DesignObjectiveReport;
   const noise = designNoise(evaluation, abundance, o);
+  const snr = noise.signalToNoise.map((x) => x ?? 0);
+  const weakest = snr.indexOf(Math.min(...snr));
+  const spreading = noise.spreading.reduce(
+    (sum, row, i) => sum + row.reduce<number>((s2, x, j) => (i === j || x === null ? s2 : s2 + x), 0),
+    0,
+  );
+  Object.assign(objective, {
+    worstSignalToNoise: snr[weakest],
+    weakestTarget: names[weakest],
+    totalSpreading: spreading,
+    interferenceCeiling: o.maxInterference,
+    statement: objectiveStatement(snr[weakest], names[weakest], spreading, worst, o.maxInterference),
+  });
   const warnings = [...noise.warnings, ...(free ? defaultLeftOut(request) : [])];
   for (const id of new Set(panel.probes.map((p) => p.material))) {
     const m = getMaterial(id);

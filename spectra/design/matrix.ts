@@ -9,6 +9,7 @@ import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
 import { modelPanel, type DotResolver } from '../signal/panel-model';
 import { resolveDot, type ResolvedDot } from '../dot/resolve';
 import { collectedMatrix } from '../signal/crosstalk';
+import { evaluatePanel } from '../signal/evaluate';
 import type { ChannelSpec, ExcitationLine, PanelSpec, ProbeSpec } from '../core/panel';
 
 const PROBES_PER_BLOCK = 16;
@@ -73,6 +74,40 @@ export function candidateMatrix(
       }
       block.forEach((row, c) => row.forEach((x, p) => (out[c0 + c][p0 + p] = x)));
     }
+  }
+  return out;
+}
+
+/** The sample's own light a design request states: scattered excitation and water Raman, as a panel's. */
+export interface SampleLight {
+  scatterLevel?: number;
+  waterRaman?: PanelSpec['waterRaman'];
+}
+
+/**
+ * The sample's light each candidate channel collects, in the units of the candidate matrix: the excitation leak
+ * (Σ over lines of lineLeak) plus water Raman (backgroundCollected), computed by evaluatePanel on blocks of the
+ * channels with one probe (`probe`; the sample's light does not depend on it), so that it is what the proposal's
+ * evaluation will report.
+ */
+export function sampleLight(
+  channels: ChannelSpec[],
+  excitation: ExcitationLine[],
+  sample: SampleLight,
+  probe: ProbeSpec,
+): number[] {
+  const out: number[] = [];
+  for (let c0 = 0; c0 < channels.length; c0 += CHANNELS_PER_BLOCK) {
+    const panel: PanelSpec = {
+      version: 1,
+      excitation,
+      probes: [asCandidate(probe)],
+      channels: channels.slice(c0, c0 + CHANNELS_PER_BLOCK),
+      ...(sample.scatterLevel !== undefined ? { scatterLevel: sample.scatterLevel } : {}),
+      ...(sample.waterRaman !== undefined ? { waterRaman: { ...sample.waterRaman } } : {}),
+    };
+    const e = evaluatePanel(panel, { sensitivity: false });
+    e.lineLeak.forEach((row, c) => out.push((e.backgroundCollected?.[c] ?? 0) + row.reduce((a, x) => a + x, 0)));
   }
   return out;
 }

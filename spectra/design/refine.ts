@@ -1,15 +1,17 @@
 /**
  * Local refinement of a free-mode design: pattern search by coordinates (each target's emission peak moved by ±4,
  * then ±2, then ±1 nm; its passband moved to the neighbouring stock centre or stock width), keeping a move only when
- * it lowers the worst interference and keeps every rule: peaks within the material's reach and the window and clear
+ * it raises the design's score (its worst signal-to-noise, then less spreading: snr.ts) and keeps every rule: peaks within the material's reach and the window and clear
  * of the lines, stock filter sizes within the width range, bands inside the window, non-overlapping, blocking every
  * line by the required OD, each probe's channel containing its peak and passing its share of its light, the signal
  * floor.
  */
 import type { Material } from '../dot/materials/types';
-import type { ExcitationLine, MaterialId, ProbeSpec } from '../core/panel';
+import type { ExcitationLine, MaterialId, PanelSpec, ProbeSpec } from '../core/panel';
 import { bandChannel, bandPassesLine, bandsOverlap, type Band } from './free-catalog';
-import { candidateMatrix } from './matrix';
+import { candidateMatrix, type SampleLight } from './matrix';
+import { evaluatePanel } from '../signal/evaluate';
+import { betterScore, scoreDesign, type SnrScore } from './snr';
 import { worstInterference } from './objective';
 import type { ResolvedDesignOptions } from './options';
 import type { SearchProgress } from './search';
@@ -35,6 +37,8 @@ export interface RefineContext {
   options: ResolvedDesignOptions;
   /** Where the refinement gets its dots (remembered for the run). */
   resolve: DotResolver;
+  /** The sample's own light (scatter, water Raman), as the request states it. */
+  sample: SampleLight;
 }
 
 /** Probe specs of a free design (ids p1…pn). */
@@ -61,32 +65,74 @@ export function freeDesignAllowed(d: FreeDesign, ctx: RefineContext): boolean {
   });
 }
 
-/** Worst interference of a free design (probe t read in band t), Infinity when it breaks a rule or the floor. */
-export function freeObjective(d: FreeDesign, ctx: RefineContext): number {
-  if (!freeDesignAllowed(d, ctx)) return Infinity;
+/** The design as a panel: probe t carries target t's abundance and reads channel t (as the proposal will). */
+function designPanel(d: FreeDesign, ctx: RefineContext): PanelSpec {
   const channels = d.bands.map((b, t) => bandChannel(`c${t + 1}`, b, ctx.options.edgeWidthNm));
-  const probes = freeProbes(d, ctx.materials);
-  const m = candidateMatrix(probes, channels, ctx.excitation, ctx.resolve);
-  const dots = probes.map((p) => ctx.resolve(dotInputOf(p), DEFAULT_GRID));
-  const readable = readablePairs(dots, channels, DEFAULT_GRID, ctx.options.minChannelShare);
-  if (!dots.every((_, t) => readable(t, t))) return Infinity;
-  const own = ctx.abundance.map((a, t) => a * m[t][t]);
-  if (!own.every((s) => s > 0) || Math.min(...own) < ctx.options.minSignalFraction * Math.max(...own)) return Infinity;
+  return {
+    version: 1,
+    excitation: ctx.excitation,
+    probes: freeProbes(d, ctx.materials).map((p, t) => ({
+      ...p,
+      abundance: ctx.abundance[t],
+      channel: channels[t].id,
+    })),
+    channels,
+    ...(ctx.sample.scatterLevel !== undefined ? { scatterLevel: ctx.sample.scatterLevel } : {}),
+    ...(ctx.sample.waterRaman !== undefined ? { waterRaman: { ...ctx.sample.waterRaman } } : {}),
+  };
+}
+
+/** Worst interference of a free design (probe t read in band t). */
+export function freeInterference(d: FreeDesign, ctx: Omit<RefineContext, 'windowNm' | 'sample'>): number {
+  const channels = d.bands.map((b, t) => bandChannel(`c${t + 1}`, b, ctx.options.edgeWidthNm));
+  const m = candidateMatrix(freeProbes(d, ctx.materials), channels, ctx.excitation, ctx.resolve);
   const identity = ctx.abundance.map((_, t) => t);
   return worstInterference(m, ctx.abundance, { probe: identity, channel: identity }).worstInterference;
 }
 
-/** Pattern search from `start`; yields progress after each pass and returns the refined design and its objective. */
+/**
+ * The signal-to-noise score of a free design (snr.ts, from its own evaluation), or null when it breaks a rule, the
+ * signal floor or the interference ceiling.
+ */
+export function freeScore(d: FreeDesign, ctx: RefineContext): SnrScore | null {
+  if (!freeDesignAllowed(d, ctx)) return null;
+  const panel = designPanel(d, ctx);
+  const dots = panel.probes.map((p) => ctx.resolve(dotInputOf(p), DEFAULT_GRID));
+  const readable = readablePairs(dots, panel.channels, DEFAULT_GRID, ctx.options.minChannelShare);
+  if (!dots.every((_, t) => readable(t, t))) return null;
+  const e = evaluatePanel(panel, { sensitivity: false });
+  const n = ctx.abundance.length;
+  const own = e.collected.map((row, t) => row[t]);
+  if (!own.every((s) => s > 0) || Math.min(...own) < ctx.options.minSignalFraction * Math.max(...own)) return null;
+  const ones = ctx.abundance.map(() => 1);
+  const identity = ctx.abundance.map((_, t) => t);
+  if (
+    worstInterference(e.collected, ones, { probe: identity, channel: identity }).worstInterference >
+    ctx.options.maxInterference
+  )
+    return null;
+  const light = new Float64Array(n * n);
+  e.collected.forEach((row, c) => row.forEach((x, p) => (light[c * n + p] = x / ctx.abundance[p])));
+  const sample = e.lineLeak.map((row, c) => (e.backgroundCollected?.[c] ?? 0) + row.reduce((a, x) => a + x, 0));
+  const problem = { probes: n, channels: n, light, sample, abundance: ctx.abundance, settings: ctx.options };
+  return scoreDesign(problem, identity, identity);
+}
+
+/**
+ * Pattern search from `start` (whose score is `startScore`); yields progress after each pass and returns the refined
+ * design and its score.
+ */
 export function* refineFreeDesign(
   start: FreeDesign,
+  startScore: SnrScore,
   ctx: RefineContext,
-): Generator<SearchProgress, { design: FreeDesign; worst: number; moves: number }> {
+): Generator<SearchProgress, { design: FreeDesign; score: SnrScore; moves: number }> {
   let design = {
     materials: [...start.materials],
     peaksNm: [...start.peaksNm],
     bands: start.bands.map((b) => ({ ...b })),
   };
-  let worst = freeObjective(design, ctx);
+  let best = startScore;
   let moves = 0;
   let evaluations = 0;
   const MAX_EVALUATIONS = 4000; // bounds the refinement's cost (each evaluation resolves n dots and n filters)
@@ -118,10 +164,10 @@ export function* refineFreeDesign(
             next.bands[t].widthNm = widths[k];
           }
           evaluations++;
-          const score = freeObjective(next, ctx);
-          if (score < worst) {
+          const score = freeScore(next, ctx);
+          if (score && score.worst > 0 && betterScore(score, best)) {
             design = next;
-            worst = score;
+            best = score;
             moves++;
             improved = true;
           }
@@ -130,10 +176,11 @@ export function* refineFreeDesign(
       yield {
         stage: 'refine',
         nodesVisited: evaluations,
-        incumbent: Number.isFinite(worst) ? worst : null,
+        incumbent: best.worst,
         bound: null,
+        measure: 'signalToNoise',
       };
     }
   }
-  return { design, worst, moves };
+  return { design, score: best, moves };
 }

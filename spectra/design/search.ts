@@ -11,10 +11,15 @@ import type { DesignAssignment } from './objective';
 export interface SearchProgress {
   stage: 'candidates' | 'search' | 'refine' | 'done';
   nodesVisited: number;
-  /** Worst interference of the best design so far (null: none yet). */
+  /**
+   * The best design so far (null: none yet): its worst interference while `measure` is 'interference' (the seed
+   * search and the refinement of an interference objective), its worst signal-to-noise when 'signalToNoise'.
+   */
   incumbent: number | null;
-  /** Proven lower bound on the optimum so far (null: none yet). */
+  /** Proven bound on the optimum so far (null: none yet): lower for interference, upper for signal-to-noise. */
   bound: number | null;
+  /** What incumbent and bound measure (absent: interference). */
+  measure?: 'interference' | 'signalToNoise';
 }
 
 /** Budget, progress and stop hooks shared by the drivers. */

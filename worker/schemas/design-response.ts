@@ -6,7 +6,11 @@ import { Panel } from './panel';
 
 const nullableNumber = z.number().nullable();
 
-/** The pair that sets the design objective: probe ids and target names (null when no pair exists). */
+/**
+ * The design objective: the weakest target's signal-to-noise (maximised), the interference ceiling it was kept under,
+ * the spreading that breaks ties, a sentence saying so, and the worst interference with its pair (probe ids, target
+ * names; null when no pair exists).
+ */
 export const DesignObjectiveJson = z.strictObject({
   // A number from the search; null only if it had no finite value (a target with no own signal).
   worstInterference: nullableNumber,
@@ -14,6 +18,11 @@ export const DesignObjectiveJson = z.strictObject({
   into: z.string().nullable(),
   fromTarget: z.string().nullable(),
   intoTarget: z.string().nullable(),
+  worstSignalToNoise: z.number(),
+  weakestTarget: z.string(),
+  totalSpreading: nullableNumber,
+  interferenceCeiling: z.number(),
+  statement: z.string(),
 });
 
 const searchStats = {
@@ -21,6 +30,8 @@ const searchStats = {
   fullEnumeration: z.number(),
   bound: nullableNumber,
   greedyWorst: nullableNumber,
+  signalToNoiseBound: nullableNumber,
+  gap: nullableNumber,
   candidateProbes: z.number(),
   candidateChannels: z.number(),
 };
@@ -36,6 +47,7 @@ export const CatalogStatsJson = z.strictObject({
 export const FreeStatsJson = z.strictObject({
   ...searchStats,
   gridWorst: z.number(),
+  gridSignalToNoise: z.number(),
   grid: z.strictObject({
     peakStepNm: z.number(),
     bandStepNm: z.number(),

@@ -60,10 +60,23 @@ describe('free-mode proposals keep the practice checks', () => {
     expect(result.warnings.some((w) => w.startsWith('cspbbr3 is left out'))).toBe(true);
   });
 
-  it('a 12-target proposal under 405 nm exists and passes every check, whatever its verdict', () => {
-    const result = runDesign({ targets: targets(12), excitation: [{ wavelengthNm: 405 }] });
+  it('a 12-target proposal under 405 nm (abundances high, medium, low in turn) exists and passes every check', () => {
+    const words = ['high', 'medium', 'low'] as const;
+    const result = runDesign({
+      targets: Array.from({ length: 12 }, (_, i) => ({ name: `target ${i + 1}`, abundance: words[i % 3] })),
+      excitation: [{ wavelengthNm: 405 }],
+    });
     expect(result.panel).not.toBeNull();
     checkPractice(result.panel!);
+  });
+
+  it('12 targets, eight of them high, under 405 nm: no design within the 100 % ceiling, so no_usable_panel, why, and the largest usable count', () => {
+    const result = runDesign({ targets: targets(12), excitation: [{ wavelengthNm: 405 }] });
+    expect(result.verdict).toBe('no_usable_panel');
+    expect(result.panel).toBeNull();
+    expect(result.verdictReason).toMatch(/interference at or below 100 %/);
+    expect(result.largestUsableTargets).toBeGreaterThanOrEqual(5);
+    expect(result.largestUsableTargets).toBeLessThan(12);
   });
 
   it('asking for carbon dots by name brings them back as candidates', () => {

@@ -1,0 +1,71 @@
+/**
+ * The search of both design modes on the signal-to-noise objective, in two stages over one candidate problem:
+ *  1. the exact min–max interference search (catalog.ts) with a quarter of the node budget, whose design, when it
+ *     keeps the interference ceiling and the locks, is the first incumbent (a good start prunes far more);
+ *  2. the branch and bound on the S/N objective (snr-search.ts) with the rest of the budget, and, when that stops
+ *     unproven, local moves and swaps from its best design.
+ * `exact` is stage 2's: no design of the candidates has a better worst S/N.
+ */
+import { CatalogSearch, type CatalogResult } from './catalog';
+import type { DesignAssignment } from './objective';
+import { searchSteps, type SearchProgress } from './search';
+import { SnrSearch, type SnrSearchProblem, type SnrSearchResult } from './snr-search';
+
+/** Both stages' outcomes. */
+export interface SnrRun {
+  result: SnrSearchResult;
+  /** The interference stage (null when locks skip it). */
+  seed: CatalogResult | null;
+}
+
+/**
+ * Most designs the local improvement after an unproven search may score (each costs about one n × n inverse; our
+ * choice, a fraction of a second for 16 targets).
+ */
+const POLISH_EVALUATIONS = 20_000;
+
+/** Share of the node budget the interference stage may use. */
+const SEED_SHARE = 0.25;
+
+/** Runs both stages as steps within `nodeBudget` nodes in all; `starts` are extra first designs (e.g. spread ones). */
+export function* snrSearchSteps(
+  problem: SnrSearchProblem,
+  nodeBudget: number,
+  chunk: number,
+  starts: readonly DesignAssignment[],
+  shouldStop?: () => boolean,
+): Generator<SearchProgress, SnrRun> {
+  const locked = (problem.locks ?? []).some((l) => (l?.probe ?? -1) >= 0 || (l?.channel ?? -1) >= 0);
+  let seed: CatalogResult | null = null;
+  const firsts = [...starts];
+  if (!locked) {
+    const stage1 = new CatalogSearch(problem, starts[0]);
+    const budget = Math.max(1, Math.floor(nodeBudget * SEED_SHARE));
+    seed = yield* searchSteps(stage1, budget, chunk, shouldStop);
+    if (seed.design) firsts.unshift(seed.design);
+  }
+  const search = new SnrSearch(problem, firsts);
+  const budget = Math.max(1, nodeBudget - (seed?.stats.nodesVisited ?? 0));
+  while (!search.done && search.nodesVisited < budget && !shouldStop?.()) {
+    search.advance(Math.min(chunk, budget - search.nodesVisited));
+    const bound = search.upperBound();
+    yield {
+      stage: search.done ? 'done' : 'search',
+      nodesVisited: search.nodesVisited + (seed?.stats.nodesVisited ?? 0),
+      incumbent: search.incumbentWorst,
+      bound: search.incumbentWorst === null ? null : bound,
+      measure: 'signalToNoise',
+    };
+  }
+  if (!search.done && !shouldStop?.()) {
+    search.polish(POLISH_EVALUATIONS);
+    yield {
+      stage: 'search',
+      nodesVisited: search.nodesVisited + (seed?.stats.nodesVisited ?? 0),
+      incumbent: search.incumbentWorst,
+      bound: search.incumbentWorst === null ? null : search.upperBound(),
+      measure: 'signalToNoise',
+    };
+  }
+  return { result: search.result(), seed };
+}
