@@ -97,6 +97,8 @@ function catalogRows(): BenchRow[] {
         nodes: last.stats?.nodesVisited ?? null,
         exact: String(last.exact),
         worst: last.objective ? last.objective.worstInterference.toExponential(3) : null,
+        worstSignalToNoise: last.objective ? last.objective.worstSignalToNoise.toFixed(2) : null,
+        gap: last.stats?.gap ?? null,
       },
     },
   ];
@@ -119,7 +121,8 @@ function freeRow(targets: number, linesNm: number[] = [405]): BenchRow {
       largestUsable: r.largestUsableTargets,
       worst: r.objective ? r.objective.worstInterference.toExponential(3) : null,
       minSignalToNoise: sn.length ? Math.min(...sn).toFixed(1) : null,
-      bound: r.stats?.bound ?? null,
+      signalToNoiseBound: r.stats?.signalToNoiseBound?.toFixed(1) ?? null,
+      gap: r.stats?.gap?.toFixed(3) ?? null,
       exact: String(r.exact),
       nodes: r.stats?.nodesVisited ?? null,
     },

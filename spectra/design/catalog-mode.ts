@@ -157,7 +157,8 @@ export function* catalogDesignSteps(
       `${found.exact ? 'no' : 'within its node budget the search found no'} assignment of the candidates that ` +
         'gives every target a channel that contains its peak and passes ' +
         `${Math.round(o.minChannelShare * 100)} % of its light, keeps every interference at or below ` +
-        `${interferenceWords(o.maxInterference)} and meets the signal floor${locks.some(Boolean) ? ' and the locks' : ''}`,
+        `${interferenceWords(o.maxInterference)} and meets the signal floor` +
+        (locks.some(Boolean) ? ' and the locks' : ''),
       ['candidates'],
       found.exact,
     );

@@ -96,7 +96,7 @@ export function* designSteps(
 ): Generator<SearchProgress, DesignResult> {
   const { names, abundance } = targetsOf(request.targets);
   const free = request.candidates === undefined;
-  const o = resolveOptions(request.options, free);
+  const o = resolveOptions(request.options, free, request.targets.length);
   if (!free && request.channelChoices) {
     throw new SpectraError(
       'invalid_input',
@@ -229,7 +229,10 @@ function* largestUsable(request: DesignRequest, shouldStop?: () => boolean): Gen
     .map((t, i) => ({ i, a: targetsOf([t]).abundance[0] }))
     .sort((x, y) => y.a - x.a || x.i - y.i)
     .map((x) => x.i);
-  const budget = Math.max(1, Math.floor(resolveOptions(request.options, !request.candidates).nodeBudget / 4));
+  const budget = Math.max(
+    1,
+    Math.floor(resolveOptions(request.options, !request.candidates, request.targets.length).nodeBudget / 4),
+  );
   const usable = function* (k: number): Generator<SearchProgress, boolean> {
     const keep = order.slice(0, k).sort((x, y) => x - y);
     const sub: DesignRequest = {

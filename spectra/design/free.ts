@@ -149,7 +149,7 @@ export function* freeDesignSteps(
   });
   const leftOutChannels = new Map<string, string>();
   const extraChannels = [...(choices ?? []), ...(request.owned?.channels ?? [])].filter((ch) => {
-    const fails = blocksItsLines(ch, request.excitation, o.minBlockingOD);
+    const fails = !blocksItsLines(ch, request.excitation, o.minBlockingOD);
     if (fails) leftOutChannels.set(ch.id, `does not block every line it is read under by OD ${o.minBlockingOD}`);
     return !fails;
   });
@@ -159,7 +159,8 @@ export function* freeDesignSteps(
   if (probes.length < n || channels.length < n) {
     throw new SpectraError(
       'invalid_input',
-      `the window holds ${probes.length} dots and ${channels.length} ${choices ? 'usable channel choices' : 'passbands on the grid'}; ` +
+      `the window holds ${probes.length} dots and ${channels.length} ` +
+        `${choices ? 'usable channel choices' : 'passbands on the grid'}; ` +
         `${n} targets need ${n} of each`,
       [choices ? 'channelChoices' : 'windowNm'],
     );

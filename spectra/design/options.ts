@@ -9,7 +9,7 @@ import { PRACTICE_DEFAULTS } from './practice';
 /** Options of POST /api/v1/panels/design (every field optional). */
 export interface DesignOptions {
   /** Most search nodes before the best found is returned with exact: false (default DEFAULT_NODE_BUDGET; free mode
-   * DEFAULT_FREE_NODE_BUDGET). */
+   * DEFAULT_FREE_NODE_BUDGET, or DEFAULT_FREE_NODE_BUDGET_LARGE above 8 targets). */
   nodeBudget?: number;
   /**
    * Signal floor as a fraction of the brightest target's own signal (free mode default 0.05; catalog: off unless set).
@@ -57,10 +57,14 @@ export type ResolvedDesignOptions = Required<Omit<DesignOptions, 'minSignalFract
 
 /**
  * Default node budget of free mode. Its grid catalog is large (about 140 dots × 110 bands for a 400 nm window), so
- * one node costs far more than in catalog mode; 5,000 nodes keep a 6-plex near a second in Node
+ * one node costs far more than in catalog mode; 5,000 nodes keep a 6- or 8-plex near a second in Node, and panels of
+ * more than 8 targets get 20,000, which a 12-plex under 405 nm needs to find a design within the interference ceiling
  * (bench/suites/design.ts).
  */
 export const DEFAULT_FREE_NODE_BUDGET = 5_000;
+
+/** Free mode's default node budget for panels of more than 8 targets (see DEFAULT_FREE_NODE_BUDGET). */
+export const DEFAULT_FREE_NODE_BUDGET_LARGE = 20_000;
 
 /**
  * The defaults of the search and noise options other than the node budget and the signal floor (which depend on the
@@ -81,11 +85,15 @@ export const DESIGN_DEFAULTS = Object.freeze({
   excessNoiseFactor: 1,
 });
 
-/** Fills in the defaults; `free` selects the free-mode node budget and signal floor. The API's schema checks ranges. */
-export function resolveOptions(options: DesignOptions = {}, free: boolean): ResolvedDesignOptions {
+/**
+ * Fills in the defaults; `free` selects the free-mode node budget (by the number of `targets`) and signal floor. The
+ * API's schema checks ranges.
+ */
+export function resolveOptions(options: DesignOptions = {}, free: boolean, targets = 0): ResolvedDesignOptions {
+  const freeBudget = targets > 8 ? DEFAULT_FREE_NODE_BUDGET_LARGE : DEFAULT_FREE_NODE_BUDGET;
   const d = DESIGN_DEFAULTS;
   return {
-    nodeBudget: options.nodeBudget ?? (free ? DEFAULT_FREE_NODE_BUDGET : DEFAULT_NODE_BUDGET),
+    nodeBudget: options.nodeBudget ?? (free ? freeBudget : DEFAULT_NODE_BUDGET),
     minSignalFraction: options.minSignalFraction ?? (free ? DEFAULT_MIN_SIGNAL_FRACTION : 0),
     lineClearance: options.lineClearance ?? d.lineClearance,
     peakStepNm: options.peakStepNm ?? d.peakStepNm,

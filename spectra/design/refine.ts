@@ -1,10 +1,10 @@
 /**
  * Local refinement of a free-mode design: pattern search by coordinates (each target's emission peak moved by ±4,
  * then ±2, then ±1 nm; its passband moved to the neighbouring stock centre or stock width), keeping a move only when
- * it raises the design's score (its worst signal-to-noise, then less spreading: snr.ts) and keeps every rule: peaks within the material's reach and the window and clear
- * of the lines, stock filter sizes within the width range, bands inside the window, non-overlapping, blocking every
- * line by the required OD, each probe's channel containing its peak and passing its share of its light, the signal
- * floor.
+ * it raises the design's score (its worst signal-to-noise, then less spreading: snr.ts) and keeps every rule: peaks
+ * within the material's reach and the window and clear of the lines, stock filter sizes within the width range,
+ * bands inside the window, non-overlapping, blocking every line by the required OD, each probe's channel containing
+ * its peak and passing its share of its light, the signal floor, the interference ceiling.
  */
 import type { Material } from '../dot/materials/types';
 import type { ExcitationLine, MaterialId, PanelSpec, ProbeSpec } from '../core/panel';

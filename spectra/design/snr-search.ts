@@ -13,7 +13,8 @@
  * x_i the photons of u in channel i, because the least-squares estimate of a square system attains the bound with
  * every other probe unknown, knowing them can only lower it, and v_i is at least F·(x_i + the light of the probes
  * already placed + the sample in u's own channel) + r². The n − 1 other channels of the design are bounded by the
- * n − 1 most informative candidates that can join it, each holding at least another target's own signal. With a shared photon scale, k ≤ P / max(u's own light, the brightest placed),
+ * n − 1 most informative candidates that can join it, each holding at least another target's own signal. With a
+ * shared photon scale, k ≤ P / max(u's own light, the brightest placed),
  * and the bound's terms only grow with k. Targets of equal abundance without locks are interchangeable (when the
  * noise settings are one number each), so only increasing values are searched among them.
  */

@@ -48,7 +48,12 @@ function excitationLines(text: string): { wavelengthNm: number }[] {
 /** How far the search has got, after its status word: nodes or refinement steps, and the best value so far. */
 function progressText(progress: SearchProgress): string {
   const steps = progress.stage === 'refine' ? 'refinement steps' : 'nodes visited';
-  const best = progress.incumbent !== null ? ` · best so far ${percent(progress.incumbent)}` : '';
+  const best =
+    progress.incumbent === null
+      ? ''
+      : progress.measure === 'signalToNoise'
+        ? ` · weakest target's signal-to-noise so far ${progress.incumbent.toPrecision(3)}`
+        : ` · worst interference so far ${percent(progress.incumbent)}`;
   return ` · ${progress.nodesVisited.toLocaleString('en')} ${steps}${best}`;
 }
 

@@ -1,7 +1,8 @@
 /**
  * <qdp-proposal-summary>: a finished design shown beside the panel being edited, without loading it: each target with
- * its proposed probe and channel, the objective (worst interference, which target into which, proven optimal or best
- * found with its bound), the predicted unmixing noise and the answer's warnings. Its two buttons fire
+ * its proposed probe and channel, the objective (the weakest target's signal-to-noise, proven optimal or best found
+ * with the proven ceiling and gap; the worst interference and the limit it was kept under), the predicted unmixing
+ * noise and the answer's warnings. Its two buttons fire
  * `proposal-load` and `proposal-discard` (not bubbling); the design form decides what follows.
  */
 import { LitElement, css, html } from 'lit';
@@ -54,11 +55,20 @@ function channelText(panel: PanelSpec, probe: ProbeSpec): string {
   return `${describeChannel(channel)}${lines}`;
 }
 
-/** Whether the answer is proven optimal or the best found, with the search's bound when it gives one. */
+/**
+ * Whether the answer is proven optimal or the best found, with the proven ceiling on the weakest target's
+ * signal-to-noise and how far below it the answer may be.
+ */
 function proofText(r: DesignResult): string {
   if (r.exact) return r.mode === 'free' ? 'optimal over the stated grid catalog' : 'proven optimal over the candidates';
-  const bound = r.stats?.bound;
-  return `best found; lower bound ${typeof bound === 'number' ? percent(bound) : 'none yet'}`;
+  const bound = r.stats?.signalToNoiseBound;
+  const gap = r.stats?.gap;
+  if (typeof bound !== 'number') return 'best found; no ceiling proven yet';
+  const where = r.mode === 'free' ? ' on the grid catalog' : '';
+  return (
+    `best found; no design${where} can do better than ${bound.toPrecision(3)}` +
+    (typeof gap === 'number' ? ` (this one is within ${percent(gap)} of that ceiling)` : '')
+  );
 }
 
 /** How much of the search space the search visited. */
@@ -191,6 +201,7 @@ export class ProposalSummary extends LitElement {
     const noise = r.noise;
     if (r.panel === null || o === null || noise === null) return this.noPanel(r);
     const pair = o.fromTarget ? ` (${o.fromTarget} into ${o.intoTarget})` : '';
+    const ceiling = percent(o.interferenceCeiling);
     const probes = r.panel.probes;
     const panel = r.panel;
     const brightest = Math.max(...noise.photons.map((x, i) => x * (probes[i].abundance ?? 1)));
@@ -201,7 +212,14 @@ export class ProposalSummary extends LitElement {
     return html`<section aria-labelledby="h-proposal">
       <h3 id="h-proposal">Proposal, not loaded: your panel is unchanged</h3>
       <p class="verdict ${r.verdict === 'usable' ? '' : 'bad'}" role="status">${verdict}</p>
-      <p class="objective">Worst interference ${percent(o.worstInterference)}${pair}: ${proofText(r)}.</p>
+      <p class="objective">
+        Weakest target '${o.weakestTarget}' at signal-to-noise ${figure(o.worstSignalToNoise)} after unmixing:
+        ${proofText(r)}. Worst interference ${percent(o.worstInterference)}${pair}, kept at or below ${ceiling}.
+      </p>
+      <p class="search">
+        The search raises the weakest target's signal-to-noise on one photon scale, within the interference limit;
+        between equals it takes the one with less spillover spreading (${figure(o.totalSpreading)} in all).
+      </p>
       ${r.stats ? html`<p class="search">${searchText(r.stats)}</p>` : ''}
       <div class="scroll">
         <p class="caption" id="cap-assignment">Probe and channel for each target</p>

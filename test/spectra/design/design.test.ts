@@ -86,7 +86,7 @@ describe('runDesign', () => {
     expect(result.exact).toBe(true);
   });
 
-  it('runDesign (free) reports the worst interference and S/N its proposal evaluates to, no worse than the grid', () => {
+  it('runDesign (free) reports the interference and S/N its proposal evaluates to, no worse than the grid', () => {
     const result = runDesign({
       targets: [
         { name: 'A', abundance: 1 },

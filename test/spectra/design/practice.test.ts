@@ -70,7 +70,7 @@ describe('free-mode proposals keep the practice checks', () => {
     checkPractice(result.panel!);
   });
 
-  it('12 targets, eight of them high, under 405 nm: no design within the 100 % ceiling, so no_usable_panel, why, and the largest usable count', () => {
+  it('12 targets, eight high, at 405 nm: none within the 100 % ceiling, so no_usable_panel, why, how many fit', () => {
     const result = runDesign({ targets: targets(12), excitation: [{ wavelengthNm: 405 }] });
     expect(result.verdict).toBe('no_usable_panel');
     expect(result.panel).toBeNull();
