@@ -31,7 +31,8 @@ import { blocksItsLines, clearOfLines, readablePairs } from '../../../spectra/de
 /** The detector and photon settings of the noise model (the designer's option names). */
 export interface NoiseSettings {
   photons: number;
-  backgroundPhotons: number;
+  /** One number for every channel, or one per channel (channel t is target t's). */
+  backgroundPhotons: number | number[];
   excessNoiseFactor: number;
   readNoiseElectrons: number;
 }
@@ -73,9 +74,10 @@ export function proposalNoise(evaluation: PanelEvaluation, abundance: number[], 
   const C = evaluation.collected;
   const k = s.photons / Math.max(...abundance.map((_, t) => C[t][t]));
   const m = C.map((row) => row.map((x, p) => (k * x) / abundance[p]));
+  const given = (c: number) => (typeof s.backgroundPhotons === 'number' ? s.backgroundPhotons : s.backgroundPhotons[c]);
   const b = C.map(
     (_, c) =>
-      s.backgroundPhotons +
+      given(c) +
       k * ((evaluation.backgroundCollected?.[c] ?? 0) + evaluation.lineLeak[c].reduce((sum, x) => sum + x, 0)),
   );
   return noiseFigures(m, abundance, b, s.excessNoiseFactor, s.readNoiseElectrons);
@@ -86,6 +88,8 @@ export interface ReferenceRequest {
   targets: { name: string; abundance: number }[];
   excitation: ExcitationLine[];
   candidates: { probes: ProbeSpec[]; channels: ChannelSpec[] };
+  /** The sample's scattered excitation (the panel's scatterLevel; absent: the signal model's default). */
+  scatterLevel?: number;
   options?: DesignOptions;
 }
 
@@ -124,11 +128,12 @@ const DEFAULTS = {
 };
 
 /** The request's options with the designer's documented defaults filled in. */
-export function referenceOptions(options: DesignOptions = {}): typeof DEFAULTS {
+export function referenceOptions(
+  options: DesignOptions = {},
+): Omit<typeof DEFAULTS, 'backgroundPhotons'> & NoiseSettings {
   const o = { ...DEFAULTS, ...options };
-  if (typeof o.photons !== 'number' || typeof o.backgroundPhotons !== 'number')
-    throw new Error('the reference handles one number for photons and backgroundPhotons');
-  return { ...o, photons: o.photons, backgroundPhotons: o.backgroundPhotons };
+  if (typeof o.photons !== 'number') throw new Error('the reference handles one number for photons');
+  return { ...o, photons: o.photons };
 }
 
 /** Every one-to-one assignment of the request's targets to (probe, channel) candidates, scored. */
@@ -199,6 +204,7 @@ function score(
       channel: chosen[t].id,
     })),
     channels: chosen,
+    ...(request.scatterLevel !== undefined ? { scatterLevel: request.scatterLevel } : {}),
   };
   const evaluation = evaluatePanel(panel, { sensitivity: false });
   const C = evaluation.collected;
