@@ -73,7 +73,7 @@ const bad: Bad[] = [
     'a channel lock naming no owned channel (free mode)',
     'invalid_input',
     ['targets', 1, 'lock', 'channel'],
-    /bp1.*not among owned\.channels/,
+    /bp1.*not among the owned channels/,
     () => {
       const r = free();
       r.targets[1] = { ...r.targets[1], lock: { channel: 'bp1' } };
@@ -84,7 +84,7 @@ const bad: Bad[] = [
     'a probe lock in free mode with no owned probes',
     'invalid_input',
     ['targets', 0, 'lock', 'probe'],
-    /my-605.*not among owned\.probes/,
+    /my-605.*not among the owned probes/,
     () => ({ ...free(), targets: [{ name: 'marker A', abundance: 1, lock: { probe: 'my-605' } }] }),
   ],
   [
@@ -230,18 +230,20 @@ describe('POST /api/v1/panels/design: locks, owned items, channel choices and in
     expect(error?.message).toContain('405 nm');
   });
 
-  it("POST /panels/design on the violet widefield with an owned channel named 'green' answers 400 duplicate_id", async () => {
-    const { id } = await violetWidefield();
-    const res = await design({
-      targets: free().targets,
-      instrument: id,
-      owned: { channels: [{ ...MY_CHANNEL, id: 'green' }] },
-    });
+  it('POST /panels/design on the violet widefield owning all six channels, one target unlocked, answers 400', async () => {
+    const { id, spec } = await violetWidefield();
+    const owned = spec.channels.map((c) => ({ id: c.id, filters: [bandpass(600)] }));
+    const targets = [
+      { name: 'marker A', abundance: 1, lock: { channel: 'green' } },
+      { name: 'marker B', abundance: 1 },
+    ];
+    const res = await design({ targets, instrument: id, owned: { channels: owned } });
     expect(res.status).toBe(400);
     const error = await errorOf(res);
-    expect(error?.code).toBe('duplicate_id');
-    expect(error?.path).toEqual(['owned', 'channels', 0, 'id']);
-    expect(error?.message).toContain("instrument 'Histology widefield, violet LED'");
+    expect(error?.path).toEqual(['instrument']);
+    expect(error?.message).toMatch(
+      /every one of its channels is owned, so none is left to choose for target 'marker B'/,
+    );
   });
 
   it('POST /panels/design of 7 targets on the violet widefield (6 channels) answers 400 naming instrument', async () => {
@@ -251,7 +253,7 @@ describe('POST /api/v1/panels/design: locks, owned items, channel choices and in
     expect(res.status).toBe(400);
     const error = await errorOf(res);
     expect(error?.path).toEqual(['instrument']);
-    expect(error?.message).toMatch(/has 6 channels under these lines; 7 targets need at least 7/);
+    expect(error?.message).toMatch(/offers 6 channels under these lines; 7 targets need at least 7/);
   });
 });
 
@@ -303,4 +305,23 @@ describe('POST /api/v1/panels/design: proposals on the microscope and around wha
     expect(b.id).toBe('my-605');
     expect(b.emissionPeakNm).toBe(605);
   });
+
+  it(
+    "POST /panels/design on the violet widefield with marker A locked to an owned channel 'green' (530/30) reads " +
+      'marker A there, and no other proposed channel is called green',
+    async () => {
+      const { id } = await violetWidefield();
+      const mine = { id: 'green', filters: [bandpass(530, 30)] };
+      const r = free();
+      r.targets[0] = { ...r.targets[0], lock: { channel: 'green' } };
+      const res = await design({ targets: r.targets, instrument: id, owned: { channels: [mine] }, options: r.options });
+      expect(res.status, await res.clone().text()).toBe(200);
+      const body = (await res.json()) as {
+        panel: { probes: { target: string; channel: string }[]; channels: { id: string; filters: unknown[] }[] };
+      };
+      expect(body.panel.probes.find((p) => p.target === 'marker A')!.channel).toBe('green');
+      const greens = body.panel.channels.filter((c) => c.id === 'green');
+      expect(greens).toEqual([mine]);
+    },
+  );
 });

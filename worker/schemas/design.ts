@@ -15,7 +15,6 @@ import {
 } from '../../spectra/index';
 import { ApiError } from './errors';
 import { identifier, ranged, text, wavelengthNm } from './fields';
-import { pathText } from './issues';
 import { LIMITS, RANGES } from './limits';
 import { Channel, ExcitationLine, InstrumentId, WaterRaman } from './panel';
 import { MaterialIdSchema, Probe } from './probe';
@@ -229,7 +228,7 @@ function checkLocks(request: DesignRequest, issue: Issue): void {
       if (!offered[kind].has(id)) {
         const where = catalog
           ? `among the candidate or owned ${kind}s`
-          : `among owned.${kind}s (in free mode a lock names an owned ${kind})`;
+          : `among the owned ${kind}s (in free mode a lock names an owned ${kind})`;
         issue(`names ${kind} '${id}', which is not ${where}`, path);
         continue;
       }
@@ -264,9 +263,10 @@ export type DesignRequestMatchesSpec = Assert<ResolvedDesignRequest extends Desi
 /**
  * A validated request as the spectral library takes it. Without `instrument`, the request itself. With it (the
  * caller has loaded the profile), the instrument's lines and channel presets as a panel on it is evaluated (spectra's
- * instrumentChoices: the request's lines, or all the lasers) become its `excitation` and `channelChoices`. Besides
- * the refusals of instrumentChoices, an owned channel with the id of one of the instrument's is a duplicate_id, and
- * fewer channels than targets is refused at `instrument`.
+ * instrumentChoices: the request's lines, or all the lasers) become its `excitation` and `channelChoices`; an owned
+ * channel with the id of one of the instrument's takes its place (so a target can lock a channel of the microscope).
+ * Besides the refusals of instrumentChoices, fewer channels than targets, or every preset owned while a target locks
+ * no channel, is refused at `instrument`.
  */
 export function withInstrument(request: DesignRequest, instrument: InstrumentSpec | undefined): ResolvedDesignRequest {
   const { instrument: id, excitation, ...rest } = request;
@@ -276,25 +276,32 @@ export function withInstrument(request: DesignRequest, instrument: InstrumentSpe
   }
   if (!instrument) throw new ApiError(400, 'unknown_instrument', `instrument '${id}' is not loaded`, ['instrument']);
   const choices = instrumentChoices(instrument, excitation);
-  const theirs = new Set(choices.channels.map((c) => c.id));
-  const owned = request.owned?.channels ?? [];
-  owned.forEach((channel, i) => {
-    const path = ['owned', 'channels', i, 'id'];
-    if (theirs.has(channel.id)) {
-      const message = `${pathText(path)} '${channel.id}' is also the id of a channel of the instrument '${instrument.name}'`;
-      throw new ApiError(400, 'duplicate_id', message, path);
-    }
-  });
+  const owned = new Set(request.owned?.channels?.map((c) => c.id));
+  const channelChoices = choices.channels.filter((c) => !owned.has(c.id));
   const n = request.targets.length;
-  if (choices.channels.length + owned.length < n) {
-    const also = owned.length ? ` (and ${owned.length} owned)` : '';
+  if (channelChoices.length + owned.size < n) {
+    const also = owned.size ? ` (with ${owned.size} owned)` : '';
     throw new ApiError(
       400,
       'invalid_input',
-      `instrument '${instrument.name}' has ${choices.channels.length} channels under these lines${also}; ${n} ` +
-        `targets need at least ${n}`,
+      `instrument '${instrument.name}' offers ${channelChoices.length + owned.size} channels under these lines${also}; ` +
+        `${n} targets need at least ${n}`,
       ['instrument'],
     );
   }
-  return { ...rest, excitation: choices.excitation, channelChoices: choices.channels };
+  if (channelChoices.length === 0) {
+    // Every preset is owned: fine when every target locks its channel (nothing is left to choose), else refused.
+    const open = request.targets.find((t) => t.lock?.channel === undefined);
+    if (open) {
+      throw new ApiError(
+        400,
+        'invalid_input',
+        `instrument '${instrument.name}': every one of its channels is owned, so none is left to choose for ` +
+          `target '${open.name}' (lock a channel for it, or own fewer)`,
+        ['instrument'],
+      );
+    }
+    return { ...rest, excitation: choices.excitation };
+  }
+  return { ...rest, excitation: choices.excitation, channelChoices };
 }
