@@ -193,7 +193,7 @@ export function instrumentChoices(instrument: InstrumentSpec, excitation?: Excit
   if (!instrument.channels?.length) {
     throw new SpectraError(
       'invalid_input',
-      `names the instrument '${instrument.name}', which has no channel presets to choose from`,
+      `the instrument '${instrument.name}' has no channel presets to choose from`,
       ['instrument'],
     );
   }
@@ -210,7 +210,7 @@ export function instrumentChoices(instrument: InstrumentSpec, excitation?: Excit
   if (channels.length === 0) {
     throw new SpectraError(
       'invalid_input',
-      `reads none of the channels of the instrument '${instrument.name}' (each is read under other lines)`,
+      `no channel of the instrument '${instrument.name}' is read under these lines (each is read under others)`,
       ['excitation'],
     );
   }

@@ -126,7 +126,7 @@ describe('instrumentChoices', () => {
     expect(excitation[0].powerRel).toBeCloseTo(16, 9);
   });
 
-  it('with only the 405 nm line: drops the preset read under 561 nm alone and keeps 405 nm of the one under both', () => {
+  it('under 405 nm alone: drops the preset read under 561 nm only, keeps 405 nm of the one under both', () => {
     const { channels } = instrumentChoices(STAND, [{ wavelengthNm: 405 }]);
     expect(channels.map((c) => [c.id, c.excitationNm])).toEqual([
       ['g', 405],

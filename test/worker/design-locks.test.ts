@@ -230,7 +230,7 @@ describe('POST /api/v1/panels/design: locks, owned items, channel choices and in
     expect(error?.message).toContain('405 nm');
   });
 
-  it('POST /panels/design on the violet widefield owning all six channels, one target unlocked, answers 400', async () => {
+  it('POST /panels/design owning all six channels of the violet widefield, one target unlocked, is a 400', async () => {
     const { id, spec } = await violetWidefield();
     const owned = spec.channels.map((c) => ({ id: c.id, filters: [bandpass(600)] }));
     const targets = [
@@ -242,11 +242,11 @@ describe('POST /api/v1/panels/design: locks, owned items, channel choices and in
     const error = await errorOf(res);
     expect(error?.path).toEqual(['instrument']);
     expect(error?.message).toMatch(
-      /every one of its channels is owned, so none is left to choose for target 'marker B'/,
+      /every channel of the instrument .* is owned, so none is left to choose for target 'marker B'/,
     );
   });
 
-  it('POST /panels/design of 7 targets on the violet widefield (6 channels) answers 400 naming instrument', async () => {
+  it('POST /panels/design of 7 targets on the violet widefield (6 channels) is a 400 naming instrument', async () => {
     const { id } = await violetWidefield();
     const targets = Array.from({ length: 7 }, (_, i) => ({ name: `marker ${i + 1}`, abundance: 1 }));
     const res = await design({ targets, instrument: id });
@@ -284,7 +284,7 @@ describe('POST /api/v1/panels/design: proposals on the microscope and around wha
     },
   );
 
-  it('POST /panels/design (catalog) with marker B locked to dot3 and bp3 (not its optimum) gives marker B dot3 in bp3', async () => {
+  it('POST /panels/design (catalog), marker B locked to dot3 and bp3 (not its optimum), gets both', async () => {
     const r = catalog();
     r.targets[1] = { ...r.targets[1], lock: { probe: 'dot3', channel: 'bp3' } };
     const res = await design(r);
@@ -295,7 +295,7 @@ describe('POST /api/v1/panels/design: proposals on the microscope and around wha
     // Without the lock the exact optimum gives marker B dot8 in bp8 (the lock is what moves it).
   });
 
-  it('POST /panels/design (free) with marker B locked to an owned 605 nm dot proposes that dot for marker B', async () => {
+  it('POST /panels/design (free), marker B locked to an owned 605 nm dot: that dot is proposed for it', async () => {
     const r = free();
     r.targets[1] = { ...r.targets[1], lock: { probe: MY_DOT.id } };
     const res = await design({ ...r, owned: { probes: [MY_DOT] } });

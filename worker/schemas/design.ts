@@ -281,11 +281,12 @@ export function withInstrument(request: DesignRequest, instrument: InstrumentSpe
   const n = request.targets.length;
   if (channelChoices.length + owned.size < n) {
     const also = owned.size ? ` (with ${owned.size} owned)` : '';
+    const offered = channelChoices.length + owned.size;
     throw new ApiError(
       400,
       'invalid_input',
-      `instrument '${instrument.name}' offers ${channelChoices.length + owned.size} channels under these lines${also}; ` +
-        `${n} targets need at least ${n}`,
+      `the instrument '${instrument.name}' offers ${offered} channels under these lines${also}; ${n} targets need ` +
+        `at least ${n}`,
       ['instrument'],
     );
   }
@@ -296,8 +297,8 @@ export function withInstrument(request: DesignRequest, instrument: InstrumentSpe
       throw new ApiError(
         400,
         'invalid_input',
-        `instrument '${instrument.name}': every one of its channels is owned, so none is left to choose for ` +
-          `target '${open.name}' (lock a channel for it, or own fewer)`,
+        `every channel of the instrument '${instrument.name}' is owned, so none is left to choose for target ` +
+          `'${open.name}' (lock a channel for it, or own fewer)`,
         ['instrument'],
       );
     }
