@@ -331,6 +331,27 @@ describe('<qdp-design-form> locks and the microscope', () => {
     },
   );
 
+  it(
+    'locking a probe whose peak the panel holds at 5000 nm shows "Use my probe \'p4\': emissionPeakNm must be …" ' +
+      'beside that target',
+    async () => {
+      const el = await mountOwning();
+      const panel = demoPanel();
+      el.owned = designParts({
+        ...panel,
+        probes: panel.probes.map((p) => (p.id === 'p4' ? { ...p, emissionPeakNm: 5000 } : p)),
+      });
+      await el.updateComplete;
+      await userEvent.selectOptions(page.elementLocator(el).getByLabelText('Use my probe for target 1'), 'p4');
+      await userEvent.click(button(el, 'Propose'));
+      await until(() => el.shadowRoot!.querySelector('.error') !== null);
+      const error = el.shadowRoot!.querySelector('.error')!;
+      expect(error.textContent).toBe("Use my probe 'p4': emissionPeakNm must be between 200 and 2000 nm");
+      expect(error.previousElementSibling).toBe(el.shadowRoot!.querySelector('fieldset .row'));
+      expect(posted()).toBeUndefined();
+    },
+  );
+
   it('offers the microscope choice only for a panel on a profile', async () => {
     const el = await mountOwning();
     const text = () => el.shadowRoot!.textContent!;

@@ -209,7 +209,7 @@ export class DesignForm extends LitElement {
   private refuse(error: Pick<FieldError, 'message' | 'path'>, request: DesignRequestBody, general: string): void {
     const spot = formSpot(error.path, request);
     if (spot.at === 'form') this.error = general;
-    else this.placed = { spot, text: spotText(error) };
+    else this.placed = { spot, text: spotText(error, request) };
   }
 
   /**

@@ -59,12 +59,19 @@ function spotWord(path: FieldError['path']): string {
 }
 
 /**
- * A refusal as the form shows it beside its field: the label of the part it is about, then the message without the
- * API's name for the field (the place already says it).
+ * A refusal of `request` as the form shows it beside its field: the label of the part it is about, then the message
+ * without the API's name for the field (the place already says it). A refusal inside an owned part names the part by
+ * its id and keeps the field within it, e.g. "Use my probe 'p4': emissionPeakNm must be …".
  */
-export function spotText(error: Pick<FieldError, 'message' | 'path'>): string {
-  const prefix = `${pathText(error.path)} `;
-  const message = error.message.startsWith(prefix) ? error.message.slice(prefix.length) : error.message;
+export function spotText(error: Pick<FieldError, 'message' | 'path'>, request: DesignRequest): string {
+  const [head, list, index] = error.path;
+  const whole = `${pathText(error.path)} `;
+  if (head === 'owned' && (list === 'probes' || list === 'channels') && typeof index === 'number') {
+    const part = `${pathText(error.path.slice(0, 3))}.`;
+    const message = error.message.startsWith(part) ? error.message.slice(part.length) : error.message;
+    return `${spotWord(error.path)} '${request.owned?.[list]?.[index]?.id ?? index}': ${message}`;
+  }
+  const message = error.message.startsWith(whole) ? error.message.slice(whole.length) : error.message;
   const word = spotWord(error.path);
   return word ? `${word}: ${message}` : message;
 }
@@ -96,11 +103,6 @@ export function formPlace(path: FieldError['path'], targetNames: readonly string
     case 'scatterLevel':
     case 'waterRaman':
       return "the panel's sample background";
-    case 'owned':
-      return index === 'channels' ? "the current panel's channels" : "the current panel's probes";
-    case 'instrument':
-    case 'channelChoices':
-      return FORM_WORDS.microscope;
     default:
       return pathText(path);
   }
