@@ -101,11 +101,13 @@ export { filterTransmission } from './light/filters/filter';
 export { foldLightPath, seriesTransmission } from './light/light-path';
 export {
   instrumentChannels,
+  instrumentChoices,
   instrumentLightPath,
   instrumentLines,
   resolveOnInstrument,
   type ChannelPresetSpec,
   type InstrumentDetector,
+  type InstrumentChoices,
   type InstrumentLaser,
   type InstrumentSpec,
   type NamedFilterSpec,
@@ -179,7 +181,13 @@ export type { CatalogResult } from './design/catalog';
 export type { CatalogProblem } from './design/problem';
 export { searchCatalog, type SearchOptions, type SearchProgress } from './design/search';
 export { DESIGN_DEFAULTS, type DesignOptions } from './design/options';
-export { DEFAULT_WINDOW_NM, LEFT_OUT_BY_DEFAULT, type DesignRequest, type DesignTarget } from './design/request';
+export {
+  DEFAULT_WINDOW_NM,
+  LEFT_OUT_BY_DEFAULT,
+  type DesignLock,
+  type DesignRequest,
+  type DesignTarget,
+} from './design/request';
 export { PRACTICE_DEFAULTS } from './design/practice';
 export {
   runDesign,

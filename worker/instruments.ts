@@ -35,23 +35,31 @@ export async function loadInstrumentText(kv: KVNamespace, id: string): Promise<s
 }
 
 /**
+ * The profile a request names by `instrument` (one storage read); an unknown id is a 400 unknown_instrument naming
+ * `instrument`.
+ */
+export async function loadInstrumentProfile(kv: KVNamespace, id: string): Promise<InstrumentSpec> {
+  const text = await loadInstrumentText(kv, id);
+  if (text === null) {
+    throw new ApiError(
+      400,
+      'unknown_instrument',
+      `no instrument profile is stored under '${id}' (check the link, or store the profile with ` +
+        'POST /api/v1/instruments)',
+      ['instrument'],
+    );
+  }
+  return JSON.parse(text) as InstrumentSpec;
+}
+
+/**
  * The panel with every part written out: a panel that names an instrument reads the profile (one storage read) and
  * takes its parts from it; an unknown id is a 400 naming `instrument`. The written-out panel is checked like any
  * panel, so a probe naming a channel the instrument lacks is refused with the probe's path.
  */
 export async function resolvePanelRequest(kv: KVNamespace, panel: PanelRequest): Promise<Panel> {
   if (panel.instrument === undefined) return resolveOnInstrument(panel, undefined) as Panel;
-  const text = await loadInstrumentText(kv, panel.instrument);
-  if (text === null) {
-    throw new ApiError(
-      400,
-      'unknown_instrument',
-      `no instrument profile is stored under '${panel.instrument}' (check the link, or store the profile with ` +
-        'POST /api/v1/instruments)',
-      ['instrument'],
-    );
-  }
-  const written = resolveOnInstrument(panel, JSON.parse(text) as InstrumentSpec);
+  const written = resolveOnInstrument(panel, await loadInstrumentProfile(kv, panel.instrument));
   const checked = Panel.safeParse(written);
   if (!checked.success) {
     const first = issueToError(checked.error.issues[0]);

@@ -6,6 +6,7 @@
  */
 import { SpectraError } from '../core/errors';
 import type { ChannelSpec, ExcitationLine, FilterSpec, LightPathSpec, PanelSpec } from '../core/panel';
+import { foldLightPath } from './light-path';
 
 /** A filter the instrument has, under the name its users know it by (unique within the profile). */
 export interface NamedFilterSpec {
@@ -173,4 +174,45 @@ export function resolveOnInstrument(panel: PanelOnInstrumentSpec, instrument: In
     );
   }
   return { ...rest, excitation: lines, channels: resolvedChannels, ...(lightPath ? { lightPath } : {}) };
+}
+
+/** The lines and channels a search may choose from on an instrument (see instrumentChoices). */
+export interface InstrumentChoices {
+  excitation: ExcitationLine[];
+  channels: ChannelSpec[];
+}
+
+/**
+ * The instrument's lines and channel presets as a panel on it is evaluated, for a search that chooses among its
+ * channels: the lines of `excitation` (each one of its lasers, without powerRel at the laser's mW) or all its
+ * lasers, each line's power through the clean-up filters, and each preset with the dichroics in front of its filters
+ * (foldLightPath). A preset read under given lines keeps those in use; one read under none of them is left out.
+ * Refusals name ['instrument'] (no presets), ['excitation', i, 'wavelengthNm'] (a line it lacks) or ['excitation'].
+ */
+export function instrumentChoices(instrument: InstrumentSpec, excitation?: ExcitationLine[]): InstrumentChoices {
+  if (!instrument.channels?.length) {
+    throw new SpectraError(
+      'invalid_input',
+      `the instrument '${instrument.name}' has no channel presets to choose from`,
+      ['instrument'],
+    );
+  }
+  const lines = excitation ? { excitation } : {};
+  const panel = foldLightPath(resolveOnInstrument({ instrument: 'in use', probes: [], ...lines }, instrument));
+  const inUse = new Set(panel.excitation.map((line) => line.wavelengthNm));
+  const channels = panel.channels.flatMap((channel) => {
+    if (channel.excitationNm === undefined) return [channel];
+    const wanted = Array.isArray(channel.excitationNm) ? channel.excitationNm : [channel.excitationNm];
+    const kept = wanted.filter((nm) => inUse.has(nm));
+    if (kept.length === 0) return [];
+    return [{ ...channel, excitationNm: kept.length === 1 ? kept[0] : kept }];
+  });
+  if (channels.length === 0) {
+    throw new SpectraError(
+      'invalid_input',
+      `no channel of the instrument '${instrument.name}' is read under these lines (each is read under others)`,
+      ['excitation'],
+    );
+  }
+  return { excitation: panel.excitation, channels };
 }

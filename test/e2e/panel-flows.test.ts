@@ -218,6 +218,30 @@ describe('the panel page', () => {
     },
   );
 
+  it(
+    "a free design with target 1 locked to the demo's Orange dot (p4) proposes p4 for target 1, and the loaded " +
+      'panel keeps it',
+    async () => {
+      const { page, problems } = await open(app.baseUrl + '/');
+      const form = page.locator('qdp-design-form');
+      await form.getByText("choose only from the current panel's probes and channels").click();
+      await form.getByLabel('Use my probe for target 1').selectOption('p4');
+      await form.getByRole('button', { name: 'Propose', exact: true }).click();
+      const summary = page.locator('qdp-proposal-summary');
+      await summary.waitFor({ timeout: 60_000 });
+      const row = summary.locator('table.assignment tr', { hasText: 'target 1' });
+      // The Orange dot as the demo writes it: CdSe, peak 605 nm, a 0.9 nm ZnS shell.
+      expect(await row.innerText()).toMatch(/emission peak 605 nm[\s\S]*shell ZnS 0\.9 nm/);
+      await shot(page, '10-design-locked-probe-1280', summary);
+      await summary.getByRole('button', { name: 'Load this proposal' }).click();
+      await expect.poll(() => titleInput(page).inputValue()).toBe('Proposed panel (free design)');
+      const { panel } = decodeFragment(new URL(page.url()).hash) as { panel: PanelSpec };
+      expect(panel.probes.find((p) => p.target === 'target 1')?.id).toBe('p4');
+      expect(problems).toEqual([]);
+      await page.close();
+    },
+  );
+
   it('exporting the ordering sheet gives a CSV with every probe and channels as "bandpass 605/20"', async () => {
     const { page } = await open(app.baseUrl + '/');
     const [download] = await Promise.all([

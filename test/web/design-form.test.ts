@@ -1,8 +1,11 @@
 // <qdp-design-form> in real Chromium with its real Web Worker running the design search.
-import { afterEach, describe, expect, it } from 'vitest';
+import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { page, userEvent } from 'vitest/browser';
+import { EXAMPLE_INSTRUMENTS, type DesignRequest } from '../../spectra/index';
 import '../../web/elements/design-form';
 import type { DesignForm } from '../../web/elements/design-form';
+import { demoPanel } from '../../web/state/demo-panel';
+import { designParts } from '../../web/state/design-request';
 
 afterEach(() => document.body.replaceChildren());
 
@@ -218,7 +221,7 @@ describe('<qdp-design-form>', () => {
 
   it(
     "Propose after typing 'plenty' as target 1's abundance " +
-      "shows the API's message for that field and starts nothing",
+      "shows the API's message for that field beside its row and starts nothing",
     async () => {
       const el = await mount();
       let proposed = 0;
@@ -228,9 +231,10 @@ describe('<qdp-design-form>', () => {
       await userEvent.type(abundance, 'plenty');
       await userEvent.click(button(el, 'Propose'));
       await until(() => el.shadowRoot!.querySelector('.error') !== null);
-      expect(el.shadowRoot!.querySelector('.error')!.textContent).toBe(
-        'targets[0].abundance must be a number greater than 0 or one of high, medium, low',
-      );
+      const error = el.shadowRoot!.querySelector('.error')!;
+      expect(error.textContent).toBe('Abundance: must be a number greater than 0 or one of high, medium, low');
+      // Beside the first target's row.
+      expect(error.previousElementSibling).toBe(el.shadowRoot!.querySelector('fieldset .row'));
       expect(button(el, 'Cancel').disabled).toBe(true);
       expect(button(el, 'Propose').disabled).toBe(false);
       await new Promise((r) => setTimeout(r, 300));
@@ -245,7 +249,154 @@ describe('<qdp-design-form>', () => {
     field.dispatchEvent(new Event('input'));
     button(el, 'Propose').click();
     await el.updateComplete;
-    expect(el.shadowRoot!.querySelector('.error')!.textContent).toContain('excitation lines must be numbers');
+    expect(el.shadowRoot!.querySelector('.error')!.textContent).toBe(
+      'Excitation lines, nm: must be numbers in nm, e.g. 405, 488',
+    );
     expect(button(el, 'Cancel').disabled).toBe(true);
+  });
+});
+
+/** Stands in for the search's Web Worker: records what the form posts to it and answers nothing. */
+class RecordingWorker {
+  static posted: { type: string; request?: DesignRequest }[] = [];
+  onmessage: unknown = null;
+  onerror: unknown = null;
+  postMessage(message: { type: string; request?: DesignRequest }): void {
+    RecordingWorker.posted.push(message);
+  }
+  terminate(): void {}
+}
+
+describe('<qdp-design-form> locks and the microscope', () => {
+  const RealWorker = globalThis.Worker;
+  beforeEach(() => {
+    RecordingWorker.posted = [];
+    globalThis.Worker = RecordingWorker as unknown as typeof Worker;
+  });
+  afterEach(() => {
+    globalThis.Worker = RealWorker;
+  });
+
+  /** The form in free mode with the demo panel's probes and channels as the user's own. */
+  async function mountOwning(): Promise<DesignForm> {
+    const el = await mount({ nodeBudget: 500 });
+    el.owned = designParts(demoPanel());
+    await el.updateComplete;
+    return el;
+  }
+
+  const posted = () => RecordingWorker.posted.find((m) => m.type === 'run')?.request;
+
+  it(
+    "choosing Use my probe 'Orange dot' for target 1 and Use my channel 'Green' for target 2 posts p4 and c2 " +
+      'as owned and their ids as the locks',
+    async () => {
+      const el = await mountOwning();
+      const form = page.elementLocator(el);
+      await userEvent.selectOptions(form.getByLabelText('Use my probe for target 1'), 'p4');
+      await userEvent.selectOptions(form.getByLabelText('Use my channel for target 2'), 'c2');
+      await userEvent.click(button(el, 'Propose'));
+      await until(() => posted() !== undefined);
+      const request = posted()!;
+      expect(request.targets.map((t) => t.lock)).toEqual([{ probe: 'p4' }, { channel: 'c2' }]);
+      expect(request.owned?.probes?.map((p) => p.id)).toEqual(['p4']);
+      expect(request.owned?.channels).toEqual([demoPanel().channels[1]]);
+      expect(el.shadowRoot!.querySelector('.error')).toBeNull();
+    },
+  );
+
+  it(
+    'a probe lock whose probe left the panel is marked in its choice, and Propose shows the refusal beside ' +
+      'that target and starts no search',
+    async () => {
+      const el = await mountOwning();
+      const form = page.elementLocator(el);
+      await userEvent.selectOptions(form.getByLabelText('Use my probe for target 2'), 'p4');
+      const panel = demoPanel();
+      el.owned = designParts({ ...panel, probes: panel.probes.filter((p) => p.id !== 'p4') });
+      await el.updateComplete;
+      expect(form.getByLabelText('Use my probe for target 2').element().textContent).toContain(
+        'p4 (no longer in this panel)',
+      );
+      await userEvent.click(button(el, 'Propose'));
+      await until(() => el.shadowRoot!.querySelector('.error') !== null);
+      const error = el.shadowRoot!.querySelector('.error')!;
+      expect(error.textContent).toBe(
+        "Use my probe: names probe 'p4', which is not among the owned probes " +
+          '(in free mode a lock names an owned probe)',
+      );
+      const rows = el.shadowRoot!.querySelectorAll('fieldset .row');
+      expect(error.previousElementSibling).toBe(rows[1]);
+      expect(posted()).toBeUndefined();
+    },
+  );
+
+  it(
+    'locking a probe whose peak the panel holds at 5000 nm shows "Use my probe \'p4\': emissionPeakNm must be …" ' +
+      'beside that target',
+    async () => {
+      const el = await mountOwning();
+      const panel = demoPanel();
+      el.owned = designParts({
+        ...panel,
+        probes: panel.probes.map((p) => (p.id === 'p4' ? { ...p, emissionPeakNm: 5000 } : p)),
+      });
+      await el.updateComplete;
+      await userEvent.selectOptions(page.elementLocator(el).getByLabelText('Use my probe for target 1'), 'p4');
+      await userEvent.click(button(el, 'Propose'));
+      await until(() => el.shadowRoot!.querySelector('.error') !== null);
+      const error = el.shadowRoot!.querySelector('.error')!;
+      expect(error.textContent).toBe("Use my probe 'p4': emissionPeakNm must be between 200 and 2000 nm");
+      expect(error.previousElementSibling).toBe(el.shadowRoot!.querySelector('fieldset .row'));
+      expect(posted()).toBeUndefined();
+    },
+  );
+
+  it('offers the microscope choice only for a panel on a profile', async () => {
+    const el = await mountOwning();
+    const text = () => el.shadowRoot!.textContent!;
+    expect(text()).not.toContain("microscope's filters");
+    el.microscope = { id: 'A'.repeat(24), spec: EXAMPLE_INSTRUMENTS[0] };
+    await el.updateComplete;
+    expect(text()).toContain(
+      "Choose among my microscope's filters (Histology widefield, violet LED) instead of stock bandpass sizes",
+    );
+  });
+
+  it(
+    "ticking the microscope's filters with the lines field emptied posts its six channels behind its dichroic " +
+      'and its 405 nm line to the search',
+    async () => {
+      const el = await mountOwning();
+      el.microscope = { id: 'A'.repeat(24), spec: EXAMPLE_INSTRUMENTS[0] };
+      await el.updateComplete;
+      const form = page.elementLocator(el);
+      await userEvent.click(form.getByText("Choose among my microscope's filters"));
+      await userEvent.clear(form.getByLabelText('excitation lines'));
+      await userEvent.click(button(el, 'Propose'));
+      await until(() => posted() !== undefined);
+      const request = posted()!;
+      expect(request.excitation.map((l) => l.wavelengthNm)).toEqual([405]);
+      expect(request.channelChoices?.map((c) => c.id)).toEqual(['blue', 'green', 'yellow', 'orange', 'red', 'far-red']);
+      for (const c of request.channelChoices!)
+        expect(c.filters[0]).toEqual({ type: 'dichroic', edgeNm: 425, passes: 'above' });
+    },
+  );
+
+  it("on the microscope a typed 488 nm line is refused beside the lines, naming the microscope's 405 nm", async () => {
+    const el = await mountOwning();
+    el.microscope = { id: 'A'.repeat(24), spec: EXAMPLE_INSTRUMENTS[0] };
+    await el.updateComplete;
+    const form = page.elementLocator(el);
+    await userEvent.click(form.getByText("Choose among my microscope's filters"));
+    await userEvent.fill(form.getByLabelText('excitation lines'), '488');
+    await userEvent.click(button(el, 'Propose'));
+    await until(() => el.shadowRoot!.querySelector('.error') !== null);
+    const error = el.shadowRoot!.querySelector('.error')!;
+    expect(error.textContent).toBe(
+      "Excitation lines, nm: 488 nm is not a line of the instrument 'Histology widefield, violet LED' (it has 405 nm)",
+    );
+    expect(error.previousElementSibling?.textContent).toContain('Excitation lines, nm');
+    expect(posted()).toBeUndefined();
   });
 });

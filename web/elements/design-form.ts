@@ -4,7 +4,9 @@
  * (<qdp-proposal-summary>), leaving the panel alone. Only "Load this proposal" fires a bubbling, composed
  * `panel-proposed` event with {panel, evaluation, objective, exact, stats}, on which the app loads the proposal as an
  * editable panel; "Discard" drops it, and a new search replaces it. With `candidates` set it can search only those
- * (catalog mode, exact).
+ * (catalog mode, exact). Each target can be locked to one of the user's probes and/or channels (`owned`, or the
+ * candidates in catalog mode), and on a microscope (`microscope`) free mode can choose among its channels instead of
+ * stock bandpass sizes. A refusal about a target, the lines or the microscope choice is shown beside that field.
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
@@ -17,16 +19,22 @@ import {
   listMaterials,
   PRACTICE_DEFAULTS,
   type AbundanceInput,
+  type DesignLock,
   type DesignOptions,
   type DesignRequest,
   type DesignResult,
   type Exclusion,
   type SearchProgress,
 } from '../../spectra/index';
-import { designErrorText, FORM_WORDS } from '../state/design-error';
+import type { DesignRequest as DesignRequestBody } from '../../worker/schemas';
+import { designErrorText, formSpot, FORM_WORDS, spotText, type FormSpot } from '../state/design-error';
+import { designRequest, type DesignParts } from '../state/design-request';
 import type { DesignWorkerMessage } from '../state/design-worker';
+import type { FieldError } from '../state/error-map';
+import type { AttachedInstrument } from '../state/instrument';
 import { loadChecks } from '../state/load-checks';
 import { percent } from './proposal-summary';
+import './target-lock';
 
 /** The abundance words a target may take instead of a number (high, medium, low). */
 const WORDS = Object.keys(ABUNDANCE_WORDS) as (keyof typeof ABUNDANCE_WORDS)[];
@@ -37,11 +45,15 @@ function abundanceInput(text: string): AbundanceInput {
   return WORDS.find((w) => w === word) ?? Number(word);
 }
 
-/** "405, 488" → excitation lines; throws a sentence naming the field when a value is not a number. */
-function excitationLines(text: string): { wavelengthNm: number }[] {
+/**
+ * "405, 488" → excitation lines; empty → undefined when `mayBeEmpty` (the microscope's lines are then used). Throws a
+ * sentence when a value is not a number.
+ */
+function excitationLines(text: string, mayBeEmpty: boolean): { wavelengthNm: number }[] | undefined {
   const parts = text.split(/[\s,;]+/).filter(Boolean);
+  if (parts.length === 0 && mayBeEmpty) return undefined;
   if (parts.length === 0 || parts.some((p) => !Number.isFinite(Number(p))))
-    throw new Error('excitation lines must be numbers in nm, e.g. 405, 488');
+    throw new Error('must be numbers in nm, e.g. 405, 488');
   return parts.map((p) => ({ wavelengthNm: Number(p) }));
 }
 
@@ -76,10 +88,15 @@ const CHECKS: readonly [CheckKey, string, string][] = [
 /** The catalog-mode choice. */
 const CANDIDATES_ONLY = `choose only from ${FORM_WORDS.candidates}`;
 
+const CHECKS_UNAVAILABLE = 'the request checks could not be loaded: reload the page to try again';
+
 interface TargetRow {
   name: string;
   abundance: string;
+  lock?: DesignLock;
 }
+
+const NO_PARTS: DesignParts = { probes: [], channels: [] };
 
 /** The materials free design can size: those with a size law or an accepted peak range (not the custom probe). */
 const MATERIALS = listMaterials().filter((m) => m.emissionRangeNm !== null);
@@ -92,6 +109,10 @@ export class DesignForm extends LitElement {
   @property({ attribute: false }) sample: Pick<DesignRequest, 'scatterLevel' | 'waterRaman'> = {};
   /** Extra search options passed with every request (e.g. a node budget). */
   @property({ attribute: false }) options: DesignOptions = {};
+  /** What the user already has (the panel's probes and channels): free mode's locks choose among these. */
+  @property({ attribute: false }) owned: DesignParts = NO_PARTS;
+  /** The instrument profile the panel is on, if any: free mode may choose among its channels. */
+  @property({ attribute: false }) microscope?: AttachedInstrument;
 
   @state() private targets: TargetRow[] = [
     { name: 'target 1', abundance: 'high' },
@@ -107,13 +128,19 @@ export class DesignForm extends LitElement {
   @state() private checks: Partial<Record<CheckKey, number>> = {};
   @state() private windowNm: [number, number] = [DEFAULT_WINDOW_NM[0], DEFAULT_WINDOW_NM[1]];
   @state() private useCandidates = true;
+  /** Free mode chooses among the microscope's channels (when the panel is on one) instead of stock sizes. */
+  @state() private useMicroscope = false;
   @state() private running = false;
   @state() private progress: SearchProgress | null = null;
   @state() private status = '';
   @state() private error = '';
+  /** A refusal shown beside its field (a target's row, the lines, the microscope choice). */
+  @state() private placed: { spot: FormSpot; text: string } | null = null;
   /** The last search's proposal, shown until it is loaded, discarded or replaced by a new search. */
   @state() private result: DesignResult | null = null;
   private worker: Worker | null = null;
+  /** The request of the running search, to place its refusal. */
+  private sent: DesignRequestBody | null = null;
   /** Counts proposals, so a check that returns after a newer proposal or a cancel starts nothing. */
   private proposals = 0;
 
@@ -145,6 +172,9 @@ export class DesignForm extends LitElement {
       color: #8b1a1a;
       font-weight: 600;
     }
+    .error.beside {
+      margin: 0 0 0.3rem;
+    }
     button:focus-visible,
     input:focus-visible {
       outline: 3px solid #1a56db;
@@ -156,45 +186,71 @@ export class DesignForm extends LitElement {
     this.cancel(false);
   }
 
-  private request(): DesignRequest {
-    const request: DesignRequest = {
-      targets: this.targets.map((t) => ({ name: t.name.trim(), abundance: abundanceInput(t.abundance) })),
-      excitation: excitationLines(this.excitationText),
-      options: { ...this.options, ...this.checks },
-      ...this.sample,
-    };
-    if (this.candidates && this.useCandidates) return { ...request, candidates: this.candidates };
-    return {
-      ...request,
-      exclude: [...this.exclude],
-      allowedMaterials: [...this.allowed],
-      windowNm: this.windowNm,
-    };
+  /** True when the search is over the candidates (catalog mode). */
+  private get catalog(): boolean {
+    return !!(this.candidates && this.useCandidates);
   }
 
-  /** Checks the request with the API's schema, then starts the search in a fresh worker. */
+  /** The microscope free mode chooses among, when the user asked for it. */
+  private get onMicroscope(): AttachedInstrument | undefined {
+    return !this.catalog && this.useMicroscope ? this.microscope : undefined;
+  }
+
+  private request(): DesignRequestBody {
+    const catalog = this.catalog;
+    return designRequest({
+      targets: this.targets.map((t) => ({ name: t.name, abundance: abundanceInput(t.abundance), lock: t.lock })),
+      excitation: excitationLines(this.excitationText, !!this.onMicroscope),
+      ...(catalog ? { candidates: this.candidates } : {}),
+      owned: this.owned,
+      free: { exclude: [...this.exclude], allowedMaterials: [...this.allowed], windowNm: this.windowNm },
+      ...(this.onMicroscope ? { instrument: this.onMicroscope.id } : {}),
+      options: { ...this.options, ...this.checks },
+      sample: this.sample,
+    });
+  }
+
+  /** Shows a refusal beside the field it concerns, or below the buttons in `general` words. */
+  private refuse(error: Pick<FieldError, 'message' | 'path'>, request: DesignRequestBody, general: string): void {
+    const spot = formSpot(error.path, request);
+    if (spot.at === 'form') this.error = general;
+    else this.placed = { spot, text: spotText(error, request) };
+  }
+
+  /**
+   * Checks the request with the API's schema, resolves it as the API would (the microscope's lines and channels
+   * written in), then starts the search in a fresh worker.
+   */
   async propose(): Promise<void> {
     this.cancel(false);
     this.error = '';
+    this.placed = null;
     this.result = null;
-    let request: DesignRequest;
+    let body: DesignRequestBody;
     try {
-      request = this.request();
+      body = this.request();
     } catch (err) {
-      this.error = (err as Error).message;
+      this.placed = { spot: { at: 'excitation' }, text: `${FORM_WORDS.excitation}: ${(err as Error).message}` };
       return;
     }
     const ticket = ++this.proposals;
     this.running = true;
     this.status = 'checking';
-    let problem: string | undefined;
+    let resolved: ReturnType<Awaited<ReturnType<typeof loadChecks>>['designForSearch']>;
     try {
-      problem = (await loadChecks()).checkDesignRequest(request)?.message;
+      const checks = await loadChecks();
+      const problem = checks.checkDesignRequest(body);
+      resolved = problem ? { ok: false, error: problem } : checks.designForSearch(body, this.onMicroscope?.spec);
     } catch {
-      problem = 'the request checks could not be loaded: reload the page to try again';
+      resolved = { ok: false, error: { code: 'network', message: CHECKS_UNAVAILABLE, path: [] } };
     }
     if (ticket !== this.proposals || !this.running) return; // cancelled, or a newer proposal, while checking
-    if (problem) return this.finish('', problem);
+    if (!resolved.ok) {
+      this.finish('');
+      return this.refuse(resolved.error, body, resolved.error.message);
+    }
+    this.sent = body;
+    const request = resolved.request;
     const worker = new Worker(new URL('../state/design-worker.ts', import.meta.url), { type: 'module' });
     this.worker = worker;
     this.running = true;
@@ -235,7 +291,9 @@ export class DesignForm extends LitElement {
     }
     if (message.type === 'error') {
       const names = this.targets.map((t) => t.name);
-      this.finish('failed', designErrorText(message.error, names));
+      this.finish('failed');
+      if (this.sent) this.refuse(message.error, this.sent, designErrorText(message.error, names));
+      else this.error = designErrorText(message.error, names);
       return;
     }
     this.result = message.result;
@@ -275,8 +333,16 @@ export class DesignForm extends LitElement {
     this.windowNm = next;
   }
 
-  private setTarget(i: number, field: keyof TargetRow, value: string): void {
+  private setTarget(i: number, field: 'name' | 'abundance', value: string): void {
     this.targets = this.targets.map((t, k) => (k === i ? { ...t, [field]: value } : t));
+  }
+
+  private setLock(i: number, lock: DesignLock | undefined): void {
+    this.targets = this.targets.map((t, k) => {
+      if (k !== i) return t;
+      const { lock: _old, ...rest } = t;
+      return lock ? { ...rest, lock } : rest;
+    });
   }
 
   private toggle<T>(set: Set<T>, id: T, on: boolean): Set<T> {
@@ -286,35 +352,63 @@ export class DesignForm extends LitElement {
     return next;
   }
 
+  /** A refusal placed at `spot`, if the current one is. */
+  private placedAt(spot: FormSpot) {
+    const p = this.placed;
+    if (!p || p.spot.at !== spot.at || (p.spot.at === 'target' && spot.at === 'target' && p.spot.index !== spot.index))
+      return '';
+    return html`<p class="error beside" role="alert">${p.text}</p>`;
+  }
+
+  /** The microscope choice of free mode: shown when the panel is on an instrument profile. */
+  private microscopeChoice() {
+    const m = this.microscope;
+    if (!m) return '';
+    const label = `${FORM_WORDS.microscope} (${m.spec.name}) instead of stock bandpass sizes`;
+    return html`<div class="microscope">
+      ${checkbox(this.useMicroscope, label, (on) => (this.useMicroscope = on))} ${this.placedAt({ at: 'microscope' })}
+    </div>`;
+  }
+
   override render() {
-    const free = !(this.candidates && this.useCandidates);
+    const free = !this.catalog;
+    const parts = free ? this.owned : (this.candidates ?? NO_PARTS);
+    const linesFromMicroscope = !!this.onMicroscope;
     return html`
       <fieldset>
         <legend>Targets (abundance: a number, or high / medium / low)</legend>
         ${this.targets.map(
           (t, i) =>
             html`<div class="row">
-              <input
-                type="text"
-                aria-label="target name"
-                .value=${t.name}
-                @input=${(e: Event) => this.setTarget(i, 'name', (e.target as HTMLInputElement).value)}
-              />
-              <input
-                type="text"
-                aria-label="abundance"
-                list="abundance-words"
-                .value=${t.abundance}
-                @input=${(e: Event) => this.setTarget(i, 'abundance', (e.target as HTMLInputElement).value)}
-              />
-              <button
-                type="button"
-                @click=${() => (this.targets = this.targets.filter((_, k) => k !== i))}
-                ?disabled=${this.targets.length <= 1}
-              >
-                Remove
-              </button>
-            </div>`,
+                <input
+                  type="text"
+                  aria-label="target name"
+                  .value=${t.name}
+                  @input=${(e: Event) => this.setTarget(i, 'name', (e.target as HTMLInputElement).value)}
+                />
+                <input
+                  type="text"
+                  aria-label="abundance"
+                  list="abundance-words"
+                  .value=${t.abundance}
+                  @input=${(e: Event) => this.setTarget(i, 'abundance', (e.target as HTMLInputElement).value)}
+                />
+                <button
+                  type="button"
+                  @click=${() => (this.targets = this.targets.filter((_, k) => k !== i))}
+                  ?disabled=${this.targets.length <= 1}
+                >
+                  Remove
+                </button>
+                <qdp-target-lock
+                  .probes=${parts.probes}
+                  .channels=${parts.channels}
+                  .lock=${t.lock}
+                  target=${t.name}
+                  @lock-change=${(e: CustomEvent<{ lock?: DesignLock }>) => this.setLock(i, e.detail.lock)}
+                ></qdp-target-lock>
+              </div>
+              ${this.placedAt({ at: 'target', index: i })}`,
         )}
         <datalist id="abundance-words">${WORDS.map((w) => html`<option value=${w}></option>`)}</datalist>
         <button type="button" @click=${this.addTarget} ?disabled=${this.targets.length >= LIMITS.probes}>
@@ -326,12 +420,15 @@ export class DesignForm extends LitElement {
         <input
           type="text"
           aria-label="excitation lines"
+          placeholder=${linesFromMicroscope ? "the microscope's lines" : ''}
           .value=${this.excitationText}
           @input=${(e: Event) => (this.excitationText = (e.target as HTMLInputElement).value)}
       /></label>
+      ${this.placedAt({ at: 'excitation' })}
       ${this.candidates ? checkbox(this.useCandidates, CANDIDATES_ONLY, (on) => (this.useCandidates = on)) : ''}
       <fieldset ?disabled=${!free}>
         <legend>Free design</legend>
+        ${this.microscopeChoice()}
         ${EXCLUSION_WORDS.map((word) =>
           checkbox(
             this.exclude.has(word),

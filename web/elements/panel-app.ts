@@ -18,6 +18,7 @@ import { computePanel, DETECTORS, MATERIALS, type Computed } from '../state/comp
 import { demoPanel } from '../state/demo-panel';
 import { placeError, type FieldError } from '../state/error-map';
 import { offendingProbes, type PanelExclusion } from '../state/exclusions';
+import { designParts } from '../state/design-request';
 import { decodeFragment, encodeFragment, type ViewOptions } from '../state/fragment';
 import { checksIfLoaded, loadChecks } from '../state/load-checks';
 import {
@@ -283,11 +284,14 @@ export class PanelApp extends LitElement {
 
   /**
    * Replaces the panel by a loaded design proposal, always as a new history step so that Back returns to the panel
-   * before it (even one edited a moment ago, or a shared copy at /p/<id>, which the proposal leaves for /).
+   * before it (even one edited a moment ago, or a shared copy at /p/<id>, which the proposal leaves for /). The
+   * proposal has its own set-up, with any shared filters already in its channels, so it is on no instrument profile.
    */
   private loadProposal(panel: PanelSpec): void {
     this.sharedId = '';
     this.lastPushMs = 0;
+    this.instrument = undefined;
+    this.changes = undefined;
     this.load(panel, this.exclude);
   }
 
@@ -397,11 +401,11 @@ export class PanelApp extends LitElement {
     this.apply(moveEdge(this.panel, e.detail, { snapStock: this.snapStock }), e.detail.done ? 'push' : 'replace');
   }
 
-  /** The panel's probes (without their channel choice) and channels, for a search among them; none when empty. */
+  /** The panel's probes and channels as a design takes them, for a search among them; none when either is empty. */
   private candidates() {
     const p = this.panel;
     if (p.probes.length === 0 || p.channels.length === 0) return undefined;
-    return { probes: p.probes.map(({ channel: _c, ...probe }) => probe), channels: p.channels };
+    return designParts(p);
   }
 
   private sharedNote() {
@@ -515,9 +519,15 @@ export class PanelApp extends LitElement {
             <p>
               Name the targets and how abundant each is; the search proposes dots and filters (or picks from this
               panel's probes and channels) that keep the worst bleed-through low, and shows the proposal beside your
-              panel, to load for editing or discard.
+              panel, to load for editing or discard. A target can keep a probe or channel you already have, and on a
+              microscope profile the search can choose among its filters.
             </p>
-            <qdp-design-form .candidates=${this.candidates()} .sample=${sampleOf(p)}></qdp-design-form>
+            <qdp-design-form
+              .candidates=${this.candidates()}
+              .owned=${designParts(p)}
+              .microscope=${this.instrument}
+              .sample=${sampleOf(p)}
+            ></qdp-design-form>
           </section>
         </div>
         <div class="results">

@@ -5,13 +5,23 @@
  * loads it just after it starts (load-checks.ts) so the first bundle stays small.
  */
 import type { z } from 'zod';
-import type {
-  DesignRequest as DesignRequestSpec,
-  InstrumentSpec,
-  PanelOnInstrumentSpec,
-  PanelSpec,
+import {
+  SpectraError,
+  type DesignRequest as DesignRequestSpec,
+  type InstrumentSpec,
+  type PanelOnInstrumentSpec,
+  type PanelSpec,
 } from '../../spectra/index';
-import { DesignRequest, Instrument, issueToError, Panel, PanelRequest, SHARE_ID_PATTERN } from '../../worker/schemas';
+import {
+  ApiError,
+  DesignRequest,
+  Instrument,
+  issueToError,
+  Panel,
+  PanelRequest,
+  SHARE_ID_PATTERN,
+  withInstrument,
+} from '../../worker/schemas';
 import type { FieldError } from './error-map';
 import { isPanelExclusion } from './exclusions';
 import type { PageState } from './fragment';
@@ -27,8 +37,27 @@ export function checkPanel(panel: PanelSpec): FieldError | undefined {
 }
 
 /** The API's complaint about a design request, or undefined when the API would take it. */
-export function checkDesignRequest(request: DesignRequestSpec): FieldError | undefined {
+export function checkDesignRequest(request: DesignRequest): FieldError | undefined {
   return firstProblem(DesignRequest.safeParse(request).error);
+}
+
+/**
+ * A checked design request as the search takes it, resolved as the API resolves it: a request naming the instrument
+ * gets that profile's lines and channels written in (`instrument`: the profile the page has loaded). Otherwise the
+ * API's refusal, with the field's path.
+ */
+export function designForSearch(
+  request: DesignRequest,
+  instrument: InstrumentSpec | undefined,
+): { ok: true; request: DesignRequestSpec } | { ok: false; error: FieldError } {
+  try {
+    return { ok: true, request: withInstrument(request, instrument) };
+  } catch (e) {
+    if (e instanceof ApiError || e instanceof SpectraError) {
+      return { ok: false, error: { code: e.code, message: e.message, path: e.path } };
+    }
+    throw e;
+  }
 }
 
 /** A panel from untrusted JSON (a file, a link, a shared panel), or the API's message about its first problem. */

@@ -1,7 +1,8 @@
 import { Hono } from 'hono';
-import { runDesign } from '../../spectra/index';
-import { DesignRequest } from '../schemas/index';
+import { runDesign, type InstrumentSpec } from '../../spectra/index';
+import { DesignRequest, withInstrument } from '../schemas/index';
 import type { AppEnv } from '../env';
+import { loadInstrumentProfile } from '../instruments';
 import { finiteJsonResponse } from '../json';
 import { jsonBody } from '../middleware/json-body';
 import { validJson } from '../validation';
@@ -9,8 +10,12 @@ import { validJson } from '../validation';
 /**
  * POST /api/v1/panels/design: proposes a panel for the targets (exact over `candidates` when given, else free mode)
  * under a node budget, since the Workers runtime's clock does not advance during synchronous work; when the budget
- * ends first the answer is the best found, with `exact: false` and the bound in `stats.bound`.
+ * ends first the answer is the best found, with `exact: false` and the bound in `stats.bound`. A request naming an
+ * instrument reads the profile (one storage read) and chooses among its channels, as a panel on it is evaluated.
  */
-export const design = new Hono<AppEnv>().post('/', jsonBody(), validJson(DesignRequest), (c) =>
-  finiteJsonResponse(runDesign(c.req.valid('json'))),
-);
+export const design = new Hono<AppEnv>().post('/', jsonBody(), validJson(DesignRequest), async (c) => {
+  const request = c.req.valid('json');
+  let instrument: InstrumentSpec | undefined;
+  if (request.instrument !== undefined) instrument = await loadInstrumentProfile(c.env.PANELS, request.instrument);
+  return finiteJsonResponse(runDesign(withInstrument(request, instrument)));
+});

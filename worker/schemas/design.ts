@@ -1,18 +1,22 @@
 /**
- * The body of POST /api/v1/panels/design (and of the page's design worker): targets with abundances, excitation
- * lines, material limits, the emission window, optional candidates (catalog mode) and search options. The candidate
- * probes and channels use the panel schemas, so a candidate is written exactly like a panel's probe or channel.
+ * The body of POST /api/v1/panels/design (and of the page's design worker): targets with abundances and locks,
+ * excitation lines, material limits, the emission window, optional candidates (catalog mode), owned probes and
+ * channels, channel choices or an instrument (free mode) and search options. Candidate, owned and chosen probes and
+ * channels use the panel schemas, so each is written exactly like a panel's probe or channel.
  */
 import { z } from 'zod';
 import {
   ABUNDANCE_WORDS,
   DESIGN_DEFAULTS,
   EXCLUSION_WORDS,
+  instrumentChoices,
   type DesignRequest as DesignRequestSpec,
+  type InstrumentSpec,
 } from '../../spectra/index';
-import { ranged, text, wavelengthNm } from './fields';
+import { ApiError } from './errors';
+import { identifier, ranged, text, wavelengthNm } from './fields';
 import { LIMITS, RANGES } from './limits';
-import { Channel, ExcitationLine, WaterRaman } from './panel';
+import { Channel, ExcitationLine, InstrumentId, WaterRaman } from './panel';
 import { MaterialIdSchema, Probe } from './probe';
 
 const ABUNDANCE_NAMES = Object.keys(ABUNDANCE_WORDS) as [
@@ -28,11 +32,24 @@ export const Abundance = z.union([positive(RANGES.abundance[1]), z.enum(ABUNDANC
   error: `must be a number greater than 0 or one of ${ABUNDANCE_NAMES.join(', ')}`,
 });
 
+/** What a target must use: the id of a probe and/or of a channel (a candidate or an owned one). */
+export const DesignLock = z.strictObject({ probe: identifier().optional(), channel: identifier().optional() });
+
 /** One target of a design. */
 export const DesignTarget = z.strictObject({
   name: text().min(1, { error: 'must not be empty' }),
   abundance: Abundance,
+  lock: DesignLock.optional(),
 });
+
+const probeList = () =>
+  z
+    .array(Probe, { error: 'must be an array of probes' })
+    .max(LIMITS.probes, { error: `has more than ${LIMITS.probes} probes` });
+const channelList = () =>
+  z
+    .array(Channel, { error: 'must be an array of channels' })
+    .max(LIMITS.channels, { error: `has more than ${LIMITS.channels} channels` });
 
 const wholeNm = (min: number, max: number) =>
   z
@@ -69,6 +86,8 @@ export const DesignOptions = z.strictObject({
   maxInterference: ranged(0, 1e6).optional(),
 });
 
+const NO_EXCITATION = 'needs at least one excitation line (or an instrument, whose lines are then used)';
+
 /** The design request. Exclusions name material classes in words (EXCLUSIONS: cadmium, lead, arsenic). */
 export const DesignRequest = z
   .strictObject({
@@ -79,22 +98,20 @@ export const DesignRequest = z
     excitation: z
       .array(ExcitationLine, { error: 'must be an array of excitation lines' })
       .min(1, { error: 'needs at least one excitation line' })
-      .max(LIMITS.lines, { error: `has more than ${LIMITS.lines} lines` }),
+      .max(LIMITS.lines, { error: `has more than ${LIMITS.lines} lines` })
+      .optional(),
     allowedMaterials: z.array(MaterialIdSchema).min(1, { error: 'must name at least one material' }).optional(),
     exclude: z.array(z.enum(EXCLUSION_WORDS, { error: `must be ${wordList(EXCLUSION_WORDS)}` })).optional(),
     windowNm: z.tuple([wavelengthNm(), wavelengthNm()], { error: 'must be [min, max] in nm' }).optional(),
     candidates: z
       .strictObject({
-        probes: z
-          .array(Probe)
-          .min(1, { error: 'needs at least one probe' })
-          .max(LIMITS.probes, { error: `has more than ${LIMITS.probes} probes` }),
-        channels: z
-          .array(Channel)
-          .min(1, { error: 'needs at least one channel' })
-          .max(LIMITS.channels, { error: `has more than ${LIMITS.channels} channels` }),
+        probes: probeList().min(1, { error: 'needs at least one probe' }),
+        channels: channelList().min(1, { error: 'needs at least one channel' }),
       })
       .optional(),
+    owned: z.strictObject({ probes: probeList().optional(), channels: channelList().optional() }).optional(),
+    channelChoices: channelList().min(1, { error: 'needs at least one channel' }).optional(),
+    instrument: InstrumentId.optional(),
     options: DesignOptions.optional(),
     scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
     waterRaman: WaterRaman.optional(),
@@ -109,6 +126,7 @@ export const DesignRequest = z
       if (names.has(t.name)) issue(`names target '${t.name}' twice`, ['targets', i, 'name']);
       names.add(t.name);
     });
+    if (request.excitation === undefined && request.instrument === undefined) issue(NO_EXCITATION, ['excitation']);
     for (const list of ['probes', 'channels'] as const) {
       const ids = new Set<string>();
       request.candidates?.[list].forEach((item, i) => {
@@ -117,6 +135,9 @@ export const DesignRequest = z
         ids.add(item.id);
       });
     }
+    checkModes(request, issue);
+    checkOwned(request, ctx);
+    checkLocks(request, issue);
     const range = request.options?.bandwidthRangeNm;
     if (range && range[0] > range[1]) issue('must be [min, max] with min ≤ max', ['options', 'bandwidthRangeNm']);
     const [wMin, wMax] = range ?? DESIGN_DEFAULTS.bandwidthRangeNm;
@@ -130,15 +151,158 @@ export const DesignRequest = z
     }
     for (const list of ['probes', 'channels'] as const) {
       const offered = request.candidates?.[list].length;
-      if (offered !== undefined && offered < n)
-        issue(`has ${offered} ${list}; ${n} targets need at least ${n}`, ['candidates', list]);
+      const owned = request.owned?.[list]?.length ?? 0;
+      const also = owned ? ` (and ${owned} owned)` : '';
+      if (offered !== undefined && offered + owned < n)
+        issue(`has ${offered} ${list}${also}; ${n} targets need at least ${n}`, ['candidates', list]);
+    }
+    const choices = request.channelChoices?.length;
+    const ownedChannels = request.owned?.channels?.length ?? 0;
+    if (choices !== undefined && choices + ownedChannels < n) {
+      const also = ownedChannels ? ` (and ${ownedChannels} owned)` : '';
+      issue(`has ${choices} channels${also}; ${n} targets need at least ${n}`, ['channelChoices']);
     }
   });
+
+type Issue = (message: string, path: (string | number)[]) => void;
+
+/** Catalog mode (candidates) chooses its own channels: neither channel choices nor an instrument go with it. */
+function checkModes(request: DesignRequest, issue: Issue): void {
+  if (request.channelChoices && request.candidates)
+    issue('must not be given with candidates: catalog mode chooses among candidates.channels', ['channelChoices']);
+  if (request.instrument !== undefined && request.candidates)
+    issue(
+      'must not be given with candidates: catalog mode chooses among candidates.channels (leave candidates out to ' +
+        "choose among the instrument's channels)",
+      ['instrument'],
+    );
+  if (request.instrument !== undefined && request.channelChoices)
+    issue("must not be given with channelChoices: the instrument's channels are the choices", ['instrument']);
+}
+
+/** Owned ids are unique in their list and differ from the candidates' and the channel choices' ids. */
+function checkOwned(request: DesignRequest, ctx: z.RefinementCtx): void {
+  const duplicate = (message: string, path: (string | number)[]) =>
+    ctx.addIssue({ code: 'custom', message, path, params: { apiCode: 'duplicate_id' } });
+  const choiceIds = new Set<string>();
+  request.channelChoices?.forEach((channel, i) => {
+    if (choiceIds.has(channel.id))
+      duplicate(`id '${channel.id}' is used twice in channelChoices`, ['channelChoices', i, 'id']);
+    choiceIds.add(channel.id);
+  });
+  for (const list of ['probes', 'channels'] as const) {
+    const single = list === 'probes' ? 'probe' : 'channel';
+    const candidateIds = new Set(request.candidates?.[list].map((item) => item.id));
+    const seen = new Set<string>();
+    request.owned?.[list]?.forEach((item, i) => {
+      const path = ['owned', list, i, 'id'];
+      if (seen.has(item.id)) duplicate(`id '${item.id}' is used twice in owned ${list}`, path);
+      else if (candidateIds.has(item.id)) duplicate(`id '${item.id}' is also a candidate ${single}'s id`, path);
+      else if (list === 'channels' && choiceIds.has(item.id))
+        duplicate(`id '${item.id}' is also the id of one of channelChoices`, path);
+      seen.add(item.id);
+    });
+  }
+}
+
+/**
+ * Each lock names something (a probe, a channel or both) the request offers: in catalog mode a candidate or an owned
+ * item, in free mode an owned item; no two targets lock the same probe or the same channel.
+ */
+function checkLocks(request: DesignRequest, issue: Issue): void {
+  const catalog = request.candidates !== undefined;
+  const offered = {
+    probe: new Set([...(request.candidates?.probes ?? []), ...(request.owned?.probes ?? [])].map((p) => p.id)),
+    channel: new Set([...(request.candidates?.channels ?? []), ...(request.owned?.channels ?? [])].map((c) => c.id)),
+  };
+  const lockedBy = { probe: new Map<string, number>(), channel: new Map<string, number>() };
+  request.targets.forEach((target, t) => {
+    const lock = target.lock;
+    if (lock === undefined) return;
+    if (lock.probe === undefined && lock.channel === undefined)
+      issue('must name a probe or a channel to use for this target (or be left out)', ['targets', t, 'lock']);
+    for (const kind of ['probe', 'channel'] as const) {
+      const id = lock[kind];
+      if (id === undefined) continue;
+      const path = ['targets', t, 'lock', kind];
+      if (!offered[kind].has(id)) {
+        const where = catalog
+          ? `among the candidate or owned ${kind}s`
+          : `among the owned ${kind}s (in free mode a lock names an owned ${kind})`;
+        issue(`names ${kind} '${id}', which is not ${where}`, path);
+        continue;
+      }
+      const first = lockedBy[kind].get(id);
+      if (first === undefined) lockedBy[kind].set(id, t);
+      else
+        issue(
+          `contradictory locks: targets '${request.targets[first].name}' and '${target.name}' both lock ${kind} ` +
+            `'${id}', which can serve only one target`,
+          path,
+        );
+    }
+  });
+}
 
 /** A validated design request. */
 export type DesignRequest = z.infer<typeof DesignRequest>;
 
-// The zod request must stay assignable to the spectral library's DesignRequest (a compile error otherwise).
+/**
+ * A validated request as the spectral library takes it: `instrument` resolved (its lines and channels written in,
+ * see withInstrument), so the excitation lines are there.
+ */
+export type ResolvedDesignRequest = Omit<DesignRequest, 'instrument' | 'excitation'> & {
+  excitation: NonNullable<DesignRequest['excitation']>;
+};
+
+// The zod request, its instrument resolved, must stay assignable to the spectral library's DesignRequest.
 type Assert<T extends true> = T;
-/** `true` while a validated request is a valid spectra DesignRequest. */
-export type DesignRequestMatchesSpec = Assert<DesignRequest extends DesignRequestSpec ? true : false>;
+/** `true` while a validated request without its instrument is a valid spectra DesignRequest. */
+export type DesignRequestMatchesSpec = Assert<ResolvedDesignRequest extends DesignRequestSpec ? true : false>;
+
+/**
+ * A validated request as the spectral library takes it. Without `instrument`, the request itself. With it (the
+ * caller has loaded the profile), the instrument's lines and channel presets as a panel on it is evaluated (spectra's
+ * instrumentChoices: the request's lines, or all the lasers) become its `excitation` and `channelChoices`; an owned
+ * channel with the id of one of the instrument's takes its place (so a target can lock a channel of the microscope).
+ * Besides the refusals of instrumentChoices, fewer channels than targets, or every preset owned while a target locks
+ * no channel, is refused at `instrument`.
+ */
+export function withInstrument(request: DesignRequest, instrument: InstrumentSpec | undefined): ResolvedDesignRequest {
+  const { instrument: id, excitation, ...rest } = request;
+  if (id === undefined) {
+    if (!excitation) throw new ApiError(400, 'invalid_input', `excitation ${NO_EXCITATION}`, ['excitation']);
+    return { ...rest, excitation };
+  }
+  if (!instrument) throw new ApiError(400, 'unknown_instrument', `instrument '${id}' is not loaded`, ['instrument']);
+  const choices = instrumentChoices(instrument, excitation);
+  const owned = new Set(request.owned?.channels?.map((c) => c.id));
+  const channelChoices = choices.channels.filter((c) => !owned.has(c.id));
+  const n = request.targets.length;
+  if (channelChoices.length + owned.size < n) {
+    const also = owned.size ? ` (with ${owned.size} owned)` : '';
+    const offered = channelChoices.length + owned.size;
+    throw new ApiError(
+      400,
+      'invalid_input',
+      `the instrument '${instrument.name}' offers ${offered} channels under these lines${also}; ${n} targets need ` +
+        `at least ${n}`,
+      ['instrument'],
+    );
+  }
+  if (channelChoices.length === 0) {
+    // Every preset is owned: fine when every target locks its channel (nothing is left to choose), else refused.
+    const open = request.targets.find((t) => t.lock?.channel === undefined);
+    if (open) {
+      throw new ApiError(
+        400,
+        'invalid_input',
+        `every channel of the instrument '${instrument.name}' is owned, so none is left to choose for target ` +
+          `'${open.name}' (lock a channel for it, or own fewer)`,
+        ['instrument'],
+      );
+    }
+    return { ...rest, excitation: choices.excitation };
+  }
+  return { ...rest, excitation: choices.excitation, channelChoices };
+}

@@ -59,7 +59,15 @@ export { Dye, DyeList, SourcedValueJson } from './dyes';
 /** The contract's error body. */
 export type ErrorBody = z.infer<typeof ErrorBody>;
 export { Evaluation, ProbeEvaluationJson, WorstJson, LotShiftJson, GridJson } from './evaluation';
-export { Abundance, DesignOptions, DesignRequest, DesignTarget } from './design';
+export {
+  Abundance,
+  DesignLock,
+  DesignOptions,
+  DesignRequest,
+  DesignTarget,
+  withInstrument,
+  type ResolvedDesignRequest,
+} from './design';
 export {
   DesignResponse,
   DesignObjectiveJson,

@@ -87,6 +87,11 @@ const panelFields = {
   waterRaman: WaterRaman.optional(),
 };
 
+/** The id of a stored or example instrument profile (a share id). */
+export const InstrumentId = z
+  .string({ error: 'must be a string (an instrument id)' })
+  .regex(SHARE_ID_PATTERN, { error: 'must be an instrument id: 24 letters, digits, - or _' });
+
 /** A panel with every part written out (docs/api.md, "Panels"): what the models evaluate. */
 export const Panel = z.strictObject(panelFields).superRefine(checkReferences);
 
@@ -99,10 +104,7 @@ export const PanelRequest = z
     ...panelFields,
     excitation: panelFields.excitation.optional(),
     channels: panelFields.channels.optional(),
-    instrument: z
-      .string({ error: 'must be a string (an instrument id)' })
-      .regex(SHARE_ID_PATTERN, { error: 'must be an instrument id: 24 letters, digits, - or _' })
-      .optional(),
+    instrument: InstrumentId.optional(),
   })
   .superRefine((panel, ctx) => {
     const issue = (message: string, path: string[]) =>
