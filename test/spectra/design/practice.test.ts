@@ -27,10 +27,11 @@ function checkPractice(panel: PanelSpec): void {
     expect(isStockBandpass(filter.centerNm, filter.widthNm), `${filter.centerNm}/${filter.widthNm}`).toBe(true);
     const t1 = filterTransmission(filter, grid);
     for (const line of panel.excitation) {
-      // OD 6 at the line (common practice), to a hair: a filter whose floor is the threshold meets it.
+      // OD 6 at the line (common practice), within 1e-6 OD (a relative 2.3e-6 in transmission, far below any
+      // filter's tolerance): a filter whose floor is the threshold meets it, whatever its edges add far from the line.
       const atLine = filterTransmission(filter, { startNm: line.wavelengthNm, stepNm: 1, count: 1 })[0];
       const od = -Math.log10(atLine);
-      expect(od, `${filter.centerNm}/${filter.widthNm} at ${line.wavelengthNm} nm`).toBeGreaterThanOrEqual(6 - 1e-9);
+      expect(od, `${filter.centerNm}/${filter.widthNm} at ${line.wavelengthNm} nm`).toBeGreaterThanOrEqual(6 - 1e-6);
     }
     const dot = resolveDot({ ...probe, abundance: undefined, channel: undefined } as never, { grid });
     for (const line of panel.excitation)
