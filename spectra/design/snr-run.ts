@@ -2,6 +2,7 @@
  * The search of both design modes on the signal-to-noise objective, in two stages over one candidate problem:
  *  1. the exact min–max interference search (catalog.ts) with a quarter of the node budget, whose design, when it
  *     keeps the interference ceiling and the locks, is the first incumbent (a good start prunes far more);
+ *     A first design that breaks the ceiling is repaired by single moves when it can be;
  *  2. the branch and bound on the S/N objective (snr-search.ts) with the rest of the budget, and, when that stops
  *     unproven, local moves and swaps from its best design.
  * `exact` is stage 2's: no design of the candidates has a better worst S/N.
@@ -24,6 +25,9 @@ export interface SnrRun {
  */
 const POLISH_EVALUATIONS = 20_000;
 
+/** Most designs a repair of a first design may try (each costs about n² pair checks; our choice). */
+const REPAIR_EVALUATIONS = 50_000;
+
 /** Share of the node budget the interference stage may use. */
 const SEED_SHARE = 0.25;
 
@@ -45,6 +49,10 @@ export function* snrSearchSteps(
     if (seed.design) firsts.unshift(seed.design);
   }
   const search = new SnrSearch(problem, firsts);
+  // A first design above the ceiling is repaired into a first incumbent when single moves can bring it under.
+  if (search.incumbentWorst === null) {
+    for (const start of firsts) if (search.repair(start, REPAIR_EVALUATIONS)) break;
+  }
   const budget = Math.max(1, nodeBudget - (seed?.stats.nodesVisited ?? 0));
   while (!search.done && search.nodesVisited < budget && !shouldStop?.()) {
     search.advance(Math.min(chunk, budget - search.nodesVisited));

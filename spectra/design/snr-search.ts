@@ -275,6 +275,77 @@ export class SnrSearch {
     return evaluations;
   }
 
+  /**
+   * Repairs a design that breaks the interference ceiling or the signal floor (e.g. the min–max stage's best when it
+   * stays above the ceiling): single moves to other values of a target's list and swaps of two targets' values, kept
+   * while they lower the total
+   * excess (Σ over pairs of how far I(t→u) exceeds the ceiling, plus how far the dimmest own signal falls short of
+   * the floor, as fractions), until none is left, when the design is considered as an incumbent. Returns true then.
+   */
+  repair(design: DesignAssignment, maxEvaluations: number): boolean {
+    const f = this.flat;
+    const n = f.targets;
+    const v = Int32Array.from(design.probe, (p, t) => p * f.channels + design.channel[t]);
+    const inList = (t: number, x: number) =>
+      this.dom[0].subarray(t * this.maxDomain, t * this.maxDomain + this.domCount[0][t]).includes(x);
+    if (!v.every((x, t) => inList(t, x))) return false;
+    const excess = (w: Int32Array) => {
+      let sum = 0;
+      let top = 0;
+      let low = Infinity;
+      for (let t = 0; t < n; t++) {
+        const own = f.own[t * f.values + w[t]];
+        top = Math.max(top, own);
+        low = Math.min(low, own);
+        for (let u = 0; u < n; u++) {
+          if (u === t) continue;
+          const pt = f.probeOf[w[t]];
+          const cu = f.channelOf[w[u]];
+          if (pt === f.probeOf[w[u]] || cu === f.channelOf[w[t]]) return Infinity;
+          if (f.conflict !== null && f.conflict[f.channelOf[w[t]] * f.channels + cu] === 1) return Infinity;
+          const i = (f.abundance[t] * f.light[cu * f.probes + pt]) / f.own[u * f.values + w[u]];
+          if (i > this.ceiling) sum += i - this.ceiling;
+        }
+      }
+      return sum + Math.max(0, f.minSignalFraction - low / top);
+    };
+    let current = excess(v);
+    let evaluations = 0;
+    while (current > 0 && evaluations < maxEvaluations) {
+      let improved = false;
+      for (let t = 0; t < n && current > 0 && evaluations < maxEvaluations; t++) {
+        const keep = v[t];
+        let best = keep;
+        for (let i = 0; i < this.domCount[0][t] && evaluations < maxEvaluations; i++) {
+          v[t] = this.dom[0][t * this.maxDomain + i];
+          evaluations++;
+          const e = excess(v);
+          if (e < current) {
+            current = e;
+            best = v[t];
+          }
+        }
+        v[t] = best;
+        if (best !== keep) improved = true;
+        // Swaps: target t takes another target's value and gives it its own (abundances trade places).
+        for (let u = t + 1; u < n && current > 0 && evaluations < maxEvaluations; u++) {
+          if (!inList(t, v[u]) || !inList(u, v[t])) continue;
+          [v[t], v[u]] = [v[u], v[t]];
+          evaluations++;
+          const e = excess(v);
+          if (e < current) {
+            current = e;
+            improved = true;
+          } else [v[t], v[u]] = [v[u], v[t]];
+        }
+      }
+      if (!improved) break;
+    }
+    if (current > 0) return false;
+    this.offer({ probe: Array.from(v, (x) => f.probeOf[x]), channel: Array.from(v, (x) => f.channelOf[x]) });
+    return this.best !== null;
+  }
+
   /** The worst S/N of the best design so far (null: none yet). */
   get incumbentWorst(): number | null {
     return this.best ? this.best.worst : null;
