@@ -13,7 +13,8 @@
  * x_i the photons of u in channel i, because the least-squares estimate of a square system attains the bound with
  * every other probe unknown, knowing them can only lower it, and v_i is at least F·(x_i + the light of the probes
  * already placed + the sample in u's own channel) + r². The n − 1 other channels of the design are bounded by the
- * n − 1 most informative candidates that can join it, each holding at least another target's own signal. With a
+ * n − 1 most informative candidates that can join it, each holding another target's own signal: at least the floor's
+ * share, and at least u's light there over the interference ceiling. With a
  * shared photon scale, k ≤ P / max(u's own light, the brightest placed),
  * and the bound's terms only grow with k. Targets of equal abundance without locks are interchangeable (when the
  * noise settings are one number each), so only increasing values are searched among them.
@@ -470,7 +471,8 @@ export class SnrSearch {
       if (c === own || (f.conflict !== null && f.conflict[own * f.channels + c] === 1)) continue;
       const x = k * f.abundance[u] * f.light[c * f.probes + p];
       const g = this.cliqueOf[c];
-      if (x > 0) info[g] = Math.max(info[g], (x * x) / (F * (x + held) + r * r));
+      // That target's own photons there are also at least x / ceiling (u's light there is within the ceiling).
+      if (x > 0) info[g] = Math.max(info[g], (x * x) / (F * (x + Math.max(held, x / this.ceiling)) + r * r));
     }
     info.sort((a, b) => b - a);
     let sum = 0;

@@ -83,6 +83,26 @@ describe('free-mode proposals keep the practice checks', () => {
     expect(result.largestUsableTargets).toBeLessThan(12);
   });
 
+  it.each([5, 8, 16])(
+    '%s targets under 405 + 488 nm: a proposal passing every check within a 100 percent ceiling, or no_usable_panel',
+    (n) => {
+      const result = runDesign({
+        targets: targets(n),
+        excitation: [{ wavelengthNm: 405 }, { wavelengthNm: 488 }],
+      });
+      if (result.panel === null) {
+        expect(result.verdict).toBe('no_usable_panel');
+        expect(result.verdictReason.length).toBeGreaterThan(20);
+        expect(result.largestUsableTargets).toBeLessThan(n);
+        return;
+      }
+      checkPractice(result.panel);
+      expect(result.objective!.worstInterference).toBeLessThanOrEqual(1);
+      if (result.verdict === 'usable') expect(result.objective!.worstSignalToNoise).toBeGreaterThanOrEqual(5);
+      else expect(result.verdictReason).toContain('signal-to-noise');
+    },
+  );
+
   it('asking for carbon dots by name brings them back as candidates', () => {
     const result = runDesign({
       targets: targets(2),
