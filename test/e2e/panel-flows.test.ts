@@ -191,7 +191,7 @@ describe('the panel page', () => {
       await titleInput(page).fill('My six-colour panel');
       await titleInput(page).press('Tab');
       const form = page.locator('qdp-design-form');
-      await form.getByText("choose only from the current panel's probes and channels").click();
+      await form.getByLabel('new dots and filters').check();
       await form.getByRole('button', { name: 'Add target' }).click();
       await form.getByRole('button', { name: 'Add target' }).click();
       await form.getByRole('button', { name: 'Propose', exact: true }).click();
@@ -224,7 +224,7 @@ describe('the panel page', () => {
     async () => {
       const { page, problems } = await open(app.baseUrl + '/');
       const form = page.locator('qdp-design-form');
-      await form.getByText("choose only from the current panel's probes and channels").click();
+      await form.getByLabel('new dots and filters').check();
       await form.getByLabel('Use my probe for target 1').selectOption('p4');
       await form.getByRole('button', { name: 'Propose', exact: true }).click();
       const summary = page.locator('qdp-proposal-summary');

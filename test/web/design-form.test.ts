@@ -5,8 +5,11 @@ import { EXAMPLE_INSTRUMENTS, type DesignRequest } from '../../spectra/index';
 import '../../web/elements/design-form';
 import type { DesignForm } from '../../web/elements/design-form';
 import { demoPanel } from '../../web/state/demo-panel';
+import { DRAFT_KEY } from '../../web/state/design-draft';
 import { designParts } from '../../web/state/design-request';
 
+// Each test starts with the form's defaults: nothing kept in this browser from the one before.
+beforeEach(() => localStorage.removeItem(DRAFT_KEY));
 afterEach(() => document.body.replaceChildren());
 
 async function mount(options: Record<string, unknown> = {}): Promise<DesignForm> {
@@ -134,7 +137,9 @@ describe('<qdp-design-form>', () => {
       expect(orange).toContain('bandpass 605/20');
       expect(green).toContain('bandpass 525/30');
       expect(green).not.toContain('shell');
-      expect(root.querySelector('.objective')!.textContent).toContain('proven optimal over the candidates');
+      expect(root.querySelector('.objective')!.textContent).toContain(
+        "proven best among the current panel's probes and channels",
+      );
       const warnings = root.querySelector('ul.warnings')!.textContent!;
       expect(warnings).toContain('cadmium');
       expect(warnings).toContain('local regulations, institutional safety rules and licensed practice');
@@ -175,7 +180,7 @@ describe('<qdp-design-form>', () => {
   });
 
   it(
-    'a window of 600–615 nm, too narrow for two passbands, shows the refusal naming "Window, nm" ' +
+    'a window of 600–615 nm, too narrow for two passbands, shows the refusal beside "Window, nm" ' +
       'and proposes nothing',
     async () => {
       const el = await mount({ nodeBudget: 3000 });
@@ -191,9 +196,9 @@ describe('<qdp-design-form>', () => {
       }
       button(el, 'Propose').click();
       await until(() => el.shadowRoot!.querySelector('.error') !== null);
-      const text = el.shadowRoot!.querySelector('.error')!.textContent!;
-      expect(text).toMatch(/^No proposal: .*600–615 nm/);
-      expect(text).toMatch(/\(Window, nm\)$/);
+      const error = el.shadowRoot!.querySelector('.error')!;
+      expect(error.textContent).toBe('Window, nm: 2 passbands of at least 20 nm do not fit in 600–615 nm');
+      expect(error.previousElementSibling?.textContent).toContain('Window, nm');
       expect(summary(el)).toBeNull();
       expect(el.shadowRoot!.querySelector('output')!.textContent).toContain('failed');
       expect(proposed).toBe(0);
@@ -248,7 +253,7 @@ describe('<qdp-design-form>', () => {
     field.value = 'blue';
     field.dispatchEvent(new Event('input'));
     button(el, 'Propose').click();
-    await el.updateComplete;
+    await until(() => el.shadowRoot!.querySelector('.error') !== null);
     expect(el.shadowRoot!.querySelector('.error')!.textContent).toBe(
       'Excitation lines, nm: must be numbers in nm, e.g. 405, 488',
     );
