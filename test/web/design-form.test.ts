@@ -5,7 +5,7 @@ import { EXAMPLE_INSTRUMENTS, type DesignRequest } from '../../spectra/index';
 import '../../web/elements/design-form';
 import type { DesignForm } from '../../web/elements/design-form';
 import { demoPanel } from '../../web/state/demo-panel';
-import { DRAFT_KEY } from '../../web/state/design-draft';
+import { DRAFT_KEY, readDraft } from '../../web/state/design-draft';
 import { designParts } from '../../web/state/design-request';
 
 // Each test starts with the form's defaults: nothing kept in this browser from the one before.
@@ -105,6 +105,25 @@ describe('<qdp-design-form>', () => {
     expect(summary(el)).toBeNull();
     await new Promise((r) => setTimeout(r, 100));
     expect(proposed).toBe(0);
+  });
+
+  it("after a search the focus is on the proposal's heading, and after Discard on Propose", async () => {
+    const el = await mount({ nodeBudget: 3000 });
+    await userEvent.click(button(el, 'Propose'));
+    await until(() => summary(el) !== null && summary(el)!.shadowRoot!.activeElement !== null);
+    expect(summary(el)!.shadowRoot!.activeElement!.textContent).toBe('Proposal, not loaded: your panel is unchanged');
+    await userEvent.click(summaryButton(el, 'Discard'));
+    await until(() => el.shadowRoot!.activeElement !== null);
+    expect(el.shadowRoot!.activeElement).toBe(button(el, 'Propose'));
+  });
+
+  it("Propose with 'plenty' as target 2's abundance moves the focus to that abundance field", async () => {
+    const el = await mount();
+    const abundance = el.shadowRoot!.querySelectorAll<HTMLInputElement>('input[aria-label="abundance"]')[1];
+    await userEvent.fill(page.elementLocator(abundance), 'plenty');
+    await userEvent.click(button(el, 'Propose'));
+    await until(() => el.shadowRoot!.activeElement === abundance);
+    expect(abundance.getAttribute('aria-invalid')).toBe('true');
   });
 
   it(
@@ -403,5 +422,54 @@ describe('<qdp-design-form> locks and the microscope', () => {
     );
     expect(error.previousElementSibling?.textContent).toContain('Excitation lines, nm');
     expect(posted()).toBeUndefined();
+  });
+});
+
+describe('<qdp-design-form> kept in this browser', () => {
+  it(
+    "a kept Share-of-light check of 5 comes back in its field with the schema's 0–1 range under it " +
+      'and the abundance "plenty" marked beside its row',
+    async () => {
+      localStorage.setItem(
+        DRAFT_KEY,
+        JSON.stringify({
+          targets: [
+            { name: 'CD3', abundance: 'plenty' },
+            { name: 'CD8', abundance: 'low' },
+          ],
+          checks: { minChannelShare: 5 },
+        }),
+      );
+      const el = await mount();
+      const share = el.shadowRoot!.querySelector('qdp-number-field[data-check="minChannelShare"]')!;
+      const abundance = el.shadowRoot!.querySelector<HTMLInputElement>('input[aria-label="abundance"]')!;
+      expect(share.shadowRoot!.querySelector('input')!.value).toBe('5');
+      expect(abundance.value).toBe('plenty');
+      // The schema answers with the first refused field: the target's abundance, beside its row.
+      await until(() => el.shadowRoot!.querySelector('.error') !== null);
+      expect(el.shadowRoot!.querySelector('.error')!.textContent).toBe(
+        'Abundance: must be a number greater than 0 or one of high, medium, low',
+      );
+      expect(abundance.getAttribute('aria-invalid')).toBe('true');
+      // Once the abundance is fixed, the check's own refusal shows under it.
+      await userEvent.fill(page.elementLocator(abundance), 'high');
+      await until(() => share.shadowRoot!.querySelector('.msg') !== null);
+      expect(share.shadowRoot!.querySelector('.msg')!.textContent).toBe(
+        "Share of a probe's light its channel passes, at least (0–1): must be between 0 and 1",
+      );
+      expect(el.shadowRoot!.querySelector('.error')).toBeNull();
+    },
+  );
+
+  it('reading kept inputs drops a non-list of targets, a window of text, unknown materials and unknown words', () => {
+    const kept = readDraft({
+      targets: 'CD3',
+      windowNm: ['blue', 800],
+      allowed: ['cdse', 'unobtainium'],
+      exclude: ['cadmium', 'mercury'],
+      excitationText: 405,
+      useCandidates: false,
+    });
+    expect(kept).toEqual({ allowed: ['cdse'], exclude: ['cadmium'], useCandidates: false });
   });
 });

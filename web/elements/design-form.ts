@@ -251,6 +251,10 @@ export class DesignForm extends LitElement {
     .error.beside {
       margin: 0 0 0.3rem;
     }
+    input[aria-invalid='true'] {
+      border: 2px solid #8b1a1a;
+      background: #fff4f4;
+    }
     button:focus-visible,
     input:focus-visible {
       outline: 3px solid #1a56db;
@@ -531,6 +535,12 @@ export class DesignForm extends LitElement {
     return next;
   }
 
+  /** 'true' when the shown refusal is about this part of target `index`'s row (its input is then marked). */
+  private refused(index: number, part: 'name' | 'abundance'): 'true' | 'false' {
+    const p = this.placed;
+    return p?.spot.at === 'target' && p.spot.index === index && p.path[2] === part ? 'true' : 'false';
+  }
+
   /** The refusal placed at `spot`, if the current one is. */
   private placedAt(spot: FormSpot) {
     const p = this.placed;
@@ -576,6 +586,7 @@ export class DesignForm extends LitElement {
         <input
           type="text"
           aria-label="target name"
+          aria-invalid=${this.refused(i, 'name')}
           data-target=${i}
           data-part="name"
           .value=${t.name}
@@ -584,6 +595,7 @@ export class DesignForm extends LitElement {
         <input
           type="text"
           aria-label="abundance"
+          aria-invalid=${this.refused(i, 'abundance')}
           list="abundance-words"
           data-target=${i}
           data-part="abundance"
@@ -627,6 +639,7 @@ export class DesignForm extends LitElement {
         <input
           type="text"
           aria-label="excitation lines"
+          aria-invalid=${this.placed?.spot.at === 'excitation' ? 'true' : 'false'}
           data-spot="excitation"
           placeholder=${linesFromMicroscope ? "the microscope's lines" : ''}
           .value=${this.excitationText}
@@ -658,6 +671,7 @@ export class DesignForm extends LitElement {
           <input
             type="number"
             aria-label="window start"
+            aria-invalid=${this.placed?.spot.at === 'window' ? 'true' : 'false'}
             data-spot="window"
             .value=${String(this.windowNm[0])}
             @change=${(e: Event) => this.setWindow(0, (e.target as HTMLInputElement).value)} />
@@ -665,6 +679,7 @@ export class DesignForm extends LitElement {
           <input
             type="number"
             aria-label="window end"
+            aria-invalid=${this.placed?.spot.at === 'window' ? 'true' : 'false'}
             .value=${String(this.windowNm[1])}
             @change=${(e: Event) => this.setWindow(1, (e.target as HTMLInputElement).value)}
         /></label>

@@ -102,9 +102,8 @@ function proofText(r: DesignResult): string {
   const bound = r.stats?.signalToNoiseBound;
   const gap = r.stats?.gap;
   if (typeof bound !== 'number') return 'best found, not proven best; no ceiling proven yet';
-  const ceiling = `best found, not proven best: no design ${free ? 'on the grid catalog' : 'of them'} can exceed ${bound.toPrecision(
-    3,
-  )}`;
+  const where = free ? 'on the grid catalog' : `from ${FORM_WORDS.candidates}`;
+  const ceiling = `best found, not proven best: no design ${where} can exceed ${bound.toPrecision(3)}`;
   if (typeof gap !== 'number') return ceiling;
   // Free mode's gap is the grid design's, measured before the refinement moved it off the grid.
   return free
