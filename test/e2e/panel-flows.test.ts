@@ -191,7 +191,7 @@ describe('the panel page', () => {
       await titleInput(page).fill('My six-colour panel');
       await titleInput(page).press('Tab');
       const form = page.locator('qdp-design-form');
-      await form.getByText("choose only from the current panel's probes and channels").click();
+      await form.getByLabel('new dots and filters').check();
       await form.getByRole('button', { name: 'Add target' }).click();
       await form.getByRole('button', { name: 'Add target' }).click();
       await form.getByRole('button', { name: 'Propose', exact: true }).click();
@@ -224,7 +224,7 @@ describe('the panel page', () => {
     async () => {
       const { page, problems } = await open(app.baseUrl + '/');
       const form = page.locator('qdp-design-form');
-      await form.getByText("choose only from the current panel's probes and channels").click();
+      await form.getByLabel('new dots and filters').check();
       await form.getByLabel('Use my probe for target 1').selectOption('p4');
       await form.getByRole('button', { name: 'Propose', exact: true }).click();
       const summary = page.locator('qdp-proposal-summary');
@@ -360,6 +360,63 @@ describe('keeping typed work', () => {
     expect(problems).toEqual([]);
     await page.close();
   });
+});
+
+describe("keeping the design form's typed work", () => {
+  it(
+    'targets, abundances, a lock, lines, free design, cadmium-free, window and a check come back after a reload, ' +
+      "and the abundance 'plenty' is still refused beside its target",
+    async () => {
+      const { page, problems } = await open(app.baseUrl + '/');
+      const form = page.locator('qdp-design-form');
+      const names = form.locator('input[aria-label="target name"]');
+      const abundances = form.locator('input[aria-label="abundance"]');
+      const lines = form.locator('input[aria-label="excitation lines"]');
+      const windowStart = form.locator('input[aria-label="window start"]');
+      const minSnr = form.locator('qdp-number-field[data-check="minSignalToNoise"] input');
+      const refusal = form.locator('p.error');
+      await form.getByRole('button', { name: 'Add target' }).click();
+      await names.nth(0).fill('CD3');
+      await abundances.nth(0).fill('plenty');
+      await names.nth(1).fill('Ki-67');
+      await names.nth(2).fill('CD8');
+      await abundances.nth(2).fill('0.4');
+      await form.getByLabel('Use my probe for Ki-67').selectOption('p4');
+      await lines.fill('405, 488');
+      await form.getByLabel('new dots and filters').check();
+      await form.getByLabel('cadmium-free').check();
+      await windowStart.fill('450');
+      await windowStart.press('Tab');
+      await minSnr.fill('8');
+      const refused = 'Abundance: must be a number greater than 0 or one of high, medium, low';
+      await expect.poll(() => refusal.allInnerTexts()).toEqual([refused]);
+
+      await page.reload();
+      await page.locator('qdp-crosstalk-table p.worst').waitFor();
+      expect(await names.evaluateAll((inputs) => inputs.map((i) => (i as HTMLInputElement).value))).toEqual([
+        'CD3',
+        'Ki-67',
+        'CD8',
+      ]);
+      expect(await abundances.evaluateAll((inputs) => inputs.map((i) => (i as HTMLInputElement).value))).toEqual([
+        'plenty',
+        'low',
+        '0.4',
+      ]);
+      expect(await form.getByLabel('Use my probe for Ki-67').inputValue()).toBe('p4');
+      expect(await lines.inputValue()).toBe('405, 488');
+      expect(await form.getByLabel('new dots and filters').isChecked()).toBe(true);
+      expect(await form.getByLabel('cadmium-free').isChecked()).toBe(true);
+      expect(await windowStart.inputValue()).toBe('450');
+      expect(await minSnr.inputValue()).toBe('8');
+      // The kept 'plenty' is checked again with the API's schema and refused beside the first target's row.
+      await expect.poll(() => refusal.allInnerTexts()).toEqual([refused]);
+      expect(await refusal.evaluate((p) => p.previousElementSibling?.getAttribute('aria-label'))).toBe('target 1');
+      await shot(page, '13-design-form-after-reload-1280', form.locator('fieldset.targets'));
+      expect(problems).toEqual([]);
+      await page.close();
+    },
+  );
 });
 
 describe('instrument profiles in the page', () => {

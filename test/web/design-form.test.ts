@@ -5,8 +5,11 @@ import { EXAMPLE_INSTRUMENTS, type DesignRequest } from '../../spectra/index';
 import '../../web/elements/design-form';
 import type { DesignForm } from '../../web/elements/design-form';
 import { demoPanel } from '../../web/state/demo-panel';
+import { DRAFT_KEY, readDraft } from '../../web/state/design-draft';
 import { designParts } from '../../web/state/design-request';
 
+// Each test starts with the form's defaults: nothing kept in this browser from the one before.
+beforeEach(() => localStorage.removeItem(DRAFT_KEY));
 afterEach(() => document.body.replaceChildren());
 
 async function mount(options: Record<string, unknown> = {}): Promise<DesignForm> {
@@ -104,6 +107,25 @@ describe('<qdp-design-form>', () => {
     expect(proposed).toBe(0);
   });
 
+  it("after a search the focus is on the proposal's heading, and after Discard on Propose", async () => {
+    const el = await mount({ nodeBudget: 3000 });
+    await userEvent.click(button(el, 'Propose'));
+    await until(() => summary(el) !== null && summary(el)!.shadowRoot!.activeElement !== null);
+    expect(summary(el)!.shadowRoot!.activeElement!.textContent).toBe('Proposal, not loaded: your panel is unchanged');
+    await userEvent.click(summaryButton(el, 'Discard'));
+    await until(() => el.shadowRoot!.activeElement !== null);
+    expect(el.shadowRoot!.activeElement).toBe(button(el, 'Propose'));
+  });
+
+  it("Propose with 'plenty' as target 2's abundance moves the focus to that abundance field", async () => {
+    const el = await mount();
+    const abundance = el.shadowRoot!.querySelectorAll<HTMLInputElement>('input[aria-label="abundance"]')[1];
+    await userEvent.fill(page.elementLocator(abundance), 'plenty');
+    await userEvent.click(button(el, 'Propose'));
+    await until(() => el.shadowRoot!.activeElement === abundance);
+    expect(abundance.getAttribute('aria-invalid')).toBe('true');
+  });
+
   it(
     'a catalog search over probes at 525 and 605 nm shows each target with its probe, shell and matching ' +
       'bandpass, the proof and the hazard warning',
@@ -134,7 +156,9 @@ describe('<qdp-design-form>', () => {
       expect(orange).toContain('bandpass 605/20');
       expect(green).toContain('bandpass 525/30');
       expect(green).not.toContain('shell');
-      expect(root.querySelector('.objective')!.textContent).toContain('proven optimal over the candidates');
+      expect(root.querySelector('.objective')!.textContent).toContain(
+        "proven best among the current panel's probes and channels",
+      );
       const warnings = root.querySelector('ul.warnings')!.textContent!;
       expect(warnings).toContain('cadmium');
       expect(warnings).toContain('local regulations, institutional safety rules and licensed practice');
@@ -175,7 +199,7 @@ describe('<qdp-design-form>', () => {
   });
 
   it(
-    'a window of 600–615 nm, too narrow for two passbands, shows the refusal naming "Window, nm" ' +
+    'a window of 600–615 nm, too narrow for two passbands, shows the refusal beside "Window, nm" ' +
       'and proposes nothing',
     async () => {
       const el = await mount({ nodeBudget: 3000 });
@@ -191,9 +215,9 @@ describe('<qdp-design-form>', () => {
       }
       button(el, 'Propose').click();
       await until(() => el.shadowRoot!.querySelector('.error') !== null);
-      const text = el.shadowRoot!.querySelector('.error')!.textContent!;
-      expect(text).toMatch(/^No proposal: .*600–615 nm/);
-      expect(text).toMatch(/\(Window, nm\)$/);
+      const error = el.shadowRoot!.querySelector('.error')!;
+      expect(error.textContent).toBe('Window, nm: 2 passbands of at least 20 nm do not fit in 600–615 nm');
+      expect(error.previousElementSibling?.textContent).toContain('Window, nm');
       expect(summary(el)).toBeNull();
       expect(el.shadowRoot!.querySelector('output')!.textContent).toContain('failed');
       expect(proposed).toBe(0);
@@ -248,7 +272,7 @@ describe('<qdp-design-form>', () => {
     field.value = 'blue';
     field.dispatchEvent(new Event('input'));
     button(el, 'Propose').click();
-    await el.updateComplete;
+    await until(() => el.shadowRoot!.querySelector('.error') !== null);
     expect(el.shadowRoot!.querySelector('.error')!.textContent).toBe(
       'Excitation lines, nm: must be numbers in nm, e.g. 405, 488',
     );
@@ -398,5 +422,54 @@ describe('<qdp-design-form> locks and the microscope', () => {
     );
     expect(error.previousElementSibling?.textContent).toContain('Excitation lines, nm');
     expect(posted()).toBeUndefined();
+  });
+});
+
+describe('<qdp-design-form> kept in this browser', () => {
+  it(
+    "a kept Share-of-light check of 5 comes back in its field with the schema's 0–1 range under it " +
+      'and the abundance "plenty" marked beside its row',
+    async () => {
+      localStorage.setItem(
+        DRAFT_KEY,
+        JSON.stringify({
+          targets: [
+            { name: 'CD3', abundance: 'plenty' },
+            { name: 'CD8', abundance: 'low' },
+          ],
+          checks: { minChannelShare: 5 },
+        }),
+      );
+      const el = await mount();
+      const share = el.shadowRoot!.querySelector('qdp-number-field[data-check="minChannelShare"]')!;
+      const abundance = el.shadowRoot!.querySelector<HTMLInputElement>('input[aria-label="abundance"]')!;
+      expect(share.shadowRoot!.querySelector('input')!.value).toBe('5');
+      expect(abundance.value).toBe('plenty');
+      // The schema answers with the first refused field: the target's abundance, beside its row.
+      await until(() => el.shadowRoot!.querySelector('.error') !== null);
+      expect(el.shadowRoot!.querySelector('.error')!.textContent).toBe(
+        'Abundance: must be a number greater than 0 or one of high, medium, low',
+      );
+      expect(abundance.getAttribute('aria-invalid')).toBe('true');
+      // Once the abundance is fixed, the check's own refusal shows under it.
+      await userEvent.fill(page.elementLocator(abundance), 'high');
+      await until(() => share.shadowRoot!.querySelector('.msg') !== null);
+      expect(share.shadowRoot!.querySelector('.msg')!.textContent).toBe(
+        "Share of a probe's light its channel passes, at least (0–1): must be between 0 and 1",
+      );
+      expect(el.shadowRoot!.querySelector('.error')).toBeNull();
+    },
+  );
+
+  it('reading kept inputs drops a non-list of targets, a window of text, unknown materials and unknown words', () => {
+    const kept = readDraft({
+      targets: 'CD3',
+      windowNm: ['blue', 800],
+      allowed: ['cdse', 'unobtainium'],
+      exclude: ['cadmium', 'mercury'],
+      excitationText: 405,
+      useCandidates: false,
+    });
+    expect(kept).toEqual({ allowed: ['cdse'], exclude: ['cadmium'], useCandidates: false });
   });
 });

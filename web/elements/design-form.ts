@@ -6,10 +6,13 @@
  * editable panel; "Discard" drops it, and a new search replaces it. With `candidates` set it can search only those
  * (catalog mode, exact). Each target can be locked to one of the user's probes and/or channels (`owned`, or the
  * candidates in catalog mode), and on a microscope (`microscope`) free mode can choose among its channels instead of
- * stock bandpass sizes. A refusal about a target, the lines or the microscope choice is shown beside that field.
+ * stock bandpass sizes. What it holds is checked with the API's schema as it is typed (and on Propose), and a refusal
+ * is shown beside the field it is about. The inputs are kept in this browser (design-draft.ts), so a reload finds
+ * them again, refused values with their messages. After a search the focus moves to the answer, or to the refused
+ * field.
  */
-import { LitElement, css, html } from 'lit';
-import { customElement, property, state } from 'lit/decorators.js';
+import { LitElement, css, html, type PropertyValues } from 'lit';
+import { customElement, property, query, state } from 'lit/decorators.js';
 import {
   ABUNDANCE_WORDS,
   DEFAULT_WINDOW_NM,
@@ -27,13 +30,24 @@ import {
   type SearchProgress,
 } from '../../spectra/index';
 import type { DesignRequest as DesignRequestBody } from '../../worker/schemas';
-import { designErrorText, formSpot, FORM_WORDS, spotText, type FormSpot } from '../state/design-error';
+import {
+  CHECK_WORDS,
+  designErrorText,
+  formSpot,
+  FORM_WORDS,
+  sameSpot,
+  spotText,
+  type CheckKey,
+  type FormSpot,
+} from '../state/design-error';
+import { loadDraft, saveDraft, type DesignDraft, type TargetRow } from '../state/design-draft';
 import { designRequest, type DesignParts } from '../state/design-request';
 import type { DesignWorkerMessage } from '../state/design-worker';
 import type { FieldError } from '../state/error-map';
 import type { AttachedInstrument } from '../state/instrument';
 import { loadChecks } from '../state/load-checks';
-import { percent } from './proposal-summary';
+import { percent, type ProposalSummary } from './proposal-summary';
+import './number-field';
 import './target-lock';
 
 /** The abundance words a target may take instead of a number (high, medium, low). */
@@ -46,14 +60,13 @@ function abundanceInput(text: string): AbundanceInput {
 }
 
 /**
- * "405, 488" → excitation lines; empty → undefined when `mayBeEmpty` (the microscope's lines are then used). Throws a
- * sentence when a value is not a number.
+ * "405, 488" → excitation lines; empty → undefined (the microscope's lines are then used; without one the schema
+ * refuses it in its words). Throws a sentence when a value is not a number.
  */
-function excitationLines(text: string, mayBeEmpty: boolean): { wavelengthNm: number }[] | undefined {
+function excitationLines(text: string): { wavelengthNm: number }[] | undefined {
   const parts = text.split(/[\s,;]+/).filter(Boolean);
-  if (parts.length === 0 && mayBeEmpty) return undefined;
-  if (parts.length === 0 || parts.some((p) => !Number.isFinite(Number(p))))
-    throw new Error('must be numbers in nm, e.g. 405, 488');
+  if (parts.length === 0) return undefined;
+  if (parts.some((p) => !Number.isFinite(Number(p)))) throw new Error('must be numbers in nm, e.g. 405, 488');
   return parts.map((p) => ({ wavelengthNm: Number(p) }));
 }
 
@@ -69,31 +82,47 @@ function progressText(progress: SearchProgress): string {
   return ` · ${progress.nodesVisited.toLocaleString('en')} ${steps}${best}`;
 }
 
-/** A labelled checkbox that reports its new state; the trailing space keeps a row of them apart. */
-function checkbox(checked: boolean, label: string, set: (on: boolean) => void) {
+/**
+ * A labelled checkbox that reports its new state; the trailing space keeps a row of them apart. `spot` names the
+ * place in the form whose refusal moves the focus to it.
+ */
+function checkbox(checked: boolean, label: string, set: (on: boolean) => void, spot?: string) {
   const changed = (e: Event) => set((e.target as HTMLInputElement).checked);
-  return html`<label><input type="checkbox" .checked=${checked} @change=${changed} /> ${label}</label> `;
+  return html`<label
+    ><input type="checkbox" data-spot=${spot ?? ''} .checked=${checked} @change=${changed} /> ${label}</label
+  > `;
 }
 
-/** The practice checks and verdict thresholds the form lets the user set: option key, label, unit. */
-type CheckKey = keyof typeof PRACTICE_DEFAULTS;
-const CHECKS: readonly [CheckKey, string, string][] = [
-  ['minBlockingOD', 'Each channel blocks its lines by at least (OD)', ''],
-  ['minChannelShare', "Share of a probe's light its channel passes, at least (0–1)", ''],
-  ['lineClearanceNm', 'Emission peak at least this far from every line', 'nm'],
-  ['minSignalToNoise', 'Signal-to-noise after unmixing, at least', ''],
-  ['maxInterference', "Another probe's light in a channel, at most (× the target's own)", ''],
-];
-
-/** The catalog-mode choice. */
-const CANDIDATES_ONLY = `choose only from ${FORM_WORDS.candidates}`;
+/** The practice checks and verdict thresholds the form lets the user set, in order. */
+const CHECK_KEYS = Object.keys(CHECK_WORDS) as CheckKey[];
 
 const CHECKS_UNAVAILABLE = 'the request checks could not be loaded: reload the page to try again';
 
-interface TargetRow {
-  name: string;
-  abundance: string;
-  lock?: DesignLock;
+/** The form's inputs, kept in this browser when one of them changes. */
+const DRAFT_FIELDS: readonly (keyof DesignDraft)[] = [
+  'targets',
+  'excitationText',
+  'useCandidates',
+  'useMicroscope',
+  'exclude',
+  'allowed',
+  'windowNm',
+  'checks',
+];
+
+/** What the request is built from besides the inputs: a change re-checks what the form holds. */
+const CONTEXT_FIELDS = ['candidates', 'owned', 'microscope', 'sample', 'options'] as const;
+
+/** Typing pauses this long (ms) before what the form holds is checked, so a half-typed value is not marked. */
+const CHECK_DELAY_MS = 300;
+
+/** A refusal shown beside its field: from checking what the form holds, or from the last search. */
+interface Placed {
+  spot: FormSpot;
+  text: string;
+  from: 'check' | 'search';
+  /** The refused field's path in the request, to find the field within a target's row. */
+  path: FieldError['path'];
 }
 
 const NO_PARTS: DesignParts = { probes: [], channels: [] };
@@ -114,35 +143,43 @@ export class DesignForm extends LitElement {
   /** The instrument profile the panel is on, if any: free mode may choose among its channels. */
   @property({ attribute: false }) microscope?: AttachedInstrument;
 
-  @state() private targets: TargetRow[] = [
+  // The inputs start as this browser left them (design-draft.ts), else with these defaults.
+  private readonly kept = loadDraft();
+  @state() private targets: TargetRow[] = this.kept.targets ?? [
     { name: 'target 1', abundance: 'high' },
     { name: 'target 2', abundance: 'low' },
   ];
-  @state() private excitationText = '405';
-  @state() private exclude = new Set<Exclusion>();
+  @state() private excitationText = this.kept.excitationText ?? '405';
+  @state() private exclude = new Set<Exclusion>(this.kept.exclude ?? []);
   /** Materials ticked for free design: all but those unsuitable by default (illustrative, LEFT_OUT_BY_DEFAULT). */
   @state() private allowed = new Set(
-    MATERIALS.filter((m) => !m.illustrative && LEFT_OUT_BY_DEFAULT[m.id] === undefined).map((m) => m.id),
+    this.kept.allowed ??
+      MATERIALS.filter((m) => !m.illustrative && LEFT_OUT_BY_DEFAULT[m.id] === undefined).map((m) => m.id),
   );
   /** The practice checks and verdict thresholds as typed (absent: the documented default). */
-  @state() private checks: Partial<Record<CheckKey, number>> = {};
-  @state() private windowNm: [number, number] = [DEFAULT_WINDOW_NM[0], DEFAULT_WINDOW_NM[1]];
-  @state() private useCandidates = true;
+  @state() private checks: Partial<Record<CheckKey, number>> = this.kept.checks ?? {};
+  @state() private windowNm: [number, number] = this.kept.windowNm ?? [DEFAULT_WINDOW_NM[0], DEFAULT_WINDOW_NM[1]];
+  @state() private useCandidates = this.kept.useCandidates ?? true;
   /** Free mode chooses among the microscope's channels (when the panel is on one) instead of stock sizes. */
-  @state() private useMicroscope = false;
+  @state() private useMicroscope = this.kept.useMicroscope ?? false;
   @state() private running = false;
   @state() private progress: SearchProgress | null = null;
   @state() private status = '';
+  /** A failure that is about no field (the design worker could not run). */
   @state() private error = '';
-  /** A refusal shown beside its field (a target's row, the lines, the microscope choice). */
-  @state() private placed: { spot: FormSpot; text: string } | null = null;
+  /** A refusal shown beside its field, or below the buttons when it is about no field of the form. */
+  @state() private placed: Placed | null = null;
   /** The last search's proposal, shown until it is loaded, discarded or replaced by a new search. */
   @state() private result: DesignResult | null = null;
+  @query('qdp-proposal-summary') private summary?: ProposalSummary;
   private worker: Worker | null = null;
-  /** The request of the running search, to place its refusal. */
+  /** The request of the running search, to place its refusal and to read its answer in the user's words. */
   private sent: DesignRequestBody | null = null;
   /** Counts proposals, so a check that returns after a newer proposal or a cancel starts nothing. */
   private proposals = 0;
+  /** Counts checks of what the form holds, so only the latest one places its refusal. */
+  private checksRun = 0;
+  private checkTimer: ReturnType<typeof setTimeout> | undefined;
 
   static override styles = css`
     :host {
@@ -168,12 +205,55 @@ export class DesignForm extends LitElement {
       width: 8rem;
       max-width: 40vw;
     }
+    /* Each target: name, abundance and Remove on one line, what it must use below, a rule between targets. */
+    .target-head,
+    .row.target {
+      display: grid;
+      grid-template-columns: minmax(0, 1fr) minmax(0, 1fr) auto;
+      gap: 0.2rem 0.4rem;
+      align-items: center;
+    }
+    .target-head {
+      font-size: 0.8rem;
+      color: #444;
+    }
+    .target-head .spacer {
+      visibility: hidden;
+      padding: 0 0.4rem;
+    }
+    .row.target {
+      margin: 0;
+      padding: 0.35rem 0;
+      border-top: 1px solid #dde;
+    }
+    .row.target input[type='text'] {
+      width: auto;
+      max-width: none;
+      min-width: 0;
+    }
+    .row.target qdp-target-lock {
+      grid-column: 1 / -1;
+      padding-left: 0.8rem;
+    }
+    fieldset.mode label {
+      display: block;
+    }
+    .choices label {
+      white-space: nowrap;
+    }
+    input[type='number'] {
+      width: 5.5rem;
+    }
     .error {
       color: #8b1a1a;
       font-weight: 600;
     }
     .error.beside {
       margin: 0 0 0.3rem;
+    }
+    input[aria-invalid='true'] {
+      border: 2px solid #8b1a1a;
+      background: #fff4f4;
     }
     button:focus-visible,
     input:focus-visible {
@@ -183,7 +263,32 @@ export class DesignForm extends LitElement {
 
   override disconnectedCallback(): void {
     super.disconnectedCallback();
+    clearTimeout(this.checkTimer);
     this.cancel(false);
+  }
+
+  /** Keeps the inputs in this browser when one changed, and checks what the form holds when it or the panel did. */
+  protected override updated(changed: PropertyValues): void {
+    super.updated(changed);
+    if (DRAFT_FIELDS.some((f) => changed.has(f))) saveDraft(this.draft());
+    if ([...DRAFT_FIELDS, ...CONTEXT_FIELDS].some((f) => changed.has(f))) {
+      clearTimeout(this.checkTimer);
+      this.checkTimer = setTimeout(() => void this.checkInputs(), CHECK_DELAY_MS);
+    }
+  }
+
+  /** The inputs as the form holds them. */
+  private draft(): DesignDraft {
+    return {
+      targets: this.targets,
+      excitationText: this.excitationText,
+      useCandidates: this.useCandidates,
+      useMicroscope: this.useMicroscope,
+      exclude: [...this.exclude],
+      allowed: [...this.allowed],
+      windowNm: this.windowNm,
+      checks: this.checks,
+    };
   }
 
   /** True when the search is over the candidates (catalog mode). */
@@ -200,7 +305,7 @@ export class DesignForm extends LitElement {
     const catalog = this.catalog;
     return designRequest({
       targets: this.targets.map((t) => ({ name: t.name, abundance: abundanceInput(t.abundance), lock: t.lock })),
-      excitation: excitationLines(this.excitationText, !!this.onMicroscope),
+      excitation: excitationLines(this.excitationText),
       ...(catalog ? { candidates: this.candidates } : {}),
       owned: this.owned,
       free: { exclude: [...this.exclude], allowedMaterials: [...this.allowed], windowNm: this.windowNm },
@@ -210,32 +315,32 @@ export class DesignForm extends LitElement {
     });
   }
 
-  /** Shows a refusal beside the field it concerns, or below the buttons in `general` words. */
-  private refuse(error: Pick<FieldError, 'message' | 'path'>, request: DesignRequestBody, general: string): void {
+  /** A refusal as the form shows it: beside the field it concerns, or below the buttons in the form's words. */
+  private placement(
+    error: Pick<FieldError, 'message' | 'path'>,
+    request: DesignRequestBody,
+    from: Placed['from'],
+  ): Placed {
     const spot = formSpot(error.path, request);
-    if (spot.at === 'form') this.error = general;
-    else this.placed = { spot, text: spotText(error, request) };
+    const names = this.targets.map((t) => t.name);
+    const text = spot.at === 'form' ? designErrorText(error, names) : spotText(error, request);
+    return { spot, text, from, path: error.path };
   }
 
   /**
-   * Checks the request with the API's schema, resolves it as the API would (the microscope's lines and channels
-   * written in), then starts the search in a fresh worker.
+   * What the form holds as the search takes it: the request checked with the API's schema and resolved as the API
+   * would (the microscope's lines and channels written in); else the refusal, placed.
    */
-  async propose(): Promise<void> {
-    this.cancel(false);
-    this.error = '';
-    this.placed = null;
-    this.result = null;
+  private async checked(): Promise<
+    { ok: true; body: DesignRequestBody; request: DesignRequest } | { ok: false; placed: Placed }
+  > {
     let body: DesignRequestBody;
     try {
       body = this.request();
     } catch (err) {
-      this.placed = { spot: { at: 'excitation' }, text: `${FORM_WORDS.excitation}: ${(err as Error).message}` };
-      return;
+      const text = `${FORM_WORDS.excitation}: ${(err as Error).message}`;
+      return { ok: false, placed: { spot: { at: 'excitation' }, text, from: 'check', path: ['excitation'] } };
     }
-    const ticket = ++this.proposals;
-    this.running = true;
-    this.status = 'checking';
     let resolved: ReturnType<Awaited<ReturnType<typeof loadChecks>>['designForSearch']>;
     try {
       const checks = await loadChecks();
@@ -244,13 +349,46 @@ export class DesignForm extends LitElement {
     } catch {
       resolved = { ok: false, error: { code: 'network', message: CHECKS_UNAVAILABLE, path: [] } };
     }
+    if (!resolved.ok) return { ok: false, placed: this.placement(resolved.error, body, 'check') };
+    return { ok: true, body, request: resolved.request };
+  }
+
+  /**
+   * Checks what the form holds and shows the refusal beside its field (replacing the last check's; a search's
+   * refusal stays until something else is refused). Waits while the microscope the inputs choose among is not there
+   * yet (after a reload its profile loads a moment later), and while a search is checked or runs.
+   */
+  private async checkInputs(): Promise<void> {
+    if (this.running || (this.useMicroscope && !this.catalog && !this.microscope)) return;
+    const ticket = ++this.checksRun;
+    const r = await this.checked();
+    if (ticket !== this.checksRun || this.running) return;
+    if (!r.ok) this.placed = r.placed;
+    else if (this.placed?.from === 'check') this.placed = null;
+  }
+
+  /**
+   * Checks the request with the API's schema, resolves it as the API would (the microscope's lines and channels
+   * written in), then starts the search in a fresh worker. A refusal is shown beside its field, which takes the focus.
+   */
+  async propose(): Promise<void> {
+    this.cancel(false);
+    this.error = '';
+    this.placed = null;
+    this.result = null;
+    const ticket = ++this.proposals;
+    this.checksRun++; // a check of the inputs still under way places nothing
+    this.running = true;
+    this.status = 'checking';
+    const r = await this.checked();
     if (ticket !== this.proposals || !this.running) return; // cancelled, or a newer proposal, while checking
-    if (!resolved.ok) {
+    if (!r.ok) {
       this.finish('');
-      return this.refuse(resolved.error, body, resolved.error.message);
+      this.placed = { ...r.placed, from: 'search' };
+      return this.focusRefused(r.placed.spot, r.placed.path);
     }
-    this.sent = body;
-    const request = resolved.request;
+    this.sent = r.body;
+    const request = r.request;
     const worker = new Worker(new URL('../state/design-worker.ts', import.meta.url), { type: 'module' });
     this.worker = worker;
     this.running = true;
@@ -258,6 +396,27 @@ export class DesignForm extends LitElement {
     worker.onmessage = (event: MessageEvent<DesignWorkerMessage>) => this.receive(event.data);
     worker.onerror = () => this.finish('', 'the design worker could not run');
     worker.postMessage({ type: 'run', request });
+  }
+
+  /** Moves the focus to the field a refusal is about (the Propose button when it is about none). */
+  private async focusRefused(spot: FormSpot, path: FieldError['path']): Promise<void> {
+    await this.updateComplete;
+    const root = this.renderRoot;
+    const pick = (selector: string) => root.querySelector<HTMLElement>(selector);
+    let field: HTMLElement | null = null;
+    if (spot.at === 'target') {
+      const part = path[2] === 'name' || path[2] === 'abundance' ? path[2] : 'lock';
+      field = pick(`[data-target="${spot.index}"][data-part="${part}"]`);
+    } else if (spot.at === 'check') {
+      field = pick(`qdp-number-field[data-check="${spot.key}"]`)?.shadowRoot?.querySelector('input') ?? null;
+    } else if (spot.at !== 'form') {
+      field = pick(`[data-spot="${spot.at}"]`);
+    }
+    (field ?? this.proposeButton())?.focus();
+  }
+
+  private proposeButton(): HTMLButtonElement | null {
+    return this.renderRoot.querySelector<HTMLButtonElement>('button.propose');
   }
 
   /** Asks the search to stop and keep the best design found so far. */
@@ -292,12 +451,19 @@ export class DesignForm extends LitElement {
     if (message.type === 'error') {
       const names = this.targets.map((t) => t.name);
       this.finish('failed');
-      if (this.sent) this.refuse(message.error, this.sent, designErrorText(message.error, names));
-      else this.error = designErrorText(message.error, names);
+      if (!this.sent) {
+        this.error = designErrorText(message.error, names);
+        void this.focusRefused({ at: 'form' }, []);
+        return;
+      }
+      const placed = this.placement(message.error, this.sent, 'search');
+      this.placed = placed;
+      void this.focusRefused(placed.spot, placed.path);
       return;
     }
     this.result = message.result;
     this.finish('done');
+    void this.updateComplete.then(() => this.summary?.focusHeading());
   }
 
   /** Hands the shown proposal to the app (which loads it as the panel) and stops showing it. */
@@ -315,15 +481,32 @@ export class DesignForm extends LitElement {
         composed: true,
       }),
     );
+    void this.updateComplete.then(() => this.proposeButton()?.focus());
   }
 
   private discardProposal(): void {
     this.result = null;
     this.status = 'proposal discarded';
+    void this.updateComplete.then(() => this.proposeButton()?.focus());
   }
 
+  /** Adds a target named "target N" with the first N no other target is named by. */
   private addTarget(): void {
-    this.targets = [...this.targets, { name: `target ${this.targets.length + 1}`, abundance: 'medium' }];
+    const names = new Set(this.targets.map((t) => t.name.trim()));
+    let n = this.targets.length + 1;
+    while (names.has(`target ${n}`)) n++;
+    this.targets = [...this.targets, { name: `target ${n}`, abundance: 'medium' }];
+  }
+
+  /** Removes a target; the focus goes to the row that takes its place (or Add target after the last). */
+  private removeTarget(i: number): void {
+    this.targets = this.targets.filter((_, k) => k !== i);
+    void this.updateComplete.then(() => {
+      const next = this.renderRoot.querySelector<HTMLElement>(
+        `[data-target="${Math.min(i, this.targets.length - 1)}"][data-part="name"]`,
+      );
+      next?.focus();
+    });
   }
 
   /** Sets one end of the free-design window from its typed text. */
@@ -352,11 +535,16 @@ export class DesignForm extends LitElement {
     return next;
   }
 
-  /** A refusal placed at `spot`, if the current one is. */
+  /** 'true' when the shown refusal is about this part of target `index`'s row (its input is then marked). */
+  private refused(index: number, part: 'name' | 'abundance'): 'true' | 'false' {
+    const p = this.placed;
+    return p?.spot.at === 'target' && p.spot.index === index && p.path[2] === part ? 'true' : 'false';
+  }
+
+  /** The refusal placed at `spot`, if the current one is. */
   private placedAt(spot: FormSpot) {
     const p = this.placed;
-    if (!p || p.spot.at !== spot.at || (p.spot.at === 'target' && spot.at === 'target' && p.spot.index !== spot.index))
-      return '';
+    if (!p || !sameSpot(p.spot, spot)) return '';
     return html`<p class="error beside" role="alert">${p.text}</p>`;
   }
 
@@ -366,50 +554,81 @@ export class DesignForm extends LitElement {
     if (!m) return '';
     const label = `${FORM_WORDS.microscope} (${m.spec.name}) instead of stock bandpass sizes`;
     return html`<div class="microscope">
-      ${checkbox(this.useMicroscope, label, (on) => (this.useMicroscope = on))} ${this.placedAt({ at: 'microscope' })}
+      ${checkbox(this.useMicroscope, label, (on) => (this.useMicroscope = on), 'microscope')}
+      ${this.placedAt({ at: 'microscope' })}
     </div>`;
+  }
+
+  /** Catalog mode or free design, when the panel has probes and channels to pick from. */
+  private modeChoice() {
+    if (!this.candidates) return '';
+    const radio = (catalog: boolean, label: string) =>
+      html`<label
+        ><input
+          type="radio"
+          name="mode"
+          data-spot=${catalog ? 'mode' : 'free'}
+          .checked=${this.useCandidates === catalog}
+          @change=${() => (this.useCandidates = catalog)}
+        />
+        ${label}</label
+      >`;
+    return html`<fieldset class="mode">
+      <legend>${FORM_WORDS.mode}</legend>
+      ${radio(true, FORM_WORDS.modeCatalog)} ${radio(false, `${FORM_WORDS.modeFree} (free design, set below)`)}
+      ${this.placedAt({ at: 'mode' })}
+    </fieldset>`;
+  }
+
+  /** One target: its name, its abundance and Remove, with the probe and channel it must use below. */
+  private targetRow(t: TargetRow, i: number, parts: DesignParts) {
+    return html`<div class="row target" role="group" aria-label=${`target ${i + 1}`}>
+        <input
+          type="text"
+          aria-label="target name"
+          aria-invalid=${this.refused(i, 'name')}
+          data-target=${i}
+          data-part="name"
+          .value=${t.name}
+          @input=${(e: Event) => this.setTarget(i, 'name', (e.target as HTMLInputElement).value)}
+        />
+        <input
+          type="text"
+          aria-label="abundance"
+          aria-invalid=${this.refused(i, 'abundance')}
+          list="abundance-words"
+          data-target=${i}
+          data-part="abundance"
+          .value=${t.abundance}
+          @input=${(e: Event) => this.setTarget(i, 'abundance', (e.target as HTMLInputElement).value)}
+        />
+        <button type="button" @click=${() => this.removeTarget(i)} ?disabled=${this.targets.length <= 1}>Remove</button>
+        <qdp-target-lock
+          data-target=${i}
+          data-part="lock"
+          .probes=${parts.probes}
+          .channels=${parts.channels}
+          .lock=${t.lock}
+          target=${t.name}
+          @lock-change=${(e: CustomEvent<{ lock?: DesignLock }>) => this.setLock(i, e.detail.lock)}
+        ></qdp-target-lock>
+      </div>
+      ${this.placedAt({ at: 'target', index: i })}`;
   }
 
   override render() {
     const free = !this.catalog;
     const parts = free ? this.owned : (this.candidates ?? NO_PARTS);
     const linesFromMicroscope = !!this.onMicroscope;
+    const formRefusal = this.placed?.spot.at === 'form' ? this.placed.text : '';
     return html`
-      <fieldset>
-        <legend>Targets (abundance: a number, or high / medium / low)</legend>
-        ${this.targets.map(
-          (t, i) =>
-            html`<div class="row">
-                <input
-                  type="text"
-                  aria-label="target name"
-                  .value=${t.name}
-                  @input=${(e: Event) => this.setTarget(i, 'name', (e.target as HTMLInputElement).value)}
-                />
-                <input
-                  type="text"
-                  aria-label="abundance"
-                  list="abundance-words"
-                  .value=${t.abundance}
-                  @input=${(e: Event) => this.setTarget(i, 'abundance', (e.target as HTMLInputElement).value)}
-                />
-                <button
-                  type="button"
-                  @click=${() => (this.targets = this.targets.filter((_, k) => k !== i))}
-                  ?disabled=${this.targets.length <= 1}
-                >
-                  Remove
-                </button>
-                <qdp-target-lock
-                  .probes=${parts.probes}
-                  .channels=${parts.channels}
-                  .lock=${t.lock}
-                  target=${t.name}
-                  @lock-change=${(e: CustomEvent<{ lock?: DesignLock }>) => this.setLock(i, e.detail.lock)}
-                ></qdp-target-lock>
-              </div>
-              ${this.placedAt({ at: 'target', index: i })}`,
-        )}
+      <fieldset class="targets">
+        <legend>Targets</legend>
+        <div class="target-head" aria-hidden="true">
+          <span>${FORM_WORDS.target}</span><span>${FORM_WORDS.abundance}: high, medium, low or a number</span
+          ><span class="spacer">Remove</span>
+        </div>
+        ${this.targets.map((t, i) => this.targetRow(t, i, parts))}
         <datalist id="abundance-words">${WORDS.map((w) => html`<option value=${w}></option>`)}</datalist>
         <button type="button" @click=${this.addTarget} ?disabled=${this.targets.length >= LIMITS.probes}>
           Add target
@@ -420,73 +639,86 @@ export class DesignForm extends LitElement {
         <input
           type="text"
           aria-label="excitation lines"
+          aria-invalid=${this.placed?.spot.at === 'excitation' ? 'true' : 'false'}
+          data-spot="excitation"
           placeholder=${linesFromMicroscope ? "the microscope's lines" : ''}
           .value=${this.excitationText}
           @input=${(e: Event) => (this.excitationText = (e.target as HTMLInputElement).value)}
       /></label>
-      ${this.placedAt({ at: 'excitation' })}
-      ${this.candidates ? checkbox(this.useCandidates, CANDIDATES_ONLY, (on) => (this.useCandidates = on)) : ''}
+      ${this.placedAt({ at: 'excitation' })} ${this.modeChoice()}
       <fieldset ?disabled=${!free}>
-        <legend>Free design</legend>
+        <legend>Free design${free ? '' : ` (off: the search proposes ${FORM_WORDS.modeCatalog})`}</legend>
         ${this.microscopeChoice()}
-        ${EXCLUSION_WORDS.map((word) =>
-          checkbox(
-            this.exclude.has(word),
-            `${word}-free`,
-            (on) => (this.exclude = this.toggle(this.exclude, word, on)),
-          ),
-        )}
-        <div>
+        <div class="choices">
+          ${EXCLUSION_WORDS.map((word, k) =>
+            checkbox(
+              this.exclude.has(word),
+              `${word}-free`,
+              (on) => (this.exclude = this.toggle(this.exclude, word, on)),
+              k === 0 ? 'materials' : undefined,
+            ),
+          )}
+        </div>
+        <div class="choices">
           ${FORM_WORDS.materials}:
           ${MATERIALS.map((m) =>
             checkbox(this.allowed.has(m.id), m.name, (on) => (this.allowed = this.toggle(this.allowed, m.id, on))),
           )}
         </div>
+        ${this.placedAt({ at: 'materials' })}
         <label
           >${FORM_WORDS.window}
           <input
             type="number"
             aria-label="window start"
+            aria-invalid=${this.placed?.spot.at === 'window' ? 'true' : 'false'}
+            data-spot="window"
             .value=${String(this.windowNm[0])}
             @change=${(e: Event) => this.setWindow(0, (e.target as HTMLInputElement).value)} />
           –
           <input
             type="number"
             aria-label="window end"
+            aria-invalid=${this.placed?.spot.at === 'window' ? 'true' : 'false'}
             .value=${String(this.windowNm[1])}
             @change=${(e: Event) => this.setWindow(1, (e.target as HTMLInputElement).value)}
         /></label>
+        ${this.placedAt({ at: 'window' })}
       </fieldset>
       <fieldset>
         <legend>Checks every proposal must pass (empty: the default shown)</legend>
-        ${CHECKS.map(
-          ([key, label, unit]) =>
-            html`<qdp-number-field
-              .label=${label}
-              unit=${unit}
-              optional
-              placeholder=${String(PRACTICE_DEFAULTS[key])}
-              .value=${this.checks[key]}
-              @value-change=${(e: CustomEvent<{ value: number | undefined }>) => {
-                const { [key]: _old, ...rest } = this.checks;
-                this.checks = e.detail.value === undefined ? rest : { ...rest, [key]: e.detail.value };
-              }}
-            ></qdp-number-field>`,
-        )}
+        ${CHECK_KEYS.map((key) => {
+          const p = this.placed;
+          return html`<qdp-number-field
+            data-check=${key}
+            .label=${CHECK_WORDS[key][0]}
+            unit=${CHECK_WORDS[key][1]}
+            optional
+            placeholder=${String(PRACTICE_DEFAULTS[key])}
+            .value=${this.checks[key]}
+            .error=${p && sameSpot(p.spot, { at: 'check', key }) ? p.text : ''}
+            @value-change=${(e: CustomEvent<{ value: number | undefined }>) => {
+              const { [key]: _old, ...rest } = this.checks;
+              this.checks = e.detail.value === undefined ? rest : { ...rest, [key]: e.detail.value };
+            }}
+          ></qdp-number-field>`;
+        })}
       </fieldset>
       <div class="row">
-        <button type="button" @click=${() => this.propose()} ?disabled=${this.running}>Propose</button>
+        <button type="button" class="propose" @click=${() => this.propose()} ?disabled=${this.running}>Propose</button>
         <button type="button" @click=${() => this.stop()} ?disabled=${!this.running}>Stop and keep best</button>
         <button type="button" @click=${() => this.cancel()} ?disabled=${!this.running}>Cancel</button>
         <output aria-live="polite" class="progress"
           >${this.status}${this.progress && this.running ? progressText(this.progress) : ''}</output
         >
       </div>
+      ${formRefusal ? html`<p class="error" role="alert">${formRefusal}</p>` : ''}
       ${this.error ? html`<p class="error" role="alert">${this.error}</p>` : ''}
       ${
         this.result
           ? html`<qdp-proposal-summary
               .result=${this.result}
+              .request=${this.sent ?? undefined}
               @proposal-load=${this.loadProposal}
               @proposal-discard=${this.discardProposal}
             ></qdp-proposal-summary>`

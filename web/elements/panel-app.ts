@@ -518,9 +518,10 @@ export class PanelApp extends LitElement {
             <h2 id="h-propose">Propose a panel</h2>
             <p>
               Name the targets and how abundant each is; the search proposes dots and filters (or picks from this
-              panel's probes and channels) that keep the worst bleed-through low, and shows the proposal beside your
-              panel, to load for editing or discard. A target can keep a probe or channel you already have, and on a
-              microscope profile the search can choose among its filters.
+              panel's probes and channels) that give the weakest target the highest signal-to-noise after unmixing, with
+              no probe's light in another's channel above your limit. It shows the proposal beside your panel, to load
+              for editing or discard. A target can keep a probe or channel you already have, and on a microscope profile
+              the search can choose among its filters.
             </p>
             <qdp-design-form
               .candidates=${this.candidates()}

@@ -1,9 +1,10 @@
 /**
  * <qdp-proposal-summary>: a finished design shown beside the panel being edited, without loading it: each target with
- * its proposed probe and channel, the objective (the weakest target's signal-to-noise, proven optimal or best found
- * with the proven ceiling and gap; the worst interference and the limit it was kept under), the predicted unmixing
- * noise and the answer's warnings. Its two buttons fire
- * `proposal-load` and `proposal-discard` (not bubbling); the design form decides what follows.
+ * its proposed probe and channel (the user's own ones by their names in the panel), the objective (the weakest
+ * target's signal-to-noise, proven optimal or best found with the proven ceiling and gap; the worst interference and
+ * the limit it was kept under), the predicted unmixing noise with each abundance as the user gave it, and the
+ * answer's warnings, all in the form's words. Its two buttons fire `proposal-load` and `proposal-discard` (not
+ * bubbling); the design form decides what follows, and moves the focus to the heading with focusHeading().
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
@@ -15,7 +16,9 @@ import {
   type PanelSpec,
   type ProbeSpec,
 } from '../../spectra/index';
-import { describeChannel, describeChannelExcitation } from '../io/filter-text';
+import type { DesignRequest as DesignRequestBody } from '../../worker/schemas';
+import { describeChannelExcitation, describeFilter } from '../io/filter-text';
+import { answerText, FORM_WORDS } from '../state/design-error';
 import { focusRing } from './shared-styles';
 
 const MATERIAL_NAMES = new Map(listMaterials().map((m) => [m.id, m.name]));
@@ -24,16 +27,32 @@ const DYE_NAMES = new Map(listDyes().map((d) => [d.id, d.name]));
 /** A fraction as a percentage with three significant figures. */
 export const percent = (x: number) => `${(100 * x).toPrecision(3)} %`;
 
+/** A clause that stands alone as a sentence: its first letter raised (the answer's reasons start with a word). */
+const sentence = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+
 /** A figure with three significant figures, or a dash when the answer has none. */
 const figure = (x: number | null | undefined) => (typeof x === 'number' && Number.isFinite(x) ? x.toPrecision(3) : '—');
 
-/** The parts of a probe's description: "CdTe", "emission peak 694 nm", "shell CdS 0.7 nm" (a dye by its name). */
-function probeParts(probe: ProbeSpec, peakNm: number | undefined): string[] {
+/** A part the user already has, as the lock choices name it: "Orange dot (p4)", or its id. */
+const ownName = (id: string, label: string | undefined) => (label && label !== id ? `${label} (${id})` : id);
+
+/** The name the request gives the probe or channel `id` (one of the user's own: a candidate or an owned one). */
+function nameIn(request: DesignRequestBody | undefined, list: 'probes' | 'channels', id: string): string | undefined {
+  const parts = [...(request?.candidates?.[list] ?? []), ...(request?.owned?.[list] ?? [])];
+  const part = parts.find((p) => p.id === id);
+  return part ? ownName(id, part.label) : undefined;
+}
+
+/**
+ * The parts of a probe's description: the user's name for it when it is theirs, then "CdTe" (a dye by its name),
+ * "emission peak 694 nm", "shell CdS 0.7 nm".
+ */
+function probeParts(probe: ProbeSpec, peakNm: number | undefined, own: string | undefined): string[] {
   const name = probe.dye
     ? (DYE_NAMES.get(probe.dye) ?? probe.dye)
     : (MATERIAL_NAMES.get(probe.material) ?? probe.material);
   const peak = peakNm ?? probe.emissionPeakNm;
-  const parts = [name, ...(peak === undefined ? [] : [`emission peak ${Math.round(peak)} nm`])];
+  const parts = [...(own ? [own] : []), name, ...(peak === undefined ? [] : [`emission peak ${Math.round(peak)} nm`])];
   const shell = probe.shell ?? [];
   if (shell.length > 0) {
     const layers = shell.map((l) => `${SHELL_MATERIALS[l.material]?.name ?? l.material} ${l.thicknessNm} nm`);
@@ -42,17 +61,32 @@ function probeParts(probe: ProbeSpec, peakNm: number | undefined): string[] {
   return parts;
 }
 
-/** A probe's parts, each kept on one line, wrapping only between them. */
-function probeCell(parts: string[]) {
-  return parts.map((part, i) => html`<span class="part">${part}${i < parts.length - 1 ? ' ·' : ''}</span> `);
+/** A probe's or channel's parts, each kept on one line, wrapping only between them (after `joint`). */
+function partsCell(parts: string[], joint = ' ·') {
+  return parts.map((part, i) => html`<span class="part">${part}${i < parts.length - 1 ? joint : ''}</span> `);
 }
 
-/** The proposed channel of a probe in the trade's notation, with the lines it is read under when it names them. */
-function channelText(panel: PanelSpec, probe: ProbeSpec): string {
+/**
+ * A probe's proposed channel: its name (the user's own one's as the panel names it, a microscope's as its profile
+ * does), its filters in the trade's notation ("dichroic 425 (passes above) + bandpass 525/20", wrapping between
+ * filters), and the lines it is read under when it names them.
+ */
+function channelCell(panel: PanelSpec, probe: ProbeSpec, request: DesignRequestBody | undefined) {
   const channel = panel.channels.find((c) => c.id === probe.channel);
   if (!channel) return '—';
-  const lines = channel.excitationNm === undefined ? '' : ` · read under ${describeChannelExcitation(channel)}`;
-  return `${describeChannel(channel)}${lines}`;
+  const name = nameIn(request, 'channels', channel.id) ?? channel.label;
+  const filters = channel.filters.length ? channel.filters.map(describeFilter) : ['no filter'];
+  const lines = channel.excitationNm === undefined ? [] : [`read under ${describeChannelExcitation(channel)}`];
+  return html`${name ? html`<span class="part">${name} ·</span> ` : ''}${partsCell(filters, ' +')}${
+    lines.length ? html`<span class="part">· ${lines[0]}</span>` : ''
+  }`;
+}
+
+/** A target's abundance as the user gave it: "medium (0.3)" for a word, else the number. */
+function abundanceText(probe: ProbeSpec, request: DesignRequestBody | undefined): string {
+  const value = probe.abundance ?? 1;
+  const given = request?.targets.find((t) => t.name === probe.target)?.abundance;
+  return typeof given === 'string' ? `${given} (${value})` : String(value);
 }
 
 /**
@@ -60,15 +94,21 @@ function channelText(panel: PanelSpec, probe: ProbeSpec): string {
  * signal-to-noise and how far below it the answer may be.
  */
 function proofText(r: DesignResult): string {
-  if (r.exact) return r.mode === 'free' ? 'optimal over the stated grid catalog' : 'proven optimal over the candidates';
+  const free = r.mode === 'free';
+  if (r.exact)
+    return free
+      ? 'proven best on the grid catalog of dots and bands, then refined in 1 nm steps'
+      : `proven best among ${FORM_WORDS.candidates}`;
   const bound = r.stats?.signalToNoiseBound;
   const gap = r.stats?.gap;
-  if (typeof bound !== 'number') return 'best found; no ceiling proven yet';
-  const where = r.mode === 'free' ? ' on the grid catalog' : '';
-  return (
-    `best found; no design${where} can do better than ${bound.toPrecision(3)}` +
-    (typeof gap === 'number' ? ` (this one is within ${percent(gap)} of that ceiling)` : '')
-  );
+  if (typeof bound !== 'number') return 'best found, not proven best; no ceiling proven yet';
+  const where = free ? 'on the grid catalog' : `from ${FORM_WORDS.candidates}`;
+  const ceiling = `best found, not proven best: no design ${where} can exceed ${bound.toPrecision(3)}`;
+  if (typeof gap !== 'number') return ceiling;
+  // Free mode's gap is the grid design's, measured before the refinement moved it off the grid.
+  return free
+    ? `${ceiling}; the search's best grid design was ${percent(gap)} below that ceiling before its 1 nm refinement`
+    : `${ceiling}; this one is ${percent(gap)} below that ceiling`;
 }
 
 /** How much of the search space the search visited. */
@@ -83,6 +123,8 @@ function searchText(stats: NonNullable<DesignResult['stats']>): string {
 export class ProposalSummary extends LitElement {
   /** The design answer to show (extra fields are ignored). */
   @property({ attribute: false }) result?: DesignResult;
+  /** The request it answers: the abundances as given and the names of the user's own probes and channels. */
+  @property({ attribute: false }) request?: DesignRequestBody;
 
   static override styles = [
     focusRing,
@@ -121,9 +163,14 @@ export class ProposalSummary extends LitElement {
         margin: 0.5rem 0 0;
       }
       .part,
-      .assignment td:first-child,
-      .assignment td:last-child {
+      .assignment td:first-child {
         white-space: nowrap;
+      }
+      h3:focus {
+        outline: none;
+      }
+      h3:focus-visible {
+        outline: 3px solid #1a56db;
       }
       /* A phone stacks each target's row: the target, its probe, then its channel. */
       @media (max-width: 560px) {
@@ -155,6 +202,7 @@ export class ProposalSummary extends LitElement {
       .noise td:not(:first-child),
       .noise th:not(:first-child) {
         text-align: right;
+        white-space: nowrap;
       }
       .warnings {
         margin: 0.3rem 0;
@@ -177,6 +225,12 @@ export class ProposalSummary extends LitElement {
     this.dispatchEvent(new CustomEvent(type));
   }
 
+  /** Moves the focus to the heading, so a keyboard or screen-reader user lands on the answer. */
+  async focusHeading(): Promise<void> {
+    await this.updateComplete;
+    this.renderRoot.querySelector<HTMLElement>('h3')?.focus();
+  }
+
   /** The answer when the search found no panel that meets the constraints: why, and how many targets would work. */
   private noPanel(r: DesignResult) {
     const fewer =
@@ -186,8 +240,8 @@ export class ProposalSummary extends LitElement {
           ? ` A usable panel was found for the ${r.largestUsableTargets} most abundant targets: try with fewer.`
           : ' No usable panel was found even for one target.';
     return html`<section aria-labelledby="h-proposal">
-      <h3 id="h-proposal">No usable panel: your panel is unchanged</h3>
-      <p class="verdict bad" role="status">${r.verdictReason}.${fewer}</p>
+      <h3 id="h-proposal" tabindex="-1">No usable panel: your panel is unchanged</h3>
+      <p class="verdict bad" role="status">${sentence(answerText(r.verdictReason))}.${fewer}</p>
       <div class="actions">
         <button type="button" @click=${() => this.fire('proposal-discard')}>Discard</button>
       </div>
@@ -208,9 +262,10 @@ export class ProposalSummary extends LitElement {
     const verdict =
       r.verdict === 'usable'
         ? 'Usable: every target reaches the signal-to-noise threshold and no light intrudes above the limit.'
-        : `Not usable: ${r.verdictReason}.`;
+        : `Not usable: ${answerText(r.verdictReason)}.`;
+    const request = this.request;
     return html`<section aria-labelledby="h-proposal">
-      <h3 id="h-proposal">Proposal, not loaded: your panel is unchanged</h3>
+      <h3 id="h-proposal" tabindex="-1">Proposal, not loaded: your panel is unchanged</h3>
       <p class="verdict ${r.verdict === 'usable' ? '' : 'bad'}" role="status">${verdict}</p>
       <p class="objective">
         Weakest target '${o.weakestTarget}' at signal-to-noise ${figure(o.worstSignalToNoise)} after unmixing:
@@ -233,8 +288,10 @@ export class ProposalSummary extends LitElement {
             (p, i) =>
               html`<tr>
                 <td>${p.target ?? p.label ?? p.id}</td>
-                <td>${probeCell(probeParts(p, r.evaluation?.probes[i]?.emissionPeakNm))}</td>
-                <td>${channelText(panel, p)}</td>
+                <td>
+                  ${partsCell(probeParts(p, r.evaluation?.probes[i]?.emissionPeakNm, nameIn(request, 'probes', p.id)))}
+                </td>
+                <td>${channelCell(panel, p, request)}</td>
               </tr>`,
           )}
         </table>
@@ -248,14 +305,14 @@ export class ProposalSummary extends LitElement {
           <tr>
             <th>target</th>
             <th>abundance</th>
-            <th>SD</th>
+            <th>noise SD</th>
             <th>S/N</th>
           </tr>
           ${probes.map(
             (p, i) =>
               html`<tr>
                 <td>${p.target ?? p.label ?? p.id}</td>
-                <td>${p.abundance ?? 1}</td>
+                <td>${abundanceText(p, request)}</td>
                 <td>${figure(noise.sd[i])}</td>
                 <td>${figure(noise.signalToNoise[i])}</td>
               </tr>`,
@@ -266,7 +323,7 @@ export class ProposalSummary extends LitElement {
         r.warnings.length
           ? html`<p class="caption" id="cap-warnings">Warnings</p>
               <ul class="warnings" aria-labelledby="cap-warnings">
-                ${r.warnings.map((w) => html`<li>${w}</li>`)}
+                ${r.warnings.map((w) => html`<li>${answerText(w)}</li>`)}
               </ul>`
           : ''
       }

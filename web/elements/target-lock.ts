@@ -16,6 +16,9 @@ export interface LockOption {
   label?: string;
 }
 
+/** The choice of no lock: the search then designs or picks the part. */
+const NONE = 'the search chooses';
+
 const optionText = (o: LockOption) => (o.label && o.label !== o.id ? `${o.label} (${o.id})` : o.id);
 
 @customElement('qdp-target-lock')
@@ -26,16 +29,25 @@ export class TargetLock extends LitElement {
   /** The target's name, for the choices' accessible names. */
   @property() target = '';
 
+  /** focus() moves to the first choice (the form sends the focus here when a lock is refused). */
+  static override shadowRootOptions = { ...LitElement.shadowRootOptions, delegatesFocus: true };
+
   static override styles = [
     focusRing,
     css`
+      /* The two choices one above the other, their menus lined up and narrowing on a phone. */
       :host {
-        display: inline-flex;
-        flex-wrap: wrap;
-        gap: 0.4rem;
+        display: grid;
+        grid-template-columns: max-content minmax(0, max-content);
+        gap: 0.2rem 0.4rem;
+        align-items: center;
+      }
+      label {
+        display: contents;
       }
       select {
-        max-width: 40vw;
+        max-width: 100%;
+        font: inherit;
       }
     `,
   ];
@@ -47,7 +59,7 @@ export class TargetLock extends LitElement {
     this.dispatchEvent(new CustomEvent('lock-change', { detail: { lock }, bubbles: true, composed: true }));
   }
 
-  private choice(kind: keyof DesignLock, label: string, options: LockOption[], none: string) {
+  private choice(kind: keyof DesignLock, label: string, options: LockOption[]) {
     const chosen = this.lock?.[kind] ?? '';
     const gone = chosen !== '' && !options.some((o) => o.id === chosen);
     return html`<label
@@ -56,7 +68,7 @@ export class TargetLock extends LitElement {
         aria-label=${`${label} for ${this.target}`}
         @change=${(e: Event) => this.set(kind, (e.target as HTMLSelectElement).value)}
       >
-        <option value="" ?selected=${chosen === ''}>${none}</option>
+        <option value="" ?selected=${chosen === ''}>${NONE}</option>
         ${options.map((o) => html`<option value=${o.id} ?selected=${o.id === chosen}>${optionText(o)}</option>`)}
         ${gone ? html`<option value=${chosen} selected>${chosen} (no longer in this panel)</option>` : ''}
       </select></label
@@ -65,13 +77,9 @@ export class TargetLock extends LitElement {
 
   override render() {
     return html`${
-      this.probes.length || this.lock?.probe
-        ? this.choice('probe', FORM_WORDS.lockProbe, this.probes, 'no: design one')
-        : ''
+      this.probes.length || this.lock?.probe ? this.choice('probe', FORM_WORDS.lockProbe, this.probes) : ''
     }${
-      this.channels.length || this.lock?.channel
-        ? this.choice('channel', FORM_WORDS.lockChannel, this.channels, 'no: choose one')
-        : ''
+      this.channels.length || this.lock?.channel ? this.choice('channel', FORM_WORDS.lockChannel, this.channels) : ''
     }`;
   }
 }
