@@ -169,6 +169,11 @@ export interface PanelSpec {
   lightPath?: LightPathSpec;
   /** The water Raman band under every line, part of the background (absent: not modelled). */
   waterRaman?: WaterRamanSpec;
+  /**
+   * Material classes the plan excludes (an institutional rule, a lab policy): a probe whose core or shell contains
+   * one is named in the evaluation's warnings. Never a finding that the other probes are safe.
+   */
+  exclude?: ('cadmium' | 'lead' | 'arsenic')[];
 }
 
 // FILTER_TYPES must list exactly the kinds of FilterSpec (a compile error otherwise).

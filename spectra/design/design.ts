@@ -151,6 +151,8 @@ export function* designSteps(
     // The sample's own light, so that the proposal's evaluation and noise include it.
     ...(request.scatterLevel !== undefined ? { scatterLevel: request.scatterLevel } : {}),
     ...(request.waterRaman !== undefined ? { waterRaman: { ...request.waterRaman } } : {}),
+    // The request's exclusions travel with the proposal, so its evaluation and the page keep them.
+    ...(request.exclude?.length ? { exclude: [...new Set(request.exclude)] } : {}),
   };
   const evaluation = evaluatePanel(panel);
   // The pair that sets the objective, read from the evaluation (abundances are inside its collected matrix).

@@ -15,6 +15,7 @@ import {
   lineLeak,
 } from '../light/line-blocking';
 import { foldLightPath } from '../light/light-path';
+import { probeExclusions } from '../dot/materials/exclusions';
 import { buildPanelModel, type PanelModel, type ProbeEvaluation } from './panel-model';
 import { lotShiftSensitivity, type LotShiftSensitivity } from './sensitivity';
 import { diagnoseMixing } from './unmix';
@@ -80,6 +81,17 @@ function nonZeroStretch(values: number[]): [number, number] {
 
 const sum = (row: number[]) => row.reduce((a, v) => a + v, 0);
 
+/** A warning for each probe whose core or shell is in a class the panel excludes. */
+function excludedWarnings(panel: PanelSpec): string[] {
+  const excluded = panel.exclude ?? [];
+  if (excluded.length === 0) return [];
+  return panel.probes.flatMap((p) => {
+    const hit = probeExclusions(p).filter((word) => excluded.includes(word));
+    const name = p.label ? `${p.label} (${p.id})` : p.id;
+    return hit.length ? [`probe ${name} contains ${hit.join(' and ')}, which this panel excludes`] : [];
+  });
+}
+
 /**
  * The background collected per channel (the sample's autofluorescence and water Raman, lines on in it, times their
  * power), the water Raman part per channel and line, and each channel's signal-to-background, the background being
@@ -126,7 +138,7 @@ export function evaluatePanel(
   const diagnostics = diagnoseMixing(collected, probeIds);
   const atLines = filtersAtLines(panel, model.linesOnByChannel);
   const leaks = lineBlocking(panel, model.linesOnByChannel, panel.minBlockingOD ?? DEFAULT_MIN_BLOCKING_OD, atLines);
-  const warnings = [...figures.warnings, ...diagnostics.warnings, ...leaks.warnings];
+  const warnings = [...figures.warnings, ...diagnostics.warnings, ...leaks.warnings, ...excludedWarnings(panel)];
   const evaluation: PanelEvaluation = {
     grid: { ...grid },
     probes: model.probeEvaluations,

@@ -3,7 +3,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { page, userEvent } from 'vitest/browser';
 import '../../web/elements/panel-app';
-import { decodeFragment } from '../../web/state/fragment';
+import { decodeFragment, encodeFragment } from '../../web/state/fragment';
 
 type Host = HTMLElement & { updateComplete: Promise<unknown> };
 
@@ -137,4 +137,23 @@ describe('<qdp-panel-app>', () => {
       expect(text(actions)).toContain('fix the marked input first.');
     },
   );
+});
+
+describe('<qdp-panel-app> exclusions', () => {
+  it('ticking lead-free writes exclude into the linked panel; a linked panel stating exclude ticks its class', async () => {
+    const app = await openPage();
+    const notes = inner(app, 'qdp-material-notes');
+    await userEvent.click(page.elementLocator(notes).getByLabelText(/lead/i));
+    await expect
+      .poll(() => (decodeFragment(location.hash) as { panel: { exclude?: string[] } }).panel.exclude)
+      .toEqual(['lead']);
+    // A fresh page on a link whose panel states lead-free but whose view options say nothing (as a shared or saved
+    // panel brings it) shows lead-free ticked.
+    const linked = decodeFragment(location.hash) as { panel: Record<string, unknown> };
+    document.body.replaceChildren();
+    history.replaceState(null, '', `#${encodeFragment({ panel: linked.panel as never, view: { exclude: [] } })}`);
+    const again = await openPage();
+    const box = page.elementLocator(inner(again, 'qdp-material-notes')).getByLabelText(/lead/i);
+    await expect.element(box).toBeChecked();
+  });
 });

@@ -127,3 +127,22 @@ describe('persistence', () => {
     expect((await postJson(worker, '/api/v1/panels', panel)).status).toBe(200);
   });
 });
+
+describe('a panel that states its exclusions', () => {
+  it('is stored with them and returned as sent, and the evaluate route names the excluded probe', async () => {
+    const panel = { ...examplePanel(), exclude: ['cadmium'] };
+    const stored = (await (await postJson(worker, '/api/v1/panels', panel)).json()) as { id: string };
+    const back = (await (await worker.call(`/api/v1/panels/${stored.id}`)).json()) as { exclude?: string[] };
+    expect(back.exclude).toEqual(['cadmium']);
+    const evaluation = (await (await postJson(worker, '/api/v1/panels/evaluate', panel)).json()) as {
+      warnings: string[];
+    };
+    expect(evaluation.warnings).toContain('probe CD-x (p1) contains cadmium, which this panel excludes');
+  });
+
+  it('naming a class the tool does not know is a 400 at ["exclude", 0]', async () => {
+    const res = await postJson(worker, '/api/v1/panels', { ...examplePanel(), exclude: ['mercury'] });
+    expect(res.status).toBe(400);
+    expect((await errorOf(res))?.path).toEqual(['exclude', 0]);
+  });
+});

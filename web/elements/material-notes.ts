@@ -19,6 +19,10 @@ export const GENERAL_CAUTION =
   'require.';
 
 /** The summary when no probe is made with an excludable class. */
+/** "cadmium", "cadmium and lead", "cadmium, lead and arsenic". */
+const wordList = (words: readonly string[]) =>
+  words.length < 2 ? words.join('') : `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
+
 const NONE_CONTAINED =
   `No probe in this panel is made with ${PANEL_EXCLUSIONS.slice(0, -1).join(', ')} or ${PANEL_EXCLUSIONS.at(-1)}` +
   " (by the tool's material list).";
@@ -131,7 +135,7 @@ export class MaterialNotes extends LitElement {
     const contained = containedClasses(panel, this.materials);
     const offending = offendingProbes(panel, this.materials, this.exclude);
     return html`
-      <p class="summary">${contained.length ? `This panel contains ${contained.join(' and ')}.` : NONE_CONTAINED}</p>
+      <p class="summary">${contained.length ? `This panel contains ${wordList(contained)}.` : NONE_CONTAINED}</p>
       <fieldset>
         <legend>Exclude material classes</legend>
         ${PANEL_EXCLUSIONS.map(

@@ -17,7 +17,7 @@ import type { EdgeDragDetail } from '../chart/types';
 import { computePanel, DETECTORS, MATERIALS, type Computed } from '../state/compute';
 import { demoPanel } from '../state/demo-panel';
 import { placeError, type FieldError } from '../state/error-map';
-import { offendingProbes, type PanelExclusion } from '../state/exclusions';
+import { isPanelExclusion, offendingProbes, withExclusions, type PanelExclusion } from '../state/exclusions';
 import { designParts } from '../state/design-request';
 import { decodeFragment, encodeFragment, type ViewOptions } from '../state/fragment';
 import { checksIfLoaded, loadChecks } from '../state/load-checks';
@@ -298,8 +298,9 @@ export class PanelApp extends LitElement {
   /** Replaces the whole panel (new, demo, import, shared) and recomputes. */
   private load(panel: PanelSpec, exclude: PanelExclusion[], writeUrl = true): void {
     this.computed = undefined;
-    this.exclude = exclude;
-    this.apply(panel, writeUrl ? 'push' : 'none');
+    // A panel that states its exclusions (a shared or saved one) brings them; else the view's are kept.
+    this.exclude = panel.exclude ? panel.exclude.filter(isPanelExclusion) : exclude;
+    this.apply(withExclusions(panel, this.exclude), writeUrl ? 'push' : 'none');
   }
 
   /** Sets the panel, checks and recomputes it, and records it in the fragment. */
@@ -567,7 +568,7 @@ export class PanelApp extends LitElement {
               .exclude=${this.exclude}
               @exclude-change=${(e: CustomEvent<{ exclude: PanelExclusion[] }>) => {
                 this.exclude = e.detail.exclude;
-                this.apply(p, 'replace');
+                this.apply(withExclusions(p, this.exclude), 'replace');
               }}
             ></qdp-material-notes>
           </section>

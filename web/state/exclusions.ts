@@ -58,3 +58,12 @@ export function offendingProbes(
   }
   return out;
 }
+
+/**
+ * The panel with its exclusions written into it (`exclude`, absent when none), so that a shared link, a saved file
+ * and the link fragment carry them with the panel.
+ */
+export function withExclusions(panel: PanelSpec, exclude: readonly PanelExclusion[]): PanelSpec {
+  const { exclude: _old, ...rest } = panel;
+  return exclude.length ? { ...rest, exclude: [...exclude] } : rest;
+}

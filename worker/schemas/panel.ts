@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { LIMITS, RANGES, SHARE_ID_PATTERN } from './limits';
-import { BACKGROUND_PRESET_IDS, DETECTOR_IDS } from '../../spectra/index';
+import { BACKGROUND_PRESET_IDS, DETECTOR_IDS, EXCLUSION_WORDS } from '../../spectra/index';
 import { identifier, ranged, text, wavelengthNm } from './fields';
 import { Filter } from './filter';
 import { Probe } from './probe';
@@ -85,6 +85,11 @@ const panelFields = {
   scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
   lightPath: LightPath.optional(),
   waterRaman: WaterRaman.optional(),
+  exclude: z
+    .array(z.enum(EXCLUSION_WORDS, { error: `must be ${EXCLUSION_WORDS.join(', ')}` }))
+    .max(EXCLUSION_WORDS.length)
+    .refine((list) => new Set(list).size === list.length, { error: 'names a class twice' })
+    .optional(),
 };
 
 /** The id of a stored or example instrument profile (a share id). */
