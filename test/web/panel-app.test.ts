@@ -140,7 +140,7 @@ describe('<qdp-panel-app>', () => {
 });
 
 describe('<qdp-panel-app> exclusions', () => {
-  it('ticking lead-free writes exclude into the linked panel; a linked panel stating exclude ticks its class', async () => {
+  it('ticking lead-free writes exclude into the linked panel; a panel stating exclude ticks its class', async () => {
     const app = await openPage();
     const notes = inner(app, 'qdp-material-notes');
     await userEvent.click(page.elementLocator(notes).getByLabelText(/lead/i));
