@@ -121,22 +121,15 @@ describe('<qdp-panel-app>', () => {
     },
   );
 
-  it(
-    "clicking 'New panel' shows the API's message 'probes needs at least one probe' " +
-      'and turns sharing and export off',
-    async () => {
-      const app = await openPage();
-      const newPanel = [...app.shadowRoot!.querySelectorAll('header button')].find(
-        (b) => b.textContent === 'New panel',
-      )!;
-      await userEvent.click(newPanel);
-      await expect.poll(() => headerAlert(app)).toBe('Not updated: probes needs at least one probe');
-      const actions = inner(app, 'qdp-panel-actions');
-      await actions.updateComplete;
-      expect(text(actions)).toContain('Sharing and the ordering sheet and panel file are off');
-      expect(text(actions)).toContain('fix the marked input first.');
-    },
-  );
+  it("clicking 'New panel' keeps sharing and export off until the panel has a probe and a channel", async () => {
+    const app = await openPage();
+    await userEvent.click(page.elementLocator(app).getByRole('button', { name: 'New panel' }));
+    await expect.poll(() => app.shadowRoot!.querySelector('.first-steps')).not.toBeNull();
+    const actions = inner(app, 'qdp-panel-actions');
+    await actions.updateComplete;
+    expect(text(actions)).toContain('Sharing and the ordering sheet and panel file are off');
+    expect(text(actions)).toContain('the panel needs a probe and a channel first.');
+  });
 });
 
 describe('<qdp-panel-app> exclusions', () => {
@@ -155,5 +148,19 @@ describe('<qdp-panel-app> exclusions', () => {
     const again = await openPage();
     const box = page.elementLocator(inner(again, 'qdp-material-notes')).getByLabelText(/lead/i);
     await expect.element(box).toBeChecked();
+  });
+});
+
+describe('<qdp-panel-app> new panel', () => {
+  it('"New panel" says to add a probe and a channel, no refusal; then only the channel once a probe is in', async () => {
+    const app = await openPage();
+    await userEvent.click(page.elementLocator(app).getByRole('button', { name: 'New panel' }));
+    await expect.poll(() => app.shadowRoot!.querySelector('.first-steps')?.textContent ?? '').toContain('add a probe');
+    expect(app.shadowRoot!.querySelector('.first-steps')!.textContent).toContain('a channel');
+    expect(headerAlert(app)).toBe('');
+    await userEvent.click(page.elementLocator(inner(app, 'qdp-probe-list')).getByRole('button', { name: 'Add probe' }));
+    await expect
+      .poll(() => app.shadowRoot!.querySelector('.first-steps')?.textContent ?? '')
+      .toMatch(/^To start, add a channel/);
   });
 });

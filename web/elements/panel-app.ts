@@ -74,6 +74,21 @@ function writeLastState(fragment: string): void {
 /** Edits closer together than this share one back-button step (ms): typing a number is one step, not five. */
 const HISTORY_STEP_MS = 1000;
 
+/**
+ * What to do first on a panel with no probe or no channel (a new panel), instead of the schema's refusal; '' when the
+ * panel has both.
+ */
+export function firstSteps(panel: PanelSpec): string {
+  const needs = [
+    ...(panel.probes.length ? [] : ['a probe (the dot or dye for your first target: "Add probe" under Probes)']),
+    ...(panel.channels.length
+      ? []
+      : ['a channel (a filter set your microscope has: "Add channel" under Detection channels)']),
+  ];
+  if (!needs.length) return '';
+  return `To start, add ${needs.join(' and ')}: the spectra, crosstalk and noise appear once there is one of each.`;
+}
+
 /** The path of a shared copy, /p/<id>. */
 const SHARED_PATH = /^\/p\/([A-Za-z0-9_-]+)$/;
 
@@ -422,9 +437,11 @@ export class PanelApp extends LitElement {
     const blockedProbes = offendingProbes(p, MATERIALS, this.exclude);
     const blocked = blockedProbes.size
       ? 'a probe is made of an excluded material.'
-      : this.error
-        ? 'fix the marked input first.'
-        : '';
+      : firstSteps(p)
+        ? 'the panel needs a probe and a channel first.'
+        : this.error
+          ? 'fix the marked input first.'
+          : '';
     return html` <header>
         <h1>qdpanel <span>plan a quantum-dot panel</span></h1>
         <div class="row">
@@ -448,7 +465,13 @@ export class PanelApp extends LitElement {
         </div>
         ${this.notice ? html`<p class="notice" role="status">${this.notice}</p>` : ''}
         ${this.sharedId ? this.sharedNote() : ''}
-        ${this.error ? html`<p class="error" role="alert">Not updated: ${this.error.message}</p>` : ''}
+        ${
+          firstSteps(p)
+            ? html`<p class="notice first-steps" role="status">${firstSteps(p)}</p>`
+            : this.error
+              ? html`<p class="error" role="alert">Not updated: ${this.error.message}</p>`
+              : ''
+        }
       </header>
       <main @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => this.loadProposal(e.detail.panel)}>
         <div
