@@ -152,7 +152,7 @@ describe('<qdp-panel-app> exclusions', () => {
 });
 
 describe('<qdp-panel-app> new panel', () => {
-  it('"New panel" says to add a probe and a channel, no refusal; then only the channel once a probe is in', async () => {
+  it('"New panel" says to add a probe and a channel, no refusal; then only the channel after a probe', async () => {
     const app = await openPage();
     await userEvent.click(page.elementLocator(app).getByRole('button', { name: 'New panel' }));
     await expect.poll(() => app.shadowRoot!.querySelector('.first-steps')?.textContent ?? '').toContain('add a probe');
