@@ -76,7 +76,7 @@ describe('<qdp-panel-app>', () => {
       // The model's refusal names the peaks the CdSe size law reaches (two wavelengths in nm).
       await expect
         .poll(() => fieldMessage(field))
-        .toMatch(/^an emission peak of 990 nm is out of reach .+ \d{3}–\d{3} nm/);
+        .toMatch(/^Probe 'Green dot': an emission peak of 990 nm is out of reach .+ \d{3}–\d{3} nm/);
       expect(field.shadowRoot!.querySelector('input')!.value).toBe('990');
       expect(headerAlert(app)).toBe(`Not updated: ${fieldMessage(field)}`);
       expect(staleNote(app)).not.toBeNull();
@@ -86,7 +86,7 @@ describe('<qdp-panel-app>', () => {
   );
 
   it(
-    "typing 2500 nm as a peak shows the API's message 'probes[1].emissionPeakNm must be between 200 and 2000 nm' " +
+    "typing 2500 nm as a peak shows the API's range in the user's words, naming the probe by its label, " +
       'under the field and in the header, keeps 2500 in the field and the link, ' +
       'and leaves the last numbers, marked stale',
     async () => {
@@ -94,9 +94,10 @@ describe('<qdp-panel-app>', () => {
       const before = crosstalkTable(app).textContent;
       const field = peakField(app, 1);
       await typePeak(app, 1, '2500');
-      await expect.poll(() => fieldMessage(field)).toBe('probes[1].emissionPeakNm must be between 200 and 2000 nm');
+      const words = "Probe 'Green dot': an emission peak of 2500 nm is outside 200–2000 nm";
+      await expect.poll(() => fieldMessage(field)).toBe(words);
       expect(field.shadowRoot!.querySelector('input')!.value).toBe('2500');
-      expect(headerAlert(app)).toBe('Not updated: probes[1].emissionPeakNm must be between 200 and 2000 nm');
+      expect(headerAlert(app)).toBe(`Not updated: ${words}`);
       expect(staleNote(app)).not.toBeNull();
       expect(crosstalkTable(app).textContent).toBe(before);
       expect(linkedPeak(1)).toBe(2500);
@@ -162,5 +163,22 @@ describe('<qdp-panel-app> new panel', () => {
     await expect
       .poll(() => app.shadowRoot!.querySelector('.first-steps')?.textContent ?? '')
       .toMatch(/^To start, add a channel/);
+  });
+});
+
+describe('<qdp-panel-app> refusals in the user’s words', () => {
+  it("a 5000 nm centre on the demo's third channel: the channel named, the value and range, no numbers", async () => {
+    const app = await openPage();
+    const card = inner(app, 'qdp-channel-list').shadowRoot!.querySelectorAll('qdp-channel-card')[2];
+    const input = page
+      .elementLocator(card)
+      .getByLabelText(/^Centre/)
+      .first();
+    await userEvent.clear(input);
+    await userEvent.type(input, '5000');
+    await expect
+      .poll(() => headerAlert(app))
+      .toBe("Not updated: Channel 'Yellow': a centre of 5000 nm is outside 200–2000 nm");
+    expect(staleNote(app)).not.toBeNull();
   });
 });

@@ -17,6 +17,7 @@ import type { EdgeDragDetail } from '../chart/types';
 import { computePanel, DETECTORS, MATERIALS, type Computed } from '../state/compute';
 import { demoPanel } from '../state/demo-panel';
 import { placeError, type FieldError } from '../state/error-map';
+import { inUserWords } from '../state/user-words';
 import { isPanelExclusion, offendingProbes, withExclusions, type PanelExclusion } from '../state/exclusions';
 import { designParts } from '../state/design-request';
 import { decodeFragment, encodeFragment, type ViewOptions } from '../state/fragment';
@@ -335,7 +336,7 @@ export class PanelApp extends LitElement {
     if (!checks) return;
     const problem = checks.checkPanel(this.panel) ?? this.instrumentProblem();
     if (problem) {
-      this.error = problem;
+      this.error = { ...problem, message: inUserWords(problem, this.panel) };
       return;
     }
     const r = computePanel(this.panel, { byBrightness: this.byBrightness });
@@ -343,7 +344,7 @@ export class PanelApp extends LitElement {
       this.computed = r.value;
       this.error = undefined;
     } else {
-      this.error = r.error;
+      this.error = { ...r.error, message: inUserWords(r.error, this.panel) };
     }
   }
 
