@@ -255,8 +255,8 @@ describe('the panel page', () => {
     for (const target of ['nuclear envelope marker', 'mitochondrial marker', 'membrane marker'])
       expect(csv).toContain(target);
     const cdseRow = csv.split('\r\n').find((r) => r.startsWith('p4,'))!;
-    // material, core diameter (a number), emission peak 605.
-    expect(cdseRow).toMatch(/^p4,Orange dot,cytoskeleton marker,cdse,\d+(\.\d+)?,605,/);
+    // material, shell, core diameter (a number), emission peak 605.
+    expect(cdseRow).toMatch(/^p4,Orange dot,cytoskeleton marker,cdse,ZnS [\d.]+ nm,\d+(\.\d+)?,605,/);
     await page.close();
   });
 
