@@ -133,7 +133,7 @@ describe('<qdp-panel-app>', () => {
       await expect.poll(() => headerAlert(app)).toBe('Not updated: probes needs at least one probe');
       const actions = inner(app, 'qdp-panel-actions');
       await actions.updateComplete;
-      expect(text(actions)).toContain('Sharing and the ordering sheet and panel file are off');
+      expect(text(actions)).toContain('Sharing, the ordering sheet, the matrices and the panel file are off');
       expect(text(actions)).toContain('fix the marked input first.');
     },
   );
