@@ -89,13 +89,17 @@ describe('ordering sheet CSV', () => {
     for (const name of ['supplier', 'catalogue number', 'amount'])
       expect([cell(p1, name), cell(p2, name)]).toEqual(['', '']);
     // InP in ZnSe/ZnS has no cadmium, lead or arsenic; a CdS shell brings cadmium into the same InP core.
-    expect(cell(p1, 'hazard')).toMatch(/^see the material's hazard notes.*: handle per local rules/);
-    expect(cell(p2, 'hazard')).toMatch(/^contains cadmium: handle per local rules/);
+    expect(cell(p1, 'hazard')).toMatch(
+      /^material hazard level moderate; see its hazard notes.*; handle per local rules/,
+    );
+    expect(cell(p2, 'hazard')).toBe(
+      'contains cadmium; material hazard level moderate; handle per local rules and your institution',
+    );
   });
 
-  it('hazardText names every regulated class a probe contains and always defers to local rules', () => {
+  it('hazardText names regulated classes and the core material hazard level, always deferring to local rules', () => {
     expect(hazardText({ material: 'gaas', shell: [{ material: 'cds', thicknessNm: 1 }] })).toMatch(
-      /^contains cadmium and arsenic: handle per local rules/,
+      /^contains cadmium and arsenic; material hazard level high; handle per local rules/,
     );
     for (const material of ['carbon', 'dye', 'cdse', 'cspbbr3'] as const) {
       const text = hazardText({ material });

@@ -38,7 +38,7 @@ export function csvText(rows: readonly (readonly CsvValue[])[]): string {
   return rows.map((r) => r.map(csvCell).join(',')).join('\r\n') + '\r\n';
 }
 
-const MATERIAL_ELEMENTS = new Map(listMaterials().map((m) => [m.id, m.elements]));
+const MATERIALS_BY_ID = new Map(listMaterials().map((m) => [m.id, m]));
 
 /** A probe's shell as ordered, innermost first: "ZnS 1.5 nm; CdS 0.4 nm", or '' for a bare core. */
 export function shellText(probe: Pick<ProbeSpec, 'shell'>): string {
@@ -48,19 +48,22 @@ export function shellText(probe: Pick<ProbeSpec, 'shell'>): string {
 }
 
 /**
- * The sheet's hazard cell: the regulated elements the core and shell contain (the classes a user can exclude), always
- * with a caution that defers to local rules; never a statement that a probe is harmless.
+ * The sheet's hazard cell: the regulated elements the core and shell contain (the classes a user can exclude) and the
+ * core material's hazard level from its toxicity summary, always with a caution that defers to local rules; never a
+ * statement that a probe is harmless.
  */
 export function hazardText(probe: Pick<ProbeSpec, 'material' | 'shell'>): string {
+  const material = MATERIALS_BY_ID.get(probe.material);
   const elements = [
-    ...(MATERIAL_ELEMENTS.get(probe.material) ?? []),
+    ...(material?.elements ?? []),
     ...(probe.shell ?? []).flatMap((l) => SHELL_MATERIALS[l.material].elements),
   ];
   const classes = exclusionsOf({ elements });
+  const level = material ? `material hazard level ${material.toxicity.level}; ` : '';
   const rule = 'handle per local rules and your institution';
   return classes.length
-    ? `contains ${classes.join(' and ')}: ${rule}`
-    : `see the material's hazard notes and supplier safety data sheet: ${rule}`;
+    ? `contains ${classes.join(' and ')}; ${level}${rule}`
+    : `${level}see its hazard notes and the supplier safety data sheet; ${rule}`;
 }
 
 const round = (v: number | null | undefined, digits: number) =>
