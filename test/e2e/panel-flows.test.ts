@@ -4,7 +4,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { openBrowser, shot } from './helpers/browser';
 import { startApp, type StartedApp } from '../quality/helpers/app';
 import { decodeFragment, encodeFragment } from '../../web/state/fragment';
-import type { PanelSpec } from '../../spectra/index';
+import { DEFAULT_GRID, evaluatePanel, type PanelSpec } from '../../spectra/index';
 
 let app: StartedApp;
 let browser: { context: BrowserContext; close(): Promise<void> };
@@ -255,8 +255,57 @@ describe('the panel page', () => {
     for (const target of ['nuclear envelope marker', 'mitochondrial marker', 'membrane marker'])
       expect(csv).toContain(target);
     const cdseRow = csv.split('\r\n').find((r) => r.startsWith('p4,'))!;
-    // material, core diameter (a number), emission peak 605.
-    expect(cdseRow).toMatch(/^p4,Orange dot,cytoskeleton marker,cdse,\d+(\.\d+)?,605,/);
+    // material, shell, core diameter (a number), emission peak 605.
+    expect(cdseRow).toMatch(/^p4,Orange dot,cytoskeleton marker,cdse,ZnS [\d.]+ nm,\d+(\.\d+)?,605,/);
+    await page.close();
+  });
+
+  it('saves the chart SVG (title, probe legend, no handles) and matrices CSV equal to a new evaluation', async () => {
+    const { page, problems } = await open(app.baseUrl + '/');
+    await page.setViewportSize({ width: 1440, height: 900 });
+    await page.waitForTimeout(200);
+    const save = async (name: string) => {
+      const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name }).click()]);
+      return { name: download.suggestedFilename(), text: readFileSync((await download.path())!, 'utf8') };
+    };
+    const svg = await save('Chart (SVG)');
+    const matrices = await save('Matrices (CSV)');
+    const { panel } = decodeFragment(new URL(page.url()).hash) as { panel: PanelSpec };
+    const labels = panel.probes.map((p) => p.label || p.id);
+
+    expect(svg.name).toMatch(/-spectra\.svg$/);
+    expect(svg.text).not.toContain('<!--');
+    expect(svg.text).not.toMatch(/class="handle"|role="slider"/);
+    expect(svg.text.match(/font-family=/g)).toHaveLength(1);
+    expect(svg.text).toContain(`>${panel.title}</text>`);
+    for (const label of labels) expect(svg.text).toMatch(new RegExp(`>${label} \\(\\d+ nm\\)`));
+    expect(svg.text).toContain('wavelength (nm)');
+
+    // The SVG on its own in Chromium at 1440 px, for a look at what a lab files.
+    const view = await browser.context.newPage();
+    await view.setViewportSize({ width: 1440, height: 900 });
+    await view.setContent(`<body style="margin:0">${svg.text.replace(/^<\?xml[^>]*>\s*/, '')}</body>`);
+    await shot(view, '11-exported-chart-svg-1440');
+    expect(await view.locator('svg g.legend text').count()).toBeGreaterThanOrEqual(labels.length);
+    await view.close();
+
+    expect(matrices.name).toMatch(/-matrices\.csv$/);
+    const rows = matrices.text.split('\r\n').map((r) => r.split(','));
+    const at = rows.findIndex((r) => r[0] === 'matrix' && r[1] === 'collected signal');
+    expect(rows[at + 1].slice(1)).toEqual(labels);
+    const ev = evaluatePanel(panel, { grid: DEFAULT_GRID });
+    panel.channels.forEach((c, i) => {
+      const row = rows[at + 2 + i];
+      expect(row[0]).toBe(c.label || c.id);
+      // Six significant digits in the file.
+      row
+        .slice(1)
+        .forEach((v, p) =>
+          expect(Math.abs(Number(v) - ev.collected[i][p])).toBeLessThanOrEqual(Math.abs(ev.collected[i][p]) * 1e-5),
+        );
+    });
+    expect(rows.some((r) => r[0] === 'matrix' && r[1] === 'unmixing' && r[2].startsWith('rows: probes'))).toBe(true);
+    expect(problems).toEqual([]);
     await page.close();
   });
 

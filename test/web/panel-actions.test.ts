@@ -80,14 +80,17 @@ describe('<qdp-panel-actions>', () => {
     expect(downloads.map((d) => d.filename)).toEqual(['panel.json', 'panel.json']);
   });
 
-  it('with a blocked reason disables share, the sheet and the JSON, says why, and saves nothing', async () => {
-    const el = await mount(demoPanel(), (a) => (a.blocked = 'a probe is made of an excluded material.'));
-    expect(panelButtons(el).map((b) => b.disabled)).toEqual([true, true, true]);
+  it('with a blocked reason disables share, sheet, matrices and JSON, says why, and saves nothing', async () => {
+    const el = await mount(demoPanel(), (a) => {
+      a.blocked = 'a probe is made of an excluded material.';
+      a.evaluation = { collected: [[1]], spillover: [[1]] };
+    });
+    expect([...panelButtons(el), button(el, 'Matrices')].map((b) => b.disabled)).toEqual([true, true, true, true]);
     expect(el.shadowRoot!.querySelector('p[role="status"]')!.textContent).toBe(
-      'Sharing and the ordering sheet and panel file are off (the chart can still be saved): ' +
+      'Sharing, the ordering sheet, the matrices and the panel file are off (the chart can still be saved): ' +
         'a probe is made of an excluded material.',
     );
-    for (const b of panelButtons(el)) b.click();
+    for (const b of [...panelButtons(el), button(el, 'Matrices')]) b.click();
     await new Promise((r) => setTimeout(r, 50));
     expect(downloads).toEqual([]);
     expect(liveMessage(el)).toBe('');
@@ -107,6 +110,7 @@ describe('<qdp-panel-actions>', () => {
     expect(names).toEqual([
       'Share: store and copy link',
       'Ordering sheet (CSV)',
+      'Matrices (CSV)',
       'Panel (JSON)',
       'Chart (SVG)',
       'Chart (PNG)',
@@ -167,15 +171,45 @@ describe('<qdp-panel-actions>', () => {
     expect(doc.documentElement.hasAttribute('style')).toBe(false);
   });
 
-  it('<qdp-panel-actions> saves the chart as a PNG at twice its on-screen size', async () => {
+  it('<qdp-panel-actions> saves the chart as a PNG at twice the size of the exported SVG', async () => {
     const el = await mount(demoPanel(), (a) => (a.chartSvg = smallChart));
+    button(el, 'Chart (SVG)').click();
     button(el, 'Chart (PNG)').click();
-    await vi.waitFor(() => expect(downloads).toHaveLength(1), { timeout: 10_000 });
-    expect(downloads[0].filename).toBe('demo-six-targets-on-a-tissue-section-one-405-nm-line-spectra.png');
-    const blob = await downloads[0].blob;
+    await vi.waitFor(() => expect(downloads).toHaveLength(2), { timeout: 10_000 });
+    expect(downloads[1].filename).toBe('demo-six-targets-on-a-tissue-section-one-405-nm-line-spectra.png');
+    const svgDoc = new DOMParser().parseFromString(await (await downloads[0].blob).text(), 'image/svg+xml');
+    const [w, h] = ['width', 'height'].map((a) => Number(svgDoc.documentElement.getAttribute(a)));
+    expect(w).toBe(300);
+    expect(h).toBeGreaterThan(120); // the title row and the legend's spacing come on top of the 120 px chart
+    const blob = await downloads[1].blob;
     expect(blob.type).toBe('image/png');
     const image = await createImageBitmap(blob);
-    expect([image.width, image.height]).toEqual([600, 240]);
+    expect([image.width, image.height]).toEqual([2 * w, 2 * h]);
+  });
+
+  it('saves the matrices CSV named after the title; its button is off until an evaluation is given', async () => {
+    const el = await mount(demoPanel());
+    expect(button(el, 'Matrices').disabled).toBe(true);
+    el.evaluation = {
+      collected: [
+        [4, 1],
+        [1, 3],
+      ],
+      spillover: [
+        [1, 0.5],
+        [0.25, 1],
+      ],
+    };
+    el.panel = { ...demoPanel(), probes: demoPanel().probes.slice(0, 2), channels: demoPanel().channels.slice(0, 2) };
+    await el.updateComplete;
+    button(el, 'Matrices').click();
+    expect(downloads.map((d) => d.filename)).toEqual([
+      'demo-six-targets-on-a-tissue-section-one-405-nm-line-matrices.csv',
+    ]);
+    const text = await (await downloads[0].blob).text();
+    expect(text).toContain('matrix,collected signal,');
+    expect(text).toContain('matrix,unmixing,');
+    expect(liveMessage(el)).toMatch(/^Matrices saved/);
   });
 
   it('<qdp-panel-actions> chart export without a chart, and every export without a panel, saves nothing', async () => {

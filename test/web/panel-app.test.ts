@@ -128,7 +128,7 @@ describe('<qdp-panel-app>', () => {
     await expect.poll(() => app.shadowRoot!.querySelector('.first-steps')).not.toBeNull();
     const actions = inner(app, 'qdp-panel-actions');
     await actions.updateComplete;
-    expect(text(actions)).toContain('Sharing and the ordering sheet and panel file are off');
+    expect(text(actions)).toContain('Sharing, the ordering sheet, the matrices and the panel file are off');
     expect(text(actions)).toContain('the panel needs a probe and a channel first.');
   });
 });

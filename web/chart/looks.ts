@@ -17,6 +17,9 @@ export const SHARED_LOOK = {
 /** The sample background: a tan fill with a darker edge. */
 export const BACKGROUND_LOOK = { fill: '#b08d57', fillOpacity: 0.22, stroke: '#8a6a35' } as const;
 
+/** The chart's one font family: the page sets it in CSS, the exported SVG on its root. */
+export const CHART_FONT_FAMILY = 'system-ui, sans-serif';
+
 /** The key of a layer's hide/show choice. */
 export const layerKey = {
   probe: (id: string) => `probe:${id}`,

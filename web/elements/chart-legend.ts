@@ -2,20 +2,11 @@
  * <qdp-chart-legend>: one line per layer of the spectra chart, each with a checkbox that shows or hides it. A hidden
  * layer stays listed, marked "hidden". Fires `layer-visibility` {key, shown}.
  */
-import { LitElement, css, html, svg } from 'lit';
+import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import { BACKGROUND_LOOK, BAND_LOOK, type LegendEntry } from '../chart/looks';
+import type { LegendEntry } from '../chart/looks';
+import { legendSwatch } from '../chart/swatch';
 import { focusRing } from './shared-styles';
-
-/** The small drawing before each label: a line, a shaded band or a filled patch, as the plot draws the layer. */
-function swatch(e: LegendEntry) {
-  if (e.mark === 'band')
-    return svg`<rect x="1" y="1" width="26" height="8" fill=${BAND_LOOK.fill} fill-opacity="0.4"
-      stroke=${BAND_LOOK.stroke} stroke-dasharray=${BAND_LOOK.dash}></rect>`;
-  if (e.mark === 'background')
-    return svg`<rect width="28" height="10" fill=${BACKGROUND_LOOK.fill} fill-opacity="0.4"></rect>`;
-  return svg`<line x1="0" x2="28" y1="5" y2="5" stroke=${e.stroke} stroke-width="3" stroke-dasharray=${e.dash}></line>`;
-}
 
 @customElement('qdp-chart-legend')
 export class ChartLegend extends LitElement {
@@ -67,7 +58,7 @@ export class ChartLegend extends LitElement {
                 .checked=${!e.hidden}
                 @change=${(ev: Event) => this.toggle(e.key, (ev.target as HTMLInputElement).checked)}
               />
-              <svg viewBox="0 0 28 10" aria-hidden="true">${swatch(e)}</svg>
+              <svg viewBox="0 0 28 10" aria-hidden="true">${legendSwatch(e)}</svg>
               ${e.label}${e.nir ? html` <strong>NIR</strong>` : ''}${e.hidden ? html` <em>(hidden)</em>` : ''}</label
             >
           </li>`,

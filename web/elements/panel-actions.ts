@@ -1,13 +1,16 @@
 /**
  * <qdp-panel-actions>: share the panel (stores it through the API and copies the link, with a visible link field as
- * the fallback) and export it: ordering sheet CSV, panel JSON, chart SVG and PNG.
+ * the fallback) and export it: ordering sheet CSV, matrices CSV, panel JSON, chart SVG and PNG.
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { focusRing } from './shared-styles';
-import type { PanelOnInstrumentSpec, PanelSpec } from '../../spectra/index';
+import type { PanelEvaluation, PanelOnInstrumentSpec, PanelSpec } from '../../spectra/index';
+import type { LegendEntry } from '../chart/looks';
+import { chartSvgExport } from '../io/chart-export';
 import { orderingSheetCsv, type ResolvedForSheet } from '../io/csv-export';
-import { downloadBlob, downloadText, svgDocument, svgToPng } from '../io/download';
+import { downloadBlob, downloadText, svgToPng } from '../io/download';
+import { matricesCsv } from '../io/matrix-export';
 
 /** A file name from the panel title: letters, digits and dashes only. */
 export function fileStem(panel: PanelSpec): string {
@@ -29,8 +32,12 @@ export class PanelActions extends LitElement {
   @property() blocked = '';
   /** The page's own resolved dots, used for the sheet only if the server cannot be reached. */
   @property({ attribute: false }) localResolved: ResolvedForSheet[] = [];
+  /** The page's evaluation of the panel, for the matrices file (none while the panel cannot be computed). */
+  @property({ attribute: false }) evaluation?: Pick<PanelEvaluation, 'collected' | 'spillover'>;
   /** Returns the chart's <svg> for image export. */
   @property({ attribute: false }) chartSvg: () => SVGSVGElement | null = () => null;
+  /** Returns the chart's legend entries, drawn under the exported chart. */
+  @property({ attribute: false }) chartLegend: () => LegendEntry[] = () => [];
 
   @state() private link = '';
   @state() private message = '';
@@ -96,13 +103,22 @@ export class PanelActions extends LitElement {
   private async exportImage(kind: 'svg' | 'png'): Promise<void> {
     const svg = this.chartSvg();
     if (!svg || !this.panel) return;
-    const text = svgDocument(svg);
+    const { text, widthPx, heightPx } = chartSvgExport(svg, {
+      title: this.panel.title || 'Untitled panel',
+      legend: this.chartLegend(),
+    });
     if (kind === 'svg') downloadText(text, `${fileStem(this.panel)}-spectra.svg`, 'image/svg+xml');
-    else
-      downloadBlob(
-        await svgToPng(text, svg.width.baseVal.value, svg.height.baseVal.value),
-        `${fileStem(this.panel)}-spectra.png`,
-      );
+    else downloadBlob(await svgToPng(text, widthPx, heightPx), `${fileStem(this.panel)}-spectra.png`);
+  }
+
+  private saveMatrices(): void {
+    if (!this.panel || !this.evaluation) return;
+    downloadText(
+      matricesCsv(this.panel, this.evaluation),
+      `${fileStem(this.panel)}-matrices.csv`,
+      'text/csv;charset=utf-8',
+    );
+    this.message = 'Matrices saved (collected signal, spillover and unmixing, values computed in this page).';
   }
 
   private saveJson(): void {
@@ -125,10 +141,12 @@ export class PanelActions extends LitElement {
   override render() {
     const off = !!this.blocked || this.busy;
     const offNote =
-      'Sharing and the ordering sheet and panel file are off (the chart can still be saved): ' + this.blocked;
+      'Sharing, the ordering sheet, the matrices and the panel file are off (the chart can still be saved): ' +
+      this.blocked;
     return html`<div class="row">
         <button type="button" ?disabled=${off} @click=${this.share}>Share: store and copy link</button>
         <button type="button" ?disabled=${off} @click=${this.exportCsv}>Ordering sheet (CSV)</button>
+        <button type="button" ?disabled=${off || !this.evaluation} @click=${this.saveMatrices}>Matrices (CSV)</button>
         <button type="button" ?disabled=${off} @click=${this.saveJson}>Panel (JSON)</button>
         <button type="button" @click=${() => this.exportImage('svg')}>Chart (SVG)</button>
         <button type="button" @click=${() => this.exportImage('png')}>Chart (PNG)</button>

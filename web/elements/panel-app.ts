@@ -604,6 +604,8 @@ export class PanelApp extends LitElement {
               .blocked=${blocked}
               .localResolved=${c?.resolved ?? []}
               .chartSvg=${() => this.chart?.shadowRoot?.querySelector('svg') ?? null}
+              .chartLegend=${() => this.chart?.legendEntries() ?? []}
+              .evaluation=${this.error ? undefined : c?.evaluation}
             ></qdp-panel-actions>
           </section>
         </div>

@@ -4,7 +4,7 @@
  * every value under the pointer. The reader picks a linear or log scale and a range (following the panel by default),
  * and hides or shows each layer; those choices are kept by layer id across recomputations of the panel.
  */
-import { LitElement, css, html, svg, type PropertyValues } from 'lit';
+import { LitElement, css, html, svg, unsafeCSS, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { axisBottom, axisLeft, axisRight } from 'd3-axis';
 import { select } from 'd3-selection';
@@ -15,7 +15,7 @@ import { isNearInfrared, wavelengthToCss } from '../chart/color';
 import { WidthController } from '../chart/resize-controller';
 import { chartReadout } from '../chart/readout';
 import { autoRangeNm } from '../chart/auto-range';
-import { BACKGROUND_LOOK, BAND_LOOK, layerKey, SHARED_LOOK, type LegendEntry } from '../chart/looks';
+import { BACKGROUND_LOOK, BAND_LOOK, CHART_FONT_FAMILY, layerKey, SHARED_LOOK, type LegendEntry } from '../chart/looks';
 import './chart-controls';
 import './chart-legend';
 
@@ -74,9 +74,8 @@ export class SpectrumChart extends LitElement {
       width: 100%;
       height: ${HEIGHT_PX}px;
       touch-action: none;
-      font:
-        11px system-ui,
-        sans-serif;
+      font-size: 11px;
+      font-family: ${unsafeCSS(CHART_FONT_FAMILY)};
     }
     .handle {
       cursor: ew-resize;
@@ -258,7 +257,7 @@ export class SpectrumChart extends LitElement {
   private hoverLine(g: ChartGeometry) {
     if (this.hoverNm === null) return '';
     const x = g.x(this.hoverNm);
-    return svg`<line x1=${x} x2=${x} y1=${TOP} y2=${BOTTOM} stroke="#111" stroke-width="1"
+    return svg`<line class="hover" x1=${x} x2=${x} y1=${TOP} y2=${BOTTOM} stroke="#111" stroke-width="1"
       stroke-dasharray="2 2"></line>`;
   }
 
@@ -279,8 +278,8 @@ export class SpectrumChart extends LitElement {
     );
   }
 
-  /** The legend's lines: every layer, shown or hidden. */
-  private legendEntries(): LegendEntry[] {
+  /** The legend's lines: every layer, shown or hidden (the exported chart draws the shown ones). */
+  legendEntries(): LegendEntry[] {
     const hidden = (key: string) => this.hiddenKeys.has(key);
     return [
       ...this.curves.map((c) => ({

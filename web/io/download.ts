@@ -1,5 +1,5 @@
 /**
- * Downloads made in the page: a file from text or a blob, and the chart as SVG or PNG.
+ * Downloads made in the page: a file from text or a blob, and an SVG document rendered to PNG.
  */
 
 /** Saves a blob under `filename` through a temporary object URL. */
@@ -18,15 +18,6 @@ export function downloadBlob(blob: Blob, filename: string): void {
 /** Saves text with a MIME type. */
 export function downloadText(text: string, filename: string, type: string): void {
   downloadBlob(new Blob([text], { type }), filename);
-}
-
-/** A standalone SVG document of an inline <svg>: a copy with its size and namespace set. */
-export function svgDocument(svg: SVGSVGElement): string {
-  const copy = svg.cloneNode(true) as SVGSVGElement;
-  copy.setAttribute('xmlns', 'http://www.w3.org/2000/svg');
-  copy.removeAttribute('style');
-  copy.querySelectorAll('[tabindex]').forEach((n) => n.removeAttribute('tabindex'));
-  return '<?xml version="1.0" encoding="UTF-8"?>\n' + new XMLSerializer().serializeToString(copy);
 }
 
 /** Renders an SVG document onto a canvas at `scale` and returns it as a PNG blob. */
