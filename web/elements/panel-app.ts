@@ -528,24 +528,26 @@ export class PanelApp extends LitElement {
               ?disabled=${!!this.sharedId}
               @change=${(e: Event) => this.apply({ ...p, title: (e.target as HTMLInputElement).value })}
           /></label>
-          <button
-            type="button"
-            aria-keyshortcuts="Control+Z Meta+Z"
-            title="Undo the last change (Ctrl+Z, or Cmd+Z on a Mac, outside a text box)"
-            ?disabled=${!!this.sharedId || this.steps.past.length === 0}
-            @click=${this.undoStep}
-          >
-            Undo
-          </button>
-          <button
-            type="button"
-            aria-keyshortcuts="Control+Shift+Z Meta+Shift+Z"
-            title="Redo the change last undone (Ctrl+Shift+Z, or Cmd+Shift+Z on a Mac, outside a text box)"
-            ?disabled=${!!this.sharedId || this.steps.future.length === 0}
-            @click=${this.redoStep}
-          >
-            Redo
-          </button>
+          <span class="undo" role="group" aria-label="Undo and redo">
+            <button
+              type="button"
+              aria-keyshortcuts="Control+Z Meta+Z"
+              title="Undo the last change (Ctrl+Z, or Cmd+Z on a Mac, outside a text box)"
+              ?disabled=${!!this.sharedId || this.steps.past.length === 0}
+              @click=${this.undoStep}
+            >
+              Undo
+            </button>
+            <button
+              type="button"
+              aria-keyshortcuts="Control+Shift+Z Meta+Shift+Z"
+              title="Redo the change last undone (Ctrl+Shift+Z, or Cmd+Shift+Z on a Mac, outside a text box)"
+              ?disabled=${!!this.sharedId || this.steps.future.length === 0}
+              @click=${this.redoStep}
+            >
+              Redo
+            </button>
+          </span>
           <button type="button" @click=${() => this.loadOwn(newPanel())}>New panel</button>
           <button type="button" @click=${() => this.loadOwn(demoPanel())}>Open the demo panel</button>
           <label class="file"
