@@ -531,3 +531,69 @@ describe('instrument profiles in the page', () => {
     await page.close();
   });
 });
+
+describe('undo, redo and labels that follow their filters', () => {
+  const orangeCentre = (page: Page) =>
+    page.locator('qdp-channel-card').nth(3).locator('qdp-number-field[data-field="filters.0.centerNm"] input');
+  const header = (page: Page) => page.locator('qdp-panel-app header');
+  const legend = (page: Page) => page.locator('qdp-chart-legend ul').innerText();
+
+  it(
+    'typing 615 as the orange centre changes the spillover; Undo brings back the first numbers and 605 in the ' +
+      'field, Redo brings back 615 and its numbers',
+    async () => {
+      const { page, problems } = await open(app.baseUrl + '/');
+      const undo = page.getByRole('button', { name: 'Undo', exact: true });
+      const redo = page.getByRole('button', { name: 'Redo', exact: true });
+      expect(await undo.isDisabled()).toBe(true);
+      const first = await spillover(page);
+      await orangeCentre(page).fill('');
+      await orangeCentre(page).pressSequentially('615');
+      await expect.poll(() => spillover(page)).not.toBe(first);
+      const typed = await spillover(page);
+      await page.setViewportSize({ width: 1440, height: 900 });
+      await shot(page, '20-undo-redo-1440', header(page));
+      await undo.click();
+      await expect.poll(() => orangeCentre(page).inputValue()).toBe('605');
+      await expect.poll(() => spillover(page)).toBe(first);
+      expect(await undo.isDisabled()).toBe(true);
+      await redo.click();
+      await expect.poll(() => orangeCentre(page).inputValue()).toBe('615');
+      await expect.poll(() => spillover(page)).toBe(typed);
+      await undo.click();
+      await page.setViewportSize({ width: 390, height: 844 });
+      await page.waitForTimeout(200);
+      await shot(page, '20b-undo-redo-390', header(page));
+      expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(400);
+      expect(problems).toEqual([]);
+      await page.close();
+    },
+  );
+
+  it(
+    'a channel whose label was emptied reads "615/20 channel" in the chart legend after its centre is typed as 615, ' +
+      'while the channel named "Red" keeps its name through its own centre edit',
+    async () => {
+      const { page, problems } = await open(app.baseUrl + '/');
+      const label = page.locator('qdp-channel-card').nth(3).getByLabel('Label');
+      await label.fill('');
+      await label.press('Tab');
+      await expect.poll(() => legend(page)).toContain('c4 channel');
+      await orangeCentre(page).fill('');
+      await orangeCentre(page).pressSequentially('615');
+      await expect.poll(() => legend(page)).toContain('615/20 channel');
+      expect(await legend(page)).not.toContain('c4 channel');
+      expect(await label.inputValue()).toBe('615/20');
+      // The named "Red" channel next to it keeps its name through its own edit.
+      const redCentre = page
+        .locator('qdp-channel-card')
+        .nth(4)
+        .locator('qdp-number-field[data-field="filters.0.centerNm"] input');
+      await redCentre.fill('650');
+      await expect.poll(() => legend(page)).toContain('Red channel');
+      await shot(page, '21-label-follows-1280', page.locator('qdp-chart-legend'));
+      expect(problems).toEqual([]);
+      await page.close();
+    },
+  );
+});

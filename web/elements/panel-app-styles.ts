@@ -42,6 +42,11 @@ export const appStyles = [
     label {
       font-size: 0.9rem;
     }
+    /* Undo and Redo stay side by side when the row wraps on a phone. */
+    .undo {
+      display: flex;
+      gap: 0.5rem;
+    }
     input[type='text'] {
       font: inherit;
       padding: 0.2rem 0.3rem;

@@ -1,7 +1,9 @@
 /**
  * <qdp-panel-app>: the whole page. Holds the panel, checks it with the API's schema and recomputes it locally on every
  * edit (keeping the last good result when an edit is invalid), keeps the state in the URL fragment, opens shared
- * panels from /p/<id>, and starts panels on instrument profiles from /i/<id>.
+ * panels from /p/<id>, and starts panels on instrument profiles from /i/<id>. Undo and Redo (buttons, Ctrl+Z and
+ * Ctrl+Shift+Z, or Cmd on a Mac) step through the panel's own history; inside a text box the keys are left to the
+ * browser, which undoes the typing in that box (and the panel follows the text), so they never take two steps at once.
  */
 import { LitElement, html } from 'lit';
 import { customElement, query, state } from 'lit/decorators.js';
@@ -33,6 +35,7 @@ import {
   setProbe,
 } from '../state/panel-edit';
 import { moveEdge } from '../state/edge-drag';
+import { editKey, emptyHistory, recordEdit, redo, STEP_MS, undo } from '../state/undo-history';
 import {
   instrumentChanges,
   switchInstrument,
@@ -72,8 +75,22 @@ function writeLastState(fragment: string): void {
   }
 }
 
-/** Edits closer together than this share one back-button step (ms): typing a number is one step, not five. */
-const HISTORY_STEP_MS = 1000;
+/** What one undo step brings back: the panel, the excluded materials and the instrument profile it is on. */
+interface Snapshot {
+  panel: PanelSpec;
+  exclude: PanelExclusion[];
+  instrument?: AttachedInstrument;
+}
+
+/** Input kinds that undo their own typing (a checkbox, a button or a menu does not). */
+const TEXT_INPUTS = new Set(['text', 'search', 'url', 'tel', 'email', 'password', 'number']);
+
+/** True when `target` is a text box the browser undoes by itself: the page leaves Ctrl+Z to it there. */
+function undoesItsOwnTyping(target: EventTarget | undefined): boolean {
+  if (!(target instanceof HTMLElement)) return false;
+  if (target.isContentEditable || target instanceof HTMLTextAreaElement) return true;
+  return target instanceof HTMLInputElement && TEXT_INPUTS.has(target.type);
+}
 
 /**
  * What to do first on a panel with no probe or no channel (a new panel), instead of the schema's refusal; '' when the
@@ -121,6 +138,10 @@ export class PanelApp extends LitElement {
   @state() private snapStock = false;
   @query('qdp-spectrum-chart') private chart?: SpectrumChart;
   private lastPushMs = 0;
+  /** The steps to undo and redo. */
+  @state() private steps = emptyHistory<Snapshot>();
+  /** The state the last step left, once the first panel is shown (before it, nothing is recorded). */
+  private shown?: Snapshot;
   /** True while a panel waits for the checks to arrive before it is computed. */
   private awaitingChecks = false;
 
@@ -129,6 +150,7 @@ export class PanelApp extends LitElement {
   override connectedCallback(): void {
     super.connectedCallback();
     window.addEventListener('popstate', this.onPopState);
+    window.addEventListener('keydown', this.onKeyDown);
     void this.startChecks();
     const shared = SHARED_PATH.exec(location.pathname);
     const profile = /^\/i\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
@@ -139,6 +161,7 @@ export class PanelApp extends LitElement {
 
   override disconnectedCallback(): void {
     window.removeEventListener('popstate', this.onPopState);
+    window.removeEventListener('keydown', this.onKeyDown);
     super.disconnectedCallback();
   }
 
@@ -152,6 +175,62 @@ export class PanelApp extends LitElement {
       void this.restoreFromFragment();
     }
   };
+
+  /** Ctrl+Z undoes and Ctrl+Shift+Z redoes (Cmd on a Mac), except in a text box, which undoes its own typing. */
+  private onKeyDown = (e: KeyboardEvent) => {
+    if (!(e.ctrlKey || e.metaKey) || e.altKey || e.key.toLowerCase() !== 'z') return;
+    if (undoesItsOwnTyping(e.composedPath()[0])) return;
+    e.preventDefault();
+    if (e.shiftKey) this.redoStep();
+    else this.undoStep();
+  };
+
+  private snapshot(): Snapshot {
+    return { panel: this.panel, exclude: this.exclude, instrument: this.instrument };
+  }
+
+  /** Records the change since the last step: a burst of edits of the same fields joins one step, a load is its own. */
+  private track(own: boolean): void {
+    const before = this.shown;
+    if (!before) return;
+    const now = this.snapshot();
+    if (before.panel === now.panel && before.exclude === now.exclude && before.instrument === now.instrument) return;
+    const samePlace = before.exclude === now.exclude && before.instrument === now.instrument;
+    const key = own || !samePlace ? undefined : editKey(before.panel, now.panel);
+    this.steps = recordEdit(this.steps, before, { key, atMs: Date.now() });
+    this.shown = now;
+  }
+
+  /** The first panel is shown: steps are recorded from here on. */
+  private settle(): void {
+    this.shown ??= this.snapshot();
+  }
+
+  private undoStep(): void {
+    const r = this.sharedId ? undefined : undo(this.steps, this.snapshot());
+    if (!r) return;
+    this.steps = r.history;
+    this.restore(r.state);
+  }
+
+  private redoStep(): void {
+    const r = this.sharedId ? undefined : redo(this.steps, this.snapshot());
+    if (!r) return;
+    this.steps = r.history;
+    this.restore(r.state);
+  }
+
+  /** Shows a state from the undo history; the address and this browser's last state follow without a Back step. */
+  private restore(s: Snapshot): void {
+    this.shown = s;
+    this.instrument = s.instrument;
+    this.exclude = s.exclude;
+    this.changes = undefined;
+    this.beforeSwitch = undefined;
+    this.panel = s.panel;
+    this.refresh();
+    this.writeFragment('replace');
+  }
 
   /** Loads the checks in the background; a panel set before they arrived is checked and computed then. */
   private async startChecks(): Promise<void> {
@@ -172,7 +251,7 @@ export class PanelApp extends LitElement {
       // A bare address opens the last state of this browser, so a reload never loses the work.
       const last = location.hash ? '' : readLastState();
       const raw = decodeFragment(location.hash || last);
-      if (raw === null) return this.load(demoPanel(), []);
+      if (raw === null) return this.loadFirst(demoPanel());
       if (last) {
         this.notice = 'Your last panel in this browser is back. "New panel" or "Open the demo panel" starts afresh.';
       }
@@ -186,6 +265,7 @@ export class PanelApp extends LitElement {
       this.notice = `${e instanceof Error ? e.message : String(e)} The demo panel is shown instead.`;
       this.load(demoPanel(), []);
     }
+    this.settle();
   }
 
   private async openShared(id: string): Promise<void> {
@@ -200,6 +280,7 @@ export class PanelApp extends LitElement {
     } catch (e) {
       this.notice = `This shared panel could not be opened: ${e instanceof Error ? e.message : String(e)}`;
     }
+    this.settle();
   }
 
   /** A profile by id, checked with the API's schema; throws an Error with the reason. */
@@ -242,12 +323,14 @@ export class PanelApp extends LitElement {
       this.notice = `This instrument profile could not be opened: ${e instanceof Error ? e.message : String(e)}`;
       this.load(newPanel(), []);
     }
+    this.settle();
   }
 
   /** After a reload: ties the restored panel to its profile again (the panel already holds the parts). */
   private async reattach(id: string): Promise<void> {
     try {
       this.instrument = await this.fetchInstrument(id);
+      if (this.shown) this.shown = { ...this.shown, instrument: this.instrument };
       this.refresh();
     } catch (e) {
       this.notice =
@@ -311,17 +394,27 @@ export class PanelApp extends LitElement {
     this.load(panel, this.exclude);
   }
 
-  /** Replaces the whole panel (new, demo, import, shared) and recomputes. */
+  /** Replaces the whole panel (new, demo, import, shared) and recomputes: one undo step of its own. */
   private load(panel: PanelSpec, exclude: PanelExclusion[], writeUrl = true): void {
     this.computed = undefined;
     // A panel that states its exclusions (a shared or saved one) brings them; else the view's are kept.
     this.exclude = panel.exclude ? panel.exclude.filter(isPanelExclusion) : exclude;
-    this.apply(withExclusions(panel, this.exclude), writeUrl ? 'push' : 'none');
+    this.apply(withExclusions(panel, this.exclude), writeUrl ? 'push' : 'none', true);
   }
 
-  /** Sets the panel, checks and recomputes it, and records it in the fragment. */
-  private apply(panel: PanelSpec, history: 'push' | 'replace' | 'none' = 'push'): void {
+  /** The first panel of a visit, when the address holds none: the history of steps starts on it. */
+  private loadFirst(panel: PanelSpec): void {
+    this.load(panel, []);
+    this.settle();
+  }
+
+  /**
+   * Sets the panel, checks and recomputes it, records the change as an undo step (`own`: never joined with the edits
+   * before it) and records it in the fragment.
+   */
+  private apply(panel: PanelSpec, history: 'push' | 'replace' | 'none' = 'push', own = false): void {
     this.panel = panel;
+    this.track(own);
     this.refresh();
     if (history !== 'none' && !this.sharedId) this.writeFragment(history);
   }
@@ -367,7 +460,7 @@ export class PanelApp extends LitElement {
     const url = `${path}#${fragment}`;
     writeLastState(fragment);
     const now = Date.now();
-    if (mode === 'push' && now - this.lastPushMs > HISTORY_STEP_MS) history.pushState(null, '', url);
+    if (mode === 'push' && now - this.lastPushMs > STEP_MS) history.pushState(null, '', url);
     else history.replaceState(null, '', url);
     this.lastPushMs = now;
   }
@@ -454,6 +547,26 @@ export class PanelApp extends LitElement {
               ?disabled=${!!this.sharedId}
               @change=${(e: Event) => this.apply({ ...p, title: (e.target as HTMLInputElement).value })}
           /></label>
+          <span class="undo" role="group" aria-label="Undo and redo">
+            <button
+              type="button"
+              aria-keyshortcuts="Control+Z Meta+Z"
+              title="Undo the last change (Ctrl+Z, or Cmd+Z on a Mac, outside a text box)"
+              ?disabled=${!!this.sharedId || this.steps.past.length === 0}
+              @click=${this.undoStep}
+            >
+              Undo
+            </button>
+            <button
+              type="button"
+              aria-keyshortcuts="Control+Shift+Z Meta+Shift+Z"
+              title="Redo the change last undone (Ctrl+Shift+Z, or Cmd+Shift+Z on a Mac, outside a text box)"
+              ?disabled=${!!this.sharedId || this.steps.future.length === 0}
+              @click=${this.redoStep}
+            >
+              Redo
+            </button>
+          </span>
           <button type="button" @click=${() => this.loadOwn(newPanel())}>New panel</button>
           <button type="button" @click=${() => this.loadOwn(demoPanel())}>Open the demo panel</button>
           <label class="file"

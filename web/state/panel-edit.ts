@@ -9,6 +9,7 @@ import {
   type PanelSpec,
   type ProbeSpec,
 } from '../../spectra/index';
+import { filterName } from './instrument';
 
 /** A new, empty panel with one 405 nm line. */
 export function newPanel(): PanelSpec {
@@ -32,9 +33,26 @@ export function setProbe(panel: PanelSpec, index: number, probe: ProbeSpec): Pan
   return { ...panel, probes: panel.probes.map((p, i) => (i === index ? probe : p)) };
 }
 
-/** Replaces channel `index` by `channel`. */
+/** The label a channel's filters give it: their sizes in the trade's notation, e.g. "655/20" or "500 LP + 655/20". */
+export function labelFromFilters(filters: readonly FilterSpec[]): string {
+  return filters.map(filterName).join(' + ');
+}
+
+/**
+ * A channel after an edit, its label following its filters unless the user named it. The label counts as named by the
+ * user when, at the time of the edit, it is not empty and differs from what the old filters give (so a label typed
+ * as exactly "655/20" on a 655/20 filter follows too); an edit that changes the label itself keeps the new label.
+ */
+export function followFilters(before: ChannelSpec, after: ChannelSpec): ChannelSpec {
+  if (JSON.stringify(before.filters) === JSON.stringify(after.filters)) return after;
+  if (after.label !== before.label) return after;
+  if (before.label && before.label !== labelFromFilters(before.filters)) return after;
+  return { ...after, label: labelFromFilters(after.filters) };
+}
+
+/** Replaces channel `index` by `channel`, its label following its filters unless the user named it (followFilters). */
 export function setChannel(panel: PanelSpec, index: number, channel: ChannelSpec): PanelSpec {
-  return { ...panel, channels: panel.channels.map((c, i) => (i === index ? channel : c)) };
+  return { ...panel, channels: panel.channels.map((c, i) => (i === index ? followFilters(c, channel) : c)) };
 }
 
 /** Replaces filter `filterIndex` of channel `channelIndex`. */
