@@ -112,8 +112,8 @@ describe('the panel page', () => {
   );
 
   it(
-    'a 2500 nm peak shows, under the field, the very message POST /api/v1/panels/evaluate gives for that panel, ' +
-      'and the last numbers stay',
+    "a 2500 nm peak shows, under the field, the API's refusal of that panel in the user's words (the probe by its " +
+      'label, the value and the same range), and the last numbers stay',
     async () => {
       const { page, problems } = await open(app.baseUrl + '/');
       const before = await spillover(page);
@@ -121,10 +121,11 @@ describe('the panel page', () => {
       await peak.locator('input').fill('2500');
       await expect.poll(() => peak.locator('[role="alert"]').count()).toBe(1);
       const shown = await peak.locator('[role="alert"]').innerText();
-      expect(shown).toBe('probes[1].emissionPeakNm must be between 200 and 2000 nm');
+      expect(shown).toBe("Probe 'Green dot': an emission peak of 2500 nm is outside 200–2000 nm");
       expect(await peak.locator('input').inputValue()).toBe('2500');
       expect(await spillover(page)).toBe(before);
-      // The panel the page holds (its link carries it) sent to the API as it is: the API refuses it in the same words.
+      // The panel the page holds (its link carries it) sent to the API as it is: the API refuses the same field with
+      // the same range.
       const { panel } = decodeFragment(new URL(page.url()).hash) as { panel: unknown };
       const res = await fetch(`${app.baseUrl}/api/v1/panels/evaluate`, {
         method: 'POST',
@@ -133,7 +134,8 @@ describe('the panel page', () => {
       });
       const body = (await res.json()) as { error: { code: string; message: string; path: unknown[] } };
       expect(res.status).toBe(400);
-      expect(body.error).toMatchObject({ code: 'out_of_range', message: shown, path: ['probes', 1, 'emissionPeakNm'] });
+      expect(body.error).toMatchObject({ code: 'out_of_range', path: ['probes', 1, 'emissionPeakNm'] });
+      expect(body.error.message).toContain('between 200 and 2000 nm');
       expect(problems).toEqual([]);
       await shot(page, '04b-refused-peak-1280', peak);
       await page.close();
@@ -399,13 +401,14 @@ describe('keeping typed work', () => {
     await centre().fill('5000');
     await centre().press('Tab');
     await page.getByRole('button', { name: 'Add probe' }).click();
-    // The API's own range, as POST /api/v1/panels/evaluate words it.
-    await expect.poll(() => page.locator('p.error').first().innerText()).toContain('must be between 200 and 2000 nm');
+    // The API's own range, in the user's words, naming the channel by its label.
+    const refusal = "Channel 'Orange': a centre of 5000 nm is outside 200–2000 nm";
+    await expect.poll(() => page.locator('p.error').first().innerText()).toContain(refusal);
     await page.goto(app.baseUrl + '/');
     await page.locator('p.notice').getByText('Your last panel in this browser is back').waitFor();
     expect(await centre().inputValue()).toBe('5000');
     expect(await page.locator('qdp-probe-card').count()).toBe(7);
-    expect(await page.locator('p.error').first().innerText()).toContain('must be between 200 and 2000 nm');
+    expect(await page.locator('p.error').first().innerText()).toContain(refusal);
     expect(problems).toEqual([]);
     await page.close();
   });
