@@ -64,7 +64,7 @@ export function searchStats(run: SnrRun, fullEnumeration: number): DesignSearchS
 }
 
 /** The words of each practice check, for the reasons a locked item is left out. */
-const LEFT_OUT_WORDS = {
+export const LEFT_OUT_WORDS = {
   blocking: (od: number) => `does not block every line it is read under by OD ${od}`,
   clearance: (nm: number) => `emits within ${nm} nm of an excitation line`,
 };

@@ -19,7 +19,7 @@ import { freeInterference, freeProbes, refineFreeDesign, type FreeDesign } from 
 import { allowedMaterials, designProbe, targetsOf, type DesignRequest } from './request';
 import type { SearchProgress } from './search';
 import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
-import { interferenceWords, searchStats, type DesignSearchStats } from './catalog-mode';
+import { interferenceWords, LEFT_OUT_WORDS, searchStats, type DesignSearchStats } from './catalog-mode';
 import { lockIndices } from './locks';
 import { snrSearchSteps } from './snr-run';
 import type { SnrScore } from './snr';
@@ -144,13 +144,13 @@ export function* freeDesignSteps(
   const ownedProbes = (request.owned?.probes ?? []).filter((p) => {
     const peak = resolve(dotInputOf(asCandidate(p)), DEFAULT_GRID).emissionPeakNm;
     const clear = clearOfLines(peak, request.excitation, o.lineClearanceNm);
-    if (!clear) leftOutProbes.set(p.id, `emits within ${o.lineClearanceNm} nm of an excitation line`);
+    if (!clear) leftOutProbes.set(p.id, LEFT_OUT_WORDS.clearance(o.lineClearanceNm));
     return clear;
   });
   const leftOutChannels = new Map<string, string>();
   const extraChannels = [...(choices ?? []), ...(request.owned?.channels ?? [])].filter((ch) => {
     const fails = !blocksItsLines(ch, request.excitation, o.minBlockingOD);
-    if (fails) leftOutChannels.set(ch.id, `does not block every line it is read under by OD ${o.minBlockingOD}`);
+    if (fails) leftOutChannels.set(ch.id, LEFT_OUT_WORDS.blocking(o.minBlockingOD));
     return !fails;
   });
   const gridBands = choices ? [] : catalog.bands;

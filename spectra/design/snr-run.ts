@@ -54,26 +54,20 @@ export function* snrSearchSteps(
     for (const start of firsts) if (search.repair(start, REPAIR_EVALUATIONS)) break;
   }
   const budget = Math.max(1, nodeBudget - (seed?.stats.nodesVisited ?? 0));
+  const progress = (stage: SearchProgress['stage']): SearchProgress => ({
+    stage,
+    nodesVisited: search.nodesVisited + (seed?.stats.nodesVisited ?? 0),
+    incumbent: search.incumbentWorst,
+    bound: search.incumbentWorst === null ? null : search.upperBound(),
+    measure: 'signalToNoise',
+  });
   while (!search.done && search.nodesVisited < budget && !shouldStop?.()) {
     search.advance(Math.min(chunk, budget - search.nodesVisited));
-    const bound = search.upperBound();
-    yield {
-      stage: search.done ? 'done' : 'search',
-      nodesVisited: search.nodesVisited + (seed?.stats.nodesVisited ?? 0),
-      incumbent: search.incumbentWorst,
-      bound: search.incumbentWorst === null ? null : bound,
-      measure: 'signalToNoise',
-    };
+    yield progress(search.done ? 'done' : 'search');
   }
   if (!search.done && !shouldStop?.()) {
     search.polish(POLISH_EVALUATIONS);
-    yield {
-      stage: 'search',
-      nodesVisited: search.nodesVisited + (seed?.stats.nodesVisited ?? 0),
-      incumbent: search.incumbentWorst,
-      bound: search.incumbentWorst === null ? null : search.upperBound(),
-      measure: 'signalToNoise',
-    };
+    yield progress('search');
   }
   return { result: search.result(), seed };
 }

@@ -154,8 +154,7 @@ export class SnrSearch {
     const v = Int32Array.from(design.probe, (p, t) => p * f.channels + design.channel[t]);
     const n = f.targets;
     for (let t = 0; t < n; t++) {
-      const dom = this.dom[0].subarray(t * this.maxDomain, t * this.maxDomain + this.domCount[0][t]);
-      if (!dom.includes(v[t])) return;
+      if (!this.inList(t, v[t])) return;
       for (let u = t + 1; u < n; u++) if (!this.compatible(t, v[t], u, v[u])) return;
     }
     const own = Array.from(v, (x, t) => f.own[t * f.values + x]);
@@ -243,8 +242,7 @@ export class SnrSearch {
       const own = Array.from(v, (x, t) => f.own[t * f.values + x]);
       if (Math.min(...own) < f.minSignalFraction * Math.max(...own)) return false;
       for (let t = 0; t < n; t++) {
-        const dom = this.dom[0].subarray(t * this.maxDomain, t * this.maxDomain + this.domCount[0][t]);
-        if (!dom.includes(v[t])) return false;
+        if (!this.inList(t, v[t])) return false;
         for (let u = t + 1; u < n; u++) if (!this.compatible(t, v[t], u, v[u])) return false;
       }
       return true;
@@ -287,9 +285,7 @@ export class SnrSearch {
     const f = this.flat;
     const n = f.targets;
     const v = Int32Array.from(design.probe, (p, t) => p * f.channels + design.channel[t]);
-    const inList = (t: number, x: number) =>
-      this.dom[0].subarray(t * this.maxDomain, t * this.maxDomain + this.domCount[0][t]).includes(x);
-    if (!v.every((x, t) => inList(t, x))) return false;
+    if (!v.every((x, t) => this.inList(t, x))) return false;
     const excess = (w: Int32Array) => {
       let sum = 0;
       let top = 0;
@@ -330,7 +326,7 @@ export class SnrSearch {
         if (best !== keep) improved = true;
         // Swaps: target t takes another target's value and gives it its own (abundances trade places).
         for (let u = t + 1; u < n && current > 0 && evaluations < maxEvaluations; u++) {
-          if (!inList(t, v[u]) || !inList(u, v[t])) continue;
+          if (!this.inList(t, v[u]) || !this.inList(u, v[t])) continue;
           [v[t], v[u]] = [v[u], v[t]];
           evaluations++;
           const e = excess(v);
@@ -350,6 +346,11 @@ export class SnrSearch {
   /** The worst S/N of the best design so far (null: none yet). */
   get incumbentWorst(): number | null {
     return this.best ? this.best.worst : null;
+  }
+
+  /** True when value x is in target t's list at the root (its pairs and its lock). */
+  private inList(t: number, x: number): boolean {
+    return this.dom[0].subarray(t * this.maxDomain, t * this.maxDomain + this.domCount[0][t]).includes(x);
   }
 
   private cannotBeat(bound: number): boolean {
