@@ -186,3 +186,16 @@ describe('<qdp-crosstalk-table>', () => {
     expect(sdAt(0.005) / sdAt(0.02)).toBeCloseTo(2, 2);
   });
 });
+
+describe('<qdp-crosstalk-table> without figures', () => {
+  it('says to fix the marked input when refused before any figures, else to add probes and channels', async () => {
+    const el = document.createElement('qdp-crosstalk-table') as CrosstalkTable;
+    document.body.appendChild(el);
+    await el.updateComplete;
+    expect(el.shadowRoot!.textContent).toContain('Add probes and channels to see crosstalk.');
+    el.stale = true;
+    await el.updateComplete;
+    expect(el.shadowRoot!.textContent).toContain('fix the input marked above');
+    expect(el.shadowRoot!.textContent).not.toContain('Add probes and channels');
+  });
+});

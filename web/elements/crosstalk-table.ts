@@ -119,7 +119,12 @@ export class CrosstalkTable extends LitElement {
 
   override render() {
     const v = this.view;
-    if (!v) return html`<p>Add probes and channels to see crosstalk.</p>`;
+    if (!v) {
+      // No figures yet: either the panel is still missing parts, or its first state was refused (a kept, invalid one).
+      return this.stale
+        ? html`<p class="stale">No figures yet: fix the input marked above and the crosstalk appears.</p>`
+        : html`<p>Add probes and channels to see crosstalk.</p>`;
+    }
     const label = (id: string) => v.probes.find((p) => p.id === id)?.label ?? id;
     const many = v.channels.length > 12;
     return html`
