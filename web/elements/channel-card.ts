@@ -8,6 +8,7 @@ import { customElement, property } from 'lit/decorators.js';
 import { cardFrame, fieldRows, focusRing, textFields } from './shared-styles';
 import type { ChannelSpec, DetectorClass, FilterSpec } from '../../spectra/index';
 import { messagesBesides } from '../state/error-map';
+import { IDEAL_DETECTOR } from '../state/row-summary';
 import { CHANNEL_FILTER_KINDS, filterRowKeys, filterRowStyles, filterRows, withFilter } from './filter-rows';
 
 @customElement('qdp-channel-card')
@@ -37,6 +38,12 @@ export class ChannelCard extends LitElement {
       }
     `,
   ];
+
+  /** Moves the keyboard focus to the first field (the label), once the card has drawn. */
+  async focusFirst(): Promise<void> {
+    await this.updateComplete;
+    this.renderRoot.querySelector<HTMLElement>('input, select')?.focus();
+  }
 
   private change(channel: ChannelSpec): void {
     this.dispatchEvent(
@@ -97,7 +104,7 @@ export class ChannelCard extends LitElement {
           <select
             @change=${(e: Event) => this.setOptional('detector', (e.target as HTMLSelectElement).value || undefined)}
           >
-            <option value="" ?selected=${!c.detector}>ideal (QE 1)</option>
+            <option value="" ?selected=${!c.detector}>${IDEAL_DETECTOR}</option>
             ${this.detectors.map(
               (d) => html`<option value=${d.id} ?selected=${d.id === c.detector}>${d.name}</option>`,
             )}

@@ -1,5 +1,7 @@
 /**
- * Page layout: editors and results side by side from 1000 px, stacked below (phones at 390 px).
+ * Page layout: from 1000 px the editors on the left and the results on the right, the results column held in view
+ * (it scrolls on its own) while the editors scroll; below 1000 px (phones at 390 px) one of the two at a time, the
+ * results first, with a switch between them.
  */
 import { css } from 'lit';
 import { focusRing } from './shared-styles';
@@ -71,10 +73,66 @@ export const appStyles = [
       gap: 1rem;
       padding: 1rem;
     }
+    .views {
+      display: flex;
+      gap: 0.4rem;
+      padding: 0.6rem 1rem 0;
+    }
+    .views button[aria-pressed='true'] {
+      background: #1b1f29;
+      color: #fff;
+    }
+    main.view-results .edit,
+    main.view-edit .results {
+      display: none;
+    }
     @media (min-width: 1000px) {
       main {
-        grid-template-columns: minmax(360px, 0.85fr) minmax(0, 1.15fr);
+        grid-template-columns: minmax(360px, 0.9fr) minmax(0, 1.1fr);
+        align-items: start;
       }
+      .views {
+        display: none;
+      }
+      main.view-results .edit,
+      main.view-edit .results {
+        display: block;
+      }
+      .results {
+        position: sticky;
+        top: 0;
+        max-height: 100vh;
+        overflow-y: auto;
+        padding-right: 0.2rem;
+      }
+    }
+    details.fold > summary {
+      cursor: pointer;
+      display: flex;
+      flex-wrap: wrap;
+      align-items: baseline;
+      gap: 0 0.6rem;
+    }
+    details.fold > summary::-webkit-details-marker {
+      display: none;
+    }
+    details.fold > summary::before {
+      content: '▸';
+      color: #556;
+    }
+    details.fold[open] > summary::before {
+      content: '▾';
+    }
+    details.fold > summary h2 {
+      display: inline;
+      margin: 0;
+    }
+    details.fold > summary span {
+      font-size: 0.88rem;
+      color: #3a4055;
+    }
+    details.fold[open] > summary {
+      margin-bottom: 0.5rem;
     }
     section {
       background: #f8f9fb;

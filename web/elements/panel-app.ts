@@ -48,6 +48,7 @@ import './crosstalk-table';
 import './design-form';
 import './instrument-maker';
 import './instrument-picker';
+import './key-verdict';
 import './light-editor';
 import './material-notes';
 import './panel-actions';
@@ -107,6 +108,26 @@ export function firstSteps(panel: PanelSpec): string {
   return `To start, add ${needs.join(' and ')}: the spectra, crosstalk and noise appear once there is one of each.`;
 }
 
+/** The two views a narrow screen switches between (a wide one shows both), results first. */
+const PAGE_VIEWS = [
+  ['results', 'Chart and results'],
+  ['edit', 'Edit the panel'],
+] as const;
+
+type PageView = (typeof PAGE_VIEWS)[number][0];
+
+/** The excitation and sample settings in one line, for the folded section's heading. */
+export function lightSummary(p: PanelSpec): string {
+  const lines = p.excitation.length ? `${p.excitation.map((l) => l.wavelengthNm).join(' + ')} nm` : 'no line';
+  const shared = (p.lightPath?.emissionFilters?.length ?? 0) + (p.lightPath?.excitationFilters?.length ?? 0);
+  return [
+    `excitation ${lines}`,
+    p.background ? 'sample background on' : 'no sample background',
+    ...(p.waterRaman ? ['water Raman on'] : []),
+    ...(shared ? [`${shared} shared filter${shared === 1 ? '' : 's'}`] : []),
+  ].join(' · ');
+}
+
 /** The path of a shared copy, /p/<id>. */
 const SHARED_PATH = /^\/p\/([A-Za-z0-9_-]+)$/;
 
@@ -127,6 +148,8 @@ export class PanelApp extends LitElement {
   @state() private sharedId = '';
   @state() private notice = '';
   @state() private byBrightness = true;
+  /** What a narrow screen shows: the results (first) or the editors. */
+  @state() private shownView: PageView = 'results';
   /** The instrument profile the panel is on, if any (the panel holds its parts written out). */
   @state() private instrument?: AttachedInstrument;
   /** What the last switch of instrument changed, until the next edit of the panel's set-up. */
@@ -587,7 +610,22 @@ export class PanelApp extends LitElement {
               : ''
         }
       </header>
-      <main @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => this.loadProposal(e.detail.panel)}>
+      <nav class="views" aria-label="What to show">
+        ${PAGE_VIEWS.map(
+          ([id, name]) =>
+            html`<button
+              type="button"
+              aria-pressed=${this.shownView === id ? 'true' : 'false'}
+              @click=${() => (this.shownView = id)}
+            >
+              ${name}
+            </button>`,
+        )}
+      </nav>
+      <main
+        class=${`view-${this.shownView}`}
+        @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => this.loadProposal(e.detail.panel)}
+      >
         <div
           class="edit"
           ?inert=${!!this.sharedId}
@@ -610,24 +648,34 @@ export class PanelApp extends LitElement {
             }}
             @instrument-undo=${this.undoSwitch}
           >
-            <h2 id="h-instrument">Microscope</h2>
-            <qdp-instrument-picker
-              .attached=${this.instrument}
-              .changes=${this.changes}
-              ?busy=${this.instrumentBusy}
-            ></qdp-instrument-picker>
-            <details>
-              <summary>Make an instrument profile of this set-up (for facility staff)</summary>
-              <qdp-instrument-maker .panel=${p}></qdp-instrument-maker>
+            <details class="fold" ?open=${!!this.changes || this.instrumentBusy}>
+              <summary>
+                <h2 id="h-instrument">Microscope</h2>
+                <span>${this.instrument ? this.instrument.spec.name : "this panel's own lines and filters"}</span>
+              </summary>
+              <qdp-instrument-picker
+                .attached=${this.instrument}
+                .changes=${this.changes}
+                ?busy=${this.instrumentBusy}
+              ></qdp-instrument-picker>
+              <details>
+                <summary>Make an instrument profile of this set-up (for facility staff)</summary>
+                <qdp-instrument-maker .panel=${p}></qdp-instrument-maker>
+              </details>
             </details>
           </section>
           <section aria-labelledby="h-light">
-            <h2 id="h-light">Excitation, sample background and shared light path</h2>
-            <qdp-light-editor
-              .panel=${p}
-              .errors=${errors.other}
-              .fromInstrument=${this.instrument?.spec.name ?? ''}
-            ></qdp-light-editor>
+            <details class="fold" ?open=${Object.keys(errors.other).length > 0}>
+              <summary>
+                <h2 id="h-light">Excitation and sample</h2>
+                <span>${lightSummary(p)}</span>
+              </summary>
+              <qdp-light-editor
+                .panel=${p}
+                .errors=${errors.other}
+                .fromInstrument=${this.instrument?.spec.name ?? ''}
+              ></qdp-light-editor>
+            </details>
           </section>
           <section aria-labelledby="h-probes">
             <h2 id="h-probes">Probes</h2>
@@ -653,25 +701,31 @@ export class PanelApp extends LitElement {
             ></qdp-channel-list>
           </section>
           <section aria-labelledby="h-propose">
-            <h2 id="h-propose">Propose a panel</h2>
-            <p>
-              Name the targets and how abundant each is; the search proposes dots and filters (or picks from this
-              panel's probes and channels) that give the weakest target the highest signal-to-noise after unmixing, with
-              no probe's light in another's channel above your limit. It shows the proposal beside your panel, to load
-              for editing or discard. A target can keep a probe or channel you already have, and on a microscope profile
-              the search can choose among its filters.
-            </p>
-            <qdp-design-form
-              .candidates=${this.candidates()}
-              .owned=${designParts(p)}
-              .microscope=${this.instrument}
-              .sample=${sampleOf(p)}
-            ></qdp-design-form>
+            <details class="fold">
+              <summary>
+                <h2 id="h-propose">Propose a panel</h2>
+                <span>let the search choose dots and filters for your targets</span>
+              </summary>
+              <p>
+                Name the targets and how abundant each is; the search proposes dots and filters (or picks from this
+                panel's probes and channels) that give the weakest target the highest signal-to-noise after unmixing,
+                with no probe's light in another's channel above your limit. It shows the proposal beside your panel, to
+                load for editing or discard. A target can keep a probe or channel you already have, and on a microscope
+                profile the search can choose among its filters.
+              </p>
+              <qdp-design-form
+                .candidates=${this.candidates()}
+                .owned=${designParts(p)}
+                .microscope=${this.instrument}
+                .sample=${sampleOf(p)}
+              ></qdp-design-form>
+            </details>
           </section>
         </div>
         <div class="results">
           <section aria-labelledby="h-spectra">
             <h2 id="h-spectra">Spectra</h2>
+            <qdp-key-verdict .view=${c?.crosstalk} ?stale=${!!this.error}></qdp-key-verdict>
             <label
               ><input
                 type="checkbox"

@@ -11,6 +11,7 @@ import { cardFrame, fieldRows, focusRing, textFields } from './shared-styles';
 import type { Material, ProbeSpec, SpectrumPoints } from '../../spectra/index';
 import type { ProbePrediction } from '../state/compute';
 import { messagesBesides } from '../state/error-map';
+import { fmt, percent } from '../state/row-summary';
 import './number-field';
 import './spectrum-input';
 import './shell-editor';
@@ -39,12 +40,6 @@ const SIZING_CURVE_NAMES: Record<string, string> = {
   jasieniak2009: 'Jasieniak et al. 2009',
 };
 
-/** A number for the read-out: `digits` decimals, or a dash when there is none. */
-const fmt = (v: number | null | undefined, digits = 0) =>
-  v === null || v === undefined || !Number.isFinite(v) ? '—' : v.toFixed(digits);
-
-/** A share 0–1 as a whole percentage, "< 1 %" for a share that is small but not zero. */
-const percent = (share: number) => (share > 0 && share < 0.005 ? '< 1 %' : `${fmt(share * 100)} %`);
 
 /** The model's prediction for the probe as one line of text. */
 function predictionText(pr: ProbePrediction): string {
@@ -137,6 +132,12 @@ export class ProbeCard extends LitElement {
       }
     `,
   ];
+
+  /** Moves the keyboard focus to the first field (the label), once the card has drawn. */
+  async focusFirst(): Promise<void> {
+    await this.updateComplete;
+    this.renderRoot.querySelector<HTMLElement>('input, select')?.focus();
+  }
 
   private change(patch: Partial<ProbeSpec>): void {
     const probe: ProbeSpec = { ...this.probe, ...patch };

@@ -1,14 +1,21 @@
 /**
- * <qdp-probe-list>: the panel's probes as editable cards, with "Add probe". Card events bubble up unchanged;
- * this element adds `probe-add`.
+ * <qdp-probe-list>: the panel's probes as a table-like editor: one compact row per probe (name, what it is made of,
+ * peak, FWHM, channel, brightness) that opens its editor card in place, and "Add probe", whose new row opens with the
+ * focus on its label. Card events bubble up unchanged; this element adds `probe-add`.
  */
-import { LitElement, css, html } from 'lit';
-import { customElement, property } from 'lit/decorators.js';
-import { cardList, focusRing } from './shared-styles';
+import { LitElement, css, html, unsafeCSS } from 'lit';
+import { customElement, property, state } from 'lit/decorators.js';
+import { cardList, focusRing, rowTable } from './shared-styles';
 import { LIMITS, type PanelSpec } from '../../spectra/index';
 import type { ProbePrediction } from '../state/compute';
+import { OpenRows } from '../state/open-rows';
+import { PROBE_COLUMNS, probeCells } from '../state/row-summary';
+import './editor-row';
 import './probe-card';
-import type { ProbeCardMaterial } from './probe-card';
+import type { ProbeCard, ProbeCardMaterial } from './probe-card';
+
+/** Where each column of a probe row starts: the name, made of, peak, FWHM, channel, brightness. */
+const PROBE_ROW_COLUMNS = 'minmax(7rem, 1.6fr) minmax(5rem, 1.3fr) 4rem 3.6rem minmax(4rem, 1fr) 4.4rem';
 
 @customElement('qdp-probe-list')
 export class ProbeList extends LitElement {
@@ -22,39 +29,81 @@ export class ProbeList extends LitElement {
   /** Most probes a panel may hold (the API's limit). */
   @property({ type: Number }) maxProbes: number = LIMITS.probes;
 
+  /** Bumped when a row opens or closes, to draw again. */
+  @state() private toggles = 0;
+  private readonly rows = new OpenRows();
+
   static override styles = [
     focusRing,
     cardList,
+    rowTable,
     css`
+      :host {
+        --row-columns: ${unsafeCSS(PROBE_ROW_COLUMNS)};
+      }
       button {
         margin-top: 0.5rem;
       }
+      /* The card is the open row's body: the row draws the frame. */
+      qdp-probe-card {
+        border: none;
+        padding: 0;
+        background: transparent;
+      }
     `,
   ];
+
+  protected override updated(): void {
+    const added = this.rows.arrived(this.panel?.probes.map((p) => p.id) ?? []);
+    if (added === undefined) return;
+    this.toggles++;
+    const card = this.renderRoot.querySelector<ProbeCard>(`qdp-probe-card[data-id="${CSS.escape(added)}"]`);
+    void card?.focusFirst();
+  }
 
   override render() {
     const panel = this.panel;
     if (!panel) return html``;
     const full = panel.probes.length >= this.maxProbes;
-    return html`<div class="cards">
-        ${panel.probes.map(
-          (p, i) =>
-            html`<qdp-probe-card
+    const name = (id: string) => this.materials.find((m) => m.id === id)?.name ?? id;
+    return html`<div class="columns" aria-hidden="true">${PROBE_COLUMNS.map((c) => html`<span>${c}</span>`)}</div>
+      <div class="rows" data-toggles=${this.toggles}>
+        ${panel.probes.map((p, i) => {
+          const errors = this.errors[i] ?? {};
+          const hasErrors = Object.keys(errors).length > 0;
+          const blocked = this.blocked.get(p.id) ?? '';
+          return html`<qdp-editor-row
+            noun="probe"
+            .heading=${p.label || p.id}
+            .cells=${probeCells(p, name(p.material), hasErrors ? undefined : this.predictions[i], panel.channels)}
+            ?open=${this.rows.isOpen(p.id, hasErrors)}
+            .attention=${hasErrors ? 'Fix the marked field below.' : blocked ? `Blocked: ${blocked}.` : ''}
+            @row-toggle=${(e: CustomEvent<{ open: boolean }>) => {
+              this.rows.choose(p.id, e.detail.open);
+              this.toggles++;
+            }}
+          >
+            <qdp-probe-card
+              data-id=${p.id}
               .probe=${p}
               .index=${i}
               .materials=${this.materials}
               .channels=${panel.channels}
               .prediction=${this.predictions[i]}
-              .errors=${this.errors[i] ?? {}}
-              .blocked=${this.blocked.get(p.id) ?? ''}
+              .errors=${errors}
+              .blocked=${blocked}
               ?excluded=${this.blocked.has(p.id)}
-            ></qdp-probe-card>`,
-        )}
+            ></qdp-probe-card>
+          </qdp-editor-row>`;
+        })}
       </div>
       <button
         type="button"
         ?disabled=${full}
-        @click=${() => this.dispatchEvent(new CustomEvent('probe-add', { bubbles: true, composed: true }))}
+        @click=${() => {
+          this.rows.expectAdded();
+          this.dispatchEvent(new CustomEvent('probe-add', { bubbles: true, composed: true }));
+        }}
       >
         Add probe
       </button>

@@ -64,3 +64,26 @@ export const textFields = css`
     max-width: 100%;
   }
 `;
+
+/** A table-like editor of compact rows: the column headings above the rows, aligned by `--row-columns`. */
+export const rowTable = css`
+  .columns {
+    display: grid;
+    grid-template-columns: var(--row-columns, 1fr);
+    gap: 0 0.6rem;
+    padding: 0 0.4rem 0.2rem;
+    font-size: 0.78rem;
+    color: #4a5066;
+    text-transform: uppercase;
+    letter-spacing: 0.03em;
+    border-bottom: 1px solid #9aa3c0;
+  }
+  .columns span:first-child {
+    padding-left: 1em;
+  }
+  @media (max-width: 640px) {
+    .columns {
+      display: none;
+    }
+  }
+`;

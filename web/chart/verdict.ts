@@ -1,0 +1,33 @@
+/**
+ * The panel's verdict in two lines, kept in view beside the editors: its worst pair (whose light lands most in
+ * another probe's channel) and its noisiest target after unmixing.
+ */
+import { formatFraction, type CrosstalkView } from './crosstalk-view';
+
+/** A noise factor as the tables write it ("1.4×", "12×"), or a dash. */
+export const times = (v: number | null | undefined): string =>
+  v === null || v === undefined || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`;
+
+/** "Worst pair: A adds 12 % of B's own signal in B's channel.", or why there is none. */
+export function worstPairText(v: CrosstalkView): string {
+  const label = (id: string) => v.probes.find((p) => p.id === id)?.label ?? id;
+  const w = v.worst;
+  if (!w?.from || !w.into || w.interference === null) return 'Worst pair: none yet (no two probes to compare).';
+  return `Worst pair: ${label(w.from)} adds ${formatFraction(w.interference)} of ${label(w.into)}'s own signal in ${label(
+    w.into,
+  )}'s channel.`;
+}
+
+/**
+ * "Noisiest after unmixing: A (noise 2.3× what it would be alone).", from the noise gains; a target no channel
+ * separates is named first, since its amount cannot be unmixed at all.
+ */
+export function noisiestText(v: CrosstalkView): string {
+  const gains = v.noiseAmplification;
+  if (v.probes.length === 0 || gains.length === 0) return 'Noisiest after unmixing: none yet.';
+  const lost = gains.findIndex((g) => g === null || !Number.isFinite(g));
+  if (lost >= 0) return `Noisiest after unmixing: ${v.probes[lost].label}, which the channels cannot separate.`;
+  let k = 0;
+  for (let i = 1; i < gains.length; i++) if ((gains[i] as number) > (gains[k] as number)) k = i;
+  return `Noisiest after unmixing: ${v.probes[k].label} (noise ${times(gains[k])} what it would be alone).`;
+}
