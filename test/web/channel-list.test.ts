@@ -146,6 +146,9 @@ describe('<qdp-channel-list>', () => {
 
   it('<qdp-channel-list> disables the run for a fractional or zero bin count and for a zero bin width', async () => {
     const el = await mount(panelWithChannels(2));
+    await typeRun(el, 'From', '500');
+    await typeRun(el, 'Bin width', '10');
+    await typeRun(el, 'Bins', '3');
     expect(runButton(el).disabled).toBe(false);
     await typeRun(el, 'Bins', '2.5');
     expect(runButton(el).disabled).toBe(true);
@@ -157,8 +160,19 @@ describe('<qdp-channel-list>', () => {
     expect(runButton(el).disabled).toBe(true);
   });
 
+  it('a new list offers no run range or bin width of its own: the fields are empty and the run disabled', async () => {
+    const el = await mount(panelWithChannels(2));
+    const fields = [...el.shadowRoot!.querySelectorAll('fieldset qdp-number-field')] as Field[];
+    await Promise.all(fields.map((f) => f.updateComplete));
+    expect(fields.map((f) => f.shadowRoot!.querySelector('input')!.value)).toEqual(['', '', '']);
+    expect(runButton(el).disabled).toBe(true);
+    expect(runButton(el).textContent!.trim()).toBe('Add the bins');
+  });
+
   it('near maxChannels allows a run only up to the room left and says how much room there is', async () => {
     const el = await mount(panelWithChannels(6), (l) => (l.maxChannels = 10));
+    await typeRun(el, 'From', '500');
+    await typeRun(el, 'Bin width', '10');
     expect(el.shadowRoot!.querySelector('.note')!.textContent).toBe('4 more channels allowed (at most 10).');
     await typeRun(el, 'Bins', '5');
     expect(runButton(el).disabled).toBe(true);

@@ -32,6 +32,16 @@ async function openPage(): Promise<Host> {
   return app;
 }
 
+/** Shows the editors (a narrow window shows the results first) and opens row `index` of `list`'s compact rows. */
+async function openRow(app: Host, list: 'qdp-probe-list' | 'qdp-channel-list', index: number): Promise<Host> {
+  const views = app.shadowRoot!.querySelector('nav.views') as HTMLElement;
+  if (getComputedStyle(views).display !== 'none')
+    await userEvent.click(page.elementLocator(views).getByRole('button', { name: 'Edit the panel' }));
+  const row = inner(app, list).shadowRoot!.querySelectorAll('qdp-editor-row')[index] as Host & { open: boolean };
+  if (!row.open) await userEvent.click(page.elementLocator(row).getByRole('button').first());
+  return row;
+}
+
 /** The emission-peak field of probe `index` (its <qdp-number-field>), to read what it shows. */
 function peakField(app: Host, index: number): Host {
   const card = inner(app, 'qdp-probe-list').shadowRoot!.querySelectorAll('qdp-probe-card')[index];
@@ -40,6 +50,7 @@ function peakField(app: Host, index: number): Host {
 
 /** Empties probe `index`'s "Emission peak (nm)" input, found by its label, and types `keys` into it key by key. */
 async function typePeak(app: Host, index: number, keys: string): Promise<void> {
+  await openRow(app, 'qdp-probe-list', index);
   const card = inner(app, 'qdp-probe-list').shadowRoot!.querySelectorAll('qdp-probe-card')[index];
   const input = page.elementLocator(card).getByLabelText('Emission peak (nm)');
   await userEvent.clear(input);
@@ -159,6 +170,7 @@ describe('<qdp-panel-app> new panel', () => {
     await expect.poll(() => app.shadowRoot!.querySelector('.first-steps')?.textContent ?? '').toContain('add a probe');
     expect(app.shadowRoot!.querySelector('.first-steps')!.textContent).toContain('a channel');
     expect(headerAlert(app)).toBe('');
+    await userEvent.click(page.elementLocator(app).getByRole('button', { name: 'Edit the panel' }));
     await userEvent.click(page.elementLocator(inner(app, 'qdp-probe-list')).getByRole('button', { name: 'Add probe' }));
     await expect
       .poll(() => app.shadowRoot!.querySelector('.first-steps')?.textContent ?? '')
@@ -169,6 +181,7 @@ describe('<qdp-panel-app> new panel', () => {
 describe('<qdp-panel-app> refusals in the user’s words', () => {
   it("a 5000 nm centre on the demo's third channel: the channel named, the value and range, no numbers", async () => {
     const app = await openPage();
+    await openRow(app, 'qdp-channel-list', 2);
     const card = inner(app, 'qdp-channel-list').shadowRoot!.querySelectorAll('qdp-channel-card')[2];
     const input = page
       .elementLocator(card)

@@ -41,6 +41,8 @@ async function mount(panel: PanelSpec, setup: (el: HTMLElementTagNameMap['qdp-pr
   return el;
 }
 
+type Row = HTMLElement & { updateComplete: Promise<unknown>; open: boolean; attention: string };
+const rows = (el: HTMLElement) => [...el.shadowRoot!.querySelectorAll('qdp-editor-row')] as Row[];
 const cards = (el: HTMLElement) => [...el.shadowRoot!.querySelectorAll('qdp-probe-card')] as Card[];
 const addButton = (el: HTMLElement) =>
   [...el.shadowRoot!.querySelectorAll('button')].find((b) => b.textContent!.trim() === 'Add probe')!;
@@ -173,4 +175,63 @@ describe('<qdp-probe-list>', () => {
       );
     },
   );
+
+  it(
+    'shows each probe as one closed row (label, CdSe/ZnS, peak, FWHM, "auto" channel, brightness); ' +
+      'pressing the row opens its card and pressing it again closes it',
+    async () => {
+      const panel = panelWithProbes(2);
+      panel.probes[0].shell = [{ material: 'zns', thicknessNm: 0.9 }];
+      const el = await mount(panel, (l) => {
+        l.predictions = [
+          {
+            material: 'cdse',
+            dye: null,
+            diameterNm: 4,
+            overallDiameterNm: 5.8,
+            firstExcitonNm: 510,
+            emissionPeakNm: 521.4,
+            fwhmNm: 29.6,
+            relativeBrightness: 0.456,
+            measured: false,
+            warnings: [],
+          },
+        ];
+      });
+      const row = rows(el)[0];
+      await row.updateComplete;
+      const head = row.shadowRoot!.querySelector('button')!;
+      const cells = [...head.querySelectorAll('span')].map((s) => s.textContent);
+      expect(cells).toEqual(['Dot 1', 'CdSe/ZnS', '521 nm', '30 nm', 'auto', '46 %']);
+      expect(head.getAttribute('aria-expanded')).toBe('false');
+      expect(row.shadowRoot!.querySelector('.body')!.hasAttribute('hidden')).toBe(true);
+      head.click();
+      await row.updateComplete;
+      expect(head.getAttribute('aria-expanded')).toBe('true');
+      expect(row.shadowRoot!.querySelector('.body')!.hasAttribute('hidden')).toBe(false);
+      head.click();
+      await row.updateComplete;
+      expect(row.shadowRoot!.querySelector('.body')!.hasAttribute('hidden')).toBe(true);
+    },
+  );
+
+  it('after "Add probe" the new row opens and its label field takes the keyboard focus', async () => {
+    const el = await mount(panelWithProbes(2));
+    el.addEventListener('probe-add', () => (el.panel = panelWithProbes(3)));
+    addButton(el).click();
+    await el.updateComplete;
+    await expect.poll(() => rows(el)[2]?.open).toBe(true);
+    expect(rows(el).map((r) => r.open)).toEqual([false, false, true]);
+    const card = cards(el)[2];
+    await expect.poll(() => card.shadowRoot!.activeElement?.closest('label')?.textContent?.trim()).toBe('Label');
+  });
+
+  it('a row whose probe holds an error is open and says to fix the marked field; a new panel takes no focus', async () => {
+    const el = await mount(panelWithProbes(2), (l) => (l.errors = { 0: { emissionPeakNm: 'too far' } }));
+    el.panel = panelWithProbes(3);
+    await el.updateComplete;
+    expect(rows(el).map((r) => r.open)).toEqual([true, false, false]);
+    expect(rows(el)[0].attention).toBe('Fix the marked field below.');
+    expect(document.activeElement).toBe(document.body);
+  });
 });

@@ -81,10 +81,16 @@ export class ChannelList extends LitElement {
 
   protected override updated(): void {
     const added = this.rows.arrived(this.panel?.channels.map((c) => c.id) ?? []);
-    if (added === undefined) return;
+    if (added !== undefined) void this.focusAdded(added);
+  }
+
+  /** Opens the row just added and, once it is drawn open, moves the focus to its first field. */
+  private async focusAdded(id: string): Promise<void> {
     this.toggles++;
-    const card = this.renderRoot.querySelector<ChannelCard>(`qdp-channel-card[data-id="${CSS.escape(added)}"]`);
-    void card?.focusFirst();
+    await this.updateComplete;
+    const card = this.renderRoot.querySelector<ChannelCard>(`qdp-channel-card[data-id="${CSS.escape(id)}"]`);
+    await (card?.parentElement as LitElement | null)?.updateComplete;
+    await card?.focusFirst();
   }
 
   private fire(name: string, detail?: unknown): void {
@@ -156,9 +162,9 @@ export class ChannelList extends LitElement {
         Add channel
       </button>
       <details>
-        <summary>Add a spectral detector run (narrow bins side by side)</summary>
+        <summary>Spectral detector run: narrow bins side by side</summary>
         <fieldset>
-          <legend>The range your detector covers and its bin width</legend>
+          <legend>Add a spectral detector run</legend>
           <qdp-number-field
             label="From"
             unit="nm"
@@ -175,10 +181,8 @@ export class ChannelList extends LitElement {
           <button type="button" ?disabled=${!runFits} @click=${() => this.fire('spectral-run', { ...this.run })}>
             ${runFits ? `Add ${bins} × ${binWidthNm} nm bins` : 'Add the bins'}
           </button>
-          <span class="note"
-            >${room} more channel${room === 1 ? '' : 's'} allowed (at most ${this.maxChannels}). Take the start and bin
-            width from your detector's settings.</span
-          >
+          <span class="note">${room} more channel${room === 1 ? '' : 's'} allowed (at most ${this.maxChannels}).</span>
+          <span class="note hint">Take the start, bin count and bin width from your detector's settings.</span>
         </fieldset>
       </details>`;
   }

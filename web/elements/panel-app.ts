@@ -683,6 +683,7 @@ export class PanelApp extends LitElement {
               .panel=${p}
               .materials=${MATERIALS}
               .predictions=${c?.predictions ?? []}
+              .primary=${c?.evaluation.primaryChannel ?? []}
               .errors=${errors.probes}
               .blocked=${blockedProbes}
             ></qdp-probe-list>

@@ -40,7 +40,6 @@ const SIZING_CURVE_NAMES: Record<string, string> = {
   jasieniak2009: 'Jasieniak et al. 2009',
 };
 
-
 /** The model's prediction for the probe as one line of text. */
 function predictionText(pr: ProbePrediction): string {
   const overall =

@@ -15,7 +15,7 @@ import './probe-card';
 import type { ProbeCard, ProbeCardMaterial } from './probe-card';
 
 /** Where each column of a probe row starts: the name, made of, peak, FWHM, channel, brightness. */
-const PROBE_ROW_COLUMNS = 'minmax(7rem, 1.6fr) minmax(5rem, 1.3fr) 4rem 3.6rem minmax(4rem, 1fr) 4.4rem';
+const PROBE_ROW_COLUMNS = 'minmax(7rem, 1.6fr) minmax(5rem, 1.3fr) 4rem 3.6rem minmax(5rem, 1.1fr) 5.4rem';
 
 @customElement('qdp-probe-list')
 export class ProbeList extends LitElement {
@@ -24,6 +24,8 @@ export class ProbeList extends LitElement {
   @property({ attribute: false }) predictions: (ProbePrediction | undefined)[] = [];
   /** Errors keyed by probe index, then by field name. */
   @property({ attribute: false }) errors: Record<number, Record<string, string>> = {};
+  /** The channel (index) that collects most of each probe's light, from the last evaluation. */
+  @property({ attribute: false }) primary: (number | null)[] = [];
   /** Exclusion reasons keyed by probe id. */
   @property({ attribute: false }) blocked: Map<string, string> = new Map();
   /** Most probes a panel may hold (the API's limit). */
@@ -55,10 +57,16 @@ export class ProbeList extends LitElement {
 
   protected override updated(): void {
     const added = this.rows.arrived(this.panel?.probes.map((p) => p.id) ?? []);
-    if (added === undefined) return;
+    if (added !== undefined) void this.focusAdded(added);
+  }
+
+  /** Opens the row just added and, once it is drawn open, moves the focus to its first field. */
+  private async focusAdded(id: string): Promise<void> {
     this.toggles++;
-    const card = this.renderRoot.querySelector<ProbeCard>(`qdp-probe-card[data-id="${CSS.escape(added)}"]`);
-    void card?.focusFirst();
+    await this.updateComplete;
+    const card = this.renderRoot.querySelector<ProbeCard>(`qdp-probe-card[data-id="${CSS.escape(id)}"]`);
+    await (card?.parentElement as LitElement | null)?.updateComplete;
+    await card?.focusFirst();
   }
 
   override render() {
@@ -75,7 +83,7 @@ export class ProbeList extends LitElement {
           return html`<qdp-editor-row
             noun="probe"
             .heading=${p.label || p.id}
-            .cells=${probeCells(p, name(p.material), hasErrors ? undefined : this.predictions[i], panel.channels)}
+            .cells=${probeCells(p, name(p.material), hasErrors ? undefined : this.predictions[i], panel.channels, this.primary[i])}
             ?open=${this.rows.isOpen(p.id, hasErrors)}
             .attention=${hasErrors ? 'Fix the marked field below.' : blocked ? `Blocked: ${blocked}.` : ''}
             @row-toggle=${(e: CustomEvent<{ open: boolean }>) => {

@@ -33,22 +33,26 @@ export function madeOf(probe: ProbeSpec, materialName: string): string {
 
 /**
  * The cells after a probe row's name: what it is made of, its emission peak and FWHM (predicted; dashes while the
- * prediction is out of date), its channel ("auto" when it has none assigned) and its relative brightness.
+ * prediction is out of date), its channel (assigned, or "auto: " the channel that collects most of its light, index
+ * `primary` of `channels`, when known) and its relative brightness.
  */
 export function probeCells(
   probe: ProbeSpec,
   materialName: string,
   prediction: ProbePrediction | undefined,
   channels: readonly Pick<ChannelSpec, 'id' | 'label'>[],
+  primary?: number | null,
 ): string[] {
   const pr = prediction;
   const peakNm = pr ? pr.emissionPeakNm : probe.emissionPeakNm;
   const assigned = channels.find((c) => c.id === probe.channel);
+  const most = primary === null || primary === undefined ? undefined : channels[primary];
+  const channel = assigned ? assigned.label || assigned.id : most && pr ? `auto: ${most.label || most.id}` : 'auto';
   return [
     madeOf(probe, materialName),
     peakNm === undefined ? '—' : `${fmt(peakNm)} nm`,
     pr ? `${fmt(pr.fwhmNm)} nm` : '—',
-    assigned ? assigned.label || assigned.id : 'auto',
+    channel,
     pr ? percent(pr.relativeBrightness) : '—',
   ];
 }
