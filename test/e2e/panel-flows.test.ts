@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, shot } from './helpers/browser';
+import { openBrowser, openEditors, shot } from './helpers/browser';
 import { startApp, type StartedApp } from '../quality/helpers/app';
 import { decodeFragment, encodeFragment } from '../../web/state/fragment';
 import { DEFAULT_GRID, evaluatePanel, type PanelSpec } from '../../spectra/index';
@@ -35,6 +35,7 @@ async function open(url: string): Promise<{ page: Page; problems: string[] }> {
   await page.evaluate(() => localStorage.clear());
   await page.goto(url);
   await page.locator('qdp-crosstalk-table p.worst').waitFor();
+  await openEditors(page);
   return { page, problems };
 }
 
@@ -90,6 +91,7 @@ describe('the panel page', () => {
     // The URL fragment carries the edit: a reload keeps it.
     await page.reload();
     await page.locator('qdp-crosstalk-table p.worst').waitFor();
+    await openEditors(page);
     expect(Number(await orangeWidth(page).inputValue())).toBe(width);
     await page.close();
   });
@@ -406,6 +408,7 @@ describe('keeping typed work', () => {
     await expect.poll(() => page.locator('p.error').first().innerText()).toContain(refusal);
     await page.goto(app.baseUrl + '/');
     await page.locator('p.notice').getByText('Your last panel in this browser is back').waitFor();
+    await openEditors(page);
     expect(await centre().inputValue()).toBe('5000');
     expect(await page.locator('qdp-probe-card').count()).toBe(7);
     expect(await page.locator('p.error').first().innerText()).toContain(refusal);
@@ -445,6 +448,7 @@ describe("keeping the design form's typed work", () => {
 
       await page.reload();
       await page.locator('qdp-crosstalk-table p.worst').waitFor();
+      await openEditors(page);
       expect(await names.evaluateAll((inputs) => inputs.map((i) => (i as HTMLInputElement).value))).toEqual([
         'CD3',
         'Ki-67',
@@ -487,6 +491,7 @@ describe('instrument profiles in the page', () => {
       // A reload keeps the panel on its profile.
       await page.reload();
       await page.locator('qdp-crosstalk-table p.worst').waitFor();
+      await openEditors(page);
       await picker.getByText('On the instrument').waitFor();
       expect(await picker.locator('p.current strong').innerText()).toBe('Core confocal, four lines');
 
@@ -527,6 +532,7 @@ describe('instrument profiles in the page', () => {
     const started = await browser.context.newPage();
     await started.goto(link);
     await started.locator('qdp-instrument-picker').getByText('Room 4 widefield').waitFor();
+    await openEditors(started);
     expect(await started.locator('qdp-channel-card').count()).toBe(6);
     expect(new URL(started.url()).pathname).toBe('/');
     expect(problems).toEqual([]);

@@ -20,7 +20,7 @@ const noPanel: DesignResult = {
 };
 
 describe('<qdp-proposal-summary> with no usable panel', () => {
-  it('says why, how many targets would work, and offers Discard but no Load button', async () => {
+  it('says why, that 6 targets would work keeping the more abundant, and offers Discard but no Load', async () => {
     const el = document.createElement('qdp-proposal-summary');
     el.result = noPanel;
     document.body.appendChild(el);
@@ -28,7 +28,7 @@ describe('<qdp-proposal-summary> with no usable panel', () => {
     const text = el.shadowRoot!.textContent ?? '';
     expect(text).toContain('No usable panel');
     expect(text).toContain('found no design of 16 targets');
-    expect(text).toContain('the 6 most abundant targets');
+    expect(text).toContain('A usable panel was found for 6 targets, keeping the more abundant ones');
     const buttons = [...el.shadowRoot!.querySelectorAll('button')].map((b) => b.textContent?.trim());
     expect(buttons).toEqual(['Discard']);
   });

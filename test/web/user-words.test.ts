@@ -19,6 +19,15 @@ describe('inUserWords', () => {
     );
   });
 
+  it('a custom probe with no spectrum is told, by its label, that it needs its measured emission loaded', () => {
+    const custom: PanelSpec = { ...panel, probes: [{ id: 'p1', label: 'Lab dot', material: 'custom' }] };
+    const message = "probes[0].measuredEmission is required for material 'custom'";
+    expect(inUserWords({ code: 'invalid_input', message, path: ['probes', 0, 'measuredEmission'] }, custom)).toBe(
+      "Probe 'Lab dot' needs data: load its measured emission spectrum (a CSV of wavelength in nm and intensity) in " +
+        'its row, or choose a material the model knows',
+    );
+  });
+
   it('a probe without a label is named by its id; a unitless range keeps no unit', () => {
     const message = 'probes[0].quantumYield must be between 0 and 1';
     expect(inUserWords({ code: 'out_of_range', message, path: ['probes', 0, 'quantumYield'] }, panel)).toBe(

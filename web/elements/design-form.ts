@@ -70,9 +70,12 @@ function excitationLines(text: string): { wavelengthNm: number }[] | undefined {
   return parts.map((p) => ({ wavelengthNm: Number(p) }));
 }
 
-/** How far the search has got, after its status word: nodes or refinement steps, and the best value so far. */
+/**
+ * How far the search has got, after its status word: partial designs examined or refinement steps, and the best
+ * value so far.
+ */
 function progressText(progress: SearchProgress): string {
-  const steps = progress.stage === 'refine' ? 'refinement steps' : 'nodes visited';
+  const steps = progress.stage === 'refine' ? 'refinement steps' : 'partial designs examined';
   const best =
     progress.incumbent === null
       ? ''

@@ -44,6 +44,41 @@ export const appStyles = [
     label {
       font-size: 0.9rem;
     }
+    /* The file picker reads as a button: the native input is hidden from sight, not from the keyboard. */
+    label.file {
+      font: inherit;
+      padding: 0.25rem 0.6rem;
+      border: 1px solid #556;
+      border-radius: 4px;
+      background: #fff;
+      cursor: pointer;
+      position: relative;
+    }
+    label.file:focus-within {
+      outline: 3px solid #1a56db;
+      outline-offset: 1px;
+    }
+    label.file input {
+      position: absolute;
+      inset: 0;
+      opacity: 0;
+      width: 100%;
+      cursor: pointer;
+    }
+    @media (max-width: 640px) {
+      h1 span {
+        display: none;
+      }
+      header .row > label:first-child {
+        flex: 1 0 100%;
+        display: flex;
+        gap: 0.4rem;
+        align-items: center;
+      }
+      header .row > label:first-child input {
+        flex: 1;
+      }
+    }
     /* Undo and Redo stay side by side when the row wraps on a phone. */
     .undo {
       display: flex;

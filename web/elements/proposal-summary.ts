@@ -114,8 +114,8 @@ function proofText(r: DesignResult): string {
 /** How much of the search space the search visited. */
 function searchText(stats: NonNullable<DesignResult['stats']>): string {
   return (
-    `${stats.nodesVisited.toLocaleString('en')} nodes visited of ${stats.fullEnumeration.toExponential(1)} ` +
-    'complete assignments.'
+    `${stats.nodesVisited.toLocaleString('en')} partial designs examined, of ` +
+    `${stats.fullEnumeration.toExponential(1)} possible complete ones.`
   );
 }
 
@@ -237,7 +237,8 @@ export class ProposalSummary extends LitElement {
       r.largestUsableTargets === null
         ? ''
         : r.largestUsableTargets > 0
-          ? ` A usable panel was found for the ${r.largestUsableTargets} most abundant targets: try with fewer.`
+          ? ` A usable panel was found for ${r.largestUsableTargets} targets, keeping the more abundant ones (among ` +
+            'equally abundant ones, those listed first): drop a target or loosen a limit.'
           : ' No usable panel was found even for one target.';
     return html`<section aria-labelledby="h-proposal">
       <h3 id="h-proposal" tabindex="-1">No usable panel: your panel is unchanged</h3>

@@ -65,6 +65,8 @@ export function inUserWords(error: FieldError, panel: PanelSpec): string {
   // A model's refusal is already a sentence about the field ("an emission peak of 990 nm is out of …").
   if (bare === error.message) return row ? `${row}: ${error.message}` : error.message;
   const field = String(error.path[error.path.length - 1] ?? '');
+  if (row && field === 'measuredEmission' && bare.startsWith('is required'))
+    return `${row} needs data: load its measured emission spectrum (a CSV of wavelength in nm and intensity) in its row, or choose a material the model knows`;
   const words = FIELD_WORDS[field];
   const value = valueAt(panel, error.path);
   const range = /^must be between (\S+) and (\S+?)(?: (nm|%))?$/.exec(bare);

@@ -38,3 +38,14 @@ export async function shot(page: Page, name: string, focus?: Locator): Promise<v
   if (focus) await focus.first().scrollIntoViewIfNeeded();
   await page.screenshot({ path: join(SHOT_DIR, `${name}.png`) });
 }
+
+/**
+ * Opens every folded part of the page's editors as a user would, by pressing it: the folded sections (microscope,
+ * excitation and sample, proposals) and each probe and channel row, so that the flows can reach every field.
+ */
+export async function openEditors(page: Page): Promise<void> {
+  const folds = page.locator('qdp-panel-app details.fold:not([open]) > summary');
+  while ((await folds.count()) > 0) await folds.first().click();
+  const rows = page.locator('qdp-editor-row:not([open])');
+  while ((await rows.count()) > 0) await rows.first().locator('button.head').click();
+}
