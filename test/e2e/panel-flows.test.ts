@@ -35,7 +35,8 @@ async function open(url: string): Promise<{ page: Page; problems: string[] }> {
   await page.evaluate(() => localStorage.clear());
   await page.goto(url);
   await page.locator('qdp-crosstalk-table p.worst').waitFor();
-  await openEditors(page);
+  // A shared copy's editors are read-only: they stay folded.
+  if (!new URL(url).pathname.startsWith('/p/')) await openEditors(page);
   return { page, problems };
 }
 
@@ -331,11 +332,11 @@ describe('the panel page', () => {
       const other = await open(url);
       await other.page.getByText('Shared copy (read only)').waitFor();
       expect(await other.page.locator('qdp-panel-app header input[type="text"]').first().inputValue()).toBe(evil);
-      expect(await other.page.locator('qdp-probe-card').first().locator('header strong').innerText()).toBe(evil);
+      expect(await other.page.locator('qdp-probe-list qdp-editor-row').first().locator('.name').innerText()).toBe(evil);
       expect(await other.page.locator('qdp-crosstalk-table table').first().innerText()).toContain(evil);
       expect(await other.page.locator('img').count()).toBe(0);
       await other.page.waitForTimeout(300);
-      await shot(other.page, '07-xss-as-text-1280', other.page.locator('qdp-probe-card').first());
+      await shot(other.page, '07-xss-as-text-1280', other.page.locator('qdp-probe-list'));
       expect([...problems, ...other.problems]).toEqual([]);
       await other.page.close();
       await page.close();
@@ -531,8 +532,9 @@ describe('instrument profiles in the page', () => {
     await shot(page, '09-instrument-maker-1280', page.locator('section[aria-labelledby="h-instrument"]'));
     const started = await browser.context.newPage();
     await started.goto(link);
-    await started.locator('qdp-instrument-picker').getByText('Room 4 widefield').waitFor();
+    await started.locator('qdp-instrument-picker').waitFor({ state: 'attached' });
     await openEditors(started);
+    await started.locator('qdp-instrument-picker').getByText('Room 4 widefield').waitFor();
     expect(await started.locator('qdp-channel-card').count()).toBe(6);
     expect(new URL(started.url()).pathname).toBe('/');
     expect(problems).toEqual([]);

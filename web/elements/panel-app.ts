@@ -182,6 +182,12 @@ export class PanelApp extends LitElement {
     else void this.restoreFromFragment();
   }
 
+  /** A folded section that must show something (a refusal, what a switch changed) opens; none is closed for the user. */
+  protected override updated(): void {
+    for (const fold of this.renderRoot.querySelectorAll<HTMLDetailsElement>('details.fold[data-needs-open="true"]'))
+      fold.open = true;
+  }
+
   override disconnectedCallback(): void {
     window.removeEventListener('popstate', this.onPopState);
     window.removeEventListener('keydown', this.onKeyDown);
@@ -648,7 +654,7 @@ export class PanelApp extends LitElement {
             }}
             @instrument-undo=${this.undoSwitch}
           >
-            <details class="fold" ?open=${!!this.changes || this.instrumentBusy}>
+            <details class="fold" data-needs-open=${!!this.changes || this.instrumentBusy || !!this.sharedId}>
               <summary>
                 <h2 id="h-instrument">Microscope</h2>
                 <span>${this.instrument ? this.instrument.spec.name : "this panel's own lines and filters"}</span>
@@ -665,7 +671,7 @@ export class PanelApp extends LitElement {
             </details>
           </section>
           <section aria-labelledby="h-light">
-            <details class="fold" ?open=${Object.keys(errors.other).length > 0}>
+            <details class="fold" data-needs-open=${Object.keys(errors.other).length > 0 || !!this.sharedId}>
               <summary>
                 <h2 id="h-light">Excitation and sample</h2>
                 <span>${lightSummary(p)}</span>

@@ -1,6 +1,7 @@
 /**
  * The bundled demo: an invented six-target panel for a fixed tissue section under one violet 405 nm line. The targets
- * are generic; the nuclear counterstain is DAPI from the dye library.
+ * are generic and each probe is named for its target; the dots' peaks (515, 580, 620, 660 and 720 nm) are our own
+ * picks, not a commercial series; the nuclear counterstain is DAPI from the dye library.
  */
 import type { PanelSpec } from '../../spectra/index';
 
@@ -16,7 +17,7 @@ export function demoPanel(): PanelSpec {
     probes: [
       {
         id: 'p1',
-        label: 'Counterstain',
+        label: 'Nuclear stain',
         material: 'dye',
         dye: 'dapi',
         target: 'nuclear DNA counterstain',
@@ -24,9 +25,9 @@ export function demoPanel(): PanelSpec {
       },
       {
         id: 'p2',
-        label: 'Green dot',
+        label: 'Envelope dot',
         material: 'cdse',
-        emissionPeakNm: 525,
+        emissionPeakNm: 515,
         shell: [{ material: 'zns', thicknessNm: 0.9 }],
         sizeDispersionPct: 5,
         quantumYield: 0.5,
@@ -35,9 +36,9 @@ export function demoPanel(): PanelSpec {
       },
       {
         id: 'p3',
-        label: 'Yellow dot',
+        label: 'Mito dot',
         material: 'inp',
-        emissionPeakNm: 570,
+        emissionPeakNm: 580,
         shell: [{ material: 'zns', thicknessNm: 0.4 }],
         quantumYield: 0.5,
         target: 'mitochondrial marker',
@@ -45,9 +46,9 @@ export function demoPanel(): PanelSpec {
       },
       {
         id: 'p4',
-        label: 'Orange dot',
+        label: 'Actin dot',
         material: 'cdse',
-        emissionPeakNm: 605,
+        emissionPeakNm: 620,
         shell: [{ material: 'zns', thicknessNm: 0.9 }],
         sizeDispersionPct: 5,
         quantumYield: 0.5,
@@ -56,9 +57,9 @@ export function demoPanel(): PanelSpec {
       },
       {
         id: 'p5',
-        label: 'Red dot',
+        label: 'Vessel dot',
         material: 'cdse',
-        emissionPeakNm: 645,
+        emissionPeakNm: 660,
         shell: [{ material: 'zns', thicknessNm: 0.9 }],
         sizeDispersionPct: 6,
         quantumYield: 0.5,
@@ -67,9 +68,9 @@ export function demoPanel(): PanelSpec {
       },
       {
         id: 'p6',
-        label: 'Far-red dot',
+        label: 'Membrane dot',
         material: 'cdte',
-        emissionPeakNm: 705,
+        emissionPeakNm: 720,
         shell: [{ material: 'cds', thicknessNm: 0.7 }],
         quantumYield: 0.4,
         target: 'membrane marker',
@@ -78,11 +79,11 @@ export function demoPanel(): PanelSpec {
     ],
     channels: [
       { id: 'c1', label: 'Blue', filters: [{ type: 'bandpass', centerNm: 460, widthNm: 40 }], excitationNm: 405 },
-      { id: 'c2', label: 'Green', filters: [{ type: 'bandpass', centerNm: 525, widthNm: 20 }], excitationNm: 405 },
-      { id: 'c3', label: 'Yellow', filters: [{ type: 'bandpass', centerNm: 570, widthNm: 20 }], excitationNm: 405 },
-      { id: 'c4', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }], excitationNm: 405 },
-      { id: 'c5', label: 'Red', filters: [{ type: 'bandpass', centerNm: 645, widthNm: 20 }], excitationNm: 405 },
-      { id: 'c6', label: 'Far red', filters: [{ type: 'longpass', edgeNm: 690 }], excitationNm: 405 },
+      { id: 'c2', label: 'Green', filters: [{ type: 'bandpass', centerNm: 515, widthNm: 20 }], excitationNm: 405 },
+      { id: 'c3', label: 'Yellow', filters: [{ type: 'bandpass', centerNm: 580, widthNm: 20 }], excitationNm: 405 },
+      { id: 'c4', label: 'Orange', filters: [{ type: 'bandpass', centerNm: 620, widthNm: 20 }], excitationNm: 405 },
+      { id: 'c5', label: 'Red', filters: [{ type: 'bandpass', centerNm: 660, widthNm: 20 }], excitationNm: 405 },
+      { id: 'c6', label: 'Far red', filters: [{ type: 'longpass', edgeNm: 700 }], excitationNm: 405 },
     ],
     background: { level: 0.1 },
   };

@@ -11,14 +11,21 @@ import { CHROMIUM_LAUNCH } from '../../chromium';
 /** Where the flows save their screenshots. */
 export const SHOT_DIR = join(process.cwd(), 'test-output', 'e2e');
 
-/** A browser context on a new temporary profile; close() also deletes the profile. */
-export async function openBrowser(): Promise<{ context: BrowserContext; close(): Promise<void> }> {
+/**
+ * A browser context on a new temporary profile; close() also deletes the profile. `touch` makes it a touch-screen
+ * device (taps, as on a phone).
+ */
+export async function openBrowser({ touch = false } = {}): Promise<{
+  context: BrowserContext;
+  close(): Promise<void>;
+}> {
   const profile = mkdtempSync(join(tmpdir(), 'qdp-e2e-'));
   const context = await chromium.launchPersistentContext(profile, {
     ...CHROMIUM_LAUNCH,
     headless: true,
     viewport: { width: 1280, height: 900 },
     acceptDownloads: true,
+    hasTouch: touch,
   });
   return {
     context,
@@ -41,11 +48,13 @@ export async function shot(page: Page, name: string, focus?: Locator): Promise<v
 
 /**
  * Opens every folded part of the page's editors as a user would, by pressing it: the folded sections (microscope,
- * excitation and sample, proposals) and each probe and channel row, so that the flows can reach every field.
+ * excitation and sample, proposals) and each probe and channel row, so that the flows can reach every field. A
+ * shared copy's editors are read-only (inert) and stay as they are.
  */
 export async function openEditors(page: Page): Promise<void> {
-  const folds = page.locator('qdp-panel-app details.fold:not([open]) > summary');
+  const editable = 'qdp-panel-app .edit:not([inert])';
+  const folds = page.locator(`${editable} details.fold:not([open]) > summary`);
   while ((await folds.count()) > 0) await folds.first().click();
-  const rows = page.locator('qdp-editor-row:not([open])');
+  const rows = page.locator(`${editable} qdp-editor-row:not([open])`);
   while ((await rows.count()) > 0) await rows.first().locator('button.head').click();
 }
