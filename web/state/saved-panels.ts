@@ -6,7 +6,9 @@
  */
 import { createStore, del, entries, get, set, setMany, delMany, type UseStore } from 'idb-keyval';
 import type { PanelSpec } from '../../spectra/index';
+import canonicalize from 'canonicalize';
 import type { PanelExclusion } from './exclusions';
+import { thinPanel } from './fragment';
 
 /** Most panels kept; saving one more drops the oldest. */
 export const SAVED_PANEL_LIMIT = 50;
@@ -147,6 +149,37 @@ export class SavedPanels {
   }
 }
 
+/** Where the page keeps the id of the working panel's entry in this browser, beside its last state. */
+const LAST_SAVED_KEY = 'qdpanel.lastSavedId';
+
+/** The id of the last working panel's entry, or '' when there is none or storage is off. */
+export function readLastSavedId(): string {
+  try {
+    return localStorage.getItem(LAST_SAVED_KEY) ?? '';
+  } catch {
+    return '';
+  }
+}
+
+/** Keeps the id of the working panel's entry (nothing happens when storage is off or full). */
+export function writeLastSavedId(id: string): void {
+  try {
+    localStorage.setItem(LAST_SAVED_KEY, id);
+  } catch {
+    // Storage off or full: the address and the last state still hold the panel.
+  }
+}
+
+/**
+ * The saved entry's panel when it is the panel a link or the last state holds (thinned for the address, `linked` is
+ * its decoded JSON): the entry keeps its measured tables whole. Undefined when they differ (the link is newer).
+ */
+export function fullPanelOf(entry: SavedPanel | undefined, linked: unknown): PanelSpec | undefined {
+  if (!entry) return undefined;
+  const same = canonicalize(JSON.parse(JSON.stringify(thinPanel(entry.panel)))) === canonicalize(linked);
+  return same ? entry.panel : undefined;
+}
+
 /** The page's kept panels: database "qdpanel", object store "panels". */
 export function openSavedPanels(dbName = 'qdpanel', storeName = 'panels'): SavedPanels {
   return new SavedPanels(createStore(dbName, storeName));
@@ -162,6 +195,8 @@ export class Autosaver {
   private failed = false;
   /** The last write, for a caller (and a test) to wait on. */
   written: Promise<void> = Promise.resolve();
+  /** Called after each write that succeeded (the list of panels reads itself again). */
+  afterWrite?: () => void;
 
   constructor(
     private readonly store: SavedPanels,
@@ -183,11 +218,14 @@ export class Autosaver {
     this.pending = undefined;
     if (!entry) return this.written;
     this.written = this.written.then(() =>
-      this.store.put(entry).catch(() => {
-        if (this.failed) return;
-        this.failed = true;
-        this.onFailure(STORAGE_OFF_NOTICE);
-      }),
+      this.store.put(entry).then(
+        () => this.afterWrite?.(),
+        () => {
+          if (this.failed) return;
+          this.failed = true;
+          this.onFailure(STORAGE_OFF_NOTICE);
+        },
+      ),
     );
     return this.written;
   }
