@@ -37,6 +37,8 @@ export class MyPanels extends LitElement {
   @state() private picked: string[] = [];
   @state() private renaming = '';
   @state() private message = '';
+  /** True from Open until the page shows the panel opened (its message stays). */
+  private justOpened = false;
   /** The entry last deleted, for its undo. */
   @state() private deleted?: SavedPanel;
 
@@ -96,6 +98,14 @@ export class MyPanels extends LitElement {
     `,
   ];
 
+  override willUpdate(changed: Map<string, unknown>): void {
+    const before = changed.get('current') as MyPanels['current'];
+    // Another working panel: what was said about the last one no longer applies.
+    if (!changed.has('current') || !before || before.id === this.current?.id) return;
+    if (!this.justOpened) this.message = '';
+    this.justOpened = false;
+  }
+
   /** Reads the list again (after opening the list, an action, or a save of the working panel). */
   async reload(): Promise<void> {
     this.entries = this.store ? await this.store.list() : [];
@@ -117,6 +127,7 @@ export class MyPanels extends LitElement {
     this.deleted = undefined;
     this.dispatchEvent(new CustomEvent('saved-panel-open', { detail: { entry }, bubbles: true, composed: true }));
     this.message = `Opened “${entry.name}”. Undo goes back to the panel before it.`;
+    this.justOpened = true;
   }
 
   private async rename(entry: SavedPanel, form: HTMLFormElement): Promise<void> {

@@ -134,17 +134,14 @@ export class PanelCompare extends LitElement {
     if (!this.a || !this.b || !this.figures) return html``;
     const [fa, fb] = this.figures;
     const diff = panelDifferences(fa, fb);
-    return html`<div class="sides">
-        ${this.side(fa, this.a.caption, 'First')} ${this.side(fb, this.b.caption, 'Second')}
-      </div>
-      <h4>From the first to the second</h4>
-      ${
-        diff.length
-          ? html`<ul class="diff">
-              ${diff.map((d) => html`<li>${d}</li>`)}
-            </ul>`
-          : html`<p class="diff">No differences in these figures.</p>`
-      }`;
+    const differences = diff.length
+      ? html`<ul class="diff">
+          ${diff.map((d) => html`<li>${d}</li>`)}
+        </ul>`
+      : html`<p class="diff">No differences in these figures.</p>`;
+    return html`<h4>From the first to the second</h4>
+      ${differences}
+      <div class="sides">${this.side(fa, this.a.caption, 'First')} ${this.side(fb, this.b.caption, 'Second')}</div>`;
   }
 }
 
