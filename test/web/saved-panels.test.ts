@@ -102,16 +102,27 @@ describe('saved panels in IndexedDB', () => {
 describe('the autosaver', () => {
   it('writes only the last of a burst of edits, after the delay, and flush writes at once', async () => {
     const store = freshStore();
-    const saver = new Autosaver(store, () => {}, 50);
+    const widths: number[] = [];
+    const counting = {
+      put: (e: SavedPanel) => {
+        const f = e.panel.channels[0].filters[0];
+        widths.push(f.type === 'bandpass' ? f.widthNm : NaN);
+        return store.put(e);
+      },
+    } as unknown as SavedPanels;
+    const saver = new Autosaver(counting, () => {}, 50);
     saver.schedule(savedEntry('a', { panel: panel('W', 21), exclude: [] }, at('2026-01-01T00:00:00Z')));
     saver.schedule(savedEntry('a', { panel: panel('W', 22), exclude: [] }, at('2026-01-01T00:00:01Z')));
-    expect(await store.get('a')).toBeUndefined();
+    await new Promise((r) => setTimeout(r, 10));
+    expect(widths).toEqual([]);
     await new Promise((r) => setTimeout(r, 120));
     await saver.written;
+    expect(widths).toEqual([22]);
     const first = (await store.get('a'))!.panel.channels[0].filters[0];
     expect(first.type === 'bandpass' && first.widthNm).toBe(22);
     saver.schedule(savedEntry('a', { panel: panel('W', 23), exclude: [] }, at('2026-01-01T00:00:02Z')));
     await saver.flush();
+    expect(widths).toEqual([22, 23]);
     const second = (await store.get('a'))!.panel.channels[0].filters[0];
     expect(second.type === 'bandpass' && second.widthNm).toBe(23);
   });
