@@ -92,7 +92,7 @@ describe('panels kept in this browser', () => {
     await expect.poll(() => redCentre(page).inputValue()).toBe('640');
   });
 
-  it('comparing a fresh demo with the saved one says the Red channel changed, and both fit a 390 px screen', async () => {
+  it('comparing a fresh demo with the saved one says the Red band changed; both fit a 390 px screen', async () => {
     await page.getByRole('button', { name: 'Open the demo panel' }).click();
     await ready();
     expect(await redCentre(page).inputValue()).toBe('645');
