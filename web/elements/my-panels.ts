@@ -106,6 +106,13 @@ export class MyPanels extends LitElement {
     this.justOpened = false;
   }
 
+  /** Keyboard focus follows the action: into the new-name box on Rename, onto "Undo delete" after Delete. */
+  override updated(changed: Map<string, unknown>): void {
+    const root = this.renderRoot;
+    if (changed.has('renaming') && this.renaming) root.querySelector<HTMLInputElement>('input[name="name"]')?.focus();
+    if (changed.has('deleted') && this.deleted) root.querySelector<HTMLButtonElement>('button.undo-delete')?.focus();
+  }
+
   /** Reads the list again (after opening the list, an action, or a save of the working panel). */
   async reload(): Promise<void> {
     this.entries = this.store ? await this.store.list() : [];
@@ -158,8 +165,12 @@ export class MyPanels extends LitElement {
     const entry = this.deleted;
     if (!entry) return;
     this.deleted = undefined;
-    await this.store?.restore([entry]);
-    this.message = `“${entry.name}” is back.`;
+    try {
+      await this.store?.restore([entry]);
+      this.message = `“${entry.name}” is back.`;
+    } catch {
+      this.message = `“${entry.name}” could not be put back: this browser’s storage refused it.`;
+    }
     await this.reload();
   }
 
@@ -228,30 +239,30 @@ export class MyPanels extends LitElement {
     return html`<qdp-panel-compare .a=${a} .b=${b}></qdp-panel-compare>`;
   }
 
-  override render() {
+  /** What the last action did, with "Undo delete" after a delete. */
+  private status() {
+    if (!this.message) return '';
+    const undo = html`<button type="button" class="undo-delete" @click=${this.undoDelete}>Undo delete</button>`;
+    return html`<p role="status">${this.message} ${this.deleted ? undo : ''}</p>`;
+  }
+
+  private body() {
     const saved = this.entries.filter((e) => e.id !== this.current?.id);
+    return html`<p class="meta">
+        Every panel you edit is kept in this browser (the newest ${SAVED_PANEL_LIMIT} at most); nothing leaves your
+        computer.
+      </p>
+      ${this.status()}
+      <ul class="list" aria-label="Panels kept in this browser">
+        ${this.currentRow()} ${saved.map((e) => this.entryRow(e))}
+      </ul>
+      ${this.comparison()}`;
+  }
+
+  override render() {
     return html`<details @toggle=${this.onToggle}>
       <summary>My panels</summary>
-      ${
-        this.open
-          ? html`<p class="meta">
-                Every panel you edit is kept in this browser (the newest ${SAVED_PANEL_LIMIT} at most); nothing leaves
-                your computer.
-              </p>
-              ${
-                this.message
-                  ? html`<p role="status">
-                      ${this.message}
-                      ${this.deleted ? html`<button type="button" @click=${this.undoDelete}>Undo delete</button>` : ''}
-                    </p>`
-                  : ''
-              }
-              <ul class="list" aria-label="Panels kept in this browser">
-                ${this.currentRow()} ${saved.map((e) => this.entryRow(e))}
-              </ul>
-              ${this.comparison()}`
-          : ''
-      }
+      ${this.open ? this.body() : ''}
     </details>`;
   }
 }
