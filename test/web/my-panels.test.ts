@@ -71,7 +71,7 @@ describe('<qdp-my-panels>', () => {
     expect(opened.map((e) => e.id)).toEqual(['s1']);
   });
 
-  it('Rename focuses the name box and keeps the new name; Delete removes the entry, "Undo delete" brings it back', async () => {
+  it('Rename focuses the name box and keeps the name; Delete removes it and "Undo delete" brings it back', async () => {
     const store = freshStore();
     await store.put(savedEntry('s1', { panel: demoWithRed(640), exclude: [] }, new Date('2026-03-04T05:06:00Z')));
     const el = await mountOpen(store);
