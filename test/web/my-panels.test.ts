@@ -51,7 +51,7 @@ async function waitFor(ok: () => boolean, ms = 2000): Promise<void> {
 }
 
 const rows = (el: HTMLElement) => [...el.shadowRoot!.querySelectorAll('li.entry')] as HTMLElement[];
-const button = (root: ParentNode, name: RegExp) =>
+const button = (root: Element | ShadowRoot, name: RegExp) =>
   [...root.querySelectorAll('button')].find((b) => name.test(b.textContent ?? '')) as HTMLButtonElement;
 
 describe('<qdp-my-panels>', () => {
