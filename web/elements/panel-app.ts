@@ -43,6 +43,16 @@ import {
   type AttachedInstrument,
   type InstrumentChanges,
 } from '../state/instrument';
+import {
+  Autosaver,
+  fullPanelOf,
+  newSavedId,
+  openSavedPanels,
+  readLastSavedId,
+  savedEntry,
+  writeLastSavedId,
+  type SavedPanel,
+} from '../state/saved-panels';
 import './channel-list';
 import './crosstalk-table';
 import './design-form';
@@ -51,6 +61,8 @@ import './instrument-picker';
 import './key-verdict';
 import './light-editor';
 import './material-notes';
+import './my-panels';
+import type { MyPanels } from './my-panels';
 import './panel-actions';
 import './probe-list';
 import './spectrum-chart';
@@ -81,6 +93,8 @@ interface Snapshot {
   panel: PanelSpec;
   exclude: PanelExclusion[];
   instrument?: AttachedInstrument;
+  /** The entry in My panels the panel is saved as. */
+  savedId: string;
 }
 
 /** Input kinds that undo their own typing (a checkbox, a button or a menu does not). */
@@ -167,6 +181,15 @@ export class PanelApp extends LitElement {
   private shown?: Snapshot;
   /** True while a panel waits for the checks to arrive before it is computed. */
   private awaitingChecks = false;
+  /** The working panel's entry in My panels: a new one for each panel loaded, the entry's own for a saved panel. */
+  @state() private savedId = newSavedId();
+  /** The panel as loaded: it is saved once edited (or once its entry exists). */
+  private loadedPanel?: PanelSpec;
+  /** Entries this page has written or opened. */
+  private keptIds = new Set<string>();
+  private savedPanels = openSavedPanels();
+  private saver = new Autosaver(this.savedPanels, (message) => (this.notice = message));
+  @query('qdp-my-panels') private myPanels?: MyPanels;
 
   static override styles = appStyles;
 
@@ -174,6 +197,8 @@ export class PanelApp extends LitElement {
     super.connectedCallback();
     window.addEventListener('popstate', this.onPopState);
     window.addEventListener('keydown', this.onKeyDown);
+    window.addEventListener('pagehide', this.onPageHide);
+    this.saver.afterWrite = () => void this.myPanels?.reload();
     void this.startChecks();
     const shared = SHARED_PATH.exec(location.pathname);
     const profile = /^\/i\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
@@ -191,6 +216,7 @@ export class PanelApp extends LitElement {
   override disconnectedCallback(): void {
     window.removeEventListener('popstate', this.onPopState);
     window.removeEventListener('keydown', this.onKeyDown);
+    window.removeEventListener('pagehide', this.onPageHide);
     super.disconnectedCallback();
   }
 
@@ -214,8 +240,10 @@ export class PanelApp extends LitElement {
     else this.undoStep();
   };
 
+  private onPageHide = () => void this.saver.flush();
+
   private snapshot(): Snapshot {
-    return { panel: this.panel, exclude: this.exclude, instrument: this.instrument };
+    return { panel: this.panel, exclude: this.exclude, instrument: this.instrument, savedId: this.savedId };
   }
 
   /** Records the change since the last step: a burst of edits of the same fields joins one step, a load is its own. */
@@ -252,6 +280,7 @@ export class PanelApp extends LitElement {
   /** Shows a state from the undo history; the address and this browser's last state follow without a Back step. */
   private restore(s: Snapshot): void {
     this.shown = s;
+    this.savedId = s.savedId;
     this.instrument = s.instrument;
     this.exclude = s.exclude;
     this.changes = undefined;
@@ -288,7 +317,13 @@ export class PanelApp extends LitElement {
       const r = readPageState(raw);
       if (!r.ok) throw new Error(`The link's panel is not valid (${r.message}).`);
       this.snapStock = r.state.view.snapStock ?? false;
-      this.load(r.state.panel, r.state.view.exclude, false);
+      // The same working panel keeps its entry in My panels, whose copy has the measured tables whole.
+      const savedId = location.hash ? (history.state as { savedId?: string } | null)?.savedId : readLastSavedId();
+      const entry = savedId ? await this.savedPanels.get(savedId) : undefined;
+      const full = fullPanelOf(entry, (raw as { panel?: unknown }).panel);
+      const whole = full ? readPageState({ panel: full }) : undefined;
+      this.load(whole?.ok ? whole.state.panel : r.state.panel, r.state.view.exclude, false, savedId || undefined);
+      if (entry) this.keptIds.add(entry.id);
       if (r.state.view.instrument) await this.reattach(r.state.view.instrument);
     } catch (e) {
       this.notice = `${e instanceof Error ? e.message : String(e)} The demo panel is shown instead.`;
@@ -411,24 +446,52 @@ export class PanelApp extends LitElement {
   }
 
   /**
-   * Replaces the panel by a loaded design proposal, always as a new history step so that Back returns to the panel
+   * Replaces the panel by a loaded design proposal (or a panel from My panels, as its entry `savedId`), always as a
+   * new history step so that Back returns to the panel
    * before it (even one edited a moment ago, or a shared copy at /p/<id>, which the proposal leaves for /). The
    * proposal has its own set-up, with any shared filters already in its channels, so it is on no instrument profile.
    */
-  private loadProposal(panel: PanelSpec): void {
+  private loadProposal(panel: PanelSpec, exclude = this.exclude, savedId?: string): void {
     this.sharedId = '';
     this.lastPushMs = 0;
     this.instrument = undefined;
     this.changes = undefined;
-    this.load(panel, this.exclude);
+    this.load(panel, exclude, true, savedId);
   }
 
-  /** Replaces the whole panel (new, demo, import, shared) and recomputes: one undo step of its own. */
-  private load(panel: PanelSpec, exclude: PanelExclusion[], writeUrl = true): void {
+  /**
+   * Replaces the whole panel (new, demo, import, shared) and recomputes: one undo step of its own, saved in My panels
+   * as `savedId` (by default a new entry) once edited.
+   */
+  private load(panel: PanelSpec, exclude: PanelExclusion[], writeUrl = true, savedId = newSavedId()): void {
     this.computed = undefined;
+    this.savedId = savedId;
     // A panel that states its exclusions (a shared or saved one) brings them; else the view's are kept.
     this.exclude = panel.exclude ? panel.exclude.filter(isPanelExclusion) : exclude;
-    this.apply(withExclusions(panel, this.exclude), writeUrl ? 'push' : 'none', true);
+    this.loadedPanel = withExclusions(panel, this.exclude);
+    this.apply(this.loadedPanel, writeUrl ? 'push' : 'none', true);
+  }
+
+  /** A panel from My panels, through the same checks as a link: one undoable step, then edited as that entry. */
+  private async openSaved(entry: SavedPanel): Promise<void> {
+    const { readPageState } = await loadChecks();
+    const r = readPageState({ panel: entry.panel, view: { exclude: entry.exclude, instrument: entry.instrument } });
+    if (!r.ok) {
+      this.notice = `“${entry.name}” could not be opened: ${r.message}`;
+      return;
+    }
+    this.keptIds.add(entry.id);
+    this.loadProposal(r.state.panel, r.state.view.exclude, entry.id);
+    if (r.state.view.instrument) await this.reattach(r.state.view.instrument);
+  }
+
+  /** Saves the working panel in My panels (after a pause in the edits) once it is edited or already kept. */
+  private autosave(): void {
+    writeLastSavedId(this.savedId);
+    if (this.panel === this.loadedPanel && !this.keptIds.has(this.savedId)) return;
+    this.keptIds.add(this.savedId);
+    const state = { panel: this.panel, exclude: this.exclude, instrument: this.instrument?.id };
+    this.saver.schedule(savedEntry(this.savedId, state, new Date()));
   }
 
   /** The first panel of a visit, when the address holds none: the history of steps starts on it. */
@@ -488,9 +551,11 @@ export class PanelApp extends LitElement {
     const fragment = encodeFragment({ panel: this.panel, view: this.view() });
     const url = `${path}#${fragment}`;
     writeLastState(fragment);
+    this.autosave();
     const now = Date.now();
-    if (mode === 'push' && now - this.lastPushMs > STEP_MS) history.pushState(null, '', url);
-    else history.replaceState(null, '', url);
+    const state = { savedId: this.savedId };
+    if (mode === 'push' && now - this.lastPushMs > STEP_MS) history.pushState(state, '', url);
+    else history.replaceState(state, '', url);
     this.lastPushMs = now;
   }
 
@@ -606,6 +671,11 @@ export class PanelApp extends LitElement {
               @change=${(e: Event) => this.importJson((e.target as HTMLInputElement).files?.[0])}
           /></label>
         </div>
+        <qdp-my-panels
+          .store=${this.savedPanels}
+          .current=${{ id: this.savedId, panel: p }}
+          @saved-panel-open=${(e: CustomEvent<{ entry: SavedPanel }>) => this.openSaved(e.detail.entry)}
+        ></qdp-my-panels>
         ${this.notice ? html`<p class="notice" role="status">${this.notice}</p>` : ''}
         ${this.sharedId ? this.sharedNote() : ''}
         ${
