@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, shot } from './helpers/browser';
+import { openBrowser, openEditors, shot } from './helpers/browser';
 import { startApp, type StartedApp } from '../quality/helpers/app';
 
 let app: StartedApp;
@@ -25,7 +25,7 @@ afterAll(async () => {
   await app?.stop();
 });
 
-/** The centre field of the demo's fifth channel ("Red", bandpass 645/20). */
+/** The centre field of the demo's fifth channel ("Red", bandpass 660/20). */
 const redCentre = (p: Page) =>
   p.locator('qdp-channel-card').nth(4).locator('qdp-number-field[data-field="filters.0.centerNm"] input');
 
@@ -58,21 +58,25 @@ function savedRedCentres(p: Page): Promise<number[]> {
   );
 }
 
-const ready = () => page.locator('qdp-crosstalk-table p.worst').waitFor();
+/** The panel is computed and its editors are open, as a user opens them to edit. */
+const ready = async () => {
+  await page.locator('qdp-crosstalk-table p.worst').waitFor();
+  await openEditors(page);
+};
 const myPanels = () => page.locator('qdp-my-panels');
 
 describe('panels kept in this browser', () => {
   it('an edit of the demo is saved in IndexedDB and a reload of the bare address brings it back', async () => {
     await page.goto(app.baseUrl + '/');
     await ready();
-    expect(await redCentre(page).inputValue()).toBe('645');
-    await redCentre(page).fill('640');
+    expect(await redCentre(page).inputValue()).toBe('660');
+    await redCentre(page).fill('650');
     await redCentre(page).press('Tab');
-    await expect.poll(() => savedRedCentres(page), { timeout: 5000 }).toEqual([640]);
+    await expect.poll(() => savedRedCentres(page), { timeout: 5000 }).toEqual([650]);
     await page.goto(app.baseUrl + '/');
     await ready();
     expect(page.url()).toBe(app.baseUrl + '/');
-    expect(await redCentre(page).inputValue()).toBe('640');
+    expect(await redCentre(page).inputValue()).toBe('650');
   });
 
   it('after "New panel", My panels opens the earlier panel with its edit, as a step that Undo takes back', async () => {
@@ -85,27 +89,27 @@ describe('panels kept in this browser', () => {
     await shot(page, 'saved-01-list-1280', myPanels());
     await entry.getByRole('button', { name: /^Open / }).click();
     await ready();
-    expect(await redCentre(page).inputValue()).toBe('640');
+    expect(await redCentre(page).inputValue()).toBe('650');
     await page.locator('qdp-panel-app').getByRole('button', { name: 'Undo', exact: true }).click();
     await expect.poll(() => page.locator('qdp-channel-card').count()).toBe(0);
     await page.locator('qdp-panel-app').getByRole('button', { name: 'Redo', exact: true }).click();
-    await expect.poll(() => redCentre(page).inputValue()).toBe('640');
+    await expect.poll(() => redCentre(page).inputValue()).toBe('650');
   });
 
   it('comparing a fresh demo with the saved one says the Red band changed; both fit a 390 px screen', async () => {
     await page.getByRole('button', { name: 'Open the demo panel' }).click();
     await ready();
-    expect(await redCentre(page).inputValue()).toBe('645');
+    expect(await redCentre(page).inputValue()).toBe('660');
     const list = myPanels();
     await list.locator('li.entry.current').getByRole('checkbox').check();
     await list.locator('li.entry:not(.current)').first().getByRole('checkbox').check();
     const compare = list.locator('qdp-panel-compare');
     await expect
       .poll(() => compare.locator('ul.diff').innerText())
-      .toContain("Channel 'Red': bandpass 645/20 → 640/20");
+      .toContain("Channel 'Red': bandpass 660/20 → 650/20");
     const [first, second] = await compare.locator('section').allInnerTexts();
-    expect(first).toContain('Red: bandpass 645/20');
-    expect(second).toContain('Red: bandpass 640/20');
+    expect(first).toContain('Red: bandpass 660/20');
+    expect(second).toContain('Red: bandpass 650/20');
     expect(second).toMatch(/Worst crosstalk: \d+(\.\d+)? % \(.+ into .+’s channel\)/);
     expect(second).toMatch(/Condition number: \d/);
     await shot(page, 'saved-02-compare-1280', compare);
