@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { listMaterials, type ChannelSpec, type ProbeSpec } from '../../spectra/index';
+import { listMaterials, type ChannelSpec, type PanelSpec, type ProbeSpec } from '../../spectra/index';
 import '../../web/elements/number-field';
 import '../../web/elements/probe-card';
 import '../../web/elements/channel-card';
@@ -12,6 +12,13 @@ afterEach(() => document.body.replaceChildren());
 function typeInto(input: HTMLInputElement, text: string): void {
   input.value = text;
   input.dispatchEvent(new Event('input', { bubbles: true, composed: true }));
+}
+
+/** The demo panel with its fourth channel as bandpass 605/20, the size the edge moves below are worked out for. */
+function demoWith605(): PanelSpec {
+  const panel = demoPanel();
+  panel.channels[3] = { ...panel.channels[3], filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] };
+  return panel;
 }
 
 describe('editors', () => {
@@ -144,7 +151,7 @@ describe('editors', () => {
   });
 
   it('moveEdge(panel, low edge at 590) keeps the upper edge of a 605/20 bandpass and widens it to 25 nm', () => {
-    const panel = demoPanel();
+    const panel = demoWith605();
     const i = panel.channels.findIndex((c) => c.filters[0].type === 'bandpass' && c.filters[0].centerNm === 605);
     const moved = moveEdge(panel, { channelIndex: i, filterIndex: 0, edge: 'low', wavelengthNm: 590 });
     expect(moved.channels[i].filters[0]).toMatchObject({ centerNm: 602.5, widthNm: 25 });
@@ -162,7 +169,7 @@ describe('editors', () => {
   });
 
   it('moveEdge(605/20, upper edge to 636, snapping) lands on stock 615/40 (custom 615.5/41 without snapping)', () => {
-    const panel = demoPanel();
+    const panel = demoWith605();
     const i = panel.channels.findIndex((c) => c.filters[0].type === 'bandpass' && c.filters[0].centerNm === 605);
     const h = { channelIndex: i, filterIndex: 0, edge: 'high' as const, wavelengthNm: 636 };
     expect(moveEdge(panel, h, { snapStock: true }).channels[i].filters[0]).toMatchObject({
@@ -173,7 +180,7 @@ describe('editors', () => {
   });
 
   it('moveEdge(605/20, upper edge +1 nm by key, snapping) steps on to 605/25; by pointer it stays at 605/20', () => {
-    const panel = demoPanel();
+    const panel = demoWith605();
     const i = panel.channels.findIndex((c) => c.filters[0].type === 'bandpass' && c.filters[0].centerNm === 605);
     const h = { channelIndex: i, filterIndex: 0, edge: 'high' as const, wavelengthNm: 616 };
     // 616 → 605.5/21 snaps back to 605/20; the key step looks on: 618 → 606.5/23 is nearest 605/25.

@@ -147,7 +147,7 @@ describe('<qdp-panel-actions>', () => {
     const orange = rows.find((r) => r.startsWith('p4,'))!;
     expect(orange.split(',')).toEqual(
       expect.arrayContaining([
-        'Orange dot',
+        'Actin dot',
         'cdse',
         String(localResolved[3].diameterNm),
         String(localResolved[3].emissionPeakNm),
