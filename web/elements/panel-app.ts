@@ -51,6 +51,8 @@ import './instrument-picker';
 import './light-editor';
 import './material-notes';
 import './panel-actions';
+import './panel-report';
+import type { PanelReport } from './panel-report';
 import './probe-list';
 import './spectrum-chart';
 import type { SpectrumChart } from './spectrum-chart';
@@ -137,6 +139,10 @@ export class PanelApp extends LitElement {
   /** Bandpass sizes dragged or typed land on the nearest stock size (kept in the fragment). */
   @state() private snapStock = false;
   @query('qdp-spectrum-chart') private chart?: SpectrumChart;
+  @query('qdp-panel-report') private report?: PanelReport;
+  /** The chart's <svg> and legend, for the chart export and the report. */
+  private chartSvg = () => this.chart?.shadowRoot?.querySelector('svg') ?? null;
+  private chartLegend = () => this.chart?.legendEntries() ?? [];
   private lastPushMs = 0;
   /** The steps to undo and redo. */
   @state() private steps = emptyHistory<Snapshot>();
@@ -587,7 +593,10 @@ export class PanelApp extends LitElement {
               : ''
         }
       </header>
-      <main @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => this.loadProposal(e.detail.panel)}>
+      <main
+        @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => this.loadProposal(e.detail.panel)}
+        @report-show=${(e: CustomEvent<{ print: boolean }>) => this.report?.show(e.detail)}
+      >
         <div
           class="edit"
           ?inert=${!!this.sharedId}
@@ -716,13 +725,23 @@ export class PanelApp extends LitElement {
               .request=${toRequest(p, this.instrument)}
               .blocked=${blocked}
               .localResolved=${c?.resolved ?? []}
-              .chartSvg=${() => this.chart?.shadowRoot?.querySelector('svg') ?? null}
-              .chartLegend=${() => this.chart?.legendEntries() ?? []}
+              .chartSvg=${this.chartSvg}
+              .chartLegend=${this.chartLegend}
               .evaluation=${this.error ? undefined : c?.evaluation}
             ></qdp-panel-actions>
           </section>
         </div>
-      </main>`;
+      </main>
+      <qdp-panel-report
+        .panel=${p}
+        .computed=${this.error ? undefined : c}
+        .materials=${MATERIALS}
+        .detectors=${DETECTORS}
+        instrumentName=${this.instrument?.spec.name ?? ''}
+        sharedId=${this.sharedId}
+        .chartSvg=${this.chartSvg}
+        .chartLegend=${this.chartLegend}
+      ></qdp-panel-report>`;
   }
 }
 

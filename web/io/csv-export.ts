@@ -129,13 +129,7 @@ export function orderingSheetCsv(panel: PanelSpec, resolved: readonly (ResolvedF
     ]);
   });
   rows.push([]);
-  rows.push([
-    'channel',
-    SHEET_COLUMNS.label,
-    SHEET_COLUMNS.filters,
-    SHEET_COLUMNS.excitation,
-    SHEET_COLUMNS.detector,
-  ]);
+  rows.push(['channel', SHEET_COLUMNS.label, SHEET_COLUMNS.filters, SHEET_COLUMNS.excitation, SHEET_COLUMNS.detector]);
   for (const c of panel.channels) {
     rows.push([
       c.id,

@@ -130,13 +130,16 @@ function backgroundText(panel: PanelSpec): string {
   if (!bg) return REPORT_WORDS.off;
   const shape = bg.points
     ? `measured spectrum, ${bg.points.length} points`
-    : `${LIGHT_WORDS.sampleType.toLowerCase()} ${PRESETS.find((p) => p.id === bg.preset)?.name ?? LIGHT_WORDS.genericBackground}`;
+    : `${LIGHT_WORDS.sampleType.toLowerCase()}: ${PRESETS.find((p) => p.id === bg.preset)?.name ?? LIGHT_WORDS.genericBackground}`;
   return `${shape}; ${LIGHT_WORDS.backgroundLevel.toLowerCase()} ${bg.level}`;
 }
 
+/** A number as the editors take it; from 100 000 up in exponent form ("1e10"). */
+const numberText = (v: number) => (Math.abs(v) >= 1e5 ? v.toExponential().replace('e+', 'e') : String(v));
+
 /** A value the user left empty is shown as the documented default it stands for. */
 const orDefault = (value: number | undefined, fallback: number) =>
-  value === undefined ? `${fallback} ${REPORT_WORDS.byDefault}` : String(value);
+  value === undefined ? `${numberText(fallback)} ${REPORT_WORDS.byDefault}` : numberText(value);
 
 /** Each detector used, with the channels read by it when the channels differ: "Ideal detector (QE 1)". */
 function detectorText(panel: PanelSpec, detectors: readonly { id: string; name: string }[]): string {
