@@ -74,8 +74,8 @@ describe('the printable report', () => {
     expect(text).toContain('IARC Group 1');
     expect(text).toContain('local regulations, institutional safety rules and licensed practice');
     expect(text).toContain('bandpass 460/40');
-    expect(text).toMatch(/Excitation lines\s+405 nm \(relative power 1\)/);
-    expect(text).toMatch(/Excluded materials\s+none/);
+    expect(text).toMatch(/Excitation lines:?\s*405 nm \(relative power 1\)/);
+    expect(text).toMatch(/Excluded materials:?\s*none/);
     expect(text).toContain('Demo: six targets');
     expect(await report.locator('.meta a').getAttribute('href')).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/#/);
     await shot(page, 'report-01-preview-1440', report);

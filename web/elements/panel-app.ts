@@ -140,9 +140,6 @@ export class PanelApp extends LitElement {
   @state() private snapStock = false;
   @query('qdp-spectrum-chart') private chart?: SpectrumChart;
   @query('qdp-panel-report') private report?: PanelReport;
-  /** The chart's <svg> and legend, for the chart export and the report. */
-  private chartSvg = () => this.chart?.shadowRoot?.querySelector('svg') ?? null;
-  private chartLegend = () => this.chart?.legendEntries() ?? [];
   private lastPushMs = 0;
   /** The steps to undo and redo. */
   @state() private steps = emptyHistory<Snapshot>();
@@ -725,8 +722,8 @@ export class PanelApp extends LitElement {
               .request=${toRequest(p, this.instrument)}
               .blocked=${blocked}
               .localResolved=${c?.resolved ?? []}
-              .chartSvg=${this.chartSvg}
-              .chartLegend=${this.chartLegend}
+              .chartSvg=${() => this.chart?.shadowRoot?.querySelector('svg') ?? null}
+              .chartLegend=${() => this.chart?.legendEntries() ?? []}
               .evaluation=${this.error ? undefined : c?.evaluation}
             ></qdp-panel-actions>
           </section>
@@ -739,8 +736,7 @@ export class PanelApp extends LitElement {
         .detectors=${DETECTORS}
         instrumentName=${this.instrument?.spec.name ?? ''}
         sharedId=${this.sharedId}
-        .chartSvg=${this.chartSvg}
-        .chartLegend=${this.chartLegend}
+        .chart=${() => this.chart}
       ></qdp-panel-report>`;
   }
 }

@@ -10,7 +10,6 @@ import { LitElement, css, html, nothing } from 'lit';
 import { customElement, property, query, state } from 'lit/decorators.js';
 import type { PanelSpec } from '../../spectra/index';
 import type { CrosstalkView } from '../chart/crosstalk-view';
-import type { LegendEntry } from '../chart/looks';
 import { chartSvgExport } from '../io/chart-export';
 import { SHEET_COLUMNS } from '../io/csv-export';
 import { containsSentence, type MaterialNotesInput } from '../state/hazards';
@@ -25,6 +24,14 @@ import {
 import type { Computed } from '../state/compute';
 import { crosstalkMatrix, MATRIX_WORDS, noiseList, shadeStyles, spilloverMatrix } from './crosstalk-table';
 import { focusRing } from './shared-styles';
+import './spectrum-chart';
+import type { SpectrumChart } from './spectrum-chart';
+
+/**
+ * Narrowest page chart the report copies as it is (px); a narrower one (a phone) is drawn again at the chart's default
+ * width, which the report's copy gets by never being shown (the chart keeps its default width until it is measured).
+ */
+export const REPORT_CHART_MIN_PX = 600;
 
 /** Said in place of the matrices when the page has no figures for the panel as it is. */
 export const NO_FIGURES = 'No figures: the panel as it is cannot be computed (fix the marked input first).';
@@ -59,14 +66,17 @@ export class PanelReport extends LitElement {
   @property() instrumentName = '';
   /** The id of the shared copy shown, or '': the report then links the page's own address. */
   @property() sharedId = '';
-  /** Returns the chart's <svg>. */
-  @property({ attribute: false }) chartSvg: () => SVGSVGElement | null = () => null;
-  /** Returns the chart's legend entries. */
-  @property({ attribute: false }) chartLegend: () => LegendEntry[] = () => [];
+  /** Returns the page's spectra chart. */
+  @property({ attribute: false }) chart: () => SpectrumChart | null | undefined = () => null;
   /** True while the preview is shown on screen. */
   @property({ type: Boolean, reflect: true }) open = false;
 
   @state() private snap?: Snapshot;
+  /** What the report's own full-width copy of the chart draws, while the page's chart is too narrow to print. */
+  @state() private wideCopy?: Pick<
+    SpectrumChart,
+    'curves' | 'passbands' | 'shared' | 'background' | 'excitationNm' | 'yLabel'
+  >;
   @query('h1') private heading?: HTMLHeadingElement;
 
   static override styles = [
@@ -98,7 +108,7 @@ export class PanelReport extends LitElement {
         background: #fff;
         border: 1px solid #ccd;
         box-shadow: 0 1px 6px rgb(0 0 0 / 12%);
-        max-width: 19cm;
+        max-width: 23cm;
         margin: 0 auto;
         padding: 1.2rem;
         font-size: 0.8rem;
@@ -267,21 +277,47 @@ export class PanelReport extends LitElement {
 
   /** While the preview is open, an edit of the panel reads the chart and the link again. */
   protected override willUpdate(changed: Map<PropertyKey, unknown>): void {
-    if (this.open && this.snap && (changed.has('panel') || changed.has('computed'))) this.takeSnapshot();
+    if (this.open && this.snap && (changed.has('panel') || changed.has('computed'))) void this.refresh();
   }
 
-  /** Printing from the browser's menu: the report is drawn afresh unless a preview is open. */
+  /** Printing from the browser's menu: the report is drawn afresh from the page's chart unless a preview is open. */
   private onBeforePrint = () => {
-    if (!this.open) this.takeSnapshot();
+    if (!this.open) this.takeSnapshot(this.chart());
   };
 
+  /**
+   * The chart to copy: the page's own (as the reader set it: hidden layers, range, log scale) when it is at least
+   * REPORT_CHART_MIN_PX wide, else the report's copy of it drawn at its full width, so a phone prints a legible chart.
+   */
+  private async chartSource(): Promise<SpectrumChart | null> {
+    const live = this.chart();
+    if (!live) return null;
+    await live.updateComplete;
+    if (live.getBoundingClientRect().width >= REPORT_CHART_MIN_PX) {
+      this.wideCopy = undefined;
+      return live;
+    }
+    const { curves, passbands, shared, background, excitationNm, yLabel } = live;
+    this.wideCopy = { curves, passbands, shared, background, excitationNm, yLabel };
+    await this.updateComplete;
+    const copy = this.renderRoot.querySelector<SpectrumChart>('.copy qdp-spectrum-chart');
+    await copy?.updateComplete;
+    return copy ?? live;
+  }
+
+  /** Reads the chart (once drawn), the date and the link again. */
+  private async refresh(): Promise<void> {
+    await this.updateComplete;
+    this.takeSnapshot(await this.chartSource());
+  }
+
   /** Reads the chart, the date and the link as they are now. */
-  private takeSnapshot(): void {
-    const svg = this.chartSvg();
+  private takeSnapshot(chart: SpectrumChart | null | undefined): void {
+    const svg = chart?.shadowRoot?.querySelector('svg');
     const title = this.panel?.title || 'Untitled panel';
     this.snap = {
       chart: svg
-        ? inlineChart(chartSvgExport(svg, { title, showTitle: false, legend: this.chartLegend() }).text)
+        ? inlineChart(chartSvgExport(svg, { title, showTitle: false, legend: chart!.legendEntries() }).text)
         : null,
       dateText: new Date().toLocaleDateString(undefined, { dateStyle: 'long' }),
       link: reportLink(location, this.sharedId),
@@ -290,7 +326,7 @@ export class PanelReport extends LitElement {
 
   /** Opens the preview (read from the panel as it is now) and moves to it; with `print`, prints it as well. */
   async show(options: { print?: boolean } = {}): Promise<void> {
-    this.takeSnapshot();
+    await this.refresh();
     this.open = true;
     await this.updateComplete;
     this.heading?.focus();
@@ -396,6 +432,22 @@ export class PanelReport extends LitElement {
     </section>`;
   }
 
+  /** The full-width copy of a narrow page chart, drawn but never shown (only its picture is). */
+  private copyOfChart() {
+    const c = this.wideCopy;
+    if (!c) return nothing;
+    return html`<div class="copy" hidden>
+      <qdp-spectrum-chart
+        .curves=${c.curves}
+        .passbands=${c.passbands}
+        .shared=${c.shared}
+        .background=${c.background}
+        .excitationNm=${c.excitationNm}
+        .yLabel=${c.yLabel}
+      ></qdp-spectrum-chart>
+    </div>`;
+  }
+
   override render() {
     const panel = this.panel;
     const snap = this.snap;
@@ -409,7 +461,7 @@ export class PanelReport extends LitElement {
         <h1 id="report-title" tabindex="-1">${panel.title || 'Untitled panel'}</h1>
         <p class="meta">${snap.dateText}</p>
         <p class="meta link"><a href=${snap.link}>${snap.link}</a></p>
-        ${snap.chart ? html`<section class="chart">${snap.chart}</section>` : nothing}
+        ${snap.chart ? html`<section class="chart">${snap.chart}</section>` : nothing} ${this.copyOfChart()}
         <section>
           <h2>${REPORT_WORDS.probes}</h2>
           ${this.probeTable(panel)}
@@ -424,8 +476,10 @@ export class PanelReport extends LitElement {
           <dl>
             ${settings.map(
               (s) =>
-                html`<dt>${s.term}</dt>
-                  <dd>${s.value}</dd>`,
+                html`<div>
+                  <dt>${s.term}</dt>
+                  <dd>${s.value}</dd>
+                </div>`,
             )}
           </dl>
         </section>
