@@ -84,10 +84,15 @@ describe('the printable report', () => {
     await page.close();
   });
 
-  it('at 390 px the preview fits the phone: the page does not scroll sideways', async () => {
+  it("at 390 px the preview fits the phone, and its chart is drawn at least 600 px wide, not the phone's", async () => {
     const { page, problems } = await openReport(390);
     const report = page.locator('qdp-panel-report article');
+    const viewBox = (await report.locator('.chart svg').getAttribute('viewBox')) ?? '';
+    expect(Number(viewBox.split(' ')[2])).toBeGreaterThanOrEqual(600);
     await report.screenshot({ path: join(SHOT_DIR, 'report-02-preview-whole-390.png') });
+    await shot(page, 'report-02a-preview-top-390', report);
+    await shot(page, 'report-02b-preview-matrices-390', report.locator('section.crosstalk'));
+    await shot(page, 'report-02c-preview-settings-390', report.locator('section.settings'));
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
     expect(problems).toEqual([]);
     await page.close();

@@ -451,7 +451,7 @@ export class PanelReport extends LitElement {
   override render() {
     const panel = this.panel;
     const snap = this.snap;
-    if (!panel || !snap) return nothing;
+    if (!panel || !snap) return this.copyOfChart();
     const settings = reportSettings(panel, { detectors: this.detectors, instrumentName: this.instrumentName });
     return html`<div class="bar">
         <button type="button" @click=${() => window.print()}>Print</button>
