@@ -54,7 +54,7 @@ const visibleEditors = (page: Page) =>
   });
 
 describe('the printable report', () => {
-  it('preview of the demo: chart legend with every probe, both matrices, noise, cadmium caution and settings', async () => {
+  it('demo preview: legend with every probe, both matrices, noise, cadmium caution, settings', async () => {
     const { page, problems } = await openReport(1440);
     const report = page.locator('qdp-panel-report article');
     const legend = (await page.locator('qdp-panel-report .chart svg g.legend').textContent()) ?? '';
@@ -102,11 +102,11 @@ describe('the printable report', () => {
     it(`printed from a ${widthPx} px window: at most 2 pages, the report only, no editor inputs`, async () => {
       const { page, problems } = await openReport(widthPx);
       await page.emulateMedia({ media: 'print' });
+      expect(await visibleEditors(page)).toEqual([]);
       expect(await page.locator('qdp-panel-app main').isVisible()).toBe(false);
       expect(await page.locator('qdp-panel-app header').first().isVisible()).toBe(false);
       expect(await page.locator('qdp-panel-report article').isVisible()).toBe(true);
       expect(await page.locator('qdp-panel-report .bar').isVisible()).toBe(false);
-      expect(await visibleEditors(page)).toEqual([]);
       await page.screenshot({ path: join(SHOT_DIR, `report-03-print-media-${widthPx}.png`), fullPage: true });
       for (const format of ['A4', 'Letter'] as const) {
         const pdf = await page.pdf({ format, printBackground: true });

@@ -43,7 +43,7 @@ function smallPanel(): PanelSpec {
 }
 
 describe('report rows', () => {
-  it("probe rows: label or id, target, core / shell by name, the evaluation's peak, FWHM and QY rounded, abundance", () => {
+  it('probe rows: label or id, target, core / shell by name, resolved peak, FWHM and QY rounded, abundance', () => {
     const resolved = [{ emissionPeakNm: 525.04, fwhmNm: 30.26, quantumYield: 0.5 }, undefined];
     expect(reportProbeRows(smallPanel(), resolved, MATERIALS)).toEqual([
       {
@@ -74,7 +74,7 @@ describe('report rows', () => {
 });
 
 describe('report settings', () => {
-  it('lists lines and powers, background, water Raman, scatter, blocking, shared path, exclusions and detectors', () => {
+  it('lists lines and powers, background, water Raman, scatter, blocking, shared path, exclusions, detectors', () => {
     expect(reportSettings(smallPanel(), { detectors: DETECTORS, instrumentName: 'Confocal 2' })).toEqual([
       { term: 'Instrument profile', value: 'Confocal 2' },
       { term: 'Excitation lines', value: '405 nm (relative power 1); 488 nm (relative power 0.5)' },
@@ -107,7 +107,7 @@ describe('report settings', () => {
 });
 
 describe('report hazards and link', () => {
-  it('one block per core and shell material with its probes; each caution once, then laser and general cautions', () => {
+  it('a block per core and shell material with its probes; each caution once, then laser and general ones', () => {
     const { hazards, cautions } = reportHazards(smallPanel(), MATERIALS);
     expect(hazards.map((h) => [h.name, h.level, h.probes])).toEqual([
       ['CdSe', 'high', ['Green']],

@@ -347,7 +347,9 @@ export class PanelReport extends LitElement {
       <table aria-label=${REPORT_WORDS.probes}>
         <thead>
           <tr>
-            ${[c.label, c.target, `${c.material} / ${c.shell}`].map((h) => html`<th class="text" scope="col">${h}</th>`)}
+            ${[c.label, c.target, `${c.material} / ${c.shell}`].map(
+              (h) => html`<th class="text" scope="col">${h}</th>`,
+            )}
             ${[c.emissionPeak, c.fwhm, c.quantumYield, c.abundance].map((h) => html`<th scope="col">${h}</th>`)}
           </tr>
         </thead>

@@ -128,9 +128,10 @@ function linesText(panel: PanelSpec): string {
 function backgroundText(panel: PanelSpec): string {
   const bg = panel.background;
   if (!bg) return REPORT_WORDS.off;
+  const sampleType = PRESETS.find((p) => p.id === bg.preset)?.name ?? LIGHT_WORDS.genericBackground;
   const shape = bg.points
     ? `measured spectrum, ${bg.points.length} points`
-    : `${LIGHT_WORDS.sampleType.toLowerCase()}: ${PRESETS.find((p) => p.id === bg.preset)?.name ?? LIGHT_WORDS.genericBackground}`;
+    : `${LIGHT_WORDS.sampleType.toLowerCase()}: ${sampleType}`;
   return `${shape}; ${LIGHT_WORDS.backgroundLevel.toLowerCase()} ${bg.level}`;
 }
 
