@@ -124,6 +124,23 @@ describe('the printable report', () => {
     });
   }
 
+  it("printing from the browser's menu without a preview prints the report alone, its chart included", async () => {
+    const page = await browser.context.newPage();
+    await page.goto(app.baseUrl + '/api/v1/health');
+    await page.evaluate(() => localStorage.clear());
+    await page.goto(app.baseUrl + '/');
+    await page.locator('qdp-crosstalk-table p.worst').waitFor();
+    expect(await page.locator('qdp-panel-report article').count()).toBe(0);
+    // What the browser does on Ctrl+P: beforeprint, then the pages are laid out in print media.
+    await page.evaluate(() => window.dispatchEvent(new Event('beforeprint')));
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.locator('qdp-panel-report article').isVisible()).toBe(true);
+    expect(await page.locator('qdp-panel-report .chart svg g.legend').textContent()).toContain('Far-red dot');
+    expect(await page.locator('qdp-panel-app main').isVisible()).toBe(false);
+    expect(pdfPages(await page.pdf({ format: 'A4' }))).toBeLessThanOrEqual(2);
+    await page.close();
+  });
+
   it('the print action opens the report and calls window.print once', async () => {
     const { page } = await openReport(1440);
     await page.locator('qdp-panel-report .bar button', { hasText: 'Close preview' }).click();
