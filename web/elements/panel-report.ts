@@ -252,6 +252,9 @@ export class PanelReport extends LitElement {
           columns: 2;
           column-gap: 0.6cm;
         }
+        .hazards li {
+          break-inside: avoid;
+        }
         .hazards,
         .settings {
           font-size: 7pt;
