@@ -121,7 +121,7 @@ describe('<qdp-panel-actions>', () => {
     expect(el.shadowRoot!.querySelector('p[role="status"][aria-live="polite"]')).not.toBeNull();
   });
 
-  it('Preview report and Print report ask the page for the report (report-show {print}), even while blocked', async () => {
+  it('Preview report and Print report fire report-show {print}, also while share and export are off', async () => {
     const el = await mount(demoPanel(), (a) => (a.blocked = 'a probe is made of an excluded material.'));
     const asked: { print: boolean }[] = [];
     el.addEventListener('report-show', (e) => asked.push((e as CustomEvent<{ print: boolean }>).detail));
