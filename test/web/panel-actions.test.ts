@@ -114,9 +114,20 @@ describe('<qdp-panel-actions>', () => {
       'Panel (JSON)',
       'Chart (SVG)',
       'Chart (PNG)',
+      'Preview report',
+      'Print report',
     ]);
     for (const b of el.shadowRoot!.querySelectorAll('button')) expect(b.type).toBe('button');
     expect(el.shadowRoot!.querySelector('p[role="status"][aria-live="polite"]')).not.toBeNull();
+  });
+
+  it('Preview report and Print report fire report-show {print}, also while share and export are off', async () => {
+    const el = await mount(demoPanel(), (a) => (a.blocked = 'a probe is made of an excluded material.'));
+    const asked: { print: boolean }[] = [];
+    el.addEventListener('report-show', (e) => asked.push((e as CustomEvent<{ print: boolean }>).detail));
+    button(el, 'Preview report').click();
+    button(el, 'Print report').click();
+    expect(asked).toEqual([{ print: false }, { print: true }]);
   });
 
   it("share without a reachable API: buttons off while it tries, then 'Sharing failed: …' and no link", async () => {

@@ -12,6 +12,8 @@ const shadeRules = Array.from({ length: SHADES }, (_, k) => {
   const l = shadeLightness(k);
   return `td.s${k} { background: hsl(212 55% ${l.toFixed(1)}%); color: ${l < 55 ? '#fff' : '#111'}; }`;
 }).join('\n');
+/** The shade ramp's cell rules, for every table that shows these matrices. */
+export const shadeStyles = unsafeCSS(shadeRules);
 const cellClass = (v: number | null, below = false) => `s${below ? 0 : shadeOf(v)}`;
 
 const sig2 = (v: number) => Number(v.toPrecision(2)).toString();
@@ -51,6 +53,85 @@ const SB_HEADER = html`<th scope="col">signal / background</th>`;
 /** A factor written without its × ("41", "3.2"): a condition number, a signal-to-background ratio; or a dash. */
 const bareFactor = (value: number | null | undefined) => times(value ?? null).replace('×', '');
 
+/** The headings and captions of the matrices (the section and the printed report say them alike). */
+export const MATRIX_WORDS = {
+  crosstalk: 'Crosstalk between probes',
+  crosstalkAbout:
+    "Row: whose light; column: the probe whose primary channel it lands in, relative to that probe's own signal there.",
+  noise: 'Unmixing noise',
+  spillover: 'Spillover into each channel',
+  spilloverAbout:
+    'Each probe\'s light in a channel relative to its primary channel (marked ●). "< 0.1 %": below the model\'s ' +
+    'resolution, not a measured zero.',
+} as const;
+
+/** The crosstalk table: rows whose light, columns the probe whose primary channel it lands in. */
+export function crosstalkMatrix(v: CrosstalkView) {
+  return html`<table aria-label="Crosstalk between probes">
+    <thead>
+      <tr>
+        <th scope="col">light from ↓ / into →</th>
+        ${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}
+      </tr>
+    </thead>
+    <tbody>
+      ${v.probes.map(
+        (from, t) =>
+          html`<tr>
+            <th scope="row">${from.label}</th>
+            ${v.probes.map((_, u) => interferenceCell(v, t, u))}
+          </tr>`,
+      )}
+    </tbody>
+  </table>`;
+}
+
+/** The spillover table: each probe's light in each channel relative to its primary channel (marked ●). */
+export function spilloverMatrix(v: CrosstalkView) {
+  const many = v.channels.length > 12;
+  return html`<table class=${many ? 'many' : ''} aria-label="Spillover by channel">
+    <thead>
+      <tr>
+        <th scope="col">channel</th>
+        ${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}${v.signalToBackground ? SB_HEADER : ''}
+      </tr>
+    </thead>
+    <tbody>
+      ${v.channels.map(
+        (c, ci) =>
+          html`<tr>
+            <th scope="row">${c.label}</th>
+            ${v.probes.map((_, p) => {
+              const primary = v.primaryChannel[p] === ci;
+              const below = v.belowResolution[ci]?.[p] ?? false;
+              return html`<td class=${cellClass(v.spillover[ci]?.[p] ?? null, below)}>
+                ${primary ? '● ' : ''}${below ? '< 0.1 %' : formatFraction(v.spillover[ci]?.[p])}
+              </td>`;
+            })}
+            ${v.signalToBackground ? html`<td>${bareFactor(v.signalToBackground[ci])}</td>` : ''}
+          </tr>`,
+      )}
+    </tbody>
+  </table>`;
+}
+
+/** Each target's unmixing noise, one item per probe. */
+export function noiseList(v: CrosstalkView) {
+  return html`<ul>
+    ${v.probes.map(
+      (p, j) =>
+        html`<li>
+          ${p.label}:
+          ${
+            v.noiseAmplification[j] === null
+              ? 'cannot be unmixed from the others with these channels (see warnings).'
+              : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`
+          }<span class="shot">${shotLine(v, j)}</span>
+        </li>`,
+    )}
+  </ul>`;
+}
+
 @customElement('qdp-crosstalk-table')
 export class CrosstalkTable extends LitElement {
   /** The numbers to show; nothing is drawn until the first evaluation. */
@@ -59,7 +140,7 @@ export class CrosstalkTable extends LitElement {
   @property({ type: Boolean }) stale = false;
 
   static override styles = [
-    unsafeCSS(shadeRules),
+    shadeStyles,
     css`
       :host {
         display: block;
@@ -126,7 +207,6 @@ export class CrosstalkTable extends LitElement {
         : html`<p>Add probes and channels to see crosstalk.</p>`;
     }
     const label = (id: string) => v.probes.find((p) => p.id === id)?.label ?? id;
-    const many = v.channels.length > 12;
     return html`
       ${this.stale ? STALE_NOTE : ''}
       <p class="worst">
@@ -137,44 +217,11 @@ export class CrosstalkTable extends LitElement {
             : 'No pair of probes could be compared yet.'
         }
       </p>
-      <h3>Crosstalk between probes</h3>
-      <p>
-        Row: whose light; column: the probe whose primary channel it lands in, relative to that probe's own signal
-        there.
-      </p>
-      <div class="scroll">
-        <table aria-label="Crosstalk between probes">
-          <thead>
-            <tr>
-              <th scope="col">light from ↓ / into →</th>
-              ${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}
-            </tr>
-          </thead>
-          <tbody>
-            ${v.probes.map(
-              (from, t) =>
-                html`<tr>
-                  <th scope="row">${from.label}</th>
-                  ${v.probes.map((_, u) => interferenceCell(v, t, u))}
-                </tr>`,
-            )}
-          </tbody>
-        </table>
-      </div>
-      <h3>Unmixing noise</h3>
-      <ul>
-        ${v.probes.map(
-          (p, j) =>
-            html`<li>
-              ${p.label}:
-              ${
-                v.noiseAmplification[j] === null
-                  ? 'cannot be unmixed from the others with these channels (see warnings).'
-                  : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`
-              }<span class="shot">${shotLine(v, j)}</span>
-            </li>`,
-        )}
-      </ul>
+      <h3>${MATRIX_WORDS.crosstalk}</h3>
+      <p>${MATRIX_WORDS.crosstalkAbout}</p>
+      <div class="scroll">${crosstalkMatrix(v)}</div>
+      <h3>${MATRIX_WORDS.noise}</h3>
+      ${noiseList(v)}
       ${
         v.shotNoise
           ? html`<p class="shot-note">
@@ -201,37 +248,9 @@ export class CrosstalkTable extends LitElement {
             </p>`
           : ''
       }
-      <h3>Spillover into each channel</h3>
-      <p>
-        Each probe's light in a channel relative to its primary channel (marked ●). "&lt; 0.1 %": below the model's
-        resolution, not a measured zero.
-      </p>
-      <div class="scroll">
-        <table class=${many ? 'many' : ''} aria-label="Spillover by channel">
-          <thead>
-            <tr>
-              <th scope="col">channel</th>
-              ${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}${v.signalToBackground ? SB_HEADER : ''}
-            </tr>
-          </thead>
-          <tbody>
-            ${v.channels.map(
-              (c, ci) =>
-                html`<tr>
-                  <th scope="row">${c.label}</th>
-                  ${v.probes.map((_, p) => {
-                    const primary = v.primaryChannel[p] === ci;
-                    const below = v.belowResolution[ci]?.[p] ?? false;
-                    return html`<td class=${cellClass(v.spillover[ci]?.[p] ?? null, below)}>
-                      ${primary ? '● ' : ''}${below ? '< 0.1 %' : formatFraction(v.spillover[ci]?.[p])}
-                    </td>`;
-                  })}
-                  ${v.signalToBackground ? html`<td>${bareFactor(v.signalToBackground[ci])}</td>` : ''}
-                </tr>`,
-            )}
-          </tbody>
-        </table>
-      </div>
+      <h3>${MATRIX_WORDS.spillover}</h3>
+      <p>${MATRIX_WORDS.spilloverAbout}</p>
+      <div class="scroll">${spilloverMatrix(v)}</div>
       ${
         v.warnings.length
           ? html`<h3>Warnings</h3>

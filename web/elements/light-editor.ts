@@ -19,6 +19,7 @@ import {
   type SpectrumPoints,
 } from '../../spectra/index';
 import { messagesBesides } from '../state/error-map';
+import { LIGHT_WORDS } from '../state/light-words';
 import './light-path-editor';
 import './number-field';
 import './spectrum-input';
@@ -87,7 +88,7 @@ export class LightEditor extends LitElement {
       e.detail.value !== undefined && this.edit({ ...p, background: { ...bg, level: e.detail.value } });
     const useModel = () => this.edit({ ...p, background: { level: bg.level } });
     return html`<qdp-number-field
-        label="Background level"
+        label=${LIGHT_WORDS.backgroundLevel}
         .value=${bg.level}
         .error=${this.errors['background.level'] ?? ''}
         @value-change=${level}
@@ -112,7 +113,7 @@ export class LightEditor extends LitElement {
     };
     return html`<div class="row">
       <qdp-number-field
-        label="Scattered excitation light"
+        label=${LIGHT_WORDS.scatter}
         .value=${p.scatterLevel}
         optional
         placeholder=${String(DEFAULT_SCATTER_LEVEL)}
@@ -120,7 +121,7 @@ export class LightEditor extends LitElement {
         @value-change=${set('scatterLevel')}
       ></qdp-number-field>
       <qdp-number-field
-        label="Warn when a channel blocks a line by less than"
+        label=${LIGHT_WORDS.minBlocking}
         unit="OD"
         .value=${p.minBlockingOD}
         optional
@@ -149,11 +150,11 @@ export class LightEditor extends LitElement {
       (l) => `${l.wavelengthNm}\u00a0→\u00a0≈\u00a0${Math.round(ramanPeakNm(l.wavelengthNm))}\u00a0nm`,
     );
     return html`<div class="row">
-        <label><input type="checkbox" .checked=${!!raman} @change=${toggle} /> Water Raman</label>
+        <label><input type="checkbox" .checked=${!!raman} @change=${toggle} /> ${LIGHT_WORDS.waterRaman}</label>
         ${
           raman
             ? html`<qdp-number-field
-                label="Water Raman level"
+                label=${LIGHT_WORDS.waterRamanLevel}
                 .value=${raman.level}
                 .error=${this.errors['waterRaman.level'] ?? ''}
                 @value-change=${level}
@@ -181,9 +182,9 @@ export class LightEditor extends LitElement {
     };
     const error = this.errors['background.preset'];
     return html`<label class="text"
-        >Sample type
+        >${LIGHT_WORDS.sampleType}
         <select @change=${choose}>
-          <option value="" ?selected=${!bg.preset}>generic tissue (default model)</option>
+          <option value="" ?selected=${!bg.preset}>${LIGHT_WORDS.genericBackground}</option>
           ${PRESETS.presets.map(
             (preset) => html`<option value=${preset.id} ?selected=${preset.id === bg.preset}>${preset.name}</option>`,
           )}
@@ -235,7 +236,7 @@ export class LightEditor extends LitElement {
               @value-change=${setLine(i, 'wavelengthNm')}
             ></qdp-number-field>
             <qdp-number-field
-              label="Relative power"
+              label=${LIGHT_WORDS.relativePower}
               .value=${l.powerRel}
               optional
               placeholder="1"

@@ -5,67 +5,23 @@
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
-import { SHELL_MATERIALS, listDyes, type Material, type PanelSpec, type Toxicity } from '../../spectra/index';
+import type { PanelSpec } from '../../spectra/index';
 import { hazardNotes } from './hazard-notes';
-import { containedClasses, offendingProbes, PANEL_EXCLUSIONS, type PanelExclusion } from '../state/exclusions';
+import { offendingProbes, PANEL_EXCLUSIONS, type PanelExclusion } from '../state/exclusions';
+import {
+  containsSentence,
+  GENERAL_CAUTION,
+  LASER_CAUTION,
+  notesEntries,
+  type MaterialNotesInput,
+} from '../state/hazards';
 
-/** What the notes need of each material. */
-export type MaterialNotesInput = Pick<Material, 'id' | 'name' | 'elements' | 'toxicity'>;
-
-/** Shown under every panel: the tool summarises hazards, it does not assess them. */
-export const GENERAL_CAUTION =
-  'These notes summarise published hazards; they are not a safety assessment and no probe here is described as safe. ' +
-  'Handle nanoparticles and their waste as your local regulations, institutional safety rules and licensed practice ' +
-  'require.';
-
-/** The summary when no probe is made with an excludable class. */
-/** "cadmium", "cadmium and lead", "cadmium, lead and arsenic". */
-const wordList = (words: readonly string[]) =>
-  words.length < 2 ? words.join('') : `${words.slice(0, -1).join(', ')} and ${words[words.length - 1]}`;
-
-const NONE_CONTAINED =
-  `No probe in this panel is made with ${PANEL_EXCLUSIONS.slice(0, -1).join(', ')} or ${PANEL_EXCLUSIONS.at(-1)}` +
-  " (by the tool's material list).";
+export type { MaterialNotesInput } from '../state/hazards';
 
 /** Which probes break the exclusions and why, and what that turns off. */
 function blockedText(panel: PanelSpec, offending: Map<string, string>): string {
   const probes = [...offending].map(([id, why]) => `${panel.probes.find((p) => p.id === id)?.label ?? id} ${why}`);
   return `Blocked: ${probes.join('; ')}. Share and export stay off until they are replaced or the choice is changed.`;
-}
-
-/** Excitation sources are usually lasers. */
-export const LASER_CAUTION =
-  "Excitation lasers: follow your institution's laser safety rules (laser class, eyewear, interlocks).";
-
-/** The dye library, read once: a dye probe's notes are its dye's. */
-const DYES = listDyes();
-
-/** One block of notes: a core material, a dye or a shell material, and the probes that use it. */
-interface NotesEntry {
-  key: string;
-  name: string;
-  toxicity: Toxicity | null;
-  probes: string[];
-}
-
-/** The hazard sources of a panel: each core material (each dye for dye probes) and each shell material used. */
-function notesEntries(panel: PanelSpec, materials: readonly MaterialNotesInput[]): NotesEntry[] {
-  const entries = new Map<string, NotesEntry>();
-  const add = (key: string, name: string, toxicity: Toxicity | null, probe: string) => {
-    const entry = entries.get(key) ?? { key, name, toxicity, probes: [] };
-    entry.probes.push(probe);
-    entries.set(key, entry);
-  };
-  for (const p of panel.probes) {
-    const label = p.label ?? p.id;
-    const dye = p.material === 'dye' ? DYES.find((d) => d.id === p.dye) : undefined;
-    const m = materials.find((x) => x.id === p.material);
-    if (dye) add(`dye:${dye.id}`, dye.name, dye.toxicity, label);
-    else add(p.material, m?.name ?? p.material, m?.toxicity ?? null, label);
-    for (const id of new Set((p.shell ?? []).map((l) => l.material)))
-      add(`shell:${id}`, `${SHELL_MATERIALS[id].name} shell`, SHELL_MATERIALS[id].toxicity, label);
-  }
-  return [...entries.values()];
 }
 
 @customElement('qdp-material-notes')
@@ -132,10 +88,9 @@ export class MaterialNotes extends LitElement {
   override render() {
     const panel = this.panel;
     if (!panel) return html``;
-    const contained = containedClasses(panel, this.materials);
     const offending = offendingProbes(panel, this.materials, this.exclude);
     return html`
-      <p class="summary">${contained.length ? `This panel contains ${wordList(contained)}.` : NONE_CONTAINED}</p>
+      <p class="summary">${containsSentence(panel, this.materials)}</p>
       <fieldset>
         <legend>Exclude material classes</legend>
         ${PANEL_EXCLUSIONS.map(

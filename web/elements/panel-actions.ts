@@ -1,6 +1,7 @@
 /**
  * <qdp-panel-actions>: share the panel (stores it through the API and copies the link, with a visible link field as
- * the fallback) and export it: ordering sheet CSV, matrices CSV, panel JSON, chart SVG and PNG.
+ * the fallback) and export it: ordering sheet CSV, matrices CSV, panel JSON, chart SVG and PNG. Its report buttons fire
+ * `report-show` {print} for the page to open the printable report (a preview on screen, or printed at once).
  */
 import { LitElement, css, html } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
@@ -62,6 +63,9 @@ export class PanelActions extends LitElement {
       }
       .msg {
         font-size: 0.9rem;
+      }
+      .report {
+        margin-top: 0.4rem;
       }
     `,
   ];
@@ -130,6 +134,10 @@ export class PanelActions extends LitElement {
     );
   }
 
+  private showReport(print: boolean): void {
+    this.dispatchEvent(new CustomEvent('report-show', { detail: { print }, bubbles: true, composed: true }));
+  }
+
   /** The shared link in a field that selects itself, for copying by hand. */
   private linkField() {
     const selectAll = (e: Event) => (e.target as HTMLInputElement).select();
@@ -150,6 +158,10 @@ export class PanelActions extends LitElement {
         <button type="button" ?disabled=${off} @click=${this.saveJson}>Panel (JSON)</button>
         <button type="button" @click=${() => this.exportImage('svg')}>Chart (SVG)</button>
         <button type="button" @click=${() => this.exportImage('png')}>Chart (PNG)</button>
+      </div>
+      <div class="row report">
+        <button type="button" @click=${() => this.showReport(false)}>Preview report</button>
+        <button type="button" @click=${() => this.showReport(true)}>Print report</button>
       </div>
       ${this.blocked ? html`<p class="msg" role="status">${offNote}</p>` : ''} ${this.link ? this.linkField() : ''}
       <p class="msg" role="status" aria-live="polite">${this.message}</p>`;

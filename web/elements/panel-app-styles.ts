@@ -191,5 +191,18 @@ export const appStyles = [
       color: #8b1a1a;
       font-weight: 600;
     }
+    /* The report preview sits under the page; printed, the report is all there is. */
+    qdp-panel-report {
+      padding: 0 1rem 1rem;
+    }
+    @media print {
+      header,
+      main {
+        display: none;
+      }
+      qdp-panel-report {
+        padding: 0;
+      }
+    }
   `,
 ];

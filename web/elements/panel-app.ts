@@ -64,6 +64,8 @@ import './material-notes';
 import './my-panels';
 import type { MyPanels } from './my-panels';
 import './panel-actions';
+import './panel-report';
+import type { PanelReport } from './panel-report';
 import './probe-list';
 import './spectrum-chart';
 import type { SpectrumChart } from './spectrum-chart';
@@ -174,6 +176,7 @@ export class PanelApp extends LitElement {
   /** Bandpass sizes dragged or typed land on the nearest stock size (kept in the fragment). */
   @state() private snapStock = false;
   @query('qdp-spectrum-chart') private chart?: SpectrumChart;
+  @query('qdp-panel-report') private report?: PanelReport;
   private lastPushMs = 0;
   /** The steps to undo and redo. */
   @state() private steps = emptyHistory<Snapshot>();
@@ -701,6 +704,7 @@ export class PanelApp extends LitElement {
       <main
         class=${`view-${this.shownView}`}
         @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => this.loadProposal(e.detail.panel)}
+        @report-show=${(e: CustomEvent<{ print: boolean }>) => this.report?.show(e.detail)}
       >
         <div
           class="edit"
@@ -853,7 +857,16 @@ export class PanelApp extends LitElement {
             ></qdp-panel-actions>
           </section>
         </div>
-      </main>`;
+      </main>
+      <qdp-panel-report
+        .panel=${p}
+        .computed=${this.error ? undefined : c}
+        .materials=${MATERIALS}
+        .detectors=${DETECTORS}
+        instrumentName=${this.instrument?.spec.name ?? ''}
+        sharedId=${this.sharedId}
+        .chart=${() => this.chart}
+      ></qdp-panel-report>`;
   }
 }
 

@@ -23,6 +23,8 @@ export const EXPORT_LAYOUT = {
 /** What the export adds to the chart: the title and the legend's entries (hidden ones are left out). */
 export interface ChartExportOptions {
   title: string;
+  /** False leaves the title out of the picture (it still names the image): the printed report heads it already. */
+  showTitle?: boolean;
   legend: readonly LegendEntry[];
 }
 
@@ -80,7 +82,8 @@ export function chartSvgExport(svg: SVGSVGElement, options: ChartExportOptions):
   for (const n of [copy, ...copy.querySelectorAll('*')]) {
     for (const a of ['style', 'tabindex', 'font-family', 'role']) n.removeAttribute(a);
   }
-  const plot = el('g', { class: 'chart', transform: `translate(0,${L.titleHeight})` });
+  const titleHeight = options.showTitle === false ? 0 : L.titleHeight;
+  const plot = el('g', { class: 'chart', transform: `translate(0,${titleHeight})` });
   while (copy.firstChild) plot.appendChild(copy.firstChild);
   const title = el('text', { x: L.side, y: L.titleHeight - 10, 'font-size': L.titleSize, 'font-weight': 600 });
   title.setAttribute('fill', '#111');
@@ -89,11 +92,11 @@ export function chartSvgExport(svg: SVGSVGElement, options: ChartExportOptions):
     options.legend.filter((e) => !e.hidden),
     widthPx,
   );
-  const legendTop = L.titleHeight + plotHeightPx + L.legendTop;
+  const legendTop = titleHeight + plotHeightPx + L.legendTop;
   legend.group.setAttribute('transform', `translate(0,${legendTop})`);
   const heightPx = legendTop + legend.heightPx + L.legendTop;
   const paper = el('rect', { x: 0, y: 0, width: widthPx, height: heightPx, fill: '#ffffff' });
-  for (const part of [paper, title, plot, legend.group]) copy.appendChild(part);
+  for (const part of [paper, ...(titleHeight ? [title] : []), plot, legend.group]) copy.appendChild(part);
   stripComments(copy);
   copy.setAttribute('xmlns', SVG_NS);
   copy.setAttribute('width', String(widthPx));

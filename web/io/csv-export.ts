@@ -69,6 +69,21 @@ export function hazardText(probe: Pick<ProbeSpec, 'material' | 'shell'>): string
 const round = (v: number | null | undefined, digits: number) =>
   v === null || v === undefined || !Number.isFinite(v) ? null : Number(v.toFixed(digits));
 
+/** Column headings of the sheet that the printed report's tables use too. */
+export const SHEET_COLUMNS = {
+  label: 'label',
+  target: 'target / conjugate',
+  material: 'material',
+  shell: 'shell',
+  emissionPeak: 'emission peak nm',
+  fwhm: 'FWHM nm',
+  quantumYield: 'quantum yield',
+  abundance: 'relative abundance',
+  filters: 'filters',
+  excitation: 'excitation on',
+  detector: 'detector',
+} as const;
+
 /** The probe columns the tool cannot fill, left blank for the user. */
 export const USER_FILLED_COLUMNS = ['supplier', 'catalogue number', 'amount'] as const;
 
@@ -80,16 +95,16 @@ export function orderingSheetCsv(panel: PanelSpec, resolved: readonly (ResolvedF
   rows.push([]);
   rows.push([
     'probe',
-    'label',
-    'target / conjugate',
-    'material',
-    'shell',
+    SHEET_COLUMNS.label,
+    SHEET_COLUMNS.target,
+    SHEET_COLUMNS.material,
+    SHEET_COLUMNS.shell,
     'core diameter nm',
-    'emission peak nm',
-    'FWHM nm',
+    SHEET_COLUMNS.emissionPeak,
+    SHEET_COLUMNS.fwhm,
     'first exciton nm',
-    'quantum yield',
-    'relative abundance',
+    SHEET_COLUMNS.quantumYield,
+    SHEET_COLUMNS.abundance,
     'spectrum',
     ...USER_FILLED_COLUMNS,
     'hazard',
@@ -114,7 +129,7 @@ export function orderingSheetCsv(panel: PanelSpec, resolved: readonly (ResolvedF
     ]);
   });
   rows.push([]);
-  rows.push(['channel', 'label', 'filters', 'excitation on', 'detector']);
+  rows.push(['channel', SHEET_COLUMNS.label, SHEET_COLUMNS.filters, SHEET_COLUMNS.excitation, SHEET_COLUMNS.detector]);
   for (const c of panel.channels) {
     rows.push([
       c.id,
