@@ -4,6 +4,7 @@ import { differenceCiede2000 } from 'culori';
 import { curveLooks, PROBE_DASHES, PROBE_PALETTE } from '../../web/chart/curve-looks';
 import { overlaps, placePeakLabels, type LabelRequest } from '../../web/chart/peak-labels';
 import { LIMITS } from '../../worker/schemas';
+import { isNearInfrared } from '../../web/chart/nir';
 
 /**
  * CIEDE2000 colour difference (Sharma, Wu & Dalal, "The CIEDE2000 color-difference formula: implementation notes,
@@ -89,5 +90,13 @@ describe('placePeakLabels', () => {
     const placed = placePeakLabels(crowd, area);
     expect(placed.length).toBeLessThan(crowd.length);
     expect(placed.length).toBeGreaterThan(1);
+  });
+});
+
+describe('isNearInfrared', () => {
+  it('marks peaks from 700 nm on, and not 699 nm', () => {
+    expect(isNearInfrared(700)).toBe(true);
+    expect(isNearInfrared(760)).toBe(true);
+    expect(isNearInfrared(699)).toBe(false);
   });
 });

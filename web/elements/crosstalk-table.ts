@@ -22,7 +22,7 @@ function shotLine(v: CrosstalkView, j: number): string {
   const sd = s?.relativeSd[j];
   if (!s || sd === null || sd === undefined) return '';
   const f = s.factor[j];
-  const alone = f === null || f === undefined ? '' : `, ${times(f)} the SD it would have alone`;
+  const alone = f === null || f === undefined ? '' : `, ${gain(f)} the SD it would have alone`;
   const budget = `${s.photons.toLocaleString('en-US')} photons for the brightest target`;
   return ` With shot noise (${budget}): SD ${sig2(sd)} of its signal${alone}.`;
 }
@@ -34,6 +34,13 @@ const STALE_NOTE = html`<p class="stale" role="status">
 
 const times = (v: number | null) =>
   v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`;
+
+/**
+ * A noise gain or factor: two decimals below 10 (so 1.08× is not rounded to the 1.0× of a panel without crosstalk),
+ * whole numbers above.
+ */
+const gain = (v: number | null) =>
+  v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(2) : Math.round(v)}×`;
 
 /** The cell of light from probe t into probe u's channel ("own" on the diagonal). */
 function interferenceCell(v: CrosstalkView, t: number, u: number) {
@@ -170,7 +177,7 @@ export class CrosstalkTable extends LitElement {
               ${
                 v.noiseAmplification[j] === null
                   ? 'cannot be unmixed from the others with these channels (see warnings).'
-                  : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`
+                  : `this target's noise grows about ${gain(v.noiseAmplification[j])} after unmixing.`
               }<span class="shot">${shotLine(v, j)}</span>
             </li>`,
         )}
@@ -178,11 +185,12 @@ export class CrosstalkTable extends LitElement {
       ${
         v.shotNoise
           ? html`<p class="shot-note">
-              The first figure assumes equal noise in every channel whatever its light; the second counts photons: each
-              channel's shot noise grows with all the light it
-              collects${v.shotNoise.withBackground ? ' (background included)' : ''}, so a dim target beside a bright
-              neighbour suffers most. "Alone" is the same target as the only probe, read in its own channel. The photon
-              budget is nominal: the SDs scale as 1/√photons, the factors do not.
+              The first figure assumes equal noise in every channel whatever its light, so light from a much brighter
+              neighbour costs little there (the neighbour's own channel measures it well) and it can stay near 1× where
+              the crosstalk table shows a large percentage. The second counts photons: each channel's shot noise grows
+              with all the light it collects${v.shotNoise.withBackground ? ' (background included)' : ''}, so a dim
+              target beside a bright neighbour suffers most. "Alone" is the same target as the only probe, read in its
+              own channel. The photon budget is nominal: the SDs scale as 1/√photons, the factors do not.
             </p>`
           : ''
       }

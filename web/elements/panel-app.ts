@@ -46,6 +46,7 @@ import {
 import './channel-list';
 import './crosstalk-table';
 import './design-form';
+import './height-toggle';
 import './instrument-maker';
 import './instrument-picker';
 import './light-editor';
@@ -672,17 +673,13 @@ export class PanelApp extends LitElement {
         <div class="results">
           <section aria-labelledby="h-spectra">
             <h2 id="h-spectra">Spectra</h2>
-            <label
-              ><input
-                type="checkbox"
-                .checked=${this.byBrightness}
-                @change=${(e: Event) => {
-                  this.byBrightness = (e.target as HTMLInputElement).checked;
-                  this.apply(p, 'none');
-                }}
-              />
-              Scale curves by expected brightness (otherwise each peaks at 1)</label
-            >
+            <qdp-height-toggle
+              .byBrightness=${this.byBrightness}
+              @heights-change=${(e: CustomEvent<{ byBrightness: boolean }>) => {
+                this.byBrightness = e.detail.byBrightness;
+                this.apply(p, 'none');
+              }}
+            ></qdp-height-toggle>
             <qdp-spectrum-chart
               .curves=${c?.chart.curves ?? []}
               .passbands=${c?.chart.passbands ?? []}
