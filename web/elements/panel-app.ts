@@ -45,13 +45,11 @@ import {
 } from '../state/instrument';
 import './channel-list';
 import './crosstalk-table';
-import './design-form';
 import './height-toggle';
-import './instrument-maker';
+import { loadLaterParts } from './later-parts';
 import './instrument-picker';
 import './light-editor';
 import './material-notes';
-import './panel-actions';
 import './probe-list';
 import './spectrum-chart';
 import type { SpectrumChart } from './spectrum-chart';
@@ -153,6 +151,7 @@ export class PanelApp extends LitElement {
     window.addEventListener('popstate', this.onPopState);
     window.addEventListener('keydown', this.onKeyDown);
     void this.startChecks();
+    void loadLaterParts();
     const shared = SHARED_PATH.exec(location.pathname);
     const profile = /^\/i\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
     if (shared) void this.openShared(shared[1]);
