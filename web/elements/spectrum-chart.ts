@@ -499,6 +499,7 @@ export class SpectrumChart extends LitElement {
           wavelength (nm)
         </text>
         <text
+          class="y-label"
           transform="translate(12,${(TOP + BOTTOM) / 2}) rotate(-90)"
           text-anchor="middle"
           fill="#222"
