@@ -76,7 +76,7 @@ describe('the spectra chart and noise reading on the demo', () => {
     await page.close();
   });
 
-  it('"shape only" sets the emission axis to "emission (peak = 1)"; "expected signal" brings its label back', async () => {
+  it('"shape only" labels the emission axis "emission (peak = 1)"; "expected signal" restores the label', async () => {
     const { page, problems } = await openDemo(390);
     const chart = page.locator('qdp-spectrum-chart');
     const yLabel = () => chart.locator('text.y-label').textContent();
