@@ -55,6 +55,42 @@ describe('conditionNumber and noiseAmplification', () => {
     }
   });
 
+  // Derived by hand, two probes of equal brightness whose light crosses into the other's channel at fraction a
+  // (rows channels, columns probes): M = [[1, a], [a, 1]], ‖mj‖² = 1 + a², MᵀM = [[1 + a², 2a], [2a, 1 + a²]],
+  // det = (1 + a²)² − 4a² = (1 − a²)², so [(MᵀM)⁻¹]jj = (1 + a²)/(1 − a²)² and the gain √[(MᵀM)⁻¹]jj · ‖mj‖ is
+  // (1 + a²)/(1 − a²): 1 without crosstalk, 3.03 at a = 0.71.
+  it('noiseAmplification of M = [[1, a], [a, 1]] (crosstalk a both ways) is (1 + a²)/(1 − a²) for each probe', () => {
+    for (const a of [0, 0.1, 0.5, 0.71, 0.95]) {
+      const gains = noiseAmplification([
+        [1, a],
+        [a, 1],
+      ]);
+      for (const g of gains) expect(g!).toBeCloseTo((1 + a * a) / (1 - a * a), 9);
+    }
+  });
+
+  // Derived by hand, crosstalk one way only: probe 2 puts b of probe 1's own signal into channel 1,
+  // M = [[1, b], [0, 1]] (equal own signals). MᵀM = [[1, b], [b, 1 + b²]], det = 1,
+  // (MᵀM)⁻¹ = [[1 + b², −b], [−b, 1]]; ‖m1‖ = 1 and ‖m2‖ = √(1 + b²), so both gains are √(1 + b²).
+  // A neighbour k times brighter in its own channel is M = [[1, b], [0, k]]: its signature turns towards channel 2
+  // alone and the gains fall to √(1 + b²/k²), close to 1 for k ≫ b.
+  it('noiseAmplification of one-way crosstalk b: √(1 + b²), and √(1 + b²/k²) from a neighbour k times brighter', () => {
+    for (const b of [0.3, 0.71, 1.21]) {
+      for (const g of noiseAmplification([
+        [1, b],
+        [0, 1],
+      ]))
+        expect(g!).toBeCloseTo(Math.sqrt(1 + b * b), 9);
+      for (const k of [10, 70]) {
+        for (const g of noiseAmplification([
+          [1, b],
+          [0, k],
+        ]))
+          expect(g!).toBeCloseTo(Math.sqrt(1 + (b * b) / (k * k)), 9);
+      }
+    }
+  });
+
   // Same closed form far into the ill-conditioned range (κ ≈ 1.4e4 and 1.4e6), where the Gram route is not trusted.
   it('conditionNumber of two nearly parallel unit signatures keeps the closed form √((1+c)/(1−c)) to 1e-6', () => {
     for (const c of [1 - 1e-8, 1 - 1e-12]) {

@@ -78,7 +78,9 @@ describe('<qdp-crosstalk-table>', () => {
     const spill = el.shadowRoot!.querySelector('table[aria-label="Spillover by channel"]')!;
     // spillover[0][1] = 2e-5 is flagged below resolution: shown as "< 0.1 %", not to three digits.
     expect(spill.querySelectorAll('tbody tr')[0].querySelectorAll('td')[1].textContent!.trim()).toBe('< 0.1 %');
-    expect(text).toContain("this target's noise grows about 2.3× after unmixing");
+    expect(text).toContain("this target's noise grows about 2.31× after unmixing");
+    // A gain of 1.04 keeps its second decimal: "1.0×" would read as a panel without crosstalk.
+    expect(text).toContain("this target's noise grows about 1.04× after unmixing");
     expect(text).toContain('Condition number 1.1');
     expect(text).toContain('can reach 5 % if Green dot comes 5 nm redder (Green dot into Orange dot)');
     expect(el.shadowRoot!.querySelector('ul.warnings')!.textContent).toContain('no background-free signal');
@@ -154,7 +156,7 @@ describe('<qdp-crosstalk-table>', () => {
       const shown = Number((sd[1] / a[1]).toPrecision(2));
       expect(lines[1]).toContain(
         `With shot noise (1,000 photons for the brightest target): SD ${shown} of its signal, ` +
-          `${factor[1].toFixed(1)}× the SD it would have alone`,
+          `${factor[1].toFixed(2)}× the SD it would have alone`,
       );
       expect(el.shadowRoot!.querySelector('p.shot-note')!.textContent).toContain('nominal');
     },

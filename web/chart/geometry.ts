@@ -25,6 +25,9 @@ export interface ChartGeometry {
   yEmission: ValueScale;
   yTransmission: ValueScale;
   curvePaths: string[];
+  /** The same curves closed down to the axis, for their soft fill. */
+  curveAreas: string[];
+  /** Each channel's transmission as a line (an outline, not a shaded box) on the transmission axis. */
   passbandPaths: string[];
   /** Lines (not areas) on the transmission axis: the shared light path's parts. */
   sharedPaths: string[];
@@ -88,24 +91,22 @@ export function chartGeometry(
   const curveLine = line<[number, number]>()
     .x((d) => x(d[0]))
     .y((d) => yEmission(d[1]));
-  const sharedLine = line<[number, number]>()
+  const transmissionLine = line<[number, number]>()
     .x((d) => x(d[0]))
     .y((d) => yTransmission(d[1]));
-  const bandArea = area<[number, number]>()
-    .x((d) => x(d[0]))
-    .y0(bottomPx)
-    .y1((d) => yTransmission(d[1]));
-  const bgArea = area<[number, number]>()
+  const curveArea = area<[number, number]>()
     .x((d) => x(d[0]))
     .y0(bottomPx)
     .y1((d) => yEmission(d[1]));
+  const curvePoints = layers.curves.map(along);
   return {
     x,
     yEmission,
     yTransmission,
-    curvePaths: layers.curves.map((c) => curveLine(along(c)) ?? ''),
-    passbandPaths: layers.passbands.map((p) => bandArea(along(p)) ?? ''),
-    sharedPaths: layers.shared.map((s) => sharedLine(along(s)) ?? ''),
-    backgroundPath: layers.background ? (bgArea(along(layers.background)) ?? '') : '',
+    curvePaths: curvePoints.map((points) => curveLine(points) ?? ''),
+    curveAreas: curvePoints.map((points) => curveArea(points) ?? ''),
+    passbandPaths: layers.passbands.map((p) => transmissionLine(along(p)) ?? ''),
+    sharedPaths: layers.shared.map((s) => transmissionLine(along(s)) ?? ''),
+    backgroundPath: layers.background ? (curveArea(along(layers.background)) ?? '') : '',
   };
 }

@@ -4,9 +4,16 @@
  */
 import { formatFraction, type CrosstalkView } from './crosstalk-view';
 
-/** A noise factor as the tables write it ("1.4×", "12×"), or a dash. */
+/** A factor with one decimal below 10 and whole above ("1.4×", "12×"), or a dash. */
 export const times = (v: number | null | undefined): string =>
   v === null || v === undefined || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`;
+
+/**
+ * A noise gain or factor: two decimals below 10 (so 1.08× is not rounded to the 1.0× of a panel without crosstalk),
+ * whole numbers above.
+ */
+export const gain = (v: number | null | undefined): string =>
+  v === null || v === undefined || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(2) : Math.round(v)}×`;
 
 /** "Worst pair: A adds 12 % of B's own signal in B's channel.", or why there is none. */
 export function worstPairText(v: CrosstalkView): string {
@@ -29,5 +36,5 @@ export function noisiestText(v: CrosstalkView): string {
   if (lost >= 0) return `Noisiest after unmixing: ${v.probes[lost].label}, which the channels cannot separate.`;
   let k = 0;
   for (let i = 1; i < gains.length; i++) if ((gains[i] as number) > (gains[k] as number)) k = i;
-  return `Noisiest after unmixing: ${v.probes[k].label} (noise ${times(gains[k])} what it would be alone).`;
+  return `Noisiest after unmixing: ${v.probes[k].label} (noise ${gain(gains[k])} what it would be alone).`;
 }

@@ -3,6 +3,7 @@
  * and a one-hue lightness ramp (readable in greyscale and by colour-blind users), the worst pair in words, each
  * target's unmixing noise gain, the condition number, the ±5 nm lot-shift sensitivity and the warnings.
  */
+import { gain, times } from '../chart/verdict';
 import { LitElement, css, html, unsafeCSS } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
 import { formatFraction, shadeLightness, shadeOf, SHADES, type CrosstalkView } from '../chart/crosstalk-view';
@@ -24,7 +25,7 @@ function shotLine(v: CrosstalkView, j: number): string {
   const sd = s?.relativeSd[j];
   if (!s || sd === null || sd === undefined) return '';
   const f = s.factor[j];
-  const alone = f === null || f === undefined ? '' : `, ${times(f)} the SD it would have alone`;
+  const alone = f === null || f === undefined ? '' : `, ${gain(f)} the SD it would have alone`;
   const budget = `${s.photons.toLocaleString('en-US')} photons for the brightest target`;
   return ` With shot noise (${budget}): SD ${sig2(sd)} of its signal${alone}.`;
 }
@@ -33,9 +34,6 @@ function shotLine(v: CrosstalkView, j: number): string {
 const STALE_NOTE = html`<p class="stale" role="status">
   These numbers are from the last valid panel; fix the marked field to update them.
 </p>`;
-
-const times = (v: number | null) =>
-  v === null || !Number.isFinite(v) ? '—' : `${v < 10 ? v.toFixed(1) : Math.round(v)}×`;
 
 /** The cell of light from probe t into probe u's channel ("own" on the diagonal). */
 function interferenceCell(v: CrosstalkView, t: number, u: number) {
@@ -125,7 +123,7 @@ export function noiseList(v: CrosstalkView) {
           ${
             v.noiseAmplification[j] === null
               ? 'cannot be unmixed from the others with these channels (see warnings).'
-              : `this target's noise grows about ${times(v.noiseAmplification[j])} after unmixing.`
+              : `this target's noise grows about ${gain(v.noiseAmplification[j])} after unmixing.`
           }<span class="shot">${shotLine(v, j)}</span>
         </li>`,
     )}
@@ -225,11 +223,12 @@ export class CrosstalkTable extends LitElement {
       ${
         v.shotNoise
           ? html`<p class="shot-note">
-              The first figure assumes equal noise in every channel whatever its light; the second counts photons: each
-              channel's shot noise grows with all the light it
-              collects${v.shotNoise.withBackground ? ' (background included)' : ''}, so a dim target beside a bright
-              neighbour suffers most. "Alone" is the same target as the only probe, read in its own channel. The photon
-              budget is nominal: the SDs scale as 1/√photons, the factors do not.
+              The first figure assumes equal noise in every channel whatever its light, so light from a much brighter
+              neighbour costs little there (the neighbour's own channel measures it well) and it can stay near 1× where
+              the crosstalk table shows a large percentage. The second counts photons: each channel's shot noise grows
+              with all the light it collects${v.shotNoise.withBackground ? ' (background included)' : ''}, so a dim
+              target beside a bright neighbour suffers most. "Alone" is the same target as the only probe, read in its
+              own channel. The photon budget is nominal: the SDs scale as 1/√photons, the factors do not.
             </p>`
           : ''
       }

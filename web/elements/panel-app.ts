@@ -55,16 +55,14 @@ import {
 } from '../state/saved-panels';
 import './channel-list';
 import './crosstalk-table';
-import './design-form';
-import './instrument-maker';
+import './height-toggle';
+import { loadLaterParts } from './later-parts';
 import './instrument-picker';
 import './key-verdict';
 import './light-editor';
 import './material-notes';
 import './my-panels';
 import type { MyPanels } from './my-panels';
-import './panel-actions';
-import './panel-report';
 import type { PanelReport } from './panel-report';
 import './probe-list';
 import './spectrum-chart';
@@ -203,6 +201,7 @@ export class PanelApp extends LitElement {
     window.addEventListener('pagehide', this.onPageHide);
     this.saver.afterWrite = () => void this.myPanels?.reload();
     void this.startChecks();
+    void loadLaterParts();
     const shared = SHARED_PATH.exec(location.pathname);
     const profile = /^\/i\/([A-Za-z0-9_-]+)$/.exec(location.pathname);
     if (shared) void this.openShared(shared[1]);
@@ -807,17 +806,13 @@ export class PanelApp extends LitElement {
           <section aria-labelledby="h-spectra">
             <h2 id="h-spectra">Spectra</h2>
             <qdp-key-verdict .view=${c?.crosstalk} ?stale=${!!this.error}></qdp-key-verdict>
-            <label
-              ><input
-                type="checkbox"
-                .checked=${this.byBrightness}
-                @change=${(e: Event) => {
-                  this.byBrightness = (e.target as HTMLInputElement).checked;
-                  this.apply(p, 'none');
-                }}
-              />
-              Scale curves by expected brightness (otherwise each peaks at 1)</label
-            >
+            <qdp-height-toggle
+              .byBrightness=${this.byBrightness}
+              @heights-change=${(e: CustomEvent<{ byBrightness: boolean }>) => {
+                this.byBrightness = e.detail.byBrightness;
+                this.apply(p, 'none');
+              }}
+            ></qdp-height-toggle>
             <qdp-spectrum-chart
               .curves=${c?.chart.curves ?? []}
               .passbands=${c?.chart.passbands ?? []}

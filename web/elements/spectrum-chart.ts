@@ -1,38 +1,68 @@
 /**
- * <qdp-spectrum-chart>: every probe's emission in its wavelength colour, channel passbands shaded, the shared light
- * path as its own lines, excitation lines marked, sample background filled, filter edges draggable, and a readout of
- * every value under the pointer. The reader picks a linear or log scale and a range (following the panel by default),
- * and hides or shows each layer; those choices are kept by layer id across recomputations of the panel.
+ * <qdp-spectrum-chart>: every probe's emission as a soft filled area under an outline whose (colour, dash) pair is
+ * given out in order of peak (curve-looks.ts) and named at its peak; each channel as a window in the detection strip
+ * under the plot, with its transmission as a thin tinted line; the shared light path as its own lines, excitation
+ * lines marked, the sample background filled, the near-infrared stretch tinted, filter edges draggable from the strip,
+ * and a readout of every value under the pointer. The reader picks a linear or log scale and a range (following the
+ * panel by default), and hides or shows each layer; those choices are kept by layer id across recomputations.
  */
 import { LitElement, css, html, svg, unsafeCSS, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { axisBottom, axisLeft, axisRight } from 'd3-axis';
-import { select } from 'd3-selection';
 import { chartGeometry, MARGIN, type ChartGeometry } from '../chart/geometry';
 import type { SampledSpectrum } from '../../spectra/index';
 import type { ChartCurve, ChartHandle, ChartPassband, ChartSharedPath, EdgeDragDetail } from '../chart/types';
-import { isNearInfrared, wavelengthToCss } from '../chart/color';
+import { isNearInfrared, NIR_START_NM } from '../chart/nir';
+import { curveLooks, type CurveLook } from '../chart/curve-looks';
+import { axisTicks, type AxisTick } from '../chart/axis-ticks';
+import { detectionWindows, laneCount, MAX_LANES, type DetectionWindow } from '../chart/detection-strip';
+import { estimateTextWidthPx, placePeakLabels, type LabelRequest } from '../chart/peak-labels';
 import { WidthController } from '../chart/resize-controller';
 import { chartReadout } from '../chart/readout';
 import { autoRangeNm } from '../chart/auto-range';
-import { BACKGROUND_LOOK, BAND_LOOK, CHART_FONT_FAMILY, layerKey, SHARED_LOOK, type LegendEntry } from '../chart/looks';
+import {
+  BACKGROUND_LOOK,
+  CHANNEL_LOOK,
+  CHART_FONT_FAMILY,
+  CURVE_LOOK,
+  EXCITATION_LOOK,
+  layerKey,
+  NIR_LOOK,
+  SHARED_LOOK,
+  type LegendEntry,
+} from '../chart/looks';
 import './chart-controls';
 import './chart-legend';
 
-const HEIGHT_PX = 300;
-/** Top and bottom of the plot area, px. */
+/** Top and bottom of the plot area, px (the detection strip and the wavelength axis follow below it). */
 const TOP = MARGIN.top;
-const BOTTOM = HEIGHT_PX - MARGIN.bottom;
+const BOTTOM = 250;
+/** The detection strip: gap above it and height of one lane, px. */
+const STRIP_GAP_PX = 6;
+const LANE_PX = 17;
+/** Font sizes of the chart's small text, px. */
+const LABEL_FONT_PX = 10;
+/** Least room between two windows in one lane, px, and room kept for the grips inside a window (our conventions). */
+const STRIP_GAP_BETWEEN_PX = 6;
+const GRIP_ROOM_PX = 2;
+
+/** The chart's height with `lanes` lanes in the strip, px: the plot, the strip, then the wavelength axis. */
+const heightWithLanesPx = (lanes: number) => BOTTOM + STRIP_GAP_PX + lanes * LANE_PX + MARGIN.bottom;
+
+// One class per lane count sets the svg's height: the page's CSP (style-src 'self') blocks style attributes.
+const laneHeightRules = Array.from(
+  { length: MAX_LANES },
+  (_, k) => `svg.lanes-${k + 1} { height: ${heightWithLanesPx(k + 1)}px; }`,
+).join('\n');
 
 /** The note that explains the legend's NIR mark. */
 const NIR_NOTE = html`<p class="readout">
-  NIR: near-infrared emission (700 nm and beyond) is nearly invisible to the eye, so it is drawn as a dashed dark-grey
-  line rather than in a colour.
+  NIR: near-infrared emission (${NIR_START_NM} nm and beyond) is nearly invisible to the eye; the tinted stretch of the
+  axis marks it, and its curves' colours are labels like every other curve's, not the colour of the light.
 </p>`;
 
 /** Said once under the legend when the panel has a shared emission path. */
 const SHARED_NOTE = html`<p class="readout">
-  Each channel's shading already includes the shared emission path; its own line shows which cuts come from it.
+  Each channel's line already includes the shared emission path; its own line shows which cuts come from it.
 </p>`;
 
 /** What a handle's slider is called after its channel's name. */
@@ -62,6 +92,10 @@ export class SpectrumChart extends LitElement {
   /** The range shown, nm. */
   private domainNm: [number, number] = [380, 800];
   private geometry?: ChartGeometry;
+  /** Each probe's (colour, dash) by id, given out over every curve, hidden or not, so hiding one changes no other. */
+  private looks = new Map<string, CurveLook>();
+  /** The shown channels' windows in the detection strip. */
+  private windows: DetectionWindow[] = [];
   private readonly width = new WidthController(this, 800);
   private drag?: ChartHandle;
 
@@ -72,11 +106,11 @@ export class SpectrumChart extends LitElement {
     svg {
       display: block;
       width: 100%;
-      height: ${HEIGHT_PX}px;
       touch-action: none;
       font-size: 11px;
       font-family: ${unsafeCSS(CHART_FONT_FAMILY)};
     }
+    ${unsafeCSS(laneHeightRules)}
     .handle {
       cursor: ew-resize;
     }
@@ -85,9 +119,8 @@ export class SpectrumChart extends LitElement {
       outline: 3px solid #1a56db;
       outline-offset: 1px;
     }
-    .handle:focus-visible rect {
+    .handle:focus-visible rect.grip {
       fill: #1a56db;
-      fill-opacity: 0.25;
     }
     .readout {
       min-height: 2.6em;
@@ -111,7 +144,25 @@ export class SpectrumChart extends LitElement {
     };
   }
 
+  /** The look of a probe's curve (the first palette entry for an id not seen yet). */
+  private lookOf(id: string): CurveLook {
+    return this.looks.get(id) ?? curveLooks([0])[0];
+  }
+
+  /** Top of the wavelength axis, below the detection strip, px. */
+  private get axisTopPx(): number {
+    return BOTTOM + STRIP_GAP_PX + laneCount(this.windows) * LANE_PX;
+  }
+
+  private get heightPx(): number {
+    return heightWithLanesPx(laneCount(this.windows));
+  }
+
   protected override willUpdate(changed: PropertyValues<this>): void {
+    if (changed.has('curves')) {
+      const looks = curveLooks(this.curves.map((c) => c.peakNm));
+      this.looks = new Map(this.curves.map((c, i) => [c.id, looks[i]]));
+    }
     // Paths are rebuilt only when the data, the view or the size changed, not on every pointer move.
     const w = this.width.widthPx;
     const dataChanged = ['curves', 'passbands', 'shared', 'background', 'excitationNm'].some((k) =>
@@ -128,23 +179,14 @@ export class SpectrumChart extends LitElement {
         shared: v.shared.map((p) => p.transmission),
         background: v.background,
       };
-      this.geometry = chartGeometry(layers, this.domainNm, w, HEIGHT_PX, this.log);
+      this.geometry = chartGeometry(layers, this.domainNm, w, BOTTOM + MARGIN.bottom, this.log);
+      const nmPerPx = (this.domainNm[1] - this.domainNm[0]) / Math.max(1, this.plotRightPx(w) - MARGIN.left);
+      this.windows = detectionWindows(v.passbands, STRIP_GAP_BETWEEN_PX * nmPerPx);
     }
   }
 
   private plotRightPx(w: number): number {
     return Math.max(MARGIN.left + 10, w - MARGIN.right);
-  }
-
-  protected override updated(): void {
-    const g = this.geometry!;
-    const root = this.renderRoot;
-    const narrow = this.width.widthPx < 500;
-    select(root.querySelector('g.x-axis') as SVGGElement).call(axisBottom(g.x).ticks(narrow ? 5 : 10));
-    select(root.querySelector('g.y-axis') as SVGGElement).call(axisLeft(g.yEmission).ticks(5, '~g'));
-    select(root.querySelector('g.t-axis') as SVGGElement).call(
-      axisRight(g.yTransmission).ticks(5, this.log ? '~%' : '.0%'),
-    );
   }
 
   private pointerNm(e: PointerEvent): number {
@@ -200,14 +242,49 @@ export class SpectrumChart extends LitElement {
     );
   }
 
-  /** Each channel's passband, shaded, and its name where names fit. */
-  private passbandLayer(g: ChartGeometry, passbands: ChartPassband[], labelBands: boolean) {
+  /** The near-infrared stretch of the plot, tinted and marked, when the range reaches it. */
+  private nirLayer(g: ChartGeometry) {
+    if (this.domainNm[1] <= NIR_START_NM) return '';
+    const x0 = g.x(Math.max(NIR_START_NM, this.domainNm[0]));
+    const x1 = this.plotRightPx(this.width.widthPx);
+    return svg`<rect class="nir" x=${x0} y=${TOP} width=${x1 - x0} height=${BOTTOM - TOP} fill=${NIR_LOOK.fill}></rect>
+      <text x=${x1 - 4} y=${BOTTOM - 4} text-anchor="end" fill=${NIR_LOOK.text} font-size=${LABEL_FONT_PX}>NIR</text>`;
+  }
+
+  /** Light horizontal rules at the emission axis's labelled ticks. */
+  private gridLayer(ticks: AxisTick[]) {
+    const right = this.plotRightPx(this.width.widthPx);
+    return ticks
+      .filter((t) => t.label !== '')
+      .map((t) => svg`<line class="grid" x1=${MARGIN.left} x2=${right} y1=${t.px} y2=${t.px} stroke="#e6e9ef"></line>`);
+  }
+
+  /** Each channel's transmission, a thin tinted line on the transmission axis. */
+  private passbandLayer(g: ChartGeometry, passbands: ChartPassband[]) {
     return passbands.map(
-      (p, i) => svg`<path class="passband" data-channel=${p.id} d=${g.passbandPaths[i]} fill=${BAND_LOOK.fill}
-          fill-opacity=${BAND_LOOK.fillOpacity} stroke=${BAND_LOOK.stroke} stroke-width="1"
-          stroke-dasharray=${BAND_LOOK.dash}></path>
-        ${labelBands ? this.bandName(g, p) : ''}`,
+      (p, i) => svg`<path class="passband" data-channel=${p.id} d=${g.passbandPaths[i]} fill="none"
+        stroke=${CHANNEL_LOOK.stroke} stroke-opacity=${CHANNEL_LOOK.lineOpacity} stroke-width="1.2"></path>`,
     );
+  }
+
+  /** The detection strip: each shown channel's window in its lane, named where the name fits. */
+  private stripLayer(g: ChartGeometry) {
+    const laneTop = (lane: number) => BOTTOM + STRIP_GAP_PX + lane * LANE_PX;
+    return this.windows.map((win) => {
+      const x0 = g.x(Math.max(win.loNm, this.domainNm[0]));
+      const x1 = g.x(Math.min(win.hiNm, this.domainNm[1]));
+      if (!(x1 > x0)) return '';
+      const fits = estimateTextWidthPx(win.label, LABEL_FONT_PX) + 2 * GRIP_ROOM_PX <= x1 - x0;
+      return svg`<g class="window" data-channel=${win.id}>
+        <rect x=${x0} y=${laneTop(win.lane) + 1} width=${x1 - x0} height=${LANE_PX - 3} rx="4"
+          fill=${CHANNEL_LOOK.fill} fill-opacity=${CHANNEL_LOOK.fillOpacity} stroke=${CHANNEL_LOOK.stroke}></rect>
+        ${
+          fits
+            ? svg`<text x=${(x0 + x1) / 2} y=${laneTop(win.lane) + LANE_PX - 5} text-anchor="middle"
+          fill=${CHANNEL_LOOK.text} font-size=${LABEL_FONT_PX}>${win.label}</text>`
+            : ''
+        }</g>`;
+    });
   }
 
   /** Each part of the shared light path, a line on the transmission axis. */
@@ -219,14 +296,6 @@ export class SpectrumChart extends LitElement {
     });
   }
 
-  /** A channel's name above the middle of its editable edges (none without edges: a measured table). */
-  private bandName(g: ChartGeometry, p: ChartPassband) {
-    if (!p.handles.length) return '';
-    const middleNm = (p.handles[0].wavelengthNm + p.handles[p.handles.length - 1].wavelengthNm) / 2;
-    return svg`<text x=${g.x(middleNm)} y=${TOP + 10} text-anchor="middle" fill="#3b4252" font-size="10"
-      >${p.label}</text>`;
-  }
-
   /** The sample background, filled, when it is on. */
   private backgroundLayer(g: ChartGeometry, background: SampledSpectrum | undefined) {
     if (!background) return '';
@@ -234,22 +303,44 @@ export class SpectrumChart extends LitElement {
       fill-opacity=${BACKGROUND_LOOK.fillOpacity} stroke=${BACKGROUND_LOOK.stroke} stroke-width="1"></path>`;
   }
 
-  /** Each excitation line in its own colour, labelled. */
+  /** Each excitation line: a thin dark line from a small marker on the top of the plot, labelled. */
   private excitationLayer(g: ChartGeometry) {
-    return this.excitationNm.map(
-      (nm) => svg`<line class="excitation" x1=${g.x(nm)} x2=${g.x(nm)} y1=${TOP} y2=${BOTTOM}
-          stroke=${wavelengthToCss(nm)} stroke-width="2.5"></line>
-        <text x=${g.x(nm) + 3} y=${BOTTOM - 4} fill="#3b2b6b" font-size="10">ex ${nm}</text>`,
-    );
+    const L = EXCITATION_LOOK;
+    return this.excitationNm.map((nm) => {
+      const x = g.x(nm);
+      return svg`<line class="excitation" x1=${x} x2=${x} y1=${TOP} y2=${BOTTOM} stroke=${L.stroke}
+          stroke-width=${L.width}></line>
+        <path d="M${x - 4},${TOP} L${x + 4},${TOP} L${x},${TOP + 6} Z" fill=${L.stroke}></path>
+        <text x=${x + 3} y=${BOTTOM - 4} fill=${L.text} font-size=${LABEL_FONT_PX}>ex ${nm}</text>`;
+    });
   }
 
-  /** Each probe's emission over a dark halo, in its wavelength colour (near-infrared: dashed grey). */
+  /** Each probe's emission: a soft fill, a white underline that parts crossing curves, and its outline. */
   private curveLayer(g: ChartGeometry, curves: ChartCurve[]) {
-    return curves.map(
-      (c, i) => svg`<path d=${g.curvePaths[i]} fill="none" stroke="#222" stroke-opacity="0.45"
-          stroke-width="3.5"></path>
-        <path class="curve" data-probe=${c.id} d=${g.curvePaths[i]} fill="none" stroke=${wavelengthToCss(c.peakNm)}
-          stroke-width="2" stroke-dasharray=${isNearInfrared(c.peakNm) ? '6 3' : 'none'}></path>`,
+    return curves.map((c, i) => {
+      const look = this.lookOf(c.id);
+      return svg`<path d=${g.curveAreas[i]} fill=${look.stroke} fill-opacity=${CURVE_LOOK.fillOpacity}></path>
+        <path d=${g.curvePaths[i]} fill="none" stroke="#fff" stroke-width=${CURVE_LOOK.width + 2}></path>
+        <path class="curve" data-probe=${c.id} d=${g.curvePaths[i]} fill="none" stroke=${look.stroke}
+          stroke-width=${CURVE_LOOK.width} stroke-dasharray=${look.dash}></path>`;
+    });
+  }
+
+  /** Each shown curve's name at its peak, where the greedy placement finds room. */
+  private peakLabelLayer(g: ChartGeometry, curves: ChartCurve[]) {
+    const requests: LabelRequest[] = [];
+    for (const c of curves) {
+      if (!(c.peakNm >= this.domainNm[0] && c.peakNm <= this.domainNm[1])) continue;
+      const value = c.spectrum.values[Math.round((c.peakNm - c.spectrum.startNm) / c.spectrum.stepNm)];
+      if (!(value > 0)) continue;
+      const widthPx = estimateTextWidthPx(c.label, LABEL_FONT_PX) + 4;
+      requests.push({ id: c.id, text: c.label, peakXPx: g.x(c.peakNm), peakYPx: g.yEmission(value), widthPx });
+    }
+    const area = { left: MARGIN.left, right: this.plotRightPx(this.width.widthPx), top: TOP, bottom: BOTTOM };
+    return placePeakLabels(requests, { ...area, lineHeightPx: LABEL_FONT_PX + 3 }).map(
+      (l) => svg`<text class="peak-label" data-probe=${l.id} x=${l.xPx} y=${l.yPx - 2} text-anchor="middle"
+        fill=${this.lookOf(l.id).stroke} font-size=${LABEL_FONT_PX} font-weight="600" stroke="#fff"
+        stroke-width="3" paint-order="stroke">${l.text}</text>`,
     );
   }
 
@@ -257,25 +348,50 @@ export class SpectrumChart extends LitElement {
   private hoverLine(g: ChartGeometry) {
     if (this.hoverNm === null) return '';
     const x = g.x(this.hoverNm);
-    return svg`<line class="hover" x1=${x} x2=${x} y1=${TOP} y2=${BOTTOM} stroke="#111" stroke-width="1"
+    return svg`<line class="hover" x1=${x} x2=${x} y1=${TOP} y2=${this.axisTopPx} stroke="#111" stroke-width="1"
       stroke-dasharray="2 2"></line>`;
   }
 
-  /** The draggable filter edges: sliders for the keyboard, a wide invisible grip for the pointer. */
+  /**
+   * The draggable filter edges: sliders for the keyboard; for the pointer, a grip on the window's edge in the strip,
+   * a faint guide up through the plot and a wide invisible hit area over both.
+   */
   private handleLayer(g: ChartGeometry, passbands: ChartPassband[]) {
     const [minNm, maxNm] = this.domainNm;
+    const laneOf = new Map(this.windows.map((w) => [w.id, w.lane]));
     return passbands.flatMap((p) =>
       p.handles.map((h) => {
         const x = g.x(h.wavelengthNm);
+        const gripTop = BOTTOM + STRIP_GAP_PX + (laneOf.get(p.id) ?? 0) * LANE_PX;
         return svg`<g class="handle" tabindex="0" role="slider" aria-label=${`${p.label}: ${EDGE_NAMES[h.edge]}`}
             aria-valuenow=${h.wavelengthNm} aria-valuemin=${minNm} aria-valuemax=${maxNm} data-channel=${p.id}
             data-edge=${h.edge} @pointerdown=${(e: PointerEvent) => this.startDrag(e, h)}
             @keydown=${(e: KeyboardEvent) => this.handleKey(e, h)}>
-          <rect x=${x - 7} y=${TOP} width="14" height=${BOTTOM - TOP} fill="#000" fill-opacity="0"></rect>
-          <line x1=${x} x2=${x} y1=${TOP} y2=${BOTTOM} stroke="#5b6475" stroke-width="1.5"></line>
-          <rect x=${x - 4} y=${TOP + 16} width="8" height="16" rx="2" fill="#5b6475"></rect></g>`;
+          <rect x=${x - 7} y=${TOP} width="14" height=${gripTop + LANE_PX - TOP} fill="#000" fill-opacity="0"></rect>
+          <line x1=${x} x2=${x} y1=${TOP} y2=${gripTop} stroke=${CHANNEL_LOOK.stroke} stroke-opacity="0.35"
+            stroke-dasharray="1 3"></line>
+          <rect class="grip" x=${x - 2} y=${gripTop} width="4" height=${LANE_PX - 1} rx="1.5"
+            fill=${CHANNEL_LOOK.stroke}></rect></g>`;
       }),
     );
+  }
+
+  /** The wavelength axis under the strip, and the tick labels of both value axes, drawn from plain tick data. */
+  private axesLayer(g: ChartGeometry, emissionTicks: AxisTick[]) {
+    const w = this.width.widthPx;
+    const xTicks = axisTicks(g.x, w < 500 ? 5 : 10);
+    const tTicks = axisTicks(g.yTransmission, 5, this.log ? '~%' : '.0%');
+    const tick = (t: AxisTick, x: number, y: number, anchor: string) =>
+      svg`<g class="tick"><text x=${x} y=${y} text-anchor=${anchor} fill="#333" font-size=${LABEL_FONT_PX}
+        >${t.label}</text></g>`;
+    return svg`<g class="x-axis" transform="translate(0,${this.axisTopPx})">
+        <line x1=${MARGIN.left} x2=${this.plotRightPx(w)} stroke="#333"></line>
+        ${xTicks.map(
+          (t) => svg`<g class="tick" transform="translate(${t.px},0)"><line y2="5" stroke="#333"></line>
+            <text y="16" text-anchor="middle" fill="#333" font-size=${LABEL_FONT_PX}>${t.label}</text></g>`,
+        )}</g>
+      <g class="y-axis">${emissionTicks.map((t) => tick(t, MARGIN.left - 5, t.px + 3, 'end'))}</g>
+      <g class="t-axis">${tTicks.map((t) => tick(t, this.plotRightPx(w) + 5, t.px + 3, 'start'))}</g>`;
   }
 
   /** The legend's lines: every layer, shown or hidden (the exported chart draws the shown ones). */
@@ -286,8 +402,8 @@ export class SpectrumChart extends LitElement {
         key: layerKey.probe(c.id),
         label: `${c.label} (${Math.round(c.peakNm)} nm)`,
         mark: 'curve' as const,
-        stroke: wavelengthToCss(c.peakNm),
-        dash: isNearInfrared(c.peakNm) ? '6 3' : 'none',
+        stroke: this.lookOf(c.id).stroke,
+        dash: this.lookOf(c.id).dash,
         nir: isNearInfrared(c.peakNm),
         hidden: hidden(layerKey.probe(c.id)),
       })),
@@ -295,8 +411,8 @@ export class SpectrumChart extends LitElement {
         key: layerKey.channel(p.id),
         label: `${p.label} channel`,
         mark: 'band' as const,
-        stroke: BAND_LOOK.stroke,
-        dash: BAND_LOOK.dash,
+        stroke: CHANNEL_LOOK.stroke,
+        dash: 'none',
         hidden: hidden(layerKey.channel(p.id)),
       })),
       ...this.shared.map((s) => ({
@@ -337,9 +453,10 @@ export class SpectrumChart extends LitElement {
   override render() {
     const g = this.geometry!;
     const w = this.width.widthPx;
+    const h = this.heightPx;
     const v = this.visible;
-    // Band names only where they fit: up to 8 bands on a chart at least 600 px wide.
-    const labelBands = v.passbands.length <= 8 && w >= 600;
+    const right = this.plotRightPx(w);
+    const emissionTicks = axisTicks(g.yEmission, 5, '~g');
     return html`
       <qdp-chart-controls
         .rangeNm=${this.domainNm}
@@ -348,45 +465,41 @@ export class SpectrumChart extends LitElement {
         @chart-view=${this.onView}
       ></qdp-chart-controls>
       <svg
+        class="lanes-${laneCount(this.windows)}"
         xmlns="http://www.w3.org/2000/svg"
-        viewBox="0 0 ${w} ${HEIGHT_PX}"
+        viewBox="0 0 ${w} ${h}"
         width=${w}
-        height=${HEIGHT_PX}
+        height=${h}
         role="group"
-        aria-label="Emission spectra, passbands and excitation lines"
+        aria-label="Emission spectra, detection windows and excitation lines"
         @pointermove=${this.onMove}
         @pointerup=${this.onUp}
         @pointercancel=${this.onUp}
         @pointerleave=${() => !this.drag && (this.hoverNm = null)}
       >
-        <rect x="0" y="0" width=${w} height=${HEIGHT_PX} fill="#ffffff"></rect>
+        <rect x="0" y="0" width=${w} height=${h} fill="#ffffff"></rect>
         <rect
           class="plot"
           tabindex="0"
           aria-label="Plot area: arrow keys move the readout"
           x=${MARGIN.left}
           y=${TOP}
-          width=${Math.max(0, w - MARGIN.left - MARGIN.right)}
+          width=${Math.max(0, right - MARGIN.left)}
           height=${BOTTOM - TOP}
-          fill="#fafafa"
+          fill="#ffffff"
           @keydown=${this.plotKey}
         ></rect>
-        ${this.passbandLayer(g, v.passbands, labelBands)} ${this.backgroundLayer(g, v.background)}
-        ${this.sharedLayer(g, v.shared)} ${this.excitationLayer(g)} ${this.curveLayer(g, v.curves)} ${this.hoverLine(g)}
-        ${this.handleLayer(g, v.passbands)}
-        <g class="x-axis" transform="translate(0,${BOTTOM})"></g>
-        <g class="y-axis" transform="translate(${MARGIN.left},0)"></g>
-        <g class="t-axis" transform="translate(${w - MARGIN.right},0)"></g>
-        <text
-          x=${(MARGIN.left + w - MARGIN.right) / 2}
-          y=${HEIGHT_PX - 6}
-          text-anchor="middle"
-          fill="#222"
-          font-size="11"
-        >
+        ${this.nirLayer(g)} ${this.gridLayer(emissionTicks)} ${this.backgroundLayer(g, v.background)}
+        ${this.passbandLayer(g, v.passbands)} ${this.sharedLayer(g, v.shared)} ${this.excitationLayer(g)}
+        ${this.curveLayer(g, v.curves)} ${this.peakLabelLayer(g, v.curves)}
+        <line x1=${MARGIN.left} x2=${right} y1=${BOTTOM} y2=${BOTTOM} stroke="#9aa3b2"></line>
+        ${this.stripLayer(g)} ${this.hoverLine(g)} ${this.handleLayer(g, v.passbands)}
+        ${this.axesLayer(g, emissionTicks)}
+        <text x=${(MARGIN.left + right) / 2} y=${h - 6} text-anchor="middle" fill="#222" font-size="11">
           wavelength (nm)
         </text>
         <text
+          class="y-label"
           transform="translate(12,${(TOP + BOTTOM) / 2}) rotate(-90)"
           text-anchor="middle"
           fill="#222"
