@@ -202,6 +202,16 @@ export class SpectrumChart extends LitElement {
     this.dispatchEvent(new CustomEvent('edge-drag', { detail, bubbles: true, composed: true }));
   }
 
+  /** A tap or press reads the chart where it lands (a finger has no hover); a handle's own press starts its drag. */
+  private onDown = (e: PointerEvent) => {
+    if (!this.drag) this.hoverNm = this.pointerNm(e);
+  };
+
+  /** A mouse leaving clears the reading; a lifted finger leaves it in place to be read. */
+  private onLeave = (e: PointerEvent) => {
+    if (!this.drag && e.pointerType === 'mouse') this.hoverNm = null;
+  };
+
   private onMove = (e: PointerEvent) => {
     const nm = this.pointerNm(e);
     this.hoverNm = nm;
@@ -472,10 +482,11 @@ export class SpectrumChart extends LitElement {
         height=${h}
         role="group"
         aria-label="Emission spectra, detection windows and excitation lines"
+        @pointerdown=${this.onDown}
         @pointermove=${this.onMove}
         @pointerup=${this.onUp}
         @pointercancel=${this.onUp}
-        @pointerleave=${() => !this.drag && (this.hoverNm = null)}
+        @pointerleave=${this.onLeave}
       >
         <rect x="0" y="0" width=${w} height=${h} fill="#ffffff"></rect>
         <rect
