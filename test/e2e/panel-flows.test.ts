@@ -74,7 +74,7 @@ describe('the panel page', () => {
     await expect.poll(() => spillover(page)).not.toBe(before);
     await shot(page, '02-typed-width-1280', page.locator('qdp-spectrum-chart svg'));
     const typed = await spillover(page);
-    // The chart's upper edge of the 605/40 band sits at 625 nm (the red band's lower edge is at 635): drag it 40 px
+    // The chart's upper edge of the 620/40 band sits at 640 nm (the red band's lower edge is at 650): drag it 40 px
     // right.
     const handle = page.locator('qdp-spectrum-chart g.handle[data-channel="c4"][data-edge="high"] line');
     await handle.scrollIntoViewIfNeeded();
@@ -124,7 +124,7 @@ describe('the panel page', () => {
       await peak.locator('input').fill('2500');
       await expect.poll(() => peak.locator('[role="alert"]').count()).toBe(1);
       const shown = await peak.locator('[role="alert"]').innerText();
-      expect(shown).toBe("Probe 'Green dot': an emission peak of 2500 nm is outside 200–2000 nm");
+      expect(shown).toBe("Probe 'Envelope dot': an emission peak of 2500 nm is outside 200–2000 nm");
       expect(await peak.locator('input').inputValue()).toBe('2500');
       expect(await spillover(page)).toBe(before);
       // The panel the page holds (its link carries it) sent to the API as it is: the API refuses the same field with
@@ -224,7 +224,7 @@ describe('the panel page', () => {
   );
 
   it(
-    "a free design with target 1 locked to the demo's Orange dot (p4) proposes p4 for target 1, and the loaded " +
+    "a free design with target 1 locked to the demo's Actin dot (p4) proposes p4 for target 1, and the loaded " +
       'panel keeps it',
     async () => {
       const { page, problems } = await open(app.baseUrl + '/');
@@ -235,8 +235,8 @@ describe('the panel page', () => {
       const summary = page.locator('qdp-proposal-summary');
       await summary.waitFor({ timeout: 60_000 });
       const row = summary.locator('table.assignment tr', { hasText: 'target 1' });
-      // The Orange dot as the demo writes it: CdSe, peak 605 nm, a 0.9 nm ZnS shell.
-      expect(await row.innerText()).toMatch(/emission peak 605 nm[\s\S]*shell ZnS 0\.9 nm/);
+      // The Actin dot as the demo writes it: CdSe, peak 620 nm, a 0.9 nm ZnS shell.
+      expect(await row.innerText()).toMatch(/emission peak 620 nm[\s\S]*shell ZnS 0\.9 nm/);
       await shot(page, '10-design-locked-probe-1280', summary);
       await summary.getByRole('button', { name: 'Load this proposal' }).click();
       await expect.poll(() => titleInput(page).inputValue()).toBe('Proposed panel (free design)');
@@ -247,7 +247,7 @@ describe('the panel page', () => {
     },
   );
 
-  it('exporting the ordering sheet gives a CSV with every probe and channels as "bandpass 605/20"', async () => {
+  it('exporting the ordering sheet gives a CSV with every probe and channels as "bandpass 620/20"', async () => {
     const { page } = await open(app.baseUrl + '/');
     const [download] = await Promise.all([
       page.waitForEvent('download'),
@@ -255,13 +255,13 @@ describe('the panel page', () => {
     ]);
     const csv = readFileSync((await download.path())!, 'utf8');
     expect(download.suggestedFilename()).toMatch(/\.csv$/);
-    expect(csv).toContain('bandpass 605/20');
-    expect(csv).toContain('longpass 690');
+    expect(csv).toContain('bandpass 620/20');
+    expect(csv).toContain('longpass 700');
     for (const target of ['nuclear envelope marker', 'mitochondrial marker', 'membrane marker'])
       expect(csv).toContain(target);
     const cdseRow = csv.split('\r\n').find((r) => r.startsWith('p4,'))!;
-    // material, shell, core diameter (a number), emission peak 605.
-    expect(cdseRow).toMatch(/^p4,Orange dot,cytoskeleton marker,cdse,ZnS [\d.]+ nm,\d+(\.\d+)?,605,/);
+    // material, shell, core diameter (a number), emission peak 620.
+    expect(cdseRow).toMatch(/^p4,Actin dot,cytoskeleton marker,cdse,ZnS [\d.]+ nm,\d+(\.\d+)?,620,/);
     await page.close();
   });
 
@@ -550,8 +550,8 @@ describe('undo, redo and labels that follow their filters', () => {
   const legend = (page: Page) => page.locator('qdp-chart-legend ul').innerText();
 
   it(
-    'typing 615 as the orange centre changes the spillover; Undo brings back the first numbers and 605 in the ' +
-      'field, Redo brings back 615 and its numbers',
+    'typing 630 as the orange centre changes the spillover; Undo brings back the first numbers and 620 in the ' +
+      'field, Redo brings back 630 and its numbers',
     async () => {
       const { page, problems } = await open(app.baseUrl + '/');
       const undo = page.getByRole('button', { name: 'Undo', exact: true });
@@ -559,17 +559,17 @@ describe('undo, redo and labels that follow their filters', () => {
       expect(await undo.isDisabled()).toBe(true);
       const first = await spillover(page);
       await orangeCentre(page).fill('');
-      await orangeCentre(page).pressSequentially('615');
+      await orangeCentre(page).pressSequentially('630');
       await expect.poll(() => spillover(page)).not.toBe(first);
       const typed = await spillover(page);
       await page.setViewportSize({ width: 1440, height: 900 });
       await shot(page, '20-undo-redo-1440', header(page));
       await undo.click();
-      await expect.poll(() => orangeCentre(page).inputValue()).toBe('605');
+      await expect.poll(() => orangeCentre(page).inputValue()).toBe('620');
       await expect.poll(() => spillover(page)).toBe(first);
       expect(await undo.isDisabled()).toBe(true);
       await redo.click();
-      await expect.poll(() => orangeCentre(page).inputValue()).toBe('615');
+      await expect.poll(() => orangeCentre(page).inputValue()).toBe('630');
       await expect.poll(() => spillover(page)).toBe(typed);
       await undo.click();
       await page.setViewportSize({ width: 390, height: 844 });
@@ -582,7 +582,7 @@ describe('undo, redo and labels that follow their filters', () => {
   );
 
   it(
-    'a channel whose label was emptied reads "615/20 channel" in the chart legend after its centre is typed as 615, ' +
+    'a channel whose label was emptied reads "630/20 channel" in the chart legend after its centre is typed as 630, ' +
       'while the channel named "Red" keeps its name through its own centre edit',
     async () => {
       const { page, problems } = await open(app.baseUrl + '/');
@@ -591,10 +591,10 @@ describe('undo, redo and labels that follow their filters', () => {
       await label.press('Tab');
       await expect.poll(() => legend(page)).toContain('c4 channel');
       await orangeCentre(page).fill('');
-      await orangeCentre(page).pressSequentially('615');
-      await expect.poll(() => legend(page)).toContain('615/20 channel');
+      await orangeCentre(page).pressSequentially('630');
+      await expect.poll(() => legend(page)).toContain('630/20 channel');
       expect(await legend(page)).not.toContain('c4 channel');
-      expect(await label.inputValue()).toBe('615/20');
+      expect(await label.inputValue()).toBe('630/20');
       // The named "Red" channel next to it keeps its name through its own edit.
       const redCentre = page
         .locator('qdp-channel-card')

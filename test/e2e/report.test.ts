@@ -58,7 +58,7 @@ describe('the printable report', () => {
     const { page, problems } = await openReport(1440);
     const report = page.locator('qdp-panel-report article');
     const legend = (await page.locator('qdp-panel-report .chart svg g.legend').textContent()) ?? '';
-    for (const probe of ['Counterstain', 'Green dot', 'Yellow dot', 'Orange dot', 'Red dot', 'Far-red dot']) {
+    for (const probe of ['Nuclear stain', 'Envelope dot', 'Mito dot', 'Actin dot', 'Vessel dot', 'Membrane dot']) {
       expect(legend).toContain(probe);
     }
     expect(await page.locator('qdp-panel-report .chart svg .handle').count()).toBe(0);
@@ -69,7 +69,7 @@ describe('the printable report', () => {
     expect(await spillover.innerText()).toContain('●');
     const text = await report.innerText();
     expect(text).toContain('Unmixing noise');
-    expect(text).toMatch(/Counterstain: this target's noise grows about \d/);
+    expect(text).toMatch(/Nuclear stain: this target's noise grows about \d/);
     expect(text).toContain('This panel contains cadmium.');
     expect(text).toContain('IARC Group 1');
     expect(text).toContain('local regulations, institutional safety rules and licensed practice');
@@ -135,7 +135,7 @@ describe('the printable report', () => {
     await page.evaluate(() => window.dispatchEvent(new Event('beforeprint')));
     await page.emulateMedia({ media: 'print' });
     expect(await page.locator('qdp-panel-report article').isVisible()).toBe(true);
-    expect(await page.locator('qdp-panel-report .chart svg g.legend').textContent()).toContain('Far-red dot');
+    expect(await page.locator('qdp-panel-report .chart svg g.legend').textContent()).toContain('Membrane dot');
     expect(await page.locator('qdp-panel-app main').isVisible()).toBe(false);
     expect(pdfPages(await page.pdf({ format: 'A4' }))).toBeLessThanOrEqual(2);
     await page.close();

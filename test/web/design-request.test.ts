@@ -9,19 +9,19 @@ import { designParts, designRequest, type DesignInput } from '../../web/state/de
 const WIDEFIELD = EXAMPLE_INSTRUMENTS[0];
 const ID = 'A'.repeat(24);
 
-/** The demo panel's orange dot p4 and green channel c2 as written in demo-panel.ts. */
+/** The demo panel's Actin dot p4 and green channel c2 as written in demo-panel.ts. */
 const P4 = {
   id: 'p4',
-  label: 'Orange dot',
+  label: 'Actin dot',
   material: 'cdse',
-  emissionPeakNm: 605,
+  emissionPeakNm: 620,
   shell: [{ material: 'zns', thicknessNm: 0.9 }],
   sizeDispersionPct: 5,
   quantumYield: 0.5,
   target: 'cytoskeleton marker',
   abundance: 1,
 };
-const C2 = { id: 'c2', label: 'Green', filters: [{ type: 'bandpass', centerNm: 525, widthNm: 20 }], excitationNm: 405 };
+const C2 = { id: 'c2', label: 'Green', filters: [{ type: 'bandpass', centerNm: 515, widthNm: 20 }], excitationNm: 405 };
 
 function input(extra: Partial<DesignInput> = {}): DesignInput {
   return {

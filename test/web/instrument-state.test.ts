@@ -44,8 +44,8 @@ describe('profileFromPanel', () => {
     const profile = profileFromPanel(demoPanel(), { name: 'Our widefield', description: '', powersMw: [12] });
     expect(Instrument.safeParse(profile).success).toBe(true);
     expect(profile.lasers).toEqual([{ wavelengthNm: 405, powerMw: 12 }]);
-    expect(profile.filters?.map((f) => f.name)).toEqual(['460/40', '525/20', '570/20', '605/20', '645/20', '690 LP']);
-    expect(profile.channels?.[3]).toEqual({ id: 'c4', label: 'Orange', filters: ['605/20'], excitationNm: 405 });
+    expect(profile.filters?.map((f) => f.name)).toEqual(['460/40', '515/20', '580/20', '620/20', '660/20', '700 LP']);
+    expect(profile.channels?.[3]).toEqual({ id: 'c4', label: 'Orange', filters: ['620/20'], excitationNm: 405 });
   });
 
   it('a profile made from a panel and switched back onto the panel gives the same figures (powers as set)', () => {

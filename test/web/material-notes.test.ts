@@ -33,7 +33,7 @@ describe('<qdp-material-notes>', () => {
 
   it('blocks the cadmium probes when cadmium is excluded and fires exclude-change from the checkbox', async () => {
     const el = await mount(['cadmium']);
-    expect(el.shadowRoot!.querySelector('.blocked')!.textContent).toContain('Green dot contains cadmium');
+    expect(el.shadowRoot!.querySelector('.blocked')!.textContent).toContain('Envelope dot contains cadmium');
     const seen: string[][] = [];
     el.addEventListener('exclude-change', (e) => seen.push((e as CustomEvent<{ exclude: string[] }>).detail.exclude));
     const boxes = el.shadowRoot!.querySelectorAll<HTMLInputElement>('input[type="checkbox"]');

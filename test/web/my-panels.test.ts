@@ -101,6 +101,6 @@ describe('<qdp-my-panels>', () => {
     const compare = el.shadowRoot!.querySelector('qdp-panel-compare')!;
     await compare.updateComplete;
     const diff = [...compare.shadowRoot!.querySelectorAll('ul.diff li')].map((li) => li.textContent?.trim());
-    expect(diff).toContain("Channel 'Red': bandpass 645/20 → 640/30");
+    expect(diff).toContain("Channel 'Red': bandpass 660/20 → 640/30");
   });
 });

@@ -4,6 +4,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { page, userEvent } from 'vitest/browser';
 import '../../web/elements/panel-app';
 import { decodeFragment, encodeFragment } from '../../web/state/fragment';
+import { openRow } from './helpers/page-rows';
 
 type Host = HTMLElement & { updateComplete: Promise<unknown> };
 
@@ -30,16 +31,6 @@ async function openPage(): Promise<Host> {
     })
     .toBe(6);
   return app;
-}
-
-/** Shows the editors (a narrow window shows the results first) and opens row `index` of `list`'s compact rows. */
-async function openRow(app: Host, list: 'qdp-probe-list' | 'qdp-channel-list', index: number): Promise<Host> {
-  const views = app.shadowRoot!.querySelector('nav.views') as HTMLElement;
-  if (getComputedStyle(views).display !== 'none')
-    await userEvent.click(page.elementLocator(views).getByRole('button', { name: 'Edit the panel' }));
-  const row = inner(app, list).shadowRoot!.querySelectorAll('qdp-editor-row')[index] as Host & { open: boolean };
-  if (!row.open) await userEvent.click(page.elementLocator(row).getByRole('button').first());
-  return row;
 }
 
 /** The emission-peak field of probe `index` (its <qdp-number-field>), to read what it shows. */
@@ -77,7 +68,7 @@ describe('<qdp-panel-app>', () => {
   });
 
   it(
-    "typing 990 nm as the green CdSe dot's peak keeps 990 in the field and the link, " +
+    "typing 990 nm as the CdSe Envelope dot's peak keeps 990 in the field and the link, " +
       "shows the size law's reach under the field and leaves the last numbers, marked stale",
     async () => {
       const app = await openPage();
@@ -87,7 +78,7 @@ describe('<qdp-panel-app>', () => {
       // The model's refusal names the peaks the CdSe size law reaches (two wavelengths in nm).
       await expect
         .poll(() => fieldMessage(field))
-        .toMatch(/^Probe 'Green dot': an emission peak of 990 nm is out of reach .+ \d{3}–\d{3} nm/);
+        .toMatch(/^Probe 'Envelope dot': an emission peak of 990 nm is out of reach .+ \d{3}–\d{3} nm/);
       expect(field.shadowRoot!.querySelector('input')!.value).toBe('990');
       expect(headerAlert(app)).toBe(`Not updated: ${fieldMessage(field)}`);
       expect(staleNote(app)).not.toBeNull();
@@ -105,7 +96,7 @@ describe('<qdp-panel-app>', () => {
       const before = crosstalkTable(app).textContent;
       const field = peakField(app, 1);
       await typePeak(app, 1, '2500');
-      const words = "Probe 'Green dot': an emission peak of 2500 nm is outside 200–2000 nm";
+      const words = "Probe 'Envelope dot': an emission peak of 2500 nm is outside 200–2000 nm";
       await expect.poll(() => fieldMessage(field)).toBe(words);
       expect(field.shadowRoot!.querySelector('input')!.value).toBe('2500');
       expect(headerAlert(app)).toBe(`Not updated: ${words}`);

@@ -58,7 +58,7 @@ describe('<qdp-panel-report>', () => {
     expect(page.querySelectorAll('.handle').length).toBeGreaterThan(0);
     expect(svg.querySelectorAll('.handle').length).toBe(0);
     const legend = svg.querySelector('g.legend')!.textContent!;
-    for (const probe of ['Counterstain', 'Green dot', 'Yellow dot', 'Orange dot', 'Red dot', 'Far-red dot']) {
+    for (const probe of ['Nuclear stain', 'Envelope dot', 'Mito dot', 'Actin dot', 'Vessel dot', 'Membrane dot']) {
       expect(legend).toContain(probe);
     }
     // The report heads the chart itself: the picture has no title of its own.
@@ -73,7 +73,7 @@ describe('<qdp-panel-report>', () => {
     const probes = root.querySelector('table[aria-label="Probes"]')!;
     expect(probes.querySelectorAll('tbody tr').length).toBe(6);
     expect(probes.querySelector('tbody tr')!.textContent).toContain('nuclear DNA counterstain');
-    expect(root.querySelector('table[aria-label="Detection channels"]')!.textContent).toContain('bandpass 605/20');
+    expect(root.querySelector('table[aria-label="Detection channels"]')!.textContent).toContain('bandpass 620/20');
     expect(root.querySelectorAll('table[aria-label="Crosstalk between probes"] tbody tr').length).toBe(6);
     expect(root.querySelectorAll('table[aria-label="Spillover by channel"] tbody tr').length).toBe(6);
     expect(root.querySelectorAll('section.noise li').length).toBe(6);

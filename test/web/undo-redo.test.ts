@@ -4,6 +4,7 @@ import { afterEach, describe, expect, it } from 'vitest';
 import { page, userEvent } from 'vitest/browser';
 import '../../web/elements/panel-app';
 import { decodeFragment } from '../../web/state/fragment';
+import { openRow } from './helpers/page-rows';
 
 type Host = HTMLElement & { updateComplete: Promise<unknown> };
 
@@ -30,7 +31,7 @@ const headerButton = (app: Host, name: string) =>
   [...app.shadowRoot!.querySelectorAll('header button')].find((b) => b.textContent!.trim() === name) as
     HTMLButtonElement | undefined;
 
-/** The demo's orange channel (605/20, labelled "Orange"), its card. */
+/** The demo's orange channel (620/20, labelled "Orange"), its card. */
 const orangeCard = (app: Host) =>
   inner(app, 'qdp-channel-list').shadowRoot!.querySelectorAll('qdp-channel-card')[3] as Host;
 
@@ -45,6 +46,7 @@ const linkedCentre = () =>
 
 /** Empties the orange channel's centre and types `keys` into it key by key. */
 async function typeOrangeCentre(app: Host, keys: string): Promise<void> {
+  await openRow(app, 'qdp-channel-list', 3);
   const input = page.elementLocator(orangeCard(app)).getByLabelText('Centre (nm)');
   await userEvent.clear(input);
   await userEvent.type(input, keys);
@@ -58,44 +60,44 @@ describe('undo and redo on the page', () => {
   });
 
   it(
-    'typing 615 as the orange centre is one step: one click on Undo brings back 605 in the field and the link, ' +
-      'and Redo brings 615 back',
+    'typing 630 as the orange centre is one step: one click on Undo brings back 620 in the field and the link, ' +
+      'and Redo brings 630 back',
     async () => {
       const app = await openPage();
-      await typeOrangeCentre(app, '615');
-      await expect.poll(() => linkedCentre()).toBe(615);
+      await typeOrangeCentre(app, '630');
+      await expect.poll(() => linkedCentre()).toBe(630);
       await userEvent.click(headerButton(app, 'Undo')!);
-      await expect.poll(() => orangeCentreText(app)).toBe('605');
-      expect(linkedCentre()).toBe(605);
+      await expect.poll(() => orangeCentreText(app)).toBe('620');
+      expect(linkedCentre()).toBe(620);
       expect(headerButton(app, 'Undo')!.disabled).toBe(true);
       expect(headerButton(app, 'Redo')!.disabled).toBe(false);
       await userEvent.click(headerButton(app, 'Redo')!);
-      await expect.poll(() => orangeCentreText(app)).toBe('615');
-      expect(linkedCentre()).toBe(615);
+      await expect.poll(() => orangeCentreText(app)).toBe('630');
+      expect(linkedCentre()).toBe(630);
       expect(headerButton(app, 'Redo')!.disabled).toBe(true);
     },
   );
 
   it('Ctrl+Z outside a text box undoes the typed centre and Ctrl+Shift+Z redoes it', async () => {
     const app = await openPage();
-    await typeOrangeCentre(app, '615');
-    await expect.poll(() => linkedCentre()).toBe(615);
+    await typeOrangeCentre(app, '630');
+    await expect.poll(() => linkedCentre()).toBe(630);
     await userEvent.click(headerButton(app, 'Undo')!);
     await userEvent.click(headerButton(app, 'Redo')!);
     // Focus is on the Redo button now, not in a text box.
     await userEvent.keyboard('{Control>}z{/Control}');
-    await expect.poll(() => orangeCentreText(app)).toBe('605');
+    await expect.poll(() => orangeCentreText(app)).toBe('620');
     await userEvent.keyboard('{Control>}{Shift>}z{/Shift}{/Control}');
-    await expect.poll(() => orangeCentreText(app)).toBe('615');
+    await expect.poll(() => orangeCentreText(app)).toBe('630');
   });
 
   it('Cmd+Z (macOS) outside a text box undoes the typed centre', async () => {
     const app = await openPage();
-    await typeOrangeCentre(app, '615');
-    await expect.poll(() => linkedCentre()).toBe(615);
+    await typeOrangeCentre(app, '630');
+    await expect.poll(() => linkedCentre()).toBe(630);
     headerButton(app, 'Undo')!.focus();
     await userEvent.keyboard('{Meta>}z{/Meta}');
-    await expect.poll(() => orangeCentreText(app)).toBe('605');
+    await expect.poll(() => orangeCentreText(app)).toBe('620');
   });
 
   it('Ctrl+Z inside the panel title box is left to the box: after "New panel" the panel stays new', async () => {
