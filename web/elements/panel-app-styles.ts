@@ -141,6 +141,16 @@ export const appStyles = [
         padding-right: 0.2rem;
       }
     }
+    /* On a phone the verdict and the plot come first, the curve-height choice after them. */
+    @media (max-width: 640px) {
+      section[aria-labelledby='h-spectra'] {
+        display: flex;
+        flex-direction: column;
+      }
+      section[aria-labelledby='h-spectra'] qdp-height-toggle {
+        order: 1;
+      }
+    }
     details.fold > summary {
       cursor: pointer;
       display: flex;

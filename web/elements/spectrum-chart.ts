@@ -101,7 +101,14 @@ export class SpectrumChart extends LitElement {
 
   static override styles = css`
     :host {
-      display: block;
+      display: flex;
+      flex-direction: column;
+    }
+    /* On a phone the plot comes first and its controls follow it. */
+    @media (max-width: 640px) {
+      qdp-chart-controls {
+        order: 1;
+      }
     }
     svg {
       display: block;
