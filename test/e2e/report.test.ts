@@ -66,7 +66,7 @@ describe('the printable report', () => {
     expect(await crosstalk.locator('tbody tr').count()).toBe(6);
     const spillover = report.locator('table[aria-label="Spillover by channel"]');
     expect(await spillover.locator('tbody tr').count()).toBe(6);
-    expect(await spillover.innerText()).toContain('●');
+    expect(await spillover.innerText()).toContain('primary');
     const text = await report.innerText();
     expect(text).toContain('Unmixing noise');
     expect(text).toMatch(/Nuclear stain: this target's noise grows about \d/);

@@ -59,8 +59,8 @@ export const MATRIX_WORDS = {
   noise: 'Unmixing noise',
   spillover: 'Spillover into each channel',
   spilloverAbout:
-    'Each probe\'s light in a channel relative to its primary channel (marked ●). "< 0.1 %": below the model\'s ' +
-    'resolution, not a measured zero.',
+    'Each probe\'s light in a channel relative to its primary channel (the cell that reads "primary"). ' +
+    '"< 0.1 %": below the model\'s resolution, not a measured zero.',
 } as const;
 
 /** The crosstalk table: rows whose light, columns the probe whose primary channel it lands in. */
@@ -84,7 +84,7 @@ export function crosstalkMatrix(v: CrosstalkView) {
   </table>`;
 }
 
-/** The spillover table: each probe's light in each channel relative to its primary channel (marked ●). */
+/** The spillover table: each probe's light in each channel relative to its primary channel (reading "primary"). */
 export function spilloverMatrix(v: CrosstalkView) {
   const many = v.channels.length > 12;
   return html`<table class=${many ? 'many' : ''} aria-label="Spillover by channel">
@@ -102,8 +102,9 @@ export function spilloverMatrix(v: CrosstalkView) {
             ${v.probes.map((_, p) => {
               const primary = v.primaryChannel[p] === ci;
               const below = v.belowResolution[ci]?.[p] ?? false;
+              if (primary) return html`<td class="self">primary</td>`;
               return html`<td class=${cellClass(v.spillover[ci]?.[p] ?? null, below)}>
-                ${primary ? '● ' : ''}${below ? '< 0.1 %' : formatFraction(v.spillover[ci]?.[p])}
+                ${below ? '< 0.1 %' : formatFraction(v.spillover[ci]?.[p])}
               </td>`;
             })}
             ${v.signalToBackground ? html`<td>${bareFactor(v.signalToBackground[ci])}</td>` : ''}

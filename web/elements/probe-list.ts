@@ -15,7 +15,7 @@ import './probe-card';
 import type { ProbeCard, ProbeCardMaterial } from './probe-card';
 
 /** Where each column of a probe row starts: the name, made of, peak, FWHM, channel, brightness. */
-const PROBE_ROW_COLUMNS = 'minmax(7rem, 1.5fr) minmax(5rem, 1.2fr) 4rem 3.6rem minmax(7rem, 1.3fr) 5.4rem';
+const PROBE_ROW_COLUMNS = 'minmax(8.5rem, 1.5fr) minmax(4.5rem, 1fr) 3.8rem 3.6rem minmax(6.5rem, 1.2fr) 5.4rem';
 
 @customElement('qdp-probe-list')
 export class ProbeList extends LitElement {
