@@ -226,7 +226,7 @@ describe('<qdp-probe-list>', () => {
     await expect.poll(() => card.shadowRoot!.activeElement?.closest('label')?.textContent?.trim()).toBe('Label');
   });
 
-  it('a row whose probe holds an error is open and says to fix the marked field; a new panel takes no focus', async () => {
+  it('a row whose probe holds an error is open, says to fix the marked field; a new panel takes no focus', async () => {
     const el = await mount(panelWithProbes(2), (l) => (l.errors = { 0: { emissionPeakNm: 'too far' } }));
     el.panel = panelWithProbes(3);
     await el.updateComplete;

@@ -20,9 +20,9 @@ export function worstPairText(v: CrosstalkView): string {
   const label = (id: string) => v.probes.find((p) => p.id === id)?.label ?? id;
   const w = v.worst;
   if (!w?.from || !w.into || w.interference === null) return 'Worst pair: none yet (no two probes to compare).';
-  return `Worst pair: ${label(w.from)} adds ${formatFraction(w.interference)} of ${label(w.into)}'s own signal in ${label(
-    w.into,
-  )}'s channel.`;
+  const into = label(w.into);
+  const share = formatFraction(w.interference);
+  return `Worst pair: ${label(w.from)} adds ${share} of ${into}'s own signal in ${into}'s channel.`;
 }
 
 /**

@@ -209,7 +209,7 @@ export class PanelApp extends LitElement {
     else void this.restoreFromFragment();
   }
 
-  /** A folded section that must show something (a refusal, what a switch changed) opens; none is closed for the user. */
+  /** A folded section that must show something (a refusal, what a switch changed) opens; none closes by itself. */
   protected override updated(): void {
     for (const fold of this.renderRoot.querySelectorAll<HTMLDetailsElement>('details.fold[data-needs-open="true"]'))
       fold.open = true;

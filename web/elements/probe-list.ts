@@ -80,10 +80,11 @@ export class ProbeList extends LitElement {
           const errors = this.errors[i] ?? {};
           const hasErrors = Object.keys(errors).length > 0;
           const blocked = this.blocked.get(p.id) ?? '';
+          const prediction = hasErrors ? undefined : this.predictions[i];
           return html`<qdp-editor-row
             noun="probe"
             .heading=${p.label || p.id}
-            .cells=${probeCells(p, name(p.material), hasErrors ? undefined : this.predictions[i], panel.channels, this.primary[i])}
+            .cells=${probeCells(p, name(p.material), prediction, panel.channels, this.primary[i])}
             ?open=${this.rows.isOpen(p.id, hasErrors)}
             .attention=${hasErrors ? 'Fix the marked field below.' : blocked ? `Blocked: ${blocked}.` : ''}
             @row-toggle=${(e: CustomEvent<{ open: boolean }>) => {

@@ -66,7 +66,10 @@ export function inUserWords(error: FieldError, panel: PanelSpec): string {
   if (bare === error.message) return row ? `${row}: ${error.message}` : error.message;
   const field = String(error.path[error.path.length - 1] ?? '');
   if (row && field === 'measuredEmission' && bare.startsWith('is required'))
-    return `${row} needs data: load its measured emission spectrum (a CSV of wavelength in nm and intensity) in its row, or choose a material the model knows`;
+    return (
+      `${row} needs data: load its measured emission spectrum (a CSV of wavelength in nm and intensity) in its ` +
+      'row, or choose a material the model knows'
+    );
   const words = FIELD_WORDS[field];
   const value = valueAt(panel, error.path);
   const range = /^must be between (\S+) and (\S+?)(?: (nm|%))?$/.exec(bare);
