@@ -230,7 +230,20 @@ export class SpectrumChart extends LitElement {
     this.drag = undefined;
   };
 
+  /** True when the pointer is in the detection strip under the plot (SVG units from the top, as drawn). */
+  private inStrip(e: PointerEvent): boolean {
+    const svgEl = this.renderRoot.querySelector('svg')!;
+    const rect = svgEl.getBoundingClientRect();
+    const heightPx = svgEl.viewBox.baseVal?.height || rect.height;
+    return ((e.clientY - rect.top) * heightPx) / Math.max(1, rect.height) >= BOTTOM;
+  }
+
+  /**
+   * A press on an edge starts its drag. A finger on an edge's guide inside the plot reads the chart instead (on a
+   * phone the guides cover much of the plot); fingers drag edges by their grips in the strip.
+   */
   private startDrag(e: PointerEvent, h: ChartHandle): void {
+    if (e.pointerType === 'touch' && !this.inStrip(e)) return;
     e.preventDefault();
     this.drag = h;
     this.renderRoot.querySelector('svg')!.setPointerCapture?.(e.pointerId);
