@@ -76,6 +76,12 @@ export class ChartControls extends LitElement {
     if (!this.problem) this.fire({ rangeNm: next });
   }
 
+  /** A refused range opens the fold so its message shows beside the fields; the fold never closes by itself. */
+  protected override updated(): void {
+    const fold = this.renderRoot.querySelector('details');
+    if (this.problem && fold) fold.open = true;
+  }
+
   override render() {
     const [lo, hi] = this.rangeNm;
     const floorPct = LOG_FLOOR_FRACTION * 100;
@@ -87,33 +93,36 @@ export class ChartControls extends LitElement {
         />
         Log scale (reads tails down to ${floorPct} % of the top)</label
       >
-      <fieldset>
-        <legend>Wavelength range</legend>
-        <label
-          ><input
-            type="checkbox"
-            .checked=${this.follow}
-            @change=${(e: Event) => {
-              this.problem = '';
-              this.fire({ rangeNm: (e.target as HTMLInputElement).checked ? null : [lo, hi] });
-            }}
-          />
-          Follow the panel</label
-        >
-        <qdp-number-field
-          label="From"
-          unit="nm"
-          .value=${lo}
-          @value-commit=${(e: CustomEvent<{ value: number }>) => this.setEnd(0, e.detail.value)}
-        ></qdp-number-field>
-        <qdp-number-field
-          label="To"
-          unit="nm"
-          .value=${hi}
-          @value-commit=${(e: CustomEvent<{ value: number }>) => this.setEnd(1, e.detail.value)}
-        ></qdp-number-field>
-        ${this.problem ? html`<p class="bad" role="alert">${this.problem}</p>` : ''}
-      </fieldset>`;
+      <details>
+        <summary>Wavelength range: ${lo}–${hi} nm${this.follow ? ', following the panel' : ', as you set it'}</summary>
+        <fieldset>
+          <legend>Wavelength range</legend>
+          <label
+            ><input
+              type="checkbox"
+              .checked=${this.follow}
+              @change=${(e: Event) => {
+                this.problem = '';
+                this.fire({ rangeNm: (e.target as HTMLInputElement).checked ? null : [lo, hi] });
+              }}
+            />
+            Follow the panel</label
+          >
+          <qdp-number-field
+            label="From"
+            unit="nm"
+            .value=${lo}
+            @value-commit=${(e: CustomEvent<{ value: number }>) => this.setEnd(0, e.detail.value)}
+          ></qdp-number-field>
+          <qdp-number-field
+            label="To"
+            unit="nm"
+            .value=${hi}
+            @value-commit=${(e: CustomEvent<{ value: number }>) => this.setEnd(1, e.detail.value)}
+          ></qdp-number-field>
+          ${this.problem ? html`<p class="bad" role="alert">${this.problem}</p>` : ''}
+        </fieldset>
+      </details>`;
   }
 }
 

@@ -625,6 +625,8 @@ export class PanelApp extends LitElement {
     const c = this.computed;
     const errors = placeError(this.error);
     const blockedProbes = offendingProbes(p, MATERIALS, this.exclude);
+    // A panel still missing a probe or a channel is not refused input: it shows what to do first instead.
+    const refused = !!this.error && !firstSteps(p);
     const blocked = blockedProbes.size
       ? 'a probe is made of an excluded material.'
       : firstSteps(p)
@@ -744,7 +746,7 @@ export class PanelApp extends LitElement {
             </details>
           </section>
           <section aria-labelledby="h-light">
-            <details class="fold" data-needs-open=${Object.keys(errors.other).length > 0 || !!this.sharedId}>
+            <details class="fold" data-needs-open=${(refused && Object.keys(errors.other).length > 0) || !!this.sharedId}>
               <summary>
                 <h2 id="h-light">Excitation and sample</h2>
                 <span>${lightSummary(p)}</span>
@@ -805,7 +807,7 @@ export class PanelApp extends LitElement {
         <div class="results">
           <section aria-labelledby="h-spectra">
             <h2 id="h-spectra">Spectra</h2>
-            <qdp-key-verdict .view=${c?.crosstalk} ?stale=${!!this.error}></qdp-key-verdict>
+            <qdp-key-verdict .view=${c?.crosstalk} ?stale=${refused}></qdp-key-verdict>
             <qdp-height-toggle
               .byBrightness=${this.byBrightness}
               @heights-change=${(e: CustomEvent<{ byBrightness: boolean }>) => {
@@ -825,7 +827,7 @@ export class PanelApp extends LitElement {
           </section>
           <section aria-labelledby="h-crosstalk">
             <h2 id="h-crosstalk">Crosstalk and unmixing</h2>
-            <qdp-crosstalk-table .view=${c?.crosstalk} ?stale=${!!this.error}></qdp-crosstalk-table>
+            <qdp-crosstalk-table .view=${c?.crosstalk} ?stale=${refused}></qdp-crosstalk-table>
           </section>
           <section aria-labelledby="h-materials">
             <h2 id="h-materials">Material cautions</h2>
