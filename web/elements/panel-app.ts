@@ -746,7 +746,10 @@ export class PanelApp extends LitElement {
             </details>
           </section>
           <section aria-labelledby="h-light">
-            <details class="fold" data-needs-open=${(refused && Object.keys(errors.other).length > 0) || !!this.sharedId}>
+            <details
+              class="fold"
+              data-needs-open=${(refused && Object.keys(errors.other).length > 0) || !!this.sharedId}
+            >
               <summary>
                 <h2 id="h-light">Excitation and sample</h2>
                 <span>${lightSummary(p)}</span>
