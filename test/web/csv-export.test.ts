@@ -20,6 +20,12 @@ describe('ordering sheet CSV', () => {
     expect(csvCell('  plain')).toBe('  plain');
   });
 
+  it('csvCell also prefixes a quote after leading no-break spaces or a newline before the formula character', () => {
+    expect(csvCell('\u00a0=1+1')).toBe("'\u00a0=1+1");
+    expect(csvCell('\n=HYPERLINK(1)')).toBe(`"'\n=HYPERLINK(1)"`);
+    expect(csvCell('\u00a0plain')).toBe('\u00a0plain');
+  });
+
   it('csvCell writes a negative number as a number, without the quote it gives text starting with a minus', () => {
     expect(csvCell(-0.25)).toBe('-0.25');
     expect(csvCell('-0.25')).toBe("'-0.25");

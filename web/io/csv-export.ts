@@ -21,15 +21,16 @@ export type ResolvedForSheet = Pick<ProbeEvaluation, 'diameterNm' | 'emissionPea
 export type CsvValue = string | number | null | undefined;
 
 /**
- * One CSV cell. Text starting with =, +, -, @, tab or carriage return, also after leading spaces, is prefixed with '
- * so a spreadsheet shows it instead of running it as a formula (common practice, the OWASP "CSV injection" advice);
+ * One CSV cell. Text starting with =, +, -, @, tab or carriage return, also after any leading white space (spaces,
+ * no-break spaces, newlines), is prefixed with ' so a spreadsheet shows it instead of running it as a formula
+ * (common practice, the OWASP "CSV injection" advice);
  * then RFC 4180 quoting. Numbers are written as numbers (a negative one keeps its minus sign); non-finite ones as
  * an empty cell.
  */
 export function csvCell(value: CsvValue): string {
   if (value === null || value === undefined) return '';
   if (typeof value === 'number') return Number.isFinite(value) ? String(value) : '';
-  const text = /^ *[=+\-@\t\r]/.test(value) ? `'${value}` : value;
+  const text = /^\s*[=+\-@\t\r]/.test(value) ? `'${value}` : value;
   return /[",\r\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
 }
 
