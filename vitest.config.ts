@@ -5,8 +5,8 @@ import { CHROMIUM_LAUNCH } from './test/chromium';
 export default defineConfig({
   test: {
     projects: [
-      // Pure science: spectra/ in Node. Whole design searches run in some tests; on a loaded 2-core machine one can take
-      // several seconds, so the limit is a hang guard, not a speed claim (speed is measured in `npm run bench`).
+      // Pure science: spectra/ in Node. Some tests run whole design searches; on a loaded 2-core machine one can
+      // take several seconds, so the limit is a hang guard, not a speed claim (speed is measured in `npm run bench`).
       {
         test: {
           name: 'unit',
