@@ -165,7 +165,8 @@ export { photonMixing, predictUnmixingNoise, type NoiseInput, type NoisePredicti
 export { simulateUnmixing, type MonteCarloOptions, type MonteCarloResult } from './signal/monte-carlo';
 export { lotShiftSensitivity, shiftEmission, type LotShiftSensitivity } from './signal/sensitivity';
 export type { PanelModel, ProbeEvaluation } from './signal/panel-model';
-export { evaluatePanel, type PanelEvaluation } from './signal/evaluate';
+export { evaluateLotShift, evaluatePanel, type PanelEvaluation } from './signal/evaluate';
+export { LOT_SHIFT_NM } from './signal/sensitivity';
 export { panelSpectra, type PanelSpectra } from './signal/panel-spectra';
 
 // Design: the objective, the exact catalog search, the whole pipeline.

@@ -172,3 +172,26 @@ export function evaluatePanel(
   makeJsonSafe(evaluation, [], warnings);
   return evaluation;
 }
+
+/**
+ * The lot-to-lot check of `evaluatePanel` on its own (the same figures as its `lotShiftSensitivity`), for a caller
+ * that shows the rest first and adds this check after (it costs about as much as the rest of the evaluation).
+ */
+export function evaluateLotShift(input: PanelSpec, options: { grid?: WavelengthGrid } = {}): LotShiftSensitivity {
+  const panel = foldLightPath(input);
+  const { grid, components, transmissions, assigned } = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
+  const probeIds = panel.probes.map((p) => p.id);
+  const channelIds = panel.channels.map((c) => c.id);
+  const collected = collectedMatrix(components, transmissions, grid.stepNm);
+  const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
+  return lotShiftSensitivity({
+    components,
+    transmissions,
+    stepNm: grid.stepNm,
+    collected,
+    figures,
+    assigned,
+    probeIds,
+    channelIds,
+  });
+}

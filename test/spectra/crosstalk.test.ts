@@ -3,6 +3,7 @@ import {
   DEFAULT_GRID,
   collectedMatrix,
   crosstalkFigures,
+  evaluateLotShift,
   evaluatePanel,
   filterTransmission,
   shiftEmission,
@@ -124,7 +125,7 @@ describe('lot-shift sensitivity', () => {
   });
 
   // Independent route: build the shifted panels explicitly (the measured tables moved by ±5 nm) and evaluate them.
-  it('evaluatePanel lotShiftSensitivity equals the worst of the explicitly shifted panels', () => {
+  it('evaluatePanel lotShiftSensitivity and evaluateLotShift equal the worst of the explicitly shifted panels', () => {
     const probes = [
       gaussianProbe('a', 560, 12, wholeGrid),
       gaussianProbe('b', 600, 12, wholeGrid),
@@ -157,6 +158,11 @@ describe('lot-shift sensitivity', () => {
       }
     });
     const lot = ev.lotShiftSensitivity!;
+    // The check on its own (as the page adds it after the rest) gives the same figures, explicit shifts included.
+    const alone = evaluateLotShift(panel);
+    expect(alone.worstInterference!.interference).toBeCloseTo(worst, 6);
+    expect(`${alone.worstInterference!.shiftedProbe} ${alone.worstInterference!.shiftNm}`).toBe(worstCase);
+    expect(alone.baseline.worstInterference).toBe(ev.worst.interference);
     expect(lot.shiftNm).toBe(5);
     expect(lot.baseline.worstInterference).toBe(ev.worst.interference);
     expect(lot.worstInterference!.interference).toBeCloseTo(worst, 6);

@@ -169,6 +169,31 @@ describe('<qdp-panel-app> new panel', () => {
   });
 });
 
+describe('<qdp-panel-app> lot-to-lot check after a pause', () => {
+  it(
+    'a typed peak redraws at once with the lot-to-lot line saying it waits for a pause, and the figure follows ' +
+      'once typing stops',
+    async () => {
+      const app = await openPage();
+      const lot = () =>
+        inner(app, 'qdp-crosstalk-table').shadowRoot!.querySelector('p.lot')?.textContent?.replace(/\s+/g, ' ') ?? '';
+      await expect.poll(lot).toMatch(/^ ?Lot-to-lot shift \(±5 nm\): the worst crosstalk is .+ can reach/);
+      const before = crosstalkTable(app).textContent;
+      await typePeak(app, 1, '520');
+      // The lot line as it read when the new numbers first showed.
+      let atRedraw = '';
+      await expect
+        .poll(() => {
+          atRedraw = lot();
+          return crosstalkTable(app).textContent;
+        })
+        .not.toBe(before);
+      expect(atRedraw).toContain('checking once you pause typing');
+      await expect.poll(lot).toMatch(/can reach/);
+    },
+  );
+});
+
 describe('<qdp-panel-app> refusals in the user’s words', () => {
   it("a 5000 nm centre on the demo's third channel: the channel named, the value and range, no numbers", async () => {
     const app = await openPage();

@@ -36,6 +36,8 @@ export interface CrosstalkView extends EvaluationFigures {
     into: string;
   } | null;
   worst: PanelEvaluation['worst'] | null;
+  /** True while the lot-to-lot check is still to be computed (the page adds it once the edits pause). */
+  lotShiftPending?: boolean;
 }
 
 /** Each target's predicted SD under Poisson shot noise after least-squares unmixing, at a nominal photon budget. */

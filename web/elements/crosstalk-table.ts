@@ -3,6 +3,7 @@
  * and a one-hue lightness ramp (readable in greyscale and by colour-blind users), the worst pair in words, each
  * target's unmixing noise gain, the condition number, the ±5 nm lot-shift sensitivity and the warnings.
  */
+import { LOT_SHIFT_NM } from '../../spectra/index';
 import { gain, times } from '../chart/verdict';
 import { LitElement, css, html, unsafeCSS } from 'lit';
 import { customElement, property } from 'lit/decorators.js';
@@ -41,6 +42,9 @@ function interferenceCell(v: CrosstalkView, t: number, u: number) {
   const value = v.interference[t]?.[u];
   return html`<td class=${cellClass(value ?? null)}>${formatFraction(value)}</td>`;
 }
+
+/** Said while the lot-to-lot check waits for the edits to pause. */
+export const LOT_SHIFT_PENDING = `Lot-to-lot shift (±${LOT_SHIFT_NM} nm peak moves): checking once you pause typing…`;
 
 /** Said instead of a condition number when the channels cannot separate the probes. */
 const NO_CONDITION = '— (the channels cannot separate every probe)';
@@ -246,7 +250,9 @@ export class CrosstalkTable extends LitElement {
               ${v.lotShift.signedShiftNm > 0 ? 'redder' : 'bluer'} (${label(v.lotShift.from)} into
               ${label(v.lotShift.into)}).
             </p>`
-          : ''
+          : v.lotShiftPending
+            ? html`<p class="lot">${LOT_SHIFT_PENDING}</p>`
+            : ''
       }
       <h3>${MATRIX_WORDS.spillover}</h3>
       <p>${MATRIX_WORDS.spilloverAbout}</p>

@@ -16,7 +16,7 @@ import {
 } from '../../spectra/index';
 import { appStyles } from './panel-app-styles';
 import type { EdgeDragDetail } from '../chart/types';
-import { computePanel, DETECTORS, MATERIALS, type Computed } from '../state/compute';
+import { computePanel, DETECTORS, MATERIALS, withLotShift, type Computed } from '../state/compute';
 import { demoPanel } from '../state/demo-panel';
 import { placeError, type FieldError } from '../state/error-map';
 import { inUserWords } from '../state/user-words';
@@ -142,6 +142,9 @@ export function lightSummary(p: PanelSpec): string {
   ].join(' · ');
 }
 
+/** The pause in editing after which the lot-to-lot check is added, ms (our choice: a typing pause). */
+const LOT_SHIFT_PAUSE_MS = 250;
+
 /** The path of a shared copy, /p/<id>. */
 const SHARED_PATH = /^\/p\/([A-Za-z0-9_-]+)$/;
 
@@ -180,6 +183,8 @@ export class PanelApp extends LitElement {
   @state() private steps = emptyHistory<Snapshot>();
   /** The state the last step left, once the first panel is shown (before it, nothing is recorded). */
   private shown?: Snapshot;
+  /** The pending lot-to-lot check (see addLotShiftLater). */
+  private lotShiftTimer?: number;
   /** True while a panel waits for the checks to arrive before it is computed. */
   private awaitingChecks = false;
   /** The working panel's entry in My panels: a new one for each panel loaded, the entry's own for a saved panel. */
@@ -526,13 +531,27 @@ export class PanelApp extends LitElement {
       this.error = { ...problem, message: inUserWords(problem, this.panel) };
       return;
     }
-    const r = computePanel(this.panel, { byBrightness: this.byBrightness });
+    const r = computePanel(this.panel, { byBrightness: this.byBrightness, sensitivity: false });
     if (r.ok) {
       this.computed = r.value;
       this.error = undefined;
+      this.addLotShiftLater();
     } else {
       this.error = { ...r.error, message: inUserWords(r.error, this.panel) };
     }
+  }
+
+  /**
+   * Adds the lot-to-lot check (about as costly as the rest of the evaluation) once the edits pause, so typing and
+   * dragging redraw the chart and the tables without it; a later edit cancels the pending check.
+   */
+  private addLotShiftLater(): void {
+    clearTimeout(this.lotShiftTimer);
+    const panel = this.panel;
+    this.lotShiftTimer = window.setTimeout(() => {
+      if (this.panel !== panel || !this.computed?.crosstalk.lotShiftPending) return;
+      this.computed = withLotShift(this.computed, panel);
+    }, LOT_SHIFT_PAUSE_MS);
   }
 
   /** What the API would refuse in the panel as a request naming its profile (a line the instrument lacks). */

@@ -6,6 +6,7 @@
 import {
   DEFAULT_GRID,
   DESIGN_DEFAULTS,
+  evaluateLotShift,
   evaluatePanel,
   listDetectors,
   listMaterials,
@@ -157,6 +158,36 @@ const maxOf = (values: readonly number[]) => {
   return m;
 };
 
+/** The lot-to-lot check as the crosstalk section shows it, or null when it found no pair. */
+function lotShiftView(lot: PanelEvaluation['lotShiftSensitivity']): CrosstalkView['lotShift'] {
+  const wi = lot?.worstInterference;
+  return lot && wi
+    ? {
+        shiftNm: lot.shiftNm,
+        baseline: lot.baseline.worstInterference,
+        worst: wi.interference,
+        shiftedProbe: wi.shiftedProbe,
+        signedShiftNm: wi.shiftNm,
+        from: wi.from,
+        into: wi.into,
+      }
+    : null;
+}
+
+/**
+ * `computed` (made with `sensitivity: false` for `panel`) with its lot-to-lot check added: the page shows the rest
+ * of the figures first and adds this check, which costs about as much again, once the edits pause.
+ */
+export function withLotShift(computed: Computed, panel: PanelSpec): Computed {
+  const lot = evaluateLotShift(panel, { grid });
+  const { lotShiftPending: _, ...crosstalk } = computed.crosstalk;
+  return {
+    ...computed,
+    evaluation: { ...computed.evaluation, lotShiftSensitivity: lot },
+    crosstalk: { ...crosstalk, lotShift: lotShiftView(lot) },
+  };
+}
+
 /**
  * Evaluates the panel and shapes the result for display, or returns the first input error. With `byBrightness`, each
  * curve is its unit-area emission × brightness × abundance (the photons it sends, as in the signal model) and the
@@ -164,13 +195,13 @@ const maxOf = (values: readonly number[]) => {
  */
 export function computePanel(
   panel: PanelSpec,
-  options: { byBrightness: boolean },
+  options: { byBrightness: boolean; sensitivity?: boolean },
 ): { ok: true; value: Computed } | { ok: false; error: FieldError } {
   let ev: PanelEvaluation;
   let spectra: ReturnType<typeof panelSpectra>;
   let shared: ChartSharedPath[];
   try {
-    ev = evaluatePanel(panel, { grid });
+    ev = evaluatePanel(panel, { grid, sensitivity: options.sensitivity ?? true });
     spectra = panelSpectra(panel, { grid });
     shared = sharedPathsOf(panel);
   } catch (e) {
@@ -200,8 +231,6 @@ export function computePanel(
     transmission: onGrid(spectra.channels[i].values),
   }));
   const background = spectra.background ? onGrid(spectra.background.map((v) => v / tallest)) : undefined;
-  const lot = ev.lotShiftSensitivity;
-  const wi = lot?.worstInterference;
   const crosstalk: CrosstalkView = {
     probes: panel.probes.map((p) => ({ id: p.id, label: p.label || p.id })),
     channels: panel.channels.map((c) => ({ id: c.id, label: c.label || c.id })),
@@ -213,18 +242,8 @@ export function computePanel(
     conditionNumber: ev.conditionNumber,
     shotNoise: shotNoiseOf(ev, panel),
     signalToBackground: ev.signalToBackground,
-    lotShift:
-      lot && wi
-        ? {
-            shiftNm: lot.shiftNm,
-            baseline: lot.baseline.worstInterference,
-            worst: wi.interference,
-            shiftedProbe: wi.shiftedProbe,
-            signedShiftNm: wi.shiftNm,
-            from: wi.from,
-            into: wi.into,
-          }
-        : null,
+    lotShift: lotShiftView(ev.lotShiftSensitivity),
+    ...(options.sensitivity === false ? { lotShiftPending: true } : {}),
     worst: ev.worst,
     warnings: ev.warnings,
   };
