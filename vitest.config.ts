@@ -5,9 +5,13 @@ import { CHROMIUM_LAUNCH } from './test/chromium';
 export default defineConfig({
   test: {
     projects: [
-      // Pure science: spectra/ in Node.
+      // Pure code in Node: spectra/, the bench table, and the worker's modules that need no runtime.
       {
-        test: { name: 'unit', include: ['test/spectra/**/*.test.ts', 'test/bench/**/*.test.ts'], environment: 'node' },
+        test: {
+          name: 'unit',
+          include: ['test/spectra/**/*.test.ts', 'test/bench/**/*.test.ts', 'test/worker-pure/**/*.test.ts'],
+          environment: 'node',
+        },
       },
       // The API on the real Workers runtime (workerd via wrangler) with real local KV.
       {
