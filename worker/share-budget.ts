@@ -3,14 +3,15 @@ import type { AppEnv } from './env';
 import { clientKey } from './client-key';
 import { ApiError } from './schemas/index';
 
-/** Seconds a client waits after its budget of new share links is spent (the binding's window, wrangler.toml). */
+/** Seconds a client waits after its budget of share links is spent (the binding's window, wrangler.toml). */
 export const SHARE_BUDGET_PERIOD_S = 60;
 
 /**
- * Spends one unit of the client's budget of new share links, or throws 429 `rate_limited` (with Retry-After) when it
- * is spent. Called only when a POST /api/v1/panels would write a new panel: re-sharing a stored panel and every read
- * stay free. Uses the platform's rate-limiting binding SHARE_WRITES (a per-location counter, so a client spread over
- * several locations gets a budget in each); without the binding nothing is limited.
+ * Spends one unit of the client's budget of share links, or throws 429 `rate_limited` (with Retry-After) when it is
+ * spent. Called on every POST /api/v1/panels and POST /api/v1/instruments that passed validation, whether or not the
+ * value is already stored (worker/store.ts says why); evaluating and every read stay free. Uses the platform's
+ * rate-limiting binding SHARE_WRITES (a per-location counter, so a client spread over several locations gets a budget
+ * in each); without the binding nothing is limited.
  */
 export async function spendShareBudget(c: Context<AppEnv>): Promise<void> {
   const limiter = c.env.SHARE_WRITES;
@@ -23,7 +24,7 @@ export async function spendShareBudget(c: Context<AppEnv>): Promise<void> {
   throw new ApiError(
     429,
     'rate_limited',
-    `too many new share links from this address; try again in ${SHARE_BUDGET_PERIOD_S} seconds (reading links is not ` +
+    `too many share links from this address; try again in ${SHARE_BUDGET_PERIOD_S} seconds (reading links is not ` +
       `limited)`,
     [],
     { 'Retry-After': String(SHARE_BUDGET_PERIOD_S) },

@@ -3,7 +3,7 @@ import type { AppEnv } from '../env';
 import { exampleInstruments, loadInstrumentText } from '../instruments';
 import { jsonBody } from '../middleware/json-body';
 import { ApiError, Instrument } from '../schemas/index';
-import { ID_PATH } from '../share-id';
+import { ID_PATH, shareIdKeyOf } from '../share-id';
 import { spendShareBudget } from '../share-budget';
 import { saveShared } from '../store';
 import { validJson } from '../validation';
@@ -23,10 +23,10 @@ export const instruments = new Hono<AppEnv>()
     return c.json({ instruments: list }, 200, { 'cache-control': 'public, max-age=3600' });
   })
   .post('/', jsonBody(), validJson(Instrument), async (c) => {
-    const { id, created } = await saveShared(c.env.PANELS, 'instrument', c.req.valid('json'), () =>
-      spendShareBudget(c),
-    );
-    return c.json({ id, url: `/i/${id}` }, created ? 201 : 200);
+    const key = shareIdKeyOf(c.env.SHARE_ID_KEY);
+    const id = await saveShared(c.env.PANELS, 'instrument', c.req.valid('json'), key, () => spendShareBudget(c));
+    // 201 whether or not the profile was stored before, as for panels.
+    return c.json({ id, url: `/i/${id}` }, 201);
   })
   .get(ID_PATH, async (c) => {
     const text = await loadInstrumentText(c.env.PANELS, c.req.param('id') ?? '');
