@@ -28,6 +28,12 @@ export function exampleInstruments(): Promise<ExampleInstrument[]> {
   return examples;
 }
 
+/** The id of the example profile with the same canonical text as `value`, or undefined when it is none. */
+export async function exampleIdOf(value: unknown): Promise<string | undefined> {
+  const text = canonicalJson(value);
+  return (await exampleInstruments()).find((e) => e.text === text)?.id;
+}
+
 /** A profile's canonical text: an example's, or the stored one (one storage read), or null when there is none. */
 export async function loadInstrumentText(kv: KVNamespace, id: string): Promise<string | null> {
   const example = (await exampleInstruments()).find((e) => e.id === id);

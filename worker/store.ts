@@ -8,18 +8,11 @@ const KEY_PREFIX: Record<SharedKind, string> = { panel: 'panel:', instrument: 'i
 /**
  * Stores a validated value under the keyed id of its canonical text (worker/share-id.ts) and returns the id. Stored
  * values are immutable: the key is read first and an existing value is never overwritten (the same text always maps
- * to the same key anyway). `spend` runs first on every call, whether or not the value is already stored (the
- * per-client budget of share links): a budget spent only on new values would tell a client whether someone else had
- * stored the same value. It may throw to refuse.
+ * to the same key anyway). The caller spends the client's budget of share links before, on every share, whether or not
+ * the value is already stored: a budget spent only on new values would tell a client whether someone else had stored
+ * the same value.
  */
-export async function saveShared(
-  kv: KVNamespace,
-  kind: SharedKind,
-  value: unknown,
-  keyText: string,
-  spend?: () => Promise<void>,
-): Promise<string> {
-  await spend?.();
+export async function saveShared(kv: KVNamespace, kind: SharedKind, value: unknown, keyText: string): Promise<string> {
   const canonical = canonicalJson(value);
   const id = await shareIdOf(canonical, keyText);
   const existing = await kv.get(KEY_PREFIX[kind] + id);

@@ -24,7 +24,8 @@ export const panels = new Hono<AppEnv>()
     const sent = c.req.valid('json');
     await resolvePanelRequest(c.env.PANELS, sent);
     const key = shareIdKeyOf(c.env.SHARE_ID_KEY);
-    const id = await saveShared(c.env.PANELS, 'panel', sent, key, () => spendShareBudget(c));
+    await spendShareBudget(c);
+    const id = await saveShared(c.env.PANELS, 'panel', sent, key);
     // 201 whether or not the panel was stored before: the answer must not tell whether someone else shared it.
     return c.json({ id, url: `/p/${id}` }, 201);
   })
