@@ -1,6 +1,7 @@
 /**
  * Instrument profiles on the server: the example profiles every installation serves (under the unkeyed ids of their
- * content, the same on every installation: they are public, and stored panels name them by these ids) and the resolution of a panel that names a profile.
+ * content, the same on every installation: they are public, and stored panels name them by these ids) and the
+ * resolution of a panel that names a profile.
  */
 import { EXAMPLE_INSTRUMENTS, resolveOnInstrument, type InstrumentSpec } from '../spectra/index';
 import { ApiError, issueToError, Panel } from './schemas/index';

@@ -45,7 +45,7 @@ describe('parseIpv4', () => {
 });
 
 describe('clientKey', () => {
-  it('clientKey gives one key to the same /64 written with ::, upper case, leading zeros, zone id and IPv4 tail', () => {
+  it('clientKey gives one key to one /64 written with ::, any case, leading zeros, zone id or IPv4 tail', () => {
     const spellings = [
       '2001:db8:a:b::1',
       '2001:DB8:A:B::1',

@@ -60,7 +60,7 @@ async function store(body: unknown): Promise<string> {
 }
 
 describe('POST and GET /api/v1/instruments', () => {
-  it('POST /api/v1/instruments stores a profile with 201 and an /i/ link; the same one again is 201, same body', async () => {
+  it('POST /api/v1/instruments stores a profile with 201 and an /i/ link; again: 201, same body', async () => {
     const first = await postJson(worker, '/api/v1/instruments', { ...profile(), name: 'first store' });
     expect(first.status).toBe(201);
     const body = (await first.json()) as { id: string; url: string };

@@ -12,8 +12,9 @@ import { validJson } from '../validation';
 
 /**
  * Panels: POST /api/v1/panels/evaluate computes a panel's figures; POST /api/v1/panels stores a panel behind a share
- * link (201 and the same body on every share of it) and GET /api/v1/panels/:id returns it as it was sent. A panel naming an instrument is resolved against it
- * (one storage read) before it is evaluated or stored, so a stored panel always names a profile that exists.
+ * link (201 and the same body on every share of it) and GET /api/v1/panels/:id returns it as it was sent. A panel
+ * naming an instrument is resolved against it (one storage read) before it is evaluated or stored, so a stored panel
+ * always names a profile that exists.
  */
 export const panels = new Hono<AppEnv>()
   .post('/evaluate', jsonBody(), validJson(PanelRequest), async (c) => {
