@@ -84,7 +84,7 @@ describe('share ids', () => {
     async () => {
       expect(storedId).toMatch(/^[A-Za-z0-9_-]{24}$/);
       const again = await postJson(app.baseUrl, '/api/v1/panels', stored);
-      expect(again.status).toBe(200);
+      expect(again.status).toBe(201);
       expect(((await again.json()) as { id: string }).id).toBe(storedId);
       const changed = await postJson(app.baseUrl, '/api/v1/panels', {
         ...stored,
