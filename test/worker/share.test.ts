@@ -157,6 +157,23 @@ describe('persistence', () => {
   });
 });
 
+describe('a deployment without SHARE_ID_KEY', () => {
+  it('POST /api/v1/panels answers 500 internal_error in the error shape and stores nothing', async () => {
+    const bare = await startWorker(freshPersistDir(), []);
+    try {
+      const res = await postJson(bare, '/api/v1/panels', examplePanel());
+      expect(res.status).toBe(500);
+      expect((await errorOf(res))?.code).toBe('internal_error');
+      const keyed = createHmac('sha256', localEnvVar('SHARE_ID_KEY')).update(canonicalJson(examplePanel()), 'utf8');
+      expect((await bare.call(`/api/v1/panels/${keyed.digest().subarray(0, 18).toString('base64url')}`)).status).toBe(
+        404,
+      );
+    } finally {
+      await bare.dispose();
+    }
+  });
+});
+
 describe('links issued before ids were keyed', () => {
   it('GET /api/v1/panels/<old id> and /p/<old id> open a panel stored under its plain SHA-256 id', async () => {
     const res = await worker.call(`/api/v1/panels/${OLD_SCHEME_ID}`);

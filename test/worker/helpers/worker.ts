@@ -55,13 +55,16 @@ export interface RunningWorker {
   dispose(): Promise<void>;
 }
 
-/** Starts the worker from wrangler.toml on 127.0.0.1 (free port), local KV persisted under `persistDir`. */
-export async function startWorker(persistDir: string): Promise<RunningWorker> {
+/**
+ * Starts the worker from wrangler.toml on 127.0.0.1 (free port), local KV persisted under `persistDir`, with the
+ * variables of `envFiles` (by default local.env, as `npm start` runs).
+ */
+export async function startWorker(persistDir: string, envFiles = [LOCAL_ENV_FILE]): Promise<RunningWorker> {
   ensureFrontEndBuilt();
   const worker = await unstable_startWorker({
     config: join(ROOT, 'wrangler.toml'),
     // The local-only share-id key, as scripts/start.sh passes it.
-    envFiles: [LOCAL_ENV_FILE],
+    envFiles,
     dev: {
       server: { hostname: '127.0.0.1', port: 0 },
       inspector: false,
