@@ -5,12 +5,13 @@ import { CHROMIUM_LAUNCH } from './test/chromium';
 export default defineConfig({
   test: {
     projects: [
-      // Pure science: spectra/ in Node. Some tests run whole design searches; on a loaded 2-core machine one can
-      // take several seconds, so the limit is a hang guard, not a speed claim (speed is measured in `npm run bench`).
+      // Pure code in Node: spectra/, the bench table, and the worker's modules that need no runtime. Some tests run
+      // whole design searches; on a loaded 2-core machine one can take several seconds, so the limit is a hang guard,
+      // not a speed claim (speed is measured in `npm run bench`).
       {
         test: {
           name: 'unit',
-          include: ['test/spectra/**/*.test.ts', 'test/bench/**/*.test.ts'],
+          include: ['test/spectra/**/*.test.ts', 'test/bench/**/*.test.ts', 'test/worker-pure/**/*.test.ts'],
           environment: 'node',
           testTimeout: 30_000,
         },

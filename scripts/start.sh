@@ -9,5 +9,6 @@ export CLOUDFLARE_CF_FETCH_ENABLED=false WRANGLER_SEND_METRICS=false WRANGLER_HI
 PORT="${PORT:-8787}"
 # SKIP_BUILD=1 serves the dist/ already built (test harnesses that start several servers at once build it once).
 [ "${SKIP_BUILD:-}" = 1 ] || npx vite build --logLevel warn
-exec npx wrangler dev --ip 127.0.0.1 --port "$PORT" --persist-to "${PERSIST_DIR:-.wrangler/state}" --log-level "${LOG_LEVEL:-info}" \
+# local.env holds the local-only share-id key (a .dev.vars file, when present, is read instead).
+exec npx wrangler dev --env-file local.env --ip 127.0.0.1 --port "$PORT" --persist-to "${PERSIST_DIR:-.wrangler/state}" --log-level "${LOG_LEVEL:-info}" \
   --show-interactive-dev-session=false </dev/null

@@ -4,8 +4,13 @@ export interface Bindings {
   PANELS: KVNamespace;
   /** The static front end built by Vite into dist/. */
   ASSETS: Fetcher;
-  /** Budget of new share links per client (wrangler.toml [[ratelimits]]); absent means unlimited. */
+  /** Budget of share links per client (wrangler.toml [[ratelimits]]); absent means unlimited. */
   SHARE_WRITES?: RateLimit;
+  /**
+   * The secret key of share ids (worker/share-id.ts), a Workers secret: `npx wrangler secret put SHARE_ID_KEY`. Local
+   * runs and tests read a key for local use only from local.env.
+   */
+  SHARE_ID_KEY?: string;
 }
 
 /** The Hono environment every route app of the worker is typed with. */

@@ -1,11 +1,12 @@
 /**
- * Instrument profiles on the server: the example profiles every installation serves (under the ids their content
- * gives, like any stored profile) and the resolution of a panel that names a profile.
+ * Instrument profiles on the server: the example profiles every installation serves (under the unkeyed ids of their
+ * content, the same on every installation: they are public, and stored panels name them by these ids) and the
+ * resolution of a panel that names a profile.
  */
 import { EXAMPLE_INSTRUMENTS, resolveOnInstrument, type InstrumentSpec } from '../spectra/index';
 import { ApiError, issueToError, Panel } from './schemas/index';
 import type { PanelRequest } from './schemas/index';
-import { canonicalJson, shareIdOf } from './share-id';
+import { canonicalJson, unkeyedShareIdOf } from './share-id';
 import { loadSharedText } from './store';
 
 /** An example profile with its id and canonical text. */
@@ -22,10 +23,16 @@ export function exampleInstruments(): Promise<ExampleInstrument[]> {
   examples ??= Promise.all(
     EXAMPLE_INSTRUMENTS.map(async (spec) => {
       const text = canonicalJson(spec);
-      return { id: await shareIdOf(text), text, spec };
+      return { id: await unkeyedShareIdOf(text), text, spec };
     }),
   );
   return examples;
+}
+
+/** The id of the example profile with the same canonical text as `value`, or undefined when it is none. */
+export async function exampleIdOf(value: unknown): Promise<string | undefined> {
+  const text = canonicalJson(value);
+  return (await exampleInstruments()).find((e) => e.text === text)?.id;
 }
 
 /** A profile's canonical text: an example's, or the stored one (one storage read), or null when there is none. */

@@ -111,9 +111,8 @@ export function openApiDocument(): Json {
         '200': json(ref('Evaluation'), 'ok'),
       }),
       '/api/v1/panels': post('store a panel behind a share link', 'PanelRequest', {
-        '201': json(ref('ShareCreated'), 'stored'),
-        '200': json(ref('ShareCreated'), 'already stored'),
-        '429': json(ref('Error'), 'too many new links from this client (see Retry-After)'),
+        '201': json(ref('ShareCreated'), 'stored (the same answer when it was stored before)'),
+        '429': json(ref('Error'), 'too many share links from this client (see Retry-After)'),
       }),
       '/api/v1/panels/design': post(
         'propose dots and filters for a set of targets (exact on a catalog; best found under a node budget)',
@@ -134,9 +133,8 @@ export function openApiDocument(): Json {
       '/api/v1/instruments': {
         ...get('the example instrument profiles, with their ids and links', json(ref('InstrumentList'), 'ok')),
         ...post('store an instrument profile behind a link (/i/<id>)', 'Instrument', {
-          '201': json(ref('InstrumentCreated'), 'stored'),
-          '200': json(ref('InstrumentCreated'), 'already stored'),
-          '429': json(ref('Error'), 'too many new links from this client (see Retry-After)'),
+          '201': json(ref('InstrumentCreated'), 'stored (the same answer when it was stored before)'),
+          '429': json(ref('Error'), 'too many share links from this client (see Retry-After)'),
         }),
       },
       '/api/v1/instruments/{id}': {

@@ -5,33 +5,25 @@ export type SharedKind = 'panel' | 'instrument';
 
 const KEY_PREFIX: Record<SharedKind, string> = { panel: 'panel:', instrument: 'instrument:' };
 
-/** What storing did: `created` is false when the same value was already stored (nothing was written). */
-export interface StoredValue {
-  id: string;
-  created: boolean;
+/**
+ * Stores a validated value under the keyed id of its canonical text (worker/share-id.ts) and returns the id. Stored
+ * values are immutable: the key is read first and an existing value is never overwritten (the same text always maps
+ * to the same key anyway). The caller spends the client's budget of share links before, on every share, whether or not
+ * the value is already stored: a budget spent only on new values would tell a client whether someone else had stored
+ * the same value.
+ */
+export async function saveShared(kv: KVNamespace, kind: SharedKind, value: unknown, keyText: string): Promise<string> {
+  const canonical = canonicalJson(value);
+  const id = await shareIdOf(canonical, keyText);
+  const existing = await kv.get(KEY_PREFIX[kind] + id);
+  if (existing === null) await kv.put(KEY_PREFIX[kind] + id, canonical);
+  return id;
 }
 
 /**
- * Stores a validated value under the id of its canonical text. Stored values are immutable: the key is read first
- * and an existing value is never overwritten (the same text always maps to the same key anyway). `beforeWrite` runs
- * only when a new value is about to be written (the per-client budget of new links); it may throw to refuse.
+ * The stored canonical JSON text under an id, or null when the id is malformed (KV is then not read) or unknown. Ids
+ * of both schemes (keyed, and the plain SHA-256 of links issued before) are keys of the same form in the same store.
  */
-export async function saveShared(
-  kv: KVNamespace,
-  kind: SharedKind,
-  value: unknown,
-  beforeWrite?: () => Promise<void>,
-): Promise<StoredValue> {
-  const canonical = canonicalJson(value);
-  const id = await shareIdOf(canonical);
-  const existing = await kv.get(KEY_PREFIX[kind] + id);
-  if (existing !== null) return { id, created: false };
-  await beforeWrite?.();
-  await kv.put(KEY_PREFIX[kind] + id, canonical);
-  return { id, created: true };
-}
-
-/** The stored canonical JSON text under an id, or null when the id is malformed (KV is then not read) or unknown. */
 export async function loadSharedText(kv: KVNamespace, kind: SharedKind, id: string): Promise<string | null> {
   if (!isShareId(id)) return null;
   return kv.get(KEY_PREFIX[kind] + id);

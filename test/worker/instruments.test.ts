@@ -3,7 +3,16 @@
 import { spawn } from 'node:child_process';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { reverseKeys } from './helpers/panels';
-import { errorOf, freePort, freshPersistDir, postJson, ROOT, startWorker, type RunningWorker } from './helpers/worker';
+import {
+  errorOf,
+  freePort,
+  freshPersistDir,
+  LOCAL_ENV_FILE,
+  postJson,
+  ROOT,
+  startWorker,
+  type RunningWorker,
+} from './helpers/worker';
 
 const persistDir = freshPersistDir();
 let worker: RunningWorker;
@@ -46,19 +55,19 @@ const PROBES = [
 
 async function store(body: unknown): Promise<string> {
   const res = await postJson(worker, '/api/v1/instruments', body);
-  expect([200, 201]).toContain(res.status);
+  expect(res.status).toBe(201);
   return ((await res.json()) as { id: string }).id;
 }
 
 describe('POST and GET /api/v1/instruments', () => {
-  it('POST /api/v1/instruments stores a profile with 201 and an /i/ link; the same one again is 200', async () => {
+  it('POST /api/v1/instruments stores a profile with 201 and an /i/ link; again: 201, same body', async () => {
     const first = await postJson(worker, '/api/v1/instruments', { ...profile(), name: 'first store' });
     expect(first.status).toBe(201);
     const body = (await first.json()) as { id: string; url: string };
     expect(body.id).toMatch(/^[A-Za-z0-9_-]{24}$/);
     expect(body.url).toBe(`/i/${body.id}`);
     const again = await postJson(worker, '/api/v1/instruments', { ...profile(), name: 'first store' });
-    expect(again.status).toBe(200);
+    expect(again.status).toBe(201);
     expect(await again.json()).toEqual(body);
   });
 
@@ -303,6 +312,8 @@ async function startDev(port: number, dir: string): Promise<number> {
     [
       'wrangler',
       'dev',
+      '--env-file',
+      LOCAL_ENV_FILE,
       '--ip',
       '127.0.0.1',
       '--port',

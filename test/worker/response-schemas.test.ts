@@ -177,7 +177,7 @@ describe('share links and errors', () => {
       await bodyOf(await postJson(worker, '/api/v1/panels', examplePanel()), 201),
       'created',
     );
-    expectValid(ShareCreated, await bodyOf(await postJson(worker, '/api/v1/panels', examplePanel()), 200), 'again');
+    expectValid(ShareCreated, await bodyOf(await postJson(worker, '/api/v1/panels', examplePanel()), 201), 'again');
     expectValid(Panel, await bodyOf(await worker.call(`/api/v1/panels/${first.id}`), 200), 'stored');
   });
 

@@ -1,12 +1,31 @@
 // Share links on the real local runtime and KV: POST /api/v1/panels, GET /api/v1/panels/:id, /p/:id.
+import { createHash, createHmac } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { canonicalJson } from '../../worker/share-id';
 import { examplePanel, reverseKeys } from './helpers/panels';
-import { errorOf, freshPersistDir, postJson, startWorker, type RunningWorker } from './helpers/worker';
+import {
+  errorOf,
+  freshPersistDir,
+  localEnvVar,
+  plantKv,
+  postJson,
+  startWorker,
+  type RunningWorker,
+} from './helpers/worker';
 
 const persistDir = freshPersistDir();
 let worker: RunningWorker;
 
+/** A panel stored as a link issued before ids were keyed stored it: under the plain SHA-256 id of its content. */
+const OLD_SCHEME_PANEL = { ...examplePanel(), title: 'shared before ids were keyed' };
+const OLD_SCHEME_ID = createHash('sha256')
+  .update(canonicalJson(OLD_SCHEME_PANEL), 'utf8')
+  .digest()
+  .subarray(0, 18)
+  .toString('base64url');
+
 beforeAll(async () => {
+  plantKv(persistDir, `panel:${OLD_SCHEME_ID}`, canonicalJson(OLD_SCHEME_PANEL));
   worker = await startWorker(persistDir);
 });
 afterAll(async () => {
@@ -23,11 +42,21 @@ describe('POST /api/v1/panels', () => {
     expect(body.url).toBe(`/p/${body.id}`);
   });
 
-  it('POST /api/v1/panels of the same panel again answers 200 with the same id', async () => {
-    const first = await postJson(worker, '/api/v1/panels', examplePanel());
-    const again = await postJson(worker, '/api/v1/panels', examplePanel());
-    expect(again.status).toBe(200);
-    expect(await again.json()).toEqual(await first.json());
+  it('POST /api/v1/panels of the same panel again answers 201 with a body identical to the first answer', async () => {
+    const panel = { ...examplePanel(), title: 'shared twice' };
+    const first = await postJson(worker, '/api/v1/panels', panel);
+    const again = await postJson(worker, '/api/v1/panels', panel);
+    expect([first.status, again.status]).toEqual([201, 201]);
+    expect(await again.text()).toBe(await first.text());
+  });
+
+  it('POST /api/v1/panels gives an id that is not the plain SHA-256 of the canonical content', async () => {
+    const panel = { ...examplePanel(), title: 'keyed id' };
+    const { id } = (await (await postJson(worker, '/api/v1/panels', panel)).json()) as { id: string };
+    const unkeyed = createHash('sha256').update(canonicalJson(panel), 'utf8').digest().subarray(0, 18);
+    expect(id).not.toBe(unkeyed.toString('base64url'));
+    const keyed = createHmac('sha256', localEnvVar('SHARE_ID_KEY')).update(canonicalJson(panel), 'utf8').digest();
+    expect(id).toBe(keyed.subarray(0, 18).toString('base64url'));
   });
 
   it('POST /api/v1/panels gives the same id whatever the key order and white space', async () => {
@@ -124,7 +153,42 @@ describe('persistence', () => {
     const res = await worker.call(`/api/v1/panels/${id}`);
     expect(res.status).toBe(200);
     expect(await res.json()).toStrictEqual(panel);
-    expect((await postJson(worker, '/api/v1/panels', panel)).status).toBe(200);
+    expect((await postJson(worker, '/api/v1/panels', panel)).status).toBe(201);
+  });
+});
+
+describe('a deployment without SHARE_ID_KEY', () => {
+  it('POST /api/v1/panels answers 500 internal_error in the error shape and stores nothing', async () => {
+    const bare = await startWorker(freshPersistDir(), []);
+    try {
+      const res = await postJson(bare, '/api/v1/panels', examplePanel());
+      expect(res.status).toBe(500);
+      expect((await errorOf(res))?.code).toBe('internal_error');
+      const keyed = createHmac('sha256', localEnvVar('SHARE_ID_KEY')).update(canonicalJson(examplePanel()), 'utf8');
+      expect((await bare.call(`/api/v1/panels/${keyed.digest().subarray(0, 18).toString('base64url')}`)).status).toBe(
+        404,
+      );
+    } finally {
+      await bare.dispose();
+    }
+  });
+});
+
+describe('links issued before ids were keyed', () => {
+  it('GET /api/v1/panels/<old id> and /p/<old id> open a panel stored under its plain SHA-256 id', async () => {
+    const res = await worker.call(`/api/v1/panels/${OLD_SCHEME_ID}`);
+    expect(res.status).toBe(200);
+    expect(await res.json()).toStrictEqual(OLD_SCHEME_PANEL);
+    expect((await worker.call(`/p/${OLD_SCHEME_ID}`)).status).toBe(200);
+  });
+
+  it('POST /api/v1/panels of a panel stored under an old id gives its keyed id, and both ids open it', async () => {
+    const res = await postJson(worker, '/api/v1/panels', OLD_SCHEME_PANEL);
+    expect(res.status).toBe(201);
+    const { id } = (await res.json()) as { id: string };
+    expect(id).not.toBe(OLD_SCHEME_ID);
+    expect(await (await worker.call(`/api/v1/panels/${id}`)).json()).toStrictEqual(OLD_SCHEME_PANEL);
+    expect((await worker.call(`/api/v1/panels/${OLD_SCHEME_ID}`)).status).toBe(200);
   });
 });
 

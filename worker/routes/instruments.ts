@@ -1,9 +1,9 @@
 import { Hono } from 'hono';
 import type { AppEnv } from '../env';
-import { exampleInstruments, loadInstrumentText } from '../instruments';
+import { exampleIdOf, exampleInstruments, loadInstrumentText } from '../instruments';
 import { jsonBody } from '../middleware/json-body';
 import { ApiError, Instrument } from '../schemas/index';
-import { ID_PATH } from '../share-id';
+import { ID_PATH, shareIdKeyOf } from '../share-id';
 import { spendShareBudget } from '../share-budget';
 import { saveShared } from '../store';
 import { validJson } from '../validation';
@@ -23,10 +23,13 @@ export const instruments = new Hono<AppEnv>()
     return c.json({ instruments: list }, 200, { 'cache-control': 'public, max-age=3600' });
   })
   .post('/', jsonBody(), validJson(Instrument), async (c) => {
-    const { id, created } = await saveShared(c.env.PANELS, 'instrument', c.req.valid('json'), () =>
-      spendShareBudget(c),
-    );
-    return c.json({ id, url: `/i/${id}` }, created ? 201 : 200);
+    const sent = c.req.valid('json');
+    const key = shareIdKeyOf(c.env.SHARE_ID_KEY);
+    await spendShareBudget(c);
+    // An example profile keeps its public id (nothing is written); any other is stored under its keyed id.
+    const id = (await exampleIdOf(sent)) ?? (await saveShared(c.env.PANELS, 'instrument', sent, key));
+    // 201 whether or not the profile was stored before, as for panels.
+    return c.json({ id, url: `/i/${id}` }, 201);
   })
   .get(ID_PATH, async (c) => {
     const text = await loadInstrumentText(c.env.PANELS, c.req.param('id') ?? '');

@@ -1,6 +1,6 @@
 import { Hono } from 'hono';
 import { DEFAULT_GRID, evaluatePanel } from '../../spectra/index';
-import { ID_PATH } from '../share-id';
+import { ID_PATH, shareIdKeyOf } from '../share-id';
 import { resolvePanelRequest } from '../instruments';
 import type { AppEnv } from '../env';
 import { finiteJsonResponse } from '../json';
@@ -12,8 +12,9 @@ import { validJson } from '../validation';
 
 /**
  * Panels: POST /api/v1/panels/evaluate computes a panel's figures; POST /api/v1/panels stores a panel behind a share
- * link and GET /api/v1/panels/:id returns it as it was sent. A panel naming an instrument is resolved against it
- * (one storage read) before it is evaluated or stored, so a stored panel always names a profile that exists.
+ * link (201 and the same body on every share of it) and GET /api/v1/panels/:id returns it as it was sent. A panel
+ * naming an instrument is resolved against it (one storage read) before it is evaluated or stored, so a stored panel
+ * always names a profile that exists.
  */
 export const panels = new Hono<AppEnv>()
   .post('/evaluate', jsonBody(), validJson(PanelRequest), async (c) => {
@@ -23,8 +24,11 @@ export const panels = new Hono<AppEnv>()
   .post('/', jsonBody(), validJson(PanelRequest), async (c) => {
     const sent = c.req.valid('json');
     await resolvePanelRequest(c.env.PANELS, sent);
-    const { id, created } = await saveShared(c.env.PANELS, 'panel', sent, () => spendShareBudget(c));
-    return c.json({ id, url: `/p/${id}` }, created ? 201 : 200);
+    const key = shareIdKeyOf(c.env.SHARE_ID_KEY);
+    await spendShareBudget(c);
+    const id = await saveShared(c.env.PANELS, 'panel', sent, key);
+    // 201 whether or not the panel was stored before: the answer must not tell whether someone else shared it.
+    return c.json({ id, url: `/p/${id}` }, 201);
   })
   .get(ID_PATH, async (c) => {
     const text = await loadSharedText(c.env.PANELS, 'panel', c.req.param('id') ?? '');

@@ -61,6 +61,7 @@ export function snapshotRoot(): string {
     'package.json',
     'tsconfig.json',
     'wrangler.toml',
+    'local.env',
     'vite.config.ts',
   ]) {
     if (existsSync(join(ROOT, entry))) cpSync(join(ROOT, entry), join(dir, entry), { recursive: true });

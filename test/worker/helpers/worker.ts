@@ -4,7 +4,7 @@
  */
 import { createServer } from 'node:net';
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdtempSync } from 'node:fs';
+import { existsSync, mkdtempSync, readFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { unstable_startWorker } from 'wrangler';
@@ -22,9 +22,30 @@ export function ensureFrontEndBuilt(): void {
   execFileSync('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: ROOT, stdio: 'inherit' });
 }
 
+/** The file of local-only variables (the share-id key), relative to the repository root. */
+export const LOCAL_ENV_FILE = 'local.env';
+
+/** A variable of local.env (the key the local worker runs with). */
+export function localEnvVar(name: string): string {
+  const line = readFileSync(join(ROOT, LOCAL_ENV_FILE), 'utf8')
+    .split('\n')
+    .find((l) => l.startsWith(`${name}=`));
+  if (line === undefined) throw new Error(`${name} is not in ${LOCAL_ENV_FILE}`);
+  return line.slice(name.length + 1).trim();
+}
+
 /** A fresh temporary directory for local KV state. */
 export function freshPersistDir(): string {
   return mkdtempSync(join(tmpdir(), 'qdpanel-kv-'));
+}
+
+/** Writes a key straight into the local KV store with wrangler's own CLI (before a worker opens the directory). */
+export function plantKv(persistDir: string, key: string, value: string): void {
+  execFileSync(
+    'npx',
+    ['wrangler', 'kv', 'key', 'put', '--binding', 'PANELS', '--local', '--persist-to', persistDir, key, value],
+    { cwd: ROOT, env: { ...process.env, CI: 'true' }, stdio: 'pipe' },
+  );
 }
 
 /** A running worker: `call` fetches a path on it. */
@@ -34,11 +55,16 @@ export interface RunningWorker {
   dispose(): Promise<void>;
 }
 
-/** Starts the worker from wrangler.toml on 127.0.0.1 (free port), local KV persisted under `persistDir`. */
-export async function startWorker(persistDir: string): Promise<RunningWorker> {
+/**
+ * Starts the worker from wrangler.toml on 127.0.0.1 (free port), local KV persisted under `persistDir`, with the
+ * variables of `envFiles` (by default local.env, as `npm start` runs).
+ */
+export async function startWorker(persistDir: string, envFiles = [LOCAL_ENV_FILE]): Promise<RunningWorker> {
   ensureFrontEndBuilt();
   const worker = await unstable_startWorker({
     config: join(ROOT, 'wrangler.toml'),
+    // The local-only share-id key, as scripts/start.sh passes it.
+    envFiles,
     dev: {
       server: { hostname: '127.0.0.1', port: 0 },
       inspector: false,
