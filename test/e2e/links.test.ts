@@ -94,7 +94,7 @@ describe('links', () => {
     await page.close();
   });
 
-  it('a panel with a 1,000-point filter table, edited and reloaded, gives the same evaluation to the last digit', async () => {
+  it('a panel with a 1,000-point filter table, edited and reloaded, evaluates the same to the last digit', async () => {
     const { page, problems } = await newVisitor();
     await page.goto(`${app.baseUrl}/#${encodeFragment({ panel: TABLE_PANEL, view: { exclude: [] } })}`);
     await worst(page).waitFor();

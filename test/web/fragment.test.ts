@@ -23,7 +23,6 @@ function linkOf(bytes: Uint8Array): string {
   return 'v1.' + btoa(binary).replace(/\+/g, '-').replace(/\//g, '_').replace(/=+$/, '');
 }
 
-
 /** A panel with one probe and two channels, the first a 1,000-point measured filter table. */
 function tablePanel(): PanelSpec {
   const points: [number, number][] = Array.from({ length: 1000 }, (_, i) => {
@@ -147,5 +146,4 @@ describe('URL fragment', () => {
       expect(thinTable(table, 4)).toBe(table);
     },
   );
-
 });

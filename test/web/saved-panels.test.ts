@@ -1,13 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { createStore } from 'idb-keyval';
 import type { PanelSpec } from '../../spectra/index';
-import {
-  Autosaver,
-  SavedPanels,
-  STORAGE_OFF_NOTICE,
-  savedEntry,
-  type SavedPanel,
-} from '../../web/state/saved-panels';
+import { Autosaver, SavedPanels, STORAGE_OFF_NOTICE, savedEntry, type SavedPanel } from '../../web/state/saved-panels';
 
 /** A panel with a 605/20 band of `widthNm` width and a table of `points` points (the store keeps it whole). */
 function panel(title: string, widthNm = 20, points = 0): PanelSpec {

@@ -1,10 +1,6 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { ApiError } from '../../worker/schemas';
-import {
-  loadSharedPanelPatiently,
-  SHARE_RETRY_DELAYS_MS,
-  SHARED_NOT_FOUND,
-} from '../../web/io/shared-retry';
+import { loadSharedPanelPatiently, SHARE_RETRY_DELAYS_MS, SHARED_NOT_FOUND } from '../../web/io/shared-retry';
 
 const NOT_FOUND = { error: { code: 'not_found', message: 'no panel is stored under this id', path: ['id'] } };
 const PANEL = { version: 1, excitation: [], probes: [], channels: [] };

@@ -745,8 +745,7 @@ export class PanelApp extends LitElement {
           @saved-panel-open=${(e: CustomEvent<{ entry: SavedPanel }>) => this.openSaved(e.detail.entry)}
         ></qdp-my-panels>
         ${this.notice ? html`<p class="notice" role="status">${this.notice}</p>` : ''}
-        ${this.keptInBrowser ? this.keptNote() : ''}
-        ${this.sharedId ? this.sharedNote() : ''}
+        ${this.keptInBrowser ? this.keptNote() : ''} ${this.sharedId ? this.sharedNote() : ''}
         ${
           firstSteps(p)
             ? html`<p class="notice first-steps" role="status">${firstSteps(p)}</p>`

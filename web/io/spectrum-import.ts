@@ -1,6 +1,7 @@
 /**
  * Reads a measured spectrum (two-column CSV: wavelength nm, value) from a file or pasted text, through the spectral
- * library's parser; a table longer than a panel holds is resampled, and the warnings say so. Errors come back as the library's SpectraError message.
+ * library's parser; a table longer than a panel holds is resampled, and the warnings say so. Errors come back as the
+ * library's SpectraError message.
  */
 import { CSV_LIMITS, parseSpectrumCsv, type SpectrumCsvKind, type SpectrumPoints } from '../../spectra/index';
 import { MAX_TABLE_POINTS, thinTable } from '../state/thin-table';

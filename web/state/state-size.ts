@@ -39,9 +39,12 @@ export function sizeInWords(bytes: number): string {
 }
 
 /** What the page says of a link larger than MAX_STATE_BYTES. */
-export const LINK_TOO_LARGE = `This link holds more than ${sizeInWords(MAX_STATE_BYTES)} of panel data, more than the largest panel can hold — it was not opened.`;
+export const LINK_TOO_LARGE =
+  `This link holds more than ${sizeInWords(MAX_STATE_BYTES)} of panel data, more than the largest panel can ` +
+  'hold — it was not opened.';
 
 /** What the page says of a file larger than MAX_STATE_BYTES. */
 export function fileTooLarge(name: string): string {
-  return `${name} is larger than ${sizeInWords(MAX_STATE_BYTES)}, more than the largest panel can hold — it was not opened.`;
+  const size = sizeInWords(MAX_STATE_BYTES);
+  return `${name} is larger than ${size}, more than the largest panel can hold — it was not opened.`;
 }
