@@ -8,7 +8,7 @@ import { LIMITS, resampleTable, type SpectrumPoints } from '../../spectra/index'
 export const MAX_TABLE_POINTS = LIMITS.tablePoints;
 
 /** The table itself when it is short enough; otherwise `maxPoints` evenly spaced points, rounded. */
-export function thinTable(points: SpectrumPoints, maxPoints = MAX_TABLE_POINTS): SpectrumPoints {
+export function thinTable(points: SpectrumPoints, maxPoints: number = MAX_TABLE_POINTS): SpectrumPoints {
   if (points.length <= maxPoints) return points;
   const first = points[0][0];
   const span = points[points.length - 1][0] - first;
