@@ -5,6 +5,7 @@ import { page, userEvent } from 'vitest/browser';
 import '../../web/elements/panel-app';
 import { decodeFragment, encodeFragment } from '../../web/state/fragment';
 import { openRow } from './helpers/page-rows';
+import { fileTooLarge, MAX_STATE_BYTES } from '../../web/state/state-size';
 
 type Host = HTMLElement & { updateComplete: Promise<unknown> };
 
@@ -184,5 +185,19 @@ describe('<qdp-panel-app> refusals in the user’s words', () => {
       .poll(() => headerAlert(app))
       .toBe("Not updated: Channel 'Yellow': a centre of 5000 nm is outside 200–2000 nm");
     expect(staleNote(app)).not.toBeNull();
+  });
+});
+
+describe('reading a panel file', () => {
+  it('a file one byte over the largest state is refused by its size with the notice, and the demo stays', async () => {
+    const app = await openPage();
+    const file = new File([new Uint8Array(MAX_STATE_BYTES + 1)], 'huge.json', { type: 'application/json' });
+    const input = app.shadowRoot!.querySelector('header input[type="file"]') as HTMLInputElement;
+    const files = new DataTransfer();
+    files.items.add(file);
+    input.files = files.files;
+    input.dispatchEvent(new Event('change', { bubbles: true }));
+    await expect.poll(() => text(app)).toContain(fileTooLarge('huge.json'));
+    expect((app.shadowRoot!.querySelector('header input[type="text"]') as HTMLInputElement).value).toContain('Demo');
   });
 });
