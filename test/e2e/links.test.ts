@@ -175,6 +175,12 @@ describe('links', () => {
     await worst(page).waitFor();
     expect(await titleInput(page).inputValue()).toBe('Six measured filters');
     expect(await evaluationOf(page)).toBe(before);
+    expect(await page.locator('qdp-panel-app p.kept').innerText()).toContain(KEPT_IN_BROWSER);
+    // The bare address opens this browser's last state: the copy kept in My panels.
+    await page.goto(app.baseUrl + '/');
+    await expect.poll(() => titleInput(page).inputValue()).toBe('Six measured filters');
+    await worst(page).waitFor();
+    expect(await evaluationOf(page)).toBe(before);
     expect(problems).toEqual([]);
     await page.close();
   });

@@ -346,6 +346,7 @@ export class PanelApp extends LitElement {
         (location.hash ? (history.state as { savedId?: string } | null)?.savedId : readLastSavedId());
       const entry = savedId ? await this.savedPanels.get(savedId) : undefined;
       this.load(r.state.panel, r.state.view.exclude, false, savedId || undefined);
+      this.keptInBrowser = draftIdOf(location.hash || last) !== undefined;
       if (entry) this.keptIds.add(entry.id);
       if (r.state.view.instrument) await this.reattach(r.state.view.instrument);
     } catch (e) {
@@ -599,6 +600,8 @@ export class PanelApp extends LitElement {
     writeLastState(fragment);
     if (this.keptInBrowser) this.keptIds.add(this.savedId);
     this.autosave();
+    // The address does not hold a kept panel: its copy in My panels is written at once, not after a pause.
+    if (this.keptInBrowser) void this.saver.flush();
     const now = Date.now();
     const push = mode === 'push' && (own || now - this.lastPushMs > STEP_MS);
     writeHistory(push, { savedId: this.savedId, ...(this.keptInBrowser ? { page } : {}) }, `${path}#${fragment}`);
