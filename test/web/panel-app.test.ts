@@ -6,6 +6,7 @@ import '../../web/elements/panel-app';
 import { decodeFragment, encodeFragment } from '../../web/state/fragment';
 import { openRow } from './helpers/page-rows';
 import { fileTooLarge, MAX_STATE_BYTES } from '../../web/state/state-size';
+import { DRAFT_NOT_HERE } from '../../web/state/fragment';
 
 type Host = HTMLElement & { updateComplete: Promise<unknown> };
 
@@ -198,6 +199,15 @@ describe('reading a panel file', () => {
     input.files = files.files;
     input.dispatchEvent(new Event('change', { bubbles: true }));
     await expect.poll(() => text(app)).toContain(fileTooLarge('huge.json'));
+    expect((app.shadowRoot!.querySelector('header input[type="text"]') as HTMLInputElement).value).toContain('Demo');
+  });
+});
+
+describe('an address naming a panel kept in another browser', () => {
+  it('#d1.<id> of an entry this browser lacks says where the panel is and shows the demo', async () => {
+    history.replaceState(null, '', '#d1.no-such-entry');
+    const app = await openPage();
+    await expect.poll(() => text(app)).toContain(DRAFT_NOT_HERE);
     expect((app.shadowRoot!.querySelector('header input[type="text"]') as HTMLInputElement).value).toContain('Demo');
   });
 });
