@@ -1,6 +1,48 @@
 import { describe, expect, it } from 'vitest';
-import { decodeFragment, encodeFragment, type PageState } from '../../web/state/fragment';
+import { deflateSync } from 'fflate';
+import {
+  decodeFragment,
+  draftFragment,
+  draftIdOf,
+  encodeFragment,
+  inflateCapped,
+  LinkTooLargeError,
+  type PageState,
+} from '../../web/state/fragment';
+import { MAX_STATE_BYTES } from '../../web/state/state-size';
 import { thinTable } from '../../web/state/thin-table';
+import { readPageState } from '../../web/state/checks';
+import { computePanel } from '../../web/state/compute';
+import { deflateBomb as bomb } from './helpers/deflate-bomb';
+import type { PanelSpec } from '../../spectra/index';
+
+/** The fragment text of raw DEFLATE `bytes` (base64url), as a link writes it. */
+function linkOf(bytes: Uint8Array): string {
+  let binary = '';
+  for (let i = 0; i < bytes.length; i += 0x8000) binary += String.fromCharCode(...bytes.subarray(i, i + 0x8000));
+  return 'v1.' + btoa(binary).replace(/\+/g, '-').replace(/\//g, '_').replace(/=+$/, '');
+}
+
+/** A panel with one probe and two channels, the first a 1,000-point measured filter table. */
+function tablePanel(): PanelSpec {
+  const points: [number, number][] = Array.from({ length: 1000 }, (_, i) => {
+    const nm = 500 + i * 0.2137;
+    return [nm, 0.93 / (1 + Math.exp(-(nm - 560) / 3.1)) / (1 + Math.exp((nm - 640) / 2.7)) + i * 1e-7];
+  });
+  return {
+    version: 1,
+    title: 'Measured filter',
+    excitation: [{ wavelengthNm: 405 }],
+    probes: [
+      { id: 'p1', material: 'cdse', emissionPeakNm: 605 },
+      { id: 'p2', material: 'cdse', emissionPeakNm: 655 },
+    ],
+    channels: [
+      { id: 'c1', filters: [{ type: 'table', points }] },
+      { id: 'c2', filters: [{ type: 'bandpass', centerNm: 655, widthNm: 20 }] },
+    ],
+  };
+}
 
 const state: PageState = {
   panel: {
@@ -24,26 +66,57 @@ describe('URL fragment', () => {
     expect(encodeFragment(state)).toMatch(/^v1\.[A-Za-z0-9_-]+$/);
   });
 
-  it('encodeFragment(state) thins a 2,000-point measured spectrum to 200 points', () => {
-    const points: [number, number][] = Array.from({ length: 2000 }, (_, i) => [
-      400 + i * 0.2,
-      Math.exp(-(((i - 1000) / 300) ** 2)),
-    ]);
-    const big: PageState = {
-      ...state,
-      panel: { ...state.panel, probes: [{ id: 'p1', material: 'custom', measuredEmission: { points } }] },
-    };
-    const back = decodeFragment(encodeFragment(big)) as PageState;
-    const thin = back.panel.probes[0].measuredEmission!.points;
-    expect(thin.length).toBe(200);
-    expect(thin[0][0]).toBeCloseTo(400, 6);
-    expect(thin[199][0]).toBeCloseTo(points[1999][0], 2);
-  });
-
   it('decodeFragment("") gives null and decodeFragment of a damaged link throws a plain message', () => {
     expect(decodeFragment('')).toBeNull();
     expect(() => decodeFragment('#v1.notdeflate')).toThrow(/damaged/);
     expect(() => decodeFragment('#v9.abc')).toThrow(/another version/);
+  });
+
+  it('encodeFragment keeps a 1,000-point measured filter table whole: every point comes back exactly', () => {
+    const panel = tablePanel();
+    const back = decodeFragment(encodeFragment({ panel, view: { exclude: [] } })) as PageState;
+    expect(back.panel).toEqual(panel);
+  });
+
+  it('a panel with a 1,000-point filter table read back from its link gives identical spillover numbers', () => {
+    const panel = tablePanel();
+    const r = readPageState(decodeFragment(encodeFragment({ panel, view: { exclude: [] } })));
+    if (!r.ok) throw new Error(r.message);
+    const before = computePanel(panel, { byBrightness: true });
+    const after = computePanel(r.state.panel, { byBrightness: true });
+    if (!before.ok || !after.ok) throw new Error('the panel was not computed');
+    expect(after.value.evaluation.spillover).toEqual(before.value.evaluation.spillover);
+    expect(after.value.evaluation.collected).toEqual(before.value.evaluation.collected);
+  });
+
+  it('decodeFragment refuses a link inflating to 400 MiB with LinkTooLargeError in under 1000 ms', () => {
+    const text = linkOf(bomb(400 * 1024 * 1024));
+    const started = performance.now();
+    expect(() => decodeFragment('#' + text)).toThrow(LinkTooLargeError);
+    expect(performance.now() - started).toBeLessThan(1000);
+  });
+
+  it('the refusal of a too-large link says it holds more than the cap and was not opened', () => {
+    expect(() => decodeFragment(linkOf(bomb(MAX_STATE_BYTES + 1)))).toThrow(
+      /^This link holds more than 31 MB of panel data.* — it was not opened\.$/,
+    );
+  });
+
+  it('inflateCapped gives back data of exactly the cap and refuses one byte more', () => {
+    const data = new Uint8Array(5000).map((_, i) => (i * 7919) % 251);
+    expect(inflateCapped(deflateSync(data), 5000)).toEqual(data);
+    expect(() => inflateCapped(deflateSync(data), 4999)).toThrow(LinkTooLargeError);
+  });
+
+  it('decodeFragment refuses a fragment text longer than any state within the cap, before decoding it', () => {
+    expect(() => decodeFragment('v1.' + 'A'.repeat(Math.ceil((MAX_STATE_BYTES * 4) / 3) + 8192))).toThrow(
+      LinkTooLargeError,
+    );
+  });
+
+  it('draftFragment(id) names the saved entry that draftIdOf reads back; a link names none', () => {
+    expect(draftIdOf('#' + draftFragment('abc-123'))).toBe('abc-123');
+    expect(draftIdOf(encodeFragment(state))).toBeUndefined();
   });
 
   it('thinTable(points, 5) interpolates linearly between the samples at five evenly spaced wavelengths', () => {
@@ -73,43 +146,4 @@ describe('URL fragment', () => {
       expect(thinTable(table, 4)).toBe(table);
     },
   );
-
-  // Recorded from encodeFragment as the page wrote it before its thinning moved onto the library's resampleTable:
-  // the same panel must keep the same link text.
-  it('encodeFragment(panel with four long tables) is byte for byte the link text the page wrote before', async () => {
-    const curve = (n: number, from: number, step: number, f: (i: number) => number): [number, number][] =>
-      Array.from({ length: n }, (_, i) => [Number((from + i * step).toFixed(4)), f(i)]);
-    const long: PageState = {
-      panel: {
-        version: 1,
-        title: 'Thinning check',
-        excitation: [{ wavelengthNm: 405 }],
-        probes: [
-          {
-            id: 'p1',
-            material: 'custom',
-            measuredEmission: { points: curve(2000, 400.013, 0.1731, (i) => Math.exp(-(((i - 1000) / 310) ** 2))) },
-            extinction: {
-              points: curve(1500, 300.5, 0.2, (i) => 60000 * Math.exp(-(((i - 400) / 200) ** 2)) + i / 7),
-            },
-          },
-        ],
-        channels: [
-          {
-            id: 'c1',
-            filters: [
-              { type: 'table', points: curve(1203, 500, 0.25, (i) => 0.9 / (1 + Math.exp((i % 601) / 37 - 8))) },
-            ],
-          },
-        ],
-        background: { level: 0.1, points: curve(999, 350, 0.5, (i) => Math.sin(i / 90) ** 2 + 0.01) },
-      },
-      view: { exclude: ['lead'] },
-    };
-    const text = encodeFragment(long);
-    const digest = await crypto.subtle.digest('SHA-256', new TextEncoder().encode(text));
-    const hex = [...new Uint8Array(digest)].map((b) => b.toString(16).padStart(2, '0')).join('');
-    expect(text.length).toBe(8410);
-    expect(hex).toBe('f5aed0df95e7fb5a03b5c7fd2e098a839f5fe5294f944c864bcc0f1542c1de09');
-  });
 });

@@ -5,6 +5,8 @@ import { page, userEvent } from 'vitest/browser';
 import '../../web/elements/panel-app';
 import { decodeFragment, encodeFragment } from '../../web/state/fragment';
 import { openRow } from './helpers/page-rows';
+import { fileTooLarge, MAX_STATE_BYTES } from '../../web/state/state-size';
+import { DRAFT_NOT_HERE } from '../../web/state/fragment';
 
 type Host = HTMLElement & { updateComplete: Promise<unknown> };
 
@@ -209,5 +211,28 @@ describe('<qdp-panel-app> refusals in the user’s words', () => {
       .poll(() => headerAlert(app))
       .toBe("Not updated: Channel 'Yellow': a centre of 5000 nm is outside 200–2000 nm");
     expect(staleNote(app)).not.toBeNull();
+  });
+});
+
+describe('reading a panel file', () => {
+  it('a file one byte over the largest state is refused by its size with the notice, and the demo stays', async () => {
+    const app = await openPage();
+    const file = new File([new Uint8Array(MAX_STATE_BYTES + 1)], 'huge.json', { type: 'application/json' });
+    const input = app.shadowRoot!.querySelector('header input[type="file"]') as HTMLInputElement;
+    const files = new DataTransfer();
+    files.items.add(file);
+    input.files = files.files;
+    input.dispatchEvent(new Event('change', { bubbles: true }));
+    await expect.poll(() => text(app)).toContain(fileTooLarge('huge.json'));
+    expect((app.shadowRoot!.querySelector('header input[type="text"]') as HTMLInputElement).value).toContain('Demo');
+  });
+});
+
+describe('an address naming a panel kept in another browser', () => {
+  it('#d1.<id> of an entry this browser lacks says where the panel is and shows the demo', async () => {
+    history.replaceState(null, '', '#d1.no-such-entry');
+    const app = await openPage();
+    await expect.poll(() => text(app)).toContain(DRAFT_NOT_HERE);
+    expect((app.shadowRoot!.querySelector('header input[type="text"]') as HTMLInputElement).value).toContain('Demo');
   });
 });

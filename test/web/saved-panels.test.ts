@@ -1,15 +1,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { createStore } from 'idb-keyval';
-import { decodeFragment, encodeFragment } from '../../web/state/fragment';
 import type { PanelSpec } from '../../spectra/index';
-import {
-  Autosaver,
-  fullPanelOf,
-  SavedPanels,
-  STORAGE_OFF_NOTICE,
-  savedEntry,
-  type SavedPanel,
-} from '../../web/state/saved-panels';
+import { Autosaver, SavedPanels, STORAGE_OFF_NOTICE, savedEntry, type SavedPanel } from '../../web/state/saved-panels';
 
 /** A panel with a 605/20 band of `widthNm` width and a table of `points` points (the store keeps it whole). */
 function panel(title: string, widthNm = 20, points = 0): PanelSpec {
@@ -104,25 +96,6 @@ describe('saved panels in IndexedDB', () => {
     const store = freshStore();
     await store.put(savedEntry('a', { panel: panel(''), exclude: [] }, at('2026-01-01T00:00:00Z')));
     expect((await store.get('a'))!.name).toBe('Untitled panel');
-  });
-});
-
-describe('the whole copy behind a link', () => {
-  /** The panel a link to `p` holds, as the page decodes it (tables thinned). */
-  const linked = (p: PanelSpec) =>
-    (decodeFragment(encodeFragment({ panel: p, view: { exclude: [] } })) as { panel: unknown }).panel;
-
-  it("a saved 3,000-point table replaces the link's thinned copy of the same panel", () => {
-    const p = panel('Big table', 20, 3000);
-    const whole = fullPanelOf(savedEntry('a', { panel: p, exclude: [] }, at('2026-01-01T00:00:00Z')), linked(p));
-    const table = whole?.channels[1].filters[0];
-    expect(table?.type === 'table' && table.points.length).toBe(3000);
-  });
-
-  it('a link to a panel edited since it was saved, or no saved entry, keeps the link', () => {
-    const saved = savedEntry('a', { panel: panel('Big table', 20, 3000), exclude: [] }, at('2026-01-01T00:00:00Z'));
-    expect(fullPanelOf(saved, linked(panel('Big table', 30, 3000)))).toBeUndefined();
-    expect(fullPanelOf(undefined, linked(panel('Big table', 20, 3000)))).toBeUndefined();
   });
 });
 

@@ -52,6 +52,26 @@ async function typeOrangeCentre(app: Host, keys: string): Promise<void> {
   await userEvent.type(input, keys);
 }
 
+/** The panel title the header shows. */
+const titleOf = (app: Host) => (app.shadowRoot!.querySelector('header input[type="text"]') as HTMLInputElement).value;
+
+/** A small valid panel: one dot, one bandpass channel. */
+const SMALL = {
+  version: 1,
+  excitation: [{ wavelengthNm: 405 }],
+  probes: [{ id: 'p1', material: 'cdse', emissionPeakNm: 605 }],
+  channels: [{ id: 'c1', filters: [{ type: 'bandpass', centerNm: 605, widthNm: 20 }] }],
+};
+
+/** Chooses `file` in the header's "Open panel JSON" input, as the file dialog does. */
+function chooseFile(app: Host, file: File): void {
+  const input = app.shadowRoot!.querySelector('header input[type="file"]') as HTMLInputElement;
+  const files = new DataTransfer();
+  files.items.add(file);
+  input.files = files.files;
+  input.dispatchEvent(new Event('change', { bubbles: true }));
+}
+
 describe('undo and redo on the page', () => {
   it('on the opened demo both Undo and Redo are disabled', async () => {
     const app = await openPage();
@@ -124,5 +144,34 @@ describe('undo and redo on the page', () => {
       .poll(() => inner(app, 'qdp-channel-list').shadowRoot!.querySelectorAll('qdp-channel-card').length)
       .toBe(6);
     expect((app.shadowRoot!.querySelector('header input[type="text"]') as HTMLInputElement).value).toContain('Demo');
+  });
+  it('an opened panel file is one step: Undo brings back the demo', async () => {
+    const app = await openPage();
+    const file = new File([JSON.stringify({ ...SMALL, title: 'From a file' })], 'small.json', {
+      type: 'application/json',
+    });
+    chooseFile(app, file);
+    await expect.poll(() => titleOf(app)).toBe('From a file');
+    await userEvent.click(headerButton(app, 'Undo')!);
+    await expect.poll(() => titleOf(app)).toContain('Demo');
+  });
+
+  it('a loaded proposal is one step: Undo brings back the demo', async () => {
+    const app = await openPage();
+    const panel = { ...SMALL, title: 'Proposed' };
+    inner(app, 'main').dispatchEvent(new CustomEvent('panel-proposed', { detail: { panel }, bubbles: true }));
+    await expect.poll(() => titleOf(app)).toBe('Proposed');
+    await userEvent.click(headerButton(app, 'Undo')!);
+    await expect.poll(() => titleOf(app)).toContain('Demo');
+  });
+
+  it('"Open the demo panel" after "New panel" is one step: Undo brings back the new panel', async () => {
+    const app = await openPage();
+    await userEvent.click(headerButton(app, 'New panel')!);
+    await expect.poll(() => titleOf(app)).toBe('Untitled panel');
+    await userEvent.click(headerButton(app, 'Open the demo panel')!);
+    await expect.poll(() => titleOf(app)).toContain('Demo');
+    await userEvent.click(headerButton(app, 'Undo')!);
+    await expect.poll(() => titleOf(app)).toBe('Untitled panel');
   });
 });

@@ -22,8 +22,18 @@ import { placeError, type FieldError } from '../state/error-map';
 import { inUserWords } from '../state/user-words';
 import { isPanelExclusion, offendingProbes, withExclusions, type PanelExclusion } from '../state/exclusions';
 import { designParts } from '../state/design-request';
-import { decodeFragment, encodeFragment, type ViewOptions } from '../state/fragment';
+import {
+  decodeFragment,
+  draftFragment,
+  draftIdOf,
+  DRAFT_NOT_HERE,
+  encodeFragment,
+  KEPT_IN_BROWSER,
+  MAX_LINK_CHARS,
+  type ViewOptions,
+} from '../state/fragment';
 import { checksIfLoaded, loadChecks } from '../state/load-checks';
+import { fileTooLarge, MAX_STATE_BYTES } from '../state/state-size';
 import {
   addChannel,
   addProbe,
@@ -45,7 +55,6 @@ import {
 } from '../state/instrument';
 import {
   Autosaver,
-  fullPanelOf,
   newSavedId,
   openSavedPanels,
   readLastSavedId,
@@ -85,6 +94,16 @@ function writeLastState(fragment: string): void {
     localStorage.setItem(LAST_STATE_KEY, fragment);
   } catch {
     // Storage off or full: the address still holds the state.
+  }
+}
+
+/** Pushes or replaces the history entry; a state the browser will not keep in it is left to My panels. */
+function writeHistory(push: boolean, state: { savedId: string; page?: unknown }, url: string): void {
+  const write = (s: unknown) => (push ? history.pushState(s, '', url) : history.replaceState(s, '', url));
+  try {
+    write(state);
+  } catch {
+    write({ savedId: state.savedId });
   }
 }
 
@@ -176,6 +195,8 @@ export class PanelApp extends LitElement {
   private beforeSwitch?: { panel: PanelSpec; instrument?: AttachedInstrument };
   /** Bandpass sizes dragged or typed land on the nearest stock size (kept in the fragment). */
   @state() private snapStock = false;
+  /** True while the panel is too large for the address and is kept in this browser instead (a notice says so). */
+  @state() private keptInBrowser = false;
   @query('qdp-spectrum-chart') private chart?: SpectrumChart;
   @query('qdp-panel-report') private report?: PanelReport;
   private lastPushMs = 0;
@@ -315,7 +336,7 @@ export class PanelApp extends LitElement {
     try {
       // A bare address opens the last state of this browser, so a reload never loses the work.
       const last = location.hash ? '' : readLastState();
-      const raw = decodeFragment(location.hash || last);
+      const raw = await this.addressState(location.hash || last, !!location.hash);
       if (raw === null) return this.loadFirst(demoPanel());
       if (last) {
         this.notice = 'Your last panel in this browser is back. "New panel" or "Open the demo panel" starts afresh.';
@@ -324,12 +345,13 @@ export class PanelApp extends LitElement {
       const r = readPageState(raw);
       if (!r.ok) throw new Error(`The link's panel is not valid (${r.message}).`);
       this.snapStock = r.state.view.snapStock ?? false;
-      // The same working panel keeps its entry in My panels, whose copy has the measured tables whole.
-      const savedId = location.hash ? (history.state as { savedId?: string } | null)?.savedId : readLastSavedId();
+      // The same working panel keeps its entry in My panels.
+      const savedId =
+        draftIdOf(location.hash || last) ??
+        (location.hash ? (history.state as { savedId?: string } | null)?.savedId : readLastSavedId());
       const entry = savedId ? await this.savedPanels.get(savedId) : undefined;
-      const full = fullPanelOf(entry, (raw as { panel?: unknown }).panel);
-      const whole = full ? readPageState({ panel: full }) : undefined;
-      this.load(whole?.ok ? whole.state.panel : r.state.panel, r.state.view.exclude, false, savedId || undefined);
+      this.load(r.state.panel, r.state.view.exclude, false, savedId || undefined);
+      this.keptInBrowser = draftIdOf(location.hash || last) !== undefined;
       if (entry) this.keptIds.add(entry.id);
       if (r.state.view.instrument) await this.reattach(r.state.view.instrument);
     } catch (e) {
@@ -339,11 +361,27 @@ export class PanelApp extends LitElement {
     this.settle();
   }
 
+  /**
+   * The raw state a fragment holds: a link's, or, for a panel too large for the address, the copy in this page's
+   * history entry (`inHistory`: the fragment is the address's) or in My panels. Null for an empty fragment.
+   */
+  private async addressState(fragment: string, inHistory: boolean): Promise<unknown> {
+    const draftId = draftIdOf(fragment);
+    if (draftId === undefined) return decodeFragment(fragment);
+    const page = inHistory ? (history.state as { page?: unknown } | null)?.page : undefined;
+    if (page) return page;
+    const entry = await this.savedPanels.get(draftId);
+    if (!entry) throw new Error(DRAFT_NOT_HERE);
+    const view = { exclude: entry.exclude, ...(entry.instrument ? { instrument: entry.instrument } : {}) };
+    return { panel: entry.panel, view };
+  }
+
   private async openShared(id: string): Promise<void> {
     this.sharedId = id;
     this.notice = 'Loading the shared panel…';
     try {
-      const raw = await import('../io/api').then((api) => api.loadSharedPanel(id));
+      const { loadSharedPanelPatiently, SHARED_NOT_YET } = await import('../io/shared-retry');
+      const raw = await loadSharedPanelPatiently(id, { onWait: () => (this.notice = SHARED_NOT_YET) });
       const { panel, instrument } = await this.readRequest(raw);
       this.notice = '';
       this.instrument = instrument;
@@ -515,7 +553,7 @@ export class PanelApp extends LitElement {
     this.panel = panel;
     this.track(own);
     this.refresh();
-    if (history !== 'none' && !this.sharedId) this.writeFragment(history);
+    if (history !== 'none' && !this.sharedId) this.writeFragment(history, own);
   }
 
   /**
@@ -566,18 +604,27 @@ export class PanelApp extends LitElement {
     }
   }
 
-  private writeFragment(mode: 'push' | 'replace'): void {
+  /**
+   * Writes the state into the address and this browser. A push within STEP_MS of the last joins its entry, except a
+   * loaded panel (`own`), which always gets an entry of its own, as does the edit after it: Back shows every state. A
+   * state too long for the address (MAX_LINK_CHARS) is kept whole in the history entry and My panels instead.
+   */
+  private writeFragment(mode: 'push' | 'replace', own = false): void {
     // A shared copy's /p/<id> opens the stored panel whatever the fragment: an edited panel lives at /.
     const path = SHARED_PATH.test(location.pathname) ? '/' : location.pathname;
-    const fragment = encodeFragment({ panel: this.panel, view: this.view() });
-    const url = `${path}#${fragment}`;
+    const page = { panel: this.panel, view: this.view() };
+    const link = encodeFragment(page);
+    this.keptInBrowser = link.length > MAX_LINK_CHARS;
+    const fragment = this.keptInBrowser ? draftFragment(this.savedId) : link;
     writeLastState(fragment);
+    if (this.keptInBrowser) this.keptIds.add(this.savedId);
     this.autosave();
+    // The address does not hold a kept panel: its copy in My panels is written at once, not after a pause.
+    if (this.keptInBrowser) void this.saver.flush();
     const now = Date.now();
-    const state = { savedId: this.savedId };
-    if (mode === 'push' && now - this.lastPushMs > STEP_MS) history.pushState(state, '', url);
-    else history.replaceState(state, '', url);
-    this.lastPushMs = now;
+    const push = mode === 'push' && (own || now - this.lastPushMs > STEP_MS);
+    writeHistory(push, { savedId: this.savedId, ...(this.keptInBrowser ? { page } : {}) }, `${path}#${fragment}`);
+    this.lastPushMs = own ? 0 : now;
   }
 
   /** The view options the fragment keeps besides the panel. */
@@ -592,12 +639,16 @@ export class PanelApp extends LitElement {
   private duplicate(): void {
     this.sharedId = '';
     this.panel = { ...this.panel, title: `${this.panel.title ?? 'Panel'} (copy)` };
-    history.pushState(null, '', `/#${encodeFragment({ panel: this.panel, view: this.view() })}`);
+    history.pushState(null, '', '/');
     this.apply(this.panel, 'replace');
   }
 
   private async importJson(file: File | undefined): Promise<void> {
     if (!file) return;
+    if (file.size > MAX_STATE_BYTES) {
+      this.notice = fileTooLarge(file.name);
+      return;
+    }
     try {
       const { panel, instrument } = await this.readRequest(JSON.parse(await file.text()));
       this.notice = `Opened ${file.name}.`;
@@ -631,6 +682,22 @@ export class PanelApp extends LitElement {
     const p = this.panel;
     if (p.probes.length === 0 || p.channels.length === 0) return undefined;
     return designParts(p);
+  }
+
+  /** The panel lives in this browser, not the address: say so, with a way to Share it. */
+  private keptNote() {
+    return html`<p class="notice kept" role="status">
+      ${KEPT_IN_BROWSER} <button type="button" @click=${this.goToShare}>Go to Share</button>
+    </p>`;
+  }
+
+  /** Shows the results and puts the focus on the Share button under "Share and export". */
+  private async goToShare(): Promise<void> {
+    this.shownView = 'results';
+    await this.updateComplete;
+    const actions = this.renderRoot.querySelector('qdp-panel-actions');
+    this.renderRoot.querySelector('#h-share')?.scrollIntoView({ block: 'start' });
+    actions?.shadowRoot?.querySelector<HTMLButtonElement>('button')?.focus();
   }
 
   private sharedNote() {
@@ -700,7 +767,7 @@ export class PanelApp extends LitElement {
           @saved-panel-open=${(e: CustomEvent<{ entry: SavedPanel }>) => this.openSaved(e.detail.entry)}
         ></qdp-my-panels>
         ${this.notice ? html`<p class="notice" role="status">${this.notice}</p>` : ''}
-        ${this.sharedId ? this.sharedNote() : ''}
+        ${this.keptInBrowser ? this.keptNote() : ''} ${this.sharedId ? this.sharedNote() : ''}
         ${
           firstSteps(p)
             ? html`<p class="notice first-steps" role="status">${firstSteps(p)}</p>`

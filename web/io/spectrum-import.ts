@@ -1,11 +1,12 @@
 /**
  * Reads a measured spectrum (two-column CSV: wavelength nm, value) from a file or pasted text, through the spectral
- * library's parser, and thins it for links. Errors come back as the library's SpectraError message.
+ * library's parser; a table longer than a panel holds is resampled, and the warnings say so. Errors come back as the
+ * library's SpectraError message.
  */
 import { CSV_LIMITS, parseSpectrumCsv, type SpectrumCsvKind, type SpectrumPoints } from '../../spectra/index';
-import { thinTable } from '../state/thin-table';
+import { MAX_TABLE_POINTS, thinTable } from '../state/thin-table';
 
-/** The parsed table (≤ MAX_LINK_POINTS points) and the parser's warnings, or an error message for the user. */
+/** The parsed table (≤ MAX_TABLE_POINTS points) and the parser's warnings, or an error message for the user. */
 export type ImportResult = { ok: true; points: SpectrumPoints; warnings: string[] } | { ok: false; message: string };
 
 /** What the values mean: relative emission or background, 0–1 transmission, or extinction in M⁻¹ cm⁻¹. */
@@ -21,7 +22,7 @@ export function importSpectrumText(text: string, kind: ImportKind): ImportResult
     const thin = thinTable(points);
     const note =
       thin.length < points.length
-        ? [`resampled from ${points.length} to ${thin.length} points to keep links short`]
+        ? [`resampled from ${points.length} to ${thin.length} points, the most a panel holds (${MAX_TABLE_POINTS})`]
         : [];
     return { ok: true, points: thin, warnings: [...warnings, ...note] };
   } catch (e) {

@@ -6,9 +6,7 @@
  */
 import { createStore, del, entries, get, set, setMany, delMany, type UseStore } from 'idb-keyval';
 import type { PanelSpec } from '../../spectra/index';
-import canonicalize from 'canonicalize';
 import type { PanelExclusion } from './exclusions';
-import { thinPanel } from './fragment';
 
 /** Most panels kept; saving one more drops the oldest. */
 export const SAVED_PANEL_LIMIT = 50;
@@ -168,16 +166,6 @@ export function writeLastSavedId(id: string): void {
   } catch {
     // Storage off or full: the address and the last state still hold the panel.
   }
-}
-
-/**
- * The saved entry's panel when it is the panel a link or the last state holds (thinned for the address, `linked` is
- * its decoded JSON): the entry keeps its measured tables whole. Undefined when they differ (the link is newer).
- */
-export function fullPanelOf(entry: SavedPanel | undefined, linked: unknown): PanelSpec | undefined {
-  if (!entry) return undefined;
-  const same = canonicalize(JSON.parse(JSON.stringify(thinPanel(entry.panel)))) === canonicalize(linked);
-  return same ? entry.panel : undefined;
 }
 
 /** The page's kept panels: database "qdpanel", object store "panels". */
