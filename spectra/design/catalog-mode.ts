@@ -15,6 +15,7 @@ import type { SearchProgress } from './search';
 import { snrSearchSteps, type SnrRun } from './snr-run';
 import type { SnrScore } from './snr';
 import { lockIndices } from './locks';
+import { chunkNodesFor } from './cost';
 import { targetsOf, type DesignRequest } from './request';
 import { worstInterference } from './objective';
 import { fullEnumerationSize } from './problem';
@@ -150,7 +151,8 @@ export function* catalogDesignSteps(
     ceiling: o.maxInterference,
     locks,
   };
-  const run = yield* snrSearchSteps(problem, o.nodeBudget, 2000, [], shouldStop);
+  const chunk = chunkNodesFor(n * probes.length * channels.length, 2000);
+  const run = yield* snrSearchSteps(problem, o.nodeBudget, chunk, [], shouldStop);
   const found = run.result;
   if (!found.design) {
     throw new NoDesignFound(

@@ -21,6 +21,7 @@ import type { SearchProgress } from './search';
 import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
 import { interferenceWords, LEFT_OUT_WORDS, searchStats, type DesignSearchStats } from './catalog-mode';
 import { lockIndices } from './locks';
+import { chunkNodesFor } from './cost';
 import { snrSearchSteps } from './snr-run';
 import type { SnrScore } from './snr';
 import { fullEnumerationSize } from './problem';
@@ -187,7 +188,8 @@ export function* freeDesignSteps(
     locks,
   };
   const spread = bandCount > 0 ? spreadDesign(gridBands, collected, pairAllowed, abundance) : null;
-  const run = yield* snrSearchSteps(problem, o.nodeBudget, 500, spread ? [spread] : [], shouldStop);
+  const chunk = chunkNodesFor(n * probes.length * channels.length, 500);
+  const run = yield* snrSearchSteps(problem, o.nodeBudget, chunk, spread ? [spread] : [], shouldStop);
   const found = run.result;
   if (!found.design) {
     throw new NoDesignFound(
@@ -256,6 +258,7 @@ export function* freeDesignSteps(
       options: o,
       resolve,
       sample: { scatterLevel: request.scatterLevel, waterRaman: request.waterRaman },
+      shouldStop,
     };
     outcome = yield* refineFreeDesign(start, gridScore, ctx);
   }

@@ -23,13 +23,13 @@ export interface SnrRun {
  * Most designs the local improvement after an unproven search may score (each costs about one n × n inverse; our
  * choice, a fraction of a second for 16 targets).
  */
-const POLISH_EVALUATIONS = 20_000;
+export const POLISH_EVALUATIONS = 20_000;
 
 /** Most designs a repair of a first design may try (each costs about n² pair checks; our choice). */
-const REPAIR_EVALUATIONS = 50_000;
+export const REPAIR_EVALUATIONS = 50_000;
 
 /** Share of the node budget the interference stage may use. */
-const SEED_SHARE = 0.25;
+export const SEED_SHARE = 0.25;
 
 /** Runs both stages as steps within `nodeBudget` nodes in all; `starts` are extra first designs (e.g. spread ones). */
 export function* snrSearchSteps(
