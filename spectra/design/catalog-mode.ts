@@ -11,11 +11,10 @@ import { asCandidate, candidateMatrix, rememberingResolver, sampleLight } from '
 import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
 import { dotInputOf } from '../signal/panel-model';
 import type { ResolvedDesignOptions } from './options';
-import type { SearchProgress } from './search';
+import { chunkNodesFor, type SearchProgress } from './search';
 import { snrSearchSteps, type SnrRun } from './snr-run';
 import type { SnrScore } from './snr';
 import { lockIndices } from './locks';
-import { chunkNodesFor } from './cost';
 import { targetsOf, type DesignRequest } from './request';
 import { worstInterference } from './objective';
 import { fullEnumerationSize } from './problem';

@@ -198,11 +198,3 @@ export function planBoundedDesign(
     refusal: null,
   };
 }
-
-/**
- * Nodes per search chunk so that one chunk stays near `chunkUnits` work units (between progress reports, stop checks
- * and the caller's pauses), never more than `most`.
- */
-export function chunkNodesFor(unitsPerNode: number, most: number, chunkUnits = LIMITS.designChunkUnits): number {
-  return Math.max(1, Math.min(most, Math.floor(chunkUnits / Math.max(1, unitsPerNode))));
-}

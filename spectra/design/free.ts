@@ -17,11 +17,10 @@ import { asCandidate, candidateMatrix, rememberingResolver, sampleLight } from '
 import type { ResolvedDesignOptions } from './options';
 import { freeInterference, freeProbes, refineFreeDesign, type FreeDesign } from './refine';
 import { allowedMaterials, designProbe, targetsOf, type DesignRequest } from './request';
-import type { SearchProgress } from './search';
+import { chunkNodesFor, type SearchProgress } from './search';
 import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
 import { interferenceWords, LEFT_OUT_WORDS, searchStats, type DesignSearchStats } from './catalog-mode';
 import { lockIndices } from './locks';
-import { chunkNodesFor } from './cost';
 import { snrSearchSteps } from './snr-run';
 import type { SnrScore } from './snr';
 import { fullEnumerationSize } from './problem';

@@ -9,7 +9,7 @@
  */
 import { CatalogSearch, type CatalogResult } from './catalog';
 import type { DesignAssignment } from './objective';
-import { searchSteps, type SearchProgress } from './search';
+import { chunkNodesFor, searchSteps, type SearchProgress } from './search';
 import { SnrSearch, type SnrSearchProblem, type SnrSearchResult } from './snr-search';
 
 /** Both stages' outcomes. */
@@ -27,6 +27,12 @@ export const POLISH_EVALUATIONS = 20_000;
 
 /** Most designs a repair of a first design may try (each costs about n² pair checks; our choice). */
 export const REPAIR_EVALUATIONS = 50_000;
+
+/**
+ * Work units of one design checked by the polish, per target pair: measured (Node 20, 12 targets on a 5 nm free grid,
+ * about 14 µs a check against about 1.5 ns a search unit) at about 60; our rounding up.
+ */
+const POLISH_CHECK_UNITS = 64;
 
 /** Share of the node budget the interference stage may use. */
 export const SEED_SHARE = 0.25;
@@ -66,7 +72,11 @@ export function* snrSearchSteps(
     yield progress(search.done ? 'done' : 'search');
   }
   if (!search.done && !shouldStop?.()) {
-    search.polish(POLISH_EVALUATIONS);
+    const n = problem.abundance.length;
+    for (const _ of search.polishSteps(POLISH_EVALUATIONS, chunkNodesFor(POLISH_CHECK_UNITS * n * n, Infinity))) {
+      yield progress('search');
+      if (shouldStop?.()) break;
+    }
     yield progress('search');
   }
   return { result: search.result(), seed };
