@@ -73,8 +73,10 @@ export function* snrSearchSteps(
   }
   if (!search.done && !shouldStop?.()) {
     const n = problem.abundance.length;
+    // The polish moves no bound: its reports between steps keep the last one (computing it is not free).
+    const last = progress('search');
     for (const _ of search.polishSteps(POLISH_EVALUATIONS, chunkNodesFor(POLISH_CHECK_UNITS * n * n, Infinity))) {
-      yield progress('search');
+      yield { ...last, incumbent: search.incumbentWorst };
       if (shouldStop?.()) break;
     }
     yield progress('search');
