@@ -110,7 +110,8 @@ export function estimateDesignCost(request: DesignRequest): DesignCost {
   const trials = n > 1 ? Math.ceil(Math.log2(n)) : 0;
   const matrixUnits = pairs * gridPoints;
   const searchFixed = POLISH_EVALUATIONS * n ** 3 + REPAIR_EVALUATIONS * n ** 2;
-  const matrixBytes = pairs * NUMBER_BYTES * 2; // the candidate matrix and its flat copy for the search
+  // The candidate matrix, its flat copy for the search, and the search's own-light table (one per target and pair).
+  const matrixBytes = pairs * NUMBER_BYTES * (2 + n);
   const frameBytes = (n + 1) * n * pairs * FRAME_BYTES_PER_PAIR;
   return {
     mode: free ? 'free' : 'catalog',
