@@ -191,6 +191,14 @@ export {
 } from './design/request';
 export { PRACTICE_DEFAULTS } from './design/practice';
 export {
+  estimateDesignCost,
+  planBoundedDesign,
+  GET_UNDER_HINT,
+  type DesignCost,
+  type DesignRefusal,
+  type DesignWorkPlan,
+} from './design/cost';
+export {
   runDesign,
   runDesignAsync,
   type DesignHooks,

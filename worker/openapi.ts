@@ -9,6 +9,7 @@ type Json = Record<string, unknown>;
 const COMPONENTS: [string, z.ZodType][] = [
   ['Panel', schemas.Panel],
   ['PanelRequest', schemas.PanelRequest],
+  ['EvaluateRequest', schemas.EvaluateRequest],
   ['Instrument', schemas.Instrument],
   ['InstrumentCreated', schemas.InstrumentCreated],
   ['InstrumentList', schemas.InstrumentList],
@@ -107,7 +108,7 @@ export function openApiDocument(): Json {
       '/api/v1/dots/resolve': post('one dot: size, peak, spectrum', 'DotRequest', {
         '200': json(ref('ResolvedDot'), 'ok'),
       }),
-      '/api/v1/panels/evaluate': post('collected light, spillover, unmixing noise', 'PanelRequest', {
+      '/api/v1/panels/evaluate': post('collected light, spillover, unmixing noise', 'EvaluateRequest', {
         '200': json(ref('Evaluation'), 'ok'),
       }),
       '/api/v1/panels': post('store a panel behind a share link', 'PanelRequest', {

@@ -19,4 +19,17 @@ export const LIMITS = Object.freeze({
   gridPoints: 4001,
   /** Largest search node budget one design request may ask for (bounds one request's CPU). */
   nodeBudget: 5_000_000,
+  /**
+   * Work units one design request on the API may plan (spectra/design/cost.ts counts them): about 0.7–0.9 s at the
+   * 1.2–1.5 ns a unit measured in Node 20 on the development machine (docs/api.md, "Work per request"), leaving room
+   * under the 2 s the API allows a request for the work the units do not count (our convention).
+   */
+  designWorkUnits: 600_000_000,
+  /**
+   * Bytes of working arrays one design request on the API may allocate: 64 MiB, half the memory of one Workers
+   * isolate (128 MB: from the platform documentation, as remembered; verify), our convention.
+   */
+  designBytes: 64 * 2 ** 20,
+  /** Work units between two pauses of a running design: about 12–15 ms at the measured rate (our convention). */
+  designChunkUnits: 10_000_000,
 });

@@ -11,7 +11,7 @@ import { asCandidate, candidateMatrix, rememberingResolver, sampleLight } from '
 import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
 import { dotInputOf } from '../signal/panel-model';
 import type { ResolvedDesignOptions } from './options';
-import type { SearchProgress } from './search';
+import { chunkNodesFor, type SearchProgress } from './search';
 import { snrSearchSteps, type SnrRun } from './snr-run';
 import type { SnrScore } from './snr';
 import { lockIndices } from './locks';
@@ -150,7 +150,8 @@ export function* catalogDesignSteps(
     ceiling: o.maxInterference,
     locks,
   };
-  const run = yield* snrSearchSteps(problem, o.nodeBudget, 2000, [], shouldStop);
+  const chunk = chunkNodesFor(n * probes.length * channels.length, 2000);
+  const run = yield* snrSearchSteps(problem, o.nodeBudget, chunk, [], shouldStop);
   const found = run.result;
   if (!found.design) {
     throw new NoDesignFound(

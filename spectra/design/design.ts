@@ -11,6 +11,7 @@ import { freeDesignSteps, type FreeOutcome } from './free';
 import { designNoise } from './design-noise';
 import { worstInterference } from './objective';
 import { resolveOptions } from './options';
+import { SUBSET_BUDGET_SHARE } from './cost';
 import { defaultLeftOut, normalizeWindow, targetsOf, type DesignRequest } from './request';
 import { exclusionsOf } from '../dot/materials/exclusions';
 import { getMaterial } from '../dot/materials/catalog';
@@ -233,7 +234,9 @@ function* largestUsable(request: DesignRequest, shouldStop?: () => boolean): Gen
     .map((x) => x.i);
   const budget = Math.max(
     1,
-    Math.floor(resolveOptions(request.options, !request.candidates, request.targets.length).nodeBudget / 4),
+    Math.floor(
+      resolveOptions(request.options, !request.candidates, request.targets.length).nodeBudget * SUBSET_BUDGET_SHARE,
+    ),
   );
   const usable = function* (k: number): Generator<SearchProgress, boolean> {
     const keep = order.slice(0, k).sort((x, y) => x - y);

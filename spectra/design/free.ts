@@ -17,7 +17,7 @@ import { asCandidate, candidateMatrix, rememberingResolver, sampleLight } from '
 import type { ResolvedDesignOptions } from './options';
 import { freeInterference, freeProbes, refineFreeDesign, type FreeDesign } from './refine';
 import { allowedMaterials, designProbe, targetsOf, type DesignRequest } from './request';
-import type { SearchProgress } from './search';
+import { chunkNodesFor, type SearchProgress } from './search';
 import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
 import { interferenceWords, LEFT_OUT_WORDS, searchStats, type DesignSearchStats } from './catalog-mode';
 import { lockIndices } from './locks';
@@ -187,7 +187,8 @@ export function* freeDesignSteps(
     locks,
   };
   const spread = bandCount > 0 ? spreadDesign(gridBands, collected, pairAllowed, abundance) : null;
-  const run = yield* snrSearchSteps(problem, o.nodeBudget, 500, spread ? [spread] : [], shouldStop);
+  const chunk = chunkNodesFor(n * probes.length * channels.length, 500);
+  const run = yield* snrSearchSteps(problem, o.nodeBudget, chunk, spread ? [spread] : [], shouldStop);
   const found = run.result;
   if (!found.design) {
     throw new NoDesignFound(
@@ -256,6 +257,7 @@ export function* freeDesignSteps(
       options: o,
       resolve,
       sample: { scatterLevel: request.scatterLevel, waterRaman: request.waterRaman },
+      shouldStop,
     };
     outcome = yield* refineFreeDesign(start, gridScore, ctx);
   }

@@ -39,6 +39,8 @@ export interface RefineContext {
   resolve: DotResolver;
   /** The sample's own light (scatter, water Raman), as the request states it. */
   sample: SampleLight;
+  /** Checked after each pass: true ends the refinement with the best design so far. */
+  shouldStop?: () => boolean;
 }
 
 /** Probe specs of a free design (ids p1…pn). */
@@ -118,6 +120,9 @@ export function freeScore(d: FreeDesign, ctx: RefineContext): SnrScore | null {
   return scoreDesign(problem, identity, identity);
 }
 
+/** Most designs the refinement evaluates: bounds its cost (each evaluation resolves n dots and n filters). */
+export const REFINE_EVALUATIONS = 4000;
+
 /**
  * Pattern search from `start` (whose score is `startScore`); yields progress after each pass and returns the refined
  * design and its score.
@@ -135,9 +140,8 @@ export function* refineFreeDesign(
   let best = startScore;
   let moves = 0;
   let evaluations = 0;
-  const MAX_EVALUATIONS = 4000; // bounds the refinement's cost (each evaluation resolves n dots and n filters)
   for (const step of [4, 2, 1]) {
-    for (let improved = true; improved && evaluations < MAX_EVALUATIONS;) {
+    for (let improved = true; improved && evaluations < REFINE_EVALUATIONS && !ctx.shouldStop?.();) {
       improved = false;
       for (let t = 0; t < design.peaksNm.length; t++) {
         // Bands move by stock steps: the next stock centre, the next stock width.

@@ -6,6 +6,7 @@
 import { CatalogSearch, type CatalogResult } from './catalog';
 import type { CatalogProblem } from './problem';
 import type { DesignAssignment } from './objective';
+import { LIMITS } from '../core/limits';
 
 /** What a running search reports between chunks. */
 export interface SearchProgress {
@@ -108,4 +109,12 @@ export function searchCatalog(problem: CatalogProblem, options: SearchOptions = 
     options.shouldStop,
   );
   return runSteps(steps, options.onProgress);
+}
+
+/**
+ * Nodes per search chunk so that one chunk stays near `chunkUnits` work units (between progress reports, stop checks
+ * and the caller's pauses), never more than `most`.
+ */
+export function chunkNodesFor(unitsPerNode: number, most: number, chunkUnits = LIMITS.designChunkUnits): number {
+  return Math.max(1, Math.min(most, Math.floor(chunkUnits / Math.max(1, unitsPerNode))));
 }

@@ -233,10 +233,23 @@ export class SnrSearch {
    * scored. Used when the search stops unproven; the result stays unproven. Returns the designs scored.
    */
   polish(maxEvaluations: number): number {
+    const steps = this.polishSteps(maxEvaluations, Infinity);
+    for (;;) {
+      const next = steps.next();
+      if (next.done) return next.value;
+    }
+  }
+
+  /**
+   * polish as steps: yields after every `checksPerStep` designs checked against the rules (each check costs up to
+   * n² pair tests, and a target's list of values can be long), so that a caller can pause or stop between them.
+   */
+  *polishSteps(maxEvaluations: number, checksPerStep: number): Generator<void, number> {
     const f = this.flat;
     const n = f.targets;
     if (!this.incumbent) return 0;
     let evaluations = 0;
+    let checks = 0;
     const current = Int32Array.from(this.incumbent);
     const keeps = (v: Int32Array) => {
       const own = Array.from(v, (x, t) => f.own[t * f.values + x]);
@@ -248,6 +261,7 @@ export class SnrSearch {
       return true;
     };
     const tryDesign = (v: Int32Array) => {
+      checks++;
       if (!keeps(v)) return false;
       evaluations++;
       const before = this.best;
@@ -263,6 +277,10 @@ export class SnrSearch {
           const next = Int32Array.from(current);
           next[t] = this.dom[0][t * this.maxDomain + i];
           if (next[t] !== current[t] && tryDesign(next)) improved = true;
+          if (checks >= checksPerStep) {
+            checks = 0;
+            yield;
+          }
         }
         for (let u = t + 1; u < n && evaluations < maxEvaluations; u++) {
           const next = Int32Array.from(current);

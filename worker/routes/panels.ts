@@ -5,21 +5,23 @@ import { resolvePanelRequest } from '../instruments';
 import type { AppEnv } from '../env';
 import { finiteJsonResponse } from '../json';
 import { jsonBody } from '../middleware/json-body';
-import { ApiError, PanelRequest } from '../schemas/index';
+import { ApiError, EvaluateRequest, PanelRequest } from '../schemas/index';
 import { spendShareBudget } from '../share-budget';
 import { loadSharedText, saveShared } from '../store';
 import { validJson } from '../validation';
 
 /**
- * Panels: POST /api/v1/panels/evaluate computes a panel's figures; POST /api/v1/panels stores a panel behind a share
- * link (201 and the same body on every share of it) and GET /api/v1/panels/:id returns it as it was sent. A panel
+ * Panels: POST /api/v1/panels/evaluate computes a panel's figures (the lot-shift check unless `sensitivity: false`);
+ * POST /api/v1/panels stores a panel behind a share link (201 and the same body on every share of it) and
+ * GET /api/v1/panels/:id returns it as it was sent. A panel
  * naming an instrument is resolved against it (one storage read) before it is evaluated or stored, so a stored panel
  * always names a profile that exists.
  */
 export const panels = new Hono<AppEnv>()
-  .post('/evaluate', jsonBody(), validJson(PanelRequest), async (c) => {
-    const panel = await resolvePanelRequest(c.env.PANELS, c.req.valid('json'));
-    return finiteJsonResponse(evaluatePanel(panel, { grid: DEFAULT_GRID }));
+  .post('/evaluate', jsonBody(), validJson(EvaluateRequest), async (c) => {
+    const { sensitivity, ...request } = c.req.valid('json');
+    const panel = await resolvePanelRequest(c.env.PANELS, request);
+    return finiteJsonResponse(evaluatePanel(panel, { grid: DEFAULT_GRID, sensitivity: sensitivity ?? true }));
   })
   .post('/', jsonBody(), validJson(PanelRequest), async (c) => {
     const sent = c.req.valid('json');

@@ -18,6 +18,7 @@ export type ApiErrorCode =
   | 'not_found'
   | 'method_not_allowed'
   | 'rate_limited'
+  | 'request_too_large'
   | 'internal_error'
   /** The page's own: the server could not be reached. */
   | 'network';

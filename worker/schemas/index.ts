@@ -28,7 +28,16 @@ export { issueToError, pathText } from './issues';
 export { pointsTable } from './spectrum';
 export { BandpassFilter, EdgeFilter, DichroicFilter, TableFilter, Filter } from './filter';
 export { MaterialIdSchema, Probe } from './probe';
-export { ExcitationLine, Channel, Background, LightPath, Panel, PanelRequest, WaterRaman } from './panel';
+export {
+  ExcitationLine,
+  Channel,
+  Background,
+  EvaluateRequest,
+  LightPath,
+  Panel,
+  PanelRequest,
+  WaterRaman,
+} from './panel';
 export {
   ChannelPreset,
   Instrument,

@@ -100,32 +100,43 @@ export const InstrumentId = z
 /** A panel with every part written out (docs/api.md, "Panels"): what the models evaluate. */
 export const Panel = z.strictObject(panelFields).superRefine(checkReferences);
 
+/** The fields of a panel request: a panel's, with lines and channels optional when an instrument is named. */
+const panelRequestFields = {
+  ...panelFields,
+  excitation: panelFields.excitation.optional(),
+  channels: panelFields.channels.optional(),
+  instrument: InstrumentId.optional(),
+};
+
+/** The cross-field rules of a panel request (written out, or on an instrument). */
+function checkPanelRequest(panel: z.infer<z.ZodObject<typeof panelRequestFields>>, ctx: z.RefinementCtx): void {
+  const issue = (message: string, path: string[]) =>
+    ctx.addIssue({ code: 'custom', message, path, params: { apiCode: 'invalid_input' } });
+  if (panel.instrument === undefined) {
+    if (panel.excitation === undefined) issue('needs at least one excitation line (or an instrument)', ['excitation']);
+    if (panel.channels === undefined) issue('needs at least one channel (or an instrument)', ['channels']);
+  } else if (panel.lightPath !== undefined) {
+    issue('must not be given with instrument: the shared light path comes from the instrument', ['lightPath']);
+  }
+  checkReferences({ ...panel, excitation: panel.excitation ?? [], channels: panel.channels ?? [] }, ctx, {
+    lines: panel.excitation !== undefined,
+    channels: panel.channels !== undefined,
+  });
+}
+
 /**
  * A panel as the API takes it (docs/api.md, "Panels"): written out, or naming an instrument profile by its id, from
  * which omitted lines and channels and the whole shared light path are taken (spectra's resolveOnInstrument).
  */
-export const PanelRequest = z
-  .strictObject({
-    ...panelFields,
-    excitation: panelFields.excitation.optional(),
-    channels: panelFields.channels.optional(),
-    instrument: InstrumentId.optional(),
-  })
-  .superRefine((panel, ctx) => {
-    const issue = (message: string, path: string[]) =>
-      ctx.addIssue({ code: 'custom', message, path, params: { apiCode: 'invalid_input' } });
-    if (panel.instrument === undefined) {
-      if (panel.excitation === undefined)
-        issue('needs at least one excitation line (or an instrument)', ['excitation']);
-      if (panel.channels === undefined) issue('needs at least one channel (or an instrument)', ['channels']);
-    } else if (panel.lightPath !== undefined) {
-      issue('must not be given with instrument: the shared light path comes from the instrument', ['lightPath']);
-    }
-    checkReferences({ ...panel, excitation: panel.excitation ?? [], channels: panel.channels ?? [] }, ctx, {
-      lines: panel.excitation !== undefined,
-      channels: panel.channels !== undefined,
-    });
-  });
+export const PanelRequest = z.strictObject(panelRequestFields).superRefine(checkPanelRequest);
+
+/**
+ * What POST /api/v1/panels/evaluate takes: a panel request, and `sensitivity` (default true): false leaves out the
+ * lot-to-lot shift check (`lotShiftSensitivity` is then null), the larger part of an evaluation's work.
+ */
+export const EvaluateRequest = z
+  .strictObject({ ...panelRequestFields, sensitivity: z.boolean({ error: 'must be true or false' }).optional() })
+  .superRefine(checkPanelRequest);
 
 type PanelShape = {
   excitation: { wavelengthNm: number }[];
