@@ -127,14 +127,9 @@ export function evaluatePanel(
   input: PanelSpec,
   options: { grid?: WavelengthGrid; sensitivity?: boolean } = {},
 ): PanelEvaluation {
-  // A shared light path is evaluated as the panel with its parts written out.
-  const panel = foldLightPath(input);
-  const model = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
-  const { grid, components, transmissions, assigned } = model;
-  const probeIds = panel.probes.map((p) => p.id);
-  const channelIds = panel.channels.map((c) => c.id);
-  const collected = collectedMatrix(components, transmissions, grid.stepNm);
-  const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
+  const { panel, model, crosstalk } = modelAndCrosstalk(input, options.grid);
+  const { grid } = model;
+  const { collected, figures, probeIds } = crosstalk;
   const diagnostics = diagnoseMixing(collected, probeIds);
   const atLines = filtersAtLines(panel, model.linesOnByChannel);
   const leaks = lineBlocking(panel, model.linesOnByChannel, panel.minBlockingOD ?? DEFAULT_MIN_BLOCKING_OD, atLines);
@@ -150,19 +145,7 @@ export function evaluatePanel(
     conditionNumber: diagnostics.conditionNumber,
     noiseAmplification: diagnostics.noiseAmplification,
     worst: figures.worst,
-    lotShiftSensitivity:
-      options.sensitivity === false
-        ? null
-        : lotShiftSensitivity({
-            components,
-            transmissions,
-            stepNm: grid.stepNm,
-            collected,
-            figures,
-            assigned,
-            probeIds,
-            channelIds,
-          }),
+    lotShiftSensitivity: options.sensitivity === false ? null : lotShiftSensitivity(crosstalk),
     lineLeak: lineLeak(panel, model.linesOnByChannel, panel.scatterLevel ?? DEFAULT_SCATTER_LEVEL, atLines),
     warnings,
   };
@@ -178,20 +161,29 @@ export function evaluatePanel(
  * that shows the rest first and adds this check after (it costs about as much as the rest of the evaluation).
  */
 export function evaluateLotShift(input: PanelSpec, options: { grid?: WavelengthGrid } = {}): LotShiftSensitivity {
+  return lotShiftSensitivity(modelAndCrosstalk(input, options.grid).crosstalk);
+}
+
+/**
+ * The panel with its shared light path written out, its model on `grid`, and its collected matrix and crosstalk
+ * figures with everything the lot-to-lot check reads.
+ */
+function modelAndCrosstalk(
+  input: PanelSpec,
+  grid: WavelengthGrid = DEFAULT_GRID,
+): { panel: PanelSpec; model: PanelModel; crosstalk: Parameters<typeof lotShiftSensitivity>[0] } {
+  // A shared light path is evaluated as the panel with its parts written out.
   const panel = foldLightPath(input);
-  const { grid, components, transmissions, assigned } = buildPanelModel(panel, options.grid ?? DEFAULT_GRID);
+  const model = buildPanelModel(panel, grid);
+  const { components, transmissions, assigned } = model;
   const probeIds = panel.probes.map((p) => p.id);
   const channelIds = panel.channels.map((c) => c.id);
-  const collected = collectedMatrix(components, transmissions, grid.stepNm);
+  const collected = collectedMatrix(components, transmissions, model.grid.stepNm);
   const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
-  return lotShiftSensitivity({
-    components,
-    transmissions,
-    stepNm: grid.stepNm,
-    collected,
-    figures,
-    assigned,
-    probeIds,
-    channelIds,
-  });
+  const stepNm = model.grid.stepNm;
+  return {
+    panel,
+    model,
+    crosstalk: { components, transmissions, stepNm, collected, figures, assigned, probeIds, channelIds },
+  };
 }
