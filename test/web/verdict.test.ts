@@ -66,3 +66,20 @@ describe('the folded light section heading', () => {
     );
   });
 });
+
+describe('<qdp-key-verdict> before any figures', () => {
+  it('says to fix the marked input when the first panel is refused, and to add parts when it is not', async () => {
+    await import('../../web/elements/key-verdict');
+    const el = document.createElement('qdp-key-verdict') as HTMLElement & {
+      stale: boolean;
+      updateComplete: Promise<unknown>;
+    };
+    document.body.appendChild(el);
+    await el.updateComplete;
+    expect(el.shadowRoot!.textContent).toContain('once the panel has a probe and a channel');
+    el.stale = true;
+    await el.updateComplete;
+    expect(el.shadowRoot!.textContent).toContain('No verdict yet: fix the marked input');
+    el.remove();
+  });
+});

@@ -32,7 +32,10 @@ export class KeyVerdict extends LitElement {
 
   override render() {
     const v = this.view;
-    if (!v) return html`<p>The verdict appears once the panel has a probe and a channel.</p>`;
+    if (!v)
+      return this.stale
+        ? html`<p class="stale">No verdict yet: fix the marked input and it appears.</p>`
+        : html`<p>The verdict appears once the panel has a probe and a channel.</p>`;
     return html`<div role="status" aria-live="polite" aria-atomic="true">
       ${this.stale ? html`<p class="stale">Figures of the last valid panel: fix the marked input.</p>` : ''}
       <p><strong>${worstPairText(v)}</strong></p>
