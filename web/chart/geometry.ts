@@ -64,6 +64,25 @@ export function valueScale(top: number, log: boolean, bottomPx: number, topPx: n
     .clamp(true);
 }
 
+/** Path kinds a spectrum can be drawn as. */
+type PathKind = 'line' | 'area' | 'transmission';
+
+/**
+ * The last path of each spectrum object and kind, with the scales it was drawn for: the page hands the chart the same
+ * object for a curve or passband whose values did not change, so an edit of one probe redraws one curve, not all.
+ */
+const drawn = new WeakMap<SampledSpectrum, Partial<Record<PathKind, { scales: string; path: string }>>>();
+
+function pathOf(c: SampledSpectrum, kind: PathKind, scales: string, build: () => string): string {
+  const paths = drawn.get(c) ?? {};
+  const hit = paths[kind];
+  if (hit?.scales === scales) return hit.path;
+  const path = build();
+  paths[kind] = { scales, path };
+  drawn.set(c, paths);
+  return path;
+}
+
 /** Builds scales and paths for a plot of `widthPx` × `heightPx` over `domainNm`, on linear or log value axes. */
 export function chartGeometry(
   layers: ChartLayers,
@@ -98,15 +117,19 @@ export function chartGeometry(
     .x((d) => x(d[0]))
     .y0(bottomPx)
     .y1((d) => yEmission(d[1]));
-  const curvePoints = layers.curves.map(along);
+  const onAxes = `${domainNm.join()}|${widthPx}|${heightPx}|${log}`;
+  const emission = (c: SampledSpectrum, kind: 'line' | 'area') =>
+    pathOf(c, kind, `${onAxes}|${top}`, () => (kind === 'line' ? curveLine : curveArea)(along(c)) ?? '');
+  const transmission = (c: SampledSpectrum) =>
+    pathOf(c, 'transmission', onAxes, () => transmissionLine(along(c)) ?? '');
   return {
     x,
     yEmission,
     yTransmission,
-    curvePaths: curvePoints.map((points) => curveLine(points) ?? ''),
-    curveAreas: curvePoints.map((points) => curveArea(points) ?? ''),
-    passbandPaths: layers.passbands.map((p) => transmissionLine(along(p)) ?? ''),
-    sharedPaths: layers.shared.map((s) => transmissionLine(along(s)) ?? ''),
-    backgroundPath: layers.background ? (curveArea(along(layers.background)) ?? '') : '',
+    curvePaths: layers.curves.map((c) => emission(c, 'line')),
+    curveAreas: layers.curves.map((c) => emission(c, 'area')),
+    passbandPaths: layers.passbands.map(transmission),
+    sharedPaths: layers.shared.map(transmission),
+    backgroundPath: layers.background ? emission(layers.background, 'area') : '',
   };
 }

@@ -7,11 +7,16 @@ import { customElement, property } from 'lit/decorators.js';
 import type { CrosstalkView } from '../chart/crosstalk-view';
 import { noisiestText, worstPairText } from '../chart/verdict';
 
+/** Said while a large panel's figures wait for a pause in the typing. */
+export const PENDING_NOTE = 'Updating after your edit: these are the figures from before it.';
+
 @customElement('qdp-key-verdict')
 export class KeyVerdict extends LitElement {
   @property({ attribute: false }) view?: CrosstalkView;
   /** True while the figures belong to an earlier, valid state of the panel (the current input is refused). */
   @property({ type: Boolean }) stale = false;
+  /** True while a large panel's edit waits for a pause in the typing before the figures catch up. */
+  @property({ type: Boolean }) pending = false;
 
   static override styles = css`
     :host {
@@ -28,6 +33,10 @@ export class KeyVerdict extends LitElement {
     .stale {
       color: #8b1a1a;
     }
+    .pending {
+      color: #555;
+      font-style: italic;
+    }
   `;
 
   override render() {
@@ -36,11 +45,13 @@ export class KeyVerdict extends LitElement {
       return this.stale
         ? html`<p class="stale">No verdict yet: fix the marked input and it appears.</p>`
         : html`<p>The verdict appears once the panel has a probe and a channel.</p>`;
-    return html`<div role="status" aria-live="polite" aria-atomic="true">
-      ${this.stale ? html`<p class="stale">Figures of the last valid panel: fix the marked input.</p>` : ''}
-      <p><strong>${worstPairText(v)}</strong></p>
-      <p>${noisiestText(v)}</p>
-    </div>`;
+    const pending = this.pending ? html`<p class="pending">${PENDING_NOTE}</p>` : '';
+    return html`${pending}
+      <div role="status" aria-live="polite" aria-atomic="true">
+        ${this.stale ? html`<p class="stale">Figures of the last valid panel: fix the marked input.</p>` : ''}
+        <p><strong>${worstPairText(v)}</strong></p>
+        <p>${noisiestText(v)}</p>
+      </div>`;
   }
 }
 
