@@ -37,6 +37,7 @@ export {
   type FilterType,
   type LightPathSpec,
   type MaterialId,
+  type MeasuredReferenceSpec,
   type PanelSpec,
   type ProbeSpec,
   type SpectrumPoints,
@@ -166,6 +167,7 @@ export { simulateUnmixing, type MonteCarloOptions, type MonteCarloResult } from 
 export { lotShiftSensitivity, shiftEmission, type LotShiftSensitivity } from './signal/sensitivity';
 export type { PanelModel, ProbeEvaluation } from './signal/panel-model';
 export { evaluateLotShift, evaluatePanel, type PanelEvaluation } from './signal/evaluate';
+export { withMeasuredColumns, type MeasuredColumns, type ReferenceSource } from './signal/measured-reference';
 export { LOT_SHIFT_NM } from './signal/sensitivity';
 export { panelSpectra, type PanelSpectra } from './signal/panel-spectra';
 

@@ -174,6 +174,20 @@ export interface PanelSpec {
    * one is named in the evaluation's warnings. Never a finding that the other probes are safe.
    */
   exclude?: ('cadmium' | 'lead' | 'arsenic')[];
+  /**
+   * Reference columns measured from single-stain controls: unmixing, noise and spillover use them in place of the
+   * modelled columns of these probes (spectra/signal/measured-reference.ts).
+   */
+  measuredReference?: MeasuredReferenceSpec;
+}
+
+/**
+ * Each listed probe's signal per channel in its single-stain control (unstained subtracted), in the order of
+ * `channels` (channel ids); any scale, since only each column's shape is used.
+ */
+export interface MeasuredReferenceSpec {
+  channels: string[];
+  columns: { probe: string; values: number[] }[];
 }
 
 // FILTER_TYPES must list exactly the kinds of FilterSpec (a compile error otherwise).

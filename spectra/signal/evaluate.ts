@@ -3,6 +3,7 @@
  * interference, unmixing diagnostics, background and lot-to-lot sensitivity. The spectra themselves (large arrays on
  * the grid) come from panelSpectra instead, so the API can leave them out.
  */
+import { withMeasuredColumns, type ReferenceSource } from './measured-reference';
 import { DEFAULT_GRID, type WavelengthGrid } from '../core/grid';
 import type { PanelSpec } from '../core/panel';
 import { collectedMatrix, crosstalkFigures, type WorstInterference } from './crosstalk';
@@ -24,8 +25,10 @@ import { diagnoseMixing } from './unmix';
 export interface PanelEvaluation {
   grid: WavelengthGrid;
   probes: ProbeEvaluation[];
-  /** collected[c][p] in relative detected photons. */
+  /** collected[c][p] in relative detected photons (a measured column: its measured shape at the model's scale). */
   collected: number[][];
+  /** Per probe, where its column of `collected` comes from: the model, or the panel's measured reference. */
+  referenceColumns: ReferenceSource[];
   spillover: (number | null)[][];
   primaryChannel: (number | null)[];
   purity: (number | null)[];
@@ -127,7 +130,7 @@ export function evaluatePanel(
   input: PanelSpec,
   options: { grid?: WavelengthGrid; sensitivity?: boolean } = {},
 ): PanelEvaluation {
-  const { panel, model, crosstalk } = modelAndCrosstalk(input, options.grid);
+  const { panel, model, crosstalk, referenceColumns } = modelAndCrosstalk(input, options.grid);
   const { grid } = model;
   const { collected, figures, probeIds } = crosstalk;
   const diagnostics = diagnoseMixing(collected, probeIds);
@@ -138,6 +141,7 @@ export function evaluatePanel(
     grid: { ...grid },
     probes: model.probeEvaluations,
     collected,
+    referenceColumns,
     spillover: figures.spillover,
     primaryChannel: figures.primaryChannel,
     purity: figures.purity,
@@ -171,19 +175,27 @@ export function evaluateLotShift(input: PanelSpec, options: { grid?: WavelengthG
 function modelAndCrosstalk(
   input: PanelSpec,
   grid: WavelengthGrid = DEFAULT_GRID,
-): { panel: PanelSpec; model: PanelModel; crosstalk: Parameters<typeof lotShiftSensitivity>[0] } {
+): {
+  panel: PanelSpec;
+  model: PanelModel;
+  crosstalk: Parameters<typeof lotShiftSensitivity>[0];
+  referenceColumns: ReferenceSource[];
+} {
   // A shared light path is evaluated as the panel with its parts written out.
   const panel = foldLightPath(input);
   const model = buildPanelModel(panel, grid);
   const { components, transmissions, assigned } = model;
   const probeIds = panel.probes.map((p) => p.id);
   const channelIds = panel.channels.map((c) => c.id);
-  const collected = collectedMatrix(components, transmissions, model.grid.stepNm);
+  const measured = withMeasuredColumns(collectedMatrix(components, transmissions, model.grid.stepNm), panel, assigned);
+  const collected = measured.collected;
   const figures = crosstalkFigures(collected, assigned, probeIds, channelIds);
+  figures.warnings.push(...measured.warnings);
   const stepNm = model.grid.stepNm;
   return {
     panel,
     model,
     crosstalk: { components, transmissions, stepNm, collected, figures, assigned, probeIds, channelIds },
+    referenceColumns: measured.source,
   };
 }

@@ -120,3 +120,43 @@ describe('POST /api/v1/panels/evaluate', () => {
     expect(error?.path).toEqual(path);
   });
 });
+
+describe('POST /api/v1/panels/evaluate with a measured reference', () => {
+  const twoColour = () => ({
+    version: 1,
+    excitation: [{ wavelengthNm: 405 }],
+    probes: [
+      { id: 'a', material: 'cdse', emissionPeakNm: 540 },
+      { id: 'b', material: 'cdse', emissionPeakNm: 600 },
+    ],
+    channels: [
+      { id: 'green', filters: [{ type: 'bandpass', centerNm: 540, widthNm: 20 }] },
+      { id: 'red', filters: [{ type: 'bandpass', centerNm: 600, widthNm: 20 }] },
+    ],
+  });
+
+  it('POST /api/v1/panels/evaluate: measured column [400, 100] gives spillover 0.25, marked measured', async () => {
+    const panel = {
+      ...twoColour(),
+      measuredReference: { channels: ['green', 'red'], columns: [{ probe: 'a', values: [400, 100] }] },
+    };
+    const res = await postJson(worker, '/api/v1/panels/evaluate', panel);
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as { referenceColumns: string[]; spillover: (number | null)[][] };
+    expect(body.referenceColumns).toEqual(['measured', 'model']);
+    // 100 / 400, worked by hand: the control's red over its green.
+    expect(body.spillover[1][0]).toBeCloseTo(0.25, 12);
+  });
+
+  it('POST /api/v1/panels/evaluate: a measured column with 1 value for 2 channels is a 400 at its values', async () => {
+    const panel = {
+      ...twoColour(),
+      measuredReference: { channels: ['green', 'red'], columns: [{ probe: 'a', values: [400] }] },
+    };
+    const res = await postJson(worker, '/api/v1/panels/evaluate', panel);
+    expect(res.status).toBe(400);
+    const error = await errorOf(res);
+    expect(error?.path).toEqual(['measuredReference', 'columns', 0, 'values']);
+    expect(error?.message).toContain('has 1 values for 2 channels');
+  });
+});

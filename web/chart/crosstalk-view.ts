@@ -19,7 +19,8 @@ type EvaluationFigures = Pick<
 
 /** The crosstalk section's numbers and labels. */
 export interface CrosstalkView extends EvaluationFigures {
-  probes: { id: string; label: string }[];
+  /** `measured`: its reference column comes from its single-stain control (the panel's measuredReference). */
+  probes: { id: string; label: string; measured?: boolean }[];
   channels: { id: string; label: string }[];
   /** interference[t][u]: light of probe t in u's primary channel relative to u's own signal there. */
   interference: (number | null)[][];

@@ -88,6 +88,12 @@ export function crosstalkMatrix(v: CrosstalkView) {
   </table>`;
 }
 
+/** Said after a probe whose reference column comes from its single-stain control, not from the model. */
+export const MEASURED_MARK = 'measured';
+
+const measuredMark = (p: { measured?: boolean }) =>
+  p.measured ? html` <span class="measured" title="column from its single-stain control">${MEASURED_MARK}</span>` : '';
+
 /** The spillover table: each probe's light in each channel relative to its primary channel (reading "primary"). */
 export function spilloverMatrix(v: CrosstalkView) {
   const many = v.channels.length > 12;
@@ -95,7 +101,9 @@ export function spilloverMatrix(v: CrosstalkView) {
     <thead>
       <tr>
         <th scope="col">channel</th>
-        ${v.probes.map((p) => html`<th scope="col">${p.label}</th>`)}${v.signalToBackground ? SB_HEADER : ''}
+        ${v.probes.map((p) => html`<th scope="col">${p.label}${measuredMark(p)}</th>`)}${
+          v.signalToBackground ? SB_HEADER : ''
+        }
       </tr>
     </thead>
     <tbody>
@@ -187,6 +195,12 @@ export class CrosstalkTable extends LitElement {
       }
       .worst {
         font-weight: 600;
+      }
+      .measured {
+        display: block;
+        font-weight: normal;
+        font-size: 0.75rem;
+        font-style: italic;
       }
       .stale {
         color: #8a4b00;

@@ -11,6 +11,7 @@ import {
   resolveOnInstrument,
   SpectraError,
   type ChannelSpec,
+  type MeasuredReferenceSpec,
   type PanelSpec,
   type ProbeSpec,
 } from '../../spectra/index';
@@ -45,6 +46,7 @@ import {
   setProbe,
 } from '../state/panel-edit';
 import { moveEdge } from '../state/edge-drag';
+import { UPDATE_PAUSE_MS, waitsForPause } from '../state/edit-pace';
 import { editKey, emptyHistory, recordEdit, redo, STEP_MS, undo } from '../state/undo-history';
 import {
   instrumentChanges,
@@ -206,6 +208,10 @@ export class PanelApp extends LitElement {
   private shown?: Snapshot;
   /** The pending lot-to-lot check (see addLotShiftLater). */
   private lotShiftTimer?: number;
+  /** The chart's line wavelengths and the panel's lines they were read from (see excitationNm). */
+  private linesNm?: { from: PanelSpec['excitation']; nm: number[] };
+  /** An edit of a large panel waiting for a typing pause: its history mode and timer (see updateAfterPause). */
+  @state() private pendingUpdate?: { history: 'push' | 'replace' | 'none'; timer: number };
   /** True while a panel waits for the checks to arrive before it is computed. */
   private awaitingChecks = false;
   /** The working panel's entry in My panels: a new one for each panel loaded, the entry's own for a saved panel. */
@@ -268,7 +274,10 @@ export class PanelApp extends LitElement {
     else this.undoStep();
   };
 
-  private onPageHide = () => void this.saver.flush();
+  private onPageHide = () => {
+    this.catchUp();
+    void this.saver.flush();
+  };
 
   private snapshot(): Snapshot {
     return { panel: this.panel, exclude: this.exclude, instrument: this.instrument, savedId: this.savedId };
@@ -307,6 +316,7 @@ export class PanelApp extends LitElement {
 
   /** Shows a state from the undo history; the address and this browser's last state follow without a Back step. */
   private restore(s: Snapshot): void {
+    this.catchUp();
     this.shown = s;
     this.savedId = s.savedId;
     this.instrument = s.instrument;
@@ -552,8 +562,37 @@ export class PanelApp extends LitElement {
   private apply(panel: PanelSpec, history: 'push' | 'replace' | 'none' = 'push', own = false): void {
     this.panel = panel;
     this.track(own);
+    if (!own && waitsForPause(panel)) {
+      this.updateAfterPause(history);
+      return;
+    }
+    this.dropPendingUpdate();
     this.refresh();
     if (history !== 'none' && !this.sharedId) this.writeFragment(history, own);
+  }
+
+  /**
+   * An edit of a large panel: the field shows the keystroke at once, and the check, the figures and the address
+   * catch up after a pause in the typing (UPDATE_PAUSE_MS), once for the whole burst.
+   */
+  private updateAfterPause(history: 'push' | 'replace' | 'none'): void {
+    const mode = this.pendingUpdate?.history === 'push' ? 'push' : history;
+    clearTimeout(this.pendingUpdate?.timer);
+    this.pendingUpdate = { history: mode, timer: window.setTimeout(() => this.catchUp(), UPDATE_PAUSE_MS) };
+  }
+
+  /** Does a waiting update now (after the pause, or before the page is left or a step is undone). */
+  private catchUp(): void {
+    const pending = this.pendingUpdate;
+    if (!pending) return;
+    this.dropPendingUpdate();
+    this.refresh();
+    if (pending.history !== 'none' && !this.sharedId) this.writeFragment(pending.history);
+  }
+
+  private dropPendingUpdate(): void {
+    clearTimeout(this.pendingUpdate?.timer);
+    this.pendingUpdate = undefined;
   }
 
   /**
@@ -569,7 +608,7 @@ export class PanelApp extends LitElement {
       this.error = { ...problem, message: inUserWords(problem, this.panel) };
       return;
     }
-    const r = computePanel(this.panel, { byBrightness: this.byBrightness, sensitivity: false });
+    const r = computePanel(this.panel, { byBrightness: this.byBrightness, sensitivity: false }, this.computed);
     if (r.ok) {
       this.computed = r.value;
       this.error = undefined;
@@ -700,6 +739,42 @@ export class PanelApp extends LitElement {
     actions?.shadowRoot?.querySelector<HTMLButtonElement>('button')?.focus();
   }
 
+  /**
+   * The panel's line wavelengths for the chart, the same array while the lines are unchanged: a new array would make
+   * the chart rebuild its paths on every keystroke in an editor.
+   */
+  private excitationNm(p: PanelSpec): number[] {
+    if (this.linesNm?.from !== p.excitation)
+      this.linesNm = { from: p.excitation, nm: p.excitation.map((l) => l.wavelengthNm) };
+    return this.linesNm.nm;
+  }
+
+  /** Puts measured reference columns (from the controls) into the panel as one undoable step of its own. */
+  private onMeasuredReference(e: CustomEvent<MeasuredReferenceSpec>): void {
+    const used = e.detail.columns.map(
+      (column) => this.panel.probes.find((p) => p.id === column.probe)?.label || column.probe,
+    );
+    this.notice = `Unmixing now uses the measured columns of ${used.join(', ')}. Undo puts the modelled ones back.`;
+    this.apply({ ...this.panel, measuredReference: e.detail }, 'push', true);
+  }
+
+  /** Which columns are measured, with the way back to the modelled ones. */
+  private measuredNote(c: Computed | undefined) {
+    if (!this.panel.measuredReference) return '';
+    const measured = c?.crosstalk.probes.filter((p) => p.measured).map((p) => p.label) ?? [];
+    const { measuredReference: _, ...modelled } = this.panel;
+    return html`<p class="measured-note">
+      ${
+        measured.length
+          ? `Spillover, unmixing and noise use the measured columns of ${measured.join(', ')} (from their controls).`
+          : 'The measured columns are not used (see the warnings).'
+      }
+      <button type="button" ?disabled=${!!this.sharedId} @click=${() => this.apply(modelled, 'push', true)}>
+        Use the modelled columns
+      </button>
+    </p>`;
+  }
+
   private sharedNote() {
     return html`<p class="shared" role="note">
       Shared copy (read only). <button type="button" @click=${this.duplicate}>Duplicate and edit</button>
@@ -792,6 +867,7 @@ export class PanelApp extends LitElement {
         class=${`view-${this.shownView}`}
         @panel-proposed=${(e: CustomEvent<{ panel: PanelSpec }>) => this.loadProposal(e.detail.panel)}
         @report-show=${(e: CustomEvent<{ print: boolean }>) => this.report?.show(e.detail)}
+        @use-measured-reference=${this.onMeasuredReference}
       >
         <div
           class="edit"
@@ -896,7 +972,7 @@ export class PanelApp extends LitElement {
         <div class="results">
           <section aria-labelledby="h-spectra">
             <h2 id="h-spectra">Spectra</h2>
-            <qdp-key-verdict .view=${c?.crosstalk} ?stale=${refused}></qdp-key-verdict>
+            <qdp-key-verdict .view=${c?.crosstalk} ?stale=${refused} ?pending=${!!this.pendingUpdate}></qdp-key-verdict>
             <qdp-height-toggle
               .byBrightness=${this.byBrightness}
               @heights-change=${(e: CustomEvent<{ byBrightness: boolean }>) => {
@@ -909,7 +985,7 @@ export class PanelApp extends LitElement {
               .passbands=${c?.chart.passbands ?? []}
               .shared=${c?.chart.shared ?? []}
               .background=${c?.chart.background}
-              .excitationNm=${p.excitation.map((l) => l.wavelengthNm)}
+              .excitationNm=${this.excitationNm(p)}
               .yLabel=${this.byBrightness ? 'relative emission × brightness' : 'emission (peak = 1)'}
               @edge-drag=${this.onEdgeDrag}
             ></qdp-spectrum-chart>
@@ -917,6 +993,7 @@ export class PanelApp extends LitElement {
           <section aria-labelledby="h-crosstalk">
             <h2 id="h-crosstalk">Crosstalk and unmixing</h2>
             <qdp-crosstalk-table .view=${c?.crosstalk} ?stale=${refused}></qdp-crosstalk-table>
+            ${this.measuredNote(c)}
           </section>
           <section aria-labelledby="h-materials">
             <h2 id="h-materials">Material cautions</h2>

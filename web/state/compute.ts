@@ -188,6 +188,30 @@ export function withLotShift(computed: Computed, panel: PanelSpec): Computed {
   };
 }
 
+const sameSpectrum = (a: SampledSpectrum, b: SampledSpectrum) =>
+  a.startNm === b.startNm &&
+  a.stepNm === b.stepNm &&
+  a.values.length === b.values.length &&
+  a.values.every((v, i) => v === b.values[i]);
+
+/**
+ * Gives each layer whose spectrum equals the one of the same id in `before` that earlier spectrum object, so the chart
+ * (which keeps a path per spectrum object) redraws only the layers an edit changed.
+ */
+function keepUnchanged<T extends { id: string }>(
+  now: T[],
+  before: readonly T[] | undefined,
+  spectrumOf: (layer: T) => SampledSpectrum,
+  setSpectrum: (layer: T, spectrum: SampledSpectrum) => void,
+): void {
+  if (!before) return;
+  const earlier = new Map(before.map((layer) => [layer.id, spectrumOf(layer)]));
+  for (const layer of now) {
+    const old = earlier.get(layer.id);
+    if (old && sameSpectrum(old, spectrumOf(layer))) setSpectrum(layer, old);
+  }
+}
+
 /**
  * Evaluates the panel and shapes the result for display, or returns the first input error. With `byBrightness`, each
  * curve is its unit-area emission × brightness × abundance (the photons it sends, as in the signal model) and the
@@ -196,6 +220,7 @@ export function withLotShift(computed: Computed, panel: PanelSpec): Computed {
 export function computePanel(
   panel: PanelSpec,
   options: { byBrightness: boolean; sensitivity?: boolean },
+  previous?: Computed,
 ): { ok: true; value: Computed } | { ok: false; error: FieldError } {
   let ev: PanelEvaluation;
   let spectra: ReturnType<typeof panelSpectra>;
@@ -230,9 +255,25 @@ export function computePanel(
     handles: handlesOf(panel, i),
     transmission: onGrid(spectra.channels[i].values),
   }));
+  keepUnchanged(
+    curves,
+    previous?.chart.curves,
+    (c) => c.spectrum,
+    (c, spectrum) => (c.spectrum = spectrum),
+  );
+  keepUnchanged(
+    passbands,
+    previous?.chart.passbands,
+    (p) => p.transmission,
+    (p, t) => (p.transmission = t),
+  );
   const background = spectra.background ? onGrid(spectra.background.map((v) => v / tallest)) : undefined;
   const crosstalk: CrosstalkView = {
-    probes: panel.probes.map((p) => ({ id: p.id, label: p.label || p.id })),
+    probes: panel.probes.map((p, j) => ({
+      id: p.id,
+      label: p.label || p.id,
+      ...(ev.referenceColumns[j] === 'measured' ? { measured: true } : {}),
+    })),
     channels: panel.channels.map((c) => ({ id: c.id, label: c.label || c.id })),
     interference: interferenceOf(ev),
     spillover: ev.spillover,

@@ -64,6 +64,7 @@ export const Evaluation = z.strictObject({
   grid: GridJson,
   probes: z.array(ProbeEvaluationJson),
   collected: matrix,
+  referenceColumns: z.array(z.enum(['model', 'measured'])),
   spillover: nullableMatrix,
   primaryChannel: z.array(z.number().int().nullable()),
   purity: z.array(nullableNumber),

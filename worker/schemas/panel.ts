@@ -64,6 +64,51 @@ export const WaterRaman = z.strictObject({
   level: ranged(RANGES.waterRamanLevel[0], RANGES.waterRamanLevel[1]),
 });
 
+/**
+ * Reference columns measured from single-stain controls (docs/api.md, "Measured reference"): channel ids, and per
+ * probe its signal in each of them, unstained subtracted, in that order.
+ */
+export const MeasuredReference = z
+  .strictObject({
+    channels: z
+      .array(identifier(), { error: 'must be an array of channel ids' })
+      .min(1, { error: 'needs at least one channel id' })
+      .max(LIMITS.channels, { error: `has more than ${LIMITS.channels} channels` })
+      .refine((ids) => new Set(ids).size === ids.length, { error: 'names a channel twice' }),
+    columns: z
+      .array(
+        z.strictObject({
+          probe: identifier(),
+          values: z
+            .array(z.number({ error: 'must be a finite number' }), { error: 'must be an array of numbers' })
+            .max(LIMITS.channels, { error: `has more than ${LIMITS.channels} values` }),
+        }),
+        { error: 'must be an array of measured columns' },
+      )
+      .min(1, { error: 'needs at least one measured column' })
+      .max(LIMITS.probes, { error: `has more than ${LIMITS.probes} columns` }),
+  })
+  .superRefine((ref, ctx) => {
+    const seen = new Set<string>();
+    ref.columns.forEach((column, i) => {
+      if (column.values.length !== ref.channels.length)
+        ctx.addIssue({
+          code: 'custom',
+          message: `has ${column.values.length} values for ${ref.channels.length} channels: give one per channel`,
+          path: ['columns', i, 'values'],
+          params: { apiCode: 'invalid_input' },
+        });
+      if (seen.has(column.probe))
+        ctx.addIssue({
+          code: 'custom',
+          message: `probe '${column.probe}' has two measured columns`,
+          path: ['columns', i, 'probe'],
+          params: { apiCode: 'duplicate_id' },
+        });
+      seen.add(column.probe);
+    });
+  });
+
 /** The fields of a panel; `Panel` takes them written out, `PanelRequest` also takes an instrument reference. */
 const panelFields = {
   version: z.literal(1, { error: 'must be 1' }).optional(),
@@ -90,6 +135,7 @@ const panelFields = {
     .max(EXCLUSION_WORDS.length)
     .refine((list) => new Set(list).size === list.length, { error: 'names a class twice' })
     .optional(),
+  measuredReference: MeasuredReference.optional(),
 };
 
 /** The id of a stored or example instrument profile (a share id). */
