@@ -1,8 +1,8 @@
 // The spectra chart's own look on the served page (palette by peak, peak labels, detection strip, curve-height
 // choice) and the unmixing-noise reading of the demo's most overlapping targets.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, shot } from './helpers/browser';
+import type { BrowserContext } from 'playwright-core';
+import { openBrowser, shot, visitAsNewUser } from './helpers/browser';
 import { startApp, type StartedApp } from '../quality/helpers/app';
 import { decodeFragment } from '../../web/state/fragment';
 import { DEFAULT_GRID, evaluatePanel, type PanelSpec } from '../../spectra/index';
@@ -21,18 +21,7 @@ afterAll(async () => {
 });
 
 /** The demo page as a new visitor sees it, at `widthPx`, with script errors collected. */
-async function openDemo(widthPx: number): Promise<{ page: Page; problems: string[] }> {
-  const page = await browser.context.newPage();
-  const problems: string[] = [];
-  page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
-  page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
-  await page.setViewportSize({ width: widthPx, height: 900 });
-  await page.goto(app.baseUrl + '/api/v1/health');
-  await page.evaluate(() => localStorage.clear());
-  await page.goto(app.baseUrl + '/');
-  await page.locator('qdp-crosstalk-table p.worst').waitFor();
-  return { page, problems };
-}
+const openDemo = (widthPx: number) => visitAsNewUser(browser.context, `${app.baseUrl}/`, { widthPx });
 
 describe('the spectra chart and noise reading on the demo', () => {
   it("the demo's most overlapping pair both read a noise gain above 1.00× after unmixing", async () => {

@@ -3,7 +3,7 @@
 // a 390 px phone the chart comes first, the editors are a separate view, and a tap on the chart reads it out.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, shot } from './helpers/browser';
+import { openBrowser, shot, visitAsNewUser } from './helpers/browser';
 import { startApp, type StartedApp } from '../quality/helpers/app';
 
 let app: StartedApp;
@@ -26,11 +26,11 @@ afterAll(async () => {
 
 /** The demo at `width` px, as a new visitor sees it (nothing kept from earlier flows); a phone below 600 px. */
 async function openDemo(width: number): Promise<Page> {
-  const page = await (width < 600 ? phone : desk).context.newPage();
-  await page.setViewportSize({ width, height: width > 600 ? 900 : 844 });
-  await page.goto(app.baseUrl + '/api/v1/health');
-  await page.evaluate(() => localStorage.clear());
-  await page.goto(app.baseUrl + '/');
+  const { context } = width < 600 ? phone : desk;
+  const { page } = await visitAsNewUser(context, `${app.baseUrl}/`, {
+    widthPx: width,
+    heightPx: width > 600 ? 900 : 844,
+  });
   await page.locator('qdp-spectrum-chart path.curve').nth(5).waitFor();
   return page;
 }

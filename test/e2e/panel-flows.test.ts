@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { BrowserContext, Page } from 'playwright-core';
-import { openBrowser, openEditors, shot } from './helpers/browser';
+import { openBrowser, openEditors, shot, visitAsNewUser } from './helpers/browser';
 import { startApp, type StartedApp } from '../quality/helpers/app';
 import { decodeFragment, encodeFragment } from '../../web/state/fragment';
 import { DEFAULT_GRID, evaluatePanel, type PanelSpec } from '../../spectra/index';
@@ -22,19 +22,7 @@ afterAll(async () => {
 
 /** Opens a page, failing the test on any script error or dialog. */
 async function open(url: string): Promise<{ page: Page; problems: string[] }> {
-  const page = await browser.context.newPage();
-  const problems: string[] = [];
-  page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
-  page.on('dialog', async (d) => {
-    problems.push(`dialog: ${d.message()}`);
-    await d.dismiss();
-  });
-  page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
-  // A new visitor: nothing kept from earlier flows in this browser (the page restores its last state on a bare /).
-  await page.goto(app.baseUrl + '/api/v1/health');
-  await page.evaluate(() => localStorage.clear());
-  await page.goto(url);
-  await page.locator('qdp-crosstalk-table p.worst').waitFor();
+  const { page, problems } = await visitAsNewUser(browser.context, url);
   // A shared copy's editors are read-only: they stay folded.
   if (!new URL(url).pathname.startsWith('/p/')) await openEditors(page);
   return { page, problems };

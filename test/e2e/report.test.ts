@@ -2,7 +2,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { openBrowser, shot, SHOT_DIR } from './helpers/browser';
+import { openBrowser, shot, SHOT_DIR, visitAsNewUser } from './helpers/browser';
 import { startApp, type StartedApp } from '../quality/helpers/app';
 
 let app: StartedApp;
@@ -20,15 +20,7 @@ afterAll(async () => {
 
 /** The demo panel on a fresh visit at `widthPx`, with the report preview open; fails on any script error. */
 async function openReport(widthPx: number): Promise<{ page: Page; problems: string[] }> {
-  const page = await browser.context.newPage();
-  const problems: string[] = [];
-  page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
-  page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
-  await page.setViewportSize({ width: widthPx, height: 900 });
-  await page.goto(app.baseUrl + '/api/v1/health');
-  await page.evaluate(() => localStorage.clear());
-  await page.goto(app.baseUrl + '/');
-  await page.locator('qdp-crosstalk-table p.worst').waitFor();
+  const { page, problems } = await visitAsNewUser(browser.context, `${app.baseUrl}/`, { widthPx });
   await page.locator('qdp-panel-actions button', { hasText: 'Preview report' }).click();
   await page.locator('qdp-panel-report article').waitFor();
   return { page, problems };
@@ -125,11 +117,7 @@ describe('the printable report', () => {
   }
 
   it("printing from the browser's menu without a preview prints the report alone, its chart included", async () => {
-    const page = await browser.context.newPage();
-    await page.goto(app.baseUrl + '/api/v1/health');
-    await page.evaluate(() => localStorage.clear());
-    await page.goto(app.baseUrl + '/');
-    await page.locator('qdp-crosstalk-table p.worst').waitFor();
+    const { page } = await visitAsNewUser(browser.context, `${app.baseUrl}/`);
     expect(await page.locator('qdp-panel-report article').count()).toBe(0);
     // What the browser does on Ctrl+P: beforeprint, then the pages are laid out in print media.
     await page.evaluate(() => window.dispatchEvent(new Event('beforeprint')));

@@ -11,9 +11,9 @@ import { cardList, focusRing, rowTable } from './shared-styles';
 import { LIMITS, type DetectorClass, type PanelSpec } from '../../spectra/index';
 import { RANGES } from '../../worker/schemas';
 import { OpenRows } from '../state/open-rows';
+import { AddedRowFocus } from './added-row-focus';
 import { CHANNEL_COLUMNS, channelCells } from '../state/row-summary';
 import './channel-card';
-import type { ChannelCard } from './channel-card';
 import './editor-row';
 import './number-field';
 
@@ -42,6 +42,14 @@ export class ChannelList extends LitElement {
   /** Bumped when a row opens or closes, to draw again. */
   @state() private toggles = 0;
   private readonly rows = new OpenRows();
+  /** Opens the row the user just added and moves the focus into it. */
+  protected readonly addedFocus = new AddedRowFocus(
+    this,
+    this.rows,
+    () => this.panel?.channels.map((c) => c.id) ?? [],
+    'qdp-channel-card',
+    () => this.toggles++,
+  );
 
   static override styles = [
     focusRing,
@@ -78,20 +86,6 @@ export class ChannelList extends LitElement {
       }
     `,
   ];
-
-  protected override updated(): void {
-    const added = this.rows.arrived(this.panel?.channels.map((c) => c.id) ?? []);
-    if (added !== undefined) void this.focusAdded(added);
-  }
-
-  /** Opens the row just added and, once it is drawn open, moves the focus to its first field. */
-  private async focusAdded(id: string): Promise<void> {
-    this.toggles++;
-    await this.updateComplete;
-    const card = this.renderRoot.querySelector<ChannelCard>(`qdp-channel-card[data-id="${CSS.escape(id)}"]`);
-    await (card?.parentElement as LitElement | null)?.updateComplete;
-    await card?.focusFirst();
-  }
 
   private fire(name: string, detail?: unknown): void {
     this.dispatchEvent(new CustomEvent(name, { detail, bubbles: true, composed: true }));

@@ -9,10 +9,11 @@ import { cardList, focusRing, rowTable } from './shared-styles';
 import { LIMITS, type PanelSpec } from '../../spectra/index';
 import type { ProbePrediction } from '../state/compute';
 import { OpenRows } from '../state/open-rows';
+import { AddedRowFocus } from './added-row-focus';
 import { PROBE_COLUMNS, probeCells } from '../state/row-summary';
 import './editor-row';
 import './probe-card';
-import type { ProbeCard, ProbeCardMaterial } from './probe-card';
+import type { ProbeCardMaterial } from './probe-card';
 
 /** Where each column of a probe row starts: the name, made of, peak, FWHM, channel, brightness. */
 const PROBE_ROW_COLUMNS = 'minmax(8.5rem, 1.5fr) minmax(4.5rem, 1fr) 3.8rem 3.6rem minmax(6.5rem, 1.2fr) 5.4rem';
@@ -34,6 +35,14 @@ export class ProbeList extends LitElement {
   /** Bumped when a row opens or closes, to draw again. */
   @state() private toggles = 0;
   private readonly rows = new OpenRows();
+  /** Opens the row the user just added and moves the focus into it. */
+  protected readonly addedFocus = new AddedRowFocus(
+    this,
+    this.rows,
+    () => this.panel?.probes.map((p) => p.id) ?? [],
+    'qdp-probe-card',
+    () => this.toggles++,
+  );
 
   static override styles = [
     focusRing,
@@ -54,20 +63,6 @@ export class ProbeList extends LitElement {
       }
     `,
   ];
-
-  protected override updated(): void {
-    const added = this.rows.arrived(this.panel?.probes.map((p) => p.id) ?? []);
-    if (added !== undefined) void this.focusAdded(added);
-  }
-
-  /** Opens the row just added and, once it is drawn open, moves the focus to its first field. */
-  private async focusAdded(id: string): Promise<void> {
-    this.toggles++;
-    await this.updateComplete;
-    const card = this.renderRoot.querySelector<ProbeCard>(`qdp-probe-card[data-id="${CSS.escape(id)}"]`);
-    await (card?.parentElement as LitElement | null)?.updateComplete;
-    await card?.focusFirst();
-  }
 
   override render() {
     const panel = this.panel;

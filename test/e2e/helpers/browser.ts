@@ -58,3 +58,29 @@ export async function openEditors(page: Page): Promise<void> {
   const rows = page.locator(`${editable} qdp-editor-row:not([open])`);
   while ((await rows.count()) > 0) await rows.first().locator('button.head').click();
 }
+
+/**
+ * A new visitor's page at `url` (nothing kept from earlier flows: the page restores its last state on a bare /),
+ * `widthPx` × `heightPx`, once the crosstalk section's first line is drawn. `problems` collects script errors,
+ * console errors and dialogs (each dismissed), for the flow to assert empty.
+ */
+export async function visitAsNewUser(
+  context: BrowserContext,
+  url: string,
+  { widthPx = 1280, heightPx = 900 } = {},
+): Promise<{ page: Page; problems: string[] }> {
+  const page = await context.newPage();
+  const problems: string[] = [];
+  page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
+  page.on('console', (m) => m.type() === 'error' && problems.push(`console: ${m.text()}`));
+  page.on('dialog', async (d) => {
+    problems.push(`dialog: ${d.message()}`);
+    await d.dismiss();
+  });
+  await page.setViewportSize({ width: widthPx, height: heightPx });
+  await page.goto(new URL('/api/v1/health', url).href);
+  await page.evaluate(() => localStorage.clear());
+  await page.goto(url);
+  await page.locator('qdp-crosstalk-table p.worst').waitFor();
+  return { page, problems };
+}
