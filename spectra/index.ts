@@ -185,6 +185,7 @@ export {
 } from './controls/comparison';
 export { fcsSpillover, type FcsSpilloverResult, type SpilloverMatrix } from './controls/fcs-spillover';
 export { unmixingMatrix } from './controls/unmixing';
+export { controlsReport, type ControlsReport } from './controls/report';
 
 // Design: the objective, the exact catalog search, the whole pipeline.
 export {
