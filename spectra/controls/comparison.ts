@@ -1,16 +1,17 @@
 /**
- * Measured against predicted spillover: an entry is flagged when it lies outside the lot-shift band of the prediction
- * or more than COMPARISON_SE_LIMIT standard errors from it, and each flag is said in words ("Mito dot spills 7.9 %
- * into Red; predicted 3.1 % (band 2.4–4.0 %): 4.8 points above, 3.2 SE"). A difference under the model's
- * resolution (RESOLUTION_THRESHOLD, 1e-3 of the primary signal) is never flagged: the Gaussian line model cannot vouch
- * for differences that small (spectra/signal/crosstalk.ts).
+ * Measured against predicted spillover, entry by entry. The prediction's uncertainty is its lot-shift band (each
+ * probe's emission moved by ±LOT_SHIFT_NM); the measurement's is its standard error. An entry is flagged when it lies
+ * further from the band than COMPARISON_SE_LIMIT standard errors (it disagrees beyond both uncertainties), and never
+ * for a distance under the model's resolution (RESOLUTION_THRESHOLD, 1e-3 of the primary signal: the Gaussian line
+ * model cannot vouch for less, spectra/signal/crosstalk.ts). Each flag is said in words: "Mito dot spills 7.9 % into
+ * Red; predicted 3.1 % (band 2.4–4.0 %): 4.8 points above, 3.2 SE" (the SE count is from the prediction itself).
  */
 import type { PanelSpec } from '../core/panel';
 import { RESOLUTION_THRESHOLD } from '../signal/crosstalk';
 import { predictedBands } from './bands';
 import type { MeasuredSpillover } from './types';
 
-/** Standard errors between a measured and a predicted spillover beyond which they disagree (about 95 %, normal). */
+/** Standard errors between a measured spillover and the predicted band beyond which they disagree (about 95 %). */
 export const COMPARISON_SE_LIMIT = 2;
 
 /** One entry compared: the prediction, its band, whether it is flagged and the sentence saying why. */
@@ -48,10 +49,9 @@ export function compareSpillover(measured: MeasuredSpillover, panel: PanelSpec):
       }
       const m = spillover[c][p];
       const s = se[c][p];
-      const outside = m < band[0] - RESOLUTION_THRESHOLD || m > band[1] + RESOLUTION_THRESHOLD;
+      const fromBand = Math.max(band[0] - m, m - band[1], 0);
       const seAway = s !== null && s > 0 ? Math.abs(m - value) / s : null;
-      const resolved = Math.abs(m - value) > RESOLUTION_THRESHOLD;
-      const flagged = outside || (resolved && seAway !== null && seAway > COMPARISON_SE_LIMIT);
+      const flagged = fromBand > Math.max(RESOLUTION_THRESHOLD, COMPARISON_SE_LIMIT * (s ?? 0));
       if (!flagged) return { predicted: value, band, flagged, sentence: null };
       const probeText = nameOf(
         panel.probes.find((q) => q.id === probe),

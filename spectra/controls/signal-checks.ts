@@ -1,6 +1,7 @@
 /**
  * The checks of a control's unstained-subtracted signal: a dark primary channel is refused, and a negative signal is
- * kept as noise only as far as its error (or, without one, a small tolerance) explains it.
+ * kept as noise (with a warning) when within 2 SE of zero or within a small tolerance of the primary signal, refused
+ * beyond both.
  */
 import { SpectraError } from '../core/errors';
 import type { PanelSpec } from '../core/panel';
@@ -13,9 +14,11 @@ import { channelName, probeName } from './checks';
 export const DARK_PRIMARY_FRACTION = 0.1;
 
 /**
- * Without a known error, a negative subtracted signal down to this fraction of the control's primary signal is taken
- * as noise around zero and kept with a warning; deeper is refused (our convention: half a percent, five times the
- * model's resolution of 1e-3).
+ * A negative subtracted signal down to this fraction of the control's primary signal is taken as noise around zero
+ * and kept with a warning, whatever its standard error (our convention: half a percent, five times the model's
+ * resolution of 1e-3). Without it a 2 SE rule alone refuses good controls: over a panel's many near-zero entries some
+ * fall past 2 SE by chance, and an SE from three replicates is itself uncertain (Student's t with 2 degrees of freedom
+ * puts about 18 % of estimates past 2 SE; common practice).
  */
 export const NEGATIVE_TOLERANCE = 0.005;
 
@@ -65,13 +68,20 @@ export function checkNegatives(
   signal.forEach((n, c) => {
     if (n >= 0) return;
     const s = se[c];
-    const allowed = s === null ? NEGATIVE_TOLERANCE * signal[primary] : NEGATIVE_SE_LIMIT * s;
+    const tolerance = NEGATIVE_TOLERANCE * signal[primary];
     const what = `the control of ${probeName(at.probe, at.panel)} in channel ${channelName(at.channels[c], at.panel)}`;
-    const limit = s === null ? `${NEGATIVE_TOLERANCE * 100} % of its primary signal` : `${NEGATIVE_SE_LIMIT} SE`;
-    if (-n <= allowed) {
-      warnings.push(`${what} is below the unstained sample by ${fmt(-n)}, within ${limit}: kept as noise`);
+    const pct = `${NEGATIVE_TOLERANCE * 100} % of its primary signal`;
+    if (s !== null && -n <= NEGATIVE_SE_LIMIT * s) {
+      warnings.push(
+        `${what} is below the unstained sample by ${fmt(-n)}, within ${NEGATIVE_SE_LIMIT} SE: kept as noise`,
+      );
       return;
     }
+    if (-n <= tolerance) {
+      warnings.push(`${what} is below the unstained sample by ${fmt(-n)}, within ${pct}: kept as noise`);
+      return;
+    }
+    const limit = s === null ? pct : `${NEGATIVE_SE_LIMIT} SE or ${pct}`;
     throw new SpectraError(
       'invalid_input',
       `${what} is below the unstained sample by ${fmt(-n)}, more than ${limit} explains: ` +

@@ -159,8 +159,15 @@ describe('measuredSpillover refusals and warnings', () => {
     const kept = measuredSpillover(m, panel());
     expect(kept.spillover[1][0]).toBeCloseTo(-0.03, 12);
     expect(kept.warnings.join(' ')).toMatch(/below the unstained sample by 3, within 2 SE: kept as noise/);
-    m.controls[0].values[1] = 5; // −5 with SE 2: 2.5 SE
+    m.controls[0].values[1] = 5; // −5 with SE 2: 2.5 SE, and 5 % of the primary
     expect(errorOf(() => measuredSpillover(m, panel())).path).toEqual(['controls', 0, 'values', 1]);
+  });
+
+  it('measuredSpillover keeps a negative past 2 SE but within 0.5 % of the primary signal as a warning', () => {
+    const m = base();
+    m.controls[0] = { probe: 'g', values: [1010, 5.5], sd: [10, 10], n: 25 }; // −4.5 (2.25 SE) on a primary of 1000
+    const kept = measuredSpillover(m, panel());
+    expect(kept.warnings.join(' ')).toMatch(/by 4\.5, within 0\.5 % of its primary signal: kept as noise/);
   });
 
   it('measuredSpillover refuses a control no brighter than the unstained in its primary channel', () => {
@@ -233,6 +240,9 @@ describe('predictedBands and compareSpillover', () => {
     );
     expect(entry.sentence).toMatch(/: 6\.0 points above, 3\.0 SE$/);
     expect(result.sentences).toEqual([entry.sentence]);
+    // The same distance with an SE of 0.04: 6 points from the prediction but within 2 SE of the band's top.
+    m.se[1][0] = 0.04;
+    expect(compareSpillover(m, p).entries[1][0].flagged).toBe(false);
   });
 });
 

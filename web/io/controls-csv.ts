@@ -2,8 +2,9 @@
  * The controls CSV the page reads (its help text says the same): one row per sample, one column per channel.
  * - The header row: a first cell (any name, e.g. "sample"), then the channels by id or label, optionally `sd:<channel>`
  *   columns (the standard deviation of the readings behind each mean) and an `n` column (how many readings).
- * - One row named "unstained"; every other row names a probe by label or id (case and spaces at the ends ignored).
- *   Several rows of one probe are replicates. Lines starting with # and empty lines are skipped.
+ * - One or more rows named "unstained"; every other row names a probe by label or id (case and spaces at the ends
+ *   ignored). Several rows of one probe are replicates; several unstained rows are too (their mean, with the spread
+ *   of the rows as sd and their count as n). Lines starting with # and empty lines are skipped.
  * Every refusal names the line and column in the user's words, e.g. 'Line 4, channel "Red": "" is not a number'.
  */
 import type { ControlsMeasurement, PanelSpec } from '../../spectra/index';
@@ -79,7 +80,7 @@ export function readControlsCsv(text: string, panel: PanelSpec): ControlsCsvResu
   };
   const measurement: ControlsMeasurement = { channels, unstained: [], controls: [] };
   const controlLines: number[] = [];
-  let unstainedLine = 0;
+  const unstained: { values: number[]; sd?: number[]; n?: number }[] = [];
   for (const row of body) {
     const values: number[] = [];
     for (const { col } of valueCols) {
@@ -101,11 +102,7 @@ export function readControlsCsv(text: string, panel: PanelSpec): ControlsCsvResu
     if (typeof n === 'string') return { ok: false, message: n };
     const spread = sdCols.size > 0 && n !== undefined ? { sd: sdList, n } : {};
     if (key(row.cells[0]) === 'unstained') {
-      if (unstainedLine)
-        return { ok: false, message: `Line ${row.no}: a second "unstained" row (the first is line ${unstainedLine})` };
-      unstainedLine = row.no;
-      measurement.unstained = values;
-      if (spread.sd) Object.assign(measurement, { unstainedSd: spread.sd, unstainedN: spread.n });
+      unstained.push({ values, ...spread });
       continue;
     }
     const p = probe(row.cells[0]);
@@ -119,8 +116,23 @@ export function readControlsCsv(text: string, panel: PanelSpec): ControlsCsvResu
     measurement.controls.push({ probe: p.id, values, ...spread });
     controlLines.push(row.no);
   }
-  if (!unstainedLine) return { ok: false, message: 'The file has no row named "unstained": add the unstained sample' };
+  if (unstained.length === 0) {
+    return { ok: false, message: 'The file has no row named "unstained": add the unstained sample' };
+  }
+  Object.assign(measurement, unstainedOf(unstained));
   if (measurement.controls.length === 0)
     return { ok: false, message: 'The file has no control row: add one per probe' };
   return { ok: true, measurement, lines: controlLines };
+}
+
+/** One unstained row as it is, or several as their mean with the rows' sample sd and their count. */
+function unstainedOf(rows: { values: number[]; sd?: number[]; n?: number }[]) {
+  if (rows.length === 1) {
+    const [{ values, sd, n }] = rows;
+    return sd && n !== undefined ? { unstained: values, unstainedSd: sd, unstainedN: n } : { unstained: values };
+  }
+  const k = rows.length;
+  const mean = rows[0].values.map((_, c) => rows.reduce((a, r) => a + r.values[c], 0) / k);
+  const sd = mean.map((m, c) => Math.sqrt(rows.reduce((a, r) => a + (r.values[c] - m) ** 2, 0) / (k - 1)));
+  return { unstained: mean, unstainedSd: sd, unstainedN: k };
 }
