@@ -142,6 +142,48 @@ describe('<qdp-controls-section>', () => {
     detail!.columns[2].values.forEach((v, c) => expect(v).toBeCloseTo(mito[c] * scale, 6));
   });
 
+  it('.measured set from outside is shown with its source, and the predicted downloads parse back', async () => {
+    const el = await mount();
+    const csv = modelCsv(0).split('\n').slice(1);
+    el.measured = {
+      channels: panel.channels.map((c) => c.id),
+      unstained: csv[0].split(',').slice(1).map(Number),
+      controls: csv
+        .slice(1)
+        .map((line, p) => ({ probe: panel.probes[p].id, values: line.split(',').slice(1).map(Number) })),
+    };
+    await expect.poll(() => el.shadowRoot!.querySelector('table')).not.toBeNull();
+    expect(el.shadowRoot!.textContent).toContain('Showing measured regions: 6 controls, 6 rows.');
+    expect(el.shadowRoot!.querySelectorAll('td.flag')).toHaveLength(0);
+    button(el, 'Predicted spillover').click();
+    const fcsButton = button(el, 'FCS $SPILLOVER, predicted');
+    fcsButton.click();
+    const [csvText, fcs] = await Promise.all(downloads.map((d) => d.text));
+    // Rows channels, columns probes, as evaluatePanel's spillover[c][p].
+    const rows = parseCsv(csvText);
+    expect(Number(rows[4][3])).toBeCloseTo(evaluation.spillover[3][2]!, 5);
+    const parts = fcs.trim().split(',');
+    expect(parts).toHaveLength(1 + 6 + 36);
+  });
+
+  it('.measured with a missing value or an unknown probe names the control, probe and channel in words', async () => {
+    const el = await mount();
+    const values = panel.channels.map(() => 500);
+    el.measured = { channels: panel.channels.map((c) => c.id), unstained: values.map(() => 100), controls: [] };
+    el.measured = {
+      channels: panel.channels.map((c) => c.id),
+      unstained: values.map(() => 100),
+      controls: [{ probe: 'p1', values: [900, 300, Number.NaN, 100, 100, 100] }],
+    };
+    await expect.poll(() => errorText(el)).toBe('Control 1 of Nuclear stain, channel Yellow: Must be a finite number.');
+    el.measured = {
+      channels: panel.channels.map((c) => c.id),
+      unstained: values.map(() => 100),
+      controls: [{ probe: 'blue', values }],
+    };
+    await expect.poll(() => errorText(el)).toBe('Control 1: Probe blue is not a probe of the panel.');
+  });
+
   it.each([
     [
       'a probe name the panel lacks',

@@ -23,6 +23,7 @@ import {
 import { readControlsCsv } from '../io/controls-csv';
 import { spilloverCsv, unmixingCsv } from '../io/controls-export';
 import { downloadText } from '../io/download';
+import { controlsProblemText } from '../state/controls-problem';
 import { loadChecks } from '../state/load-checks';
 
 /** The demo controls CSV, made for the demo panel by scripts/make-demo-controls.mts. */
@@ -111,11 +112,11 @@ export class ControlsSection extends LitElement {
   /** Checks and computes a measurement; on a refusal keeps the last report and says what to fix. */
   private async use(next: { measurement: ControlsMeasurement; lines?: number[] }): Promise<boolean> {
     const { checkControls } = await loadChecks();
-    const where = (path: (string | number)[]) =>
-      path[0] === 'controls' && typeof path[1] === 'number' && next.lines ? `Line ${next.lines[path[1]]}: ` : '';
+    const say = (path: (string | number)[], message: string) =>
+      controlsProblemText(path, message, next.measurement, this.panel, next.lines);
     const problem = checkControls(next.measurement);
     if (problem) {
-      this.message = `${where(problem.path)}${problem.path.join('.')} ${problem.message}`;
+      this.message = say(problem.path, problem.message);
       return false;
     }
     try {
@@ -125,7 +126,7 @@ export class ControlsSection extends LitElement {
       return true;
     } catch (e) {
       if (!(e instanceof SpectraError)) throw e;
-      this.message = `${where(e.path)}${e.message[0].toUpperCase()}${e.message.slice(1)}.`;
+      this.message = say(e.path, e.message);
       return false;
     }
   }
