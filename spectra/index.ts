@@ -171,6 +171,24 @@ export { withMeasuredColumns, type MeasuredColumns, type ReferenceSource } from 
 export { LOT_SHIFT_NM } from './signal/sensitivity';
 export { panelSpectra, type PanelSpectra } from './signal/panel-spectra';
 
+// Single-stain controls: the measured spillover, its comparison with the model, the matrices users take away.
+export type { ControlRow, ControlsMeasurement, MeasuredSpillover } from './controls/types';
+export { ratioStandardError } from './controls/ratio-error';
+export { summariseReplicates, type ReplicateSummary } from './controls/replicates';
+export { measuredSpillover } from './controls/spillover';
+export { DARK_PRIMARY_FRACTION, NEGATIVE_SE_LIMIT, NEGATIVE_TOLERANCE } from './controls/signal-checks';
+export { predictedBands, type PredictedEntry } from './controls/bands';
+export {
+  COMPARISON_SE_LIMIT,
+  compareSpillover,
+  percentText,
+  type ComparedEntry,
+  type SpilloverComparison,
+} from './controls/comparison';
+export { fcsSpillover, type FcsSpilloverResult, type SpilloverMatrix } from './controls/fcs-spillover';
+export { unmixingMatrix } from './controls/unmixing';
+export { controlsReport, type ControlsReport } from './controls/report';
+
 // Design: the objective, the exact catalog search, the whole pipeline.
 export {
   ABUNDANCE_WORDS,

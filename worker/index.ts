@@ -9,6 +9,7 @@ import { errorResponse, onApiError } from './errors';
 import { securityHeaders } from './middleware/security-headers';
 import { wrongMethod } from './middleware/wrong-method';
 import { backgrounds } from './routes/backgrounds';
+import { controls } from './routes/controls';
 import { design } from './routes/design';
 import { detectors } from './routes/detectors';
 import { dots } from './routes/dots';
@@ -42,6 +43,7 @@ app.route('/api/v1/filters', filters);
 app.route('/api/v1/panels/design', design);
 app.route('/api/v1/panels', panels);
 app.route('/api/v1/instruments', instruments);
+app.route('/api/v1/controls', controls);
 app.route('/p', pages);
 app.route('/i', instrumentPages);
 

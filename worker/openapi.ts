@@ -32,6 +32,8 @@ const COMPONENTS: [string, z.ZodType][] = [
   ['Dye', schemas.Dye],
   ['DyeList', schemas.DyeList],
   ['StockFilterList', schemas.StockFilterList],
+  ['ControlsRequest', schemas.ControlsRequest],
+  ['ControlsSpillover', schemas.ControlsSpillover],
 ];
 
 const ref = (name: string): Json => ({ $ref: `#/components/schemas/${name}` });
@@ -111,6 +113,11 @@ export function openApiDocument(): Json {
       '/api/v1/panels/evaluate': post('collected light, spillover, unmixing noise', 'EvaluateRequest', {
         '200': json(ref('Evaluation'), 'ok'),
       }),
+      '/api/v1/controls/spillover': post(
+        'measured spillover of single-stain controls, compared with the panel; FCS $SPILLOVER and unmixing matrix',
+        'ControlsRequest',
+        { '200': json(ref('ControlsSpillover'), 'ok') },
+      ),
       '/api/v1/panels': post('store a panel behind a share link', 'PanelRequest', {
         '201': json(ref('ShareCreated'), 'stored (the same answer when it was stored before)'),
         '429': json(ref('Error'), 'too many share links from this client (see Retry-After)'),

@@ -30,6 +30,13 @@ export const LIMITS = Object.freeze({
    * isolate (128 MB: from the platform documentation, as remembered; verify), our convention.
    */
   designBytes: 64 * 2 ** 20,
+  /**
+   * Replicate rows of one probe's single-stain control: three to five replicates are usual, eight leaves room (our
+   * convention).
+   */
+  controlReplicates: 8,
+  /** Control rows in one set of controls: every probe of a full panel with its full replicates (16 × 8). */
+  controlRows: 16 * 8,
   /** Work units between two pauses of a running design: about 12–15 ms at the measured rate (our convention). */
   designChunkUnits: 10_000_000,
 });

@@ -57,7 +57,7 @@ function worstSpillover(
 }
 
 /** A component with its emission translated by shiftNm (weights unchanged), cut to the grid's `count` points. */
-function shiftedComponent(component: EmissionComponent, shiftNm: number, stepNm: number, count: number) {
+export function shiftedComponent(component: EmissionComponent, shiftNm: number, stepNm: number, count: number) {
   const shifted = shiftSamples(component.emission, shiftNm / stepNm);
   const start = component.from + shifted.offset;
   const from = Math.max(0, start);

@@ -1,9 +1,9 @@
-// Bad bodies at every POST route of the contract (resolve, evaluate, share, design) on the real Workers runtime with
-// real local KV: malformed JSON, an empty body, a non-object body, a wrong content type, an oversized body, a missing
-// required field, a wrong type and a non-finite number literal each get a 4xx in the contract's error shape naming the
-// field, never a 5xx.
+// Bad bodies at every POST route of the contract (resolve, evaluate, share, design, controls) on the real Workers
+// runtime with real local KV: malformed JSON, an empty body, a non-object body, a wrong content type, an oversized
+// body, a missing required field, a wrong type and a non-finite number literal each get a 4xx in the contract's error
+// shape naming the field, never a 5xx.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { examplePanel } from './helpers/panels';
+import { exampleControls, examplePanel } from './helpers/panels';
 import { errorOf, freshPersistDir, postJson, startWorker, type RunningWorker } from './helpers/worker';
 
 let worker: RunningWorker;
@@ -26,6 +26,7 @@ const ROUTES: [string, () => Record<string, unknown>, string][] = [
   ['/api/v1/panels/evaluate', examplePanel, 'probes'],
   ['/api/v1/panels', examplePanel, 'channels'],
   ['/api/v1/panels/design', designRequest, 'targets'],
+  ['/api/v1/controls/spillover', exampleControls, 'controls'],
 ];
 
 async function expectError(res: Response, status: number, code: string, path?: (string | number)[]): Promise<void> {

@@ -5,6 +5,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { z } from 'zod';
 import {
   BackgroundPresetList,
+  ControlsSpillover,
   DesignResponse,
   DetectorList,
   DyeList,
@@ -16,7 +17,7 @@ import {
   ResolvedDotJson,
   ShareCreated,
 } from '../../worker/schemas';
-import { examplePanel } from './helpers/panels';
+import { exampleControls, examplePanel } from './helpers/panels';
 import { freshPersistDir, postJson, startWorker, type RunningWorker } from './helpers/worker';
 
 let worker: RunningWorker;
@@ -252,5 +253,35 @@ describe('POST /api/v1/panels/design', () => {
     if (body.panel === null) expect(body.verdictReason).toContain('16 targets');
     else expect(body.verdictReason).toMatch(/signal-to-noise|% of/);
     expect(body.largestUsableTargets).toBeGreaterThanOrEqual(1);
+  });
+});
+
+describe('POST /api/v1/controls/spillover', () => {
+  it('POST /controls/spillover without a panel answers a valid ControlsSpillover, comparison and se null', async () => {
+    const res = await postJson(worker, '/api/v1/controls/spillover', exampleControls());
+    const body = expectValid(ControlsSpillover, await bodyOf(res, 200), 'no panel');
+    expect(body.comparison).toBeNull();
+    expect(body.se[1][0]).toBeNull();
+  });
+
+  it('POST /controls/spillover with the panel answers a valid ControlsSpillover with a comparison', async () => {
+    const request = { ...exampleControls(), panel: examplePanel() };
+    const res = await postJson(worker, '/api/v1/controls/spillover', request);
+    const body = expectValid(ControlsSpillover, await bodyOf(res, 200), 'with panel');
+    expect(body.comparison?.entries).toHaveLength(2);
+  });
+
+  it('POST /controls/spillover with two probes on one primary answers fcsSpillover null in a valid body', async () => {
+    const request = {
+      channels: ['a', 'b'],
+      unstained: [0, 0],
+      controls: [
+        { probe: 'x', values: [9, 1] },
+        { probe: 'y', values: [9, 2] },
+      ],
+    };
+    const res = await postJson(worker, '/api/v1/controls/spillover', request);
+    const body = expectValid(ControlsSpillover, await bodyOf(res, 200), 'shared primary');
+    expect(body.fcsSpillover).toBeNull();
   });
 });

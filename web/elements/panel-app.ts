@@ -1007,6 +1007,15 @@ export class PanelApp extends LitElement {
               }}
             ></qdp-material-notes>
           </section>
+          <section aria-labelledby="h-controls">
+            <details class="fold">
+              <summary><h2 id="h-controls">Measured controls</h2></summary>
+              <qdp-controls-section
+                .panel=${p}
+                .evaluation=${this.error ? undefined : c?.evaluation}
+              ></qdp-controls-section>
+            </details>
+          </section>
           <section aria-labelledby="h-share">
             <h2 id="h-share">Share and export</h2>
             <qdp-panel-actions

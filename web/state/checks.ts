@@ -7,6 +7,7 @@
 import type { z } from 'zod';
 import {
   SpectraError,
+  type ControlsMeasurement,
   type DesignRequest as DesignRequestSpec,
   type InstrumentSpec,
   type PanelOnInstrumentSpec,
@@ -14,6 +15,7 @@ import {
 } from '../../spectra/index';
 import {
   ApiError,
+  ControlsInput,
   DesignRequest,
   Instrument,
   issueToError,
@@ -119,4 +121,12 @@ export function readPageState(
   const id = typeof instrument === 'string' && SHARE_ID_PATTERN.test(instrument) ? { instrument } : {};
   const snap = obj.view?.snapStock === true ? { snapStock: true } : {};
   return { ok: true, state: { panel, view: { exclude, ...id, ...snap } }, ...problem };
+}
+
+/**
+ * Measured controls the page read or was handed, checked as POST /api/v1/controls/spillover checks them (without the
+ * panel, which the page has checked already), or the API's complaint with the field's path.
+ */
+export function checkControls(m: ControlsMeasurement): FieldError | undefined {
+  return firstProblem(ControlsInput.safeParse(m).error);
 }

@@ -11,6 +11,8 @@ import type {
   LotShiftSensitivity,
   Material as MaterialSpec,
   PanelEvaluation,
+  ControlsMeasurement,
+  ControlsReport,
   InstrumentSpec,
   PanelOnInstrumentSpec,
   PanelSpec,
@@ -21,6 +23,7 @@ import type { DesignResponse } from './design-response';
 import type { Evaluation, LotShiftJson } from './evaluation';
 import type { BackgroundPresetList, Material } from './responses';
 import type { Dye } from './dyes';
+import type { ControlsInput, ControlsSpillover } from './controls';
 
 export { LIMITS, RANGES, SHARE_ID_PATTERN } from './limits';
 export { ApiError, type ApiErrorCode } from './errors';
@@ -64,6 +67,7 @@ export {
   ToxicityJson,
 } from './responses';
 export { Dye, DyeList, SourcedValueJson } from './dyes';
+export { ComparedEntryJson, ControlRow, ControlsInput, ControlsRequest, ControlsSpillover } from './controls';
 
 /** The contract's error body. */
 export type ErrorBody = z.infer<typeof ErrorBody>;
@@ -118,3 +122,7 @@ export type DyeMatchesSpec = Assert<Same<z.infer<typeof Dye>, DyeSpec>>;
  * What runDesign returns is a valid design answer (the answer may also carry null where a number had no finite value).
  */
 export type DesignResponseMatchesSpec = Assert<DesignResult extends z.infer<typeof DesignResponse> ? true : false>;
+/** The controls schema and spectra's ControlsMeasurement describe the same shape. */
+export type ControlsMatchSpec = Assert<Same<z.infer<typeof ControlsInput>, ControlsMeasurement>>;
+/** The controls route answers exactly what controlsReport returns. */
+export type ControlsReportMatchesSpec = Assert<Same<z.infer<typeof ControlsSpillover>, ControlsReport>>;

@@ -44,6 +44,15 @@ export const RANGES = Object.freeze({
   scatterLevel: [0, 1e15],
   /** Largest value of a measured emission or background table. */
   spectralValue: [0, 1e15],
+  /**
+   * A measured mean signal of a control or the unstained sample, in the instrument's units (counts, grey levels);
+   * negative allowed for data already offset-corrected.
+   */
+  measuredSignal: [-1e15, 1e15],
+  /** A measured standard deviation, same units. */
+  measuredSd: [0, 1e15],
+  /** Readings (pixels, events) behind one measured mean. */
+  readings: [1, 1e12],
   /** Largest molar extinction of a measured table, M⁻¹ cm⁻¹. */
   extinction: [0, 1e9],
 } as const);

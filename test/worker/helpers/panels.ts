@@ -53,3 +53,15 @@ export function reverseKeys(value: unknown): unknown {
   }
   return value;
 }
+
+/** Invented single-stain controls for examplePanel's channels (no panel in the body): two probes, an unstained row. */
+export function exampleControls(): Record<string, unknown> {
+  return {
+    channels: ['c1', 'c2'],
+    unstained: [10, 12],
+    controls: [
+      { probe: 'p1', values: [605, 40] },
+      { probe: 'p2', values: [30, 400] },
+    ],
+  };
+}
