@@ -160,6 +160,14 @@ export class ControlsSection extends LitElement {
     this.dispatchEvent(new CustomEvent('use-measured-reference', { detail, bubbles: true, composed: true }));
   }
 
+  /**
+   * What the panel's own spillover is: predicted by the model, or the panel's reference once it holds measured
+   * columns (the comparison above stays with the model's prediction).
+   */
+  private panelsWord(): string {
+    return this.evaluation?.referenceColumns.includes('measured') ? "Panel's reference" : 'Predicted';
+  }
+
   private predictedFcs(): string | null {
     const ev = this.evaluation;
     const panel = this.panel;
@@ -201,7 +209,7 @@ export class ControlsSection extends LitElement {
                   CSV_TYPE,
                 )}
             >
-              Predicted spillover (CSV)
+              ${this.panelsWord()} spillover (CSV)
             </button>`
           : nothing
       }
@@ -214,7 +222,7 @@ export class ControlsSection extends LitElement {
       ${
         predictedFcs
           ? html`<button @click=${() => downloadText(`${predictedFcs}\n`, 'predicted-spillover-fcs.txt', TEXT_TYPE)}>
-              FCS $SPILLOVER, predicted (.txt)
+              FCS $SPILLOVER, ${this.panelsWord().toLowerCase()} (.txt)
             </button>`
           : nothing
       }
