@@ -38,6 +38,9 @@ export interface MeasuredReference {
 const CSV_TYPE = 'text/csv;charset=utf-8';
 const TEXT_TYPE = 'text/plain;charset=utf-8';
 
+/** Smallest predicted spillover the table prints as a number: 0.1 %, the crosstalk table's resolution. */
+const SMALLEST_PREDICTED = 0.001;
+
 @customElement('qdp-controls-section')
 export class ControlsSection extends LitElement {
   @property({ attribute: false }) panel?: PanelSpec;
@@ -55,6 +58,10 @@ export class ControlsSection extends LitElement {
     css`
       :host {
         display: block;
+      }
+      .scroll {
+        max-width: 100%;
+        overflow-x: auto;
       }
       .tables {
         display: flex;
@@ -241,8 +248,11 @@ export class ControlsSection extends LitElement {
       const entry = r.comparison?.entries[c][p];
       if (kind === 'predicted') {
         if (!entry || entry.predicted === null) return html`<td>—</td>`;
-        const band = entry.band ? ` (${percentText(entry.band[0])}–${percentText(entry.band[1])})` : '';
-        return html`<td>${percentText(entry.predicted)}${band}</td>`;
+        // Below 0.1 % the model's tails are not a prediction worth reading (the crosstalk table's resolution).
+        const shown = (v: number) => (v < SMALLEST_PREDICTED ? '< 0.1' : percentText(v));
+        const band =
+          entry.band && entry.band[1] >= SMALLEST_PREDICTED ? ` (${shown(entry.band[0])}–${shown(entry.band[1])})` : '';
+        return html`<td>${shown(entry.predicted)}${band}</td>`;
       }
       const se = r.se[c][p];
       const withSe = se !== null && c !== r.primaryChannel[p];
@@ -253,22 +263,24 @@ export class ControlsSection extends LitElement {
         <span aria-hidden="true">${symbol}</span> ${text}
       </td>`;
     };
-    return html`<table>
-      <caption>
-        ${kind === 'measured' ? 'Measured spillover, % (± SE)' : 'Predicted spillover, % (lot-shift band)'}
-      </caption>
-      <tr>
-        <th scope="col">channel</th>
-        ${r.probes.map((p) => html`<th scope="col">${this.name('probes', p)}</th>`)}
-      </tr>
-      ${r.channels.map(
-        (ch, c) =>
-          html`<tr>
-            <th scope="row">${this.name('channels', ch)}</th>
-            ${r.probes.map((_, p) => cell(c, p))}
-          </tr>`,
-      )}
-    </table>`;
+    return html`<div class="scroll">
+      <table>
+        <caption>
+          ${kind === 'measured' ? 'Measured spillover, % (± SE)' : 'Predicted spillover, % (lot-shift band)'}
+        </caption>
+        <tr>
+          <th scope="col">channel</th>
+          ${r.probes.map((p) => html`<th scope="col">${this.name('probes', p)}</th>`)}
+        </tr>
+        ${r.channels.map(
+          (ch, c) =>
+            html`<tr>
+              <th scope="row">${this.name('channels', ch)}</th>
+              ${r.probes.map((_, p) => cell(c, p))}
+            </tr>`,
+        )}
+      </table>
+    </div>`;
   }
 
   override render() {
@@ -306,9 +318,12 @@ export class ControlsSection extends LitElement {
               }
               ${
                 r.warnings.length
-                  ? html`<ul class="warnings">
-                      ${r.warnings.map((w) => html`<li>${w}</li>`)}
-                    </ul>`
+                  ? html`<details class="warnings">
+                      <summary>${r.warnings.length} note${r.warnings.length === 1 ? '' : 's'} on the readings</summary>
+                      <ul>
+                        ${r.warnings.map((w) => html`<li>${w}</li>`)}
+                      </ul>
+                    </details>`
                   : nothing
               }
               ${this.downloads(r)}`
