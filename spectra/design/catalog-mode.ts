@@ -7,7 +7,7 @@ import { SpectraError } from '../core/errors';
 import { DEFAULT_GRID } from '../core/grid';
 import { channelTransmission } from '../light/filters/channel';
 import type { ChannelSpec, ProbeSpec } from '../core/panel';
-import { asCandidate, candidateMatrix, rememberingResolver, sampleLight } from './matrix';
+import { asCandidate, candidateMatrixSteps, rememberingResolver, sampleLight } from './matrix';
 import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
 import { dotInputOf } from '../signal/panel-model';
 import type { ResolvedDesignOptions } from './options';
@@ -135,11 +135,12 @@ export function* catalogDesignSteps(
     );
   }
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
-  const collected = candidateMatrix(probes, channels, request.excitation, resolve, {
+  const collected = yield* candidateMatrixSteps(probes, channels, request.excitation, resolve, {
     pathPrefix: ['candidates'],
   });
   const dots = probes.map((p) => dotOf(p, offeredProbes.indexOf(p)));
   const pairAllowed = readablePairs(dots, channels, DEFAULT_GRID, o.minChannelShare);
+  yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
   const problem = {
     collected,
     abundance,

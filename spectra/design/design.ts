@@ -155,6 +155,8 @@ export function* designSteps(
     // The request's exclusions travel with the proposal, so its evaluation and the page keep them.
     ...(request.exclude?.length ? { exclude: [...new Set(request.exclude)] } : {}),
   };
+  // A pause point before the proposal's full evaluation (its lot-to-lot check included), the last long stretch.
+  yield { stage: 'done', nodesVisited: stats.nodesVisited, incumbent: null, bound: null };
   const evaluation = evaluatePanel(panel);
   // The pair that sets the objective, read from the evaluation (abundances are inside its collected matrix).
   const identity = names.map((_, t) => t);

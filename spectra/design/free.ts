@@ -13,7 +13,7 @@ import { SpectraError } from '../core/errors';
 import type { ChannelSpec, ProbeSpec } from '../core/panel';
 import { bandChannel, bandsOverlap, freeCatalog, type Band } from './free-catalog';
 import { worstInterference, type DesignAssignment } from './objective';
-import { asCandidate, candidateMatrix, rememberingResolver, sampleLight } from './matrix';
+import { asCandidate, candidateMatrixSteps, rememberingResolver, sampleLight } from './matrix';
 import type { ResolvedDesignOptions } from './options';
 import { freeInterference, freeProbes, refineFreeDesign, type FreeDesign } from './refine';
 import { allowedMaterials, designProbe, targetsOf, type DesignRequest } from './request';
@@ -171,9 +171,10 @@ export function* freeDesignSteps(
     { kept: channels.map((c) => c.id), leftOut: leftOutChannels },
   );
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
-  const collected = candidateMatrix(probes, channels, request.excitation, resolve);
+  const collected = yield* candidateMatrixSteps(probes, channels, request.excitation, resolve);
   const dots = probes.map((p) => resolve(dotInputOf(asCandidate(p)), DEFAULT_GRID));
   const pairAllowed = readablePairs(dots, channels, DEFAULT_GRID, o.minChannelShare);
+  yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
   const bandCount = gridBands.length;
   const problem = {
     collected,
@@ -187,6 +188,7 @@ export function* freeDesignSteps(
     locks,
   };
   const spread = bandCount > 0 ? spreadDesign(gridBands, collected, pairAllowed, abundance) : null;
+  yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
   const chunk = chunkNodesFor(n * probes.length * channels.length, 500);
   const run = yield* snrSearchSteps(problem, o.nodeBudget, chunk, spread ? [spread] : [], shouldStop);
   const found = run.result;

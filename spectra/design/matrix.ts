@@ -11,6 +11,10 @@ import { resolveDot, type ResolvedDot } from '../dot/resolve';
 import { collectedMatrix } from '../signal/crosstalk';
 import { evaluatePanel } from '../signal/evaluate';
 import type { ChannelSpec, ExcitationLine, PanelSpec, ProbeSpec } from '../core/panel';
+import { runSteps, type SearchProgress } from './search';
+
+/** The progress report of the candidate stage (no node visited yet). */
+const CANDIDATES: SearchProgress = { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
 
 const PROBES_PER_BLOCK = 16;
 const CHANNELS_PER_BLOCK = 64;
@@ -43,13 +47,13 @@ export function rememberingResolver(): DotResolver {
  * spectral model are re-thrown with their path under `pathPrefix` (e.g. ['candidates']) so the API names the
  * candidate's field.
  */
-export function candidateMatrix(
+export function* candidateMatrixSteps(
   probes: ProbeSpec[],
   channels: ChannelSpec[],
   excitation: ExcitationLine[],
   resolve: DotResolver,
   options: { grid?: WavelengthGrid; pathPrefix?: (string | number)[] } = {},
-): number[][] {
+): Generator<SearchProgress, number[][]> {
   const grid = options.grid ?? DEFAULT_GRID;
   const out = channels.map(() => new Array<number>(probes.length).fill(0));
   for (let p0 = 0; p0 < probes.length; p0 += PROBES_PER_BLOCK) {
@@ -73,9 +77,16 @@ export function candidateMatrix(
         throw new SpectraError(err.code, err.message, [...(options.pathPrefix ?? []), ...path]);
       }
       block.forEach((row, c) => row.forEach((x, p) => (out[c0 + c][p0 + p] = x)));
+      // A pause point after each block: a large catalog's matrix is the longest stretch of a design's work.
+      yield CANDIDATES;
     }
   }
   return out;
+}
+
+/** candidateMatrixSteps run to its end in one go. */
+export function candidateMatrix(...args: Parameters<typeof candidateMatrixSteps>): number[][] {
+  return runSteps(candidateMatrixSteps(...args));
 }
 
 /** The sample's own light a design request states: scattered excitation and water Raman, as a panel's. */
