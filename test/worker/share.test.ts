@@ -95,6 +95,18 @@ describe('GET /api/v1/panels/:id', () => {
     expect(await res.json()).toStrictEqual(examplePanel());
   });
 
+  it('GET /api/v1/panels/:id returns measured reference columns as sent; they evaluate as measured', async () => {
+    const measuredReference = { channels: ['c1', 'c2'], columns: [{ probe: 'p1', values: [900, 45.5] }] };
+    const sent = { ...examplePanel(), title: 'with controls', measuredReference };
+    const { id } = (await (await postJson(worker, '/api/v1/panels', sent)).json()) as { id: string };
+    const stored = (await (await worker.call(`/api/v1/panels/${id}`)).json()) as typeof sent;
+    expect(stored.measuredReference).toStrictEqual(measuredReference);
+    const ev = (await (await postJson(worker, '/api/v1/panels/evaluate', stored)).json()) as {
+      referenceColumns: string[];
+    };
+    expect(ev.referenceColumns).toEqual(['measured', 'model']);
+  });
+
   it('GET /api/v1/panels/:id of a well-formed unknown id is a 404 in the contract shape', async () => {
     const res = await worker.call('/api/v1/panels/AAAAAAAAAAAAAAAAAAAAAAAA');
     expect(res.status).toBe(404);
