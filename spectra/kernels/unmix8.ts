@@ -1,11 +1,12 @@
 /**
- * Least squares for images of up to 8 channels, the common case of a multi-channel pilot image: the pixel's 8
- * values live in local variables and each of M⁺'s rows and of the residual basis's rows (complement.ts) is one
- * unrolled dot product, summed pairwise. Missing channels (fewer than 8) get zero coefficients and read plane 1
- * again, so a non-finite value there still marks the pixel as unmeasured.
+ * Least squares for images of up to 8 channels, the common case of a multi-channel pilot image (its plain reference
+ * is `leastSquaresRange` in image/least-squares.ts): the pixel's 8 values live in local variables and each of M⁺'s
+ * rows and of the residual basis's rows (image/complement.ts) is one unrolled dot product, summed pairwise. Missing
+ * channels (fewer than 8) get zero coefficients and read plane 1 again, so a non-finite value there still marks the
+ * pixel as unmeasured.
  */
-import type { PreparedReference } from './reference';
-import type { PixelUnmixOutput } from './types';
+import type { PreparedReference } from '../image/reference';
+import type { PixelUnmixOutput } from '../image/types';
 
 /** The widest image this kernel unmixes. */
 export const KERNEL_CHANNELS = 8;
