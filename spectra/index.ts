@@ -189,6 +189,11 @@ export { fcsSpillover, type FcsSpilloverResult, type SpilloverMatrix } from './c
 export { unmixingMatrix } from './controls/unmixing';
 export { controlsReport, type ControlsReport } from './controls/report';
 
+// Images: unmixing a pilot image pixel by pixel, and the mean of a region per plane.
+export type { PixelUnmixMethod, PixelUnmixOutput, PixelUnmixer } from './image/types';
+export { allocateUnmixOutput, pixelUnmixer } from './image/unmixer';
+export { regionMeans, type PixelRegion } from './image/region';
+
 // Design: the objective, the exact catalog search, the whole pipeline.
 export {
   ABUNDANCE_WORDS,
