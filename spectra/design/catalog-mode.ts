@@ -8,6 +8,7 @@ import { DEFAULT_GRID } from '../core/grid';
 import { channelTransmission } from '../light/filters/channel';
 import type { ChannelSpec, ProbeSpec } from '../core/panel';
 import { asCandidate, candidateMatrixSteps, rememberingResolver, sampleLight } from './matrix';
+import { measuredCandidates } from './measured-candidates';
 import { blocksItsLines, clearOfLines, NoDesignFound, readablePairs } from './practice';
 import { dotInputOf } from '../signal/panel-model';
 import type { ResolvedDesignOptions } from './options';
@@ -30,6 +31,10 @@ export interface CatalogOutcome {
   worst: number;
   score: SnrScore;
   exact: boolean;
+  /** Candidate probes whose measured reference column the search used (the request's measuredReference). */
+  measuredProbes: string[];
+  /** Why a measured column was not used, if any was not. */
+  referenceWarnings: string[];
   stats: DesignSearchStats & {
     candidateProbes: number;
     candidateChannels: number;
@@ -71,7 +76,10 @@ export const LEFT_OUT_WORDS = {
 
 /** Runs catalog mode as steps (see search.ts for the drivers). */
 export function* catalogDesignSteps(
-  request: Pick<DesignRequest, 'targets' | 'excitation' | 'candidates' | 'owned' | 'scatterLevel' | 'waterRaman'>,
+  request: Pick<
+    DesignRequest,
+    'targets' | 'excitation' | 'candidates' | 'owned' | 'scatterLevel' | 'waterRaman' | 'measuredReference'
+  >,
   o: ResolvedDesignOptions,
   shouldStop?: () => boolean,
 ): Generator<SearchProgress, CatalogOutcome> {
@@ -135,9 +143,13 @@ export function* catalogDesignSteps(
     );
   }
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
-  const collected = yield* candidateMatrixSteps(probes, channels, request.excitation, resolve, {
-    pathPrefix: ['candidates'],
-  });
+  const measured = measuredCandidates(
+    yield* candidateMatrixSteps(probes, channels, request.excitation, resolve, { pathPrefix: ['candidates'] }),
+    probes,
+    channels,
+    request.measuredReference,
+  );
+  const collected = measured.collected;
   const dots = probes.map((p) => dotOf(p, offeredProbes.indexOf(p)));
   const pairAllowed = readablePairs(dots, channels, DEFAULT_GRID, o.minChannelShare);
   yield { stage: 'candidates', nodesVisited: 0, incumbent: null, bound: null };
@@ -172,6 +184,8 @@ export function* catalogDesignSteps(
     worst: worstInterference(collected, abundance, design).worstInterference,
     score: found.score!,
     exact: found.exact,
+    measuredProbes: probes.filter((_, p) => measured.source[p] === 'measured').map((p) => p.id),
+    referenceWarnings: measured.warnings,
     stats: {
       ...searchStats(run, fullEnumerationSize(n, probes.length, channels.length)),
       candidateProbes: probes.length,

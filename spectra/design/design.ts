@@ -3,6 +3,7 @@
  * catalog mode (candidates given) or free mode, turn the answer into a panel whose probes carry their `channel` and
  * `abundance` (so evaluatePanel reproduces the objective), evaluate it, and predict its unmixing noise.
  */
+import { proposalReference } from './measured-candidates';
 import type { ChannelSpec, PanelSpec, ProbeSpec } from '../core/panel';
 import { evaluatePanel, type PanelEvaluation } from '../signal/evaluate';
 import type { NoisePrediction } from '../signal/noise';
@@ -110,6 +111,13 @@ export function* designSteps(
   let worst: number;
   let exact: boolean;
   let stats: NonNullable<DesignResult['stats']>;
+  let measuredProbes = new Set<string>();
+  const referenceWarnings: string[] = [];
+  if (free && request.measuredReference)
+    referenceWarnings.push(
+      'the measured reference columns are not used: free mode designs new probes and channels, which the controls ' +
+        'were not measured in; choose among the panel’s own probes and channels to use them',
+    );
   try {
     if (free) {
       const windowNm = normalizeWindow(request.windowNm);
@@ -120,6 +128,8 @@ export function* designSteps(
       const out = yield* catalogDesignSteps(request, o, shouldStop);
       ({ probes, channels, worst, exact } = out);
       stats = { ...out.stats };
+      measuredProbes = new Set(out.measuredProbes);
+      referenceWarnings.push(...out.referenceWarnings);
     }
   } catch (err) {
     if (!(err instanceof NoDesignFound)) throw err;
@@ -134,7 +144,7 @@ export function* designSteps(
       verdict: 'no_usable_panel',
       verdictReason: err.message,
       largestUsableTargets: lookForFewer ? yield* largestUsable(request, shouldStop) : null,
-      warnings: free ? defaultLeftOut(request) : [],
+      warnings: [...referenceWarnings, ...(free ? defaultLeftOut(request) : [])],
     };
   }
   const panel: PanelSpec = {
@@ -155,6 +165,9 @@ export function* designSteps(
     // The request's exclusions travel with the proposal, so its evaluation and the page keep them.
     ...(request.exclude?.length ? { exclude: [...new Set(request.exclude)] } : {}),
   };
+  // The measured columns the search used travel with the proposal, so its evaluation uses them too.
+  const measuredReference = proposalReference(request.measuredReference, measuredProbes, panel);
+  if (measuredReference) panel.measuredReference = measuredReference;
   // A pause point before the proposal's full evaluation (its lot-to-lot check included), the last long stretch.
   yield { stage: 'done', nodesVisited: stats.nodesVisited, incumbent: null, bound: null };
   const evaluation = evaluatePanel(panel);
@@ -186,7 +199,7 @@ export function* designSteps(
     interferenceCeiling: o.maxInterference,
     statement: objectiveStatement(snr[weakest], names[weakest], spreading, worst, o.maxInterference),
   });
-  const warnings = [...noise.warnings, ...(free ? defaultLeftOut(request) : [])];
+  const warnings = [...noise.warnings, ...referenceWarnings, ...(free ? defaultLeftOut(request) : [])];
   for (const id of new Set(panel.probes.map((p) => p.material))) {
     const m = getMaterial(id);
     const hazards = exclusionsOf(m);

@@ -7,7 +7,14 @@ import { DEFAULT_GRID, gridEndNm } from '../core/grid';
 import { listMaterials } from '../dot/materials/catalog';
 import type { Material } from '../dot/materials/types';
 import { EXCLUSIONS, type Exclusion } from '../dot/materials/exclusions';
-import type { ChannelSpec, ExcitationLine, MaterialId, ProbeSpec, WaterRamanSpec } from '../core/panel';
+import type {
+  ChannelSpec,
+  ExcitationLine,
+  MaterialId,
+  MeasuredReferenceSpec,
+  ProbeSpec,
+  WaterRamanSpec,
+} from '../core/panel';
 import { abundanceValue, type AbundanceInput } from './objective';
 import type { DesignOptions } from './options';
 
@@ -50,6 +57,11 @@ export interface DesignRequest {
    * Not with `candidates` (catalog mode has its own channels).
    */
   channelChoices?: ChannelSpec[];
+  /**
+   * Reference columns measured from single-stain controls (a panel's measuredReference): in catalog mode they replace
+   * the modelled columns of the candidate probes they cover, when every candidate channel was measured.
+   */
+  measuredReference?: MeasuredReferenceSpec;
 }
 
 /** Default emission window of free mode, nm: our choice, the visible range up to the near-infrared edge of common

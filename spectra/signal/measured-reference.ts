@@ -15,14 +15,12 @@ export interface MeasuredColumns {
   warnings: string[];
 }
 
-const sameIds = (a: readonly string[], b: readonly string[]) =>
-  a.length === b.length && new Set(a).size === a.length && a.every((id) => b.includes(id));
-
 /**
  * `collected[c][p]` with the panel's measured columns in place of the modelled ones: a measured column is scaled so
  * that its value in the probe's primary channel (its assigned channel, else its brightest measured one) equals the
- * model's there; negative values (noise around zero after the unstained is subtracted) count as 0. A reference taken
- * on other channels than the panel's, or a column that cannot be scaled, is not used and a warning says so.
+ * model's there; negative values (noise around zero after the unstained is subtracted) count as 0. The reference may
+ * hold more channels than the panel (only the panel's are read); one missing a panel channel, or a column that cannot
+ * be scaled, is not used and a warning says so.
  */
 export function withMeasuredColumns(
   collected: number[][],
@@ -33,10 +31,12 @@ export function withMeasuredColumns(
   const ref = panel.measuredReference;
   if (!ref) return { collected, source, warnings: [] };
   const channelIds = panel.channels.map((c) => c.id);
-  if (!sameIds(ref.channels, channelIds)) {
+  const unmeasured = channelIds.filter((id) => !ref.channels.includes(id));
+  if (unmeasured.length) {
     const warning =
-      `the measured reference was taken on channels ${ref.channels.join(', ')}, not on this panel's channels ` +
-      `(${channelIds.join(', ')}): the modelled columns are used; measure the controls again on these channels`;
+      `the measured reference has no values for channel${unmeasured.length === 1 ? '' : 's'} ` +
+      `${unmeasured.join(', ')} (it was taken on ${ref.channels.join(', ')}): the modelled columns are used; ` +
+      'measure the controls on every channel of the panel';
     return { collected, source, warnings: [warning] };
   }
   // Where each panel channel is in the reference's lists.

@@ -3,7 +3,7 @@
 // spillover of a probe into channel c is its column's value in c over its value in its primary channel
 // (common practice: single-stain controls normalised to their primary detector).
 import { describe, expect, it } from 'vitest';
-import { evaluatePanel, withMeasuredColumns, type PanelSpec } from '../../spectra/index';
+import { evaluatePanel, runDesign, withMeasuredColumns, type PanelSpec } from '../../spectra/index';
 
 const twoByTwo: Pick<PanelSpec, 'probes' | 'channels'> = {
   probes: [
@@ -57,7 +57,7 @@ describe('withMeasuredColumns', () => {
     expect(withMeasuredColumns(modelled, panel, [undefined, undefined]).collected[1][0]).toBe(0);
   });
 
-  it('withMeasuredColumns keeps the model and warns when the reference was taken on other channels', () => {
+  it('withMeasuredColumns keeps the model and warns when the reference lacks a channel of the panel', () => {
     const panel = {
       ...twoByTwo,
       measuredReference: { channels: ['green', 'blue'], columns: [{ probe: 'a', values: [1, 2] }] },
@@ -65,7 +65,21 @@ describe('withMeasuredColumns', () => {
     const r = withMeasuredColumns(modelled, panel, [undefined, undefined]);
     expect(r.collected).toBe(modelled);
     expect(r.source).toEqual(['model', 'model']);
-    expect(r.warnings[0]).toMatch(/^the measured reference was taken on channels green, blue, not on this panel's/);
+    expect(r.warnings[0]).toMatch(
+      /^the measured reference has no values for channel red \(it was taken on green, blue\)/,
+    );
+  });
+
+  it("withMeasuredColumns reads only the panel's channels of a reference taken on more channels", () => {
+    const panel = {
+      ...twoByTwo,
+      measuredReference: { channels: ['blue', 'red', 'green'], columns: [{ probe: 'a', values: [70, 30, 60] }] },
+    };
+    // Blue is not in the panel: a's primary is green (60 of its own channels), scale 10 / 60: red 30 → 5.
+    const r = withMeasuredColumns(modelled, panel, [undefined, undefined]);
+    expect(r.source).toEqual(['measured', 'model']);
+    expect(r.collected[0][0]).toBeCloseTo(10, 12);
+    expect(r.collected[1][0]).toBeCloseTo(5, 12);
   });
 
   it('withMeasuredColumns skips with a warning a column of an unknown probe and one dark in its channel', () => {
@@ -111,5 +125,41 @@ describe('evaluatePanel with a measured reference', () => {
     expect(measured.spillover[1][0]).toBeCloseTo(0.25, 12);
     expect(plain.spillover[1][0]!).toBeLessThan(0.05);
     expect(measured.noiseAmplification[1]!).toBeGreaterThan(plain.noiseAmplification[1]!);
+  });
+});
+
+describe('runDesign with a measured reference (catalog mode)', () => {
+  // Two targets and the two-colour panel's probes and channels as candidates: a's control spills 60 % into red.
+  const request = {
+    targets: [
+      { name: 'first', abundance: 'high' as const, lock: { probe: 'a', channel: 'green' } },
+      { name: 'second', abundance: 'high' as const, lock: { probe: 'b', channel: 'red' } },
+    ],
+    excitation: [{ wavelengthNm: 405 }],
+    candidates: { probes: twoByTwo.probes, channels: twoByTwo.channels },
+    options: { maxInterference: 1 },
+  };
+  const reference = { channels: ['green', 'red'], columns: [{ probe: 'a', values: [500, 300] }] };
+
+  it('runDesign: the locked probe a keeps its measured column; the proposal evaluates a spilling 60 % into red', () => {
+    const plain = runDesign(request);
+    const measured = runDesign({ ...request, measuredReference: reference });
+    expect(plain.evaluation!.spillover[1][0]!).toBeLessThan(0.05);
+    // 300 / 500, worked by hand.
+    expect(measured.evaluation!.spillover[1][0]).toBeCloseTo(0.6, 9);
+    expect(measured.evaluation!.referenceColumns).toEqual(['measured', 'model']);
+    expect(measured.panel!.measuredReference).toEqual(reference);
+  });
+
+  it('runDesign in free mode with a measured reference says it is not used', () => {
+    const free = runDesign({
+      targets: [{ name: 'only', abundance: 'high' }],
+      excitation: [{ wavelengthNm: 405 }],
+      measuredReference: reference,
+      options: { nodeBudget: 200 },
+    });
+    expect(free.warnings.some((w) => w.startsWith('the measured reference columns are not used: free mode'))).toBe(
+      true,
+    );
   });
 });

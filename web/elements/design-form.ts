@@ -27,6 +27,7 @@ import {
   type DesignRequest,
   type DesignResult,
   type Exclusion,
+  type MeasuredReferenceSpec,
   type SearchProgress,
 } from '../../spectra/index';
 import type { DesignRequest as DesignRequestBody } from '../../worker/schemas';
@@ -137,6 +138,8 @@ const MATERIALS = listMaterials().filter((m) => m.emissionRangeNm !== null);
 export class DesignForm extends LitElement {
   /** Probes and channels to choose from (catalog mode); absent: free mode only. */
   @property({ attribute: false }) candidates?: DesignRequest['candidates'];
+  /** The panel's measured reference columns: a search among the panel's own parts uses them. */
+  @property({ attribute: false }) measuredReference?: MeasuredReferenceSpec;
   /** The sample's own light (the panel's scatterLevel, waterRaman): sent with every request, kept in the proposal. */
   @property({ attribute: false }) sample: Pick<DesignRequest, 'scatterLevel' | 'waterRaman'> = {};
   /** Extra search options passed with every request (e.g. a node budget). */
@@ -309,7 +312,7 @@ export class DesignForm extends LitElement {
     return designRequest({
       targets: this.targets.map((t) => ({ name: t.name, abundance: abundanceInput(t.abundance), lock: t.lock })),
       excitation: excitationLines(this.excitationText),
-      ...(catalog ? { candidates: this.candidates } : {}),
+      ...(catalog ? { candidates: this.candidates, measuredReference: this.measuredReference } : {}),
       owned: this.owned,
       free: { exclude: [...this.exclude], allowedMaterials: [...this.allowed], windowNm: this.windowNm },
       ...(this.onMicroscope ? { instrument: this.onMicroscope.id } : {}),

@@ -962,6 +962,7 @@ export class PanelApp extends LitElement {
               </p>
               <qdp-design-form
                 .candidates=${this.candidates()}
+                .measuredReference=${p.measuredReference}
                 .owned=${designParts(p)}
                 .microscope=${this.instrument}
                 .sample=${sampleOf(p)}

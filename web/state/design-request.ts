@@ -13,6 +13,7 @@ import {
   type ExcitationLine,
   type Exclusion,
   type MaterialId,
+  type MeasuredReferenceSpec,
   type PanelSpec,
   type ProbeSpec,
 } from '../../spectra/index';
@@ -48,6 +49,8 @@ export interface DesignInput {
   excitation?: ExcitationLine[];
   /** Catalog mode: the probes and channels to choose among (locks then name these). */
   candidates?: DesignParts;
+  /** Catalog mode: the panel's measured reference columns, which the search then uses for the probes they cover. */
+  measuredReference?: MeasuredReferenceSpec;
   /** Free mode: what the user owns (the panel's parts); the locked ones are sent as `owned`. */
   owned: DesignParts;
   free: { exclude: Exclusion[]; allowedMaterials: MaterialId[]; windowNm: [number, number] };
@@ -89,7 +92,12 @@ export function designRequest(input: DesignInput): DesignRequest {
     options: input.options,
     ...input.sample,
   };
-  if (input.candidates) return { ...base, candidates: input.candidates };
+  if (input.candidates)
+    return {
+      ...base,
+      candidates: input.candidates,
+      ...(input.measuredReference ? { measuredReference: input.measuredReference } : {}),
+    };
   const owned = lockedParts(targets, input.owned);
   return {
     ...base,

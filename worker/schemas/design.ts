@@ -16,7 +16,7 @@ import {
 import { ApiError } from './errors';
 import { identifier, ranged, text, wavelengthNm } from './fields';
 import { LIMITS, RANGES } from './limits';
-import { Channel, ExcitationLine, InstrumentId, WaterRaman } from './panel';
+import { Channel, ExcitationLine, InstrumentId, MeasuredReference, WaterRaman } from './panel';
 import { MaterialIdSchema, Probe } from './probe';
 
 const ABUNDANCE_NAMES = Object.keys(ABUNDANCE_WORDS) as [
@@ -115,6 +115,7 @@ export const DesignRequest = z
     options: DesignOptions.optional(),
     scatterLevel: ranged(RANGES.scatterLevel[0], RANGES.scatterLevel[1]).optional(),
     waterRaman: WaterRaman.optional(),
+    measuredReference: MeasuredReference.optional(),
   })
   .superRefine((request, ctx) => {
     const issue = (message: string, path: (string | number)[]) =>
