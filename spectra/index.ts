@@ -169,6 +169,11 @@ export { evaluateLotShift, evaluatePanel, type PanelEvaluation } from './signal/
 export { LOT_SHIFT_NM } from './signal/sensitivity';
 export { panelSpectra, type PanelSpectra } from './signal/panel-spectra';
 
+// Images: unmixing a pilot image pixel by pixel, and the mean of a region per plane.
+export type { PixelUnmixMethod, PixelUnmixOutput, PixelUnmixer } from './image/types';
+export { allocateUnmixOutput, pixelUnmixer } from './image/unmixer';
+export { regionMeans, type PixelRegion } from './image/region';
+
 // Design: the objective, the exact catalog search, the whole pipeline.
 export {
   ABUNDANCE_WORDS,
