@@ -36,7 +36,13 @@ const inside = (d: number, edge: number) => 1 / (1 + Math.exp((d - edge) / 0.6))
 /** A ring of the given radius and half-width. */
 const ring = (d: number, radius: number, half: number) => Math.exp(-(((d - radius) / half) ** 2));
 
-/** The invented abundance maps, 0–1, one per probe in the demo panel's order. */
+/**
+ * Every probe's level off its target (non-specific binding, invented): it keeps each channel at tens of counts or more
+ * everywhere, where Poisson noise is close to normal.
+ */
+const FLOOR = 0.03;
+
+/** The invented abundance maps, FLOOR–1, one per probe in the demo panel's order. */
 function maps(x: number, y: number): number[] {
   const a = new Array<number>(probes).fill(0);
   for (const c of CELLS) {
@@ -62,7 +68,7 @@ function maps(x: number, y: number): number[] {
   // A vessel wall: one sparse curved band across the field.
   const band = y - (40 + 12 * Math.sin(x / 14));
   a[4] = 0.8 * Math.exp(-((band / 1.5) ** 2)) * (x > 8 && x < 72 ? 1 : 0);
-  return a;
+  return a.map((v) => Math.max(FLOOR, v));
 }
 
 // Each probe's scale: PEAK_COUNTS in its brightest channel at map value 1.

@@ -57,6 +57,9 @@ scope.onmessage = (event: MessageEvent<UnmixRequest>) => {
     // The pages go back to the page, which keeps the image.
     const { pages } = message;
     const text = err instanceof SpectraError ? err.message : 'The unmixing stopped unexpectedly.';
-    post({ type: 'error', message: text, pages }, pages.map((p) => p.buffer));
+    post(
+      { type: 'error', message: text, pages },
+      pages.map((p) => p.buffer),
+    );
   }
 };
