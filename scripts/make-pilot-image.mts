@@ -1,6 +1,7 @@
 /**
  * Builds the demo pilot image: an invented 80 × 80 pixel field of four cells for the demo panel
- * (web/state/demo-panel.ts), one 16-bit page per channel as an OME-TIFF, and beside it the true abundances (32-bit float, one page per probe).
+ * (web/state/demo-panel.ts), one 16-bit page per channel as an OME-TIFF, and beside it the true abundances (32-bit
+ * float, one page per probe).
  * Each pixel's expected counts are the panel's own modelled collected signal (evaluatePanel's `collected`,
  * [channel][probe]) times the true abundances; the counts are then drawn from a Poisson distribution with a seeded
  * generator (spectra/core/random.ts), so the file is the same on every run.

@@ -144,7 +144,7 @@ describe('<qdp-pilot-image>', () => {
     expect(worst).toBeLessThan(6);
   });
 
-  it('refuses a truncated file, an LZW file and a 2-page image in words, keeping the panel and the loaded demo', async () => {
+  it('refuses a truncated, an LZW and a 2-page file in words, keeping the panel and the loaded demo', async () => {
     const el = await mount();
     const panel = el.panel;
     const before = JSON.stringify(panel);
