@@ -892,6 +892,15 @@ export class PanelApp extends LitElement {
               ></qdp-design-form>
             </details>
           </section>
+          <section aria-labelledby="h-pilot-image">
+            <details class="fold">
+              <summary>
+                <h2 id="h-pilot-image">Unmix a pilot image</h2>
+                <span>a TIFF of a sample stained with this panel, unmixed in this browser</span>
+              </summary>
+              <qdp-pilot-image .panel=${p}></qdp-pilot-image>
+            </details>
+          </section>
         </div>
         <div class="results">
           <section aria-labelledby="h-spectra">
