@@ -49,11 +49,13 @@ export class ImageMap extends LitElement {
     svg {
       display: block;
       width: 100%;
-      height: 2rem;
+      height: 0.8rem;
     }
-    text {
-      font-size: 11px;
-      fill: #222;
+    .ends {
+      display: flex;
+      justify-content: space-between;
+      gap: 0.5rem;
+      font-size: 0.75rem;
     }
   `;
 
@@ -79,10 +81,9 @@ export class ImageMap extends LitElement {
             })}
           </linearGradient>
         </defs>
-        <rect x="0" y="0" width="200" height="12" fill="url(#${this.gradientId})" stroke="#99a"></rect>
-        <text x="0" y="25">${scaleText(min)}</text>
-        <text x="200" y="25" text-anchor="end">${scaleText(max)}</text>
+        <rect x="0" y="0" width="200" height="28" fill="url(#${this.gradientId})" stroke="#99a"></rect>
       </svg>
+      <div class="ends" aria-hidden="true"><span>${scaleText(min)}</span><span>${scaleText(max)}</span></div>
       <figcaption>${this.caption}</figcaption>
     </figure>`;
   }

@@ -130,7 +130,7 @@ export class PilotImageElement extends LitElement {
         font: inherit;
       }
       input[type='number'] {
-        width: 4.5rem;
+        width: 4rem;
       }
       .image-area {
         max-width: 24rem;
@@ -154,8 +154,29 @@ export class PilotImageElement extends LitElement {
         width: 12rem;
       }
       .regions {
-        overflow-x: auto;
-        max-width: 100%;
+        list-style: none;
+        padding: 0;
+        margin: 0.4rem 0;
+      }
+      .regions li {
+        display: flex;
+        flex-wrap: wrap;
+        gap: 0.3rem 0.6rem;
+        align-items: flex-end;
+        padding: 0.3rem 0;
+        border-bottom: 1px solid #dde;
+      }
+      .region-name {
+        font-weight: 600;
+        min-width: 4.5rem;
+      }
+      label.field {
+        display: flex;
+        flex-direction: column;
+        font-size: 0.8rem;
+      }
+      caption {
+        text-align: left;
       }
     `,
   ];
@@ -529,67 +550,47 @@ export class PilotImageElement extends LitElement {
   private renderRegions() {
     const probes = this.panel?.probes ?? [];
     const number = (i: number, key: 'x' | 'y' | 'width' | 'height', label: string) =>
-      html`<input
-        type="number"
-        min=${key === 'width' || key === 'height' ? 1 : 0}
-        step="1"
-        aria-label="Region ${i + 1} ${label}"
-        .value=${String(this.regions[i][key])}
-        @change=${(e: Event) => this.setRegion(i, { [key]: Math.round(Number((e.target as HTMLInputElement).value)) })}
-      />`;
-    return html`<div class="regions">
-      ${
-        this.regions.length
-          ? html`<table>
-              <thead>
-                <tr>
-                  <th scope="col">Region</th>
-                  <th scope="col">x px</th>
-                  <th scope="col">y px</th>
-                  <th scope="col">Width px</th>
-                  <th scope="col">Height px</th>
-                  <th scope="col">Shows</th>
-                  <th scope="col"><span class="note">Remove</span></th>
-                </tr>
-              </thead>
-              <tbody>
-                ${this.regions.map(
-                  (r, i) =>
-                    html`<tr>
-                      <th scope="row">${i + 1}</th>
-                      <td>${number(i, 'x', 'x')}</td>
-                      <td>${number(i, 'y', 'y')}</td>
-                      <td>${number(i, 'width', 'width')}</td>
-                      <td>${number(i, 'height', 'height')}</td>
-                      <td>
-                        <select
-                          aria-label="Region ${i + 1} shows"
-                          @change=${(e: Event) => this.setRegion(i, { label: (e.target as HTMLSelectElement).value })}
-                        >
-                          <option value="" ?selected=${r.label === ''}>choose…</option>
-                          <option value=${UNSTAINED} ?selected=${r.label === UNSTAINED}>unstained</option>
-                          ${probes.map(
-                            (p) =>
-                              html`<option value=${p.id} ?selected=${r.label === p.id}>${p.label || p.id}</option>`,
-                          )}
-                        </select>
-                      </td>
-                      <td>
-                        <button
-                          type="button"
-                          aria-label="Remove region ${i + 1}"
-                          @click=${() => (this.regions = this.regions.filter((_, k) => k !== i))}
-                        >
-                          Remove
-                        </button>
-                      </td>
-                    </tr>`,
+      html`<label class="field"
+        >${label}
+        <input
+          type="number"
+          min=${key === 'width' || key === 'height' ? 1 : 0}
+          step="1"
+          aria-label="Region ${i + 1} ${label}"
+          .value=${String(this.regions[i][key])}
+          @change=${(e: Event) =>
+            this.setRegion(i, { [key]: Math.round(Number((e.target as HTMLInputElement).value)) })}
+      /></label>`;
+    return html`<ol class="regions">
+      ${this.regions.map(
+        (r, i) =>
+          html`<li>
+            <span class="region-name">Region ${i + 1}</span>
+            ${number(i, 'x', 'x px')} ${number(i, 'y', 'y px')} ${number(i, 'width', 'width px')}
+            ${number(i, 'height', 'height px')}
+            <label class="field"
+              >shows
+              <select
+                aria-label="Region ${i + 1} shows"
+                @change=${(e: Event) => this.setRegion(i, { label: (e.target as HTMLSelectElement).value })}
+              >
+                <option value="" ?selected=${r.label === ''}>choose…</option>
+                <option value=${UNSTAINED} ?selected=${r.label === UNSTAINED}>unstained</option>
+                ${probes.map(
+                  (p) => html`<option value=${p.id} ?selected=${r.label === p.id}>${p.label || p.id}</option>`,
                 )}
-              </tbody>
-            </table>`
-          : nothing
-      }
-    </div>`;
+              </select></label
+            >
+            <button
+              type="button"
+              aria-label="Remove region ${i + 1}"
+              @click=${() => (this.regions = this.regions.filter((_, k) => k !== i))}
+            >
+              Remove
+            </button>
+          </li>`,
+      )}
+    </ol>`;
   }
 
   private renderResult() {
