@@ -178,7 +178,7 @@ describe('<qdp-pilot-image>', () => {
     }
   });
 
-  it('offers the page mapping for a 9-page image and unmixes the pages the user chose', async () => {
+  it('offers the page mapping for a 9-page image and keeps the page the user chose for a channel', async () => {
     const el = await mount();
     const blank = { width: 2, height: 2, bitsPerSample: 8 as const, sampleFormat: 'uint' as const };
     await loadFile(el, writeTiff(Array.from({ length: 9 }, (_, i) => ({ ...blank, data: [i, i, i, i] }))));
@@ -190,6 +190,28 @@ describe('<qdp-pilot-image>', () => {
     select.dispatchEvent(new Event('change'));
     await el.updateComplete;
     expect(select.value).toBe('8');
+  });
+
+  it('unmixes with the given .reference columns, not the modelled ones: doubled columns halve the maps', async () => {
+    const el = await mount();
+    const collected = evaluatePanel(demoPanel()).collected;
+    // Given in another channel order, which the page puts back in the panel's order.
+    const order = [5, 4, 3, 2, 1, 0];
+    el.reference = {
+      channels: order.map((c) => `c${c + 1}`),
+      columns: ['p1', 'p2', 'p3', 'p4', 'p5', 'p6'].map((probe, p) => ({
+        probe,
+        values: order.map((c) => 2 * collected[c][p]),
+      })),
+    };
+    await loadDemo(el);
+    await chooseAndRun(el, 'Least squares');
+    await until(() => maps(el).length === 7);
+    const truth = (await utifPages(TRUTH)).planes;
+    const sum = (plane: ArrayLike<number>) => Array.from(plane).reduce((a, b) => a + b, 0);
+    // Least squares is linear: M' = 2M gives â' = â / 2 (hand-worked), so each map's total is half the truth's.
+    truth.forEach((plane, p) => expect(sum(maps(el)[p].plane!) / sum(plane)).toBeCloseTo(0.5, 1));
+    expect(text(el)).not.toContain('modelled signal');
   });
 
   it('cancel stops a run at once: no maps, the image stays loaded and can be unmixed again', async () => {
@@ -229,8 +251,8 @@ describe('<qdp-pilot-image>', () => {
       ['width', '4'],
       ['height', '3'],
     ]) {
-      field(`Region 1 ${name}`).value = value;
-      field(`Region 1 ${name}`).dispatchEvent(new Event('change'));
+      field(`Region 1 ${name} px`).value = value;
+      field(`Region 1 ${name} px`).dispatchEvent(new Event('change'));
     }
     const canvas = root(el).querySelector('canvas.preview')!;
     const box = canvas.getBoundingClientRect();
