@@ -14,11 +14,12 @@
  * is shared, so each of our batches is paired with an adjacent numpy batch (the script kept running in --paired
  * mode) and the ratio is the median of the pairs' ratios.
  */
-import { execFileSync, spawn } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { existsSync } from 'node:fs';
 import { createInterface } from 'node:readline';
 import { fileURLToPath } from 'node:url';
 import { Bench } from 'tinybench';
+import { BENCH_CPU, pinToBenchCpu } from '../pin';
 import type { BenchRow } from '../types';
 import {
   DEFAULT_GRID,
@@ -79,27 +80,6 @@ interface NumpyBatches {
   /** Mean microseconds per call of one more batch. */
   next(): Promise<number>;
   close(): void;
-}
-
-/**
- * The core both sides of every pair run on (BENCH_CPU, default 0). The cores of a shared virtual machine can differ in
- * speed by a third for minutes at a time when a neighbour is busy, so a pair must never compare two different cores.
- */
-const BENCH_CPU = process.env.BENCH_CPU ?? '0';
-
-/** Pins this process (every thread) to BENCH_CPU with taskset; returns how to undo it, or null without taskset. */
-function pinToBenchCpu(): (() => void) | null {
-  try {
-    const mask = /affinity mask: ([0-9a-f]+)/.exec(
-      execFileSync('taskset', ['-p', String(process.pid)], { encoding: 'utf8' }),
-    );
-    execFileSync('taskset', ['-cp', BENCH_CPU, String(process.pid)], { stdio: 'ignore' });
-    return () => {
-      if (mask) execFileSync('taskset', ['-p', mask[1], String(process.pid)], { stdio: 'ignore' });
-    };
-  } catch {
-    return null;
-  }
 }
 
 /** Starts the numpy script in --paired mode and waits for its warm-up; null (with the reason) if it cannot run. */

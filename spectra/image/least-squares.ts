@@ -2,6 +2,7 @@
  * Least-squares unmixing of a run of pixels: â = M⁺ y per pixel with the pseudo-inverse computed once, and the
  * residual's root-mean-square over channels. Works through preallocated Float64 scratch, so a pixel allocates nothing.
  */
+import { residualSquares } from './complement';
 import type { PreparedReference } from './reference';
 import type { PixelUnmixOutput } from './types';
 
@@ -49,18 +50,28 @@ export function writeMissing(probes: number, k: number, out: PixelUnmixOutput): 
   out.residual[k] = NaN;
 }
 
-/** A least-squares unmixer of pixel runs over a prepared reference. */
+/**
+ * A least-squares unmixer of pixel runs over a prepared reference. The residual comes from the complement basis when
+ * that is the cheaper route (fewer spare channels than probes), else from y − M â.
+ */
 export function leastSquaresRange(ref: PreparedReference) {
-  const y = new Float64Array(ref.channels);
-  const a = new Float64Array(ref.probes);
+  const { channels, probes, complement } = ref;
+  const y = new Float64Array(channels);
+  const a = new Float64Array(probes);
+  const viaComplement = complement.length < channels * probes;
   return (planes: readonly ArrayLike<number>[], from: number, to: number, out: PixelUnmixOutput): void => {
     for (let k = from; k < to; k++) {
       if (!readPixel(planes, k, y)) {
-        writeMissing(ref.probes, k, out);
+        writeMissing(probes, k, out);
         continue;
       }
       projectPixel(ref, y, a);
-      writePixel(ref, y, a, k, out);
+      if (!viaComplement) {
+        writePixel(ref, y, a, k, out);
+        continue;
+      }
+      for (let p = 0; p < probes; p++) out.abundances[p][k] = a[p];
+      out.residual[k] = Math.sqrt(residualSquares(complement, channels, y) / channels);
     }
   };
 }

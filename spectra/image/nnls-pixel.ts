@@ -1,9 +1,11 @@
 /**
  * Non-negative least squares for one pixel, min ‖M a − y‖₂ subject to a ≥ 0, by the active-set algorithm of Lawson &
  * Hanson (Solving Least Squares Problems, Prentice-Hall 1974, ch. 23, algorithm NNLS) on the cross-products G = MᵀM
- * and b = Mᵀy (Bro & De Jong, J. Chemometrics 1997, 11, 393). Two warm starts keep the answer exact: a least-squares
- * solution that is all positive already is the NNLS solution (every gradient component is zero), and the previous
- * pixel's passive set is used only when its own solution is all positive (a feasible state of the algorithm).
+ * and b = Mᵀy (Bro & De Jong, J. Chemometrics 1997, 11, 393). The start is warm and stays exact: a least-squares
+ * solution that is all positive already is the NNLS solution (every gradient component is zero); otherwise the passive
+ * set starts as the least-squares solution's positive components (as in Van Benthem & Keenan, J. Chemometrics 2004,
+ * 18, 441), pruned of those whose subproblem solution is not positive until it is all positive, a feasible state from
+ * which the algorithm's iterations reach the unique optimum (M has full column rank).
  */
 import { EPSILON } from '../signal/linalg/matrix';
 import { projectPixel } from './least-squares';
@@ -20,7 +22,6 @@ export function pixelNnls(ref: PreparedReference): PixelNnls {
   const b = new Float64Array(probes);
   const z = new Float64Array(probes);
   const passive = new Uint8Array(probes);
-  const previous = new Uint8Array(probes);
   const blocked = new Uint8Array(probes);
   // Lawson & Hanson bound the loop by 3n iterations in practice (1974, ch. 23); 30n guards against cycling.
   const maxIterations = 30 * probes;
@@ -32,15 +33,32 @@ export function pixelNnls(ref: PreparedReference): PixelNnls {
     return true;
   };
 
+  /** Passive set = the positive components of the least-squares a, pruned until its solution is all positive. */
+  const warmStart = (a: Float64Array): boolean => {
+    let any = false;
+    for (let j = 0; j < probes; j++) {
+      passive[j] = a[j] > 0 ? 1 : 0;
+      any ||= a[j] > 0;
+    }
+    while (any && solver.solve(gram, b, passive, z)) {
+      if (allPassivePositive(z)) {
+        a.set(z);
+        return true;
+      }
+      any = false;
+      for (let j = 0; j < probes; j++) {
+        if (passive[j] && !(z[j] > 0)) passive[j] = 0;
+        any ||= passive[j] === 1;
+      }
+    }
+    return false;
+  };
+
   return (y, a) => {
     projectPixel(ref, y, a);
     let positive = true;
     for (let j = 0; j < probes && positive; j++) positive = a[j] > 0;
-    if (positive) {
-      passive.fill(1);
-      previous.fill(1);
-      return;
-    }
+    if (positive) return;
     let norm = 0;
     for (let c = 0; c < channels; c++) norm += y[c] * y[c];
     const tol = tolScale * Math.sqrt(norm);
@@ -49,13 +67,11 @@ export function pixelNnls(ref: PreparedReference): PixelNnls {
       for (let c = 0; c < channels; c++) sum += matrix[c * probes + j] * y[c];
       b[j] = sum;
     }
-    a.fill(0);
     blocked.fill(0);
-    passive.set(previous);
-    let warm = false;
-    for (let j = 0; j < probes; j++) warm ||= passive[j] === 1;
-    if (warm && solver.solve(gram, b, passive, z) && allPassivePositive(z)) a.set(z);
-    else passive.fill(0);
+    if (!warmStart(a)) {
+      a.fill(0);
+      passive.fill(0);
+    }
     let iterations = 0;
     for (;;) {
       // Gradient w = b − G a; the most positive free component enters the passive set.
@@ -113,6 +129,5 @@ export function pixelNnls(ref: PreparedReference): PixelNnls {
       }
       if (t === -2) break;
     }
-    previous.set(passive);
   };
 }

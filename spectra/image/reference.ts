@@ -7,6 +7,7 @@ import { SpectraError } from '../core/errors';
 import { EPSILON, norm2 } from '../signal/linalg/matrix';
 import { pseudoInverse } from '../signal/linalg/pinv';
 import { svdOfColumns } from '../signal/linalg/svd';
+import { complementRows } from './complement';
 
 /** A checked, full-column-rank reference in flat row-major Float64Arrays. */
 export interface PreparedReference {
@@ -18,6 +19,8 @@ export interface PreparedReference {
   pseudoInverse: Float64Array;
   /** MᵀM, probes × probes. */
   gram: Float64Array;
+  /** Q₂ᵀ, (channels − probes) × channels: the residual's basis (complement.ts). */
+  complement: Float64Array;
   /** ‖M‖ (Frobenius), for scale-aware tolerances. */
   normFrobenius: number;
 }
@@ -104,5 +107,6 @@ export function prepareReference(reference: readonly (readonly number[])[]): Pre
       gram[j * probes + k] = sum;
     }
   }
-  return { channels, probes, matrix, pseudoInverse: inverse, gram, normFrobenius: Math.sqrt(frobenius) };
+  const complement = complementRows(unitRows, unitInverse);
+  return { channels, probes, matrix, pseudoInverse: inverse, gram, complement, normFrobenius: Math.sqrt(frobenius) };
 }

@@ -5,6 +5,7 @@
 import { SpectraError } from '../core/errors';
 import { checkPlanes, checkRange } from './checks';
 import { leastSquaresRange, readPixel, writeMissing, writePixel } from './least-squares';
+import { KERNEL_CHANNELS, leastSquaresRange8 } from './kernel8';
 import { pixelNnls } from './nnls-pixel';
 import { prepareReference, type PreparedReference } from './reference';
 import type { PixelUnmixMethod, PixelUnmixOutput, PixelUnmixer } from './types';
@@ -43,7 +44,12 @@ export function pixelUnmixer(
     );
   }
   const ref = prepareReference(referenceByChannel);
-  const run = method === 'nnls' ? nnlsRange(ref) : leastSquaresRange(ref);
+  const run =
+    method === 'nnls'
+      ? nnlsRange(ref)
+      : ref.channels <= KERNEL_CHANNELS
+        ? leastSquaresRange8(ref)
+        : leastSquaresRange(ref);
   return {
     channels: ref.channels,
     probes: ref.probes,

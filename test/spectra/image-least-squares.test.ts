@@ -16,6 +16,7 @@ describe('pixelUnmixer least squares', () => {
   it.each([
     [8, 6, 1],
     [12, 5, 2],
+    [12, 10, 6],
     [6, 6, 3],
     [32, 16, 4],
     [3, 1, 5],
@@ -65,17 +66,21 @@ describe('pixelUnmixer least squares', () => {
     });
   });
 
-  it('unmixRange by least squares writes only pixels [from, to) and NaN for a pixel with a non-finite value', () => {
-    const m = randomMatrix(4, 2, 13, 0, 1);
-    const pixels = randomMatrix(10, 4, 14, 0, 1);
-    pixels[5][2] = NaN;
-    pixels[6][0] = Infinity;
-    const out = allocateUnmixOutput(2, 10);
-    const unmixer = pixelUnmixer(m, 'leastSquares');
-    unmixer.unmixRange(toPlanes(pixels, 4), 3, 8, out);
-    for (const k of [0, 1, 2, 8, 9]) expect(pixelOf(out, k)).toEqual({ a: [0, 0], residual: 0 });
-    for (const k of [5, 6]) expect(pixelOf(out, k).a.every(Number.isNaN) && Number.isNaN(out.residual[k])).toBe(true);
-    for (const k of [3, 4, 7]) expect(pixelOf(out, k).a.every(Number.isFinite)).toBe(true);
-    expect([unmixer.channels, unmixer.probes]).toEqual([4, 2]);
-  });
+  // 4 and 8 channels run the unrolled kernel of up to 8 channels (4 with padding), 12 the general loop.
+  it.each([4, 8, 12])(
+    'unmixRange by least squares on %i channels writes only pixels [from, to), NaN where a value is not finite',
+    (channels) => {
+      const m = randomMatrix(channels, 2, 13, 0, 1);
+      const pixels = randomMatrix(10, channels, 14, 0, 1);
+      pixels[5][2] = NaN;
+      pixels[6][0] = Infinity;
+      const out = allocateUnmixOutput(2, 10);
+      const unmixer = pixelUnmixer(m, 'leastSquares');
+      unmixer.unmixRange(toPlanes(pixels, channels), 3, 8, out);
+      for (const k of [0, 1, 2, 8, 9]) expect(pixelOf(out, k)).toEqual({ a: [0, 0], residual: 0 });
+      for (const k of [5, 6]) expect(pixelOf(out, k).a.every(Number.isNaN) && Number.isNaN(out.residual[k])).toBe(true);
+      for (const k of [3, 4, 7]) expect(pixelOf(out, k).a.every(Number.isFinite)).toBe(true);
+      expect([unmixer.channels, unmixer.probes]).toEqual([channels, 2]);
+    },
+  );
 });

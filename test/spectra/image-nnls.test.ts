@@ -24,7 +24,7 @@ function noisyPixels(m: number[][], count: number, seed: number, lo: number, noi
 describe('pixelUnmixer NNLS', () => {
   // Independent reference: ml-fcnnls 3.0 (fast combinatorial NNLS, Van Benthem & Keenan 2004), per pixel, with its
   // gradient tolerance tightened to 1e-12. Agreement to 1e-6 of the pixel's largest abundance (float32 output).
-  // `repeat` sends runs of near-identical pixels, so the previous pixel's passive set is tried as a warm start.
+  // `repeat` sends runs of near-identical pixels (pixels of one region look alike).
   it.each([
     [8, 6, 1, -0.6, 1],
     [8, 6, 2, -0.6, 3],
