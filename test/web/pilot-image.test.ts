@@ -47,6 +47,8 @@ async function mount(): Promise<PilotImageElement> {
 const root = (el: PilotImageElement) => el.shadowRoot!;
 const button = (el: PilotImageElement, label: string) =>
   [...root(el).querySelectorAll('button')].find((b) => b.textContent!.trim() === label)!;
+/** The shadow root of the regions part, where the image, the region fields and "Add a region" are. */
+const regionsRoot = (el: PilotImageElement) => root(el).querySelector('qdp-image-regions')!.shadowRoot!;
 const text = (el: PilotImageElement) => root(el).textContent!.replace(/\s+/g, ' ');
 const maps = (el: PilotImageElement) => [...root(el).querySelectorAll<ImageMap>('qdp-image-map')];
 
@@ -242,9 +244,10 @@ describe('<qdp-pilot-image>', () => {
     const el = await mount();
     await loadDemo(el);
     // One region typed with the keyboard controls (unstained, top-left corner with no cell), one dragged (nucleus).
-    button(el, 'Add a region').click();
+    [...regionsRoot(el).querySelectorAll('button')].find((b) => b.textContent!.trim() === 'Add a region')!.click();
     await el.updateComplete;
-    const field = (label: string) => root(el).querySelector<HTMLInputElement>(`input[aria-label="${label}"]`)!;
+    await root(el).querySelector('qdp-image-regions')!.updateComplete;
+    const field = (label: string) => regionsRoot(el).querySelector<HTMLInputElement>(`input[aria-label="${label}"]`)!;
     for (const [name, value] of [
       ['x', '0'],
       ['y', '0'],
@@ -254,7 +257,7 @@ describe('<qdp-pilot-image>', () => {
       field(`Region 1 ${name} px`).value = value;
       field(`Region 1 ${name} px`).dispatchEvent(new Event('change'));
     }
-    const canvas = root(el).querySelector('canvas.preview')!;
+    const canvas = regionsRoot(el).querySelector('canvas')!;
     const box = canvas.getBoundingClientRect();
     const at = (x: number, y: number) => ({
       clientX: box.left + ((x + 0.5) / 80) * box.width,
@@ -267,11 +270,14 @@ describe('<qdp-pilot-image>', () => {
     canvas.dispatchEvent(new PointerEvent('pointerup', at(25, 23)));
     await el.updateComplete;
     const label = (i: number, value: string) => {
-      const s = root(el).querySelector(`select[aria-label="Region ${i} shows"]`) as unknown as HTMLSelectElement;
+      const s = regionsRoot(el).querySelector(`select[aria-label="Region ${i} shows"]`) as unknown as HTMLSelectElement;
       s.value = value;
       s.dispatchEvent(new Event('change'));
     };
+    await root(el).querySelector('qdp-image-regions')!.updateComplete;
     label(1, 'unstained');
+    await el.updateComplete;
+    await root(el).querySelector('qdp-image-regions')!.updateComplete;
     label(2, 'p1');
     await el.updateComplete;
     let measured: ControlsMeasurement | null = null;

@@ -8,18 +8,19 @@
  * CSV. A refused file leaves the panel and any image already loaded as they were.
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
-import { customElement, property, query, state } from 'lit/decorators.js';
+import { customElement, property, state } from 'lit/decorators.js';
 import { regionMeans, type PanelSpec, type PixelUnmixMethod } from '../../spectra/index';
 import { downloadBlob, downloadText } from '../io/download';
 import { abundanceTiff, regionMeansCsv, type MeasuredRegion } from '../io/image-export';
 import { ImageReadError } from '../io/image-read-error';
 import { checkImageFileSize, readTiff, type PilotImage } from '../io/tiff-read';
-import { mapPixels, planeRange } from '../chart/map-colours';
 import { modelledReference, referenceByChannel, type ImageReference } from '../state/image-reference';
 import { proposeMapping } from '../state/page-mapping';
 import type { UnmixRequest, UnmixWorkerMessage } from '../state/unmix-worker';
+import { UNSTAINED, type ImageRegion } from './image-regions';
 import { focusRing } from './shared-styles';
 import './image-map';
+import './image-regions';
 
 /**
  * Measured controls, the shape of the controls input (panel channel ids in the order of every values array). The same
@@ -31,18 +32,6 @@ export interface ControlsMeasurement {
   unstainedSd?: number[];
   unstainedN?: number;
   controls: { probe: string; values: number[]; sd?: number[]; n?: number }[];
-}
-
-/** The label of a region for the unstained sample. */
-export const UNSTAINED = 'unstained';
-
-/** A rectangle on the image in pixels and what it shows: UNSTAINED or a probe id ('' until chosen). */
-export interface ImageRegion {
-  x: number;
-  y: number;
-  width: number;
-  height: number;
-  label: string;
 }
 
 /** The maps of the last run. */
@@ -84,14 +73,12 @@ export class PilotImageElement extends LitElement {
   @state() private result: Unmixed | null = null;
   @state() private regions: ImageRegion[] = [];
   @state() private regionStatus = '';
-  @state() private dragging: ImageRegion | null = null;
+  /** What the regions are drawn on: the sum of the pages the channels read (kept while a run has the pages). */
+  @state() private preview: Float32Array | null = null;
 
   /** The loaded file's bytes: the pages are read from them again after a cancelled run took them away. */
   private fileBytes: ArrayBuffer | null = null;
   private worker: Worker | null = null;
-  private dragStart: { x: number; y: number } | null = null;
-
-  @query('canvas.preview') private preview?: HTMLCanvasElement;
 
   static override styles = [
     focusRing,
@@ -129,21 +116,6 @@ export class PilotImageElement extends LitElement {
       button {
         font: inherit;
       }
-      input[type='number'] {
-        width: 4rem;
-      }
-      .image-area {
-        max-width: 24rem;
-      }
-      canvas.preview {
-        display: block;
-        width: 100%;
-        height: auto;
-        image-rendering: pixelated;
-        border: 1px solid #99a;
-        cursor: crosshair;
-        touch-action: none;
-      }
       .maps {
         display: grid;
         grid-template-columns: repeat(auto-fill, minmax(9rem, 1fr));
@@ -152,28 +124,6 @@ export class PilotImageElement extends LitElement {
       }
       progress {
         width: 12rem;
-      }
-      .regions {
-        list-style: none;
-        padding: 0;
-        margin: 0.4rem 0;
-      }
-      .regions li {
-        display: flex;
-        flex-wrap: wrap;
-        gap: 0.3rem 0.6rem;
-        align-items: flex-end;
-        padding: 0.3rem 0;
-        border-bottom: 1px solid #dde;
-      }
-      .region-name {
-        font-weight: 600;
-        min-width: 4.5rem;
-      }
-      label.field {
-        display: flex;
-        flex-direction: column;
-        font-size: 0.8rem;
       }
       caption {
         text-align: left;
@@ -186,14 +136,18 @@ export class PilotImageElement extends LitElement {
     return this.panel?.channels ?? [];
   }
 
-  override willUpdate(changed: PropertyValues<this>): void {
+  override willUpdate(changed: PropertyValues): void {
     // A panel with another number of channels gets a fresh proposal for the image already loaded.
     if (changed.has('panel') && this.image && this.mapping.length !== this.channels.length)
       this.mapping = proposeMapping(this.channels, this.image.planes.length, this.image.ome?.channels ?? null);
-  }
-
-  override updated(): void {
-    this.drawPreview();
+    const { image } = this;
+    // The preview follows the image and the mapping; a running worker holds the pages, so the last one stays.
+    if ((changed.has('image') || changed.has('mapping')) && image && image.planes.every((p) => p.length > 0)) {
+      const sum = new Float32Array(image.width * image.height);
+      for (const page of new Set(this.mapping))
+        for (let k = 0; k < sum.length; k++) sum[k] += image.planes[page]?.[k] ?? 0;
+      this.preview = sum;
+    }
   }
 
   override disconnectedCallback(): void {
@@ -323,75 +277,6 @@ export class PilotImageElement extends LitElement {
     this.finish();
     if (this.fileBytes) this.image = readTiff(this.fileBytes);
     if (say) this.status = 'Cancelled: no maps were made.';
-  }
-
-  /** Pixel coordinates on the image of a pointer event over the preview. */
-  private pixelAt(event: PointerEvent): { x: number; y: number } {
-    const box = this.preview!.getBoundingClientRect();
-    const { width, height } = this.image!;
-    const x = Math.floor(((event.clientX - box.left) / box.width) * width);
-    const y = Math.floor(((event.clientY - box.top) / box.height) * height);
-    return { x: Math.min(width - 1, Math.max(0, x)), y: Math.min(height - 1, Math.max(0, y)) };
-  }
-
-  private dragRegion(to: { x: number; y: number }): ImageRegion {
-    const from = this.dragStart!;
-    const x = Math.min(from.x, to.x);
-    const y = Math.min(from.y, to.y);
-    return { x, y, width: Math.abs(to.x - from.x) + 1, height: Math.abs(to.y - from.y) + 1, label: '' };
-  }
-
-  private onPointerDown(event: PointerEvent): void {
-    if (!this.image) return;
-    this.preview!.setPointerCapture(event.pointerId);
-    this.dragStart = this.pixelAt(event);
-    this.dragging = this.dragRegion(this.dragStart);
-  }
-
-  private onPointerMove(event: PointerEvent): void {
-    if (this.dragStart) this.dragging = this.dragRegion(this.pixelAt(event));
-  }
-
-  private onPointerUp(event: PointerEvent): void {
-    if (!this.dragStart) return;
-    const region = this.dragRegion(this.pixelAt(event));
-    this.dragStart = null;
-    this.dragging = null;
-    this.regions = [...this.regions, region];
-  }
-
-  /** A 10 × 10 region in the image's centre, for keyboard use: its numbers are then typed. */
-  private addRegion(): void {
-    const { width, height } = this.image!;
-    const size = Math.max(1, Math.min(10, width, height));
-    const x = Math.floor((width - size) / 2);
-    const y = Math.floor((height - size) / 2);
-    this.regions = [...this.regions, { x, y, width: size, height: size, label: '' }];
-  }
-
-  private setRegion(i: number, change: Partial<ImageRegion>): void {
-    this.regions = this.regions.map((r, k) => (k === i ? { ...r, ...change } : r));
-  }
-
-  /** The preview: the sum of the pages the channels read, on the map ramp, with the regions outlined. */
-  private drawPreview(): void {
-    const { preview, image } = this;
-    if (!preview || !image || image.planes.some((p) => p.length === 0)) return;
-    const sum = new Float32Array(image.width * image.height);
-    for (const page of new Set(this.mapping)) {
-      const plane = image.planes[page];
-      if (plane) for (let k = 0; k < sum.length; k++) sum[k] += plane[k];
-    }
-    const { min, max } = planeRange(sum);
-    const ctx = preview.getContext('2d')!;
-    ctx.putImageData(new ImageData(mapPixels(sum, min, max), image.width, image.height), 0, 0);
-    ctx.lineWidth = Math.max(0.5, image.width / 200);
-    const outline = (r: ImageRegion, colour: string) => {
-      ctx.strokeStyle = colour;
-      ctx.strokeRect(r.x + 0.5, r.y + 0.5, r.width - 1 || 0.5, r.height - 1 || 0.5);
-    };
-    this.regions.forEach((r) => outline(r, '#ffffff'));
-    if (this.dragging) outline(this.dragging, '#ff00ff');
   }
 
   /** Each region's means over the channels' pages, or a sentence saying which region cannot be measured. */
@@ -547,52 +432,6 @@ export class PilotImageElement extends LitElement {
       }`;
   }
 
-  private renderRegions() {
-    const probes = this.panel?.probes ?? [];
-    const number = (i: number, key: 'x' | 'y' | 'width' | 'height', label: string) =>
-      html`<label class="field"
-        >${label}
-        <input
-          type="number"
-          min=${key === 'width' || key === 'height' ? 1 : 0}
-          step="1"
-          aria-label="Region ${i + 1} ${label}"
-          .value=${String(this.regions[i][key])}
-          @change=${(e: Event) =>
-            this.setRegion(i, { [key]: Math.round(Number((e.target as HTMLInputElement).value)) })}
-      /></label>`;
-    return html`<ol class="regions">
-      ${this.regions.map(
-        (r, i) =>
-          html`<li>
-            <span class="region-name">Region ${i + 1}</span>
-            ${number(i, 'x', 'x px')} ${number(i, 'y', 'y px')} ${number(i, 'width', 'width px')}
-            ${number(i, 'height', 'height px')}
-            <label class="field"
-              >shows
-              <select
-                aria-label="Region ${i + 1} shows"
-                @change=${(e: Event) => this.setRegion(i, { label: (e.target as HTMLSelectElement).value })}
-              >
-                <option value="" ?selected=${r.label === ''}>choose…</option>
-                <option value=${UNSTAINED} ?selected=${r.label === UNSTAINED}>unstained</option>
-                ${probes.map(
-                  (p) => html`<option value=${p.id} ?selected=${r.label === p.id}>${p.label || p.id}</option>`,
-                )}
-              </select></label
-            >
-            <button
-              type="button"
-              aria-label="Remove region ${i + 1}"
-              @click=${() => (this.regions = this.regions.filter((_, k) => k !== i))}
-            >
-              Remove
-            </button>
-          </li>`,
-      )}
-    </ol>`;
-  }
-
   private renderResult() {
     const { result, image } = this;
     if (!result || !image) return nothing;
@@ -678,21 +517,15 @@ export class PilotImageElement extends LitElement {
                 Drag on the image to mark a region, or add one and type its position. Label one region "unstained" and
                 one per single-stained probe, then measure: each region's mean, sd and pixel count per channel.
               </p>
-              <div class="image-area">
-                <canvas
-                  class="preview"
-                  width=${image.width}
-                  height=${image.height}
-                  role="img"
-                  aria-label="The loaded image (sum of the channels' pages) with the regions outlined"
-                  @pointerdown=${this.onPointerDown}
-                  @pointermove=${this.onPointerMove}
-                  @pointerup=${this.onPointerUp}
-                ></canvas>
-              </div>
-              ${this.renderRegions()}
+              <qdp-image-regions
+                .preview=${this.preview}
+                .width=${image.width}
+                .height=${image.height}
+                .regions=${this.regions}
+                .probes=${this.panel?.probes ?? []}
+                @regions-change=${(e: CustomEvent<{ regions: ImageRegion[] }>) => (this.regions = e.detail.regions)}
+              ></qdp-image-regions>
               <div class="row">
-                <button type="button" @click=${this.addRegion}>Add a region</button>
                 <button type="button" @click=${this.measureControls}>Measure controls</button>
                 <button type="button" @click=${this.downloadMeans}>Download region means (CSV)</button>
               </div>
