@@ -216,6 +216,25 @@ describe('<qdp-pilot-image>', () => {
     expect(text(el)).not.toContain('modelled signal');
   });
 
+  it('says why a reference of two equal columns cannot unmix, keeping the image for a run with a good one', async () => {
+    const el = await mount();
+    const collected = evaluatePanel(demoPanel()).collected;
+    const column = (p: number) => collected.map((row) => row[p]);
+    const channels = ['c1', 'c2', 'c3', 'c4', 'c5', 'c6'];
+    // Two probes with the same column: no unmixing can tell them apart (rank-deficient reference, hand-worked).
+    el.reference = { channels, columns: [0, 0, 2].map((p, i) => ({ probe: `p${i + 1}`, values: column(p) })) };
+    await loadDemo(el);
+    await chooseAndRun(el, 'Least squares');
+    await until(() => /^The image was not unmixed: /.test(root(el).querySelector('output')!.textContent!));
+    expect(maps(el)).toHaveLength(0);
+    el.reference = { channels, columns: [0, 1, 2].map((p, i) => ({ probe: `p${i + 1}`, values: column(p) })) };
+    await el.updateComplete;
+    button(el, 'Unmix the image').click();
+    await until(() => maps(el).length === 4);
+    expect(maps(el)[0].plane).toHaveLength(80 * 80);
+    expect(text(el)).toContain('80 × 80 pixels, 6 pages');
+  });
+
   it('cancel stops a run at once: no maps, the image stays loaded and can be unmixed again', async () => {
     const el = await mount();
     const size = 1024;
