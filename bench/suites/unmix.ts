@@ -39,20 +39,20 @@ const row = (name: string, times: number[], extra: BenchRow['extra'], note?: str
 });
 
 export default async function unmixSuite(): Promise<BenchRow[]> {
-  const rssBefore = process.memoryUsage().rss;
+  const rssBefore = process.memoryUsage.rss();
   const reference = benchReference();
   const planes = benchPlanes(reference);
   const pixels = IMAGE.width * IMAGE.height;
   const imageBytes = IMAGE.channels * pixels * 4;
   const out = allocateUnmixOutput(IMAGE.probes, pixels);
-  let peakRss = process.memoryUsage().rss;
+  let peakRss = process.memoryUsage.rss();
   const unmixMs = (method: PixelUnmixMethod) => {
     const start = performance.now();
     const unmixer = pixelUnmixer(reference, method);
     const chunk = ROWS_PER_CHUNK * IMAGE.width;
     for (let from = 0; from < pixels; from += chunk) {
       unmixer.unmixRange(planes, from, Math.min(pixels, from + chunk), out);
-      peakRss = Math.max(peakRss, process.memoryUsage().rss);
+      peakRss = Math.max(peakRss, process.memoryUsage.rss());
     }
     return performance.now() - start;
   };

@@ -10,6 +10,7 @@
 import { EPSILON } from '../signal/linalg/matrix';
 import { projectPixel } from './least-squares';
 import { passiveSolver } from './passive-solve';
+import { subsetSolver } from './subset-solve';
 import type { PreparedReference } from './reference';
 
 /** Solves one pixel: y (channels) in, a (probes) out. Reuses its scratch between calls. */
@@ -18,7 +19,7 @@ export type PixelNnls = (y: Float64Array, a: Float64Array) => void;
 /** A per-pixel NNLS solver over a prepared reference, with all scratch allocated here once. */
 export function pixelNnls(ref: PreparedReference): PixelNnls {
   const { channels, probes, matrix, gram } = ref;
-  const solver = passiveSolver(probes);
+  const solver = subsetSolver(gram, probes) ?? passiveSolver(gram, probes);
   const b = new Float64Array(probes);
   const z = new Float64Array(probes);
   const passive = new Uint8Array(probes);
@@ -40,7 +41,7 @@ export function pixelNnls(ref: PreparedReference): PixelNnls {
       passive[j] = a[j] > 0 ? 1 : 0;
       any ||= a[j] > 0;
     }
-    while (any && solver.solve(gram, b, passive, z)) {
+    while (any && solver.solve(b, passive, z)) {
       if (allPassivePositive(z)) {
         a.set(z);
         return true;
@@ -91,7 +92,7 @@ export function pixelNnls(ref: PreparedReference): PixelNnls {
       let first = true;
       for (;;) {
         // Past the iteration bound, or on a singular subsystem (impossible for a full-rank M), a stays feasible.
-        if (++iterations > maxIterations || !solver.solve(gram, b, passive, z)) {
+        if (++iterations > maxIterations || !solver.solve(b, passive, z)) {
           t = -2;
           break;
         }

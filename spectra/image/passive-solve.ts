@@ -7,16 +7,16 @@
 /** Solves G_PP z_P = b_P for the passive set; z is zero elsewhere. */
 export interface PassiveSolver {
   /** Returns false when G_PP is not positive definite (cannot happen for a full-rank M, kept as a guard). */
-  solve(gram: Float64Array, b: Float64Array, passive: Uint8Array, z: Float64Array): boolean;
+  solve(b: Float64Array, passive: Uint8Array, z: Float64Array): boolean;
 }
 
-/** A solver for up to `probes` passive columns, allocating its scratch once. */
-export function passiveSolver(probes: number): PassiveSolver {
+/** A solver on the Gram matrix G (probes × probes) for any passive set, allocating its scratch once. */
+export function passiveSolver(gram: Float64Array, probes: number): PassiveSolver {
   const index = new Int32Array(probes);
   const lower = new Float64Array(probes * probes);
   const w = new Float64Array(probes);
   return {
-    solve(gram, b, passive, z) {
+    solve(b, passive, z) {
       let n = 0;
       for (let j = 0; j < probes; j++) {
         z[j] = 0;

@@ -5,7 +5,7 @@
 import { SpectraError } from '../core/errors';
 import { checkPlanes, checkRange } from './checks';
 import { leastSquaresRange, readPixel, writeMissing, writePixel } from './least-squares';
-import { KERNEL_CHANNELS, leastSquaresRange8 } from './kernel8';
+import { KERNEL_CHANNELS, leastSquaresRange8 } from '../kernels/unmix8';
 import { pixelNnls } from './nnls-pixel';
 import { prepareReference, type PreparedReference } from './reference';
 import type { PixelUnmixMethod, PixelUnmixOutput, PixelUnmixer } from './types';

@@ -1,11 +1,12 @@
 /**
- * Least squares for images of up to 8 channels, the common case of a multi-channel pilot image: the pixel's 8
- * values live in local variables and each of M⁺'s rows and of the residual basis's rows (complement.ts) is one
- * unrolled dot product, summed pairwise. Missing channels (fewer than 8) get zero coefficients and read plane 1
- * again, so a non-finite value there still marks the pixel as unmeasured.
+ * Least squares for images of up to 8 channels, the common case of a multi-channel pilot image (its plain reference
+ * is `leastSquaresRange` in image/least-squares.ts): the pixel's 8 values live in local variables and each of M⁺'s
+ * rows and of the residual basis's rows (image/complement.ts) is one unrolled dot product, summed pairwise. Missing
+ * channels (fewer than 8) get zero coefficients and read plane 1 again, so a non-finite value there still marks the
+ * pixel as unmeasured.
  */
-import type { PreparedReference } from './reference';
-import type { PixelUnmixOutput } from './types';
+import type { PreparedReference } from '../image/reference';
+import type { PixelUnmixOutput } from '../image/types';
 
 /** The widest image this kernel unmixes. */
 export const KERNEL_CHANNELS = 8;
@@ -28,7 +29,6 @@ function paddedRows(ref: PreparedReference): Float64Array {
 export function leastSquaresRange8(ref: PreparedReference) {
   const { channels, probes } = ref;
   const w = paddedRows(ref);
-  const rowCount = w.length / KERNEL_CHANNELS;
   return (planes: readonly ArrayLike<number>[], from: number, to: number, out: PixelUnmixOutput): void => {
     const plane = (c: number) => planes[c < channels ? c : 0];
     const [p0, p1, p2, p3, p4, p5, p6, p7] = Array.from({ length: KERNEL_CHANNELS }, (_, c) => plane(c));
@@ -49,15 +49,22 @@ export function leastSquaresRange8(ref: PreparedReference) {
         residual[k] = NaN;
         continue;
       }
+      let i = 0;
+      for (let r = 0; r < probes; r++, i += KERNEL_CHANNELS) {
+        abundances[r][k] =
+          w[i] * y0 +
+          w[i + 1] * y1 +
+          (w[i + 2] * y2 + w[i + 3] * y3) +
+          (w[i + 4] * y4 + w[i + 5] * y5 + (w[i + 6] * y6 + w[i + 7] * y7));
+      }
       let squares = 0;
-      for (let r = 0, i = 0; r < rowCount; r++, i += KERNEL_CHANNELS) {
+      for (; i < w.length; i += KERNEL_CHANNELS) {
         const s =
           w[i] * y0 +
           w[i + 1] * y1 +
           (w[i + 2] * y2 + w[i + 3] * y3) +
           (w[i + 4] * y4 + w[i + 5] * y5 + (w[i + 6] * y6 + w[i + 7] * y7));
-        if (r < probes) abundances[r][k] = s;
-        else squares += s * s;
+        squares += s * s;
       }
       residual[k] = Math.sqrt(squares / channels);
     }
