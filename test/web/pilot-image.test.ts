@@ -216,7 +216,7 @@ describe('<qdp-pilot-image>', () => {
     expect(text(el)).not.toContain('modelled signal');
   });
 
-  it('says why a reference of two equal columns cannot unmix, keeping the image for a run with a good one', async () => {
+  it('says why a reference of two equal columns cannot unmix, keeping the image for a good run', async () => {
     const el = await mount();
     const collected = evaluatePanel(demoPanel()).collected;
     const column = (p: number) => collected.map((row) => row[p]);
