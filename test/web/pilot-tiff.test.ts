@@ -88,10 +88,12 @@ describe('readTiff', () => {
       'SizeC="2" SizeZ="1" SizeT="1"><Channel ID="Channel:0:0" Name="Green" EmissionWavelength="520" ' +
       'ExcitationWavelength="488" EmissionWavelengthUnit="nm"/><Channel ID="Channel:0:1" Name="Far red" ' +
       'EmissionWavelength="0.72" EmissionWavelengthUnit="µm"/></Pixels></Image></OME>';
-    // µm is outside ASCII: the file holds it as the UTF-8 bytes of "µ" read back one byte per character.
-    const ascii = xml.replace('µm', 'um');
+    // The writer keeps to ASCII (TIFF 6.0 type 2); OME-XML is UTF-8, so "~~" is swapped for the bytes of "µ" (C2 B5).
     const p = page(8, [1, 2, 3, 4, 5, 6]);
-    const image = readTiff(buf(writeTiff([{ ...p, description: ascii }, p])));
+    const bytes = writeTiff([{ ...p, description: xml.replace('µm', '~~m') }, p]);
+    const at = bytes.findIndex((b, k) => b === 0x7e && bytes[k + 1] === 0x7e);
+    bytes.set([0xc2, 0xb5], at);
+    const image = readTiff(buf(bytes));
     expect(image.ome?.channels).toEqual([
       { name: 'Green', emissionNm: 520, excitationNm: 488 },
       { name: 'Far red', emissionNm: 720, excitationNm: null },

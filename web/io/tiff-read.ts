@@ -213,7 +213,9 @@ export function readTiff(buffer: ArrayBuffer): PilotImage {
     );
   ifds.forEach((ifd, i) => checkStrips(ifd, shapes[i], i + 1, bytes.length));
   const description = ifds[0].t270;
-  const ome = Array.isArray(description) && /<OME[\s>]/.test(String(description[0])) ? String(description[0]) : null;
+  const text = Array.isArray(description) ? String(description[0]) : '';
+  // utif2 gives one character per byte; OME-XML is UTF-8 (OME schema 2016-06), e.g. the "µ" of µm.
+  const ome = /<OME[\s>]/.test(text) ? new TextDecoder().decode(Uint8Array.from(text, (c) => c.charCodeAt(0))) : null;
   const omeImage = ome === null ? null : parseOmeXml(ome, pages);
   const planes = ifds.map((ifd, i) => {
     try {
