@@ -210,7 +210,7 @@ export class PilotImageElement extends LitElement {
     try {
       const response = await fetch(this.demoUrl);
       if (!response.ok) throw new Error(String(response.status));
-      this.read(await response.arrayBuffer(), 'demo pilot image (invented)');
+      this.read(await response.arrayBuffer(), 'demo pilot image (invented, made for the demo panel)');
     } catch {
       this.loadError = 'The demo image could not be fetched: check the connection and try again.';
     }
