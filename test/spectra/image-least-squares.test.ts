@@ -84,3 +84,24 @@ describe('pixelUnmixer least squares', () => {
     },
   );
 });
+
+describe('pixelUnmixer plane types', () => {
+  // A 16-bit image (TIFF 6.0, BitsPerSample 16) arrives as Uint16Array planes: the same counts as Float64Array planes
+  // must unmix to the same output, by either method.
+  it.each(['leastSquares', 'nnls'] as const)(
+    'unmixRange (%s) gives the same output for Uint16Array planes',
+    (method) => {
+      const m = randomMatrix(8, 6, 41, 0, 1);
+      const counts = randomMatrix(301, 8, 42, 0, 65535).map((y) => y.map(Math.round));
+      const wide = toPlanes(counts, 8);
+      const narrow = wide.map((plane) => Uint16Array.from(plane));
+      const a = allocateUnmixOutput(6, counts.length);
+      const b = allocateUnmixOutput(6, counts.length);
+      const unmixer = pixelUnmixer(m, method);
+      unmixer.unmixRange(wide, 0, counts.length, a);
+      unmixer.unmixRange(narrow, 0, counts.length, b);
+      expect(b).toEqual(a);
+      expect(a.residual.some((v) => v > 0)).toBe(true);
+    },
+  );
+});
