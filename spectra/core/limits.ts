@@ -39,4 +39,13 @@ export const LIMITS = Object.freeze({
   controlRows: 16 * 8,
   /** Work units between two pauses of a running design: about 12–15 ms at the measured rate (our convention). */
   designChunkUnits: 10_000_000,
+  /**
+   * Bytes a pilot image may occupy in the page while it is unmixed, counted before it is decoded as pixels ×
+   * pages × 4 bytes (one 32-bit float per value) × 4 (the decoded planes, the abundance maps, the residual and the
+   * drawn maps): 1 GiB, our convention for a browser tab, not a measured limit. A file itself may be at most a
+   * quarter of it (an uncompressed 32-bit image of that size). One page per channel or lambda bin.
+   */
+  imageBytes: 2 ** 30,
+  /** Pages (channels or lambda bins) one pilot image may hold: twice the panel's channel limit, our convention. */
+  imagePages: 128,
 });

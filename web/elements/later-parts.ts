@@ -1,8 +1,8 @@
 /**
  * The parts of the page its first paint does not need, each its own chunk: the design form (with its proposal view),
- * the instrument-profile maker, the share and export actions, the printable report and the measured controls. The
- * page starts fetching them as soon as it is attached, beside the checks; until a part arrives its tag stays an empty
- * element, and Lit hands it the properties the page already set once it is defined.
+ * the instrument-profile maker, the share and export actions, the printable report, the measured controls and the
+ * pilot-image unmixing. The page starts fetching them as soon as it is attached, beside the checks; until a part
+ * arrives its tag stays an empty element, and Lit hands it the properties the page already set once it is defined.
  */
 export function loadLaterParts(): Promise<unknown> {
   return Promise.all([
@@ -11,5 +11,6 @@ export function loadLaterParts(): Promise<unknown> {
     import('./panel-actions'),
     import('./panel-report'),
     import('./controls-section'),
+    import('./pilot-image'),
   ]);
 }

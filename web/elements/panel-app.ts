@@ -11,6 +11,7 @@ import {
   resolveOnInstrument,
   SpectraError,
   type ChannelSpec,
+  type ControlsMeasurement,
   type MeasuredReferenceSpec,
   type PanelSpec,
   type ProbeSpec,
@@ -19,6 +20,7 @@ import { appStyles } from './panel-app-styles';
 import type { EdgeDragDetail } from '../chart/types';
 import { computePanel, DETECTORS, MATERIALS, withLotShift, type Computed } from '../state/compute';
 import { demoPanel } from '../state/demo-panel';
+import type { ImageReference } from '../state/image-reference';
 import { placeError, type FieldError } from '../state/error-map';
 import { inUserWords } from '../state/user-words';
 import { isPanelExclusion, offendingProbes, withExclusions, type PanelExclusion } from '../state/exclusions';
@@ -166,6 +168,19 @@ export function lightSummary(p: PanelSpec): string {
 /** The pause in editing after which the lot-to-lot check is added, ms (our choice: a typing pause). */
 const LOT_SHIFT_PAUSE_MS = 250;
 
+/**
+ * The reference the pilot image is unmixed with when the panel holds measured columns: the evaluation's collected
+ * signal, measured columns in place (undefined otherwise: the image section uses the modelled signal and says so).
+ */
+function measuredImageReference(p: PanelSpec, c: Computed | undefined): ImageReference | undefined {
+  const ev = c?.evaluation;
+  if (!ev || !ev.referenceColumns.includes('measured')) return undefined;
+  return {
+    channels: p.channels.map((ch) => ch.id),
+    columns: p.probes.map((probe, j) => ({ probe: probe.id, values: ev.collected.map((row) => row[j]) })),
+  };
+}
+
 /** The path of a shared copy, /p/<id>. */
 const SHARED_PATH = /^\/p\/([A-Za-z0-9_-]+)$/;
 
@@ -208,6 +223,8 @@ export class PanelApp extends LitElement {
   private shown?: Snapshot;
   /** The pending lot-to-lot check (see addLotShiftLater). */
   private lotShiftTimer?: number;
+  /** Controls measured on regions of the pilot image, handed to the controls section. */
+  @state() private imageControls?: ControlsMeasurement;
   /** The chart's line wavelengths and the panel's lines they were read from (see excitationNm). */
   private linesNm?: { from: PanelSpec['excitation']; nm: number[] };
   /** An edit of a large panel waiting for a typing pause: its history mode and timer (see updateAfterPause). */
@@ -749,6 +766,12 @@ export class PanelApp extends LitElement {
     return this.linesNm.nm;
   }
 
+  /** Controls measured on image regions: the controls section takes them and opens. */
+  private onImageControls(e: CustomEvent<ControlsMeasurement>): void {
+    this.imageControls = e.detail;
+    this.notice = `Controls measured on ${e.detail.controls.length} image regions are in “Measured controls”.`;
+  }
+
   /** Puts measured reference columns (from the controls) into the panel as one undoable step of its own. */
   private onMeasuredReference(e: CustomEvent<MeasuredReferenceSpec>): void {
     const used = e.detail.columns.map(
@@ -1009,12 +1032,26 @@ export class PanelApp extends LitElement {
             ></qdp-material-notes>
           </section>
           <section aria-labelledby="h-controls">
-            <details class="fold">
+            <details class="fold" data-needs-open=${!!this.imageControls}>
               <summary><h2 id="h-controls">Measured controls</h2></summary>
               <qdp-controls-section
                 .panel=${p}
                 .evaluation=${this.error ? undefined : c?.evaluation}
+                .measured=${this.imageControls}
               ></qdp-controls-section>
+            </details>
+          </section>
+          <section aria-labelledby="h-pilot-image">
+            <details class="fold">
+              <summary>
+                <h2 id="h-pilot-image">Unmix a pilot image</h2>
+                <span>a TIFF of a sample stained with this panel, unmixed in this browser</span>
+              </summary>
+              <qdp-pilot-image
+                .panel=${p}
+                .reference=${measuredImageReference(p, this.error ? undefined : c)}
+                @controls-measured=${this.onImageControls}
+              ></qdp-pilot-image>
             </details>
           </section>
           <section aria-labelledby="h-share">
