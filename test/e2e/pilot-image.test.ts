@@ -62,7 +62,6 @@ describe('the pilot image in the app', () => {
   it('unmixes the demo image on a 390 px phone with no sideways scrolling', async () => {
     const page = await phone.context.newPage();
     await openDemo(page, 390);
-    await page.getByRole('button', { name: 'Edit the panel' }).tap();
     await page.locator('summary', { hasText: 'Unmix a pilot image' }).tap();
     await page.getByRole('button', { name: 'Try the demo image' }).tap();
     await page.locator('qdp-pilot-image .loaded').waitFor();
