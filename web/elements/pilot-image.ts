@@ -9,7 +9,7 @@
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { regionMeans, type PanelSpec, type PixelUnmixMethod } from '../../spectra/index';
+import { regionMeans, type ControlsMeasurement, type PanelSpec, type PixelUnmixMethod } from '../../spectra/index';
 import { downloadBlob, downloadText } from '../io/download';
 import { abundanceTiff, regionMeansCsv, type MeasuredRegion } from '../io/image-export';
 import { ImageReadError } from '../io/image-read-error';
@@ -21,18 +21,6 @@ import { UNSTAINED, type ImageRegion } from './image-regions';
 import { focusRing } from './shared-styles';
 import './image-map';
 import './image-regions';
-
-/**
- * Measured controls, the shape of the controls input (panel channel ids in the order of every values array). The same
- * structure as `ControlsMeasurement` in spectra/controls/types.ts, declared here until that module is on this branch.
- */
-export interface ControlsMeasurement {
-  channels: string[];
-  unstained: number[];
-  unstainedSd?: number[];
-  unstainedN?: number;
-  controls: { probe: string; values: number[]; sd?: number[]; n?: number }[];
-}
 
 /** The maps of the last run. */
 interface Unmixed {
