@@ -2,22 +2,20 @@
 // made from the panel's predicted signal plus seeded noise, in the format the controls section reads. Usage:
 // `npx tsx scripts/make-demo-controls.mts`. Every number here is invented for the demo: an unstained level of 100
 // counts per channel (three unstained rows), each control's brightest channel 2000 counts above it, three replicates
-// a probe, a 2 % spread of staining between replicates and a read noise of 4 counts per channel. One deviation is
-// added on purpose so the demo shows a flagged entry: the Mito dot's signal in the Orange channel is raised by 15 % of
-// its primary signal.
+// a probe, a 2 % spread of staining between replicates and a read noise of 4 counts per channel. The signal is the
+// demo lot's (DEMO_LOT_DEVIATION: the Mito dot gives more in Orange than the model), so the demo shows a flagged entry.
 import { writeFileSync } from 'node:fs';
 import { createRandom, evaluatePanel } from '../spectra/index';
-import { demoPanel } from '../web/state/demo-panel';
+import { demoLotCollected, demoPanel } from '../web/state/demo-panel';
 
 const UNSTAINED = 100;
 const PRIMARY_COUNTS = 2000;
 const REPLICATES = 3;
 const STAINING_SPREAD = 0.02;
 const READ_NOISE = 4;
-const DEVIATION = { probe: 'p3', channel: 'c4', fractionOfPrimary: 0.15 };
 
 const panel = demoPanel();
-const { collected } = evaluatePanel(panel, { sensitivity: false });
+const collected = demoLotCollected(panel, evaluatePanel(panel, { sensitivity: false }).collected);
 const rng = createRandom(20261203);
 const round = (v: number) => Math.round(v * 10) / 10;
 const header = ['sample', ...panel.channels.map((c) => c.label ?? c.id)];
@@ -29,8 +27,6 @@ panel.probes.forEach((probe, p) => {
   const column = collected.map((row) => row[p]);
   const scale = PRIMARY_COUNTS / Math.max(...column);
   const signal = column.map((v) => v * scale);
-  const c = panel.channels.findIndex((ch) => ch.id === DEVIATION.channel);
-  if (probe.id === DEVIATION.probe) signal[c] += DEVIATION.fractionOfPrimary * PRIMARY_COUNTS;
   for (let k = 0; k < REPLICATES; k++) {
     const staining = 1 + STAINING_SPREAD * rng.normal();
     rows.push([

@@ -3,14 +3,15 @@
  * (web/state/demo-panel.ts), one 16-bit page per channel as an OME-TIFF, and beside it the true abundances (32-bit
  * float, one page per probe).
  * Each pixel's expected counts are the panel's own modelled collected signal (evaluatePanel's `collected`,
- * [channel][probe]) times the true abundances; the counts are then drawn from a Poisson distribution with a seeded
+ * [channel][probe]) with the demo lot's one deviation (DEMO_LOT_DEVIATION, the same the demo controls carry), times the
+ * true abundances; the counts are then drawn from a Poisson distribution with a seeded
  * generator (spectra/core/random.ts), so the file is the same on every run.
  *
  * Run: npx tsx scripts/make-pilot-image.mts  →  web/public/demo/pilot-image.ome.tif and pilot-image-truth.tif
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { createRandom, evaluatePanel } from '../spectra/index.ts';
-import { demoPanel } from '../web/state/demo-panel.ts';
+import { demoLotCollected, demoPanel } from '../web/state/demo-panel.ts';
 import { passbandCentreNm } from '../web/state/page-mapping.ts';
 import { writeTiff } from '../web/io/tiff-write.ts';
 
@@ -20,7 +21,7 @@ const SEED = 20261203;
 const PEAK_COUNTS = 1500;
 
 const panel = demoPanel();
-const { collected } = evaluatePanel(panel);
+const collected = demoLotCollected(panel, evaluatePanel(panel).collected);
 const channels = panel.channels.length;
 const probes = panel.probes.length;
 

@@ -91,6 +91,17 @@ describe('<qdp-controls-section>', () => {
     expect(sentences[0]).toMatch(/: 15\.0 points above$/);
   });
 
+  it('both tables read "primary" in each probe\'s primary channel, one cell per column', async () => {
+    const el = await mount();
+    await chooseFile(el, modelCsv());
+    for (const table of el.shadowRoot!.querySelectorAll('table')) {
+      const rows = [...table.querySelectorAll('tr')].slice(1).map((tr) => [...tr.querySelectorAll('td')]);
+      // Demo panel: probe p (0-based) has its primary channel at row p (channels c1..c6 assigned in order).
+      const primaryRows = rows[0].map((_, p) => rows.findIndex((cells) => cells[p].textContent!.trim() === 'primary'));
+      expect(primaryRows).toEqual([0, 1, 2, 3, 4, 5]);
+    }
+  });
+
   it('each download parses back: measured CSV, FCS $SPILLOVER text, an unmixing matrix that inverts it', async () => {
     const el = await mount();
     await chooseFile(el, modelCsv());

@@ -78,6 +78,9 @@ export class ControlsSection extends LitElement {
         padding: 0.2rem 0.4rem;
         text-align: right;
       }
+      td.self {
+        color: #666;
+      }
       .flag {
         font-weight: 700;
         background: #fde8e8;
@@ -245,6 +248,8 @@ export class ControlsSection extends LitElement {
 
   private table(r: ControlsReport, kind: 'measured' | 'predicted') {
     const cell = (c: number, p: number) => {
+      // Both matrices are 100 % there by definition; the word says which cell the column is relative to.
+      if (c === r.primaryChannel[p]) return html`<td class="self">primary</td>`;
       const entry = r.comparison?.entries[c][p];
       if (kind === 'predicted') {
         if (!entry || entry.predicted === null) return html`<td>—</td>`;
@@ -255,7 +260,7 @@ export class ControlsSection extends LitElement {
         return html`<td>${shown(entry.predicted)}${band}</td>`;
       }
       const se = r.se[c][p];
-      const withSe = se !== null && c !== r.primaryChannel[p];
+      const withSe = se !== null;
       const text = `${percentText(r.spillover[c][p])}${withSe ? ` ± ${percentText(se)}` : ''}`;
       if (!entry?.flagged) return html`<td>${text}</td>`;
       const symbol = r.spillover[c][p] > (entry.predicted ?? 0) ? '▲' : '▼';
