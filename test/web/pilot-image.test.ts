@@ -80,8 +80,9 @@ async function loadFile(el: PilotImageElement, bytes: Uint8Array, name = 'pilot.
   transfer.items.add(new File([Uint8Array.from(bytes)], name, { type: 'image/tiff' }));
   input.files = transfer.files;
   input.dispatchEvent(new Event('change'));
-  // The file is read asynchronously: wait for the page to answer.
-  await new Promise((r) => setTimeout(r, 50));
+  // The file is read in the reader worker: wait until the page has stopped reading it.
+  await el.updateComplete;
+  await until(() => !root(el).querySelector('.reading'));
   await el.updateComplete;
 }
 
@@ -295,9 +296,34 @@ describe('<qdp-pilot-image>', () => {
     button(el, 'Cancel').click();
     await el.updateComplete;
     expect(root(el).querySelector('output')!.textContent).toBe('Cancelled: no maps were made.');
-    await new Promise((r) => setTimeout(r, 1500));
+    // The pages went to the unmixing worker: the file is read again, in the reader worker, before a new run.
+    await until(() => !root(el).querySelector('.reading'));
+    await el.updateComplete;
     expect(maps(el)).toHaveLength(0);
     expect(text(el)).toContain('1024 × 1024 pixels, 6 pages');
+    expect(button(el, 'Unmix the image').disabled).toBe(false);
+  });
+
+  it('reads a large file off the page with progress; "Stop reading" keeps the image loaded before', async () => {
+    const el = await mount();
+    await loadDemo(el);
+    const size = 2048;
+    const data = new Uint16Array(size * size).map((_, k) => k % 4000);
+    const page = { width: size, height: size, bitsPerSample: 16 as const, sampleFormat: 'uint' as const, data };
+    const input = root(el).querySelector<HTMLInputElement>('input[type=file]')!;
+    const transfer = new DataTransfer();
+    transfer.items.add(new File([writeTiff(Array.from({ length: 8 }, () => page))], 'big.tif'));
+    input.files = transfer.files;
+    input.dispatchEvent(new Event('change'));
+    await el.updateComplete;
+    // While the worker reads, the page answers: the progress bar and the stop button are there at once.
+    expect(root(el).querySelector('progress[aria-label="Reading progress"]')).not.toBeNull();
+    expect(button(el, 'Unmix the image').disabled).toBe(true);
+    button(el, 'Stop reading').click();
+    await el.updateComplete;
+    expect(root(el).querySelector('.reading')).toBeNull();
+    expect(text(el)).toContain('Stopped reading: the file was not loaded; the image loaded before stays.');
+    expect(text(el)).toContain('80 × 80 pixels, 6 pages');
     expect(button(el, 'Unmix the image').disabled).toBe(false);
   });
 

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { zlibSync } from 'fflate';
 import UTIF from 'utif2';
 import { LIMITS } from '../../spectra/index';
+import { checkOmePlanes } from '../../web/io/ome-xml';
 import { checkImageFileSize, readTiff } from '../../web/io/tiff-read';
 import { writeTiff, type TiffPage } from '../../web/io/tiff-write';
 import { greyEntries, handTiff, packBits } from './helpers/hand-tiff';
@@ -174,6 +175,33 @@ describe('readTiff refusals', () => {
       '<OME xmlns="http://www.openmicroscopy.org/Schemas/OME/2016-06"><Image ID="Image:0"><Pixels ID="Pixels:0" ' +
       'SizeC="1" SizeZ="2" SizeT="1"/></Image></OME>';
     expect(refusal(writeTiff([{ ...p, description: xml }, p]))).toMatch(/holds 2 z-planes and 1 time points/);
+  });
+
+  it("the reader worker's pattern check refuses a z-stack or time series as parseOmeXml does, before decoding", () => {
+    let decoded = 0;
+    const inWorker = (xml: string) => {
+      try {
+        readTiff(buf(writeTiff([{ ...p, description: xml }, p])), {
+          onPage: () => decoded++,
+          readOme: (text) => (checkOmePlanes(text), null),
+        });
+      } catch (err) {
+        return (err as Error).message;
+      }
+      return 'read without a refusal';
+    };
+    const ome = (attributes: string) =>
+      '<OME xmlns="http://www.openmicroscopy.org/Schemas/OME/2016-06"><Image ID="Image:0">' +
+      `<Pixels ID="Pixels:0" SizeC="1" ${attributes}/></Image></OME>`;
+    const prefixed =
+      '<ome:OME xmlns:ome="http://www.openmicroscopy.org/Schemas/OME/2016-06"><ome:Image ID="Image:0">' +
+      '<ome:Pixels ID="Pixels:0" SizeC="1" SizeZ="4"/></ome:Image></ome:OME>';
+    expect(inWorker(ome('SizeZ="2" SizeT="1"'))).toBe(refusal(writeTiff([{ ...p, description: ome('SizeZ="2"') }, p])));
+    expect(inWorker(ome("SizeT = '3'"))).toMatch(/holds 1 z-planes and 3 time points/);
+    expect(inWorker(prefixed)).toBe(refusal(writeTiff([{ ...p, description: prefixed }, p])));
+    expect(decoded).toBe(0);
+    expect(inWorker(ome('SizeZ="1" SizeT="1"'))).toBe('read without a refusal');
+    expect(decoded).toBe(2);
   });
 });
 

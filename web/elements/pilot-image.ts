@@ -1,7 +1,8 @@
 /**
  * <qdp-pilot-image>: unmixes a pilot image of a sample in this browser (the image is never sent anywhere). The user
- * loads a multi-page TIFF or OME-TIFF (one grey page per channel or lambda bin) or the demo image, checks which page
- * each panel channel reads, picks NNLS or least squares and runs it in a Web Worker (progress, Cancel). It shows one
+ * loads a multi-page TIFF or OME-TIFF (one grey page per channel or lambda bin) or the demo image, read in a Web
+ * Worker (progress, "Stop reading"), checks which page each panel channel reads, picks NNLS or least squares and runs
+ * it in another Web Worker (progress, Cancel). It shows one
  * abundance map per probe and the residual, lets the user mark rectangular regions (dragged on the image or typed)
  * labelled "unstained" or a probe, and "Measure controls" fires a bubbling, composed `controls-measured` event with
  * the regions' means, sd and pixel counts per channel. Downloads: the maps as a 32-bit float TIFF, the region means as
@@ -13,9 +14,11 @@ import { regionMeans, type ControlsMeasurement, type PanelSpec, type PixelUnmixM
 import { downloadBlob, downloadText } from '../io/download';
 import { abundanceTiff, regionMeansCsv, type MeasuredRegion } from '../io/image-export';
 import { ImageReadError } from '../io/image-read-error';
-import { checkImageFileSize, readTiff, type PilotImage } from '../io/tiff-read';
+import { parseOmeXml } from '../io/ome-xml';
+import { checkImageFileSize, type PilotImage } from '../io/tiff-read';
 import { modelledReference, referenceByChannel, type ImageReference } from '../state/image-reference';
 import { proposeMapping } from '../state/page-mapping';
+import type { TiffReadRequest, TiffWorkerMessage } from '../state/tiff-worker';
 import type { UnmixRequest, UnmixWorkerMessage } from '../state/unmix-worker';
 import { UNSTAINED, type ImageRegion } from './image-regions';
 import { focusRing } from './shared-styles';
@@ -54,6 +57,10 @@ export class PilotImageElement extends LitElement {
   @state() private fileName = '';
   @state() private mapping: number[] = [];
   @state() private loadError = '';
+  /** A file being read in the reader worker: a new one ('load') or the loaded one after a cancelled run ('again'). */
+  @state() private reading: 'load' | 'again' | null = null;
+  @state() private readProgress = 0;
+  @state() private readNote = '';
   @state() private method: PixelUnmixMethod = 'nnls';
   @state() private running = false;
   @state() private progress = 0;
@@ -64,9 +71,10 @@ export class PilotImageElement extends LitElement {
   /** What the regions are drawn on: the sum of the pages the channels read (kept while a run has the pages). */
   @state() private preview: Float32Array | null = null;
 
-  /** The loaded file's bytes: the pages are read from them again after a cancelled run took them away. */
-  private fileBytes: ArrayBuffer | null = null;
+  /** The loaded file: its pages are read from it again after a cancelled run took them away. */
+  private file: Blob | null = null;
   private worker: Worker | null = null;
+  private reader: Worker | null = null;
 
   static override styles = [
     focusRing,
@@ -142,10 +150,11 @@ export class PilotImageElement extends LitElement {
     super.disconnectedCallback();
     this.worker?.terminate();
     this.worker = null;
+    this.stopReading();
   }
 
   /** Takes a decoded image if it fits the panel; otherwise says why and keeps what was loaded before. */
-  private accept(image: PilotImage, name: string, bytes: ArrayBuffer): void {
+  private accept(image: PilotImage, name: string, file: Blob): void {
     const pages = image.planes.length;
     const channels = this.channels.length;
     if (channels === 0) {
@@ -158,9 +167,10 @@ export class PilotImageElement extends LitElement {
         'channel needs its own page. Load an image with one page per channel.';
       return;
     }
-    this.cancel(false);
+    // A run on the image loaded before ends here; its pages are not needed again.
+    if (this.running) this.finish();
     this.image = image;
-    this.fileBytes = bytes;
+    this.file = file;
     this.fileName = name;
     this.mapping = proposeMapping(this.channels, pages, image.ome?.channels ?? null);
     this.loadError = '';
@@ -170,17 +180,75 @@ export class PilotImageElement extends LitElement {
     this.status = '';
   }
 
-  /** Reads a file's bytes as a pilot image, or shows the refusal. */
-  private read(bytes: ArrayBuffer, name: string): void {
-    try {
-      this.accept(readTiff(bytes), name, bytes);
-    } catch (err) {
-      this.loadError =
-        err instanceof ImageReadError ? err.message : 'The file could not be read as an image: it may be damaged.';
-    }
+  /**
+   * Reads a file as a pilot image in the reader worker, with progress, so a large file never freezes the page. A new
+   * file that is refused leaves the image loaded before as it was; the loaded file read `again` keeps its page mapping
+   * and regions.
+   */
+  private read(file: Blob, name: string, again = false): void {
+    this.stopReading();
+    const reader = new Worker(new URL('../state/tiff-worker.ts', import.meta.url), { type: 'module' });
+    this.reader = reader;
+    this.reading = again ? 'again' : 'load';
+    this.readProgress = 0;
+    this.readNote = '';
+    reader.onmessage = (event: MessageEvent<TiffWorkerMessage>) => {
+      const m = event.data;
+      if (m.type === 'progress') {
+        this.readProgress = m.done / m.total;
+        return;
+      }
+      this.stopReading();
+      if (m.type === 'error') {
+        if (again) this.dropImage(`The image could not be read again: ${m.message}`);
+        else this.loadError = m.message;
+      } else if (again && this.image) this.image = { ...this.image, planes: m.image.planes };
+      else {
+        let image = m.image;
+        try {
+          image = { ...image, ome: image.omeXml === null ? null : parseOmeXml(image.omeXml, image.planes.length) };
+        } catch (err) {
+          this.loadError = err instanceof ImageReadError ? err.message : 'The OME-XML of this file could not be read.';
+          return;
+        }
+        this.accept(image, name, file);
+      }
+    };
+    reader.onerror = () => {
+      this.stopReading();
+      if (again) this.dropImage('The image could not be read again in this browser: load it again.');
+      else this.loadError = 'The image could not be read in this browser.';
+    };
+    const request: TiffReadRequest = { type: 'read', file };
+    reader.postMessage(request);
   }
 
-  private async onFile(event: Event): Promise<void> {
+  private stopReading(): void {
+    this.reader?.terminate();
+    this.reader = null;
+    this.reading = null;
+  }
+
+  /** "Stop reading": a new file is not loaded; a loaded one whose pages a cancelled run took must be loaded again. */
+  private stopReadingByUser(): void {
+    const again = this.reading === 'again';
+    this.stopReading();
+    if (again) this.dropImage('Stopped reading: load the image again to unmix it or measure regions.');
+    else
+      this.readNote = `Stopped reading: the file was not loaded${this.image ? '; the image loaded before stays' : ''}.`;
+  }
+
+  /** Forgets the loaded image (its pages are gone), saying why. */
+  private dropImage(message: string): void {
+    this.image = null;
+    this.file = null;
+    this.preview = null;
+    this.result = null;
+    this.regions = [];
+    this.loadError = message;
+  }
+
+  private onFile(event: Event): void {
     const input = event.target as HTMLInputElement;
     const file = input.files?.[0];
     input.value = '';
@@ -191,23 +259,26 @@ export class PilotImageElement extends LitElement {
       this.loadError = (err as Error).message;
       return;
     }
-    this.read(await file.arrayBuffer(), file.name);
+    this.read(file, file.name);
   }
 
   private async loadDemo(): Promise<void> {
+    let file: Blob;
     try {
       const response = await fetch(this.demoUrl);
       if (!response.ok) throw new Error(String(response.status));
-      this.read(await response.arrayBuffer(), 'demo pilot image (invented, made for the demo panel)');
+      file = await response.blob();
     } catch {
       this.loadError = 'The demo image could not be fetched: check the connection and try again.';
+      return;
     }
+    this.read(file, 'demo pilot image (invented, made for the demo panel)');
   }
 
   /** Starts unmixing in a fresh worker; the pages travel to it and back without copies. */
   private run(): void {
     const { image, panel } = this;
-    if (!image || !panel || this.running) return;
+    if (!image || !panel || this.running || this.reading) return;
     let reference;
     try {
       reference = referenceByChannel(this.reference ?? modelledReference(panel), panel);
@@ -259,11 +330,11 @@ export class PilotImageElement extends LitElement {
     this.running = false;
   }
 
-  /** Stops a run at once; the image is read again from its file, since its pages went to the worker. */
+  /** Stops a run at once; the image is read again from its file (in the reader worker), since its pages went away. */
   private cancel(say = true): void {
     if (!this.running) return;
     this.finish();
-    if (this.fileBytes) this.image = readTiff(this.fileBytes);
+    if (this.file) this.read(this.file, this.fileName, true);
     if (say) this.status = 'Cancelled: no maps were made.';
   }
 
@@ -272,6 +343,7 @@ export class PilotImageElement extends LitElement {
     const { image } = this;
     if (!image) return 'Load an image first.';
     if (this.running) return 'Wait for the unmixing to finish, or cancel it.';
+    if (this.reading) return 'Wait for the image to be read.';
     if (this.regions.length === 0) return 'Mark at least one region on the image first.';
     const planes = this.mapping.map((page) => image.planes[page]);
     const out: MeasuredRegion[] = [];
@@ -465,6 +537,17 @@ export class PilotImageElement extends LitElement {
         <label>Load a TIFF image <input type="file" accept=".tif,.tiff,image/tiff" @change=${this.onFile} /></label>
         <button type="button" @click=${this.loadDemo}>Try the demo image</button>
       </div>
+      ${
+        this.reading
+          ? html`<div class="row reading">
+              <progress max="1" .value=${this.readProgress} aria-label="Reading progress"></progress>
+              ${this.reading === 'again' ? 'Reading the image again' : 'Reading the image'}:
+              ${percentText(this.readProgress)}
+              <button type="button" @click=${this.stopReadingByUser}>Stop reading</button>
+            </div>`
+          : nothing
+      }
+      ${this.readNote ? html`<p class="note" role="status">${this.readNote}</p>` : nothing}
       ${this.loadError ? html`<p class="error" role="alert">${this.loadError}</p>` : nothing}
       ${
         image
@@ -490,7 +573,9 @@ export class PilotImageElement extends LitElement {
                 )}
               </fieldset>
               <div class="row">
-                <button type="button" ?disabled=${this.running} @click=${this.run}>Unmix the image</button>
+                <button type="button" ?disabled=${this.running || this.reading !== null} @click=${this.run}>
+                  Unmix the image
+                </button>
                 <button type="button" ?disabled=${!this.running} @click=${() => this.cancel()}>Cancel</button>
                 ${
                   this.running

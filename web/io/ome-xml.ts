@@ -29,6 +29,26 @@ function wavelengthNm(el: Element, name: string): number | null {
   return Number.isFinite(value) && value > 0 ? value : null;
 }
 
+/** The refusal of an image with more than one plane per channel. */
+function planesError(sizeZ: number, sizeT: number): ImageReadError {
+  return new ImageReadError(
+    `This OME-TIFF holds ${sizeZ} z-planes and ${sizeT} time points per channel; the page reads ` +
+      'one plane per channel. Save one plane (or a projection) per channel and load it again.',
+  );
+}
+
+/**
+ * The same refusal as parseOmeXml's, read from the Pixels start tag's SizeZ and SizeT by pattern, where no XML parser
+ * exists (a Web Worker has no DOMParser): lets the reader refuse a z-stack before decoding it. parseOmeXml, on the
+ * page, stays the reading that counts.
+ */
+export function checkOmePlanes(xml: string): void {
+  const tag = /<(?:\w+:)?Pixels\s[^>]*>/.exec(xml)?.[0];
+  if (!tag) return;
+  const size = (name: string) => Number(new RegExp(`\\s${name}\\s*=\\s*["'](\\d+)["']`).exec(tag)?.[1] ?? '1');
+  if (size('SizeZ') * size('SizeT') > 1) throw planesError(size('SizeZ'), size('SizeT'));
+}
+
 /**
  * The channels of the first image of an OME-XML document, or null when the text is not readable OME-XML (the file
  * is then read as a plain TIFF). Throws when the image holds several z-planes or time points per channel, since the
@@ -41,11 +61,7 @@ export function parseOmeXml(xml: string, pages: number): OmeImage | null {
   if (!pixels) return null;
   const size = (name: string) => Number(pixels.getAttribute(name) ?? '1');
   const planesPerChannel = size('SizeZ') * size('SizeT');
-  if (planesPerChannel > 1)
-    throw new ImageReadError(
-      `This OME-TIFF holds ${size('SizeZ')} z-planes and ${size('SizeT')} time points per channel; the page reads ` +
-        'one plane per channel. Save one plane (or a projection) per channel and load it again.',
-    );
+  if (planesPerChannel > 1) throw planesError(size('SizeZ'), size('SizeT'));
   const channels = [...pixels.getElementsByTagNameNS('*', 'Channel')].map((el, i) => ({
     name: el.getAttribute('Name')?.trim() || `channel ${i + 1}`,
     emissionNm: wavelengthNm(el, 'EmissionWavelength'),

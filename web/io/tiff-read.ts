@@ -20,8 +20,10 @@ export interface PilotImage {
   planes: Float32Array[];
   /** How the values were stored, e.g. "16-bit unsigned". */
   storedAs: string;
-  /** The OME-XML's channels, when the file is an OME-TIFF. */
+  /** The OME-XML's channels, when the file is an OME-TIFF (and its XML has been read, see `readOme`). */
   ome: OmeImage | null;
+  /** The OME-XML itself, when the file is an OME-TIFF. */
+  omeXml: string | null;
 }
 
 /** Compression codes (TIFF 6.0, Sections 3, 9, 10, 11 and 22; TIFF Technical Notes for 8 and 32946). */
@@ -165,12 +167,24 @@ function toPlane(bytes: Uint8Array, shape: PageShape, fileLittleEndian: boolean,
   return plane;
 }
 
+/** How readTiff reports progress and reads the OME-XML. */
+export interface ReadOptions {
+  /** Hears after each page is decoded (for a progress bar). */
+  onPage?: (decoded: number, pages: number) => void;
+  /**
+   * Reads the OME-XML before any page is decoded, throwing an ImageReadError to refuse the file; parseOmeXml unless
+   * given (a Web Worker, which has no XML parser, gives checkOmePlanes and null, and the page reads it after).
+   */
+  readOme?: (xml: string, pages: number) => OmeImage | null;
+}
+
 /**
  * Decodes a pilot image, or throws an ImageReadError saying what is wrong: not a TIFF, truncated, a compression or
  * value type it does not read, pages of different sizes or value types, or more memory than LIMITS.imageBytes
  * (checked before decoding).
  */
-export function readTiff(buffer: ArrayBuffer): PilotImage {
+export function readTiff(buffer: ArrayBuffer, options: ReadOptions = {}): PilotImage {
+  const { onPage, readOme = parseOmeXml } = options;
   checkImageFileSize(buffer.byteLength);
   const bytes = new Uint8Array(buffer);
   const mark = String.fromCharCode(bytes[0] ?? 0, bytes[1] ?? 0);
@@ -215,16 +229,20 @@ export function readTiff(buffer: ArrayBuffer): PilotImage {
   const description = ifds[0].t270;
   const text = Array.isArray(description) ? String(description[0]) : '';
   // utif2 gives one character per byte; OME-XML is UTF-8 (OME schema 2016-06), e.g. the "µ" of µm.
-  const ome = /<OME[\s>]/.test(text) ? new TextDecoder().decode(Uint8Array.from(text, (c) => c.charCodeAt(0))) : null;
-  const omeImage = ome === null ? null : parseOmeXml(ome, pages);
+  const ome = /<(?:\w+:)?OME[\s>]/.test(text)
+    ? new TextDecoder().decode(Uint8Array.from(text, (c) => c.charCodeAt(0)))
+    : null;
+  const omeImage = ome === null ? null : readOme(ome, pages);
   const planes = ifds.map((ifd, i) => {
     try {
       UTIF.decodeImage(buffer, ifd);
     } catch {
       throw new ImageReadError(`Page ${i + 1} could not be decoded: the file may be damaged.`);
     }
-    return toPlane(ifd.data, shapes[i], le, i + 1);
+    const plane = toPlane(ifd.data, shapes[i], le, i + 1);
+    onPage?.(i + 1, pages);
+    return plane;
   });
   const storedAs = one.float ? '32-bit float' : `${one.bits}-bit unsigned`;
-  return { width: one.width, height: one.height, planes, storedAs, ome: omeImage };
+  return { width: one.width, height: one.height, planes, storedAs, ome: omeImage, omeXml: ome };
 }
