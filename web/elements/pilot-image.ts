@@ -2,11 +2,11 @@
  * <qdp-pilot-image>: unmixes a pilot image of a sample in this browser (the image is never sent anywhere). The user
  * loads a multi-page TIFF or OME-TIFF (one grey page per channel or lambda bin) or the demo image, read in a Web
  * Worker (progress, "Stop reading"), checks which page each panel channel reads, picks NNLS or least squares and runs
- * it in another Web Worker (progress, Cancel). It shows one
- * abundance map per probe and the residual, lets the user mark rectangular regions (dragged on the image or typed)
- * labelled "unstained" or a probe, and "Measure controls" fires a bubbling, composed `controls-measured` event with
- * the regions' means, sd and pixel counts per channel. Downloads: the maps as a 32-bit float TIFF, the region means as
- * CSV. A refused file leaves the panel and any image already loaded as they were.
+ * it in another Web Worker (progress, Cancel). It shows one abundance map per probe and the residual, lets the user
+ * mark rectangular regions (dragged on the image or typed) labelled "unstained" or a probe, and "Measure controls"
+ * fires a bubbling, composed `controls-measured` event with the regions' means, sd and pixel counts per channel.
+ * Downloads: the maps as a 32-bit float TIFF, the region means as CSV. A refused file leaves the panel and any image
+ * already loaded as they were.
  */
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
